@@ -1,0 +1,8 @@
+import next from "eslint-config-next";
+
+const config = [
+  { ignores: [".next/**", "node_modules/**", ".data/**", "db/migrations/**", "test-results/**", "next-env.d.ts"] },
+  ...next,
+];
+
+export default config;

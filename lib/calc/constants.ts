@@ -1,0 +1,61 @@
+/**
+ * Physical constants and default fuel-component properties. Exact conversion factors are from
+ * NIST SP 811 (appendix B); fuel properties are the defaults of the calculation spec, which a
+ * shop may override.
+ */
+
+/** 1 lb = 0.45359237 kg exactly (NIST SP 811). */
+export const KG_PER_LB = 0.45359237;
+/** 1 US gallon = 3.785411784 L exactly (NIST SP 811). */
+export const L_PER_US_GAL = 3.785411784;
+/** 1 psi = 6.894757293168 kPa (NIST SP 811). */
+export const KPA_PER_PSI = 6.894757293168;
+/** 1 hp (550 ft·lbf/s) = 0.74569987158227 kW (NIST SP 811). */
+export const KW_PER_HP = 0.74569987158227022;
+/** 1 metric horsepower (PS) = 0.73549875 kW (NIST SP 811). */
+export const KW_PER_PS = 0.73549875;
+/** Standard atmosphere, kPa absolute. */
+export const ATMOSPHERE_KPA = 101.325;
+/** Specific gas constant of dry air, J/(kg·K). */
+export const R_AIR_J_PER_KG_K = 287.05;
+/** Mass fraction of oxygen in dry air (CRC Handbook, 23.14 %). */
+export const OXYGEN_MASS_FRACTION_AIR = 0.2314;
+/** Standard atomic masses, g/mol. */
+export const ATOMIC_MASS = { C: 12.011, H: 1.008, O: 15.999 } as const;
+/** Electrical resistivity of annealed copper at 20 °C, Ω·m (IEC 60028, 100 % IACS). */
+export const COPPER_RESISTIVITY_OHM_M = 1.7241e-8;
+
+/** Elemental mass fractions of a compound CxHyOz. */
+export function compositionOf(c: number, h: number, o: number) {
+  const m = c * ATOMIC_MASS.C + h * ATOMIC_MASS.H + o * ATOMIC_MASS.O;
+  return {
+    carbonMassFraction: (c * ATOMIC_MASS.C) / m,
+    hydrogenMassFraction: (h * ATOMIC_MASS.H) / m,
+    oxygenMassFraction: (o * ATOMIC_MASS.O) / m,
+  };
+}
+
+export interface FuelComponent {
+  densityKgPerL: number;
+  stoichAfr: number;
+  lowerHeatingValueMjPerKg: number;
+  /** Dynamic viscosity at about 20 °C. */
+  viscosityMPaS: number;
+}
+
+/**
+ * Ethanol-free gasoline base. Density 0.745 kg/L at 15 °C (mid EN 228 range 0.720–0.775);
+ * stoich 14.7; LHV ≈ 43 MJ/kg. Viscosity 0.41 mPa·s: AFDC's kinematic 0.5–0.6 mm²/s at 20 °C
+ * times the density.
+ */
+export const GASOLINE: FuelComponent = {
+  densityKgPerL: 0.745,
+  stoichAfr: 14.7,
+  lowerHeatingValueMjPerKg: 43.0,
+  viscosityMPaS: 0.41,
+};
+
+/** Ethanol C2H5OH, composition for the stoichiometric ratio computed from chemistry. */
+export const ETHANOL_COMPOSITION = compositionOf(2, 6, 1);
+/** Methanol CH3OH. */
+export const METHANOL_COMPOSITION = compositionOf(1, 4, 1);

@@ -1,0 +1,44 @@
+/**
+ * Fuelwright's calculation library: pure functions, no I/O. The browser, the server actions,
+ * the PDF renderer and the JSON API all call this one implementation.
+ */
+export { CalcInputError } from "./_lib/errors";
+export * from "./constants";
+export { fuelBlend, stoichAfrFromComposition, afrFromLambda, lambdaFromAfr, ETHANOL, METHANOL, E85_STANDARD_RANGES, DEFAULT_E85_RANGE } from "./fuel";
+export type { Composition, FuelBlend, FuelProperties } from "./fuel";
+export { mixFuels, volumeToAdd, fillSplit, ethanolFromFlexSensorHz, flexSensorHzFromEthanol, FLEX_SENSOR_HZ } from "./blend";
+export type { FuelVolume, VolumeToAddQuery, VolumeToAddResult, FillSplitQuery, FillSplitResult } from "./blend";
+export { crankPowerFromWheel, fuelMassFlowGPerMin, defaultBsfc, DEFAULT_BSFC, G_PER_KWH_PER_LB_PER_HP_H } from "./power";
+export type { Aspiration, BsfcDefaults, BsfcEstimate } from "./power";
+export {
+  injectorFlowAtPressure,
+  injectorDifferentialPressureKpa,
+  railPressureKpa,
+  injectorDutyPct,
+  requiredInjectorFlowCcPerMin,
+  cycleTimeMs,
+  deadTimeMs,
+  idleFuelPerCylinderMg,
+  gaugeFromAbsKpa,
+} from "./injectors";
+export type { RegulatorType, DeadTimeTable } from "./injectors";
+export { pumpFlowLPerH, pumpsSupplyLPerH, pumpSupplyFunction, pumpMarginPct } from "./pumps";
+export type { Pump, PumpCurve, PumpFlow } from "./pumps";
+export {
+  linePressureDrop,
+  frictionFactor,
+  laminarFrictionFactor,
+  swameeJainFrictionFactor,
+  colebrookFrictionFactor,
+  AN_SIZES,
+  anTubeOdMm,
+  DEFAULT_HOSE_ROUGHNESS_MM,
+} from "./lines";
+export type { LineSegment, LineDrop } from "./lines";
+export { awgDiameterMm, copperResistanceOhmPerM, wireVoltageDropV } from "./wire";
+export * from "./units";
+export * from "./schema";
+export { sizeFuelSystem, sizeParsedFuelSystem, CALC_VERSION } from "./size";
+export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
+export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve } from "./charts";
+export type { TraceStep, Warning, Severity } from "./types";

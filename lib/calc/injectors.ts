@@ -1,0 +1,109 @@
+import { CalcInputError, requirePositive, requireRange } from "./_lib/errors";
+import { clamp, interpolateLinear } from "./_lib/interpolate";
+import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
+
+/**
+ * Flow of an injector at another differential pressure, by the orifice law
+ * Q₂ = Q₁·√(ΔP₂/ΔP₁).
+ * @example injectorFlowAtPressure({ ratedFlowCcPerMin: 1000, ratedPressureKpa: 300, differentialPressureKpa: 400 }) // 1154.7
+ */
+export function injectorFlowAtPressure(q: { ratedFlowCcPerMin: number; ratedPressureKpa: number; differentialPressureKpa: number }): number {
+  requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e5, "Rated flow");
+  requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Rated pressure");
+  requireRange("differentialPressureKpa", q.differentialPressureKpa, 0, 1e4, "Differential pressure");
+  return q.ratedFlowCcPerMin * Math.sqrt(q.differentialPressureKpa / q.ratedPressureKpa);
+}
+
+export type RegulatorType = "boost-referenced" | "fixed";
+
+/**
+ * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
+ * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure; a fixed one
+ * leaves the rail at base, so ΔP = base − manifold (boost lowers it, vacuum raises it).
+ * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
+ */
+export function injectorDifferentialPressureKpa(q: { type: RegulatorType; basePressureKpa: number; manifoldKpa: number }): number {
+  return q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
+}
+
+/**
+ * Rail pressure (kPa gauge) the pump must reach at a manifold pressure: referenced base +
+ * boost; fixed base.
+ * @example railPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 150 }) // 450
+ */
+export function railPressureKpa(q: { type: RegulatorType; basePressureKpa: number; manifoldKpa: number }): number {
+  return q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
+}
+
+/**
+ * Injector duty (%) to deliver a fuel mass flow: duty = ṁ / (ρ · n · Q_op).
+ * @example injectorDutyPct({ fuelMassFlowGPerMin: 3000, densityKgPerL: 0.787, injectorCount: 6, flowAtOperatingCcPerMin: 1000 }) // 63.5
+ */
+export function injectorDutyPct(q: { fuelMassFlowGPerMin: number; densityKgPerL: number; injectorCount: number; flowAtOperatingCcPerMin: number }): number {
+  return (100 * q.fuelMassFlowGPerMin) / (q.densityKgPerL * q.injectorCount * q.flowAtOperatingCcPerMin);
+}
+
+/**
+ * Flow each injector must deliver at its operating pressure to carry ṁ at the design duty:
+ * Q_req = ṁ / (ρ · n · duty).
+ * @example requiredInjectorFlowCcPerMin({ fuelMassFlowGPerMin: 3000, densityKgPerL: 0.787, injectorCount: 6, designDutyPct: 80 }) // 794.2
+ */
+export function requiredInjectorFlowCcPerMin(q: { fuelMassFlowGPerMin: number; densityKgPerL: number; injectorCount: number; designDutyPct: number }): number {
+  return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
+}
+
+/** Length of one four-stroke cycle in ms: 120 000 / rpm. @example cycleTimeMs(6000) // 20 */
+export function cycleTimeMs(rpm: number): number {
+  requirePositive("rpm", rpm, 30000, "Engine speed");
+  return 120000 / rpm;
+}
+
+/** A dead-time (latency) table: rows by battery voltage, columns by differential pressure. */
+export interface DeadTimeTable {
+  voltages: number[];
+  pressuresKpa: number[];
+  /** deadTimeMs[i][j] at voltages[i] and pressuresKpa[j]. */
+  deadTimeMs: number[][];
+}
+
+/**
+ * Dead time by bilinear interpolation in voltage and ΔP, held at the table's edges outside it
+ * (then `outOfRange` is true).
+ * @example deadTimeMs({ voltages: [12, 14], pressuresKpa: [300, 400], deadTimeMs: [[1.0, 1.1], [0.8, 0.9]] }, 13, 350) // { value: 0.95, outOfRange: false }
+ */
+export function deadTimeMs(table: DeadTimeTable, voltage: number, pressureKpa: number): { value: number; outOfRange: boolean } {
+  const { voltages, pressuresKpa, deadTimeMs: grid } = table;
+  if (voltages.length === 0 || pressuresKpa.length === 0 || grid.length !== voltages.length || grid.some((r) => r.length !== pressuresKpa.length)) {
+    throw new CalcInputError("deadTime", "The dead-time table needs one row per voltage and one value per pressure");
+  }
+  const v = clamp(voltage, voltages[0]!, voltages[voltages.length - 1]!);
+  const p = clamp(pressureKpa, pressuresKpa[0]!, pressuresKpa[pressuresKpa.length - 1]!);
+  const outOfRange = v !== voltage || p !== pressureKpa;
+  // Interpolate each row in pressure, then the column of results in voltage.
+  const column = grid.map((row) => interpolateLinear(pressuresKpa, row, p).value);
+  return { value: interpolateLinear(voltages, column, v).value, outOfRange };
+}
+
+export interface IdleFuelQuery {
+  displacementL: number;
+  cylinders: number;
+  volumetricEfficiency: number;
+  manifoldKpaAbs: number;
+  intakeTempC: number;
+  stoichAfr: number;
+}
+
+/**
+ * Air mass per cylinder per cycle (ideal gas) and the fuel for λ = 1, in mg:
+ * m_air = (V_d / z) · VE · p_MAP / (R · T).
+ * @example idleFuelPerCylinderMg({ displacementL: 2, cylinders: 4, volumetricEfficiency: 0.8, manifoldKpaAbs: 35, intakeTempC: 30, stoichAfr: 14.7 }) // { airMg: 161.0, fuelMg: 10.95 }
+ */
+export function idleFuelPerCylinderMg(q: IdleFuelQuery): { airMg: number; fuelMg: number } {
+  const cylinderVolumeM3 = q.displacementL / 1000 / q.cylinders;
+  const airKg = (cylinderVolumeM3 * q.volumetricEfficiency * q.manifoldKpaAbs * 1000) / (R_AIR_J_PER_KG_K * (q.intakeTempC + 273.15));
+  const airMg = airKg * 1e6;
+  return { airMg, fuelMg: airMg / q.stoichAfr };
+}
+
+/** Manifold pressure in kPa gauge from an absolute reading at standard atmosphere. */
+export const gaugeFromAbsKpa = (absKpa: number): number => absKpa - ATMOSPHERE_KPA;

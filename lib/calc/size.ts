@@ -1,0 +1,638 @@
+import { CalcInputError } from "./_lib/errors";
+import { Tracer } from "./_lib/trace";
+import { fuelBlend, type FuelBlend } from "./fuel";
+import {
+  cycleTimeMs,
+  deadTimeMs,
+  gaugeFromAbsKpa,
+  idleFuelPerCylinderMg,
+  injectorDifferentialPressureKpa,
+  railPressureKpa,
+} from "./injectors";
+import { AN_SIZES, linePressureDrop, type LineDrop } from "./lines";
+import { defaultBsfc } from "./power";
+import { pumpMarginPct, pumpSupplyFunction } from "./pumps";
+import { FuelSystemInputSchema, type FuelSystemInput, type ParsedFuelSystemInput } from "./schema";
+import type { Severity, TraceStep, Warning } from "./types";
+import { wireVoltageDropV } from "./wire";
+
+/** Bumped whenever a formula or default changes, so saved results say what made them. */
+export const CALC_VERSION = "1.0.0";
+
+export interface BlendEnd {
+  ethanolVolPct: number;
+  densityKgPerL: number;
+  stoichAfr: number;
+  bsfcGPerKwh: number;
+  bsfcSource: "given" | "rule-of-thumb";
+  fuelMassFlowGPerMin: number;
+  fuelVolumeFlowLPerH: number;
+  requiredFlowAtOperatingCcPerMin: number;
+  requiredRatedFlowCcPerMin: number;
+  dutyPct: number;
+  powerCeilingKw: number;
+  pulseWidthRedline: PulseWidth;
+}
+
+export interface PulseWidth {
+  rpm: number;
+  cycleMs: number;
+  effectiveMs: number;
+  deadTimeMs: number | null;
+  commandedMs: number | null;
+}
+
+export interface LineResult extends LineDrop {
+  flowLPerH: number;
+  insideDiameterMm: number;
+  lengthM: number;
+  withinLimit: boolean;
+}
+
+export interface FuelSystemResult {
+  calcVersion: string;
+  wheelPowerKw: number;
+  crankPowerKw: number;
+  /** At the richest (highest-ethanol) end of the blend range. */
+  fuelMassFlowGPerMin: number;
+  fuelVolumeFlowLPerH: number;
+  blend: { lean: BlendEnd; rich: BlendEnd };
+  injector: {
+    count: number;
+    differentialPressureKpa: number;
+    flowAtOperatingCcPerMin: number;
+    requiredFlowAtOperatingCcPerMin: number;
+    requiredRatedFlowCcPerMin: number;
+    /** At the richest blend; the lean end is in `blend.lean.dutyPct`. */
+    dutyPct: number;
+    dutyBand: "ok" | "caution" | "danger" | "static";
+    powerCeilingKw: number;
+    pulseWidthRedline: PulseWidth;
+    pulseWidthIdle: PulseWidth & { differentialPressureKpa: number; minPulseWidthMs: number | null; fuelPerInjectionMg: number };
+  };
+  pump: {
+    voltageUsed: number;
+    wireDropV: number | null;
+    railPressureKpa: number;
+    outletPressureKpa: number;
+    demandLPerH: number;
+    supplyLPerH: number;
+    marginPct: number;
+    returnFlowLPerH: number;
+    powerCeilingKw: number;
+    idleRailPressureKpa: number;
+    idleSupplyLPerH: number;
+    idleReturnFlowLPerH: number;
+  };
+  lines: {
+    feed: LineResult | null;
+    return: LineResult | null;
+    recommendedFeedDash: number | null;
+    recommendedReturnDash: number | null;
+    assumedLengthM: number | null;
+  };
+  powerCeiling: { kw: number; limitedBy: "injectors" | "pump" | "feed-line"; headroomPct: number };
+  limits: { designDutyPct: number; dutyCautionPct: number; dutyDangerPct: number; minPumpMarginPct: number; maxLineDropKpa: number };
+  warnings: Warning[];
+  trace: TraceStep[];
+}
+
+const DEFAULT_LIMITS = { designDutyPct: 80, dutyCautionPct: 80, dutyDangerPct: 90, minPumpMarginPct: 25, maxLineDropKpa: 14 };
+/** Line length assumed for a recommendation when the build gives none. */
+const ASSUMED_LINE_LENGTH_M = 5;
+
+/**
+ * Sizes a fuel system: fuel needed at the target power across the blend range, injector duty,
+ * pulse widths, pump margin at rail pressure and real voltage, line drops, the power ceiling
+ * and what limits it, warnings and the worked trace. Validates with the schema first (throws
+ * CalcInputError naming the first bad field).
+ *
+ * @example sizeFuelSystem(demoInput).injector.dutyPct // e.g. 78.4
+ */
+export function sizeFuelSystem(input: FuelSystemInput): FuelSystemResult {
+  const parsed = FuelSystemInputSchema.safeParse(input);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    throw new CalcInputError(issue.path.join(".") || "input", issue.message);
+  }
+  return sizeParsedFuelSystem(parsed.data);
+}
+
+/** The same on input already parsed by the schema (hot paths: sweeps, charts). */
+export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemResult {
+  const t = new Tracer();
+  const warnings: Warning[] = [];
+  const warn = (code: string, severity: Severity, message: string, fix?: string) => warnings.push({ code, severity, message, fix });
+  const { engine, target, fuel, injectors, regulator, pumps, electrical } = input;
+  const l = input.limits;
+  const limits = l
+    ? { designDutyPct: l.designDutyPct, dutyCautionPct: l.dutyCautionPct, dutyDangerPct: l.dutyDangerPct, minPumpMarginPct: l.minPumpMarginPct, maxLineDropKpa: l.maxLineDropKpa }
+    : { ...DEFAULT_LIMITS };
+  const design = limits.designDutyPct / 100;
+  const n = injectors.count;
+
+  // Power
+  const wheelPowerKw = target.measuredAt === "wheel" ? target.powerKw : target.powerKw * (1 - target.drivetrainLossPct / 100);
+  const crankPowerKw =
+    target.measuredAt === "wheel"
+      ? t.add({
+          id: "crank-power",
+          label: "Crank power",
+          formula: "wheel power ÷ (1 − drivetrain loss)",
+          inputs: [
+            { label: "wheel power", value: target.powerKw, unit: "kW" },
+            { label: "drivetrain loss", value: target.drivetrainLossPct, unit: "%" },
+          ],
+          value: target.powerKw / (1 - target.drivetrainLossPct / 100),
+          unit: "kW",
+        })
+      : target.powerKw;
+
+  // Pressures at full load
+  const dpOp = injectorDifferentialPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: engine.maxBoostKpa });
+  t.add({
+    id: "injector-dp",
+    label: "Pressure across the injector at full boost",
+    formula: regulator.type === "boost-referenced" ? "base pressure (the regulator follows boost 1:1)" : "base pressure − boost",
+    inputs: [
+      { label: "base pressure", value: regulator.basePressureKpa, unit: "kPa" },
+      { label: "boost", value: engine.maxBoostKpa, unit: "kPa" },
+    ],
+    value: dpOp,
+    unit: "kPa",
+  });
+  const qOp = t.add({
+    id: "injector-flow-op",
+    label: "Injector flow at that pressure",
+    formula: "rated flow × √(pressure across ÷ rated pressure)",
+    inputs: [
+      { label: "rated flow", value: injectors.ratedFlowCcPerMin, unit: "cc/min" },
+      { label: "pressure across", value: dpOp, unit: "kPa" },
+      { label: "rated pressure", value: injectors.ratedPressureKpa, unit: "kPa" },
+    ],
+    value: injectors.ratedFlowCcPerMin * Math.sqrt(dpOp / injectors.ratedPressureKpa),
+    unit: "cc/min",
+  });
+
+  // Voltage at the pump
+  let voltageUsed = electrical.voltageAtPump;
+  let wireDropV: number | null = null;
+  if (electrical.wiring) {
+    wireDropV = wireVoltageDropV(electrical.wiring);
+    voltageUsed = t.add({
+      id: "pump-voltage",
+      label: "Voltage at the pump",
+      formula: "supply voltage − current × copper resistance of the wire (round trip)",
+      inputs: [
+        { label: "supply voltage", value: electrical.wiring.sourceVoltage, unit: "V" },
+        { label: "current", value: electrical.wiring.currentA, unit: "A" },
+        { label: "gauge", value: electrical.wiring.gaugeAwg, unit: "AWG" },
+        { label: "length", value: electrical.wiring.roundTripLengthM, unit: "m" },
+      ],
+      value: Math.max(0, electrical.wiring.sourceVoltage - wireDropV),
+      unit: "V",
+    });
+  }
+
+  const dead = (dp: number): number | null => (injectors.deadTime ? deadTimeMs(injectors.deadTime, voltageUsed, dp).value : null);
+  const redlineCycle = cycleTimeMs(engine.redlineRpm);
+
+  const endOf = (ethanolVolPct: number, which: "lean" | "rich"): { props: FuelBlend; end: BlendEnd } => {
+    const b = fuelBlend(ethanolVolPct);
+    const tag = which === "lean" ? "lowest" : "highest";
+    let bsfc: number;
+    let bsfcSource: BlendEnd["bsfcSource"];
+    if (fuel.bsfcGPerKwh !== undefined) {
+      bsfc = fuel.bsfcGPerKwh;
+      bsfcSource = "given";
+    } else {
+      const est = defaultBsfc({ ethanolVolPct, aspiration: engine.aspiration, targetLambda: fuel.targetLambda, defaults: fuel.bsfcDefaults });
+      bsfcSource = "rule-of-thumb";
+      bsfc = t.add({
+        id: `bsfc-${which}`,
+        label: `BSFC at E${ethanolVolPct} (${tag} ethanol)`,
+        formula: "gasoline and E85 rules of thumb, linear in ethanol %, × reference lambda ÷ target lambda",
+        inputs: [
+          { label: "at reference lambda", value: est.atReferenceGPerKwh, unit: "g/kWh" },
+          { label: "reference lambda", value: est.referenceLambda, unit: "λ" },
+          { label: "target lambda", value: fuel.targetLambda ?? est.referenceLambda, unit: "λ" },
+        ],
+        value: est.bsfcGPerKwh,
+        unit: "g/kWh",
+      });
+    }
+    const mdot = t.add({
+      id: `fuel-mass-${which}`,
+      label: `Fuel needed at E${ethanolVolPct}`,
+      formula: "crank power × BSFC ÷ 60",
+      inputs: [
+        { label: "crank power", value: crankPowerKw, unit: "kW" },
+        { label: "BSFC", value: bsfc, unit: "g/kWh" },
+      ],
+      value: (crankPowerKw * bsfc) / 60,
+      unit: "g/min",
+    });
+    const volLPerH = (mdot / b.densityKgPerL) * 0.06;
+    const reqOp = t.add({
+      id: `injector-required-${which}`,
+      label: `Flow each injector must give at E${ethanolVolPct}`,
+      formula: "fuel needed ÷ (density × injectors × design duty)",
+      inputs: [
+        { label: "fuel needed", value: mdot, unit: "g/min" },
+        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
+        { label: "injectors", value: n, unit: "" },
+        { label: "design duty", value: limits.designDutyPct, unit: "%" },
+      ],
+      value: mdot / (b.densityKgPerL * n * design),
+      unit: "cc/min",
+    });
+    const reqRated = t.add({
+      id: `injector-rating-${which}`,
+      label: `Smallest injector rating at E${ethanolVolPct}`,
+      formula: "required flow × √(rated pressure ÷ pressure across)",
+      inputs: [
+        { label: "required flow", value: reqOp, unit: "cc/min" },
+        { label: "rated pressure", value: injectors.ratedPressureKpa, unit: "kPa" },
+        { label: "pressure across", value: dpOp, unit: "kPa" },
+      ],
+      value: reqOp * Math.sqrt(injectors.ratedPressureKpa / dpOp),
+      unit: "cc/min",
+    });
+    const duty = t.add({
+      id: `duty-${which}`,
+      label: `Injector duty at E${ethanolVolPct}`,
+      formula: "fuel needed ÷ (density × injectors × injector flow) × 100",
+      inputs: [
+        { label: "fuel needed", value: mdot, unit: "g/min" },
+        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
+        { label: "injectors", value: n, unit: "" },
+        { label: "injector flow", value: qOp, unit: "cc/min" },
+      ],
+      value: (100 * mdot) / (b.densityKgPerL * n * qOp),
+      unit: "%",
+    });
+    const ceiling = t.add({
+      id: `injector-ceiling-${which}`,
+      label: `Injector power ceiling at E${ethanolVolPct}`,
+      formula: "design duty × injectors × injector flow × density × 60 ÷ BSFC",
+      inputs: [
+        { label: "design duty", value: limits.designDutyPct, unit: "%" },
+        { label: "injectors", value: n, unit: "" },
+        { label: "injector flow", value: qOp, unit: "cc/min" },
+        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
+        { label: "BSFC", value: bsfc, unit: "g/kWh" },
+      ],
+      value: (design * n * qOp * b.densityKgPerL * 60) / bsfc,
+      unit: "kW",
+    });
+    const effective = (duty / 100) * redlineCycle;
+    const dt = dead(dpOp);
+    const end: BlendEnd = {
+      ethanolVolPct,
+      densityKgPerL: b.densityKgPerL,
+      stoichAfr: b.stoichAfr,
+      bsfcGPerKwh: bsfc,
+      bsfcSource,
+      fuelMassFlowGPerMin: mdot,
+      fuelVolumeFlowLPerH: volLPerH,
+      requiredFlowAtOperatingCcPerMin: reqOp,
+      requiredRatedFlowCcPerMin: reqRated,
+      dutyPct: duty,
+      powerCeilingKw: ceiling,
+      pulseWidthRedline: {
+        rpm: engine.redlineRpm,
+        cycleMs: redlineCycle,
+        effectiveMs: effective,
+        deadTimeMs: dt,
+        commandedMs: dt === null ? null : effective + dt,
+      },
+    };
+    return { props: b, end };
+  };
+
+  const { props: leanProps, end: lean } = endOf(fuel.ethanolMinVolPct, "lean");
+  const { props: richProps, end: rich } = endOf(fuel.ethanolMaxVolPct, "rich");
+  t.add({
+    id: "pulse-redline",
+    label: `Effective pulse width at ${engine.redlineRpm} rpm (E${rich.ethanolVolPct})`,
+    formula: "duty × (120 000 ÷ rpm)",
+    inputs: [
+      { label: "duty", value: rich.dutyPct, unit: "%" },
+      { label: "cycle", value: redlineCycle, unit: "ms" },
+    ],
+    value: rich.pulseWidthRedline.effectiveMs,
+    unit: "ms",
+  });
+
+  // Idle: the least fuel is needed at the lowest ethanol content.
+  const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs);
+  const dpIdle = injectorDifferentialPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: idleManifoldGauge });
+  const idleFuel = idleFuelPerCylinderMg({
+    displacementL: engine.displacementL,
+    cylinders: engine.cylinders,
+    volumetricEfficiency: engine.idleVolumetricEfficiency,
+    manifoldKpaAbs: engine.idleManifoldKpaAbs,
+    intakeTempC: engine.intakeTempC,
+    stoichAfr: leanProps.stoichAfr,
+  });
+  const fuelPerInjectionMg = (idleFuel.fuelMg * engine.cylinders) / n;
+  const qIdle = injectors.ratedFlowCcPerMin * Math.sqrt(dpIdle / injectors.ratedPressureKpa);
+  const idleEffective = t.add({
+    id: "pulse-idle",
+    label: `Effective pulse width at idle (E${lean.ethanolVolPct}, λ 1)`,
+    formula: "fuel per injection ÷ density ÷ injector flow at idle pressure × 60 000",
+    inputs: [
+      { label: "air per cylinder", value: idleFuel.airMg, unit: "mg" },
+      { label: "fuel per injection", value: fuelPerInjectionMg, unit: "mg" },
+      { label: "density", value: leanProps.densityKgPerL, unit: "kg/L" },
+      { label: "pressure across at idle", value: dpIdle, unit: "kPa" },
+      { label: "injector flow at idle", value: qIdle, unit: "cc/min" },
+    ],
+    value: ((fuelPerInjectionMg / 1000 / leanProps.densityKgPerL) / qIdle) * 60000,
+    unit: "ms",
+  });
+  const idleDead = dead(dpIdle);
+
+  // Pump: outlet pressure = rail + filter + feed-line drop at the pump's own flow (fixed point).
+  const rail = railPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: engine.maxBoostKpa });
+  const demand = rich.fuelVolumeFlowLPerH;
+  const feedLine = input.lines?.feed;
+  const returnLine = input.lines?.return;
+  const fluid = (flowLPerH: number) => ({ flowLPerH, densityKgPerL: richProps.densityKgPerL, viscosityMPaS: richProps.viscosityMPaS });
+  const supplyAt = pumpSupplyFunction(pumps);
+  const base = rail + (feedLine?.filterDropKpa ?? 0);
+  let outlet = base;
+  let feedDrop: LineDrop | null = null;
+  if (feedLine) {
+    // The outlet pressure p solves g(p) = p − base − drop(supply(p)) = 0; g rises with p and
+    // the root lies between base and base + drop(supply(base)). Illinois false position.
+    const g = (p: number) => p - base - linePressureDrop(feedLine, fluid(supplyAt(p, voltageUsed).flowLPerH)).pressureDropKpa;
+    let lo = base;
+    let glo = g(lo);
+    let hi = base - glo;
+    let ghi = g(hi);
+    outlet = hi;
+    if (glo < 0 && ghi > 0) {
+      let side = 0;
+      for (let i = 0; i < 60; i++) {
+        const p = (lo * ghi - hi * glo) / (ghi - glo);
+        const gp = g(p);
+        outlet = p;
+        if (Math.abs(gp) < 0.01) break;
+        if (gp < 0) {
+          lo = p;
+          glo = gp;
+          if (side === -1) ghi /= 2;
+          side = -1;
+        } else {
+          hi = p;
+          ghi = gp;
+          if (side === 1) glo /= 2;
+          side = 1;
+        }
+      }
+    } else if (glo >= 0) outlet = lo;
+    feedDrop = linePressureDrop(feedLine, fluid(supplyAt(outlet, voltageUsed).flowLPerH));
+  }
+  const supply = supplyAt(outlet, voltageUsed);
+  t.add({
+    id: "pump-outlet",
+    label: "Pressure the pump works against",
+    formula: regulator.type === "boost-referenced" ? "base pressure + boost + filter and feed-line losses" : "base pressure + filter and feed-line losses",
+    inputs: [
+      { label: "rail pressure", value: rail, unit: "kPa" },
+      { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, unit: "kPa" },
+      { label: "feed-line drop", value: feedDrop?.pressureDropKpa ?? 0, unit: "kPa" },
+    ],
+    value: outlet,
+    unit: "kPa",
+  });
+  t.add({
+    id: "pump-demand",
+    label: `Fuel demand at E${rich.ethanolVolPct}`,
+    formula: "fuel needed ÷ density × 0.06",
+    inputs: [
+      { label: "fuel needed", value: rich.fuelMassFlowGPerMin, unit: "g/min" },
+      { label: "density", value: rich.densityKgPerL, unit: "kg/L" },
+    ],
+    value: demand,
+    unit: "L/h",
+  });
+  t.add({
+    id: "pump-supply",
+    label: "Pump supply",
+    formula: "sum over pumps of quantity × flow on the curve at the outlet pressure and voltage",
+    inputs: [
+      { label: "outlet pressure", value: outlet, unit: "kPa" },
+      { label: "voltage", value: voltageUsed, unit: "V" },
+    ],
+    value: supply.flowLPerH,
+    unit: "L/h",
+  });
+  const margin = t.add({
+    id: "pump-margin",
+    label: "Pump margin",
+    formula: "(supply ÷ demand − 1) × 100",
+    inputs: [
+      { label: "supply", value: supply.flowLPerH, unit: "L/h" },
+      { label: "demand", value: demand, unit: "L/h" },
+    ],
+    value: pumpMarginPct(supply.flowLPerH, demand),
+    unit: "%",
+  });
+  const pumpCeiling = t.add({
+    id: "pump-ceiling",
+    label: "Pump power ceiling",
+    formula: "supply ÷ (1 + minimum margin) × density × 1000 ÷ BSFC",
+    inputs: [
+      { label: "supply", value: supply.flowLPerH, unit: "L/h" },
+      { label: "minimum margin", value: limits.minPumpMarginPct, unit: "%" },
+      { label: "density", value: rich.densityKgPerL, unit: "kg/L" },
+      { label: "BSFC", value: rich.bsfcGPerKwh, unit: "g/kWh" },
+    ],
+    value: ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * rich.densityKgPerL * 1000) / rich.bsfcGPerKwh,
+    unit: "kW",
+  });
+
+  // Idle: the return line carries almost the whole pump flow.
+  const idleRail = railPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: idleManifoldGauge });
+  const idleSupply = supplyAt(Math.max(0, idleRail), voltageUsed);
+  const idleConsumptionLPerH = ((idleFuel.fuelMg * engine.cylinders * (engine.idleRpm / 2)) / 1000 / leanProps.densityKgPerL) * 0.06;
+  const idleReturn = Math.max(0, idleSupply.flowLPerH - idleConsumptionLPerH);
+
+  // Lines
+  const lineResult = (line: { insideDiameterMm: number; lengthM: number; roughnessMm?: number; fittingsK: number }, flow: number): LineResult => {
+    // Fields listed one by one: object spread is slow on V8's hot path here (measured, ~8 µs).
+    const d = linePressureDrop(line, fluid(flow));
+    return {
+      velocityMPerS: d.velocityMPerS,
+      reynolds: d.reynolds,
+      regime: d.regime,
+      frictionFactor: d.frictionFactor,
+      pressureDropKpa: d.pressureDropKpa,
+      flowLPerH: flow,
+      insideDiameterMm: line.insideDiameterMm,
+      lengthM: line.lengthM,
+      withinLimit: d.pressureDropKpa <= limits.maxLineDropKpa,
+    };
+  };
+  const feed = feedLine ? lineResult(feedLine, supply.flowLPerH) : null;
+  const ret = returnLine ? lineResult(returnLine, idleReturn) : null;
+  if (feed) {
+    t.add({
+      id: "feed-drop",
+      label: "Feed-line pressure drop at full load",
+      formula: "(friction factor × length ÷ diameter + fittings K) × density × velocity² ÷ 2",
+      inputs: [
+        { label: "flow", value: feed.flowLPerH, unit: "L/h" },
+        { label: "inside diameter", value: feed.insideDiameterMm, unit: "mm" },
+        { label: "velocity", value: feed.velocityMPerS, unit: "m/s" },
+        { label: "Reynolds number", value: feed.reynolds, unit: "" },
+        { label: "friction factor", value: feed.frictionFactor, unit: "" },
+      ],
+      value: feed.pressureDropKpa,
+      unit: "kPa",
+    });
+  }
+  if (ret) {
+    t.add({
+      id: "return-drop",
+      label: "Return-line pressure drop at idle",
+      formula: "(friction factor × length ÷ diameter + fittings K) × density × velocity² ÷ 2",
+      inputs: [
+        { label: "return flow at idle", value: ret.flowLPerH, unit: "L/h" },
+        { label: "inside diameter", value: ret.insideDiameterMm, unit: "mm" },
+        { label: "velocity", value: ret.velocityMPerS, unit: "m/s" },
+        { label: "friction factor", value: ret.frictionFactor, unit: "" },
+      ],
+      value: ret.pressureDropKpa,
+      unit: "kPa",
+    });
+  }
+  const recommend = (flow: number, like?: { lengthM: number; roughnessMm?: number; fittingsK: number }): number | null => {
+    for (const size of AN_SIZES) {
+      const drop = linePressureDrop({ insideDiameterMm: size.typicalHoseIdMm, lengthM: like?.lengthM ?? ASSUMED_LINE_LENGTH_M, roughnessMm: like?.roughnessMm, fittingsK: like?.fittingsK ?? 0 }, fluid(flow));
+      if (drop.pressureDropKpa <= limits.maxLineDropKpa) return size.dash;
+    }
+    return null;
+  };
+  const recommendedFeedDash = recommend(supply.flowLPerH, feedLine);
+  const recommendedReturnDash = recommend(idleReturn, returnLine);
+
+  // Ceiling
+  const injCeiling = Math.min(lean.powerCeilingKw, rich.powerCeilingKw);
+  const pumpLimited = pumpCeiling < injCeiling;
+  const ceilingKw = Math.min(injCeiling, pumpCeiling);
+  const limitedBy: FuelSystemResult["powerCeiling"]["limitedBy"] = pumpLimited ? (feed && !feed.withinLimit ? "feed-line" : "pump") : "injectors";
+
+  // Warnings
+  const dutyMax = Math.max(lean.dutyPct, rich.dutyPct);
+  const dutyBand = dutyMax >= 100 ? "static" : dutyMax > limits.dutyDangerPct ? "danger" : dutyMax > limits.dutyCautionPct ? "caution" : "ok";
+  const needRating = Math.max(lean.requiredRatedFlowCcPerMin, rich.requiredRatedFlowCcPerMin);
+  const biggerInjector = `Fit injectors rated at least ${Math.ceil(needRating)} cc/min at ${injectors.ratedPressureKpa} kPa, add injectors, or raise the base pressure.`;
+  if (dutyBand === "static") {
+    warn("injector-static", "danger", `The injectors would need ${dutyMax.toFixed(0)} % duty at E${rich.ethanolVolPct}: they cannot deliver the fuel for this power.`, biggerInjector);
+  } else if (dutyBand === "danger") {
+    warn("injector-duty-danger", "danger", `Injector duty reaches ${dutyMax.toFixed(0)} %: almost no headroom for a richer blend, hot fuel or voltage sag.`, biggerInjector);
+  } else if (dutyBand === "caution") {
+    warn("injector-duty-caution", "caution", `Injector duty reaches ${dutyMax.toFixed(0)} %, above the ${limits.dutyCautionPct} % comfort level.`, biggerInjector);
+  }
+  if (regulator.type === "fixed" && engine.maxBoostKpa > 0) {
+    warn("fixed-regulator-boost", "caution", `With a fixed regulator the pressure across the injectors falls from ${regulator.basePressureKpa} to ${dpOp.toFixed(0)} kPa at full boost, and injector flow falls with it.`, "Use a boost-referenced regulator, or size the injectors for the pressure at full boost (done here).");
+  }
+  if (injectors.minPulseWidthMs !== undefined && idleEffective < injectors.minPulseWidthMs) {
+    warn("idle-pulse-short", "caution", `At idle the injectors would open for ${idleEffective.toFixed(2)} ms, below their ${injectors.minPulseWidthMs} ms minimum: expect a rough, uneven idle.`, "Choose smaller injectors, lower the base pressure, or raise idle speed or airflow.");
+  }
+  if (!injectors.deadTime) {
+    warn("dead-time-missing", "info", "No dead-time table for these injectors: commanded pulse widths cannot be given, only effective opening times.", "Enter the injector's dead-time table (from its data sheet) or pick it from the catalog.");
+  } else if (deadTimeMs(injectors.deadTime, voltageUsed, dpOp).outOfRange || deadTimeMs(injectors.deadTime, voltageUsed, dpIdle).outOfRange) {
+    warn("dead-time-outside-table", "info", "The voltage or pressure lies outside the injector's dead-time table; the nearest edge of the table was used.", "Extend the dead-time table to the operating voltage and pressure.");
+  }
+  if (supply.flowLPerH < demand) {
+    warn("pump-short", "danger", `The pumps deliver ${supply.flowLPerH.toFixed(0)} L/h at ${outlet.toFixed(0)} kPa and ${voltageUsed.toFixed(1)} V, less than the ${demand.toFixed(0)} L/h the engine needs: the rail pressure will collapse at full load.`, "Add a pump or fit a larger one, raise the voltage at the pump, or lower the target power.");
+  } else if (margin < limits.minPumpMarginPct) {
+    warn("pump-margin-low", "caution", `Pump margin is ${margin.toFixed(0)} %, below the ${limits.minPumpMarginPct} % minimum.`, "Fit a larger pump or a second one, or improve the pump's wiring.");
+  }
+  if (supply.pressureOutOfRange) {
+    warn("pump-curve-pressure-range", "caution", `The pump curve has no data at ${outlet.toFixed(0)} kPa; its end segment was extended, so the supply figure is an estimate.`, "Enter curve points that cover the working pressure.");
+  }
+  if (supply.voltageOutOfRange) {
+    warn("pump-curve-voltage-range", "caution", `The pump curves do not cover ${voltageUsed.toFixed(1)} V; the nearest tested voltages were extended.`, "Enter a curve at (or around) the real voltage at the pump.");
+  }
+  if (electrical.wiring && wireDropV !== null && wireDropV > 0.5) {
+    warn("pump-wire-drop", "caution", `The pump wiring loses ${wireDropV.toFixed(2)} V at ${electrical.wiring.currentA} A.`, "Use heavier wire, a shorter run or a relay close to the pump.");
+  }
+  if (feed && !feed.withinLimit) {
+    warn("feed-line-drop", "caution", `The feed line loses ${feed.pressureDropKpa.toFixed(1)} kPa at ${feed.flowLPerH.toFixed(0)} L/h, above the ${limits.maxLineDropKpa} kPa limit.`, recommendedFeedDash ? `Use −${recommendedFeedDash} AN or larger.` : "Use a larger line than −12 AN or split the feed.");
+  }
+  if (ret && !ret.withinLimit) {
+    warn("return-line-drop", "caution", `At idle the return line carries ${ret.flowLPerH.toFixed(0)} L/h and loses ${ret.pressureDropKpa.toFixed(1)} kPa: rail pressure will sit high at idle and the fuel will heat.`, recommendedReturnDash ? `Use −${recommendedReturnDash} AN or larger for the return.` : "Use a larger return line.");
+  }
+  if (supply.flowLPerH > 0 && supply.flowLPerH - demand <= 0.05 * supply.flowLPerH && supply.flowLPerH >= demand) {
+    warn("no-return-flow", "caution", "At full load almost no fuel returns to the tank: the regulator is at the edge of regulating.", "A return-style system must always return some fuel; add pump capacity.");
+  }
+  if (ceilingKw < crankPowerKw) {
+    warn("ceiling-below-target", "danger", `The system tops out at ${ceilingKw.toFixed(0)} kW crank, below the ${crankPowerKw.toFixed(0)} kW target (limited by the ${limitedBy}).`, pumpLimited ? "Add pump capacity." : biggerInjector);
+  }
+  if (lean.bsfcSource === "rule-of-thumb") {
+    warn("bsfc-rule-of-thumb", "info", "BSFC comes from rules of thumb; verify the fuel flow on the dyno.", "Enter a measured BSFC once the engine has been on the dyno.");
+  }
+  if (fuel.ethanolMaxVolPct - fuel.ethanolMinVolPct >= 20) {
+    warn("blend-range-flex", "info", `The blend can run from E${fuel.ethanolMinVolPct} to E${fuel.ethanolMaxVolPct}: the tune needs an ethanol content sensor to follow it.`, "Fit an ethanol content sensor and a flex-fuel tune.");
+  }
+
+  return {
+    calcVersion: CALC_VERSION,
+    wheelPowerKw,
+    crankPowerKw,
+    fuelMassFlowGPerMin: rich.fuelMassFlowGPerMin,
+    fuelVolumeFlowLPerH: rich.fuelVolumeFlowLPerH,
+    blend: { lean, rich },
+    injector: {
+      count: n,
+      differentialPressureKpa: dpOp,
+      flowAtOperatingCcPerMin: qOp,
+      requiredFlowAtOperatingCcPerMin: Math.max(lean.requiredFlowAtOperatingCcPerMin, rich.requiredFlowAtOperatingCcPerMin),
+      requiredRatedFlowCcPerMin: needRating,
+      dutyPct: rich.dutyPct,
+      dutyBand,
+      powerCeilingKw: injCeiling,
+      pulseWidthRedline: rich.pulseWidthRedline,
+      pulseWidthIdle: {
+        rpm: engine.idleRpm,
+        cycleMs: cycleTimeMs(engine.idleRpm),
+        effectiveMs: idleEffective,
+        deadTimeMs: idleDead,
+        commandedMs: idleDead === null ? null : idleEffective + idleDead,
+        differentialPressureKpa: dpIdle,
+        minPulseWidthMs: injectors.minPulseWidthMs ?? null,
+        fuelPerInjectionMg,
+      },
+    },
+    pump: {
+      voltageUsed,
+      wireDropV,
+      railPressureKpa: rail,
+      outletPressureKpa: outlet,
+      demandLPerH: demand,
+      supplyLPerH: supply.flowLPerH,
+      marginPct: margin,
+      returnFlowLPerH: Math.max(0, supply.flowLPerH - demand),
+      powerCeilingKw: pumpCeiling,
+      idleRailPressureKpa: idleRail,
+      idleSupplyLPerH: idleSupply.flowLPerH,
+      idleReturnFlowLPerH: idleReturn,
+    },
+    lines: {
+      feed,
+      return: ret,
+      recommendedFeedDash,
+      recommendedReturnDash,
+      assumedLengthM: feedLine && returnLine ? null : ASSUMED_LINE_LENGTH_M,
+    },
+    powerCeiling: { kw: ceilingKw, limitedBy, headroomPct: (ceilingKw / crankPowerKw - 1) * 100 },
+    limits,
+    warnings,
+    trace: t.steps,
+  };
+}
