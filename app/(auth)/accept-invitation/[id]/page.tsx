@@ -1,0 +1,39 @@
+import { headers } from "next/headers";
+import { findUserByEmail, getInvitation } from "@/db/queries/shops";
+import { auth } from "@/lib/auth";
+import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
+import { AcceptForm, AcceptSignedInButton } from "./accept-form";
+
+export default async function AcceptInvitationPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const inv = await getInvitation(id);
+  const bad = !inv ? "This invitation does not exist." : inv.invitation.status !== "pending" ? "This invitation has already been used or withdrawn." : inv.invitation.expiresAt < new Date() ? "This invitation has expired; ask the shop for a new one." : null;
+  if (bad || !inv) {
+    return (
+      <>
+        <h1 className="text-2xl font-bold">Invitation</h1>
+        <p className="mt-4 text-danger-700">✕ {bad}</p>
+      </>
+    );
+  }
+  const role = isRole(inv.invitation.role) ? ROLE_LABELS[inv.invitation.role] : "member";
+  const session = await auth.api.getSession({ headers: await headers() });
+  const existing = await findUserByEmail(inv.invitation.email);
+  return (
+    <>
+      <h1 className="text-2xl font-bold">Join {inv.shopName}</h1>
+      <p className="mt-2 text-ink-700">
+        You are invited as <strong>{role}</strong> with the e-mail <strong>{inv.invitation.email}</strong>.
+      </p>
+      {existing ? (
+        session?.user.email === inv.invitation.email ? (
+          <AcceptSignedInButton invitationId={id} />
+        ) : (
+          <p className="mt-4 text-ink-700">This e-mail already has an account. <a className="text-copper-600 underline" href="/sign-in">Sign in</a> as {inv.invitation.email}, then open this link again.</p>
+        )
+      ) : (
+        <AcceptForm invitationId={id} />
+      )}
+    </>
+  );
+}

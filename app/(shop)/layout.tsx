@@ -1,0 +1,8 @@
+import type { ReactNode } from "react";
+import { AppFrame } from "@/components/shell/app-frame";
+import { requirePageMember } from "@/lib/auth/member";
+
+export default async function ShopLayout({ children }: { children: ReactNode }) {
+  const member = await requirePageMember("staff:view");
+  return <AppFrame member={member}>{children}</AppFrame>;
+}

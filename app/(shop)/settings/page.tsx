@@ -1,0 +1,79 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { PageHeader } from "@/components/ui/status";
+import { getShopSettings, listMembers, listPendingInvitations } from "@/db/queries/shops";
+import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
+import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
+import { InviteForm, MemberRow } from "./members";
+import { SettingsForm } from "./settings-form";
+
+export const metadata: Metadata = { title: "Settings" };
+
+export default async function SettingsPage() {
+  const m = await requirePageMember("settings:read");
+  const s = await getShopSettings(m.shopId);
+  if (!s) notFound();
+  const owner = can(m.role, "members:manage");
+  const [members, invitations] = await Promise.all([listMembers(m.shopId), owner ? listPendingInvitations(m.shopId) : Promise.resolve([])]);
+  return (
+    <>
+      <PageHeader title="Settings" />
+      <div className="grid gap-8 xl:grid-cols-[1fr_26rem]">
+        <section aria-labelledby="shop-defaults" className="rounded-lg border border-ink-200 bg-white p-5">
+          <h2 id="shop-defaults" className="text-xl font-semibold">Shop defaults</h2>
+          {!can(m.role, "settings:update") ? <p className="mt-1 text-sm text-ink-600">Only the owner can change these.</p> : null}
+          <SettingsForm
+            readOnly={!can(m.role, "settings:update")}
+            initial={{
+              shopName: s.name,
+              currency: s.settings.currency,
+              taxRatePct: String(s.settings.taxRateBp / 100),
+              units: s.settings.units,
+              address: s.settings.address ?? "",
+              phone: s.settings.phone ?? "",
+              bsfcGasolineNa: String(Math.round(s.settings.bsfcGasolineNa)),
+              bsfcGasolineBoosted: String(Math.round(s.settings.bsfcGasolineBoosted)),
+              bsfcE85Na: String(Math.round(s.settings.bsfcE85Na)),
+              bsfcE85Boosted: String(Math.round(s.settings.bsfcE85Boosted)),
+              designDutyPct: String(s.settings.designDutyPct),
+              dutyCautionPct: String(s.settings.dutyCautionPct),
+              dutyDangerPct: String(s.settings.dutyDangerPct),
+              minPumpMarginPct: String(s.settings.minPumpMarginPct),
+              maxLineDropKpa: String(s.settings.maxLineDropKpa),
+              lossManualPct: String(s.settings.lossManualPct),
+              lossAutomaticPct: String(s.settings.lossAutomaticPct),
+              lossAwdPct: String(s.settings.lossAwdPct),
+            }}
+          />
+        </section>
+        <section aria-labelledby="members" className="rounded-lg border border-ink-200 bg-white p-5">
+          <h2 id="members" className="text-xl font-semibold">Members</h2>
+          <ul className="mt-4 divide-y divide-ink-100">
+            {members.map((x) => (
+              <MemberRow key={x.id} member={{ id: x.id, name: x.name, email: x.email, role: isRole(x.role) ? x.role : "customer" }} editable={owner && x.userId !== m.user.id} />
+            ))}
+          </ul>
+          {owner ? (
+            <>
+              <h3 className="mt-6 text-lg font-semibold">Invite someone</h3>
+              <InviteForm />
+              <h3 className="mt-6 text-lg font-semibold">Pending invitations</h3>
+              {invitations.length === 0 ? (
+                <p className="mt-2 text-sm text-ink-600">None.</p>
+              ) : (
+                <ul className="mt-2 space-y-1 text-sm" aria-label="Pending invitations">
+                  {invitations.map((i) => (
+                    <li key={i.id}>
+                      {i.email} — {isRole(i.role) ? ROLE_LABELS[i.role] : i.role}, until {i.expiresAt.toISOString().slice(0, 10)}
+                    </li>
+                  ))}
+                </ul>
+              )}
+            </>
+          ) : null}
+        </section>
+      </div>
+    </>
+  );
+}

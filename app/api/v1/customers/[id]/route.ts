@@ -1,0 +1,39 @@
+import { z } from "zod";
+import { deleteCustomer, getCustomer, updateCustomer } from "@/db/queries/customers";
+import { NotFoundError } from "@/lib/auth/errors";
+import { requireMember } from "@/lib/auth/member";
+import { readJson } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handler";
+import { CustomerSchema } from "@/lib/validations/customers";
+
+type Ctx = { params: Promise<{ id: string }> };
+const Id = z.uuid();
+
+/** Another shop's customer, or an id that is not a UUID, is simply not found. */
+async function idOf(ctx: Ctx) {
+  const parsed = Id.safeParse((await ctx.params).id);
+  if (!parsed.success) throw new NotFoundError("That customer");
+  return parsed.data;
+}
+
+export const GET = handle<Ctx>(async (_req, ctx) => {
+  const m = await requireMember("customers:read");
+  const c = await getCustomer(m.shopId, await idOf(ctx));
+  if (!c) throw new NotFoundError("That customer");
+  return Response.json({ customer: c });
+});
+
+export const PATCH = handle<Ctx>(async (req, ctx) => {
+  const m = await requireMember("customers:write");
+  const id = await idOf(ctx);
+  const input = CustomerSchema.parse(await readJson(req));
+  const c = await updateCustomer(m.shopId, id, input);
+  if (!c) throw new NotFoundError("That customer");
+  return Response.json({ customer: c });
+});
+
+export const DELETE = handle<Ctx>(async (_req, ctx) => {
+  const m = await requireMember("customers:write");
+  if (!(await deleteCustomer(m.shopId, await idOf(ctx)))) throw new NotFoundError("That customer");
+  return new Response(null, { status: 204 });
+});

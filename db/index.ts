@@ -1,0 +1,24 @@
+import { drizzle } from "drizzle-orm/postgres-js";
+import postgres from "postgres";
+import { serverEnv } from "@/lib/env";
+import * as schema from "./schema";
+
+type Db = ReturnType<typeof drizzle<typeof schema>>;
+const globalForDb = globalThis as unknown as { fuelwrightDb?: Db; fuelwrightSql?: postgres.Sql };
+
+function connect(): Db {
+  const sql = postgres(serverEnv().DATABASE_URL, { max: 10, idle_timeout: 20, connect_timeout: 5, onnotice: () => {} });
+  globalForDb.fuelwrightSql = sql;
+  return drizzle(sql, { schema });
+}
+
+/** The one database client (lazy, so that `next build` needs no database). */
+export const db: Db = new Proxy({} as Db, {
+  get(_t, prop) {
+    globalForDb.fuelwrightDb ??= connect();
+    const value = Reflect.get(globalForDb.fuelwrightDb, prop);
+    return typeof value === "function" ? value.bind(globalForDb.fuelwrightDb) : value;
+  },
+});
+
+export { schema };

@@ -1,0 +1,109 @@
+import { randomUUID } from "node:crypto";
+import { and, asc, desc, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { invitation, member, organization, shopSettings, user } from "@/db/schema";
+import { DEFAULT_BSFC } from "@/lib/calc";
+
+/** Default settings of a new shop (BSFC rules of thumb of calc-spec §2, in g/kWh). */
+export const NEW_SHOP_SETTINGS = {
+  bsfcGasolineNa: DEFAULT_BSFC.gasolineNaGPerKwh,
+  bsfcGasolineBoosted: DEFAULT_BSFC.gasolineBoostedGPerKwh,
+  bsfcE85Na: DEFAULT_BSFC.e85NaGPerKwh,
+  bsfcE85Boosted: DEFAULT_BSFC.e85BoostedGPerKwh,
+};
+
+export function slugify(name: string): string {
+  return (
+    name
+      .toLowerCase()
+      .normalize("NFKD")
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 40) || "shop"
+  );
+}
+
+/** Creates a shop with its settings and makes the user its owner, in one transaction. */
+export async function createShopWithOwner(userId: string, shopName: string, opts: { id?: string; slug?: string } = {}) {
+  return db.transaction(async (tx) => {
+    const id = opts.id ?? randomUUID();
+    const slug = opts.slug ?? `${slugify(shopName)}-${id.slice(0, 6)}`;
+    await tx.insert(organization).values({ id, name: shopName, slug });
+    await tx.insert(shopSettings).values({ shopId: id, ...NEW_SHOP_SETTINGS });
+    await tx.insert(member).values({ id: randomUUID(), organizationId: id, userId, role: "owner" });
+    return id;
+  });
+}
+
+export async function getShopSettings(shopId: string) {
+  const [row] = await db
+    .select({ settings: shopSettings, name: organization.name })
+    .from(shopSettings)
+    .innerJoin(organization, eq(organization.id, shopSettings.shopId))
+    .where(eq(shopSettings.shopId, shopId))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function updateShopSettings(shopId: string, name: string, values: Partial<typeof shopSettings.$inferInsert>) {
+  await db.transaction(async (tx) => {
+    await tx.update(organization).set({ name }).where(eq(organization.id, shopId));
+    await tx.update(shopSettings).set({ ...values, updatedAt: new Date() }).where(eq(shopSettings.shopId, shopId));
+  });
+}
+
+export async function listMembers(shopId: string) {
+  return db
+    .select({ id: member.id, role: member.role, userId: member.userId, name: user.name, email: user.email, createdAt: member.createdAt })
+    .from(member)
+    .innerJoin(user, eq(user.id, member.userId))
+    .where(eq(member.organizationId, shopId))
+    .orderBy(asc(member.createdAt));
+}
+
+export async function listPendingInvitations(shopId: string) {
+  return db.select().from(invitation).where(and(eq(invitation.organizationId, shopId), eq(invitation.status, "pending"))).orderBy(desc(invitation.createdAt));
+}
+
+export async function getMember(shopId: string, memberId: string) {
+  const [row] = await db.select().from(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId))).limit(1);
+  return row ?? null;
+}
+
+export async function countOwners(shopId: string) {
+  const rows = await db.select({ id: member.id }).from(member).where(and(eq(member.organizationId, shopId), eq(member.role, "owner")));
+  return rows.length;
+}
+
+export async function setMemberRole(shopId: string, memberId: string, role: string) {
+  await db.update(member).set({ role }).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
+}
+
+export async function removeMember(shopId: string, memberId: string) {
+  await db.delete(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
+}
+
+/** An invitation with its shop name, for the accept page (looked up by its unguessable id). */
+export async function getInvitation(id: string) {
+  const [row] = await db
+    .select({ invitation, shopName: organization.name })
+    .from(invitation)
+    .innerJoin(organization, eq(organization.id, invitation.organizationId))
+    .where(eq(invitation.id, id))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function findUserByEmail(email: string) {
+  const [row] = await db.select().from(user).where(eq(user.email, email)).limit(1);
+  return row ?? null;
+}
+
+/** Joins an invited user to the shop: member row, invitation accepted, e-mail verified by the link. */
+export async function acceptInvitationFor(userId: string, inv: typeof invitation.$inferSelect) {
+  await db.transaction(async (tx) => {
+    await tx.insert(member).values({ id: randomUUID(), organizationId: inv.organizationId, userId, role: inv.role ?? "customer" });
+    await tx.update(invitation).set({ status: "accepted" }).where(eq(invitation.id, inv.id));
+    await tx.update(user).set({ emailVerified: true }).where(eq(user.id, userId));
+  });
+}

@@ -1,0 +1,50 @@
+import { relations } from "drizzle-orm";
+import { index, integer, pgTable, real, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { organization, user } from "./auth";
+
+/** A shop's defaults. One row per shop (organization). BSFC in g/kWh, pressures in kPa. */
+export const shopSettings = pgTable("shop_settings", {
+  shopId: text("shop_id").primaryKey().references(() => organization.id, { onDelete: "cascade" }),
+  currency: text("currency").notNull().default("USD"),
+  /** Tax rate in basis points (825 = 8.25 %). */
+  taxRateBp: integer("tax_rate_bp").notNull().default(0),
+  units: text("units", { enum: ["metric", "imperial"] }).notNull().default("imperial"),
+  address: text("address"),
+  phone: text("phone"),
+  bsfcGasolineNa: real("bsfc_gasoline_na").notNull(),
+  bsfcGasolineBoosted: real("bsfc_gasoline_boosted").notNull(),
+  bsfcE85Na: real("bsfc_e85_na").notNull(),
+  bsfcE85Boosted: real("bsfc_e85_boosted").notNull(),
+  designDutyPct: real("design_duty_pct").notNull().default(80),
+  dutyCautionPct: real("duty_caution_pct").notNull().default(80),
+  dutyDangerPct: real("duty_danger_pct").notNull().default(90),
+  minPumpMarginPct: real("min_pump_margin_pct").notNull().default(25),
+  maxLineDropKpa: real("max_line_drop_kpa").notNull().default(14),
+  lossManualPct: real("loss_manual_pct").notNull().default(12),
+  lossAutomaticPct: real("loss_automatic_pct").notNull().default(17),
+  lossAwdPct: real("loss_awd_pct").notNull().default(22),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const customers = pgTable(
+  "customers",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    email: text("email"),
+    phone: text("phone"),
+    notes: text("notes"),
+    /** The portal sign-in of this customer, once invited. */
+    userId: text("user_id").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("customers_shop_id_idx").on(t.shopId), index("customers_shop_name_idx").on(t.shopId, t.name), index("customers_user_id_idx").on(t.userId)],
+);
+
+export const shopSettingsRelations = relations(shopSettings, ({ one }) => ({ shop: one(organization, { fields: [shopSettings.shopId], references: [organization.id] }) }));
+export const customerRelations = relations(customers, ({ one }) => ({ shop: one(organization, { fields: [customers.shopId], references: [organization.id] }) }));
+
+export type ShopSettings = typeof shopSettings.$inferSelect;
+export type Customer = typeof customers.$inferSelect;

@@ -1,0 +1,50 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
+import { cache } from "react";
+import { db } from "@/db";
+import { member, organization } from "@/db/schema";
+import { auth } from "@/lib/auth";
+import { ForbiddenError, UnauthorizedError } from "./errors";
+import { can, type Action } from "./permissions";
+import { isRole, type Role } from "./roles";
+
+export interface Member {
+  user: { id: string; name: string; email: string };
+  shopId: string;
+  shopName: string;
+  role: Role;
+}
+
+/** Who is signed in, in which shop, with which role — or null. One look-up per request. */
+export const currentMember = cache(async (): Promise<Member | null> => {
+  const session = await auth.api.getSession({ headers: await headers() });
+  if (!session) return null;
+  const shopId = session.session.activeOrganizationId;
+  const rows = await db
+    .select({ role: member.role, shopId: member.organizationId, shopName: organization.name })
+    .from(member)
+    .innerJoin(organization, eq(organization.id, member.organizationId))
+    .where(shopId ? and(eq(member.userId, session.user.id), eq(member.organizationId, shopId)) : eq(member.userId, session.user.id))
+    .limit(1);
+  const m = rows[0];
+  if (!m || !isRole(m.role)) return null;
+  return { user: { id: session.user.id, name: session.user.name, email: session.user.email }, shopId: m.shopId, shopName: m.shopName, role: m.role };
+});
+
+/** For route handlers and server actions: the member, allowed to take `action`, or an HttpError. */
+export async function requireMember(action?: Action): Promise<Member> {
+  const m = await currentMember();
+  if (!m) throw new UnauthorizedError();
+  if (action && !can(m.role, action)) throw new ForbiddenError();
+  return m;
+}
+
+/** For pages: redirect to sign-in when signed out, home when the role may not see the page. */
+export async function requirePageMember(action?: Action): Promise<Member> {
+  const m = await currentMember();
+  if (!m) redirect("/sign-in");
+  if (action && !can(m.role, action)) redirect(m.role === "customer" ? "/my" : "/");
+  return m;
+}

@@ -1,0 +1,23 @@
+import type { Role } from "./roles";
+
+/**
+ * The one permissions table: every action a member can take, and the roles that may take it.
+ * Server components, server actions and route handlers all ask `can()` through requireMember().
+ */
+export const PERMISSIONS = {
+  "staff:view": ["owner", "tuner", "counter"],
+  "portal:view": ["customer"],
+  "settings:read": ["owner", "tuner", "counter"],
+  "settings:update": ["owner"],
+  "members:manage": ["owner"],
+  "customers:read": ["owner", "tuner", "counter"],
+  "customers:write": ["owner", "tuner", "counter"],
+  "calc:use": ["owner", "tuner", "counter", "customer"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof PERMISSIONS;
+
+/** May a member with this role take this action? */
+export function can(role: Role, action: Action): boolean {
+  return (PERMISSIONS[action] as readonly Role[]).includes(role);
+}

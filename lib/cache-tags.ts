@@ -1,0 +1,6 @@
+/** Paths revalidated after writes, in one place. */
+export const PATHS = {
+  customers: "/customers",
+  customer: (id: string) => `/customers/${id}`,
+  settings: "/settings",
+} as const;

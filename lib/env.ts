@@ -1,0 +1,27 @@
+import { z } from "zod";
+
+const EnvSchema = z.object({
+  DATABASE_URL: z.string().url("DATABASE_URL must be a postgres:// URL"),
+  BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters"),
+  APP_URL: z.string().url().default("http://localhost:3000"),
+  SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
+  MAIL_FROM: z.string().default("Fuelwright <no-reply@fuelwright.test>"),
+  /** "off" only in tests: better-auth's sign-in rate limit stays on everywhere else. */
+  AUTH_RATE_LIMIT: z.enum(["on", "off"]).default("on"),
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+});
+
+export type ServerEnv = z.infer<typeof EnvSchema>;
+let cached: ServerEnv | undefined;
+
+/** Validated server environment; throws one clear message listing every bad variable. */
+export function serverEnv(): ServerEnv {
+  if (cached) return cached;
+  const parsed = EnvSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
+    throw new Error(`Fuelwright cannot start: bad environment\n${lines}`);
+  }
+  cached = parsed.data;
+  return cached;
+}

@@ -1,0 +1,69 @@
+import { ZodError } from "zod";
+import { CalcInputError } from "@/lib/calc";
+import { HttpError } from "@/lib/auth/errors";
+
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+/** Field issues of a ZodError as `a.b.0` paths. */
+export function zodIssues(err: ZodError): FieldIssue[] {
+  return err.issues.map((i) => ({ path: i.path.map(String).join(".") || "(body)", message: i.message }));
+}
+
+/** Turns any error into a JSON response: 4xx for what the caller did, 500 without details otherwise. */
+export function errorResponse(err: unknown): Response {
+  if (err instanceof ZodError) {
+    return Response.json({ error: { code: "invalid_input", message: "Some fields are not valid", issues: zodIssues(err) } }, { status: 422 });
+  }
+  if (err instanceof CalcInputError) {
+    return Response.json({ error: { code: "invalid_input", message: err.message, issues: [{ path: err.field, message: err.message }] } }, { status: 422 });
+  }
+  if (err instanceof HttpError) {
+    return Response.json({ error: { code: err.code, message: err.message } }, { status: err.status });
+  }
+  if (isDatabaseDown(err)) {
+    return Response.json({ error: { code: "unavailable", message: "The database is not answering; try again in a moment" } }, { status: 503, headers: { "Retry-After": "5" } });
+  }
+  console.error(err);
+  return Response.json({ error: { code: "internal", message: "Something went wrong on our side" } }, { status: 500 });
+}
+
+function isDatabaseDown(err: unknown): boolean {
+  const code = (err as { code?: string } | null)?.code;
+  return code === "ECONNREFUSED" || code === "CONNECT_TIMEOUT" || code === "57P01" || code === "57P03";
+}
+
+const MAX_BODY_BYTES = 256 * 1024;
+
+/** Reads a JSON body with a size limit; bad JSON or too large → 4xx. */
+export async function readJson(req: Request): Promise<unknown> {
+  const length = Number(req.headers.get("content-length") ?? "0");
+  if (length > MAX_BODY_BYTES) throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
+  const text = await readLimited(req);
+  if (!text.trim()) throw new HttpError(400, "empty_body", "Send a JSON body");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new HttpError(400, "bad_json", "The body is not valid JSON");
+  }
+}
+
+async function readLimited(req: Request): Promise<string> {
+  if (!req.body) return "";
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > MAX_BODY_BYTES) {
+      await reader.cancel();
+      throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}

@@ -1,0 +1,54 @@
+#!/usr/bin/env bash
+# npm start: install what is missing, start PostgreSQL and the mail sink, migrate, seed, serve.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$FW_ROOT"
+MODE=start; [ "${1:-}" = "--dev" ] && MODE=dev
+PORT="${PORT:-3000}"
+trap 'stop_all' EXIT
+trap 'say "stopping…"; exit 0' INT TERM
+
+ensure_node_modules
+if [ -z "${DATABASE_URL:-}" ]; then
+  ensure_postgres
+  pg_start main 54329
+  pg_ensure_db 54329 fuelwright
+  export DATABASE_URL="postgres://fuelwright@127.0.0.1:54329/fuelwright"
+else
+  say "using DATABASE_URL from the environment (no local PostgreSQL started)"
+fi
+migrate_and_seed
+if [ -z "${SMTP_URL:-}" ]; then
+  start_mail_sink 2525 2526
+  export SMTP_URL="smtp://127.0.0.1:2525"
+else
+  say "using SMTP_URL from the environment (no mail sink started)"
+fi
+if [ -z "${BETTER_AUTH_SECRET:-}" ]; then
+  mkdir -p .data
+  [ -s .data/auth-secret ] || node -e "console.log(require('crypto').randomBytes(32).toString('hex'))" > .data/auth-secret
+  BETTER_AUTH_SECRET="$(cat .data/auth-secret)"; export BETTER_AUTH_SECRET
+fi
+export APP_URL="${APP_URL:-http://localhost:$PORT}"
+port_busy "$PORT" && die "the app cannot start: port $PORT is taken"
+
+if [ "$MODE" = dev ]; then
+  node node_modules/next/dist/bin/next dev -H 127.0.0.1 -p "$PORT" &
+else
+  build_if_needed
+  NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT" &
+fi
+FW_PIDS+=($!)
+wait_http "http://127.0.0.1:$PORT/api/health" 120 || die "the app did not come up"
+cat <<TXT
+
+  Fuelwright is running at $APP_URL
+  Mail sink inbox: http://127.0.0.1:2526/messages
+
+  Demo sign-ins (password: fuelwright-demo — demo data only, never in production):
+    owner@demo.fuelwright.test     tuner@demo.fuelwright.test
+    counter@demo.fuelwright.test   customer@demo.fuelwright.test
+
+  Ctrl-C stops the app, the mail sink and the database.
+TXT
+wait "${FW_PIDS[-1]}"
