@@ -17,6 +17,10 @@ let cached: ServerEnv | undefined;
 /** Validated server environment; throws one clear message listing every bad variable. */
 export function serverEnv(): ServerEnv {
   if (cached) return cached;
+  // `next build` evaluates route modules without serving them; the server validates at boot.
+  if (process.env.NEXT_PHASE === "phase-production-build") {
+    return EnvSchema.parse({ DATABASE_URL: "postgres://build@127.0.0.1:1/build", BETTER_AUTH_SECRET: "build-time-placeholder-never-served-0000", ...process.env });
+  }
   const parsed = EnvSchema.safeParse(process.env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");

@@ -1,0 +1,27 @@
+import { chromium, type Browser, type BrowserContext } from "playwright-core";
+
+export const BASE_URL = process.env.TEST_BASE_URL ?? "http://localhost:3100";
+
+/** Debian's Chromium, headless, with the flags this closed network needs (Playwright gives it a fresh profile). */
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    headless: true,
+    args: [
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
+  });
+}
+
+let ipCounter = 10;
+/** A context that looks like its own client to the sign-in rate limit. */
+export async function newClient(browser: Browser, viewport = { width: 1280, height: 900 }): Promise<BrowserContext> {
+  ipCounter++;
+  return browser.newContext({ baseURL: BASE_URL, viewport, extraHTTPHeaders: { "x-forwarded-for": `10.77.${Math.floor(ipCounter / 250)}.${ipCounter % 250}` } });
+}

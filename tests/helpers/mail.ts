@@ -1,0 +1,25 @@
+const INBOX = process.env.MAIL_INBOX_URL ?? "http://127.0.0.1:2536/messages";
+
+export interface Mail {
+  to: string[];
+  subject: string;
+  text: string;
+}
+
+/** Waits for a message to `to` whose subject matches; returns it. */
+export async function waitForMail(to: string, subject: RegExp, timeoutMs = 15000): Promise<Mail> {
+  const end = Date.now() + timeoutMs;
+  while (Date.now() < end) {
+    const all = (await (await fetch(INBOX)).json()) as Mail[];
+    const hit = all.reverse().find((m) => m.to.includes(to) && subject.test(m.subject));
+    if (hit) return hit;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`no mail to ${to} matching ${subject}`);
+}
+
+export const firstLink = (text: string): string => {
+  const m = text.match(/https?:\/\/\S+/);
+  if (!m) throw new Error(`no link in: ${text}`);
+  return m[0];
+};

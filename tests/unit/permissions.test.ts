@@ -1,0 +1,46 @@
+import { readdirSync, readFileSync, statSync } from "node:fs";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { navFor } from "@/components/shell/nav-items";
+import { PERMISSIONS, can } from "@/lib/auth/permissions";
+import { ROLES } from "@/lib/auth/roles";
+
+describe("permissions table", () => {
+  it("only the owner changes settings and members", () => {
+    for (const r of ROLES) {
+      expect(can(r, "settings:update")).toBe(r === "owner");
+      expect(can(r, "members:manage")).toBe(r === "owner");
+    }
+  });
+  it("customers get the portal and no staff pages", () => {
+    expect(can("customer", "portal:view")).toBe(true);
+    expect(can("customer", "staff:view")).toBe(false);
+    expect(can("customer", "customers:read")).toBe(false);
+    expect(navFor("customer").map((i) => i.href)).toEqual(["/my"]);
+  });
+  it("every role named in the table is a known role", () => {
+    for (const roles of Object.values(PERMISSIONS)) for (const r of roles) expect(ROLES).toContain(r);
+  });
+});
+
+/** Every server action and route handler of the app goes through the one authorization module. */
+describe("authorization coverage", () => {
+  const files: string[] = [];
+  const walk = (dir: string) => {
+    for (const f of readdirSync(dir)) {
+      const p = join(dir, f);
+      if (statSync(p).isDirectory()) walk(p);
+      else if (/^(actions|route)\.ts$/.test(f)) files.push(p);
+    }
+  };
+  walk("app");
+  // Sign-in and friends are for signed-out visitors; health has no data.
+  const guarded = files.filter((f) => !f.includes("api/auth") && !f.includes("api/health") && !f.includes("(auth)"));
+  it("finds the app's actions and routes", () => expect(guarded.length).toBeGreaterThan(5));
+  it.each(guarded)("%s checks the member's permission", (f) => {
+    const src = readFileSync(f, "utf8");
+    const exported = (src.match(/export (const|async function) \w+/g) ?? []).length;
+    const checks = (src.match(/requireMember\("[a-z]+:[a-z]+"\)|memberAction\("[a-z]+:[a-z]+"/g) ?? []).length;
+    expect(checks).toBeGreaterThanOrEqual(exported);
+  });
+});
