@@ -19,9 +19,9 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-let ipCounter = 10;
+let ipCounter = Math.floor(Math.random() * 60000);
 /** A context that looks like its own client to the sign-in rate limit. */
 export async function newClient(browser: Browser, viewport = { width: 1280, height: 900 }): Promise<BrowserContext> {
   ipCounter++;
-  return browser.newContext({ baseURL: BASE_URL, viewport, extraHTTPHeaders: { "x-forwarded-for": `10.77.${Math.floor(ipCounter / 250)}.${ipCounter % 250}` } });
+  return browser.newContext({ baseURL: BASE_URL, viewport, extraHTTPHeaders: { "x-forwarded-for": `172.${16 + (Math.floor(ipCounter / 62500) % 16)}.${Math.floor(ipCounter / 250) % 250}.${(ipCounter % 250) + 1}` } });
 }

@@ -1,9 +1,13 @@
 export const BASE_URL = process.env.TEST_BASE_URL ?? "http://localhost:3100";
 export const DEMO_PASSWORD = "fuelwright-demo";
 
-let ip = 1;
+// Random start per test file: files run in their own module instances and must not share addresses.
+let ip = Math.floor(Math.random() * 60000);
 /** A fresh client address, so that each test client has its own sign-in rate-limit bucket. */
-export const nextIp = () => `10.66.${Math.floor(++ip / 250)}.${ip % 250}`;
+export const nextIp = () => {
+  ip++;
+  return `10.${66 + Math.floor(ip / 62500)}.${Math.floor(ip / 250) % 250}.${(ip % 250) + 1}`;
+};
 
 export interface Client {
   cookie: string;

@@ -13,7 +13,7 @@ describe("sign-in rate limit", () => {
       });
       statuses.push(res.status);
     }
-    expect(statuses.slice(0, 3).every((s) => s === 401)).toBe(true);
+    expect(statuses.slice(0, 3), statuses.join()).toEqual([401, 401, 401]);
     expect(statuses[3]).toBe(429);
   });
 });

@@ -13,8 +13,8 @@ export function InviteForm() {
   const e = state.fieldErrors ?? {};
   return (
     <form action={action} noValidate className="mt-2 space-y-3" aria-label="Invite member">
-      <Field label="E-mail" name="email" type="email" defaultValue={state.ok ? "" : state.values?.email} error={e.email} />
-      <SelectField label="Role" name="role" defaultValue={state.values?.role ?? "tuner"} error={e.role}>
+      <Field id="invite-email" label="E-mail" name="email" type="email" defaultValue={state.ok ? "" : state.values?.email} error={e.email} />
+      <SelectField id="invite-role" label="Role" name="role" defaultValue={state.values?.role ?? "tuner"} error={e.role}>
         {ROLES.map((r) => (
           <option key={r} value={r}>{ROLE_LABELS[r]}</option>
         ))}
@@ -40,7 +40,7 @@ export function MemberRow({ member, editable }: { member: { id: string; name: st
           <div className="flex items-center gap-2">
             <form action={roleAction} className="flex items-end gap-2">
               <input type="hidden" name="memberId" value={member.id} />
-              <SelectField label={`Role of ${member.name}`} name="role" defaultValue={member.role}>
+              <SelectField id={`role-${member.id}`} label={`Role of ${member.name}`} name="role" defaultValue={member.role}>
                 {ROLES.map((r) => (
                   <option key={r} value={r}>{ROLE_LABELS[r]}</option>
                 ))}
