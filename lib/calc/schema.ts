@@ -28,7 +28,7 @@ export const EngineSchema = z
     idleManifoldKpaAbs: num("Idle manifold pressure", 15, 101, "kPa absolute").default(35),
     idleVolumetricEfficiency: num("Idle volumetric efficiency", 0.2, 1.2).default(0.8),
     intakeTempC: num("Intake air temperature", -30, 90, "°C").default(30),
-  })
+  }, { error: "Give the engine: cylinders, displacement, aspiration and redline" })
   .superRefine((e, ctx) => {
     if (e.idleRpm >= e.redlineRpm) ctx.addIssue({ code: "custom", path: ["idleRpm"], message: "Idle speed must be below the redline" });
     if (e.aspiration === "na" && e.maxBoostKpa > 0)
@@ -39,7 +39,7 @@ export const TargetSchema = z.object({
   powerKw: num("Target power", 1, 5000, "kW"),
   measuredAt: z.enum(["wheel", "crank"], { error: "Say whether the power is at the wheels or the crank" }),
   drivetrainLossPct: num("Drivetrain loss", 0, 50, "%").default(15),
-});
+}, { error: "Give the power goal: power and where it is measured" });
 
 export const BsfcDefaultsSchema = z.object({
   gasolineNaGPerKwh: num("BSFC gasoline NA", 150, 1200, "g/kWh"),
@@ -57,7 +57,7 @@ export const FuelSchema = z
     bsfcGPerKwh: num("BSFC", 150, 1200, "g/kWh").optional(),
     targetLambda: num("Target lambda", 0.6, 1.3).optional(),
     bsfcDefaults: BsfcDefaultsSchema.optional(),
-  })
+  }, { error: "Give the fuel: the lowest and highest ethanol content" })
   .refine((f) => f.ethanolMinVolPct <= f.ethanolMaxVolPct, {
     path: ["ethanolMaxVolPct"],
     message: "The highest ethanol content must not be below the lowest",
@@ -83,12 +83,12 @@ export const InjectorsSchema = z.object({
   ratedPressureKpa: num("Injector rated pressure", 100, 1000, "kPa").default(300),
   deadTime: DeadTimeTableSchema.optional(),
   minPulseWidthMs: num("Minimum pulse width", 0.1, 10, "ms").optional(),
-});
+}, { error: "Give the injectors: count and rated flow" });
 
 export const RegulatorSchema = z.object({
   type: z.enum(REGULATOR_TYPES, { error: "Regulator must be boost-referenced or fixed" }),
   basePressureKpa: num("Base pressure", 50, 1000, "kPa"),
-});
+}, { error: "Give the regulator: type and base pressure" });
 
 export const PumpCurveSchema = z
   .object({
@@ -122,7 +122,7 @@ export const WiringSchema = z.object({
 export const ElectricalSchema = z.object({
   voltageAtPump: num("Voltage at the pump", 6, 20, "V"),
   wiring: WiringSchema.optional(),
-});
+}, { error: "Give the voltage at the pump" });
 
 export const LineSchema = z.object({
   insideDiameterMm: num("Inside diameter", 2, 40, "mm"),
@@ -151,11 +151,11 @@ export const FuelSystemInputSchema = z
     fuel: FuelSchema,
     injectors: InjectorsSchema,
     regulator: RegulatorSchema,
-    pumps: z.array(PumpSchema).min(1, "Add at least one fuel pump").max(6, "At most six pump entries"),
+    pumps: z.array(PumpSchema, { error: "Add at least one fuel pump" }).min(1, "Add at least one fuel pump").max(6, "At most six pump entries"),
     electrical: ElectricalSchema,
     lines: LinesSchema.optional(),
     limits: LimitsSchema.optional(),
-  })
+  }, { error: "Send the build as a JSON object" })
   .superRefine((s, ctx) => {
     // A fixed regulator loses the boost from ΔP; keep some pressure across the injector.
     if (s.regulator.type === "fixed" && s.regulator.basePressureKpa - s.engine.maxBoostKpa < 50) {
