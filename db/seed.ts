@@ -6,6 +6,7 @@
 import { hashPassword } from "better-auth/crypto";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
+import { CALC_VERSION, FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "../lib/calc";
 import { DEFAULT_BSFC } from "../lib/calc/power";
 import * as schema from "./schema";
 
@@ -24,6 +25,51 @@ const CUSTOMERS = [
   { id: "00000000-0000-4000-8000-000000000003", name: "Bo Castellanos", email: "bo.castellanos@example.test", phone: "555-0103", notes: "Supercharged V8, twin pumps planned." },
   { id: "00000000-0000-4000-8000-000000000004", name: "Ingrid Achterberg", email: null, phone: "555-0199", notes: null },
   { id: "00000000-0000-4000-8000-000000000005", name: "Kwame Ostrowski", email: "kwame.o@example.test", phone: null, notes: "Drag car, methanol later?" },
+];
+
+const pump = (quantity: number, scale = 1) => ({
+  label: "Ridgeline RP-340 (demo curve)",
+  quantity,
+  curves: [
+    { voltage: 12, points: [{ pressureKpa: 300, flowLPerH: 300 * scale }, { pressureKpa: 500, flowLPerH: 250 * scale }, { pressureKpa: 700, flowLPerH: 190 * scale }] },
+    { voltage: 13.5, points: [{ pressureKpa: 300, flowLPerH: 340 * scale }, { pressureKpa: 500, flowLPerH: 290 * scale }, { pressureKpa: 700, flowLPerH: 230 * scale }] },
+  ],
+});
+
+/** Invented demo builds across the statuses. */
+const BUILDS: { id: string; customerId: string; title: string; vehicle: string; status: "draft" | "sized" | "quoted" | "ordered" | "fitted" | "verified"; inputs: FuelSystemInput }[] = [
+  {
+    id: "10000000-0000-4000-8000-000000000001",
+    customerId: CUSTOMERS[1]!.id,
+    title: "Track day on pump gas",
+    vehicle: "Harlan Vesta 2.0 NA four",
+    status: "verified",
+    inputs: { engine: { cylinders: 4, displacementL: 2.0, aspiration: "na", redlineRpm: 7800, idleRpm: 900, maxBoostKpa: 0 }, target: { powerKw: 160, measuredAt: "crank", drivetrainLossPct: 12 }, fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 }, injectors: { count: 4, ratedFlowCcPerMin: 440, ratedPressureKpa: 300, minPulseWidthMs: 0.6 }, regulator: { type: "fixed", basePressureKpa: 350 }, pumps: [pump(1, 0.6)], electrical: { voltageAtPump: 13.5 } },
+  },
+  {
+    id: "10000000-0000-4000-8000-000000000002",
+    customerId: CUSTOMERS[0]!.id,
+    title: "500 whp on pump E85",
+    vehicle: "Corvane RX6 3.0 turbo inline-six",
+    status: "sized",
+    inputs: { engine: { cylinders: 6, displacementL: 3.0, aspiration: "turbo", redlineRpm: 7200, idleRpm: 850, maxBoostKpa: 170 }, target: { powerKw: 373, measuredAt: "wheel", drivetrainLossPct: 15 }, fuel: { ethanolMinVolPct: 51, ethanolMaxVolPct: 83 }, injectors: { count: 6, ratedFlowCcPerMin: 1300, ratedPressureKpa: 300, minPulseWidthMs: 0.8 }, regulator: { type: "boost-referenced", basePressureKpa: 400 }, pumps: [pump(2)], electrical: { voltageAtPump: 13.0 }, lines: { feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2, filterDropKpa: 10 }, return: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 0, filterDropKpa: 0 } } },
+  },
+  {
+    id: "10000000-0000-4000-8000-000000000003",
+    customerId: CUSTOMERS[2]!.id,
+    title: "Twin-turbo V8, last of the injectors",
+    vehicle: "Brennan Stag 5.0 twin-turbo V8",
+    status: "quoted",
+    inputs: { engine: { cylinders: 8, displacementL: 5.0, aspiration: "turbo", redlineRpm: 7000, idleRpm: 800, maxBoostKpa: 140 }, target: { powerKw: 700, measuredAt: "crank", drivetrainLossPct: 15 }, fuel: { ethanolMinVolPct: 70, ethanolMaxVolPct: 85 }, injectors: { count: 8, ratedFlowCcPerMin: 1600, ratedPressureKpa: 300 }, regulator: { type: "boost-referenced", basePressureKpa: 400 }, pumps: [pump(3)], electrical: { voltageAtPump: 13.2 } },
+  },
+  {
+    id: "10000000-0000-4000-8000-000000000004",
+    customerId: CUSTOMERS[4]!.id,
+    title: "Supercharged V6 that leans out at boost",
+    vehicle: "Ostrander GT 3.5 supercharged V6",
+    status: "draft",
+    inputs: { engine: { cylinders: 6, displacementL: 3.5, aspiration: "supercharged", redlineRpm: 6800, idleRpm: 750, maxBoostKpa: 90 }, target: { powerKw: 330, measuredAt: "wheel", drivetrainLossPct: 17 }, fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 }, injectors: { count: 6, ratedFlowCcPerMin: 550, ratedPressureKpa: 300 }, regulator: { type: "fixed", basePressureKpa: 380 }, pumps: [pump(1, 0.7)], electrical: { voltageAtPump: 12.5 } },
+  },
 ];
 
 export async function seed(url: string) {
@@ -54,6 +100,13 @@ export async function seed(url: string) {
         await tx.insert(schema.member).values({ id: `${u.id}-member`, organizationId: DEMO_SHOP_ID, userId: u.id, role: u.role }).onConflictDoNothing();
       }
       for (const c of CUSTOMERS) await tx.insert(schema.customers).values({ ...c, shopId: DEMO_SHOP_ID }).onConflictDoNothing();
+      for (const b of BUILDS) {
+        const inputs = FuelSystemInputSchema.parse(b.inputs);
+        const result = sizeParsedFuelSystem(inputs);
+        const row = { shopId: DEMO_SHOP_ID, inputs, result, calcVersion: CALC_VERSION };
+        const inserted = await tx.insert(schema.builds).values({ ...row, id: b.id, customerId: b.customerId, title: b.title, vehicle: b.vehicle, status: b.status, createdBy: "demo-user-tuner", updatedBy: "demo-user-tuner" }).onConflictDoNothing().returning({ id: schema.builds.id });
+        if (inserted.length) await tx.insert(schema.buildRevisions).values({ ...row, buildId: b.id, version: 1, status: b.status, authorId: "demo-user-tuner", note: "Demo build" });
+      }
     });
   } finally {
     await sql.end();

@@ -1,2 +1,3 @@
 export * from "./auth";
 export * from "./shops";
+export * from "./builds";

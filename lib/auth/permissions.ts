@@ -12,6 +12,8 @@ export const PERMISSIONS = {
   "members:manage": ["owner"],
   "customers:read": ["owner", "tuner", "counter"],
   "customers:write": ["owner", "tuner", "counter"],
+  "builds:read": ["owner", "tuner", "counter"],
+  "builds:write": ["owner", "tuner"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -1,16 +1,22 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { EmptyState, PageHeader } from "@/components/ui/status";
+import { BuildsTable } from "@/components/builds/builds-table";
+import { PageHeader } from "@/components/ui/status";
+import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Builds" };
 
-export default function BuildsPage() {
+export default async function BuildsPage() {
+  const m = await requirePageMember("builds:read");
   return (
     <>
-      <PageHeader title="Builds" />
-      <EmptyState title="No build sheets yet">
-        Saved build sheets are on their way. Meanwhile, size a system with the <Link href="/tools" className="text-copper-600 underline">quick injector check</Link>.
-      </EmptyState>
+      <PageHeader title="Builds">
+        {can(m.role, "builds:write") ? (
+          <Link href="/builds/new" className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700">New build</Link>
+        ) : null}
+      </PageHeader>
+      <BuildsTable />
     </>
   );
 }

@@ -1,6 +1,9 @@
 import { notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/status";
+import Link from "next/link";
+import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
+import { STATUS_LABELS } from "@/lib/validations/builds";
 import { requirePageMember } from "@/lib/auth/member";
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";
@@ -10,6 +13,7 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
   const { id } = await params;
   const c = /^[0-9a-f-]{36}$/i.test(id) ? await getCustomer(m.shopId, id) : null;
   if (!c) notFound();
+  const { builds } = await listBuilds(m.shopId, { customerId: c.id, limit: 50 });
   return (
     <>
       <PageHeader title={c.name}>
@@ -18,6 +22,20 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
       <section className="max-w-xl rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="mb-4 text-xl font-semibold">Details</h2>
         <CustomerForm customer={c} />
+      </section>
+      <section aria-labelledby="cust-builds" className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+        <div className="flex items-center justify-between">
+          <h2 id="cust-builds" className="text-xl font-semibold">Builds</h2>
+          <Link href={`/builds/new?customer=${c.id}`} className="text-sm font-semibold text-copper-700 underline">New build</Link>
+        </div>
+        {builds.length === 0 ? <p className="mt-2 text-sm text-ink-600">No builds yet.</p> : null}
+        <ul className="mt-2 space-y-1">
+          {builds.map((b) => (
+            <li key={b.id}>
+              <Link href={`/builds/${b.id}`} className="text-copper-700 underline">{b.title}</Link> <span className="text-sm text-ink-600">· {STATUS_LABELS[b.status]}</span>
+            </li>
+          ))}
+        </ul>
       </section>
     </>
   );

@@ -1,0 +1,46 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
+import { HttpError } from "@/lib/auth/errors";
+import { requireMember } from "@/lib/auth/member";
+import { checkTransition, sizeForSave } from "@/lib/builds/service";
+import { zodIssues } from "@/lib/http/errors";
+import { BuildSaveSchema } from "@/lib/validations/builds";
+
+export type SaveBuildState =
+  | { ok: true; version: number; message: string }
+  | { ok: false; message: string; fieldErrors?: Record<string, string>; conflict?: { version: number; updatedAt: string; title: string } };
+
+/** Saves the editor's build: validated and sized again on the server, written with its revision. */
+export async function saveBuildAction(buildId: string, body: unknown): Promise<SaveBuildState> {
+  let m;
+  try {
+    m = await requireMember("builds:write");
+  } catch (e) {
+    if (e instanceof HttpError) return { ok: false, message: e.message };
+    throw e;
+  }
+  const id = z.uuid().safeParse(buildId);
+  const parsed = BuildSaveSchema.safeParse(body);
+  if (!id.success) return { ok: false, message: "That build was not found" };
+  if (!parsed.success) return { ok: false, message: "Check the highlighted fields", fieldErrors: Object.fromEntries(zodIssues(parsed.error).map((i) => [i.path, i.message])) };
+  try {
+    const row = await getBuild(m.shopId, id.data);
+    if (!row) return { ok: false, message: "That build was not found" };
+    checkTransition(row.build.status, parsed.data.status);
+    const sized = sizeForSave(parsed.data.inputs);
+    const b = await saveBuild(m.shopId, id.data, m.user.id, parsed.data.version, { ...parsed.data, ...sized });
+    revalidatePath(`/builds/${id.data}`);
+    revalidatePath("/builds");
+    return { ok: true, version: b.version, message: `Saved as version ${b.version}` };
+  } catch (e) {
+    if (e instanceof ConflictError) {
+      return { ok: false, message: e.message, conflict: { version: e.current.version, updatedAt: e.current.updatedAt.toISOString(), title: e.current.title } };
+    }
+    if (e instanceof HttpError) return { ok: false, message: e.message };
+    console.error(e);
+    return { ok: false, message: "Saving failed on our side; your entries are kept — try again" };
+  }
+}

@@ -1,0 +1,49 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { BuildEditor } from "@/components/builds/build-editor";
+import { SafetyNote } from "@/components/tools/safety-note";
+import { getBuild, listRevisions } from "@/db/queries/builds";
+import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
+import type { FuelSystemInput } from "@/lib/calc";
+import { STATUS_LABELS } from "@/lib/validations/builds";
+
+export const metadata: Metadata = { title: "Build sheet" };
+
+export default async function BuildPage({ params }: { params: Promise<{ id: string }> }) {
+  const m = await requirePageMember("builds:read");
+  const { id } = await params;
+  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  if (!row) notFound();
+  const revisions = await listRevisions(m.shopId, id);
+  const b = row.build;
+  return (
+    <>
+      <div className="mb-4">
+        <p className="text-sm text-ink-600">{row.customerName}{b.vehicle ? ` · ${b.vehicle}` : ""}</p>
+      </div>
+      <BuildEditor
+        buildId={b.id}
+        title={b.title}
+        status={b.status}
+        version={b.version}
+        inputs={b.inputs as FuelSystemInput}
+        readOnly={!can(m.role, "builds:write")}
+      />
+      <section aria-labelledby="revs" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
+        <h2 id="revs" className="text-xl font-semibold">Revisions</h2>
+        <ol className="mt-2 divide-y divide-ink-100 text-sm">
+          {revisions.map((r) => (
+            <li key={r.id} className="flex gap-4 py-2">
+              <span className="figure w-12 font-semibold">v{r.version}</span>
+              <span className="w-20">{STATUS_LABELS[r.status]}</span>
+              <span className="figure w-44 text-ink-600">{r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC</span>
+              <span>{r.note ?? ""}</span>
+            </li>
+          ))}
+        </ol>
+      </section>
+      <SafetyNote />
+    </>
+  );
+}

@@ -1,0 +1,40 @@
+import { z } from "zod";
+import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
+import { NotFoundError } from "@/lib/auth/errors";
+import { requireMember } from "@/lib/auth/member";
+import { checkTransition, sizeForSave } from "@/lib/builds/service";
+import { readJson } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handler";
+import { BuildSaveSchema } from "@/lib/validations/builds";
+
+type Ctx = { params: Promise<{ id: string }> };
+const idOf = async (ctx: Ctx) => {
+  const parsed = z.uuid().safeParse((await ctx.params).id);
+  if (!parsed.success) throw new NotFoundError("That build");
+  return parsed.data;
+};
+
+export const GET = handle<Ctx>(async (_req, ctx) => {
+  const m = await requireMember("builds:read");
+  const row = await getBuild(m.shopId, await idOf(ctx));
+  if (!row) throw new NotFoundError("That build");
+  return Response.json({ build: row.build, customerName: row.customerName });
+});
+
+/** PATCH with the `version` the edit started from; a stale version → 409 with the current build. */
+export const PATCH = handle<Ctx>(async (req, ctx) => {
+  const m = await requireMember("builds:write");
+  const id = await idOf(ctx);
+  const body = BuildSaveSchema.parse(await readJson(req));
+  const row = await getBuild(m.shopId, id);
+  if (!row) throw new NotFoundError("That build");
+  checkTransition(row.build.status, body.status);
+  const sized = sizeForSave(body.inputs);
+  try {
+    const build = await saveBuild(m.shopId, id, m.user.id, body.version, { ...body, ...sized });
+    return Response.json({ build });
+  } catch (e) {
+    if (e instanceof ConflictError) return Response.json({ error: { code: e.code, message: e.message }, current: e.current }, { status: 409 });
+    throw e;
+  }
+});

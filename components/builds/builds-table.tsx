@@ -1,0 +1,88 @@
+"use client";
+
+import Link from "next/link";
+import { useState } from "react";
+import useSWR from "swr";
+import { EmptyState, Signal } from "@/components/ui/status";
+import { fetcher } from "@/lib/fetcher";
+import { BUILD_STATUSES, type BuildStatus } from "@/db/schema/builds";
+import { STATUS_LABELS } from "@/lib/validations/builds";
+
+interface Row {
+  id: string;
+  title: string;
+  vehicle: string | null;
+  status: BuildStatus;
+  customerName: string;
+  updatedAt: string;
+  dutyPct: number | null;
+  marginPct: number | null;
+}
+interface Page {
+  builds: Row[];
+  nextCursor: string | null;
+}
+
+const dutyLevel = (d: number) => (d >= 90 ? "danger" : d > 80 ? "caution" : "ok");
+
+/** The builds table: searched, filtered and paged through GET /api/v1/builds. */
+export function BuildsTable() {
+  const [q, setQ] = useState("");
+  const [status, setStatus] = useState<"" | BuildStatus>("");
+  const [cursors, setCursors] = useState<string[]>([]);
+  const cursor = cursors[cursors.length - 1];
+  const params = new URLSearchParams({ limit: "25", ...(q ? { q } : {}), ...(status ? { status } : {}), ...(cursor ? { cursor } : {}) });
+  const { data, error, isLoading } = useSWR<Page>(`/api/v1/builds?${params}`, fetcher, { keepPreviousData: true });
+
+  return (
+    <div>
+      <div className="mb-4 flex flex-wrap gap-3" role="search">
+        <label className="sr-only" htmlFor="bq">Search builds</label>
+        <input id="bq" type="search" value={q} onChange={(e) => (setQ(e.target.value), setCursors([]))} placeholder="Customer, vehicle or title" className="rounded-md border border-ink-300 px-3 py-2" />
+        <label className="sr-only" htmlFor="bs">Status</label>
+        <select id="bs" value={status} onChange={(e) => (setStatus(e.target.value as BuildStatus | ""), setCursors([]))} className="rounded-md border border-ink-300 px-3 py-2">
+          <option value="">Any status</option>
+          {BUILD_STATUSES.map((s) => (
+            <option key={s} value={s}>{STATUS_LABELS[s]}</option>
+          ))}
+        </select>
+        <span aria-live="polite" className="self-center text-sm text-ink-600">{isLoading ? "Loading…" : error ? `✕ ${error.message}` : ""}</span>
+      </div>
+      {data && data.builds.length === 0 ? (
+        <EmptyState title={q || status ? "No build matches" : "No build sheets yet"}>{q || status ? "Try another search." : "Start one with “New build”."}</EmptyState>
+      ) : (
+        <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <table className="w-full text-left text-sm">
+            <thead className="bg-ink-100 text-ink-700">
+              <tr>
+                <th scope="col" className="px-4 py-2">Build</th>
+                <th scope="col" className="px-4 py-2">Customer</th>
+                <th scope="col" className="px-4 py-2">Status</th>
+                <th scope="col" className="px-4 py-2 text-right">Duty</th>
+                <th scope="col" className="px-4 py-2 text-right">Pump margin</th>
+              </tr>
+            </thead>
+            <tbody>
+              {(data?.builds ?? []).map((b) => (
+                <tr key={b.id} className="border-t border-ink-100">
+                  <td className="px-4 py-2">
+                    <Link href={`/builds/${b.id}`} className="font-medium text-copper-700 underline">{b.title}</Link>
+                    {b.vehicle ? <p className="text-xs text-ink-600">{b.vehicle}</p> : null}
+                  </td>
+                  <td className="px-4 py-2">{b.customerName}</td>
+                  <td className="px-4 py-2">{STATUS_LABELS[b.status]}</td>
+                  <td className="px-4 py-2 text-right">{b.dutyPct === null ? "—" : <Signal level={dutyLevel(b.dutyPct)}>{b.dutyPct.toFixed(0)} %</Signal>}</td>
+                  <td className="px-4 py-2 text-right">{b.marginPct === null ? "—" : <Signal level={b.marginPct < 0 ? "danger" : b.marginPct < 25 ? "caution" : "ok"}>{b.marginPct.toFixed(0)} %</Signal>}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      <div className="mt-3 flex gap-2">
+        <button type="button" disabled={cursors.length === 0} onClick={() => setCursors((c) => c.slice(0, -1))} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm disabled:opacity-40">Newer</button>
+        <button type="button" disabled={!data?.nextCursor} onClick={() => data?.nextCursor && setCursors((c) => [...c, data.nextCursor!])} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm disabled:opacity-40">Older</button>
+      </div>
+    </div>
+  );
+}

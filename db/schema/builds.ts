@@ -1,0 +1,63 @@
+import { relations } from "drizzle-orm";
+import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { organization, user } from "./auth";
+import { customers } from "./shops";
+
+export const BUILD_STATUSES = ["draft", "sized", "quoted", "ordered", "fitted", "verified"] as const;
+export type BuildStatus = (typeof BUILD_STATUSES)[number];
+
+/** A customer's build sheet: the validated sizing inputs and the last result computed from them. */
+export const builds = pgTable(
+  "builds",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    customerId: uuid("customer_id").notNull().references(() => customers.id, { onDelete: "restrict" }),
+    title: text("title").notNull(),
+    vehicle: text("vehicle"),
+    status: text("status", { enum: BUILD_STATUSES }).notNull().default("draft"),
+    inputs: jsonb("inputs").notNull(),
+    inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
+    result: jsonb("result"),
+    calcVersion: text("calc_version"),
+    /** Optimistic concurrency: every save must name the version it started from. */
+    version: integer("version").notNull().default(1),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("builds_shop_updated_idx").on(t.shopId, t.updatedAt, t.id),
+    index("builds_shop_status_idx").on(t.shopId, t.status),
+    index("builds_shop_customer_idx").on(t.shopId, t.customerId),
+  ],
+);
+
+/** Every save of a build, in order. */
+export const buildRevisions = pgTable(
+  "build_revisions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    status: text("status", { enum: BUILD_STATUSES }).notNull(),
+    inputs: jsonb("inputs").notNull(),
+    result: jsonb("result"),
+    calcVersion: text("calc_version"),
+    note: text("note"),
+    authorId: text("author_id").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("build_revisions_build_version_idx").on(t.buildId, t.version), index("build_revisions_shop_idx").on(t.shopId)],
+);
+
+export const buildRelations = relations(builds, ({ one, many }) => ({
+  customer: one(customers, { fields: [builds.customerId], references: [customers.id] }),
+  revisions: many(buildRevisions),
+}));
+export const buildRevisionRelations = relations(buildRevisions, ({ one }) => ({ build: one(builds, { fields: [buildRevisions.buildId], references: [builds.id] }) }));
+
+export type Build = typeof builds.$inferSelect;
+export type BuildRevision = typeof buildRevisions.$inferSelect;

@@ -1,0 +1,47 @@
+import { z } from "zod";
+import { BUILD_STATUSES, type BuildStatus } from "@/db/schema/builds";
+import { FuelSystemInputSchema } from "@/lib/calc";
+
+/** Status moves: forward one step, or back to draft for a rework. */
+export const STATUS_NEXT: Record<BuildStatus, readonly BuildStatus[]> = {
+  draft: ["sized"],
+  sized: ["draft", "quoted"],
+  quoted: ["draft", "ordered"],
+  ordered: ["fitted"],
+  fitted: ["verified"],
+  verified: ["draft"],
+};
+
+export const STATUS_LABELS: Record<BuildStatus, string> = {
+  draft: "Draft",
+  sized: "Sized",
+  quoted: "Quoted",
+  ordered: "Ordered",
+  fitted: "Fitted",
+  verified: "Verified",
+};
+
+const text = (label: string, max: number) => z.string().trim().max(max, `${label} is too long (at most ${max} characters)`);
+
+export const BuildCreateSchema = z.object({
+  customerId: z.uuid("Choose a customer"),
+  title: text("Title", 120).min(1, "Give the build a title"),
+  vehicle: text("Vehicle", 200).optional(),
+  inputs: FuelSystemInputSchema.optional(),
+});
+
+export const BuildSaveSchema = z.object({
+  version: z.number({ error: "version is required" }).int().min(1),
+  title: text("Title", 120).min(1, "Give the build a title").optional(),
+  vehicle: text("Vehicle", 200).optional(),
+  status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
+  note: text("Note", 500).optional(),
+  inputs: FuelSystemInputSchema,
+});
+
+export const BuildListQuery = z.object({
+  q: z.string().trim().max(100, "Search is too long").optional(),
+  status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
+  cursor: z.string().max(200).optional(),
+  limit: z.coerce.number().int().min(1).max(100).default(25),
+});
