@@ -1,4 +1,5 @@
 import "server-only";
+import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 import { HttpError } from "@/lib/auth/errors";
 import { requireMember, type Member } from "@/lib/auth/member";
@@ -45,6 +46,7 @@ export function memberAction<S extends z.ZodType>(
     try {
       return (await run(parsed.data, member, form)) ?? { ok: true };
     } catch (e) {
+      unstable_rethrow(e); // redirect() and notFound() are control flow, not failures
       if (e instanceof HttpError) return { ok: false, message: e.message, values };
       console.error(e);
       return { ok: false, message: "Saving failed on our side; your entries are kept — try again", values };

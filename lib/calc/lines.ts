@@ -36,7 +36,8 @@ export function colebrookFrictionFactor(re: number, relativeRoughness: number): 
  * in the transition band (2300–4000) linear between the two, so the figure never jumps.
  */
 export function frictionFactor(re: number, relativeRoughness: number): number {
-  if (re <= 0) return 0;
+  // No flow (or a vanishing one): no friction to speak of, and 64/Re would overflow.
+  if (!(re > 1e-9)) return 0;
   if (re < RE_LAMINAR) return laminarFrictionFactor(re);
   if (re > RE_TURBULENT) return swameeJainFrictionFactor(re, relativeRoughness);
   const t = (re - RE_LAMINAR) / (RE_TURBULENT - RE_LAMINAR);

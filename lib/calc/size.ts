@@ -372,10 +372,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     let hi = base - glo;
     let ghi = g(hi);
     outlet = hi;
-    if (glo < 0 && ghi > 0) {
+    if (glo < 0 && ghi > 0 && hi - lo > 1e-6) {
       let side = 0;
       for (let i = 0; i < 60; i++) {
-        const p = (lo * ghi - hi * glo) / (ghi - glo);
+        const guess = (lo * ghi - hi * glo) / (ghi - glo);
+        const p = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
         const gp = g(p);
         outlet = p;
         if (Math.abs(gp) < 0.01) break;
@@ -391,7 +392,8 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
           side = 1;
         }
       }
-    } else if (glo >= 0) outlet = lo;
+    } else if (glo >= 0 || !(hi - lo > 1e-6)) outlet = lo;
+    if (!Number.isFinite(outlet)) outlet = base;
     feedDrop = linePressureDrop(feedLine, fluid(supplyAt(outlet, voltageUsed).flowLPerH));
   }
   const supply = supplyAt(outlet, voltageUsed);

@@ -233,9 +233,16 @@ describe("sizeFuelSystem properties", () => {
         assertAllFinite(dutyAcrossEthanol(parsed.data, r.crankPowerKw));
         assertAllFinite(pumpSupplyCurve(parsed.data, r));
       }),
-      { numRuns: 300 },
+      { numRuns: Number(process.env.FC_RUNS ?? 300) },
     );
     expect(sized).toBeGreaterThan(50);
+  }, 600_000);
+});
+
+describe("regressions found by the property tests", () => {
+  it("a pump curve of denormal flows gives finite figures", () => {
+    const r = sizeFuelSystem({"engine":{"cylinders":1,"displacementL":0.1,"aspiration":"na","redlineRpm":3001,"idleRpm":300,"maxBoostKpa":0},"target":{"powerKw":1,"measuredAt":"wheel","drivetrainLossPct":0},"fuel":{"ethanolMinVolPct":0,"ethanolMaxVolPct":50},"injectors":{"count":1,"ratedFlowCcPerMin":20,"ratedPressureKpa":100,"minPulseWidthMs":0.1},"regulator":{"type":"boost-referenced","basePressureKpa":50},"pumps":[{"quantity":1,"curves":[{"voltage":6,"points":[{"pressureKpa":50.00000002829482,"flowLPerH":2e-323},{"pressureKpa":0,"flowLPerH":1.5719545166619716e-308}]}]}],"electrical":{"voltageAtPump":6},"lines":{"feed":{"insideDiameterMm":2,"lengthM":0.1},"return":{"insideDiameterMm":2,"lengthM":0.1}}} as FuelSystemInput);
+    assertAllFinite(r);
   });
 });
 

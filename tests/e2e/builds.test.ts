@@ -10,6 +10,11 @@ afterAll(async () => {
   await browser?.close();
 });
 
+/** The editor's fields are filled in by the form library once the page has hydrated. */
+async function editorReady(page: Page) {
+  await expect.poll(() => page.getByLabel("Injectors (count)").inputValue(), { timeout: 15000 }).not.toBe("");
+}
+
 async function signInAs(page: Page, who: string) {
   await page.goto("/sign-in");
   await page.getByLabel("E-mail").fill(`${who}@demo.fuelwright.test`);
@@ -30,6 +35,7 @@ describe("build sheets", () => {
     await page.getByRole("button", { name: "Create build sheet" }).click();
     await page.waitForURL(/\/builds\/[0-9a-f-]{36}$/);
     const url = page.url();
+    await editorReady(page);
 
     const duty = () => page.getByTestId("duty-rich").innerText();
     const before = parseFloat(await duty());
@@ -47,9 +53,11 @@ describe("build sheets", () => {
     const p2 = await other.newPage();
     await signInAs(p2, "owner");
     await p2.goto(url);
+    await editorReady(p2);
     await p2.getByLabel("Injectors (count)").fill("8");
 
     await page.reload();
+    await editorReady(page);
     expect(await page.getByLabel("Injectors (count)").inputValue()).toBe("3");
     await page.getByLabel("Drivetrain loss (%)").fill("12");
     await page.getByRole("button", { name: "Save build" }).click();

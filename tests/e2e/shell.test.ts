@@ -78,6 +78,13 @@ describe("customers", () => {
     const [row] = await sql`select phone, shop_id from customers where name = ${name}`;
     expect(row).toMatchObject({ phone: "555-0123", shop_id: "demo-shop-ridgeback" });
     await page.screenshot({ path: `${shots}/customer-edit-phone.png`, fullPage: true });
+    await page.getByRole("button", { name: "Delete customer" }).click();
+    await page.getByRole("dialog").getByRole("button", { name: "Keep" }).click();
+    expect(await sql`select 1 from customers where name = ${name}`).toHaveLength(1);
+    await page.getByRole("button", { name: "Delete customer" }).click();
+    await page.getByRole("dialog").getByRole("button", { name: "Delete" }).click();
+    await page.waitForURL(/\/customers$/);
+    expect(await sql`select 1 from customers where name = ${name}`).toHaveLength(0);
     await ctx.close();
   });
 });
