@@ -9,6 +9,7 @@ import { FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } fro
 import type { BuildStatus } from "@/db/schema/builds";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
 import { ResultsPanel } from "./results-panel";
+import { SizingCharts } from "./sizing-charts";
 
 type Values = FuelSystemInput & { title: string; status: BuildStatus };
 
@@ -178,8 +179,13 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
           ) : null}
         </fieldset>
       </form>
-      <div className="lg:sticky lg:top-4 lg:self-start">
+      <div>
         <ResultsPanel result={result} />
+        {result && parsed.success ? (
+          <div className="mt-4">
+            <SizingCharts input={parsed.data} result={result} />
+          </div>
+        ) : null}
       </div>
     </div>
   );

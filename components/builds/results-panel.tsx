@@ -55,7 +55,10 @@ export function ResultsPanel({ result, error }: { result: FuelSystemResult | nul
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Power ceiling</h2>
         <p className="figure mt-2 text-3xl font-bold" data-testid="ceiling">{f(r.powerCeiling.kw)} <span className="text-base font-normal">kW crank</span></p>
-        <p className="text-sm text-ink-700">Limited by the {r.powerCeiling.limitedBy}; {f(r.powerCeiling.headroomPct)} % above the {f(r.crankPowerKw)} kW target.</p>
+        <p className="text-sm text-ink-700">
+          Limited by the {r.powerCeiling.limitedBy};{" "}
+          {r.powerCeiling.headroomPct >= 0 ? `${f(r.powerCeiling.headroomPct)} % above` : `▲ ${f(-r.powerCeiling.headroomPct)} % below`} the {f(r.crankPowerKw)} kW crank target.
+        </p>
       </section>
       <section aria-labelledby="warn" className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 id="warn" className="text-lg font-semibold">Warnings</h2>

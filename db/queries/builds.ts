@@ -127,3 +127,12 @@ export async function listRevisions(shopId: string, buildId: string) {
     .where(and(eq(buildRevisions.shopId, shopId), eq(buildRevisions.buildId, buildId)))
     .orderBy(desc(buildRevisions.version));
 }
+
+export async function getRevision(shopId: string, buildId: string, version: number) {
+  const [row] = await db
+    .select()
+    .from(buildRevisions)
+    .where(and(eq(buildRevisions.shopId, shopId), eq(buildRevisions.buildId, buildId), eq(buildRevisions.version, version)))
+    .limit(1);
+  return row ?? null;
+}

@@ -68,6 +68,15 @@ describe("build sheets", () => {
     await expect.poll(() => p2.getByText(/Someone saved this build meanwhile/).count()).toBe(1);
     expect(await p2.getByLabel("Injectors (count)").inputValue()).toBe("8");
 
+    // Restore version 1 (count 6) as a new revision 4.
+    await page.goto(`${url}/revisions/1`);
+    page.once("dialog", (d) => void d.accept());
+    await page.getByRole("button", { name: "Restore as new revision" }).click();
+    await page.waitForURL(url);
+    await expect.poll(() => page.getByText("Restored from version 1").count()).toBe(1);
+    await editorReady(page);
+    expect(await page.getByLabel("Injectors (count)").inputValue()).toBe("6");
+
     await page.goto("/builds");
     await page.getByLabel("Search builds").fill(title);
     await expect.poll(() => page.getByRole("link", { name: title }).count()).toBe(1);

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { BuildEditor } from "@/components/builds/build-editor";
 import { SafetyNote } from "@/components/tools/safety-note";
@@ -38,7 +39,8 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
               <span className="figure w-12 font-semibold">v{r.version}</span>
               <span className="w-20">{STATUS_LABELS[r.status]}</span>
               <span className="figure w-44 text-ink-600">{r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC</span>
-              <span>{r.note ?? ""}</span>
+              <span className="flex-1">{r.note ?? ""}</span>
+              <Link href={`/builds/${b.id}/revisions/${r.version}`} className="text-copper-700 underline">View</Link>
             </li>
           ))}
         </ol>

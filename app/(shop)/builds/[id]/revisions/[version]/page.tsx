@@ -1,0 +1,40 @@
+import { notFound } from "next/navigation";
+import Link from "next/link";
+import { ResultsPanel } from "@/components/builds/results-panel";
+import { PageHeader } from "@/components/ui/status";
+import { getBuild, getRevision } from "@/db/queries/builds";
+import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
+import type { FuelSystemResult } from "@/lib/calc";
+import { STATUS_LABELS } from "@/lib/validations/builds";
+import { RestoreButton } from "./restore-button";
+
+export default async function RevisionPage({ params }: { params: Promise<{ id: string; version: string }> }) {
+  const m = await requirePageMember("builds:read");
+  const { id, version } = await params;
+  const v = Number(version);
+  if (!/^[0-9a-f-]{36}$/i.test(id) || !Number.isInteger(v) || v < 1) notFound();
+  const [row, rev] = await Promise.all([getBuild(m.shopId, id), getRevision(m.shopId, id, v)]);
+  if (!row || !rev) notFound();
+  const latest = row.build.version === v;
+  return (
+    <>
+      <PageHeader title={`${row.build.title} — version ${v}`}>
+        <div className="flex items-center gap-3">
+          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+          {!latest && can(m.role, "builds:write") ? <RestoreButton buildId={id} version={v} currentVersion={row.build.version} /> : null}
+        </div>
+      </PageHeader>
+      <p className="mb-4 text-sm text-ink-700">
+        Read-only. {STATUS_LABELS[rev.status]}, saved {rev.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC{rev.note ? ` — ${rev.note}` : ""}. Figures as computed then (library {rev.calcVersion ?? "?"}).
+      </p>
+      <div className="grid gap-6 lg:grid-cols-2">
+        <section className="rounded-lg border border-ink-200 bg-white p-5">
+          <h2 className="text-lg font-semibold">Inputs</h2>
+          <pre className="figure mt-2 overflow-x-auto whitespace-pre-wrap text-xs">{JSON.stringify(rev.inputs, null, 2)}</pre>
+        </section>
+        <ResultsPanel result={rev.result as FuelSystemResult | null} />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,67 @@
+"use client";
+
+import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { dutyAcrossEthanol, dutyAcrossRpm, pumpSupplyCurve, type FuelSystemResult, type ParsedFuelSystemInput } from "@/lib/calc";
+
+const INK = "#44505c";
+const COPPER = "#b3592c";
+const DANGER = "#b42d26";
+
+function Chart({ title, summary, children }: { title: string; summary: string; children: React.ReactElement }) {
+  return (
+    <figure className="rounded-lg border border-ink-200 bg-white p-4">
+      <figcaption className="mb-2 font-semibold">{title}</figcaption>
+      <div className="h-56" role="img" aria-label={summary}>
+        <ResponsiveContainer width="100%" height="100%">{children}</ResponsiveContainer>
+      </div>
+    </figure>
+  );
+}
+
+/** Duty across engine speed and across ethanol content; pump supply against pressure. */
+export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; result: FuelSystemResult }) {
+  const rpm = dutyAcrossRpm(result, input.engine.idleRpm, input.engine.redlineRpm, 20).map((p) => ({ rpm: Math.round(p.rpm), lean: +p.dutyPctLean.toFixed(1), rich: +p.dutyPctRich.toFixed(1) }));
+  const eth = dutyAcrossEthanol(input, result.crankPowerKw, 11).map((p) => ({ e: p.ethanolVolPct, duty: +p.dutyPct.toFixed(1) }));
+  const pump = pumpSupplyCurve(input, result, 20).map((p) => ({ p: Math.round(p.pressureKpa), supply: +p.supplyLPerH.toFixed(0), demand: +p.demandLPerH.toFixed(0) }));
+  const danger = result.limits.dutyDangerPct;
+  return (
+    <div className="space-y-4">
+      <Chart title="Duty across engine speed" summary={`Duty rises to ${result.injector.dutyPct.toFixed(0)} % at ${input.engine.redlineRpm} rpm`}>
+        <LineChart data={rpm} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+          <CartesianGrid stroke="#e6eaee" />
+          <XAxis dataKey="rpm" unit=" rpm" tick={{ fontSize: 11 }} />
+          <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
+          <Tooltip />
+          <Legend />
+          <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" label={{ value: `${danger} %`, fontSize: 11, fill: DANGER }} />
+          <Line dataKey="rich" name={`E${input.fuel.ethanolMaxVolPct}`} stroke={COPPER} dot={false} isAnimationActive={false} />
+          <Line dataKey="lean" name={`E${input.fuel.ethanolMinVolPct}`} stroke={INK} strokeDasharray="5 3" dot={false} isAnimationActive={false} />
+        </LineChart>
+      </Chart>
+      <Chart title="Duty across ethanol content" summary="Duty at the target power from E0 to E100">
+        <LineChart data={eth} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+          <CartesianGrid stroke="#e6eaee" />
+          <XAxis dataKey="e" unit=" %" tick={{ fontSize: 11 }} />
+          <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
+          <Tooltip />
+          <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" />
+          <ReferenceLine x={input.fuel.ethanolMinVolPct} stroke={INK} strokeDasharray="2 2" />
+          <ReferenceLine x={input.fuel.ethanolMaxVolPct} stroke={INK} strokeDasharray="2 2" />
+          <Line dataKey="duty" name="duty" stroke={COPPER} dot isAnimationActive={false} />
+        </LineChart>
+      </Chart>
+      <Chart title="Pump supply against pressure" summary={`Supply ${result.pump.supplyLPerH.toFixed(0)} L/h against demand ${result.pump.demandLPerH.toFixed(0)} L/h at ${result.pump.outletPressureKpa.toFixed(0)} kPa`}>
+        <LineChart data={pump} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+          <CartesianGrid stroke="#e6eaee" />
+          <XAxis dataKey="p" unit=" kPa" tick={{ fontSize: 11 }} />
+          <YAxis unit=" L/h" tick={{ fontSize: 11 }} width={56} />
+          <Tooltip />
+          <Legend />
+          <ReferenceLine x={Math.round(result.pump.outletPressureKpa)} stroke={INK} strokeDasharray="2 2" label={{ value: "working", fontSize: 11 }} />
+          <Line dataKey="supply" name="supply" stroke={COPPER} dot={false} isAnimationActive={false} />
+          <Line dataKey="demand" name="demand" stroke={DANGER} strokeDasharray="5 3" dot={false} isAnimationActive={false} />
+        </LineChart>
+      </Chart>
+    </div>
+  );
+}
