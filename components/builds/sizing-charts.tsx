@@ -29,7 +29,7 @@ export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; 
       <Chart title="Duty across engine speed" summary={`Duty rises to ${result.injector.dutyPct.toFixed(0)} % at ${input.engine.redlineRpm} rpm`}>
         <LineChart data={rpm} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />
-          <XAxis dataKey="rpm" unit=" rpm" tick={{ fontSize: 11 }} />
+          <XAxis dataKey="rpm" type="number" domain={["dataMin", "dataMax"]} unit=" rpm" tick={{ fontSize: 11 }} />
           <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
           <Tooltip />
           <Legend />
@@ -41,7 +41,7 @@ export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; 
       <Chart title="Duty across ethanol content" summary="Duty at the target power from E0 to E100">
         <LineChart data={eth} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />
-          <XAxis dataKey="e" unit=" %" tick={{ fontSize: 11 }} />
+          <XAxis dataKey="e" type="number" domain={[0, 100]} unit=" %" tick={{ fontSize: 11 }} />
           <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
           <Tooltip />
           <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" />
@@ -53,7 +53,7 @@ export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; 
       <Chart title="Pump supply against pressure" summary={`Supply ${result.pump.supplyLPerH.toFixed(0)} L/h against demand ${result.pump.demandLPerH.toFixed(0)} L/h at ${result.pump.outletPressureKpa.toFixed(0)} kPa`}>
         <LineChart data={pump} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />
-          <XAxis dataKey="p" unit=" kPa" tick={{ fontSize: 11 }} />
+          <XAxis dataKey="p" type="number" domain={[0, "dataMax"]} unit=" kPa" tick={{ fontSize: 11 }} />
           <YAxis unit=" L/h" tick={{ fontSize: 11 }} width={56} />
           <Tooltip />
           <Legend />

@@ -1,18 +1,14 @@
-import { z } from "zod";
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
 import { NotFoundError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
 import { checkTransition, sizeForSave } from "@/lib/builds/service";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
+import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { BuildSaveSchema } from "@/lib/validations/builds";
 
-type Ctx = { params: Promise<{ id: string }> };
-const idOf = async (ctx: Ctx) => {
-  const parsed = z.uuid().safeParse((await ctx.params).id);
-  if (!parsed.success) throw new NotFoundError("That build");
-  return parsed.data;
-};
+type Ctx = IdCtx;
+const idOf = (ctx: Ctx) => uuidParam(ctx, "That build");
 
 export const GET = handle<Ctx>(async (_req, ctx) => {
   const m = await requireMember("builds:read");

@@ -1,20 +1,13 @@
-import { z } from "zod";
 import { deleteCustomer, getCustomer, updateCustomer } from "@/db/queries/customers";
 import { NotFoundError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
+import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { CustomerSchema } from "@/lib/validations/customers";
 
-type Ctx = { params: Promise<{ id: string }> };
-const Id = z.uuid();
-
-/** Another shop's customer, or an id that is not a UUID, is simply not found. */
-async function idOf(ctx: Ctx) {
-  const parsed = Id.safeParse((await ctx.params).id);
-  if (!parsed.success) throw new NotFoundError("That customer");
-  return parsed.data;
-}
+type Ctx = IdCtx;
+const idOf = (ctx: Ctx) => uuidParam(ctx, "That customer");
 
 export const GET = handle<Ctx>(async (_req, ctx) => {
   const m = await requireMember("customers:read");
