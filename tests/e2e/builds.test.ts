@@ -77,9 +77,16 @@ describe("build sheets", () => {
     await editorReady(page);
     expect(await page.getByLabel("Injectors (count)").inputValue()).toBe("6");
 
+    // A power step on the same car starts from these inputs as a new build.
+    await page.getByRole("button", { name: "Copy as next power step" }).click();
+    await page.waitForURL((u) => /\/builds\/[0-9a-f-]{36}$/.test(u.pathname) && !u.href.startsWith(url));
+    await editorReady(page);
+    expect(await page.getByLabel("Title").inputValue()).toBe(`${title} — next step`);
+    expect(await page.getByLabel("Injectors (count)").inputValue()).toBe("6");
+
     await page.goto("/builds");
     await page.getByLabel("Search builds").fill(title);
-    await expect.poll(() => page.getByRole("link", { name: title }).count()).toBe(1);
+    await expect.poll(() => page.getByRole("link", { name: title, exact: true }).count()).toBe(1);
     await ctx.close();
     await other.close();
   });

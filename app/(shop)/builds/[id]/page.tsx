@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { BuildEditor } from "@/components/builds/build-editor";
+import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { requirePageMember } from "@/lib/auth/member";
@@ -20,8 +21,9 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const b = row.build;
   return (
     <>
-      <div className="mb-4">
+      <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-ink-600">{row.customerName}{b.vehicle ? ` · ${b.vehicle}` : ""}</p>
+        {can(m.role, "builds:write") ? <CopyBuildButton buildId={b.id} /> : null}
       </div>
       <BuildEditor
         buildId={b.id}

@@ -1,0 +1,34 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
+import { z } from "zod";
+import { createBuild, getBuild } from "@/db/queries/builds";
+import { HttpError } from "@/lib/auth/errors";
+import { requireMember } from "@/lib/auth/member";
+import { sizeForSave } from "@/lib/builds/service";
+import type { FuelSystemInput } from "@/lib/calc";
+
+/** "Power step": a new build for the same car, starting from this build's inputs. */
+export async function copyBuildAction(buildId: string): Promise<{ ok: false; message: string }> {
+  let target: string;
+  try {
+    const m = await requireMember("builds:write");
+    const id = z.uuid().parse(buildId);
+    const row = await getBuild(m.shopId, id);
+    if (!row) return { ok: false, message: "That build was not found" };
+    const copy = await createBuild(m.shopId, m.user.id, {
+      customerId: row.build.customerId,
+      title: `${row.build.title} — next step`.slice(0, 120),
+      vehicle: row.build.vehicle ?? undefined,
+      ...sizeForSave(row.build.inputs as FuelSystemInput),
+    });
+    revalidatePath("/builds");
+    target = `/builds/${copy.id}`;
+  } catch (e) {
+    if (e instanceof HttpError) return { ok: false, message: e.message };
+    if (e instanceof z.ZodError) return { ok: false, message: "That build was not found" };
+    throw e;
+  }
+  redirect(target);
+}
