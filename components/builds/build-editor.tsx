@@ -5,6 +5,7 @@ import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-ho
 import { saveBuildAction, type SaveBuildState } from "@/app/(shop)/builds/[id]/actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
+import { UnitNumberField } from "@/components/ui/unit-number-field";
 import { FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "@/lib/calc";
 import type { BuildStatus } from "@/db/schema/builds";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
@@ -16,23 +17,7 @@ type Values = FuelSystemInput & { title: string; status: BuildStatus };
 const toNumber = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : typeof v === "number" ? v : Number(String(v).replace(",", ".")));
 
 function NumberField({ register, name, label, unit, error }: { register: UseFormRegister<Values>; name: string; label: string; unit: string; error?: string }) {
-  const id = `b-${name.replace(/\./g, "-")}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
-        {label} <span className="text-ink-500">({unit})</span>
-      </label>
-      <input
-        id={id}
-        inputMode="decimal"
-        aria-invalid={Boolean(error)}
-        aria-describedby={error ? `${id}-err` : undefined}
-        className="figure mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 aria-[invalid=true]:border-danger-600"
-        {...register(name as never, { setValueAs: toNumber })}
-      />
-      {error ? <p id={`${id}-err`} role="alert" className="mt-1 text-sm text-danger-700">✕ {error}</p> : null}
-    </div>
-  );
+  return <UnitNumberField id={`b-${name.replace(/\./g, "-")}`} label={label} unit={unit} error={error} announce {...register(name as never, { setValueAs: toNumber })} />;
 }
 
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
