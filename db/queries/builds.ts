@@ -1,6 +1,6 @@
-import { and, desc, eq, ilike, lt, or, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { buildRevisions, builds, customers, type Build, type BuildStatus } from "@/db/schema";
+import { buildRevisions, builds, customers, member, user, type Build, type BuildStatus } from "@/db/schema";
 import type { FuelSystemResult } from "@/lib/calc";
 import { HttpError } from "@/lib/auth/errors";
 
@@ -12,19 +12,58 @@ export class ConflictError extends HttpError {
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Cursor = "<updatedAt ISO>|<id>" of the last row seen. */
-export async function listBuilds(shopId: string, opts: { q?: string; status?: BuildStatus; cursor?: string; limit: number; customerId?: string }) {
+export const BUILD_SORTS = ["updated", "created", "title"] as const;
+export type BuildSort = (typeof BUILD_SORTS)[number];
+
+const SORT_COLUMNS = {
+  updated: { col: builds.updatedAt, desc: true },
+  created: { col: builds.createdAt, desc: true },
+  title: { col: builds.title, desc: false },
+} as const;
+
+/** Opaque keyset cursor: base64url of [sort key of the last row, its id]. */
+const encodeCursor = (key: string, id: string) => Buffer.from(JSON.stringify([key, id])).toString("base64url");
+function decodeCursor(c: string): [string, string] | null {
+  try {
+    const v: unknown = JSON.parse(Buffer.from(c, "base64url").toString("utf8"));
+    return Array.isArray(v) && v.length === 2 && typeof v[0] === "string" && typeof v[1] === "string" && /^[0-9a-f-]{36}$/i.test(v[1]) ? [v[0], v[1]] : null;
+  } catch {
+    return null;
+  }
+}
+
+export interface BuildListOptions {
+  q?: string;
+  status?: BuildStatus;
+  tunerId?: string;
+  customerId?: string;
+  /** Only builds of customers linked to this portal user. */
+  portalUserId?: string;
+  sort?: BuildSort;
+  cursor?: string;
+  limit: number;
+}
+
+/**
+ * One page of a shop's builds. The search runs on `search_text` (title, vehicle and customer
+ * name, kept by a trigger) through a trigram index; paging is keyset on (sort key, id).
+ */
+export async function listBuilds(shopId: string, opts: BuildListOptions) {
+  const sort = SORT_COLUMNS[opts.sort ?? "updated"];
   const conds = [eq(builds.shopId, shopId)];
   if (opts.status) conds.push(eq(builds.status, opts.status));
   if (opts.customerId) conds.push(eq(builds.customerId, opts.customerId));
-  if (opts.q) {
-    const like = `%${escapeLike(opts.q)}%`;
-    conds.push(or(ilike(builds.title, like), ilike(builds.vehicle, like), ilike(customers.name, like))!);
-  }
-  if (opts.cursor) {
-    const [at, id] = opts.cursor.split("|");
-    const when = new Date(at ?? "");
-    if (id && !Number.isNaN(when.getTime())) conds.push(or(lt(builds.updatedAt, when), and(eq(builds.updatedAt, when), lt(builds.id, id)))!);
+  if (opts.tunerId) conds.push(eq(builds.tunerId, opts.tunerId));
+  if (opts.portalUserId) conds.push(eq(customers.userId, opts.portalUserId));
+  if (opts.q) conds.push(like(builds.searchText, `%${escapeLike(opts.q.toLowerCase())}%`));
+  const after = opts.cursor ? decodeCursor(opts.cursor) : null;
+  if (after) {
+    const [rawKey, id] = after;
+    const key = sort.col === builds.title ? rawKey : new Date(rawKey);
+    if (!(key instanceof Date) || !Number.isNaN(key.getTime())) {
+      const beyond = sort.desc ? lt(sort.col, key as never) : gt(sort.col, key as never);
+      conds.push(or(beyond, and(eq(sort.col, key as never), sort.desc ? lt(builds.id, id) : gt(builds.id, id)))!);
+    }
   }
   const rows = await db
     .select({
@@ -33,29 +72,45 @@ export async function listBuilds(shopId: string, opts: { q?: string; status?: Bu
       vehicle: builds.vehicle,
       status: builds.status,
       version: builds.version,
+      createdAt: builds.createdAt,
       updatedAt: builds.updatedAt,
       customerId: builds.customerId,
       customerName: customers.name,
+      tunerId: builds.tunerId,
+      tunerName: user.name,
       dutyPct: sql<number | null>`(${builds.result}->'injector'->>'dutyPct')::float8`,
       marginPct: sql<number | null>`(${builds.result}->'pump'->>'marginPct')::float8`,
     })
     .from(builds)
     .innerJoin(customers, eq(customers.id, builds.customerId))
+    .leftJoin(user, eq(user.id, builds.tunerId))
     .where(and(...conds))
-    .orderBy(desc(builds.updatedAt), desc(builds.id))
+    .orderBy(sort.desc ? desc(sort.col) : asc(sort.col), sort.desc ? desc(builds.id) : asc(builds.id))
     .limit(opts.limit + 1);
   const more = rows.length > opts.limit;
   const page = more ? rows.slice(0, opts.limit) : rows;
   const last = page[page.length - 1];
-  return { builds: page, nextCursor: more && last ? `${last.updatedAt.toISOString()}|${last.id}` : null };
+  const lastKey = last ? (opts.sort === "title" ? last.title : (opts.sort === "created" ? last.createdAt : last.updatedAt).toISOString()) : "";
+  return { builds: page, nextCursor: more && last ? encodeCursor(lastKey, last.id) : null };
 }
 
-export async function getBuild(shopId: string, id: string) {
+/** The shop's members who tune (for the table's tuner filter). */
+export async function listTuners(shopId: string) {
+  return db
+    .select({ id: user.id, name: user.name })
+    .from(member)
+    .innerJoin(user, eq(user.id, member.userId))
+    .where(and(eq(member.organizationId, shopId), inArray(member.role, ["owner", "tuner"])))
+    .orderBy(asc(user.name));
+}
+
+/** One build of the shop; with `portalUserId`, only if it belongs to that portal customer. */
+export async function getBuild(shopId: string, id: string, portalUserId?: string) {
   const [row] = await db
     .select({ build: builds, customerName: customers.name, customerUserId: customers.userId })
     .from(builds)
     .innerJoin(customers, eq(customers.id, builds.customerId))
-    .where(and(eq(builds.shopId, shopId), eq(builds.id, id)))
+    .where(and(eq(builds.shopId, shopId), eq(builds.id, id), portalUserId ? eq(customers.userId, portalUserId) : undefined))
     .limit(1);
   return row ?? null;
 }
@@ -76,7 +131,7 @@ export async function createBuild(shopId: string, userId: string, v: { customerI
     if (!c) throw new HttpError(422, "invalid_input", "That customer is not in this shop");
     const [b] = await tx
       .insert(builds)
-      .values({ shopId, customerId: v.customerId, title: v.title, vehicle: v.vehicle || null, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, createdBy: userId, updatedBy: userId })
+      .values({ shopId, customerId: v.customerId, title: v.title, vehicle: v.vehicle || null, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, tunerId: userId, createdBy: userId, updatedBy: userId })
       .returning();
     await tx.insert(buildRevisions).values({ shopId, buildId: b!.id, version: 1, status: b!.status, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, authorId: userId, note: "Created" });
     return b!;

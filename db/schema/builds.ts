@@ -1,4 +1,4 @@
-import { relations } from "drizzle-orm";
+import { relations, sql } from "drizzle-orm";
 import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 import { customers } from "./shops";
@@ -22,6 +22,10 @@ export const builds = pgTable(
     calcVersion: text("calc_version"),
     /** Optimistic concurrency: every save must name the version it started from. */
     version: integer("version").notNull().default(1),
+    /** Lower-cased title, vehicle and customer name, for the trigram search of the builds table. */
+    searchText: text("search_text").notNull().default(""),
+    /** The tuner responsible for the build (the creator unless reassigned). */
+    tunerId: text("tuner_id").references(() => user.id, { onDelete: "set null" }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -29,7 +33,11 @@ export const builds = pgTable(
   },
   (t) => [
     index("builds_shop_updated_idx").on(t.shopId, t.updatedAt, t.id),
-    index("builds_shop_status_idx").on(t.shopId, t.status),
+    index("builds_shop_status_updated_idx").on(t.shopId, t.status, t.updatedAt, t.id),
+    index("builds_shop_created_idx").on(t.shopId, t.createdAt, t.id),
+    index("builds_shop_title_idx").on(t.shopId, t.title, t.id),
+    index("builds_shop_tuner_idx").on(t.shopId, t.tunerId, t.updatedAt),
+    index("builds_search_trgm_idx").using("gin", sql`${t.searchText} gin_trgm_ops`),
     index("builds_shop_customer_idx").on(t.shopId, t.customerId),
   ],
 );

@@ -14,6 +14,8 @@ export const PERMISSIONS = {
   "customers:write": ["owner", "tuner", "counter"],
   "builds:read": ["owner", "tuner", "counter"],
   "builds:write": ["owner", "tuner"],
+  /** Reading builds through the API; customers see only their own (see ownRecordsOnly). */
+  "builds:view": ["owner", "tuner", "counter", "customer"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
 } as const satisfies Record<string, readonly Role[]>;
 
@@ -22,4 +24,9 @@ export type Action = keyof typeof PERMISSIONS;
 /** May a member with this role take this action? */
 export function can(role: Role, action: Action): boolean {
   return (PERMISSIONS[action] as readonly Role[]).includes(role);
+}
+
+/** Roles that see only the records tied to their own sign-in (their builds, quotes, files). */
+export function ownRecordsOnly(role: Role): boolean {
+  return role === "customer";
 }

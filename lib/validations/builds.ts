@@ -42,6 +42,8 @@ export const BuildSaveSchema = z.object({
 export const BuildListQuery = z.object({
   q: z.string().trim().max(100, "Search is too long").optional(),
   status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
-  cursor: z.string().max(200).optional(),
+  tuner: z.string().trim().min(1).max(64, "Unknown tuner").optional(),
+  sort: z.enum(["updated", "created", "title"], { error: "Sort by updated, created or title" }).default("updated"),
+  cursor: z.string().max(400).optional(),
   limit: z.coerce.number().int().min(1).max(100).default(25),
 });

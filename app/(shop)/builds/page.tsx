@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { BuildsTable } from "@/components/builds/builds-table";
 import { PageHeader } from "@/components/ui/status";
+import { listTuners } from "@/db/queries/builds";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 
@@ -16,7 +17,7 @@ export default async function BuildsPage() {
           <Link href="/builds/new" className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700">New build</Link>
         ) : null}
       </PageHeader>
-      <BuildsTable />
+      <BuildsTable tuners={await listTuners(m.shopId)} />
     </>
   );
 }

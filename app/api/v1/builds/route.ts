@@ -1,16 +1,20 @@
 import { createBuild, listBuilds } from "@/db/queries/builds";
 import { requireMember } from "@/lib/auth/member";
+import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { newBuildInputs } from "@/lib/builds/defaults";
 import { sizeForSave } from "@/lib/builds/service";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 import { BuildCreateSchema, BuildListQuery } from "@/lib/validations/builds";
 
-/** GET /api/v1/builds?q=&status=&cursor=&limit= — the shop's builds, newest first. */
+/**
+ * GET /api/v1/builds?q=&status=&tuner=&sort=&cursor=&limit= — the shop's builds (a customer's
+ * own only, for the portal role).
+ */
 export const GET = handle(async (req) => {
-  const m = await requireMember("builds:read");
-  const q = BuildListQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
-  return Response.json(await listBuilds(m.shopId, q));
+  const m = await requireMember("builds:view");
+  const { tuner, ...q } = BuildListQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
+  return Response.json(await listBuilds(m.shopId, { ...q, tunerId: tuner, portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined }));
 });
 
 /** POST /api/v1/builds — a new build sheet for a customer (default inputs when none are sent). */

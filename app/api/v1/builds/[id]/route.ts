@@ -1,6 +1,7 @@
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
 import { NotFoundError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
+import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { checkTransition, sizeForSave } from "@/lib/builds/service";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
@@ -11,8 +12,8 @@ type Ctx = IdCtx;
 const idOf = (ctx: Ctx) => uuidParam(ctx, "That build");
 
 export const GET = handle<Ctx>(async (_req, ctx) => {
-  const m = await requireMember("builds:read");
-  const row = await getBuild(m.shopId, await idOf(ctx));
+  const m = await requireMember("builds:view");
+  const row = await getBuild(m.shopId, await idOf(ctx), ownRecordsOnly(m.role) ? m.user.id : undefined);
   if (!row) throw new NotFoundError("That build");
   return Response.json({ build: row.build, customerName: row.customerName });
 });
