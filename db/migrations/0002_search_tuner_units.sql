@@ -7,7 +7,7 @@ ALTER TABLE "builds" ADD CONSTRAINT "builds_tuner_id_user_id_fk" FOREIGN KEY ("t
 CREATE INDEX "builds_shop_status_updated_idx" ON "builds" USING btree ("shop_id","status","updated_at","id");--> statement-breakpoint
 CREATE INDEX "builds_shop_created_idx" ON "builds" USING btree ("shop_id","created_at","id");--> statement-breakpoint
 CREATE INDEX "builds_shop_title_idx" ON "builds" USING btree ("shop_id","title","id");--> statement-breakpoint
-CREATE INDEX "builds_shop_tuner_idx" ON "builds" USING btree ("shop_id","tuner_id","updated_at");--> statement-breakpoint
+CREATE INDEX "builds_shop_tuner_idx" ON "builds" USING btree ("shop_id","tuner_id","updated_at","id");--> statement-breakpoint
 CREATE INDEX "builds_search_trgm_idx" ON "builds" USING gin ("search_text" gin_trgm_ops);--> statement-breakpoint
 UPDATE "builds" b SET "search_text" = lower(b."title" || ' ' || coalesce(b."vehicle", '') || ' ' || c."name"), "tuner_id" = b."created_by" FROM "customers" c WHERE c."id" = b."customer_id";
 --> statement-breakpoint

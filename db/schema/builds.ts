@@ -36,7 +36,7 @@ export const builds = pgTable(
     index("builds_shop_status_updated_idx").on(t.shopId, t.status, t.updatedAt, t.id),
     index("builds_shop_created_idx").on(t.shopId, t.createdAt, t.id),
     index("builds_shop_title_idx").on(t.shopId, t.title, t.id),
-    index("builds_shop_tuner_idx").on(t.shopId, t.tunerId, t.updatedAt),
+    index("builds_shop_tuner_idx").on(t.shopId, t.tunerId, t.updatedAt, t.id),
     index("builds_search_trgm_idx").using("gin", sql`${t.searchText} gin_trgm_ops`),
     index("builds_shop_customer_idx").on(t.shopId, t.customerId),
   ],
