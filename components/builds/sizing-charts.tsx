@@ -1,7 +1,7 @@
 "use client";
 
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { dutyAcrossEthanol, dutyAcrossRpm, pumpSupplyCurve, type FuelSystemResult, type ParsedFuelSystemInput } from "@/lib/calc";
+import { converter, dutyAcrossEthanol, dutyAcrossRpm, pumpSupplyCurve, toShown, type FuelSystemResult, type ParsedFuelSystemInput, type UnitSystem } from "@/lib/calc";
 
 const INK = "#44505c";
 const COPPER = "#b3592c";
@@ -19,10 +19,14 @@ function Chart({ title, summary, children }: { title: string; summary: string; c
 }
 
 /** Duty across engine speed and across ethanol content; pump supply against pressure. */
-export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; result: FuelSystemResult }) {
+export function SizingCharts({ input, result, units = "metric" }: { input: ParsedFuelSystemInput; result: FuelSystemResult; units?: UnitSystem }) {
+  const pu = converter("pressure", units).unit;
+  const fu = converter("volumeFlow", units).unit;
+  const P = (kpa: number) => toShown("pressure", kpa, units);
+  const F = (lph: number) => toShown("volumeFlow", lph, units);
   const rpm = dutyAcrossRpm(result, input.engine.idleRpm, input.engine.redlineRpm, 20).map((p) => ({ rpm: Math.round(p.rpm), lean: +p.dutyPctLean.toFixed(1), rich: +p.dutyPctRich.toFixed(1) }));
   const eth = dutyAcrossEthanol(input, result.crankPowerKw, 11).map((p) => ({ e: p.ethanolVolPct, duty: +p.dutyPct.toFixed(1) }));
-  const pump = pumpSupplyCurve(input, result, 20).map((p) => ({ p: Math.round(p.pressureKpa), supply: +p.supplyLPerH.toFixed(0), demand: +p.demandLPerH.toFixed(0) }));
+  const pump = pumpSupplyCurve(input, result, 20).map((p) => ({ p: P(p.pressureKpa), supply: F(p.supplyLPerH), demand: F(p.demandLPerH) }));
   const danger = result.limits.dutyDangerPct;
   return (
     <div className="space-y-4">
@@ -50,14 +54,14 @@ export function SizingCharts({ input, result }: { input: ParsedFuelSystemInput; 
           <Line dataKey="duty" name="duty" stroke={COPPER} dot isAnimationActive={false} />
         </LineChart>
       </Chart>
-      <Chart title="Pump supply against pressure" summary={`Supply ${result.pump.supplyLPerH.toFixed(0)} L/h against demand ${result.pump.demandLPerH.toFixed(0)} L/h at ${result.pump.outletPressureKpa.toFixed(0)} kPa`}>
+      <Chart title="Pump supply against pressure" summary={`Supply ${F(result.pump.supplyLPerH)} ${fu} against demand ${F(result.pump.demandLPerH)} ${fu} at ${P(result.pump.outletPressureKpa)} ${pu}`}>
         <LineChart data={pump} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />
-          <XAxis dataKey="p" type="number" domain={[0, "dataMax"]} unit=" kPa" tick={{ fontSize: 11 }} />
-          <YAxis unit=" L/h" tick={{ fontSize: 11 }} width={56} />
+          <XAxis dataKey="p" type="number" domain={[0, "dataMax"]} unit={` ${pu}`} tick={{ fontSize: 11 }} />
+          <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
           <Tooltip />
           <Legend />
-          <ReferenceLine x={Math.round(result.pump.outletPressureKpa)} stroke={INK} strokeDasharray="2 2" label={{ value: "working", fontSize: 11 }} />
+          <ReferenceLine x={P(result.pump.outletPressureKpa)} stroke={INK} strokeDasharray="2 2" label={{ value: "working", fontSize: 11 }} />
           <Line dataKey="supply" name="supply" stroke={COPPER} dot={false} isAnimationActive={false} />
           <Line dataKey="demand" name="demand" stroke={DANGER} strokeDasharray="5 3" dot={false} isAnimationActive={false} />
         </LineChart>

@@ -42,3 +42,4 @@ export { sizeFuelSystem, sizeParsedFuelSystem, CALC_VERSION } from "./size";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";
+export * from "./display";

@@ -67,6 +67,8 @@ describe("build sheets", () => {
     await p2.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => p2.getByText(/Someone saved this build meanwhile/).count()).toBe(1);
     expect(await p2.getByLabel("Injectors (count)").inputValue()).toBe("8");
+    // The other person's change is shown beside ours.
+    await expect.poll(() => p2.getByTestId("conflict").innerText()).toMatch(/Drivetrain loss\s+15\s+12/);
 
     // Restore version 1 (count 6) as a new revision 4.
     await page.goto(`${url}/revisions/1`);
@@ -89,6 +91,77 @@ describe("build sheets", () => {
     await expect.poll(() => page.getByRole("link", { name: title, exact: true }).count()).toBe(1);
     await ctx.close();
     await other.close();
+  });
+
+  it("units switch between imperial and metric, lines are sized, and two revisions compare", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.getByRole("link", { name: "New build" }).click();
+    await page.getByLabel("Customer").selectOption({ label: "Harriet Quill" });
+    const title = `Units ${Date.now()}`;
+    await page.getByLabel("Title").fill(title);
+    await page.getByRole("button", { name: "Create build sheet" }).click();
+    await page.waitForURL(/\/builds\/[0-9a-f-]{36}$/);
+    const url = page.url();
+    await editorReady(page);
+
+    await page.getByRole("radio", { name: /Metric/ }).click();
+    await expect.poll(() => page.getByLabel("Target power (kW)").inputValue()).toBe("375"); // lib/builds/defaults.ts
+    await page.getByRole("radio", { name: /Imperial/ }).click();
+    // 375 kW / 0.7456999 kW/hp = 502.9 hp (NIST SP 811 B.8), shown to the nearest hp.
+    await expect.poll(() => page.getByLabel("Target power (hp)").inputValue()).toBe("503");
+    await expect.poll(() => page.getByText("unsaved changes").count()).toBe(0); // a unit switch changes nothing
+
+    await page.getByLabel("Size the feed line (tank to rail)").check();
+    await page.locator("#b-feed-an").selectOption("8");
+    // AN −8 typical hose ID 11.1 mm = 0.437 in (1 in = 25.4 mm exactly).
+    await expect.poll(() => page.getByLabel("Inside diameter (in)").inputValue()).toBe("0.437");
+    await page.getByLabel("Use the injector's dead-time table").check();
+    await page.getByRole("button", { name: "Add voltage" }).click();
+    await expect.poll(() => page.getByLabel("Voltage row 4 (V)").count()).toBe(1);
+    await page.getByLabel("Voltage row 4 (V)").fill("16");
+    for (const col of [1, 2]) await page.getByLabel(`Dead time at row 4, column ${col} (ms)`).fill("0.6");
+    await page.getByRole("button", { name: "Save build" }).click();
+    await expect.poll(() => page.getByText("Saved as version 2").count()).toBe(1);
+
+    await page.reload();
+    await editorReady(page);
+    expect(await page.getByLabel("Target power (hp)").inputValue()).toBe("503"); // the preference is kept
+    expect(await page.getByLabel("Voltage row 4 (V)").inputValue()).toBe("16");
+    await page.getByRole("link", { name: "Compare version 2 with version 1" }).click();
+    await page.waitForURL(/compare\?from=1&to=2/);
+    const changes = await page.getByTestId("input-changes").innerText();
+    expect(changes).toContain("Feed line inside diameter");
+    expect(changes).toContain("0.437 in");
+    expect(await page.getByTestId("figure-changes").innerText()).toContain("Pump supply");
+    await page.goto(url);
+    await editorReady(page);
+    await page.getByRole("radio", { name: /Metric/ }).click();
+    await expect.poll(() => page.getByLabel("Inside diameter (mm)").inputValue()).toBe("11.1");
+    await page.getByRole("radio", { name: /Imperial/ }).click(); // leave the demo tuner as found
+    await expect.poll(() => page.getByLabel("Target power (hp)").count()).toBe(1);
+    await ctx.close();
+  });
+
+  it("the builds table searches and pages", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto("/builds?per=2");
+    const rows = page.locator("tbody tr");
+    await expect.poll(() => rows.count()).toBe(2);
+    const first = await rows.first().innerText();
+    await page.getByRole("button", { name: "Next →" }).click();
+    await expect.poll(() => page.getByText("Page 2").count()).toBe(1);
+    await expect.poll(async () => (await rows.first().innerText()) !== first).toBe(true);
+    await page.getByRole("button", { name: "← Previous" }).click();
+    await expect.poll(() => rows.first().innerText()).toBe(first);
+    await page.getByLabel("Search builds").fill("Dashiell"); // a demo customer (db/seed.ts)
+    await expect.poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Dashiell Moreau"))).toBe(true);
+    await page.getByLabel("Search builds").fill("no such build zzq");
+    await expect.poll(() => page.getByText("No build matches").count()).toBe(1);
+    await ctx.close();
   });
 
   it("the blend mixer answers a worked case", async () => {

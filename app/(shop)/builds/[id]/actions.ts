@@ -1,5 +1,6 @@
 "use server";
 
+import { userName } from "@/db/queries/preferences";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
@@ -11,7 +12,7 @@ import { BuildSaveSchema } from "@/lib/validations/builds";
 
 export type SaveBuildState =
   | { ok: true; version: number; message: string }
-  | { ok: false; message: string; fieldErrors?: Record<string, string>; conflict?: { version: number; updatedAt: string; title: string } };
+  | { ok: false; message: string; fieldErrors?: Record<string, string>; conflict?: { version: number; updatedAt: string; title: string; authorName: string | null; inputs: unknown } };
 
 /** Saves the editor's build: validated and sized again on the server, written with its revision. */
 export async function saveBuildAction(buildId: string, body: unknown): Promise<SaveBuildState> {
@@ -37,7 +38,7 @@ export async function saveBuildAction(buildId: string, body: unknown): Promise<S
     return { ok: true, version: b.version, message: `Saved as version ${b.version}` };
   } catch (e) {
     if (e instanceof ConflictError) {
-      return { ok: false, message: e.message, conflict: { version: e.current.version, updatedAt: e.current.updatedAt.toISOString(), title: e.current.title } };
+      return { ok: false, message: e.message, conflict: { version: e.current.version, updatedAt: e.current.updatedAt.toISOString(), title: e.current.title, authorName: await userName(e.current.updatedBy), inputs: e.current.inputs } };
     }
     if (e instanceof HttpError) return { ok: false, message: e.message };
     console.error(e);

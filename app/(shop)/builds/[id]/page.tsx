@@ -5,6 +5,7 @@ import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { getBuild, listRevisions } from "@/db/queries/builds";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemInput } from "@/lib/calc";
@@ -32,6 +33,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         version={b.version}
         inputs={b.inputs as FuelSystemInput}
         readOnly={!can(m.role, "builds:write")}
+        units={await unitSystemOf(m.user.id, m.shopId)}
       />
       <section aria-labelledby="revs" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
         <h2 id="revs" className="text-xl font-semibold">Revisions</h2>
@@ -42,7 +44,8 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
               <span className="w-20">{STATUS_LABELS[r.status]}</span>
               <span className="figure w-44 text-ink-600">{r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC</span>
               <span className="flex-1">{r.note ?? ""}</span>
-              <Link href={`/builds/${b.id}/revisions/${r.version}`} className="text-copper-700 underline">View</Link>
+              <Link href={`/builds/${b.id}/revisions/${r.version}`} className="text-copper-700 underline" aria-label={`View version ${r.version}`}>View</Link>
+              {r.version > 1 ? <Link href={`/builds/${b.id}/compare?from=${r.version - 1}&to=${r.version}`} className="text-copper-700 underline" aria-label={`Compare version ${r.version} with version ${r.version - 1}`}>Changes</Link> : <span className="w-14" />}
             </li>
           ))}
         </ol>

@@ -3,6 +3,8 @@ import Link from "next/link";
 import { ResultsPanel } from "@/components/builds/results-panel";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild, getRevision } from "@/db/queries/builds";
+import { unitSystemOf } from "@/db/queries/preferences";
+import { diffInputs } from "@/lib/builds/diff";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemResult } from "@/lib/calc";
@@ -17,11 +19,13 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
   const [row, rev] = await Promise.all([getBuild(m.shopId, id), getRevision(m.shopId, id, v)]);
   if (!row || !rev) notFound();
   const latest = row.build.version === v;
+  const units = await unitSystemOf(m.user.id, m.shopId);
   return (
     <>
       <PageHeader title={`${row.build.title} — version ${v}`}>
         <div className="flex items-center gap-3">
           <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+          {v > 1 ? <Link href={`/builds/${id}/compare?from=${v - 1}&to=${v}`} className="text-sm text-copper-700 underline">Compare with version {v - 1}</Link> : null}
           {!latest && can(m.role, "builds:write") ? <RestoreButton buildId={id} version={v} currentVersion={row.build.version} /> : null}
         </div>
       </PageHeader>
@@ -31,9 +35,16 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
       <div className="grid gap-6 lg:grid-cols-2">
         <section className="rounded-lg border border-ink-200 bg-white p-5">
           <h2 className="text-lg font-semibold">Inputs</h2>
-          <pre className="figure mt-2 overflow-x-auto whitespace-pre-wrap text-xs">{JSON.stringify(rev.inputs, null, 2)}</pre>
+          <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+            {diffInputs({}, rev.inputs, units).map((c) => (
+              <div key={c.path} className="contents">
+                <dt className="text-ink-600">{c.label}</dt>
+                <dd className="figure">{c.after}</dd>
+              </div>
+            ))}
+          </dl>
         </section>
-        <ResultsPanel result={rev.result as FuelSystemResult | null} />
+        <ResultsPanel result={rev.result as FuelSystemResult | null} units={units} />
       </div>
     </>
   );
