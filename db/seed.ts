@@ -4,11 +4,14 @@
  * password must never be used in production.
  */
 import { hashPassword } from "better-auth/crypto";
+import { eq, sql as dsql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import { CALC_VERSION, FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "../lib/calc";
 import { DEFAULT_BSFC } from "../lib/calc/power";
+import { quoteTotals } from "../lib/catalog/quote-totals";
 import * as schema from "./schema";
+import { DEMO_PARTS } from "./seed-catalog";
 
 export const DEMO_PASSWORD = "fuelwright-demo";
 export const DEMO_SHOP_ID = "demo-shop-ridgeback";
@@ -104,9 +107,35 @@ export async function seed(url: string) {
         const inputs = FuelSystemInputSchema.parse(b.inputs);
         const result = sizeParsedFuelSystem(inputs);
         const row = { shopId: DEMO_SHOP_ID, inputs, result, calcVersion: CALC_VERSION };
-        const inserted = await tx.insert(schema.builds).values({ ...row, id: b.id, customerId: b.customerId, title: b.title, vehicle: b.vehicle, status: b.status, createdBy: "demo-user-tuner", updatedBy: "demo-user-tuner" }).onConflictDoNothing().returning({ id: schema.builds.id });
+        const inserted = await tx.insert(schema.builds).values({ ...row, id: b.id, customerId: b.customerId, title: b.title, vehicle: b.vehicle, status: b.status, tunerId: "demo-user-tuner", createdBy: "demo-user-tuner", updatedBy: "demo-user-tuner" }).onConflictDoNothing().returning({ id: schema.builds.id });
         if (inserted.length) await tx.insert(schema.buildRevisions).values({ ...row, buildId: b.id, version: 1, status: b.status, authorId: "demo-user-tuner", note: "Demo build" });
       }
+      for (const p of DEMO_PARTS) await tx.insert(schema.parts).values({ ...p, shopId: DEMO_SHOP_ID }).onConflictDoNothing();
+      const bySku = new Map(DEMO_PARTS.map((p) => [p.sku, p]));
+      const partLine = (sku: string, qty: number) => ({ kind: "part" as const, partId: bySku.get(sku)!.id, sku, description: `${bySku.get(sku)!.brand} ${bySku.get(sku)!.name}`, quantityMilli: qty * 1000, unitPriceMinor: bySku.get(sku)!.priceMinor, discountBp: 0 });
+      const labour = (hours: number) => ({ kind: "labour" as const, partId: null, sku: null, description: "Fuel system fitting and setup", quantityMilli: hours * 1000, unitPriceMinor: 12000, discountBp: 0 });
+      const QUOTES = [
+        { id: "30000000-0000-4000-8000-000000000001", number: 1, build: BUILDS[0]!, status: "accepted" as const, validUntil: "2099-12-31", lines: [partLine("HF-INJ-1000", 6), partLine("KF-P400", 1), partLine("TH-HOSE-8P", 5), partLine("HF-ECS-1", 1), { ...labour(5), discountBp: 1000 }] },
+        { id: "30000000-0000-4000-8000-000000000002", number: 2, build: BUILDS[2]!, status: "sent" as const, validUntil: "2099-06-30", lines: [partLine("HF-INJ-2200", 8), partLine("OM-IL500", 2), partLine("KF-HAT-2", 1), labour(8)] },
+        { id: "30000000-0000-4000-8000-000000000003", number: 3, build: BUILDS[3]!, status: "draft" as const, validUntil: "2099-03-31", lines: [partLine("HF-INJ-750", 6), partLine("SW-REG-BR6", 1), labour(3)] },
+      ];
+      for (const q of QUOTES) {
+        const t = quoteTotals(q.lines, 825);
+        const inserted = await tx
+          .insert(schema.quotes)
+          .values({ id: q.id, shopId: DEMO_SHOP_ID, number: q.number, customerId: q.build.customerId, buildId: q.build.id, status: q.status, currency: "USD", taxRateBp: 825, validUntil: q.validUntil, notes: `For ${q.build.title}`, subtotalMinor: t.subtotalMinor, discountMinor: t.discountMinor, taxMinor: t.taxMinor, totalMinor: t.totalMinor, createdBy: "demo-user-counter" })
+          .onConflictDoNothing()
+          .returning({ id: schema.quotes.id });
+        if (!inserted.length) continue;
+        await tx.insert(schema.quoteLines).values(q.lines.map((l, i) => ({ ...l, shopId: DEMO_SHOP_ID, quoteId: q.id, position: i + 1 })));
+        if (q.status === "accepted") {
+          for (const l of q.lines) if (l.partId) await tx.update(schema.parts).set({ reserved: dsql`${schema.parts.reserved} + ${l.quantityMilli / 1000}` }).where(eq(schema.parts.id, l.partId));
+        }
+      }
+      await tx
+        .insert(schema.shopCounters)
+        .values({ shopId: DEMO_SHOP_ID, name: "quote", value: QUOTES.length })
+        .onConflictDoUpdate({ target: [schema.shopCounters.shopId, schema.shopCounters.name], set: { value: dsql`greatest(${schema.shopCounters.value}, ${QUOTES.length})` } });
     });
   } finally {
     await sql.end();

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { buildRevisions, builds, customers, member, user, type Build, type BuildStatus } from "@/db/schema";
+import { buildRevisions, builds, customers, member, user, type Build, type BuildStatus, type ChosenPart } from "@/db/schema";
 import type { FuelSystemResult } from "@/lib/calc";
 import { HttpError } from "@/lib/auth/errors";
 
@@ -147,7 +147,7 @@ export async function saveBuild(
   id: string,
   userId: string,
   expectedVersion: number,
-  v: { title?: string; vehicle?: string; status?: BuildStatus; note?: string; inputs: unknown; result: FuelSystemResult; calcVersion: string },
+  v: { title?: string; vehicle?: string; status?: BuildStatus; note?: string; inputs: unknown; result: FuelSystemResult; calcVersion: string; parts?: ChosenPart[] },
 ) {
   return db.transaction(async (tx) => {
     const [b] = await tx
@@ -156,6 +156,7 @@ export async function saveBuild(
         ...(v.title !== undefined ? { title: v.title } : {}),
         ...(v.vehicle !== undefined ? { vehicle: v.vehicle || null } : {}),
         ...(v.status ? { status: v.status } : {}),
+        ...(v.parts ? { parts: v.parts } : {}),
         inputs: v.inputs,
         result: v.result,
         calcVersion: v.calcVersion,
@@ -170,7 +171,7 @@ export async function saveBuild(
       if (!current) throw new HttpError(404, "not_found", "That build was not found");
       throw new ConflictError(current);
     }
-    await tx.insert(buildRevisions).values({ shopId, buildId: id, version: b.version, status: b.status, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, authorId: userId, note: v.note || null });
+    await tx.insert(buildRevisions).values({ shopId, buildId: id, version: b.version, status: b.status, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, parts: b.parts, authorId: userId, note: v.note || null });
     return b;
   });
 }

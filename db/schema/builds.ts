@@ -6,6 +6,17 @@ import { customers } from "./shops";
 export const BUILD_STATUSES = ["draft", "sized", "quoted", "ordered", "fitted", "verified"] as const;
 export type BuildStatus = (typeof BUILD_STATUSES)[number];
 
+export const KIT_ROLES = ["injector", "pump", "regulator", "feed-line", "return-line", "filter", "sensor"] as const;
+export type KitRole = (typeof KIT_ROLES)[number];
+/** A catalog part chosen for a build, with the figures it was chosen on. */
+export interface ChosenPart {
+  role: KitRole;
+  partId: string;
+  sku: string;
+  name: string;
+  quantity: number;
+}
+
 /** A customer's build sheet: the validated sizing inputs and the last result computed from them. */
 export const builds = pgTable(
   "builds",
@@ -20,6 +31,8 @@ export const builds = pgTable(
     inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
     result: jsonb("result"),
     calcVersion: text("calc_version"),
+    /** Parts chosen from the catalog: [{ role, partId, sku, name, quantity }]. */
+    parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
     /** Optimistic concurrency: every save must name the version it started from. */
     version: integer("version").notNull().default(1),
     /** Lower-cased title, vehicle and customer name, for the trigram search of the builds table. */
@@ -54,6 +67,7 @@ export const buildRevisions = pgTable(
     inputs: jsonb("inputs").notNull(),
     result: jsonb("result"),
     calcVersion: text("calc_version"),
+    parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
     note: text("note"),
     authorId: text("author_id").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -8,6 +8,12 @@ export const shopSettings = pgTable("shop_settings", {
   currency: text("currency").notNull().default("USD"),
   /** Tax rate in basis points (825 = 8.25 %). */
   taxRateBp: integer("tax_rate_bp").notNull().default(0),
+  /** Labour rate per hour in minor units, for the labour line of a new quote. */
+  labourRateMinor: integer("labour_rate_minor").notNull().default(12000),
+  /** Deposit asked on an accepted quote, in basis points of the total (3000 = 30 %). */
+  depositBp: integer("deposit_bp").notNull().default(3000),
+  /** Days a new quote stays valid. */
+  quoteValidDays: integer("quote_valid_days").notNull().default(30),
   units: text("units", { enum: ["metric", "imperial"] }).notNull().default("imperial"),
   address: text("address"),
   phone: text("phone"),

@@ -16,6 +16,14 @@ export const PERMISSIONS = {
   "builds:write": ["owner", "tuner"],
   /** Reading builds through the API; customers see only their own (see ownRecordsOnly). */
   "builds:view": ["owner", "tuner", "counter", "customer"],
+  "parts:read": ["owner", "tuner", "counter"],
+  "parts:write": ["owner", "counter"],
+  /** Choosing a build's parts from the catalog writes a build revision (the counter may too). */
+  "kit:choose": ["owner", "tuner", "counter"],
+  "quotes:read": ["owner", "tuner", "counter"],
+  "quotes:write": ["owner", "counter"],
+  /** Reading quotes through the API; customers see only their own. */
+  "quotes:view": ["owner", "tuner", "counter", "customer"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
 } as const satisfies Record<string, readonly Role[]>;
 

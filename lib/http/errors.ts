@@ -50,7 +50,18 @@ export async function readJson(req: Request): Promise<unknown> {
   }
 }
 
-async function readLimited(req: Request): Promise<string> {
+/** Reads a text body (a CSV upload) up to `max` bytes; larger → 413, empty → 400. */
+export async function readText(req: Request, max: number, what = "file"): Promise<string> {
+  const length = Number(req.headers.get("content-length") ?? "0");
+  const limitMsg = `The ${what} is larger than ${Math.round(max / 1024 / 1024)} MB`;
+  if (length > max) throw new HttpError(413, "too_large", limitMsg);
+  const text = await readLimited(req, max, limitMsg);
+  if (!text.trim()) throw new HttpError(400, "empty_body", `The ${what} is empty`);
+  if (text.includes("\u0000")) throw new HttpError(415, "not_text", `The ${what} is not a text (CSV) file`);
+  return text;
+}
+
+async function readLimited(req: Request, max = MAX_BODY_BYTES, limitMsg = `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`): Promise<string> {
   if (!req.body) return "";
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];
@@ -59,9 +70,9 @@ async function readLimited(req: Request): Promise<string> {
     const { done, value } = await reader.read();
     if (done) break;
     size += value.byteLength;
-    if (size > MAX_BODY_BYTES) {
+    if (size > max) {
       await reader.cancel();
-      throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
+      throw new HttpError(413, "too_large", limitMsg);
     }
     chunks.push(value);
   }

@@ -19,7 +19,7 @@ export async function restoreRevisionAction(args: { buildId: string; version: nu
     const a = RestoreSchema.parse(args);
     const rev = await getRevision(m.shopId, a.buildId, a.version);
     if (!rev) return { ok: false, message: "That revision was not found" };
-    await saveBuild(m.shopId, a.buildId, m.user.id, a.currentVersion, { ...sizeForSave(rev.inputs as FuelSystemInput), note: `Restored from version ${a.version}` });
+    await saveBuild(m.shopId, a.buildId, m.user.id, a.currentVersion, { ...sizeForSave(rev.inputs as FuelSystemInput), parts: rev.parts, note: `Restored from version ${a.version}` });
     revalidatePath(`/builds/${a.buildId}`);
     target = `/builds/${a.buildId}`;
   } catch (e) {

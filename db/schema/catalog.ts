@@ -1,0 +1,133 @@
+import { relations, sql } from "drizzle-orm";
+import { check, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { organization, user } from "./auth";
+import { builds } from "./builds";
+import { customers } from "./shops";
+
+export const PART_CATEGORIES = ["injector", "pump", "regulator", "line", "fitting", "filter", "sensor", "other"] as const;
+export type PartCategory = (typeof PART_CATEGORIES)[number];
+
+/** One catalog part of a shop. Money in integer minor units (cents); specs validated per category. */
+export const parts = pgTable(
+  "parts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    sku: text("sku").notNull(),
+    category: text("category", { enum: PART_CATEGORIES }).notNull(),
+    brand: text("brand").notNull(),
+    name: text("name").notNull(),
+    priceMinor: integer("price_minor").notNull(),
+    costMinor: integer("cost_minor").notNull().default(0),
+    stock: integer("stock").notNull().default(0),
+    /** Held by accepted quotes; available = stock − reserved. */
+    reserved: integer("reserved").notNull().default(0),
+    reorderLevel: integer("reorder_level").notNull().default(0),
+    specs: jsonb("specs").notNull().default({}),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("parts_shop_sku_idx").on(t.shopId, t.sku),
+    index("parts_shop_category_idx").on(t.shopId, t.category, t.name),
+    check("parts_money_nonneg", sql`${t.priceMinor} >= 0 and ${t.costMinor} >= 0 and ${t.reserved} >= 0`),
+  ],
+);
+
+export const QUOTE_STATUSES = ["draft", "sent", "accepted", "deposit_paid", "ordered", "declined", "expired", "superseded"] as const;
+export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
+
+/** Per-shop gap-free counters (quote numbers): incremented inside the creating transaction. */
+export const shopCounters = pgTable(
+  "shop_counters",
+  {
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    value: integer("value").notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.shopId, t.name] })],
+);
+
+export const quotes = pgTable(
+  "quotes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    /** 1 for the first issue; an accepted quote that needs changing gets a new revision. */
+    revision: integer("revision").notNull().default(1),
+    customerId: uuid("customer_id").notNull().references(() => customers.id, { onDelete: "restrict" }),
+    buildId: uuid("build_id").references(() => builds.id, { onDelete: "set null" }),
+    status: text("status", { enum: QUOTE_STATUSES }).notNull().default("draft"),
+    currency: text("currency").notNull(),
+    taxRateBp: integer("tax_rate_bp").notNull(),
+    validUntil: date("valid_until", { mode: "string" }).notNull(),
+    notes: text("notes"),
+    subtotalMinor: integer("subtotal_minor").notNull().default(0),
+    discountMinor: integer("discount_minor").notNull().default(0),
+    taxMinor: integer("tax_minor").notNull().default(0),
+    totalMinor: integer("total_minor").notNull().default(0),
+    version: integer("version").notNull().default(1),
+    statusChangedAt: timestamp("status_changed_at", { withTimezone: true }),
+    statusChangedBy: text("status_changed_by").references(() => user.id, { onDelete: "set null" }),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("quotes_shop_number_rev_idx").on(t.shopId, t.number, t.revision),
+    index("quotes_shop_updated_idx").on(t.shopId, t.updatedAt),
+    index("quotes_shop_customer_idx").on(t.shopId, t.customerId),
+    index("quotes_build_idx").on(t.buildId),
+  ],
+);
+
+export const QUOTE_LINE_KINDS = ["part", "labour", "fee"] as const;
+
+export const quoteLines = pgTable(
+  "quote_lines",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    position: integer("position").notNull(),
+    kind: text("kind", { enum: QUOTE_LINE_KINDS }).notNull(),
+    partId: uuid("part_id").references(() => parts.id, { onDelete: "set null" }),
+    sku: text("sku"),
+    description: text("description").notNull(),
+    /** Quantity in thousandths (1.5 h of labour = 1500). */
+    quantityMilli: integer("quantity_milli").notNull(),
+    unitPriceMinor: integer("unit_price_minor").notNull(),
+    /** Line discount in basis points (1000 = 10 %). */
+    discountBp: integer("discount_bp").notNull().default(0),
+  },
+  (t) => [index("quote_lines_quote_idx").on(t.quoteId, t.position), index("quote_lines_shop_idx").on(t.shopId)],
+);
+
+/** Every e-mail sent about a quote. */
+export const quoteMessages = pgTable(
+  "quote_messages",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    to: text("to").notNull(),
+    subject: text("subject").notNull(),
+    messageId: text("message_id"),
+    sentBy: text("sent_by").references(() => user.id, { onDelete: "set null" }),
+    sentAt: timestamp("sent_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("quote_messages_quote_idx").on(t.quoteId)],
+);
+
+export const quoteRelations = relations(quotes, ({ many, one }) => ({
+  lines: many(quoteLines),
+  messages: many(quoteMessages),
+  customer: one(customers, { fields: [quotes.customerId], references: [customers.id] }),
+}));
+export const quoteLineRelations = relations(quoteLines, ({ one }) => ({ quote: one(quotes, { fields: [quoteLines.quoteId], references: [quotes.id] }) }));
+export const quoteMessageRelations = relations(quoteMessages, ({ one }) => ({ quote: one(quotes, { fields: [quoteMessages.quoteId], references: [quotes.id] }) }));
+
+export type Part = typeof parts.$inferSelect;
+export type Quote = typeof quotes.$inferSelect;
+export type QuoteLine = typeof quoteLines.$inferSelect;
