@@ -29,3 +29,15 @@ export function mulDivRound(a: number, b: number, d: number): number {
   const D = BigInt(d);
   return Number((n * 2n + D) / (2n * D));
 }
+
+/** "1.5", 3 → 1500: a non-negative decimal as an integer of 10^-decimals; null when not one. */
+export function parseScaled(text: string, decimals: number): number | null {
+  const m = new RegExp(`^(\\d{1,9})(?:[.,](\\d{1,${decimals}}))?$`).exec(text.trim());
+  if (!m) return null;
+  return Number(m[1]) * 10 ** decimals + Number((m[2] ?? "").padEnd(decimals, "0"));
+}
+/** 1500, 3 → "1.5" */
+export function formatScaled(value: number, decimals: number): string {
+  const s = (value / 10 ** decimals).toFixed(decimals);
+  return decimals ? s.replace(/\.?0+$/, "") : s;
+}

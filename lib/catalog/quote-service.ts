@@ -4,6 +4,7 @@ import { createQuote, getQuote, recordQuoteSent } from "@/db/queries/quotes";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
+import { quoteLabel } from "./labels";
 import { formatMoney } from "./money";
 import { linesFromBuild } from "./service";
 
@@ -28,7 +29,7 @@ export async function sendQuote(shopId: string, shopName: string, userId: string
   if (!["draft", "sent"].includes(q.quote.status)) throw new HttpError(422, "invalid_transition", "Only a draft or sent quote is e-mailed");
   if (!q.customerEmail) throw new HttpError(422, "no_email", `${q.customerName} has no e-mail address; add one on the customer's page`);
   if (q.lines.length === 0) throw new HttpError(422, "empty_quote", "Add at least one line before sending the quote");
-  const label = `Q-${String(q.quote.number).padStart(4, "0")}${q.quote.revision > 1 ? `-r${q.quote.revision}` : ""}`;
+  const label = quoteLabel(q.quote.number, q.quote.revision);
   const subject = `${shopName}: quote ${label} for your fuel system`;
   const link = `${serverEnv().APP_URL}/my/quotes/${id}`;
   const money = (m: number) => formatMoney(m, q.quote.currency);

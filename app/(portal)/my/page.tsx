@@ -1,6 +1,11 @@
 import type { Metadata } from "next";
 import { EmptyState, PageHeader } from "@/components/ui/status";
+import Link from "next/link";
 import { listBuildsOfPortalUser } from "@/db/queries/builds";
+import { listQuotes } from "@/db/queries/quotes";
+import { quoteLabel } from "@/lib/catalog/labels";
+import { formatMoney } from "@/lib/catalog/money";
+import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
@@ -8,7 +13,7 @@ export const metadata: Metadata = { title: "My builds" };
 
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
-  const builds = await listBuildsOfPortalUser(m.shopId, m.user.id);
+  const [builds, quotes] = await Promise.all([listBuildsOfPortalUser(m.shopId, m.user.id), listQuotes(m.shopId, { portalUserId: m.user.id })]);
   return (
     <>
       <PageHeader title="My builds" />
@@ -21,6 +26,19 @@ export default async function MyBuildsPage() {
             <li key={b.id} className="rounded-lg border border-ink-200 bg-white p-4">
               <p className="font-semibold">{b.title}</p>
               <p className="text-sm text-ink-600">{b.vehicle ?? ""} · {STATUS_LABELS[b.status]}</p>
+            </li>
+          ))}
+        </ul>
+      )}
+      <h2 className="mt-8 mb-2 text-xl font-semibold">My quotes</h2>
+      {quotes.length === 0 ? (
+        <p className="text-ink-700">No quotes yet.</p>
+      ) : (
+        <ul className="space-y-2" aria-label="My quotes">
+          {quotes.filter((q) => q.status !== "draft" && q.status !== "superseded").map((q) => (
+            <li key={q.id} className="rounded-lg border border-ink-200 bg-white p-4">
+              <Link href={`/my/quotes/${q.id}`} className="font-semibold text-copper-700 underline">Quote {quoteLabel(q.number, q.revision)}</Link>
+              <p className="text-sm text-ink-600">{QUOTE_STATUS_LABELS[q.status]} · {formatMoney(q.totalMinor, q.currency)} · valid until {q.validUntil}</p>
             </li>
           ))}
         </ul>

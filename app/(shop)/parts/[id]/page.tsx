@@ -1,0 +1,23 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { PartForm } from "@/components/parts/part-form";
+import { PageHeader } from "@/components/ui/status";
+import { getPart } from "@/db/queries/parts";
+import { requirePageMember } from "@/lib/auth/member";
+import { flatOf } from "@/lib/validations/parts";
+
+export const metadata: Metadata = { title: "Part" };
+
+export default async function PartPage({ params }: { params: Promise<{ id: string }> }) {
+  const m = await requirePageMember("parts:write");
+  const { id } = await params;
+  const p = /^[0-9a-f-]{36}$/i.test(id) ? await getPart(m.shopId, id) : null;
+  if (!p) notFound();
+  return (
+    <>
+      <PageHeader title={`${p.sku} — ${p.name}`} />
+      <p className="mb-3 text-sm text-ink-700">{p.reserved} held by accepted quotes; {p.stock - p.reserved} free.</p>
+      <PartForm id={p.id} initial={flatOf(p)} canDelete />
+    </>
+  );
+}
