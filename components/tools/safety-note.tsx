@@ -1,13 +1,13 @@
-/** The plain cautions every sizing page carries. */
+import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
+
 export function SafetyNote() {
   return (
     <aside aria-label="Safety" className="mt-8 rounded-lg border-l-4 border-caution-600 bg-caution-50 p-4 text-sm text-ink-800">
-      <p className="font-semibold">▲ Fuel burns. Before anyone works on this system:</p>
+      <p className="font-semibold">▲ {SAFETY_TITLE}</p>
       <ul className="mt-2 list-disc space-y-1 pl-5">
-        <li>Use lines, fittings and seals rated for the fuel — ethanol attacks some rubbers and metals.</li>
-        <li>Pressure-test the system before the first start; work away from sparks, flames and hot parts.</li>
-        <li>These figures are estimates: verify duty, lambda and fuel pressure on the dyno.</li>
-        <li>Installation follows local codes and licensed practice.</li>
+        {SAFETY_POINTS.map((p) => (
+          <li key={p}>{p}</li>
+        ))}
       </ul>
     </aside>
   );

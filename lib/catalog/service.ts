@@ -46,7 +46,7 @@ export async function linesFromBuild(shopId: string, parts: ChosenPart[], labour
   for (const c of parts) {
     const p = catalog.get(c.partId);
     if (!p) continue; // deleted from the catalog since
-    lines.push({ kind: "part", partId: p.id, sku: p.sku, description: `${p.brand} ${p.name}${c.role === "feed-line" || c.role === "return-line" ? ` (${c.role.replace("-", " ")}, per m)` : ""}`, quantityMilli: c.quantity * 1000, unitPriceMinor: p.priceMinor, discountBp: 0 });
+    lines.push({ kind: "part", partId: p.id, sku: p.sku, description: `${p.brand} ${p.name}${c.role === "feed-line" ? " — feed" : c.role === "return-line" ? " — return" : ""}`, quantityMilli: c.quantity * 1000, unitPriceMinor: p.priceMinor, discountBp: 0 });
   }
   if (labourHours > 0) lines.push({ kind: "labour", description: "Fuel system fitting and setup", quantityMilli: Math.round(labourHours * 1000), unitPriceMinor: settings?.settings.labourRateMinor ?? 12000, discountBp: 0 });
   return lines;

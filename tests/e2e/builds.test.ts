@@ -1,6 +1,6 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, newClient } from "../helpers/browser";
+import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -13,14 +13,6 @@ afterAll(async () => {
 /** The editor's fields are filled in by the form library once the page has hydrated. */
 async function editorReady(page: Page) {
   await expect.poll(() => page.getByLabel("Injectors (count)").inputValue(), { timeout: 15000 }).not.toBe("");
-}
-
-async function signInAs(page: Page, who: string) {
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(`${who}@demo.fuelwright.test`);
-  await page.getByLabel("Password").fill("fuelwright-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL("**/builds");
 }
 
 describe("build sheets", () => {

@@ -25,3 +25,12 @@ export async function newClient(browser: Browser, viewport = { width: 1280, heig
   ipCounter++;
   return browser.newContext({ baseURL: BASE_URL, viewport, extraHTTPHeaders: { "x-forwarded-for": `172.${16 + (Math.floor(ipCounter / 62500) % 16)}.${Math.floor(ipCounter / 250) % 250}.${(ipCounter % 250) + 1}` } });
 }
+
+/** Signs a demo member in through the form and waits for their landing page. */
+export async function signInAs(page: import("playwright-core").Page, who: "owner" | "tuner" | "counter" | "customer", landing = who === "customer" ? "**/my" : "**/builds") {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(`${who}@demo.fuelwright.test`);
+  await page.getByLabel("Password").fill("fuelwright-demo");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(landing);
+}
