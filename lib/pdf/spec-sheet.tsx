@@ -10,12 +10,16 @@ Font.register({ family: "Inter", fonts: [{ src: join(FONT_DIR, "inter-latin-400-
 Font.register({ family: "Barlow", fonts: [{ src: join(FONT_DIR, "barlow-latin-700-normal.woff"), fontWeight: 700 }] });
 Font.registerHyphenationCallback((w) => [w]);
 
+/** The shipped latin font lacks a few signs the library's text uses; spell those out. */
+const GLYPHS: Record<string, string> = { "λ": "lambda", "Δ": "delta ", "ρ": "rho", "√": "sqrt", "≤": "<=", "≥": ">=", "→": "->" };
+export const pdfText = (t: string) => t.replace(/[λΔρ√≤≥→]/g, (c) => GLYPHS[c] ?? c);
+
 const INK = "#1f2933";
 const COPPER = "#b3592c";
 const MUTED = "#5b6672";
 const s = StyleSheet.create({
   page: { padding: 32, fontFamily: "Inter", fontSize: 8.5, color: INK, lineHeight: 1.3 },
-  h1: { fontFamily: "Barlow", fontWeight: 700, fontSize: 18 },
+  h1: { fontFamily: "Barlow", fontWeight: 700, fontSize: 18, lineHeight: 1.25, marginBottom: 2 },
   h2: { fontFamily: "Barlow", fontWeight: 700, fontSize: 11, marginTop: 8, marginBottom: 3, color: COPPER },
   row: { flexDirection: "row", gap: 12 },
   col: { flex: 1 },
@@ -137,7 +141,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
 
         <Text style={s.h2}>Warnings</Text>
         {r.warnings.length === 0 ? <Text>None.</Text> : r.warnings.map((w) => (
-          <Text key={w.code}><Text style={{ fontWeight: 700 }}>{w.severity === "danger" ? "DANGER" : w.severity === "caution" ? "Caution" : "Note"}: </Text>{w.message}{w.fix ? ` Fix: ${w.fix}` : ""}</Text>
+          <Text key={w.code}><Text style={{ fontWeight: 700 }}>{w.severity === "danger" ? "DANGER" : w.severity === "caution" ? "Caution" : "Note"}: </Text>{pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}</Text>
         ))}
 
         <View style={s.caution} wrap={false}>
@@ -148,7 +152,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         <Text style={s.h2} break={false}>How these numbers were worked out</Text>
         <View style={{ fontSize: 7 }}>
           {r.trace.map((t) => (
-            <Text key={t.id}><Text style={{ fontWeight: 700 }}>{t.label} = {n(t.value, 2)} {t.unit}</Text>: {t.formula}; {t.inputs.map((i) => `${i.label} ${n(i.value, 3)} ${i.unit}`).join(", ")}</Text>
+            <Text key={t.id}><Text style={{ fontWeight: 700 }}>{pdfText(`${t.label} = ${n(t.value, 2)} ${t.unit}`)}</Text>{pdfText(`: ${t.formula}; ${t.inputs.map((i) => `${i.label} ${n(i.value, 3)} ${i.unit}`).join(", ")}`)}</Text>
           ))}
         </View>
         <Text style={[s.muted, { position: "absolute", bottom: 16, left: 32, right: 32, fontSize: 7 }]} fixed render={({ pageNumber, totalPages }) => `${d.build.title} · revision ${d.build.version} · page ${pageNumber} of ${totalPages} · figures by Fuelwright calculation library ${r.calcVersion}`} />

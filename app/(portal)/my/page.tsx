@@ -26,6 +26,7 @@ export default async function MyBuildsPage() {
             <li key={b.id} className="rounded-lg border border-ink-200 bg-white p-4">
               <p className="font-semibold">{b.title}</p>
               <p className="text-sm text-ink-600">{b.vehicle ?? ""} · {STATUS_LABELS[b.status]}</p>
+              <a href={`/api/v1/builds/${b.id}/spec-sheet`} className="text-sm text-copper-700 underline">Download the spec sheet (PDF)</a>
             </li>
           ))}
         </ul>

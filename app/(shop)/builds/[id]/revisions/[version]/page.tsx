@@ -25,6 +25,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
       <PageHeader title={`${row.build.title} — version ${v}`}>
         <div className="flex items-center gap-3">
           <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+          <a href={`/api/v1/builds/${id}/spec-sheet?version=${v}`} className="text-sm text-copper-700 underline">Spec sheet of version {v} (PDF)</a>
           {v > 1 ? <Link href={`/builds/${id}/compare?from=${v - 1}&to=${v}`} className="text-sm text-copper-700 underline">Compare with version {v - 1}</Link> : null}
           {!latest && can(m.role, "builds:write") ? <RestoreButton buildId={id} version={v} currentVersion={row.build.version} /> : null}
         </div>

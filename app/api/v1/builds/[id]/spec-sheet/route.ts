@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { requireMember } from "@/lib/auth/member";
+import { ownRecordsOnly } from "@/lib/auth/permissions";
+import { handle } from "@/lib/http/handler";
+import { uuidParam, type IdCtx } from "@/lib/http/params";
+import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
+import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
+
+const Query = z.object({ version: z.coerce.number({ error: "version must be a number" }).int("version must be a whole number").min(1, "version starts at 1").optional() });
+
+/** GET ?version=N — the build's spec sheet as PDF, from its latest (or the named) saved revision. */
+export const GET = handle<IdCtx>(async (req, ctx) => {
+  const m = await requireMember("builds:view");
+  const id = await uuidParam(ctx, "That build");
+  const { version } = Query.parse(Object.fromEntries(new URL(req.url).searchParams));
+  const data = await specSheetData(m.shopId, id, { version, portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined, viewerId: m.user.id });
+  const pdf = await renderSpecSheet(data);
+  return new Response(new Uint8Array(pdf), {
+    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${pdfFileName(data.build.title, data.build.version)}"`, "cache-control": "private, no-store" },
+  });
+});
