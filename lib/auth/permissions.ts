@@ -24,6 +24,8 @@ export const PERMISSIONS = {
   "quotes:write": ["owner", "counter"],
   /** Reading quotes through the API; customers see only their own. */
   "quotes:view": ["owner", "tuner", "counter", "customer"],
+  /** A customer accepts or declines their own sent quote. */
+  "quotes:respond": ["customer"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
 } as const satisfies Record<string, readonly Role[]>;
 

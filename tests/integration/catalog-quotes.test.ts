@@ -173,6 +173,25 @@ describe("quotes", () => {
   });
 });
 
+describe("customer decisions", () => {
+  it("the customer accepts their own sent quote once; the decision records who and when", async () => {
+    const customerId = "00000000-0000-4000-8000-000000000001";
+    const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
+    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(409); // still a draft
+    await sql`update quotes set status = 'sent' where id = ${q.id}`;
+    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "maybe" })).status).toBe(422);
+    expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(403);
+    const ok = await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" });
+    expect(ok.status).toBe(200);
+    expect(ok.json.quote).toMatchObject({ status: "accepted", statusChangedBy: "demo-user-customer" });
+    expect(ok.json.quote.statusChangedAt).toBeTruthy();
+    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "decline" })).status).toBe(409);
+    const [other] = await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null and q.status = 'sent' limit 1`;
+    expect(other).toBeTruthy(); // demo quote 2 is sent to a customer without a sign-in (db/seed.ts)
+    expect((await request(customer, "POST", `/api/v1/quotes/${other!.id}/respond`, { decision: "accept" })).status).toBe(404);
+  });
+});
+
 describe("kit recommendation on a build", () => {
   it("ranks demo parts for a demo build, and choosing writes a revision sized with the parts' data", async () => {
     const buildId = "10000000-0000-4000-8000-000000000002"; // turbo six on E85 (db/seed.ts)

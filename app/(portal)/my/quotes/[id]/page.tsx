@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { QuoteDecision } from "@/components/portal/quote-decision";
 import { PageHeader } from "@/components/ui/status";
 import { getQuote } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
@@ -39,6 +40,7 @@ export default async function MyQuotePage({ params }: { params: Promise<{ id: st
         </tfoot>
       </table>
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
+      {qt.status === "sent" ? <QuoteDecision id={qt.id} /> : qt.statusChangedAt ? <p className="mt-4 text-sm text-ink-700" data-testid="decision">{QUOTE_STATUS_LABELS[qt.status]} on {qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC.</p> : null}
       <p className="mt-6 text-sm text-ink-600">Fuel system work must be fitted and checked by qualified people, following your local codes.</p>
     </>
   );
