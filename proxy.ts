@@ -1,7 +1,7 @@
 import { getSessionCookie } from "better-auth/cookies";
 import { NextResponse, type NextRequest } from "next/server";
 
-const PUBLIC = ["/sign-in", "/sign-up", "/forgot-password", "/reset-password", "/accept-invitation", "/check-email"];
+const PUBLIC = ["/share", "/sign-in", "/sign-up", "/forgot-password", "/reset-password", "/accept-invitation", "/check-email"];
 
 /** Only the quick cookie check: no cookie on an app page → sign-in. The real check is on the server. */
 export function proxy(req: NextRequest) {

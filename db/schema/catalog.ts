@@ -131,3 +131,20 @@ export const quoteMessageRelations = relations(quoteMessages, ({ one }) => ({ qu
 export type Part = typeof parts.$inferSelect;
 export type Quote = typeof quotes.$inferSelect;
 export type QuoteLine = typeof quoteLines.$inferSelect;
+
+/** A link to one build's spec sheet for someone without an account. Only the token's hash is kept. */
+export const shareLinks = pgTable(
+  "share_links",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("share_links_token_idx").on(t.tokenHash), index("share_links_build_idx").on(t.shopId, t.buildId)],
+);
+export type ShareLink = typeof shareLinks.$inferSelect;

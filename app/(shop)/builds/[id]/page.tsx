@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
+import { ShareLinks } from "@/components/builds/share-links";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
@@ -54,6 +55,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
           ))}
         </ol>
       </section>
+      {can(m.role, "shares:manage") ? <ShareLinks buildId={b.id} /> : null}
       <SafetyNote />
     </>
   );
