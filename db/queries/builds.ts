@@ -1,3 +1,4 @@
+import { escapeLike } from "./like";
 import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { buildRevisions, builds, customers, member, user, type Build, type BuildStatus, type ChosenPart } from "@/db/schema";
@@ -10,7 +11,6 @@ export class ConflictError extends HttpError {
   }
 }
 
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 export const BUILD_SORTS = ["updated", "created", "title"] as const;
 export type BuildSort = (typeof BUILD_SORTS)[number];

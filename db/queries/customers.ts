@@ -1,9 +1,9 @@
+import { escapeLike } from "./like";
 import { and, asc, eq, ilike, or } from "drizzle-orm";
 import { db } from "@/db";
 import { customers } from "@/db/schema";
 import type { CustomerInput } from "@/lib/validations/customers";
 
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** A shop's customers, optionally searched by name, e-mail or phone. */
 export async function listCustomers(shopId: string, opts: { q?: string; limit?: number } = {}) {

@@ -1,9 +1,9 @@
+import { escapeLike } from "./like";
 import { and, asc, desc, eq, ilike, inArray, or, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { parts, type PartCategory } from "@/db/schema";
 import type { PartValues } from "@/lib/validations/parts";
 
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 const SORTS = { name: [asc(parts.name)], sku: [asc(parts.sku)], price: [asc(parts.priceMinor)], stock: [asc(sql`${parts.stock} - ${parts.reserved}`)] } as const;
 
 export async function listParts(shopId: string, opts: { q?: string; category?: PartCategory; sort?: keyof typeof SORTS; limit?: number } = {}) {

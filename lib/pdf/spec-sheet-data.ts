@@ -29,3 +29,7 @@ export async function specSheetData(shopId: string, buildId: string, opts: { ver
 }
 
 export const pdfFileName = (title: string, version: number) => `${title.replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 60) || "build"}-v${version}.pdf`;
+
+/** The PDF as a response: shown in the browser, never cached by shared caches. */
+export const pdfResponse = (pdf: Buffer, fileName: string, extra: Record<string, string> = {}) =>
+  new Response(new Uint8Array(pdf), { headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${fileName}"`, "cache-control": "private, no-store", ...extra } });

@@ -1,7 +1,7 @@
 import { checkShareToken } from "@/db/queries/shares";
 import { handle } from "@/lib/http/handler";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
-import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
+import { pdfFileName, pdfResponse, specSheetData } from "@/lib/pdf/spec-sheet-data";
 
 /** GET — the shared build's spec sheet, for anyone holding a valid link (no sign-in: the token is the key). */
 export const GET = handle<{ params: Promise<{ token: string }> }>(async (_req, ctx) => {
@@ -9,5 +9,5 @@ export const GET = handle<{ params: Promise<{ token: string }> }>(async (_req, c
   if (!check.ok) return Response.json({ error: { code: `link_${check.reason}`, message: "This link is not valid any more" } }, { status: 404 });
   const data = await specSheetData(check.link.shopId, check.link.buildId, {});
   const pdf = await renderSpecSheet(data);
-  return new Response(new Uint8Array(pdf), { headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${pdfFileName(data.build.title, data.build.version)}"`, "cache-control": "private, no-store", "x-robots-tag": "noindex" } });
+  return pdfResponse(pdf, pdfFileName(data.build.title, data.build.version), { "x-robots-tag": "noindex" });
 });

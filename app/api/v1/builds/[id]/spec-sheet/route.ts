@@ -4,7 +4,7 @@ import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
-import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
+import { pdfFileName, pdfResponse, specSheetData } from "@/lib/pdf/spec-sheet-data";
 
 const Query = z.object({ version: z.coerce.number({ error: "version must be a number" }).int("version must be a whole number").min(1, "version starts at 1").optional() });
 
@@ -15,7 +15,5 @@ export const GET = handle<IdCtx>(async (req, ctx) => {
   const { version } = Query.parse(Object.fromEntries(new URL(req.url).searchParams));
   const data = await specSheetData(m.shopId, id, { version, portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined, viewerId: m.user.id });
   const pdf = await renderSpecSheet(data);
-  return new Response(new Uint8Array(pdf), {
-    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${pdfFileName(data.build.title, data.build.version)}"`, "cache-control": "private, no-store" },
-  });
+  return pdfResponse(pdf, pdfFileName(data.build.title, data.build.version));
 });
