@@ -4,10 +4,11 @@ import { converter, dutyAcrossRpm, pumpSupplyCurve, toShown, type FuelSystemResu
 import type { ChosenPart } from "@/db/schema/builds";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
-// Static .woff files (react-pdf draws WOFF2 text invisibly), shipped from @fontsource.
+// TrueType made from the shipped @fontsource WOFF files by `npm run fonts:pdf` (WOFF tables are
+// inflated again on every render; WOFF2 text is drawn invisibly).
 const FONT_DIR = join(process.cwd(), "lib/pdf/fonts");
-Font.register({ family: "Inter", fonts: [{ src: join(FONT_DIR, "inter-latin-400-normal.woff") }, { src: join(FONT_DIR, "inter-latin-700-normal.woff"), fontWeight: 700 }] });
-Font.register({ family: "Barlow", fonts: [{ src: join(FONT_DIR, "barlow-latin-700-normal.woff"), fontWeight: 700 }] });
+Font.register({ family: "Inter", fonts: [{ src: join(FONT_DIR, "inter-latin-400-normal.ttf") }, { src: join(FONT_DIR, "inter-latin-700-normal.ttf"), fontWeight: 700 }] });
+Font.register({ family: "Barlow", fonts: [{ src: join(FONT_DIR, "barlow-latin-700-normal.ttf"), fontWeight: 700 }] });
 Font.registerHyphenationCallback((w) => [w]);
 
 /** The shipped latin font lacks a few signs the library's text uses; spell those out. */
