@@ -6,6 +6,14 @@ const EnvSchema = z.object({
   APP_URL: z.string().url().default("http://localhost:3000"),
   SMTP_URL: z.string().default("smtp://127.0.0.1:2525"),
   MAIL_FROM: z.string().default("Fuelwright <no-reply@fuelwright.test>"),
+  /**
+   * Card payments. Without STRIPE_SECRET_KEY the app talks to the local payment fake at
+   * PAYMENTS_API_URL (started by `npm start` and `npm test`); a real key and no PAYMENTS_API_URL
+   * switch to the real service.
+   */
+  STRIPE_SECRET_KEY: z.string().min(8).default("sk_test_fuelwright_local_fake"),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default("whsec_fuelwright_local_fake"),
+  PAYMENTS_API_URL: z.string().url("PAYMENTS_API_URL must be an http(s) URL").optional(),
   /** "off" only in tests: better-auth's sign-in rate limit stays on everywhere else. */
   AUTH_RATE_LIMIT: z.enum(["on", "off"]).default("on"),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),

@@ -106,6 +106,15 @@ start_mail_sink() {
   die "mail sink did not start"
 }
 
+# start_payment_fake PORT WEBHOOK_URL — the local card-payment API (scripts/payment-fake.mjs)
+start_payment_fake() {
+  port_busy "$1" && die "payment fake cannot start: port $1 is taken"
+  PAYMENTS_PORT="$1" PAYMENTS_WEBHOOK_URL="$2" node "$FW_ROOT/scripts/payment-fake.mjs" &
+  FW_PIDS+=($!)
+  for _ in $(seq 50); do port_busy "$1" && return 0; sleep 0.1; done
+  die "payment fake did not start"
+}
+
 # wait_http URL SECONDS
 wait_http() {
   local url="$1" t="${2:-60}"

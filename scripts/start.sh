@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm start: install what is missing, start PostgreSQL and the mail sink, migrate, seed, serve.
+# npm start: install what is missing, start PostgreSQL, the mail sink and the payment fake, migrate, seed, serve.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$FW_ROOT"
@@ -24,6 +24,12 @@ if [ -z "${SMTP_URL:-}" ]; then
 else
   say "using SMTP_URL from the environment (no mail sink started)"
 fi
+if [ -z "${STRIPE_SECRET_KEY:-}" ] && [ -z "${PAYMENTS_API_URL:-}" ]; then
+  start_payment_fake 12111 "http://127.0.0.1:$PORT/api/webhooks/payments"
+  export PAYMENTS_API_URL="http://127.0.0.1:12111"
+else
+  say "using the payment service from the environment (no payment fake started)"
+fi
 if [ -z "${BETTER_AUTH_SECRET:-}" ]; then
   mkdir -p .data
   [ -s .data/auth-secret ] || node -e "console.log(require('crypto').randomBytes(32).toString('hex'))" > .data/auth-secret
@@ -44,11 +50,12 @@ cat <<TXT
 
   Fuelwright is running at $APP_URL
   Mail sink inbox: http://127.0.0.1:2526/messages
+  Payments: local test checkout on http://127.0.0.1:12111 (no card is ever charged)
 
   Demo sign-ins (password: fuelwright-demo — demo data only, never in production):
     owner@demo.fuelwright.test     tuner@demo.fuelwright.test
     counter@demo.fuelwright.test   customer@demo.fuelwright.test
 
-  Ctrl-C stops the app, the mail sink and the database.
+  Ctrl-C stops the app, the mail sink, the payment fake and the database.
 TXT
 wait "${FW_PIDS[-1]}"

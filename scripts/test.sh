@@ -8,7 +8,7 @@ cd "$FW_ROOT"
 trap 'stop_all' EXIT
 trap 'exit 130' INT TERM
 
-TEST_PG_PORT=54339 TEST_APP_PORT=3100 TEST_SMTP_PORT=2535 TEST_INBOX_PORT=2536
+TEST_PG_PORT=54339 TEST_APP_PORT=3100 TEST_SMTP_PORT=2535 TEST_INBOX_PORT=2536 TEST_PAYMENTS_PORT=12121
 CHECK_PASSED=0 CHECK_FAILED=0
 check() { # check NAME CMD…: a suite that passes or fails as a whole
   local name="$1"; shift
@@ -24,9 +24,8 @@ pg_ensure_db "$TEST_PG_PORT" fuelwright_test fresh
 export DATABASE_URL="postgres://fuelwright@127.0.0.1:$TEST_PG_PORT/fuelwright_test"
 migrate_and_seed
 start_mail_sink "$TEST_SMTP_PORT" "$TEST_INBOX_PORT"
-export SMTP_URL="smtp://127.0.0.1:$TEST_SMTP_PORT" MAIL_INBOX_URL="http://127.0.0.1:$TEST_INBOX_PORT/messages"
-export BETTER_AUTH_SECRET="test-secret-test-secret-test-secret-0123"
-export APP_URL="http://localhost:$TEST_APP_PORT" TEST_BASE_URL="http://localhost:$TEST_APP_PORT"
+source scripts/test-env.vars
+start_payment_fake "$TEST_PAYMENTS_PORT" "http://127.0.0.1:$TEST_APP_PORT/api/webhooks/payments"
 mkdir -p test-results
 
 check "lint (eslint)" node node_modules/eslint/bin/eslint.js . --max-warnings=0

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, lt, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, lt, ne, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { builds, customers, parts, quoteLines, quoteMessages, quotes, shopCounters, shopSettings, type QuoteStatus } from "@/db/schema";
 import { HttpError } from "@/lib/auth/errors";
@@ -67,7 +67,7 @@ export async function listQuotes(shopId: string, opts: { portalUserId?: string; 
     .from(quotes)
     .innerJoin(customers, eq(customers.id, quotes.customerId))
     .leftJoin(builds, eq(builds.id, quotes.buildId))
-    .where(and(eq(quotes.shopId, shopId), opts.portalUserId ? eq(customers.userId, opts.portalUserId) : undefined, opts.status ? eq(quotes.status, opts.status) : undefined, opts.buildId ? eq(quotes.buildId, opts.buildId) : undefined))
+    .where(and(eq(quotes.shopId, shopId), opts.portalUserId ? and(eq(customers.userId, opts.portalUserId), ne(quotes.status, "draft")) : undefined, opts.status ? eq(quotes.status, opts.status) : undefined, opts.buildId ? eq(quotes.buildId, opts.buildId) : undefined))
     .orderBy(desc(quotes.number), desc(quotes.revision))
     .limit(500);
 }
@@ -78,7 +78,8 @@ export async function getQuote(shopId: string, id: string, portalUserId?: string
     .from(quotes)
     .innerJoin(customers, eq(customers.id, quotes.customerId))
     .leftJoin(builds, eq(builds.id, quotes.buildId))
-    .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id), portalUserId ? eq(customers.userId, portalUserId) : undefined))
+    // A customer never sees a draft: it is the shop's until it is sent.
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id), portalUserId ? and(eq(customers.userId, portalUserId), ne(quotes.status, "draft")) : undefined))
     .limit(1);
   if (!row) return null;
   const [lines, messages] = await Promise.all([

@@ -1,7 +1,7 @@
-import { randomUUID } from "node:crypto";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { randomBytes, randomUUID } from "node:crypto";
+import { and, asc, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { invitation, member, organization, shopSettings, user } from "@/db/schema";
+import { customers, invitation, member, organization, shopSettings, user } from "@/db/schema";
 import { DEFAULT_BSFC } from "@/lib/calc";
 
 /** Default settings of a new shop (BSFC rules of thumb of calc-spec §2, in g/kWh). */
@@ -105,5 +105,28 @@ export async function acceptInvitationFor(userId: string, inv: typeof invitation
     await tx.insert(member).values({ id: randomUUID(), organizationId: inv.organizationId, userId, role: inv.role ?? "customer" });
     await tx.update(invitation).set({ status: "accepted" }).where(eq(invitation.id, inv.id));
     await tx.update(user).set({ emailVerified: true }).where(eq(user.id, userId));
+    // A portal invitation: this sign-in now sees the shop's customer records with that e-mail.
+    if ((inv.role ?? "customer") === "customer") {
+      await tx.update(customers).set({ userId, updatedAt: new Date() }).where(and(eq(customers.shopId, inv.organizationId), sql`lower(${customers.email}) = lower(${inv.email})`, isNull(customers.userId)));
+    }
   });
+}
+
+/**
+ * The pending portal invitation for this e-mail in the shop, or a new one (valid 14 days). The
+ * link goes in the mail the caller sends, so the customer gets one message, not two.
+ */
+export async function ensurePortalInvitation(shopId: string, inviterId: string, email: string) {
+  const normalized = email.trim().toLowerCase();
+  const [open] = await db
+    .select()
+    .from(invitation)
+    .where(and(eq(invitation.organizationId, shopId), eq(invitation.email, normalized), eq(invitation.role, "customer"), eq(invitation.status, "pending"), gt(invitation.expiresAt, new Date())))
+    .limit(1);
+  if (open) return open;
+  const [row] = await db
+    .insert(invitation)
+    .values({ id: randomBytes(24).toString("base64url"), organizationId: shopId, email: normalized, role: "customer", status: "pending", expiresAt: new Date(Date.now() + 14 * 86_400_000), inviterId })
+    .returning();
+  return row!;
 }

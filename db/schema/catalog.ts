@@ -148,3 +148,37 @@ export const shareLinks = pgTable(
   (t) => [uniqueIndex("share_links_token_idx").on(t.tokenHash), index("share_links_build_idx").on(t.shopId, t.buildId)],
 );
 export type ShareLink = typeof shareLinks.$inferSelect;
+
+export const PAYMENT_STATUSES = ["pending", "paid", "expired"] as const;
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+
+/** A deposit asked of the customer through the card-payment provider: one row per checkout session. */
+export const payments = pgTable(
+  "payments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    provider: text("provider").notNull().default("stripe"),
+    /** The provider's checkout session id (unique: one payment per session, whatever arrives twice). */
+    checkoutSessionId: text("checkout_session_id").notNull(),
+    amountMinor: integer("amount_minor").notNull(),
+    currency: text("currency").notNull(),
+    status: text("status", { enum: PAYMENT_STATUSES }).notNull().default("pending"),
+    /** The provider event (or retrieval) that recorded the payment. */
+    paidEventId: text("paid_event_id"),
+    paidAt: timestamp("paid_at", { withTimezone: true }),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("payments_session_idx").on(t.checkoutSessionId), index("payments_quote_idx").on(t.shopId, t.quoteId)],
+);
+export type Payment = typeof payments.$inferSelect;
+
+/** Every provider webhook event handled once: a redelivered event id is acknowledged and ignored. */
+export const paymentEvents = pgTable("payment_events", {
+  id: text("id").primaryKey(),
+  type: text("type").notNull(),
+  checkoutSessionId: text("checkout_session_id"),
+  receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+});

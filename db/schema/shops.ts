@@ -1,5 +1,5 @@
 import { relations } from "drizzle-orm";
-import { index, integer, pgTable, real, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { customType, index, integer, pgTable, real, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 
 /** A shop's defaults. One row per shop (organization). BSFC in g/kWh, pressures in kPa. */
@@ -54,3 +54,18 @@ export const customerRelations = relations(customers, ({ one }) => ({ shop: one(
 
 export type ShopSettings = typeof shopSettings.$inferSelect;
 export type Customer = typeof customers.$inferSelect;
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+
+/** The shop's logo for its PDFs and pages: a small PNG or JPEG, checked by its bytes on upload. */
+export const shopLogos = pgTable("shop_logos", {
+  shopId: text("shop_id").primaryKey().references(() => organization.id, { onDelete: "cascade" }),
+  contentType: text("content_type", { enum: ["image/png", "image/jpeg"] }).notNull(),
+  bytes: bytea("bytes").notNull(),
+  sha256: text("sha256").notNull(),
+  width: integer("width").notNull(),
+  height: integer("height").notNull(),
+  uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
+  uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+});
+export type ShopLogo = typeof shopLogos.$inferSelect;

@@ -26,6 +26,8 @@ export const PERMISSIONS = {
   "quotes:view": ["owner", "tuner", "counter", "customer"],
   /** A customer accepts or declines their own sent quote. */
   "quotes:respond": ["customer"],
+  /** A customer pays the deposit on their own accepted quote. */
+  "quotes:pay": ["customer"],
   "shares:manage": ["owner", "tuner", "counter"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
 } as const satisfies Record<string, readonly Role[]>;

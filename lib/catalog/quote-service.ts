@@ -4,6 +4,7 @@ import { createQuote, getQuote, recordQuoteSent } from "@/db/queries/quotes";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
+import { portalInviteLink } from "@/lib/portal/invite";
 import { quoteLabel } from "./labels";
 import { formatMoney } from "./money";
 import { linesFromBuild } from "./service";
@@ -32,6 +33,8 @@ export async function sendQuote(shopId: string, shopName: string, userId: string
   const label = quoteLabel(q.quote.number, q.quote.revision);
   const subject = `${shopName}: quote ${label} for your fuel system`;
   const link = `${serverEnv().APP_URL}/my/quotes/${id}`;
+  // A customer without a portal sign-in gets the invitation in this same e-mail.
+  const invite = q.customerUserId ? null : await portalInviteLink(shopId, userId, q.customerEmail);
   const money = (m: number) => formatMoney(m, q.quote.currency);
   const text = [
     `Hello ${q.customerName},`,
@@ -43,7 +46,9 @@ export async function sendQuote(shopId: string, shopName: string, userId: string
     `Subtotal ${money(q.quote.subtotalMinor)}${q.quote.discountMinor ? `, discounts −${money(q.quote.discountMinor)}` : ""}, tax ${money(q.quote.taxMinor)}`,
     `Total ${money(q.quote.totalMinor)}`,
     "",
-    `See it, and accept or decline it, in your portal: ${link}`,
+    ...(invite
+      ? [`To see it, accept or decline it and pay the deposit, first set your password for the shop's customer portal (valid 14 days):`, invite, "", `Afterwards the quote is here: ${link}`]
+      : [`See it, and accept or decline it, in your portal: ${link}`]),
     "",
     "Fuel system work must be done and checked by qualified people, to your local codes.",
     `— ${shopName}`,
@@ -56,5 +61,5 @@ export async function sendQuote(shopId: string, shopName: string, userId: string
     throw new HttpError(502, "mail_failed", `The quote was not sent: ${why}. It is unchanged; try again.`);
   }
   await recordQuoteSent(shopId, id, userId, { to: q.customerEmail, subject, messageId });
-  return { to: q.customerEmail, subject };
+  return { to: q.customerEmail, subject, invited: Boolean(invite) };
 }

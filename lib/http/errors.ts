@@ -62,7 +62,20 @@ export async function readText(req: Request, max: number, what = "file"): Promis
 }
 
 async function readLimited(req: Request, max = MAX_BODY_BYTES, limitMsg = `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`): Promise<string> {
-  if (!req.body) return "";
+  return new TextDecoder().decode(await readBytesLimited(req, max, limitMsg));
+}
+
+/** Reads a binary body (an image upload) up to `max` bytes; larger → 413, empty → 400. */
+export async function readBytes(req: Request, max: number, what = "file"): Promise<Buffer> {
+  const limitMsg = `The ${what} is larger than ${max >= 1024 * 1024 ? `${Math.round(max / 1024 / 1024)} MB` : `${Math.round(max / 1024)} KiB`}`;
+  if (Number(req.headers.get("content-length") ?? "0") > max) throw new HttpError(413, "too_large", limitMsg);
+  const bytes = await readBytesLimited(req, max, limitMsg);
+  if (bytes.length === 0) throw new HttpError(400, "empty_body", `The ${what} is empty`);
+  return bytes;
+}
+
+async function readBytesLimited(req: Request, max: number, limitMsg: string): Promise<Buffer> {
+  if (!req.body) return Buffer.alloc(0);
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -76,5 +89,5 @@ async function readLimited(req: Request, max = MAX_BODY_BYTES, limitMsg = `The b
     }
     chunks.push(value);
   }
-  return new TextDecoder().decode(Buffer.concat(chunks));
+  return Buffer.concat(chunks);
 }

@@ -1,5 +1,6 @@
 import "server-only";
 import { getBuild, getRevision } from "@/db/queries/builds";
+import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { NotFoundError } from "@/lib/auth/errors";
@@ -12,14 +13,14 @@ export async function specSheetData(shopId: string, buildId: string, opts: { ver
   if (!row) throw new NotFoundError("That build");
   const rev = await getRevision(shopId, buildId, opts.version ?? row.build.version);
   if (!rev) throw new NotFoundError(`Version ${opts.version} of that build`);
-  const settings = await getShopSettings(shopId);
+  const [settings, logo] = await Promise.all([getShopSettings(shopId), pdfLogo(shopId)]);
   const input = FuelSystemInputSchema.parse(rev.inputs);
   const stored = rev.result as FuelSystemResult | null;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
   // Staff see their own units; customers and share links the shop's.
   const units = opts.viewerId && !opts.portalUserId ? await unitSystemOf(opts.viewerId, shopId) : (settings?.settings.units ?? "metric");
   return {
-    shop: { name: settings?.name ?? "", address: settings?.settings.address ?? null, phone: settings?.settings.phone ?? null },
+    shop: { name: settings?.name ?? "", address: settings?.settings.address ?? null, phone: settings?.settings.phone ?? null, logo },
     build: { title: row.build.title, vehicle: row.build.vehicle, customerName: row.customerName, version: rev.version, savedAt: rev.createdAt, tunerName: await userName(row.build.tunerId) },
     input,
     result,

@@ -1,37 +1,21 @@
-import { join } from "node:path";
-import { Document, Font, Page, Polyline, Line as SvgLine, StyleSheet, Svg, Text, View, renderToBuffer, Text as SvgText } from "@react-pdf/renderer";
+import { Document, Page, Polyline, Line as SvgLine, StyleSheet, Svg, Text, View, renderToBuffer, Text as SvgText } from "@react-pdf/renderer";
 import { converter, dutyAcrossRpm, pumpSupplyCurve, toShown, type FuelSystemResult, type ParsedFuelSystemInput, type Quantity, type UnitSystem } from "@/lib/calc";
 import type { ChosenPart } from "@/db/schema/builds";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
+import { COPPER, Letterhead, MUTED, base, pdfText, type PdfShop } from "./common";
 
-// TrueType made from the shipped @fontsource WOFF files by `npm run fonts:pdf` (WOFF tables are
-// inflated again on every render; WOFF2 text is drawn invisibly).
-const FONT_DIR = join(process.cwd(), "lib/pdf/fonts");
-Font.register({ family: "Inter", fonts: [{ src: join(FONT_DIR, "inter-latin-400-normal.ttf") }, { src: join(FONT_DIR, "inter-latin-700-normal.ttf"), fontWeight: 700 }] });
-Font.register({ family: "Barlow", fonts: [{ src: join(FONT_DIR, "barlow-latin-700-normal.ttf"), fontWeight: 700 }] });
-Font.registerHyphenationCallback((w) => [w]);
+export { pdfText };
 
-/** The shipped latin font lacks a few signs the library's text uses; spell those out. */
-const GLYPHS: Record<string, string> = { "λ": "lambda", "Δ": "delta ", "ρ": "rho", "√": "sqrt", "≤": "<=", "≥": ">=", "→": "->" };
-export const pdfText = (t: string) => t.replace(/[λΔρ√≤≥→]/g, (c) => GLYPHS[c] ?? c);
-
-const INK = "#1f2933";
-const COPPER = "#b3592c";
-const MUTED = "#5b6672";
-const s = StyleSheet.create({
-  page: { padding: 32, fontFamily: "Inter", fontSize: 8.5, color: INK, lineHeight: 1.3 },
-  h1: { fontFamily: "Barlow", fontWeight: 700, fontSize: 18, lineHeight: 1.25, marginBottom: 2 },
-  h2: { fontFamily: "Barlow", fontWeight: 700, fontSize: 11, marginTop: 8, marginBottom: 3, color: COPPER },
-  row: { flexDirection: "row", gap: 12 },
-  col: { flex: 1 },
-  muted: { color: MUTED },
-  fig: { width: "33%", marginBottom: 4 },
-  figValue: { fontWeight: 700, fontSize: 11 },
-  caution: { marginTop: 8, padding: 6, borderLeftWidth: 3, borderLeftColor: "#b7791f", backgroundColor: "#fdf6e7" },
-});
+const s = {
+  ...base,
+  ...StyleSheet.create({
+    fig: { width: "33%", marginBottom: 4 },
+    figValue: { fontWeight: 700, fontSize: 11 },
+  }),
+};
 
 export interface SpecSheetData {
-  shop: { name: string; address: string | null; phone: string | null };
+  shop: PdfShop;
   build: { title: string; vehicle: string | null; customerName: string; version: number; savedAt: Date; tunerName: string | null };
   input: ParsedFuelSystemInput;
   result: FuelSystemResult;
@@ -89,17 +73,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
   return (
     <Document title={`${d.build.title} — fuel system spec sheet`} author={d.shop.name} subject="Fuel system spec sheet" creator="Fuelwright">
       <Page size="A4" style={s.page}>
-        <View style={[s.row, { justifyContent: "space-between", borderBottomWidth: 1, borderBottomColor: COPPER, paddingBottom: 6 }]}>
-          <View>
-            <Text style={s.h1}>{d.shop.name}</Text>
-            <Text style={s.muted}>{[d.shop.address, d.shop.phone].filter(Boolean).join(" · ")}</Text>
-          </View>
-          <View style={{ alignItems: "flex-end" }}>
-            <Text style={{ fontWeight: 700 }}>Fuel system spec sheet</Text>
-            <Text style={s.muted}>Revision {d.build.version} · {d.build.savedAt.toISOString().slice(0, 10)}</Text>
-            <Text style={s.muted}>Tuner: {d.build.tunerName ?? "-"}</Text>
-          </View>
-        </View>
+        <Letterhead shop={d.shop} title="Fuel system spec sheet" lines={[`Revision ${d.build.version} · ${d.build.savedAt.toISOString().slice(0, 10)}`, `Tuner: ${d.build.tunerName ?? "-"}`]} />
         <Text style={[s.h1, { fontSize: 14, marginTop: 8 }]}>{d.build.title}</Text>
         <Text>{d.build.customerName}{d.build.vehicle ? ` · ${d.build.vehicle}` : ""}</Text>
 

@@ -25,6 +25,9 @@ export const ShopSettingsSchema = z
     lossManualPct: n("Manual drivetrain loss", 0, 50),
     lossAutomaticPct: n("Automatic drivetrain loss", 0, 50),
     lossAwdPct: n("AWD drivetrain loss", 0, 50),
+    labourRate: n("Labour rate", 0, 100_000),
+    depositPct: n("Deposit", 0, 100),
+    quoteValidDays: n("Quote validity", 1, 365).pipe(z.number().int("Quote validity is a whole number of days")),
   })
   .refine((s) => s.dutyCautionPct <= s.dutyDangerPct, { path: ["dutyDangerPct"], message: "Danger duty must not be below caution duty" });
 

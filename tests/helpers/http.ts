@@ -55,3 +55,9 @@ export async function request(client: Client | null, method: string, path: strin
   }
   return { status: res.status, headers: res.headers, text, json: json as any };
 }
+
+/** A GET whose body is binary (a PDF, an image). */
+export async function getBytes(client: Client | null, path: string) {
+  const res = await fetch(`${BASE_URL}${path}`, { redirect: "manual", headers: { origin: BASE_URL, "x-forwarded-for": client?.ip ?? nextIp(), ...(client ? { cookie: client.cookie } : {}) } });
+  return { status: res.status, headers: res.headers, bytes: Buffer.from(await res.arrayBuffer()) };
+}

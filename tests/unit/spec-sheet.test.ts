@@ -1,22 +1,10 @@
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { FuelSystemInputSchema, sizeParsedFuelSystem, toShown } from "@/lib/calc";
 import { renderSpecSheet, type SpecSheetData } from "@/lib/pdf/spec-sheet";
 import { SAFETY_POINTS } from "@/lib/safety";
 import { boostedSix, naFour } from "../calc/fixtures";
+import { inspectPdf } from "../helpers/pdf";
 
-const dir = mkdtempSync(join(tmpdir(), "fw-pdf-"));
-/** Text and page count of a PDF through poppler-utils (pdftotext, pdfinfo). */
-function inspect(pdf: Buffer, name: string) {
-  const file = join(dir, `${name}.pdf`);
-  writeFileSync(file, pdf);
-  const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
-  const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync("pdfinfo", [file], { encoding: "utf8" }))![1]);
-  return { text, pages };
-}
 
 const sheet = (inputs: unknown, extra: Partial<SpecSheetData> = {}): SpecSheetData => {
   const input = FuelSystemInputSchema.parse(inputs);
@@ -36,7 +24,7 @@ describe("spec sheet PDF", () => {
     const d = sheet(boostedSix, { parts: [{ role: "injector", partId: "p1", sku: "TST-1000", name: "Testbrand 1000 cc/min injector", quantity: 6 }] });
     const pdf = await renderSpecSheet(d);
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
-    const { text, pages } = inspect(pdf, "full");
+    const { text, pages } = inspectPdf(pdf);
     expect(pages).toBeLessThanOrEqual(2);
     const flat = text.replace(/\s+/g, " ");
     expect(flat).toContain("Sheet test build");
@@ -54,7 +42,7 @@ describe("spec sheet PDF", () => {
 
   it("a minimal build renders, in the shop's imperial units", async () => {
     const d = sheet(naFour, { units: "imperial" });
-    const { text, pages } = inspect(await renderSpecSheet(d), "minimal");
+    const { text, pages } = inspectPdf(await renderSpecSheet(d));
     expect(pages).toBeLessThanOrEqual(2);
     const flat = text.replace(/\s+/g, " ");
     expect(flat).toContain(`${toShown("power", d.result.powerCeiling.kw, "imperial")} hp`);

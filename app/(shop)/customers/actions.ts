@@ -4,8 +4,10 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { z } from "zod";
 import { createCustomer, deleteCustomer, updateCustomer } from "@/db/queries/customers";
+import { getShopSettings } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
 import { NotFoundError } from "@/lib/auth/errors";
+import { invitePortalCustomer } from "@/lib/portal/invite";
 import { PATHS } from "@/lib/cache-tags";
 import { CustomerSchema, CustomerUpdateSchema } from "@/lib/validations/customers";
 
@@ -28,4 +30,13 @@ export const deleteCustomerAction = memberAction("customers:write", DeleteSchema
   if (!(await deleteCustomer(m.shopId, id))) throw new NotFoundError("That customer");
   revalidatePath(PATHS.customers);
   redirect(PATHS.customers);
+});
+
+const InviteSchema = z.object({ id: z.uuid("Unknown customer") });
+/** Sends the customer a portal invitation by e-mail. */
+export const invitePortalAction = memberAction("customers:write", InviteSchema, async ({ id }, m) => {
+  const settings = await getShopSettings(m.shopId);
+  const { to } = await invitePortalCustomer(m.shopId, settings?.name ?? "Your shop", m.user.id, id);
+  revalidatePath(PATHS.customer(id));
+  return { ok: true, message: `Portal invitation sent to ${to}` };
 });

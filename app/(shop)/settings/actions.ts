@@ -10,8 +10,15 @@ import { ForbiddenError, NotFoundError } from "@/lib/auth/errors";
 import { PATHS } from "@/lib/cache-tags";
 import { InviteSchema, MemberRemoveSchema, MemberRoleSchema, ShopSettingsSchema } from "@/lib/validations/settings";
 
-export const updateSettingsAction = memberAction("settings:update", ShopSettingsSchema, async ({ shopName, taxRatePct, ...rest }, m) => {
-  await updateShopSettings(m.shopId, shopName, { ...rest, taxRateBp: Math.round(taxRatePct * 100), address: rest.address || null, phone: rest.phone || null });
+export const updateSettingsAction = memberAction("settings:update", ShopSettingsSchema, async ({ shopName, taxRatePct, labourRate, depositPct, ...rest }, m) => {
+  await updateShopSettings(m.shopId, shopName, {
+    ...rest,
+    taxRateBp: Math.round(taxRatePct * 100),
+    labourRateMinor: Math.round(labourRate * 100),
+    depositBp: Math.round(depositPct * 100),
+    address: rest.address || null,
+    phone: rest.phone || null,
+  });
   revalidatePath(PATHS.settings);
   return { ok: true, message: "Shop settings saved" };
 });

@@ -1,10 +1,13 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/status";
+import { logoFacts } from "@/db/queries/logos";
 import { getShopSettings, listMembers, listPendingInvitations } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
+import { minorToPlain } from "@/lib/catalog/money";
+import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
 import { SettingsForm } from "./settings-form";
 
@@ -15,7 +18,7 @@ export default async function SettingsPage() {
   const s = await getShopSettings(m.shopId);
   if (!s) notFound();
   const owner = can(m.role, "members:manage");
-  const [members, invitations] = await Promise.all([listMembers(m.shopId), owner ? listPendingInvitations(m.shopId) : Promise.resolve([])]);
+  const [members, invitations, logo] = await Promise.all([listMembers(m.shopId), owner ? listPendingInvitations(m.shopId) : Promise.resolve([]), logoFacts(m.shopId)]);
   return (
     <>
       <PageHeader title="Settings" />
@@ -44,8 +47,12 @@ export default async function SettingsPage() {
               lossManualPct: String(s.settings.lossManualPct),
               lossAutomaticPct: String(s.settings.lossAutomaticPct),
               lossAwdPct: String(s.settings.lossAwdPct),
+              labourRate: minorToPlain(s.settings.labourRateMinor),
+              depositPct: String(s.settings.depositBp / 100),
+              quoteValidDays: String(s.settings.quoteValidDays),
             }}
           />
+          <LogoUpload logo={logo ? { width: logo.width, height: logo.height, version: logo.sha256.slice(0, 12), uploadedAt: logo.uploadedAt.toISOString().slice(0, 10) } : null} canEdit={can(m.role, "settings:update")} />
         </section>
         <section aria-labelledby="members" className="rounded-lg border border-ink-200 bg-white p-5">
           <h2 id="members" className="text-xl font-semibold">Members</h2>

@@ -49,6 +49,12 @@ export function SettingsForm({ initial, readOnly }: { initial: Record<string, st
           {num("lossAutomaticPct", "Automatic", "%")}
           {num("lossAwdPct", "AWD", "%")}
         </fieldset>
+        <fieldset className="grid gap-4 sm:grid-cols-3">
+          <legend className="mb-2 font-semibold">Quotes</legend>
+          {num("labourRate", "Labour rate", `${v.currency || "money"} per hour`)}
+          {num("depositPct", "Deposit asked on acceptance", "%")}
+          {num("quoteValidDays", "Quotes valid for", "days")}
+        </fieldset>
         {!readOnly ? (
           <div className="flex items-center gap-4">
             <Button type="submit" disabled={pending}>{pending ? "Saving…" : "Save settings"}</Button>

@@ -7,6 +7,7 @@ import { STATUS_LABELS } from "@/lib/validations/builds";
 import { requirePageMember } from "@/lib/auth/member";
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";
+import { PortalAccess } from "./portal-access";
 
 export default async function CustomerPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("customers:read");
@@ -22,6 +23,10 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
       <section className="max-w-xl rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="mb-4 text-xl font-semibold">Details</h2>
         <CustomerForm customer={c} />
+      </section>
+      <section aria-labelledby="cust-portal" className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+        <h2 id="cust-portal" className="mb-2 text-xl font-semibold">Customer portal</h2>
+        <PortalAccess id={c.id} hasSignIn={Boolean(c.userId)} email={c.email} />
       </section>
       <section aria-labelledby="cust-builds" className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
         <div className="flex items-center justify-between">

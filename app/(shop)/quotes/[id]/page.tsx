@@ -4,13 +4,17 @@ import { notFound } from "next/navigation";
 import { QuoteEditor } from "@/components/quotes/quote-editor";
 import { PageHeader } from "@/components/ui/status";
 import { listParts } from "@/db/queries/parts";
+import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { quoteLabel } from "@/lib/catalog/labels";
+import { formatMoney } from "@/lib/catalog/money";
 import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quote" };
+
+const PAYMENT_LABELS = { pending: "checkout opened, not paid", paid: "deposit paid", expired: "checkout expired" } as const;
 
 export default async function QuotePage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("quotes:read");
@@ -20,9 +24,11 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const canWrite = can(m.role, "quotes:write");
   const catalog = canWrite ? (await listParts(m.shopId, { sort: "sku", limit: 2000 })).map((p) => ({ id: p.id, sku: p.sku, label: `${p.brand} ${p.name}`, priceMinor: p.priceMinor, free: p.stock - p.reserved })) : [];
   const qt = q.quote;
+  const payments = await listPayments(m.shopId, qt.id);
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
+        <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Quote PDF</a>
         <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
@@ -44,6 +50,21 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         canWrite={canWrite}
         customerEmail={q.customerEmail}
       />
+      <section aria-labelledby="q-pay" className="mt-6 rounded-lg border border-ink-200 bg-white p-5">
+        <h2 id="q-pay" className="text-lg font-semibold">Deposit</h2>
+        {payments.length === 0 ? (
+          <p className="mt-1 text-sm text-ink-600">{qt.status === "accepted" ? "Waiting for the customer to pay the deposit in their portal." : "No payment yet."}</p>
+        ) : (
+          <ul className="mt-2 space-y-1 text-sm" data-testid="quote-payments">
+            {payments.map((p) => (
+              <li key={p.id}>
+                <span className="figure">{formatMoney(p.amountMinor, p.currency)}</span> — {PAYMENT_LABELS[p.status]}
+                {p.paidAt ? ` ${p.paidAt.toISOString().replace("T", " ").slice(0, 16)} UTC` : ` (checkout opened ${p.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC)`}
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
       <section aria-labelledby="q-mail" className="mt-6 rounded-lg border border-ink-200 bg-white p-5">
         <h2 id="q-mail" className="text-lg font-semibold">E-mails sent</h2>
         {q.messages.length === 0 ? <p className="mt-1 text-sm text-ink-600">None yet.</p> : (
