@@ -28,8 +28,10 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
-        <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Quote PDF</a>
-        <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span>
+        <div className="flex items-center gap-3">
+          <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Quote PDF</a>
+          <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span>
+        </div>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
         {q.customerName}{q.customerEmail ? ` <${q.customerEmail}>` : " (no e-mail address)"}

@@ -37,8 +37,10 @@ export default async function MyQuotePage({ params, searchParams }: { params: Pr
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
-        <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Download quote (PDF)</a>
-        <Link href="/my" className="text-sm text-copper-700 underline">Back</Link>
+        <div className="flex items-center gap-4">
+          <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Download quote (PDF)</a>
+          <Link href="/my" className="text-sm text-copper-700 underline">Back</Link>
+        </div>
       </PageHeader>
       {note ? <p role="status" className={`mb-4 rounded-md px-3 py-2 text-sm font-medium ${note.ok ? "bg-ok-50 text-ok-700" : "bg-ink-100 text-ink-800"}`}>{note.text}</p> : null}
       <p className="mb-4 text-ink-700"><span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span> · valid until {qt.validUntil}{q.buildTitle ? ` · ${q.buildTitle}` : ""}</p>
