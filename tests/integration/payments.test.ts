@@ -138,7 +138,7 @@ describe("quote PDF", () => {
 describe("shop logo", () => {
   it("the owner uploads a PNG; it is served to members and embedded in PDFs; bad uploads change nothing", async () => {
     const png = solidPng(96, 32);
-    const send = (client: Client, body: Buffer, type = "image/png") => fetch(`${BASE_URL}/api/v1/shop/logo`, { method: "PUT", body, headers: { cookie: client.cookie, origin: BASE_URL, "content-type": type, "x-forwarded-for": client.ip } });
+    const send = (client: Client, body: Buffer, type = "image/png") => fetch(`${BASE_URL}/api/v1/shop/logo`, { method: "PUT", body: new Uint8Array(body), headers: { cookie: client.cookie, origin: BASE_URL, "content-type": type, "x-forwarded-for": client.ip } });
     const put = await send(owner, png);
     expect(put.status).toBe(200);
     expect((await put.json()).logo).toMatchObject({ width: 96, height: 32, contentType: "image/png" });

@@ -1,0 +1,67 @@
+import Papa from "papaparse";
+
+/** A datalog as columns of numbers: one header per column, optional units row, NaN-free. */
+export interface Datalog {
+  headers: string[];
+  /** The units row under the headers, when the logger writes one ("rpm", "%", "kPa"…). */
+  units: (string | null)[];
+  /** Rows of numbers; a blank or non-numeric cell is null. Blank lines are dropped. */
+  rows: (number | null)[][];
+  delimiter: "," | ";" | "\t";
+  decimalComma: boolean;
+}
+
+export class DatalogError extends Error {
+  constructor(message: string, readonly line?: number) {
+    super(message);
+    this.name = "DatalogError";
+  }
+}
+
+export const DATALOG_MAX_COLUMNS = 500;
+
+const NUMBER = /^[-+]?(\d+([.,]\d*)?|[.,]\d+)([eE][-+]?\d+)?$/;
+
+function toNumber(cell: string, decimalComma: boolean): number | null {
+  const t = cell.trim();
+  if (!t || !NUMBER.test(t)) return null;
+  const v = Number(decimalComma ? t.replace(",", ".") : t);
+  return Number.isFinite(v) ? v : null;
+}
+
+/**
+ * Reads an ECU or logger CSV: comma, semicolon or tab separated; decimal commas (with `;`);
+ * a byte-order mark; a units row under the headers; blank lines. Throws DatalogError with a
+ * plain message for what is not a datalog.
+ */
+export function parseDatalog(text: string): Datalog {
+  const body = text.replace(/^\uFEFF/, "");
+  if (!body.trim()) throw new DatalogError("The file is empty");
+  if (body.includes("\u0000")) throw new DatalogError("The file is not text: upload the CSV the logger exported");
+  const firstLine = body.slice(0, body.search(/\r?\n|$/));
+  const counts = { ",": firstLine.split(",").length, ";": firstLine.split(";").length, "\t": firstLine.split("\t").length };
+  const delimiter = (Object.entries(counts).sort((a, b) => b[1] - a[1])[0]![0]) as Datalog["delimiter"];
+  if (counts[delimiter] > DATALOG_MAX_COLUMNS) throw new DatalogError(`The log has more than ${DATALOG_MAX_COLUMNS} columns`);
+  const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: "greedy" });
+  const lines = parsed.data;
+  if (lines.length < 2) throw new DatalogError("The log has a header but no data rows");
+  const headers = lines[0]!.map((h, i) => h.trim() || `Column ${i + 1}`);
+  if (headers.length < 2) throw new DatalogError("The log needs at least two columns (e.g. rpm and duty)");
+  const sample = lines.slice(1, 50).flat().map((c) => c.trim()).filter(Boolean);
+  const decimalComma = delimiter !== "," && sample.some((c) => /^[-+]?\d+,\d+$/.test(c));
+  const numericShare = (row: string[]) => row.filter((c) => toNumber(c, decimalComma) !== null).length / Math.max(1, row.filter((c) => c.trim()).length);
+  let start = 1;
+  let units: (string | null)[] = headers.map(() => null);
+  if (lines[1] && numericShare(lines[1]) < 0.5) {
+    units = headers.map((_, i) => lines[1]![i]?.trim() || null);
+    start = 2;
+  }
+  const rows: (number | null)[][] = [];
+  for (let i = start; i < lines.length; i++) {
+    const cells = lines[i]!;
+    if (cells.length > DATALOG_MAX_COLUMNS) throw new DatalogError(`Line ${i + 1} has more than ${DATALOG_MAX_COLUMNS} columns`, i + 1);
+    rows.push(headers.map((_, c) => toNumber(cells[c] ?? "", decimalComma)));
+  }
+  if (!rows.some((r) => r.some((v) => v !== null))) throw new DatalogError("No numbers were found under the headers");
+  return { headers, units, rows, delimiter, decimalComma };
+}
