@@ -14,6 +14,12 @@ const EnvSchema = z.object({
   STRIPE_SECRET_KEY: z.string().min(8).default("sk_test_fuelwright_local_fake"),
   STRIPE_WEBHOOK_SECRET: z.string().min(8).default("whsec_fuelwright_local_fake"),
   PAYMENTS_API_URL: z.string().url("PAYMENTS_API_URL must be an http(s) URL").optional(),
+  /** Object storage for uploads: the local S3 fake by default; a real endpoint and keys switch. */
+  S3_ENDPOINT: z.string().url("S3_ENDPOINT must be an http(s) URL").default("http://127.0.0.1:4569"),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().min(3).default("fuelwright-uploads"),
+  S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
   /** "off" only in tests: better-auth's sign-in rate limit stays on everywhere else. */
   AUTH_RATE_LIMIT: z.enum(["on", "off"]).default("on"),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),

@@ -115,6 +115,16 @@ start_payment_fake() {
   die "payment fake did not start"
 }
 
+# start_s3_fake PORT DIR — the local S3-compatible store for uploads (scripts/s3-fake.mjs)
+start_s3_fake() {
+  port_busy "$1" && die "S3 fake cannot start: port $1 is taken"
+  mkdir -p "$2"
+  S3_PORT="$1" S3_DIR="$2" node "$FW_ROOT/scripts/s3-fake.mjs" &
+  FW_PIDS+=($!)
+  for _ in $(seq 100); do port_busy "$1" && return 0; sleep 0.1; done
+  die "S3 fake did not start"
+}
+
 # wait_http URL SECONDS
 wait_http() {
   local url="$1" t="${2:-60}"

@@ -30,6 +30,12 @@ if [ -z "${STRIPE_SECRET_KEY:-}" ] && [ -z "${PAYMENTS_API_URL:-}" ]; then
 else
   say "using the payment service from the environment (no payment fake started)"
 fi
+if [ -z "${S3_ENDPOINT:-}" ]; then
+  start_s3_fake 4569 .data/s3
+  export S3_ENDPOINT="http://127.0.0.1:4569"
+else
+  say "using S3_ENDPOINT from the environment (no S3 fake started)"
+fi
 if [ -z "${BETTER_AUTH_SECRET:-}" ]; then
   mkdir -p .data
   [ -s .data/auth-secret ] || node -e "console.log(require('crypto').randomBytes(32).toString('hex'))" > .data/auth-secret

@@ -15,6 +15,8 @@ source scripts/test-env.vars
 migrate_and_seed
 start_mail_sink 2535 2536
 start_payment_fake 12121 "http://127.0.0.1:3100/api/webhooks/payments"
+rm -rf .data/s3-test
+start_s3_fake 4579 .data/s3-test
 port_busy 3100 && die "port 3100 is taken"
 node node_modules/next/dist/bin/next dev -H 127.0.0.1 -p 3100 &
 FW_PIDS+=($!)

@@ -26,6 +26,8 @@ migrate_and_seed
 start_mail_sink "$TEST_SMTP_PORT" "$TEST_INBOX_PORT"
 source scripts/test-env.vars
 start_payment_fake "$TEST_PAYMENTS_PORT" "http://127.0.0.1:$TEST_APP_PORT/api/webhooks/payments"
+rm -rf .data/s3-test
+start_s3_fake 4579 .data/s3-test
 mkdir -p test-results
 
 check "lint (eslint)" node node_modules/eslint/bin/eslint.js . --max-warnings=0

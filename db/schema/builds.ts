@@ -83,3 +83,23 @@ export const buildRevisionRelations = relations(buildRevisions, ({ one }) => ({ 
 
 export type Build = typeof builds.$inferSelect;
 export type BuildRevision = typeof buildRevisions.$inferSelect;
+
+/** A dyno datalog uploaded to a build: the file is in object storage, its facts here. */
+export const datalogs = pgTable(
+  "datalogs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    objectKey: text("object_key").notNull(),
+    fileName: text("file_name").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    sha256: text("sha256").notNull(),
+    headers: jsonb("headers").$type<string[]>().notNull(),
+    rowCount: integer("row_count").notNull(),
+    uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
+    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("datalogs_build_idx").on(t.shopId, t.buildId, t.uploadedAt)],
+);
+export type DatalogRow = typeof datalogs.$inferSelect;

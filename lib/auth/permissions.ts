@@ -16,6 +16,9 @@ export const PERMISSIONS = {
   "builds:write": ["owner", "tuner"],
   /** Reading builds through the API; customers see only their own (see ownRecordsOnly). */
   "builds:view": ["owner", "tuner", "counter", "customer"],
+  /** Dyno datalogs: tuners upload them; staff read them. */
+  "datalogs:upload": ["owner", "tuner"],
+  "datalogs:read": ["owner", "tuner", "counter"],
   "parts:read": ["owner", "tuner", "counter"],
   "parts:write": ["owner", "counter"],
   /** Choosing a build's parts from the catalog writes a build revision (the counter may too). */

@@ -1,0 +1,33 @@
+import "server-only";
+import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { HttpError } from "@/lib/auth/errors";
+import { serverEnv } from "@/lib/env";
+
+let client: S3Client | undefined;
+
+/** The AWS S3 SDK, pointed at S3_ENDPOINT (the local fake by default). */
+function s3(): S3Client {
+  const env = serverEnv();
+  client ??= new S3Client({ endpoint: env.S3_ENDPOINT, region: env.S3_REGION, forcePathStyle: true, credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY } });
+  return client;
+}
+
+async function storage<T>(call: () => Promise<T>): Promise<T> {
+  try {
+    return await call();
+  } catch (e) {
+    console.error("object storage:", (e as Error).message);
+    throw new HttpError(503, "storage_unavailable", "File storage is not answering; nothing was stored. Try again in a moment.");
+  }
+}
+
+export async function putObject(key: string, body: Buffer, contentType: string) {
+  await storage(() => s3().send(new PutObjectCommand({ Bucket: serverEnv().S3_BUCKET, Key: key, Body: body, ContentType: contentType })));
+}
+
+export async function getObject(key: string): Promise<Buffer> {
+  return storage(async () => {
+    const r = await s3().send(new GetObjectCommand({ Bucket: serverEnv().S3_BUCKET, Key: key }));
+    return Buffer.from(await r.Body!.transformToByteArray());
+  });
+}
