@@ -47,3 +47,5 @@ export { parseDatalog, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";
 export type { Datalog } from "./datalog";
 export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";
 export type { PullSample, PullContext, PullAnalysis } from "./dyno";
+export { DatalogMappingSchema, headerKey, mappingProblems, samplesFromLog, suggestMapping } from "./log-mapping";
+export type { DatalogMapping } from "./log-mapping";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DatalogError, analyzePull, flowFromDuty, parseDatalog, sampleDutyPct, type PullContext, type PullSample } from "@/lib/calc";
+import { DatalogError, DatalogMappingSchema, analyzePull, flowFromDuty, headerKey, mappingProblems, parseDatalog, sampleDutyPct, samplesFromLog, suggestMapping, type PullContext, type PullSample } from "@/lib/calc";
 
 // A synthetic pull built in the test from known inputs (no outside source needed: the checks
 // are that the analysis recovers what was put in). Injector data: 1000 cc/min at 300 kPa, 6 of them.
@@ -89,5 +89,42 @@ describe("datalog parser", () => {
     expect(() => parseDatalog("a\u0000b")).toThrow("not text");
     expect(() => parseDatalog(`${Array.from({ length: 600 }, (_, i) => `c${i}`).join(",")}\n1,2\n`)).toThrow("more than 500 columns");
     expect(() => parseDatalog("rpm,duty\nx,y\nz,w\n")).toThrow("No numbers");
+  });
+});
+
+describe("column mapping", () => {
+  const log = parseDatalog("Engine RPM,Inj Duty,AFR,MAP,Fuel Pressure,Ethanol,Power\nrpm,%,afr,psi,psi,%,hp\n6000,80,11.76,29.4,72.5,85,400\n");
+
+  it("guesses the columns from headers and units", () => {
+    expect(suggestMapping(log)).toEqual({
+      rpm: "Engine RPM",
+      duty: { column: "Inj Duty", kind: "duty_pct" },
+      mixture: { column: "AFR", kind: "afr", afrStoich: 14.7 },
+      boost: { column: "MAP", kind: "absolute", unit: "psi" },
+      fuelPressure: { column: "Fuel Pressure", kind: "rail", unit: "psi" },
+      ethanol: { column: "Ethanol" },
+      power: { column: "Power", unit: "hp" },
+    });
+  });
+
+  it("converts to canonical units: psi absolute → kPa gauge, rail → differential, AFR → lambda, hp → kW", () => {
+    const m = DatalogMappingSchema.parse(suggestMapping(log));
+    const [s] = samplesFromLog(log, m);
+    // NIST SP 811 B.8: 29.4 psi = 202.70 kPa abs; − 101.325 (ISO 2533) = 101.38 kPa boost.
+    expect(s!.boostKpa).toBeCloseTo(29.4 * 6.894757 - 101.325, 6);
+    // 72.5 psi rail = 499.87 kPa; differential = rail − boost = 398.5 kPa (by hand).
+    expect(s!.fuelDiffKpa).toBeCloseTo(72.5 * 6.894757 - (29.4 * 6.894757 - 101.325), 6);
+    // AFR 11.76 on the gasoline 14.7 scale = lambda 0.80 (common practice, no source).
+    expect(s!.lambda).toBeCloseTo(0.8, 9);
+    // NIST SP 811 B.8: 1 hp (550 ft·lbf/s) = 745.6999 W.
+    expect(s!.powerKw).toBeCloseTo(400 * 0.7456999, 6);
+  });
+
+  it("the same header set in another order is the same logger; unknown columns are named", () => {
+    expect(headerKey(["RPM", "Duty"])).toBe(headerKey(["duty ", "rpm"]));
+    expect(mappingProblems(DatalogMappingSchema.parse({ rpm: "RPM", duty: { column: "Nope", kind: "duty_pct" } }), log.headers)).toEqual([
+      { path: "rpm", message: 'The log has no column "RPM"' },
+      { path: "duty.column", message: 'The log has no column "Nope"' },
+    ]);
   });
 });
