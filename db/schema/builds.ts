@@ -1,5 +1,5 @@
 import { relations, sql } from "drizzle-orm";
-import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 import { customers } from "./shops";
 
@@ -97,9 +97,28 @@ export const datalogs = pgTable(
     sha256: text("sha256").notNull(),
     headers: jsonb("headers").$type<string[]>().notNull(),
     rowCount: integer("row_count").notNull(),
+    /** The column mapping last used to analyse it, and that analysis (lib/calc analyzePull). */
+    mapping: jsonb("mapping"),
+    analysis: jsonb("analysis"),
+    /** Set when this log verified its build. */
+    verifiedAt: timestamp("verified_at", { withTimezone: true }),
+    verifiedBy: text("verified_by").references(() => user.id, { onDelete: "set null" }),
     uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
     uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("datalogs_build_idx").on(t.shopId, t.buildId, t.uploadedAt)],
 );
 export type DatalogRow = typeof datalogs.$inferSelect;
+
+/** A shop's remembered column mapping per logger, keyed by the log's header set (lib/calc headerKey). */
+export const datalogMappings = pgTable(
+  "datalog_mappings",
+  {
+    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    headerKey: text("header_key").notNull(),
+    mapping: jsonb("mapping").notNull(),
+    updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.shopId, t.headerKey] })],
+);

@@ -2,6 +2,7 @@ import { createHash } from "node:crypto";
 import { request as httpRequest } from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
+import { DatalogMappingSchema } from "@/lib/calc";
 import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
 
 const BUILD = "10000000-0000-4000-8000-000000000002"; // demo turbo six on E85 (db/seed.ts)
@@ -70,5 +71,45 @@ describe("datalog uploads", () => {
     expect((await upload(counter, "rpm,duty\n3000,40\n")).status).toBe(403);
     expect((await upload(outsider, "rpm,duty\n3000,40\n")).status).toBe(404);
     expect(await fingerprint(["datalogs"])).toBe(before);
+  });
+});
+
+/** A pull generated in the test from known values: duty 40 → 80 % over 3000–7000 rpm, lambda 0.80. */
+function pullCsv(order: "a" | "b" = "a") {
+  const rows = [order === "a" ? "Time;RPM;Inj Duty;Lambda;Boost;Fuel Diff" : "RPM;Time;Lambda;Inj Duty;Boost;Fuel Diff", order === "a" ? "s;rpm;%;lambda;kPa;kPa" : "rpm;s;lambda;%;kPa;kPa"];
+  for (let i = 0; i <= 80; i++) {
+    const rpm = 3000 + i * 50;
+    const duty = (40 + (40 * i) / 80).toFixed(2).replace(".", ",");
+    const boost = (150 * Math.min(1, (i / 80) * 1.5)).toFixed(1).replace(".", ",");
+    const t = (i * 0.05).toFixed(2).replace(".", ",");
+    rows.push(order === "a" ? `${t};${rpm};${duty};0,80;${boost};300` : `${rpm};${t};0,80;${duty};${boost};300`);
+  }
+  return rows.join("\n") + "\n";
+}
+
+describe("datalog analysis", () => {
+  it("maps columns, analyses against the build, and remembers the mapping for the next log from the same logger", async () => {
+    const first = await (await upload(tuner, pullCsv("a"))).json();
+    const view = await request(tuner, "GET", `/api/v1/datalogs/${first.datalog.id}`);
+    expect(view.status).toBe(200);
+    expect(view.json.remembered).toBe(false);
+    expect(view.json.mapping).toMatchObject({ rpm: "RPM", duty: { column: "Inj Duty", kind: "duty_pct" }, mixture: { column: "Lambda", kind: "lambda" } });
+    const mapping = { ...view.json.mapping, boost: { column: "Boost", kind: "gauge", unit: "kPa" }, fuelPressure: { column: "Fuel Diff", kind: "differential", unit: "kPa" } };
+    const bad = await request(tuner, "POST", `/api/v1/datalogs/${first.datalog.id}/analysis`, { mapping: { ...mapping, duty: { column: "Nope", kind: "duty_pct" } } });
+    expect(bad.status).toBe(422);
+    expect(bad.json.error.issues[0].path).toBe("mapping.duty.column");
+    const a = await request(tuner, "POST", `/api/v1/datalogs/${first.datalog.id}/analysis`, { mapping });
+    expect(a.status).toBe(200);
+    expect(a.json.analysis.peakDuty.pct).toBeCloseTo(80, 6);
+    expect(a.json.analysis.peakDuty.rpm).toBe(7000);
+    expect(a.json.analysis.fuelPressure.dropKpa).toBeCloseTo(0, 6);
+    expect(a.json.series.length).toBe(81);
+    expect(a.json.series[0].dutyPredicted).toBeGreaterThan(0);
+    const second = await (await upload(tuner, pullCsv("b"))).json();
+    const again = await request(tuner, "GET", `/api/v1/datalogs/${second.datalog.id}`);
+    expect(again.json.remembered).toBe(true);
+    expect(again.json.mapping).toEqual(JSON.parse(JSON.stringify(DatalogMappingSchema.parse(mapping))));
+    expect((await request(counter, "POST", `/api/v1/datalogs/${first.datalog.id}/analysis`, { mapping })).status).toBe(403);
+    expect((await request(outsider, "GET", `/api/v1/datalogs/${first.datalog.id}`)).status).toBe(404);
   });
 });

@@ -1,0 +1,12 @@
+import { requireMember } from "@/lib/auth/member";
+import { analyseDatalog } from "@/lib/dyno/service";
+import { readJson } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handler";
+import { uuidParam, type IdCtx } from "@/lib/http/params";
+
+/** POST { mapping } — analyse the log against its build (measured vs predicted); the mapping is remembered for this logger. */
+export const POST = handle<IdCtx>(async (req, ctx) => {
+  const m = await requireMember("datalogs:upload");
+  const id = await uuidParam(ctx, "That datalog");
+  return Response.json(await analyseDatalog(m.shopId, m.user.id, id, await readJson(req)));
+});
