@@ -1,9 +1,11 @@
 import "server-only";
-import { getBuild } from "@/db/queries/builds";
-import { getDatalog, rememberedMapping, saveAnalysis } from "@/db/queries/datalogs";
+import { getBuild, saveBuild } from "@/db/queries/builds";
+import { getDatalog, markDatalogVerified, rememberedMapping, saveAnalysis } from "@/db/queries/datalogs";
 import { ZodError, z } from "zod";
-import { NotFoundError } from "@/lib/auth/errors";
+import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
 import {
+  CALC_VERSION,
   DatalogMappingSchema,
   FuelSystemInputSchema,
   analyzePull,
@@ -75,4 +77,19 @@ export async function analyseDatalog(shopId: string, userId: string, id: string,
   const stored = { ...analysis, ethanolPct, targetLambda, predictedPeakDutyPct: result.blend.rich.dutyPct };
   await saveAnalysis(shopId, userId, id, headerKey(log.headers), mapping, stored);
   return { analysis: stored, series };
+}
+
+/** "Mark verified": the build moves to verified, with this analysed log attached, as a new revision. */
+export async function verifyWithDatalog(shopId: string, userId: string, id: string) {
+  const d = await getDatalog(shopId, id);
+  if (!d) throw new NotFoundError("That datalog");
+  if (!d.analysis) throw new HttpError(409, "not_analysed", "Analyse the log before marking the build verified");
+  const row = await getBuild(shopId, d.buildId);
+  if (!row) throw new NotFoundError("That build");
+  const b = row.build;
+  if (b.status !== "verified" && !STATUS_NEXT[b.status].includes("verified")) throw new HttpError(409, "invalid_transition", `Only a fitted build is verified; this one is ${STATUS_LABELS[b.status].toLowerCase()}`);
+  const input = FuelSystemInputSchema.parse(b.inputs);
+  const saved = await saveBuild(shopId, b.id, userId, b.version, { status: "verified", note: `Verified with dyno log ${d.fileName}`, inputs: b.inputs, result: sizeParsedFuelSystem(input), calcVersion: CALC_VERSION });
+  await markDatalogVerified(shopId, userId, id);
+  return saved;
 }

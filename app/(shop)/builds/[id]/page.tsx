@@ -27,6 +27,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         <p className="text-sm text-ink-600">{row.customerName}{b.vehicle ? ` · ${b.vehicle}` : ""}</p>
         <div className="flex flex-wrap items-center gap-3">
           <a href={`/api/v1/builds/${b.id}/spec-sheet`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Spec sheet (PDF)</a>
+          <Link href={`/builds/${b.id}/dyno`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Dyno logs</Link>
           <Link href={`/builds/${b.id}/kit`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Parts kit{b.parts.length ? ` (${b.parts.length} chosen)` : ""}</Link>
           {can(m.role, "builds:write") ? <CopyBuildButton buildId={b.id} /> : null}
         </div>

@@ -1,0 +1,39 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
+import { PageHeader } from "@/components/ui/status";
+import { getBuild } from "@/db/queries/builds";
+import { listDatalogs } from "@/db/queries/datalogs";
+import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
+import { STATUS_LABELS } from "@/lib/validations/builds";
+
+export const metadata: Metadata = { title: "Dyno verification" };
+
+/** Dyno logs of one build: upload, map columns, measured against predicted, mark verified. */
+export default async function DynoPage({ params }: { params: Promise<{ id: string }> }) {
+  const m = await requirePageMember("datalogs:read");
+  const { id } = await params;
+  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  if (!row) notFound();
+  const logs = await listDatalogs(m.shopId, id);
+  return (
+    <>
+      <PageHeader title={`Dyno verification — ${row.build.title}`}>
+        <div className="flex items-center gap-3">
+          <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="build-status">{STATUS_LABELS[row.build.status]}</span>
+          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+        </div>
+      </PageHeader>
+      <p className="mb-4 rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm text-ink-800">
+        Stop a pull at once if lambda goes lean or fuel pressure falls. Dyno work on fuel systems follows your local codes and licensed practice.
+      </p>
+      <DynoWorkbench
+        buildId={id}
+        canUpload={can(m.role, "datalogs:upload")}
+        logs={logs.map((l) => ({ id: l.id, fileName: l.fileName, sizeBytes: l.sizeBytes, rowCount: l.rowCount, uploadedAt: l.uploadedAt.toISOString(), verifiedAt: l.verifiedAt?.toISOString() ?? null }))}
+      />
+    </>
+  );
+}
