@@ -20,14 +20,25 @@ const cell = "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 
 const ACTION_LABELS: Partial<Record<QuoteStatus, string>> = { accepted: "Mark accepted", declined: "Mark declined", expired: "Mark expired", deposit_paid: "Record deposit paid", ordered: "Mark ordered", draft: "Back to draft" };
 
 /** A quote's lines (editable while draft or sent), totals worked live in integer cents, workflow and e-mail. */
-export function QuoteEditor(props: { id: string; version: number; status: QuoteStatus; currency: string; taxRateBp: number; validUntil: string; notes: string; lines: EditorLine[]; catalog: CatalogOption[]; canWrite: boolean; customerEmail: string | null }) {
+type EditorProps = { id: string; version: number; status: QuoteStatus; currency: string; taxRateBp: number; validUntil: string; notes: string; lines: EditorLine[]; catalog: CatalogOption[]; canWrite: boolean; customerEmail: string | null };
+type Outcome = { ok: boolean; message: string } | null;
+
+/**
+ * The quote editor. The form starts afresh from the saved quote whenever its version changes;
+ * the outcome message lives out here so that it survives that fresh start.
+ */
+export function QuoteEditor(props: EditorProps) {
+  const [outcome, setOutcome] = useState<Outcome>(null);
+  return <QuoteEditorForm key={`${props.id}-${props.version}`} {...props} outcome={outcome} setOutcome={setOutcome} />;
+}
+
+function QuoteEditorForm({ outcome: status, setOutcome: setStatus, ...props }: EditorProps & { outcome: Outcome; setOutcome: (o: Outcome) => void }) {
   const router = useRouter();
   const editable = props.canWrite && (props.status === "draft" || props.status === "sent");
   const [rows, setRows] = useState<Row[]>(props.lines.map(toRow));
   const [validUntil, setValidUntil] = useState(props.validUntil);
   const [notes, setNotes] = useState(props.notes);
   const [addPart, setAddPart] = useState("");
-  const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
   const [busy, setBusy] = useState("");
 

@@ -161,7 +161,7 @@ describe("quotes", () => {
     const list = await request(customer, "GET", "/api/v1/quotes");
     const ids = list.json.quotes.map((x: { id: string }) => x.id);
     expect(ids).toContain(q.id);
-    const [{ n }] = (await sql`select count(*)::int as n from quotes q join customers c on c.id = q.customer_id where c.user_id = 'demo-user-customer'`) as unknown as [{ n: number }];
+    const [{ n }] = (await sql`select count(*)::int as n from quotes q join customers c on c.id = q.customer_id where c.user_id = 'demo-user-customer' and q.status <> 'draft'`) as unknown as [{ n: number }];
     expect(ids).toHaveLength(n);
     // Another customer's quote is "not found" to this customer, and any quote to another shop.
     const [othersQuote] = await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null limit 1`;
@@ -177,7 +177,7 @@ describe("customer decisions", () => {
   it("the customer accepts their own sent quote once; the decision records who and when", async () => {
     const customerId = "00000000-0000-4000-8000-000000000001";
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(409); // still a draft
+    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(404); // a draft is not shown to the customer at all
     await sql`update quotes set status = 'sent' where id = ${q.id}`;
     expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "maybe" })).status).toBe(422);
     expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(403);

@@ -39,7 +39,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         {qt.statusChangedAt ? ` · ${QUOTE_STATUS_LABELS[qt.status]} ${qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC` : ""}
       </p>
       <QuoteEditor
-        key={`${qt.id}-${qt.version}`}
+        key={qt.id}
         id={qt.id}
         version={qt.version}
         status={qt.status}
