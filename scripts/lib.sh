@@ -97,33 +97,28 @@ pg_ensure_db() {
   fi
 }
 
+# start_node_service LABEL PORT SCRIPT [VAR=VALUE…] — runs scripts/SCRIPT in the background with
+# those variables and waits until PORT answers (each local stand-in below is one of these).
+start_node_service() {
+  local label="$1" port="$2" script="$3"; shift 3
+  port_busy "$port" && die "$label cannot start: port $port is taken"
+  env "$@" node "$FW_ROOT/scripts/$script" &
+  FW_PIDS+=($!)
+  for _ in $(seq 100); do port_busy "$port" && return 0; sleep 0.1; done
+  die "$label did not start"
+}
+
 # start_mail_sink SMTP_PORT INBOX_PORT
 start_mail_sink() {
   port_busy "$1" && die "mail sink cannot start: port $1 is taken"
-  SMTP_PORT="$1" INBOX_PORT="$2" node "$FW_ROOT/scripts/mail-sink.mjs" &
-  FW_PIDS+=($!)
-  for _ in $(seq 50); do port_busy "$2" && return 0; sleep 0.1; done
-  die "mail sink did not start"
+  start_node_service "mail sink" "$2" mail-sink.mjs SMTP_PORT="$1" INBOX_PORT="$2"
 }
 
 # start_payment_fake PORT WEBHOOK_URL — the local card-payment API (scripts/payment-fake.mjs)
-start_payment_fake() {
-  port_busy "$1" && die "payment fake cannot start: port $1 is taken"
-  PAYMENTS_PORT="$1" PAYMENTS_WEBHOOK_URL="$2" node "$FW_ROOT/scripts/payment-fake.mjs" &
-  FW_PIDS+=($!)
-  for _ in $(seq 50); do port_busy "$1" && return 0; sleep 0.1; done
-  die "payment fake did not start"
-}
+start_payment_fake() { start_node_service "payment fake" "$1" payment-fake.mjs PAYMENTS_PORT="$1" PAYMENTS_WEBHOOK_URL="$2"; }
 
 # start_s3_fake PORT DIR — the local S3-compatible store for uploads (scripts/s3-fake.mjs)
-start_s3_fake() {
-  port_busy "$1" && die "S3 fake cannot start: port $1 is taken"
-  mkdir -p "$2"
-  S3_PORT="$1" S3_DIR="$2" node "$FW_ROOT/scripts/s3-fake.mjs" &
-  FW_PIDS+=($!)
-  for _ in $(seq 100); do port_busy "$1" && return 0; sleep 0.1; done
-  die "S3 fake did not start"
-}
+start_s3_fake() { mkdir -p "$2" && start_node_service "S3 fake" "$1" s3-fake.mjs S3_PORT="$1" S3_DIR="$2"; }
 
 # wait_http URL SECONDS
 wait_http() {

@@ -43,6 +43,6 @@ export async function onceForEvent<T>(event: { id: string; type: string; checkou
   });
 }
 
-export async function confirmPaymentInTx(checkoutSessionId: string, eventId: string) {
+export async function confirmPayment(checkoutSessionId: string, eventId: string) {
   return db.transaction((tx) => markPaymentPaid(tx, checkoutSessionId, eventId));
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import type Stripe from "stripe";
-import { confirmPaymentInTx, listPayments, markPaymentExpired, markPaymentPaid, onceForEvent, recordPendingPayment } from "@/db/queries/payments";
+import { confirmPayment, listPayments, markPaymentExpired, markPaymentPaid, onceForEvent, recordPendingPayment } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
@@ -61,7 +61,7 @@ export async function confirmReturn(shopId: string, userId: string, quoteId: str
   if (!mine) throw new NotFoundError("That payment");
   const session = await provider(() => payments().checkout.sessions.retrieve(sessionId));
   if (session.payment_status !== "paid") return "unpaid";
-  const r = await confirmPaymentInTx(session.id, `return:${session.id}`);
+  const r = await confirmPayment(session.id, `return:${session.id}`);
   return r === "paid" ? "paid" : "already";
 }
 

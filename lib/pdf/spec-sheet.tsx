@@ -4,8 +4,6 @@ import type { ChosenPart } from "@/db/schema/builds";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 import { COPPER, Letterhead, MUTED, base, pdfText, type PdfShop } from "./common";
 
-export { pdfText };
-
 const s = {
   ...base,
   ...StyleSheet.create({
