@@ -7,7 +7,7 @@ import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
-import { AN_SIZES, FuelSystemInputSchema, convertInputs, converter, quantityOf, sizeParsedFuelSystem, toShown, type FuelSystemInput, type UnitSystem } from "@/lib/calc";
+import { AN_SIZES, ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS, FuelSystemInputSchema, convertInputs, converter, quantityOf, shopBsfcFor, sizeParsedFuelSystem, toShown, type FuelSystemInput, type ShopBsfcRow, type UnitSystem } from "@/lib/calc";
 import type { BuildStatus } from "@/db/schema/builds";
 import { diffInputs, stableJson } from "@/lib/builds/diff";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
@@ -72,7 +72,7 @@ function NumberField({ register, name, label, unit, error }: { register: UseForm
 }
 
 /** The build sheet: inputs on one side, the live sizing beside them, recomputed in the browser. */
-export function BuildEditor(props: { buildId: string; title: string; status: BuildStatus; version: number; inputs: FuelSystemInput; readOnly: boolean; units: UnitSystem }) {
+export function BuildEditor(props: { buildId: string; title: string; status: BuildStatus; version: number; inputs: FuelSystemInput; readOnly: boolean; units: UnitSystem; shopBsfc?: ShopBsfcRow[] }) {
   const [version, setVersion] = useState(props.version);
   const [units, setUnits] = useState<UnitSystem>(props.units);
   const [saved, setSaved] = useState<SaveBuildState | null>(null);
@@ -229,6 +229,12 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
             {num("fuel.ethanolMaxVolPct", "Highest ethanol", "%")}
             {num("fuel.bsfcGPerKwh", "BSFC (blank: rule of thumb)", "g/kWh")}
             {num("fuel.targetLambda", "Target lambda (blank: reference)", "λ")}
+            <ShopBsfcOffer
+              row={shopBsfcFor(props.shopBsfc ?? [], Number(inputs.fuel?.ethanolMaxVolPct), inputs.engine?.aspiration ?? "na")}
+              units={units}
+              current={inputs.fuel?.bsfcGPerKwh}
+              onUse={(g) => setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, { shouldDirty: true })}
+            />
           </Section>
           <Section title="Injectors" toggle={<div className="mb-1">{toggle("deadTime", "Use the injector's dead-time table")}</div>}>
             {num("injectors.count", "Injectors", "count")}
@@ -307,6 +313,34 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
             <SizingCharts input={parsed.data} result={result} units={units} />
           </div>
         ) : null}
+      </div>
+    </div>
+  );
+}
+
+/** "Use this shop's measured BSFC (n builds)": the shop's own figure beside the rule of thumb. */
+function ShopBsfcOffer({ row, units, current, onUse }: { row: ShopBsfcRow | null; units: UnitSystem; current?: number; onUse: (gPerKwh: number) => void }) {
+  const c = converter("bsfc", units);
+  const fmt = (g: number) => `${c.to(g).toFixed(units === "metric" ? 0 : 2)} ${c.unit}`;
+  if (!row) {
+    return <p className="text-sm text-ink-600 sm:col-span-2" data-testid="shop-bsfc">No verified builds with logged power for this fuel and aspiration yet; the rule of thumb applies.</p>;
+  }
+  const mean = Math.round(row.meanGPerKwh);
+  const inUse = current !== undefined && Math.abs(current - mean) < 0.5;
+  return (
+    <div className="rounded-md border border-copper-100 bg-copper-50 p-3 text-sm sm:col-span-2" data-testid="shop-bsfc">
+      <p>
+        This shop measured <span className="figure font-semibold">{fmt(mean)}</span>
+        {` on ${FUEL_CLASS_LABELS[row.fuel]} fuel, ${ASPIRATION_CLASS_LABELS[row.aspiration].toLowerCase()}${row.builds > 1 ? ` (range ${fmt(row.minGPerKwh)} – ${fmt(row.maxGPerKwh)})` : ""}.`}
+      </p>
+      <div className="mt-2">
+        {inUse ? (
+          <span className="text-ok-700">✓ Using this shop&apos;s measured BSFC</span>
+        ) : (
+          <Button type="button" variant="ghost" onClick={() => onUse(mean)}>
+            {`Use this shop's measured BSFC (${row.builds} ${row.builds === 1 ? "build" : "builds"})`}
+          </Button>
+        )}
       </div>
     </div>
   );

@@ -1,6 +1,6 @@
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, isNotNull, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { datalogMappings, datalogs } from "@/db/schema";
+import { builds, datalogMappings, datalogs } from "@/db/schema";
 
 export async function recordDatalog(v: typeof datalogs.$inferInsert) {
   const [row] = await db.insert(datalogs).values(v).returning();
@@ -31,4 +31,33 @@ export async function saveAnalysis(shopId: string, userId: string, id: string, k
 
 export async function markDatalogVerified(shopId: string, userId: string, id: string) {
   await db.update(datalogs).set({ verifiedAt: new Date(), verifiedBy: userId }).where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
+}
+
+/**
+ * The measured figures of the shop's verified builds: per build, its newest verified log that
+ * logged power, with the build's aspiration. A build moved back to draft stops counting.
+ */
+export async function verifiedBsfcPoints(shopId: string) {
+  return db
+    .selectDistinctOn([datalogs.buildId], {
+      buildId: datalogs.buildId,
+      gPerKwh: sql<number | null>`(${datalogs.analysis} -> 'measuredBsfc' ->> 'gPerKwh')::float8`,
+      ethanolVolPct: sql<number | null>`(${datalogs.analysis} ->> 'ethanolPct')::float8`,
+      aspiration: sql<string>`${builds.inputs} -> 'engine' ->> 'aspiration'`,
+    })
+    .from(datalogs)
+    .innerJoin(builds, and(eq(builds.id, datalogs.buildId), eq(builds.shopId, datalogs.shopId)))
+    .where(and(eq(datalogs.shopId, shopId), isNotNull(datalogs.verifiedAt), eq(builds.status, "verified"), sql`${datalogs.analysis} -> 'measuredBsfc' ->> 'gPerKwh' is not null`))
+    .orderBy(datalogs.buildId, desc(datalogs.verifiedAt));
+}
+
+/** The newest verified log of a build, with its analysis (for the spec sheet). */
+export async function latestVerifiedDatalog(shopId: string, buildId: string) {
+  const [row] = await db
+    .select({ id: datalogs.id, fileName: datalogs.fileName, analysis: datalogs.analysis, verifiedAt: datalogs.verifiedAt })
+    .from(datalogs)
+    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.buildId, buildId), isNotNull(datalogs.verifiedAt)))
+    .orderBy(desc(datalogs.verifiedAt))
+    .limit(1);
+  return row ?? null;
 }

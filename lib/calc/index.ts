@@ -49,3 +49,5 @@ export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";
 export type { PullSample, PullContext, PullAnalysis } from "./dyno";
 export { DatalogMappingSchema, headerKey, mappingProblems, samplesFromLog, suggestMapping } from "./log-mapping";
 export type { DatalogMapping } from "./log-mapping";
+export { shopBsfcTable, shopBsfcFor, fuelClassOf, aspirationClassOf, FUEL_CLASS_LABELS, ASPIRATION_CLASS_LABELS, MEASURED_BSFC_RANGE } from "./shop-bsfc";
+export type { BsfcPoint, ShopBsfcRow, FuelClass, AspirationClass } from "./shop-bsfc";

@@ -1,6 +1,6 @@
 import "server-only";
 import { getBuild, saveBuild } from "@/db/queries/builds";
-import { getDatalog, markDatalogVerified, rememberedMapping, saveAnalysis } from "@/db/queries/datalogs";
+import { getDatalog, markDatalogVerified, rememberedMapping, saveAnalysis, verifiedBsfcPoints } from "@/db/queries/datalogs";
 import { ZodError, z } from "zod";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
@@ -18,7 +18,10 @@ import {
   sampleDutyPct,
   samplesFromLog,
   sizeParsedFuelSystem,
+  shopBsfcTable,
   suggestMapping,
+  ASPIRATIONS,
+  type Aspiration,
   type PullContext,
 } from "@/lib/calc";
 import { getObject } from "@/lib/storage";
@@ -92,4 +95,12 @@ export async function verifyWithDatalog(shopId: string, userId: string, id: stri
   const saved = await saveBuild(shopId, b.id, userId, b.version, { status: "verified", note: `Verified with dyno log ${d.fileName}`, inputs: b.inputs, result: sizeParsedFuelSystem(input), calcVersion: CALC_VERSION });
   await markDatalogVerified(shopId, userId, id);
   return saved;
+}
+
+/** The shop's measured BSFC by fuel class and aspiration, from its verified builds. */
+export async function shopBsfc(shopId: string) {
+  const points = (await verifiedBsfcPoints(shopId)).flatMap((p) =>
+    p.gPerKwh !== null && p.ethanolVolPct !== null && (ASPIRATIONS as readonly string[]).includes(p.aspiration) ? [{ buildId: p.buildId, gPerKwh: p.gPerKwh, ethanolVolPct: p.ethanolVolPct, aspiration: p.aspiration as Aspiration }] : [],
+  );
+  return shopBsfcTable(points);
 }

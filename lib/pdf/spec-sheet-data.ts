@@ -1,5 +1,6 @@
 import "server-only";
 import { getBuild, getRevision } from "@/db/queries/builds";
+import { latestVerifiedDatalog } from "@/db/queries/datalogs";
 import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
@@ -13,7 +14,7 @@ export async function specSheetData(shopId: string, buildId: string, opts: { ver
   if (!row) throw new NotFoundError("That build");
   const rev = await getRevision(shopId, buildId, opts.version ?? row.build.version);
   if (!rev) throw new NotFoundError(`Version ${opts.version} of that build`);
-  const [settings, logo] = await Promise.all([getShopSettings(shopId), pdfLogo(shopId)]);
+  const [settings, logo, log] = await Promise.all([getShopSettings(shopId), pdfLogo(shopId), rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null]);
   const input = FuelSystemInputSchema.parse(rev.inputs);
   const stored = rev.result as FuelSystemResult | null;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
@@ -26,6 +27,7 @@ export async function specSheetData(shopId: string, buildId: string, opts: { ver
     result,
     parts: rev.parts,
     units,
+    verification: log?.analysis && log.verifiedAt ? { fileName: log.fileName, verifiedAt: log.verifiedAt, analysis: log.analysis as NonNullable<SpecSheetData["verification"]>["analysis"] } : null,
   };
 }
 

@@ -1,5 +1,5 @@
 import { Document, Page, Polyline, Line as SvgLine, StyleSheet, Svg, Text, View, renderToBuffer, Text as SvgText } from "@react-pdf/renderer";
-import { converter, dutyAcrossRpm, pumpSupplyCurve, toShown, type FuelSystemResult, type ParsedFuelSystemInput, type Quantity, type UnitSystem } from "@/lib/calc";
+import { converter, dutyAcrossRpm, pumpSupplyCurve, toShown, type FuelSystemResult, type ParsedFuelSystemInput, type PullAnalysis, type Quantity, type UnitSystem } from "@/lib/calc";
 import type { ChosenPart } from "@/db/schema/builds";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 import { COPPER, Letterhead, MUTED, base, pdfText, type PdfShop } from "./common";
@@ -19,6 +19,43 @@ export interface SpecSheetData {
   result: FuelSystemResult;
   parts: ChosenPart[];
   units: UnitSystem;
+  /** On a verified revision: the dyno log it was verified with, and what that log measured. */
+  verification?: { fileName: string; verifiedAt: Date; analysis: PullAnalysis & { ethanolPct: number; targetLambda: number; predictedPeakDutyPct: number } } | null;
+}
+
+/** Measured on the dyno beside the sizing's prediction. */
+function Verification({ v, r, q, n }: { v: NonNullable<SpecSheetData["verification"]>; r: FuelSystemResult; q: (quantity: Quantity, x: number) => string; n: (x: number, dp?: number) => string }) {
+  const a = v.analysis;
+  const cell = { width: "33%" } as const;
+  const rows: [string, string, string][] = [
+    ["Peak injector duty", `${n(a.predictedPeakDutyPct, 1)} % at redline`, a.peakDuty ? `${n(a.peakDuty.pct, 1)} % at ${n(a.peakDuty.rpm)} rpm` : "not logged"],
+    ["Fuel flow at peak duty", q("volumeFlow", r.fuelVolumeFlowLPerH), a.measuredFlow ? q("volumeFlow", (a.measuredFlow.ccPerMin * 60) / 1000) : "not logged"],
+    ["BSFC", `${n(r.blend.rich.bsfcGPerKwh)} g/kWh`, a.measuredBsfc ? `${n(a.measuredBsfc.gPerKwh)} g/kWh at ${q("power", a.measuredBsfc.powerKw)}` : "power not logged"],
+    ["Lambda under load", `target ${n(a.targetLambda, 2)}`, a.lambda ? `mean error ${n(a.lambda.meanAbsError, 3)}, worst ${a.lambda.worstError >= 0 ? "+" : ""}${n(a.lambda.worstError, 3)} at ${n(a.lambda.worstAtRpm)} rpm` : "not logged"],
+    ["Fuel-pressure differential", "held by the regulator", a.fuelPressure ? `${q("pressure", a.fuelPressure.lowBoostDiffKpa)} falling to ${q("pressure", a.fuelPressure.fullBoostDiffKpa)} at full boost` : "not logged"],
+    ["Ethanol content", `E${n(r.blend.rich.ethanolVolPct)} (rich end)`, `E${n(a.ethanolPct)}`],
+  ];
+  return (
+    <View wrap={false}>
+      <Text style={s.h2}>Measured on the dyno</Text>
+      <Text style={s.muted}>{pdfText(`Verified ${v.verifiedAt.toISOString().slice(0, 10)} with the log ${v.fileName} (${a.samples} samples).`)}</Text>
+      <View style={[s.row, { fontWeight: 700, marginTop: 3 }]}>
+        <Text style={cell}>Figure</Text>
+        <Text style={cell}>Predicted</Text>
+        <Text style={cell}>Measured</Text>
+      </View>
+      {rows.map(([label, predicted, measured]) => (
+        <View style={s.row} key={label}>
+          <Text style={cell}>{label}</Text>
+          <Text style={cell}>{predicted}</Text>
+          <Text style={cell}>{pdfText(measured)}</Text>
+        </View>
+      ))}
+      {a.warnings.map((w) => (
+        <Text key={w.code}><Text style={{ fontWeight: 700 }}>{w.severity === "danger" ? "DANGER" : "Caution"} (log): </Text>{pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}</Text>
+      ))}
+    </View>
+  );
 }
 
 /** A small vector line chart: series of [x, y] in data units, drawn into a w × h box. */
@@ -108,6 +145,8 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           <Chart title="Injector duty across engine speed" xLabel="rpm" yLabel="duty %" refY={r.limits.dutyDangerPct} series={[{ name: `E${input.fuel.ethanolMaxVolPct}`, color: COPPER, points: rpm.map((p) => [p.rpm, p.dutyPctRich]) }, { name: `E${input.fuel.ethanolMinVolPct}`, color: MUTED, points: rpm.map((p) => [p.rpm, p.dutyPctLean]) }]} />
           <Chart title="Pump supply against demand" xLabel={`pressure (${converter("pressure", units).unit})`} yLabel={`flow (${converter("volumeFlow", units).unit})`} series={[{ name: "supply", color: COPPER, points: pump.map((p) => [P(p.pressureKpa), F(p.supplyLPerH)]) }, { name: "demand", color: MUTED, points: pump.map((p) => [P(p.pressureKpa), F(p.demandLPerH)]) }]} />
         </View>
+
+        {d.verification ? <Verification v={d.verification} r={r} q={q} n={n} /> : null}
 
         <Text style={s.h2}>Chosen parts</Text>
         {d.parts.length === 0 ? <Text style={s.muted}>No parts chosen from the catalog yet.</Text> : d.parts.map((p) => <Text key={p.role + p.partId}>{p.quantity} × {p.name} ({p.sku}) — {p.role.replace("-", " ")}</Text>)}

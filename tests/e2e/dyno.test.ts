@@ -15,10 +15,10 @@ afterAll(async () => {
 
 /** A pull generated in the test: duty 40 → 80 % over 3000–7000 rpm, lambda 0.80, MAP in psi absolute. */
 function pullCsv() {
-  const rows = ["Engine RPM,Inj Duty,Lambda,MAP,Fuel Pressure", "rpm,%,lambda,psi,psi"];
+  const rows = ["Engine RPM,Inj Duty,Lambda,MAP,Fuel Pressure,Power", "rpm,%,lambda,psi,psi,kW"];
   for (let i = 0; i <= 80; i++) {
     const map = 14.7 + 20 * Math.min(1, (i / 80) * 1.5);
-    rows.push(`${3000 + i * 50},${(40 + (40 * i) / 80).toFixed(2)},0.80,${map.toFixed(2)},${(map - 14.7 + 43.5).toFixed(2)}`);
+    rows.push(`${3000 + i * 50},${(40 + (40 * i) / 80).toFixed(2)},0.80,${map.toFixed(2)},${(map - 14.7 + 43.5).toFixed(2)},${(150 + i * 2).toFixed(1)}`);
   }
   return rows.join("\n") + "\n";
 }
@@ -56,6 +56,19 @@ describe("dyno verification", () => {
     const [row] = await sql`select status from builds where id = ${id}`;
     expect(row!.status).toBe("verified");
     expect((await sql`select count(*)::int as n from datalogs where build_id = ${id} and verified_at is not null`)[0]!.n).toBe(1);
+
+    // The shop has learnt: the build sheet offers its measured BSFC beside the rule of thumb.
+    const table = (await request(tuner, "GET", "/api/v1/shop/bsfc")).json.rows as { fuel: string; aspiration: string; builds: number; meanGPerKwh: number }[];
+    const learnt = table.find((r) => r.fuel === "e85" && r.aspiration === "boosted")!;
+    expect(learnt.builds).toBeGreaterThanOrEqual(1);
+    // This build's log logged power, so it is one of them.
+    expect((await sql`select (analysis -> 'measuredBsfc' ->> 'gPerKwh')::float8 as g from datalogs where build_id = ${id}`)[0]!.g).toBeGreaterThan(150);
+    await page.goto(`/builds/${id}`);
+    await page.getByRole("radio", { name: /Metric/ }).click();
+    const offer = page.getByRole("button", { name: `Use this shop's measured BSFC (${learnt.builds} ${learnt.builds === 1 ? "build" : "builds"})` });
+    await offer.click();
+    await expect.poll(() => page.getByLabel(/^BSFC/).inputValue()).toBe(String(Math.round(learnt.meanGPerKwh)));
+    await expect.poll(() => page.getByText("✓ Using this shop's measured BSFC").count()).toBe(1);
     await ctx.close();
   });
 });

@@ -2,7 +2,8 @@ import { createHash } from "node:crypto";
 import { request as httpRequest } from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
-import { DatalogMappingSchema } from "@/lib/calc";
+import { DatalogMappingSchema, FuelSystemInputSchema, flowFromDuty, fuelBlend, type ShopBsfcRow } from "@/lib/calc";
+import { inspectPdf } from "../helpers/pdf";
 import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
 
 const BUILD = "10000000-0000-4000-8000-000000000002"; // demo turbo six on E85 (db/seed.ts)
@@ -89,6 +90,8 @@ function pullCsv(order: "a" | "b" = "a") {
 
 describe("datalog analysis", () => {
   it("maps columns, analyses against the build, and remembers the mapping for the next log from the same logger", async () => {
+    // Re-runnable on a kept test database: this logger starts unknown.
+    await sql`delete from datalog_mappings where shop_id = 'demo-shop-ridgeback'`;
     const first = await (await upload(tuner, pullCsv("a"))).json();
     const view = await request(tuner, "GET", `/api/v1/datalogs/${first.datalog.id}`);
     expect(view.status).toBe(200);
@@ -111,5 +114,72 @@ describe("datalog analysis", () => {
     expect(again.json.mapping).toEqual(JSON.parse(JSON.stringify(DatalogMappingSchema.parse(mapping))));
     expect((await request(counter, "POST", `/api/v1/datalogs/${first.datalog.id}/analysis`, { mapping })).status).toBe(403);
     expect((await request(outsider, "GET", `/api/v1/datalogs/${first.datalog.id}`)).status).toBe(404);
+  });
+});
+
+describe("the shop learns its own BSFC from verified builds", () => {
+  /** A fitted build made from the demo turbo six (E51–E83), with a pull whose logged power puts BSFC at `bsfc`. */
+  async function verifiedBuild(bsfc: number, tag: string) {
+    const [demo] = await sql`select customer_id, inputs from builds where id = ${BUILD}`;
+    const made = await request(tuner, "POST", "/api/v1/builds", { customerId: demo!.customer_id, title: `BSFC learning ${tag}`, inputs: demo!.inputs });
+    expect(made.status).toBe(201);
+    const id = made.json.build.id as string;
+    await sql`update builds set status = 'fitted' where id = ${id}`;
+    const input = FuelSystemInputSchema.parse(demo!.inputs);
+    const ctx = { injectorCount: input.injectors.count, ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin, ratedPressureKpa: input.injectors.ratedPressureKpa, densityKgPerL: fuelBlend(input.fuel.ethanolMaxVolPct).densityKgPerL, targetLambda: 0.8, dutyDangerPct: 90 };
+    // Power at each sample chosen so that fuel mass flow ÷ power is `bsfc` at the top (BSFC = ṁ / P, calc-spec §1).
+    const rows = ["RPM,Inj Duty,Lambda,Fuel Diff,Power", "rpm,%,lambda,kPa,kW"];
+    for (let i = 0; i <= 40; i++) {
+      const duty = 40 + i;
+      const kw = (flowFromDuty(duty, 300, ctx).gPerMin * 60) / bsfc;
+      rows.push(`${3000 + i * 100},${duty},0.80,300,${kw.toFixed(4)}`);
+    }
+    const up = await fetch(`${BASE_URL}/api/v1/builds/${id}/datalogs`, { method: "POST", body: rows.join("\n") + "\n", headers: { cookie: tuner.cookie, origin: BASE_URL, "x-forwarded-for": tuner.ip, "content-type": "text/csv", "x-file-name": `learn-${tag}.csv` } });
+    expect(up.status).toBe(201);
+    const log = (await up.json()).datalog.id as string;
+    const mapping = { rpm: "RPM", duty: { column: "Inj Duty", kind: "duty_pct" }, mixture: { column: "Lambda", kind: "lambda" }, fuelPressure: { column: "Fuel Diff", kind: "differential", unit: "kPa" }, power: { column: "Power", unit: "kW" } };
+    const a = await request(tuner, "POST", `/api/v1/datalogs/${log}/analysis`, { mapping });
+    expect(a.status).toBe(200);
+    expect(a.json.analysis.measuredBsfc.gPerKwh).toBeCloseTo(bsfc, 1);
+    expect((await request(tuner, "POST", `/api/v1/datalogs/${log}/verify`)).status).toBe(200);
+    return id;
+  }
+  const boostedE85 = (rows: ShopBsfcRow[]) => rows.find((r) => r.fuel === "e85" && r.aspiration === "boosted") ?? { builds: 0, meanGPerKwh: 0 };
+
+  it("verified builds with logged power feed the table by fuel and aspiration, within the shop only", async () => {
+    const before = boostedE85((await request(tuner, "GET", "/api/v1/shop/bsfc")).json.rows);
+    const tag = Date.now().toString(36);
+    const a = await verifiedBuild(470, `${tag}-a`);
+    await verifiedBuild(530, `${tag}-b`);
+    const after = (await request(counter, "GET", "/api/v1/shop/bsfc")).json.rows as ShopBsfcRow[];
+    const row = boostedE85(after);
+    expect(row.builds).toBe(before.builds + 2);
+    // The mean over builds (plain arithmetic, common practice, no source).
+    expect(row.meanGPerKwh).toBeCloseTo((before.meanGPerKwh * before.builds + 470 + 530) / (before.builds + 2), 1);
+    // Other shops learn nothing from this one; customers do not read it.
+    expect((await request(outsider, "GET", "/api/v1/shop/bsfc")).json.rows).toEqual([]);
+    expect((await request(customer, "GET", "/api/v1/shop/bsfc")).status).toBe(403);
+    // The build page offers the figure beside the rule of thumb.
+    const page = await fetch(`${BASE_URL}/builds/${a}`, { headers: { cookie: tuner.cookie, "x-forwarded-for": tuner.ip } });
+    const html = (await page.text()).replace(/<!-- -->/g, "");
+    expect(html.includes(`Use this shop&#x27;s measured BSFC (${row.builds} builds)`), "the offer on the build page").toBe(true);
+    // Settings lists the table beside the rule of thumb.
+    const settings = (await (await fetch(`${BASE_URL}/settings`, { headers: { cookie: counter.cookie, "x-forwarded-for": counter.ip } })).text()).replace(/<!-- -->/g, "");
+    expect(settings).toContain("Measured BSFC from verified builds");
+    expect(settings).toContain(`${Math.round(row.meanGPerKwh)} g/kWh`);
+    // A build moved back to draft stops counting.
+    const cur = await request(tuner, "GET", `/api/v1/builds/${a}`);
+    expect((await request(tuner, "PATCH", `/api/v1/builds/${a}`, { version: cur.json.build.version, status: "draft", inputs: cur.json.build.inputs })).status).toBe(200);
+    expect(boostedE85((await request(tuner, "GET", "/api/v1/shop/bsfc")).json.rows).builds).toBe(before.builds + 1);
+  });
+
+  it("a verified build's spec sheet shows the measured figures beside the predicted", async () => {
+    const id = await verifiedBuild(500, `${Date.now().toString(36)}-pdf`);
+    const pdf = await getBytes(counter, `/api/v1/builds/${id}/spec-sheet`);
+    expect(pdf.status).toBe(200);
+    const flat = inspectPdf(pdf.bytes).text.replace(/\s+/g, " ");
+    expect(flat).toContain("Measured on the dyno");
+    expect(flat).toMatch(/Peak injector duty [\d.]+ % at redline 80\.0 % at 7000 rpm/);
+    expect(flat).toContain("500 g/kWh at");
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { FuelSystemInputSchema, sizeParsedFuelSystem, toShown } from "@/lib/calc";
+import { FuelSystemInputSchema, analyzePull, fuelBlend, sizeParsedFuelSystem, toShown } from "@/lib/calc";
 import { renderSpecSheet, type SpecSheetData } from "@/lib/pdf/spec-sheet";
 import { SAFETY_POINTS } from "@/lib/safety";
 import { boostedSix, naFour } from "../calc/fixtures";
@@ -48,5 +48,26 @@ describe("spec sheet PDF", () => {
     expect(flat).toContain(`${toShown("power", d.result.powerCeiling.kw, "imperial")} hp`);
     expect(flat).toContain("psi");
     expect(flat).toContain("No parts chosen from the catalog yet.");
+  });
+
+  it("a verified build shows the dyno's measured figures beside the predicted ones", async () => {
+    const plain = sheet(boostedSix);
+    // A pull made in the test: duty rising to 70 % at 7000 rpm, lambda 0.80, power logged (no outside source: the
+    // sheet must print what the analysis found).
+    const input = plain.input;
+    const samples = Array.from({ length: 41 }, (_, i) => ({ rpm: 3000 + i * 100, dutyPct: 30 + i, lambda: 0.8, boostKpa: 100, fuelDiffKpa: 300, powerKw: 100 + i * 5 }));
+    const analysis = analyzePull(samples, { injectorCount: input.injectors.count, ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin, ratedPressureKpa: input.injectors.ratedPressureKpa, densityKgPerL: fuelBlend(80).densityKgPerL, targetLambda: 0.8, dutyDangerPct: 85 });
+    const d = sheet(boostedSix, { verification: { fileName: "pull-7.csv", verifiedAt: new Date("2026-12-01T12:00:00Z"), analysis: { ...analysis, ethanolPct: 80, targetLambda: 0.8, predictedPeakDutyPct: plain.result.blend.rich.dutyPct } } });
+    const { text, pages } = inspectPdf(await renderSpecSheet(d));
+    expect(pages).toBeLessThanOrEqual(2);
+    const flat = text.replace(/\s+/g, " ");
+    expect(flat).toContain("Measured on the dyno");
+    expect(flat).toContain("pull-7.csv");
+    expect(flat).toContain(`${plain.result.blend.rich.dutyPct.toFixed(1)} % at redline`);
+    expect(flat).toContain("70.0 % at 7000 rpm");
+    expect(flat).toContain(`${analysis.measuredBsfc!.gPerKwh.toFixed(0)} g/kWh at 300 kW`);
+    expect(flat).toContain("E80");
+    // An unverified sheet has no such section.
+    expect(inspectPdf(await renderSpecSheet(plain)).text).not.toContain("Measured on the dyno");
   });
 });

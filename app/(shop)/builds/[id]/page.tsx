@@ -8,6 +8,7 @@ import { SafetyNote } from "@/components/tools/safety-note";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
+import { shopBsfc } from "@/lib/dyno/service";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/validations/builds";
@@ -19,7 +20,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const { id } = await params;
   const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
   if (!row) notFound();
-  const revisions = await listRevisions(m.shopId, id);
+  const [revisions, bsfcRows] = await Promise.all([listRevisions(m.shopId, id), shopBsfc(m.shopId)]);
   const b = row.build;
   return (
     <>
@@ -40,6 +41,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         inputs={b.inputs as FuelSystemInput}
         readOnly={!can(m.role, "builds:write")}
         units={await unitSystemOf(m.user.id, m.shopId)}
+        shopBsfc={bsfcRows}
       />
       <section aria-labelledby="revs" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
         <h2 id="revs" className="text-xl font-semibold">Revisions</h2>
