@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+import { API_CSP, COMMON_HEADERS } from "./lib/http/security";
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
@@ -6,6 +7,13 @@ const nextConfig: NextConfig = {
   distDir: process.env.NEXT_DIST_DIR || ".next",
   // The builds live in the checkout; keep Turbopack from guessing a workspace root above it.
   turbopack: { root: import.meta.dirname },
+  // Pages get their nonce CSP from proxy.ts; these go on every response.
+  async headers() {
+    return [
+      { source: "/:path*", headers: COMMON_HEADERS },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: API_CSP }] },
+    ];
+  },
 };
 
 export default nextConfig;

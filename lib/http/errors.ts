@@ -30,9 +30,16 @@ export function errorResponse(err: unknown): Response {
   return Response.json({ error: { code: "internal", message: "Something went wrong on our side" } }, { status: 500 });
 }
 
-function isDatabaseDown(err: unknown): boolean {
-  const code = (err as { code?: string } | null)?.code;
-  return code === "ECONNREFUSED" || code === "CONNECT_TIMEOUT" || code === "57P01" || code === "57P03";
+const DB_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
+
+/** Is this (or what caused it: drizzle and better-auth wrap driver errors) the database being away? */
+export function isDatabaseDown(err: unknown): boolean {
+  for (let e = err, depth = 0; e && typeof e === "object" && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === "string" && DB_DOWN_CODES.has(code)) return true;
+    if (e instanceof AggregateError && e.errors.some((x) => isDatabaseDown(x))) return true;
+  }
+  return false;
 }
 
 const MAX_BODY_BYTES = 256 * 1024;
