@@ -38,16 +38,16 @@ export function memberAction<S extends z.ZodType>(
     try {
       member = await requireMember(action);
     } catch (e) {
-      if (e instanceof HttpError) return { ok: false, message: e.message, values };
+      if (e instanceof HttpError) return { ok: false, status: e.status, message: e.message, values };
       throw e;
     }
     const parsed = schema.safeParse(values);
-    if (!parsed.success) return { ok: false, message: "Check the highlighted fields", fieldErrors: fieldErrorsOf(parsed.error), values };
+    if (!parsed.success) return { ok: false, status: 422, message: "Check the highlighted fields", fieldErrors: fieldErrorsOf(parsed.error), values };
     try {
       return (await run(parsed.data, member, form)) ?? { ok: true };
     } catch (e) {
       unstable_rethrow(e); // redirect() and notFound() are control flow, not failures
-      if (e instanceof HttpError) return { ok: false, message: e.message, values };
+      if (e instanceof HttpError) return { ok: false, status: e.status, message: e.message, values };
       console.error(e);
       return { ok: false, message: "Saving failed on our side; your entries are kept — try again", values };
     }

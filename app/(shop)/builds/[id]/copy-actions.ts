@@ -10,13 +10,13 @@ import { sizeForSave } from "@/lib/builds/service";
 import type { FuelSystemInput } from "@/lib/calc";
 
 /** "Power step": a new build for the same car, starting from this build's inputs. */
-export async function copyBuildAction(buildId: string): Promise<{ ok: false; message: string }> {
+export async function copyBuildAction(buildId: string): Promise<{ ok: false; status: number; message: string }> {
   let target: string;
   try {
     const m = await requireMember("builds:write");
     const id = z.uuid().parse(buildId);
     const row = await getBuild(m.shopId, id);
-    if (!row) return { ok: false, message: "That build was not found" };
+    if (!row) return { ok: false, status: 404, message: "That build was not found" };
     const copy = await createBuild(m.shopId, m.user.id, {
       customerId: row.build.customerId,
       title: `${row.build.title} — next step`.slice(0, 120),
@@ -26,8 +26,8 @@ export async function copyBuildAction(buildId: string): Promise<{ ok: false; mes
     revalidatePath("/builds");
     target = `/builds/${copy.id}`;
   } catch (e) {
-    if (e instanceof HttpError) return { ok: false, message: e.message };
-    if (e instanceof z.ZodError) return { ok: false, message: "That build was not found" };
+    if (e instanceof HttpError) return { ok: false, status: e.status, message: e.message };
+    if (e instanceof z.ZodError) return { ok: false, status: 404, message: "That build was not found" };
     throw e;
   }
   redirect(target);
