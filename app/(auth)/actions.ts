@@ -9,6 +9,7 @@ import type { ActionState } from "@/lib/actions/state";
 import { auth } from "@/lib/auth";
 import { currentMember } from "@/lib/auth/member";
 import { AcceptInvitationSchema, SignUpSchema } from "@/lib/validations/auth";
+import { z } from "zod";
 
 /** Sign-up: a new account and a new shop, with the new user as its owner. */
 export async function signUpAction(_prev: ActionState, form: FormData): Promise<ActionState> {
@@ -63,6 +64,7 @@ export async function acceptInvitationAction(_prev: ActionState, form: FormData)
 
 /** Someone already signed in accepts an invitation sent to their own address. */
 export async function acceptAsSignedInAction(invitationId: string): Promise<ActionState> {
+  if (!z.string().min(1).max(100).safeParse(invitationId).success) return { ok: false, status: 404, message: "Invitation not found" };
   const m = await currentMember();
   const session = await auth.api.getSession({ headers: await headers() });
   const inv = await getInvitation(invitationId);

@@ -30,11 +30,25 @@ export function imageInfo(b: Buffer): ImageInfo | null {
   return null;
 }
 
+const PNG_IEND = Buffer.from([0x00, 0x00, 0x00, 0x00, 0x49, 0x45, 0x4e, 0x44, 0xae, 0x42, 0x60, 0x82]);
+
+/**
+ * Is the file whole? A PNG ends with its empty IEND chunk (PNG spec, ISO/IEC 15948, 11.2.5);
+ * a JPEG's image ends with the EOI marker FF D9 (ITU-T T.81, B.2.1), which some writers follow
+ * with padding, so it is looked for near the end.
+ */
+export function isComplete(b: Buffer, info: ImageInfo): boolean {
+  if (info.contentType === "image/png") return b.length >= PNG_IEND.length + 33 && b.subarray(b.length - PNG_IEND.length).equals(PNG_IEND);
+  const eoi = b.lastIndexOf(Buffer.from([0xff, 0xd9]));
+  return eoi > 2 && b.length - eoi <= 4096;
+}
+
 /** Checks a logo upload; the message says what to do instead. */
 export function checkLogo(b: Buffer): { ok: true; info: ImageInfo } | { ok: false; message: string } {
   if (b.length > LOGO_MAX_BYTES) return { ok: false, message: "The logo is larger than 1 MB; save it smaller" };
   const info = imageInfo(b);
   if (!info) return { ok: false, message: "The logo must be a PNG or JPEG image" };
+  if (!isComplete(b, info)) return { ok: false, message: "The logo file is cut short (the upload was incomplete or the file is damaged); save it again" };
   if (info.width < 16 || info.height < 16) return { ok: false, message: "The logo is smaller than 16 × 16 pixels" };
   if (info.width > LOGO_MAX_SIDE || info.height > LOGO_MAX_SIDE) return { ok: false, message: `The logo is larger than ${LOGO_MAX_SIDE} pixels on a side` };
   return { ok: true, info };

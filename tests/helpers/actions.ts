@@ -32,6 +32,7 @@ function pagePath(worker: string): string {
 
 /** The state an action returned, read from the flight response (the line carrying `"ok":`). */
 export interface ActionResult {
+  /** 0 when React's encoder itself refused the arguments (a browser could not send them either). */
   http: number;
   state: { ok: boolean; status?: number; message?: string } | null;
   /** The action ended in a redirect (a success for create-and-go actions). */
@@ -40,7 +41,12 @@ export interface ActionResult {
 
 /** Calls a server action over HTTP the way the browser does. */
 export async function callAction(client: Client | null, ref: ActionRef, args: unknown[]): Promise<ActionResult> {
-  const body = await encodeReply(args);
+  let body: string | FormData;
+  try {
+    body = await encodeReply(args);
+  } catch {
+    return { http: 0, state: null, redirect: null };
+  }
   const res = await fetch(`${BASE_URL}${ref.page}`, {
     method: "POST",
     redirect: "manual",

@@ -53,6 +53,13 @@ describe("logo checks", () => {
     // A minimal JPEG header: SOI, APP0 (JFIF), SOF0 with height 48 and width 96 (ITU-T T.81, B.2.2).
     const jpeg = Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00, 0xff, 0xc0, 0x00, 0x11, 0x08, 0x00, 0x30, 0x00, 0x60, 0x03, 0x01, 0x22, 0x00, 0x02, 0x11, 0x01, 0x03, 0x11, 0x01]);
     expect(imageInfo(jpeg)).toEqual({ contentType: "image/jpeg", width: 96, height: 48 });
+    // A file cut short is refused: a JPEG without its EOI marker (ITU-T T.81, B.2.1), a PNG
+    // without its final IEND chunk (PNG spec, ISO/IEC 15948, 11.2.5).
+    expect(checkLogo(jpeg)).toMatchObject({ ok: false, message: expect.stringMatching(/cut short/) });
+    expect(checkLogo(Buffer.concat([jpeg, Buffer.from([0xff, 0xd9])]))).toMatchObject({ ok: true });
+    const whole = solidPng(32, 32);
+    expect(checkLogo(whole)).toMatchObject({ ok: true });
+    expect(checkLogo(whole.subarray(0, whole.length - 6))).toMatchObject({ ok: false, message: expect.stringMatching(/cut short/) });
   });
 
   it("refuses what is not an image, too small, too large or too many pixels", () => {
