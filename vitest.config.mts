@@ -15,6 +15,11 @@ export default defineConfig({
       },
       {
         resolve: { alias },
+        // App instances started and killed by the tests, the database stopped under them: run alone, after the rest.
+        test: { name: "system", include: ["tests/system/**/*.test.ts"], fileParallelism: false, testTimeout: 120000, hookTimeout: 180000 },
+      },
+      {
+        resolve: { alias },
         // Polls wait up to 10 s: a loaded CI machine answers slower than this one.
         test: { name: "e2e", include: ["tests/e2e/**/*.test.ts"], fileParallelism: false, testTimeout: 90000, hookTimeout: 120000, expect: { poll: { timeout: 10000, interval: 100 } } },
       },

@@ -9,6 +9,8 @@ export interface Datalog {
   rows: (number | null)[][];
   delimiter: "," | ";" | "\t";
   decimalComma: boolean;
+  /** The file stopped mid-row (an interrupted export or upload): that last, partial row was left out. */
+  cutShort: boolean;
 }
 
 export class DatalogError extends Error {
@@ -56,12 +58,16 @@ export function parseDatalog(text: string): Datalog {
     units = headers.map((_, i) => lines[1]![i]?.trim() || null);
     start = 2;
   }
+  // A file cut off mid-row ends without a newline on a row shorter than the headers: leave that row out.
+  const cutShort = lines.length > start && !/\r?\n\s*$/.test(body) && lines[lines.length - 1]!.length < headers.length;
+  const end = cutShort ? lines.length - 1 : lines.length;
+  if (cutShort && end <= start) throw new DatalogError("The log is cut short: its only data row is incomplete. Export it again");
   const rows: (number | null)[][] = [];
-  for (let i = start; i < lines.length; i++) {
+  for (let i = start; i < end; i++) {
     const cells = lines[i]!;
     if (cells.length > DATALOG_MAX_COLUMNS) throw new DatalogError(`Line ${i + 1} has more than ${DATALOG_MAX_COLUMNS} columns`, i + 1);
     rows.push(headers.map((_, c) => toNumber(cells[c] ?? "", decimalComma)));
   }
   if (!rows.some((r) => r.some((v) => v !== null))) throw new DatalogError("No numbers were found under the headers");
-  return { headers, units, rows, delimiter, decimalComma };
+  return { headers, units, rows, delimiter, decimalComma, cutShort };
 }

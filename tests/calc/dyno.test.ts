@@ -90,6 +90,16 @@ describe("datalog parser", () => {
     expect(() => parseDatalog(`${Array.from({ length: 600 }, (_, i) => `c${i}`).join(",")}\n1,2\n`)).toThrow("more than 500 columns");
     expect(() => parseDatalog("rpm,duty\nx,y\nz,w\n")).toThrow("No numbers");
   });
+
+  it("a file cut off mid-row loses only that partial row, and says so (common practice, no source)", () => {
+    const cut = parseDatalog("rpm,duty,lambda\n3000,40,0.80\n3100,41,0.79\n3200,4");
+    expect(cut.rows).toEqual([[3000, 40, 0.8], [3100, 41, 0.79]]);
+    expect(cut.cutShort).toBe(true);
+    // A last row without a newline but complete is kept.
+    expect(parseDatalog("rpm,duty\n3000,40\n3100,41").rows).toHaveLength(2);
+    expect(parseDatalog("rpm,duty\n3000,40\n3100,41").cutShort).toBe(false);
+    expect(() => parseDatalog("rpm,duty\n3000")).toThrow("cut short");
+  });
 });
 
 describe("column mapping", () => {
