@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # npm test: the same set-up on a fresh, separate test database, then every suite:
-# lint, typecheck, vitest unit + integration, a production build, browser end-to-end tests.
+# lint, typecheck, vitest unit + integration, a production build, browser end-to-end tests,
+# then the system suites (app instances, faults, backup) on their own.
 # Ends with one line: "N passed, N failed".
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
@@ -29,6 +30,7 @@ start_payment_fake "$TEST_PAYMENTS_PORT" "http://127.0.0.1:$TEST_APP_PORT/api/we
 rm -rf .data/s3-test
 start_s3_fake 4579 .data/s3-test
 mkdir -p test-results
+rm -f test-results/vitest.json test-results/vitest-system.json
 
 check "lint (eslint)" node node_modules/eslint/bin/eslint.js . --max-warnings=0
 check "typecheck (tsc)" node node_modules/typescript/bin/tsc --noEmit
@@ -51,10 +53,25 @@ node node_modules/vitest/vitest.mjs run "${PROJECTS[@]}" --reporter=default --re
 VITEST_RC=$?
 [ "$APP_UP" = 1 ] || CHECK_FAILED=$((CHECK_FAILED + 1))
 
-read -r V_PASSED V_FAILED < <(node -e '
-  try { const r = require("./test-results/vitest.json"); console.log(r.numPassedTests, r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0) + r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length); }
-  catch { console.log("0 1"); }')
+# System suites last and alone: they start and kill their own app instances and stop the
+# database cluster under them.
+SYSTEM_RC=1
+if [ -f .next-test/BUILD_ID ]; then
+  say "── vitest: system (instances, faults, backup)"
+  node node_modules/vitest/vitest.mjs run --project system --reporter=default --reporter=json --outputFile=test-results/vitest-system.json
+  SYSTEM_RC=$?
+fi
+
+totals() { # totals FILE → "passed failed"
+  node -e '
+    try { const r = require(process.argv[1]); console.log(r.numPassedTests, r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0) + r.testResults.filter((t) => t.status === "failed" && t.assertionResults.length === 0).length); }
+    catch { console.log("0 1"); }' "$1"
+}
+read -r V_PASSED V_FAILED < <(totals ./test-results/vitest.json)
 [ "$VITEST_RC" != 0 ] && [ "$V_FAILED" = 0 ] && V_FAILED=1
+read -r S_PASSED S_FAILED < <(totals ./test-results/vitest-system.json)
+[ "$SYSTEM_RC" != 0 ] && [ "$S_FAILED" = 0 ] && S_FAILED=1
+V_PASSED=$((V_PASSED + S_PASSED)); V_FAILED=$((V_FAILED + S_FAILED))
 
 PASSED=$((V_PASSED + CHECK_PASSED)); FAILED=$((V_FAILED + CHECK_FAILED))
 echo

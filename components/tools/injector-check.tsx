@@ -52,7 +52,11 @@ export function InjectorCheck() {
         <div>
           <dt className="text-xs text-ink-600">Duty at target</dt>
           <dd className="figure text-2xl font-bold" data-testid="quick-duty">{out ? `${out.duty.toFixed(1)} %` : "—"}</dd>
-          {out ? <Signal level={level}>{word}</Signal> : null}
+          {out ? (
+            <dd>
+              <Signal level={level}>{word}</Signal>
+            </dd>
+          ) : null}
         </div>
         <div>
           <dt className="text-xs text-ink-600">Smallest rating</dt>

@@ -3,6 +3,8 @@ import { sql } from "drizzle-orm";
 import { db } from "@/db";
 
 const TTL_MS = 1000;
+/** While the database is away, ask again sooner, so pages come back as soon as it does. */
+const DOWN_TTL_MS = 250;
 let last: { at: number; ok: boolean; pending?: Promise<boolean> } = { at: 0, ok: true };
 
 /**
@@ -11,7 +13,7 @@ let last: { at: number; ok: boolean; pending?: Promise<boolean> } = { at: 0, ok:
  */
 export async function databaseAnswering(): Promise<boolean> {
   const now = Date.now();
-  if (now - last.at < TTL_MS) return last.ok;
+  if (now - last.at < (last.ok ? TTL_MS : DOWN_TTL_MS)) return last.ok;
   if (last.pending) return last.pending;
   const probe = Promise.race([
     db.execute(sql`select 1`).then(() => true, () => false),

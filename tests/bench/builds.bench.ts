@@ -57,6 +57,10 @@ async function time(name: string, runs: number, fn: (i: number) => Promise<unkno
 }
 
 await seed();
+if (process.env.BENCH_SEED_ONLY) {
+  await sql.end();
+  process.exit(0);
+}
 const ids = (await sql`select id from builds where shop_id = ${SHOP} order by random() limit 500`).map((r) => r.id as string);
 const rareNames = Array.from({ length: 200 }, (_, i) => `${["aldana", "corvin", "gorski", "ibarra", "jessup"][i % 5]} ${((i * 47) % CUSTOMERS) + 1}`);
 const page2 = (await listBuilds(SHOP, { limit: 25 })).nextCursor!;

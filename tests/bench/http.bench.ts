@@ -1,0 +1,117 @@
+/**
+ * HTTP benchmark (npm run bench:http): autocannon against the production server on 100 000
+ * builds — the sizing API, the builds search, a build page and a spec-sheet PDF — at 1, 16 and
+ * 64 connections; the same sizing served by a bare node:http server as the floor. With --soak:
+ * moderate load for SOAK_SECONDS while the server's memory is sampled. Figures only, no pass/fail.
+ */
+import autocannon from "autocannon";
+import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
+import { createServer } from "node:http";
+import postgres from "postgres";
+import { FuelSystemInputSchema, sizeFuelSystem } from "../../lib/calc";
+
+const BASE = "http://127.0.0.1:3300";
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
+const soak = process.argv.includes("--soak");
+const sql = postgres(process.env.DATABASE_URL!, { max: 2, onnotice: () => {} });
+
+async function signIn(email: string) {
+  const res = await fetch(`${BASE}/api/auth/sign-in/email`, { method: "POST", headers: { "content-type": "application/json", origin: BASE }, body: JSON.stringify({ email, password: "fuelwright-demo" }) });
+  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
+  return res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+}
+
+const [tpl] = await sql`select id, inputs from builds where shop_id = 'demo-shop-ridgeback' and id = '10000000-0000-4000-8000-000000000002'`;
+const sizingBody = JSON.stringify(tpl!.inputs);
+const cookie = await signIn("tuner@demo.fuelwright.test");
+const auth = { cookie, origin: BASE, "content-type": "application/json" };
+
+interface Case {
+  name: string;
+  url: string;
+  method?: "GET" | "POST";
+  body?: string;
+  headers?: Record<string, string>;
+}
+const CASES: Case[] = [
+  { name: "POST /api/v1/calc/size", url: `${BASE}/api/v1/calc/size`, method: "POST", body: sizingBody, headers: auth },
+  { name: "GET /api/v1/builds?q=orca v8", url: `${BASE}/api/v1/builds?q=orca%20v8&limit=25`, headers: auth },
+  { name: "GET /builds/:id (page)", url: `${BASE}/builds/${tpl!.id}`, headers: auth },
+  { name: "GET spec-sheet PDF", url: `${BASE}/api/v1/builds/${tpl!.id}/spec-sheet`, headers: auth },
+];
+
+function run(c: Case, connections: number, duration = SECONDS) {
+  return new Promise<autocannon.Result>((resolve, reject) => {
+    autocannon({ url: c.url, method: c.method ?? "GET", body: c.body, headers: c.headers, connections, duration, timeout: 10 }, (err, res) => (err ? reject(err) : resolve(res)));
+  });
+}
+const row = (name: string, connections: number, r: autocannon.Result) => ({
+  case: name,
+  conns: connections,
+  "req/s": Math.round(r.requests.average),
+  "p50 ms": r.latency.p50,
+  "p99 ms": r.latency.p99,
+  errors: r.errors + r.timeouts + r.non2xx,
+});
+
+/** The floor: the same validation and sizing behind a bare node:http server. */
+function bareServer() {
+  const server = createServer((req, res) => {
+    let body = "";
+    req.on("data", (d) => (body += d));
+    req.on("end", () => {
+      const parsed = FuelSystemInputSchema.safeParse(JSON.parse(body));
+      res.writeHead(parsed.success ? 200 : 422, { "content-type": "application/json" });
+      res.end(JSON.stringify(parsed.success ? { result: sizeFuelSystem(parsed.data) } : { error: parsed.error.issues }));
+    });
+  });
+  return new Promise<{ url: string; close: () => void }>((resolve) => server.listen(3390, "127.0.0.1", () => resolve({ url: "http://127.0.0.1:3390/", close: () => server.close() })));
+}
+
+/** Resident memory (MiB) of the server process and its children. */
+function serverRssMiB(): number {
+  const pids = execFileSync("pgrep", ["-f", "next start -H 127.0.0.1 -p 3300|next-server"], { encoding: "utf8" }).trim().split("\n").filter(Boolean);
+  let kb = 0;
+  for (const pid of pids) {
+    try {
+      kb += Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, "utf8"))?.[1] ?? 0);
+    } catch {
+      /* gone */
+    }
+  }
+  return kb / 1024;
+}
+
+if (soak) {
+  const total = Number(process.env.SOAK_SECONDS ?? 600);
+  const samples: { s: number; rss: number }[] = [{ s: 0, rss: serverRssMiB() }];
+  const t0 = Date.now();
+  const timer = setInterval(() => samples.push({ s: Math.round((Date.now() - t0) / 1000), rss: serverRssMiB() }), 10_000);
+  // Moderate load: a mix of the four cases, 4 connections each.
+  const results = await Promise.all(CASES.map((c) => run(c, c.name.includes("PDF") ? 1 : 4, total)));
+  clearInterval(timer);
+  samples.push({ s: total, rss: serverRssMiB() });
+  console.table(CASES.map((c, i) => row(c.name, c.name.includes("PDF") ? 1 : 4, results[i]!)));
+  const third = Math.max(1, Math.floor(samples.length / 3));
+  const early = samples.slice(1, 1 + third).reduce((t, x) => t + x.rss, 0) / third;
+  const late = samples.slice(-third).reduce((t, x) => t + x.rss, 0) / third;
+  console.table(samples.filter((_, i) => i % 6 === 0 || i === samples.length - 1).map((x) => ({ "t s": x.s, "RSS MiB": +x.rss.toFixed(1) })));
+  console.log(`soak ${total} s: server RSS ${samples[0]!.rss.toFixed(0)} MiB at start, ${early.toFixed(0)} MiB over the first third, ${late.toFixed(0)} MiB over the last third (${(((late - early) / early) * 100).toFixed(1)} % growth after warm-up)`);
+} else {
+  const rows = [];
+  // Warm-up: every route compiled, caches and pools filled.
+  for (const c of CASES) await run(c, 4, 2);
+  for (const c of CASES) for (const n of [1, 16, 64]) rows.push(row(c.name, n, await run(c, n)));
+  const bare = await bareServer();
+  const bareRows = [];
+  for (const n of [1, 16, 64]) bareRows.push(row("bare node:http sizing", n, await run({ name: "bare", url: bare.url, method: "POST", body: sizingBody, headers: { "content-type": "application/json" } }, n)));
+  bare.close();
+  console.table([...rows, ...bareRows]);
+  for (const n of [1, 16, 64]) {
+    const app = rows.find((r) => r.case === CASES[0]!.name && r.conns === n)!;
+    const floor = bareRows.find((r) => r.conns === n)!;
+    console.log(`calc API at ${n} connection(s): ${app["req/s"]} req/s vs bare ${floor["req/s"]} req/s = ${((100 * app["req/s"]) / floor["req/s"]).toFixed(0)} % of the floor`);
+  }
+}
+await sql.end();

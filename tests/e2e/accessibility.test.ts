@@ -1,0 +1,106 @@
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { sql } from "../helpers/db";
+
+const require = createRequire(import.meta.url);
+const AXE = readFileSync(require.resolve("axe-core/axe.min.js"), "utf8");
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await sql.end();
+});
+
+interface Violation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: string[] }[];
+}
+
+/** axe-core (WCAG 2.0/2.1 A and AA rules) on the page as it stands; serious and critical findings. */
+async function seriousViolations(page: Page): Promise<string[]> {
+  await page.evaluate(AXE); // through the debugging protocol: the page's CSP does not apply to it
+  const found = (await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> } }).axe;
+    return (await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] } })).violations;
+  })) as Violation[];
+  return found.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
+}
+
+/** Collects Content-Security-Policy violations the page reports (none expected). */
+function cspWatch(page: Page) {
+  const seen: string[] = [];
+  page.on("console", (m) => {
+    if (/Content Security Policy/i.test(m.text())) seen.push(m.text().slice(0, 200));
+  });
+  return seen;
+}
+
+describe("accessibility (axe-core)", () => {
+  it("sign-in, builds, build editor, tools, parts, quotes and a quote have no serious or critical violations", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    const csp = cspWatch(page);
+    await page.goto("/sign-in");
+    const report: Record<string, string[]> = { "/sign-in": await seriousViolations(page) };
+    await signInAs(page, "owner");
+    const [quote] = await sql`select id from quotes where shop_id = 'demo-shop-ridgeback' order by number limit 1`;
+    for (const path of ["/builds", "/builds/10000000-0000-4000-8000-000000000002", "/tools", "/parts", "/quotes", `/quotes/${quote!.id}`, "/customers", "/settings", "/builds/10000000-0000-4000-8000-000000000002/dyno"]) {
+      await page.goto(path);
+      await page.waitForLoadState("networkidle");
+      report[path] = await seriousViolations(page);
+    }
+    await page.screenshot({ path: "test-results/screenshots/a11y-last.png" });
+    expect(Object.fromEntries(Object.entries(report).filter(([, v]) => v.length))).toEqual({});
+    expect(csp).toEqual([]);
+    await ctx.close();
+  });
+
+  it("the customer portal has no serious or critical violations", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "customer");
+    await page.waitForLoadState("networkidle");
+    expect(await seriousViolations(page)).toEqual([]);
+    await ctx.close();
+  });
+});
+
+describe("keyboard only", () => {
+  it("signs in and creates a customer without a mouse", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await page.goto("/sign-in");
+    // Tab from the top of the page to the e-mail field, then through the form.
+    await page.keyboard.press("Tab");
+    for (let i = 0; i < 10 && (await page.evaluate(() => document.activeElement?.getAttribute("type"))) !== "email"; i++) await page.keyboard.press("Tab");
+    await page.keyboard.type("counter@demo.fuelwright.test");
+    await page.keyboard.press("Tab");
+    await page.keyboard.type("fuelwright-demo");
+    await page.keyboard.press("Enter");
+    await page.waitForURL("**/builds");
+    await page.goto("/customers");
+    const name = `Keyboard Customer ${Date.now().toString(36)}`;
+    for (let i = 0; i < 60 && (await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name)) !== "name"; i++) await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name)).toBe("name");
+    await page.keyboard.type(name);
+    await page.keyboard.press("Enter");
+    await expect.poll(async () => (await sql`select count(*)::int as n from customers where name = ${name}`)[0]!.n).toBe(1);
+    // The focused control always shows where it is.
+    const outline = await page.evaluate(() => {
+      const el = document.activeElement as HTMLElement | null;
+      if (!el || el === document.body) return "none-focused";
+      const s = getComputedStyle(el);
+      return `${s.outlineStyle} ${s.boxShadow}`;
+    });
+    expect(outline).not.toBe("none none");
+    await ctx.close();
+  });
+});
