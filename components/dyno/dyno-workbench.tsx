@@ -39,7 +39,7 @@ const ROLES: { key: string; label: string; kinds?: [string, string][]; units?: s
 ];
 
 /** Upload a dyno log with progress; the XHR is used because fetch reports no upload progress. */
-function uploadWithProgress(buildId: string, file: File, onProgress: (pct: number) => void): Promise<{ ok: boolean; body: { datalog?: { id: string }; error?: { message: string } } }> {
+function uploadWithProgress(buildId: string, file: File, onProgress: (pct: number) => void): Promise<{ ok: boolean; body: { datalog?: { id: string }; cutShort?: boolean; error?: { message: string } } }> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", `/api/v1/builds/${buildId}/datalogs`);
@@ -65,7 +65,7 @@ export function DynoWorkbench({ buildId, logs, canUpload }: { buildId: string; l
     const r = await uploadWithProgress(buildId, file, setProgress);
     setProgress(null);
     if (r.ok && r.body.datalog) {
-      setStatus({ ok: true, message: `${file.name} uploaded` });
+      setStatus({ ok: true, message: `${file.name} uploaded${r.body.cutShort ? " — the file stops mid-row, so its partial last row was left out" : ""}` });
       setSelected(r.body.datalog.id);
       router.refresh();
     } else setStatus({ ok: false, message: r.body.error?.message ?? "Upload failed" });

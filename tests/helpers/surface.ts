@@ -13,6 +13,7 @@ export type Who = (typeof WHO)[number];
 
 export interface Fx {
   build: string;
+  /** A customer record made for the run (the customer routes and actions edit it). */
   customer: string;
   doomedCustomer: string;
   part: string;
@@ -123,16 +124,18 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
   const made = await request(tuner, "POST", "/api/v1/builds", { customerId: portalCustomer, title: "Access matrix build", inputs: demo!.inputs });
   const build = made.json.build.id as string;
   const doomed = await request(counter, "POST", "/api/v1/customers", { name: "Access matrix doomed customer" });
+  // The one the customer routes and actions edit: never a shared demo record.
+  const own = await request(counter, "POST", "/api/v1/customers", { name: "Access matrix customer", email: `matrix-${Date.now().toString(36)}@example.test` });
   const quote = await request(counter, "POST", "/api/v1/quotes", { buildId: build });
   const [part] = await sql`select id from parts where shop_id = 'demo-shop-ridgeback' order by sku limit 1`;
   const doomedSku = `MX-${Date.now().toString(36)}`;
   const [doomedPart] = await sql`insert into parts (shop_id, sku, category, brand, name, price_minor) values ('demo-shop-ridgeback', ${doomedSku}, 'fitting', 'Matrixware', 'Access matrix doomed part', 100) returning id`;
   const log = await fetch(`${BASE_URL}/api/v1/builds/${build}/datalogs`, { method: "POST", body: "rpm,duty\n3000,40\n3100,41\n", headers: { cookie: tuner.cookie, "x-forwarded-for": tuner.ip, origin: BASE_URL, "content-type": "text/csv", "x-file-name": "matrix.csv" } });
   const share = await request(tuner, "POST", `/api/v1/builds/${build}/share-links`, { days: 1 });
-  expect([made.status, doomed.status, quote.status, log.status, share.status], "fixtures").toEqual([201, 201, 201, 201, 201]);
+  expect([made.status, doomed.status, own.status, quote.status, log.status, share.status], "fixtures").toEqual([201, 201, 201, 201, 201, 201]);
   return {
     build,
-    customer: portalCustomer,
+    customer: own.json.customer.id,
     doomedCustomer: doomed.json.customer.id,
     part: part!.id,
     doomedPart: doomedPart!.id,

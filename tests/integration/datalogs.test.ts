@@ -27,6 +27,10 @@ describe("datalog uploads", () => {
     const { datalog } = await r.json();
     expect(datalog).toMatchObject({ fileName: "pull 3.csv", sizeBytes: Buffer.byteLength(csv), rowCount: 2, headers: ["RPM", "Inj Duty", "Lambda"], uploadedBy: "demo-user-tuner" });
     expect(datalog.sha256).toBe(createHash("sha256").update(csv).digest("hex"));
+    // A log that stops mid-row is kept without its partial row, and the answer says so.
+    const cut = await upload(tuner, "RPM;Inj Duty;Lambda\n3000;41,5;0,79\n3050;42,0;0,78\n3100;4");
+    expect(cut.status).toBe(201);
+    expect(await cut.json()).toMatchObject({ cutShort: true, datalog: { rowCount: 2 } });
     const file = await getBytes(counter, `/api/v1/datalogs/${datalog.id}/file`);
     expect(file.status).toBe(200);
     expect(file.bytes.toString("utf8")).toBe(csv);

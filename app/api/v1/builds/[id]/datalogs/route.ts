@@ -33,10 +33,12 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const text = await readText(req, MAX_BYTES, "datalog");
   let headers: string[];
   let rowCount: number;
+  let cutShort: boolean;
   try {
     const log = parseDatalog(text);
     headers = log.headers;
     rowCount = log.rows.length;
+    cutShort = log.cutShort;
   } catch (e) {
     if (e instanceof DatalogError) throw new HttpError(422, "bad_datalog", e.message);
     throw e;
@@ -47,5 +49,6 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   await putObject(objectKey, bytes, "text/csv");
   const row = await recordDatalog({ shopId: m.shopId, buildId: id, objectKey, fileName, sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex"), headers, rowCount, uploadedBy: m.user.id });
   const { objectKey: _k, ...datalog } = row;
-  return Response.json({ datalog }, { status: 201 });
+  // cutShort: the file stopped mid-row, and that partial last row was left out of the analysis.
+  return Response.json({ datalog, cutShort }, { status: 201 });
 });
