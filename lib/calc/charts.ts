@@ -3,7 +3,7 @@ import { injectorDifferentialPressureKpa, railPressureKpa } from "./injectors";
 import { defaultBsfc } from "./power";
 import { pumpSupplyFunction } from "./pumps";
 import type { ParsedFuelSystemInput } from "./schema";
-import type { FuelSystemResult } from "./size";
+import { sizeParsedFuelSystem, type FuelSystemResult } from "./size";
 
 /**
  * Duty across engine speed at the target, for a chart. Assumes the fuel per cycle that the
@@ -59,4 +59,17 @@ export function pumpSupplyCurve(input: ParsedFuelSystemInput, result: FuelSystem
     out.push({ pressureKpa: p, supplyLPerH: supplyAt(p, result.pump.voltageUsed).flowLPerH, demandLPerH: result.pump.demandLPerH });
   }
   return out;
+}
+
+/** The sizing API's answer: the result and its three chart series (one function, so the benchmark's floor does the same work). */
+export function sizingAnswer(input: ParsedFuelSystemInput) {
+  const result = sizeParsedFuelSystem(input);
+  return {
+    result,
+    charts: {
+      dutyVsRpm: dutyAcrossRpm(result, input.engine.idleRpm, input.engine.redlineRpm),
+      dutyVsEthanol: dutyAcrossEthanol(input, result.crankPowerKw),
+      pumpSupply: pumpSupplyCurve(input, result),
+    },
+  };
 }

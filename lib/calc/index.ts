@@ -40,7 +40,7 @@ export * from "./units";
 export * from "./schema";
 export { sizeFuelSystem, sizeParsedFuelSystem, CALC_VERSION } from "./size";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
-export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve } from "./charts";
+export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";
 export * from "./display";
 export { parseDatalog, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";

@@ -21,7 +21,7 @@ export function errorResponse(err: unknown): Response {
     return Response.json({ error: { code: "invalid_input", message: err.message, issues: [{ path: err.field, message: err.message }] } }, { status: 422 });
   }
   if (err instanceof HttpError) {
-    return Response.json({ error: { code: err.code, message: err.message } }, { status: err.status });
+    return Response.json({ error: { code: err.code, message: err.message } }, { status: err.status, headers: err.status === 503 ? { "Retry-After": "5" } : undefined });
   }
   if (isDatabaseDown(err)) {
     return Response.json({ error: { code: "unavailable", message: "The database is not answering; try again in a moment" } }, { status: 503, headers: { "Retry-After": "5" } });

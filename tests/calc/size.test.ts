@@ -9,6 +9,7 @@ import {
   pumpSupplyCurve,
   sizeFuelSystem,
   sizeParsedFuelSystem,
+  sizingAnswer,
   type FuelSystemInput,
   type FuelSystemResult,
 } from "@/lib/calc";
@@ -249,6 +250,14 @@ describe("regressions found by the property tests", () => {
 describe("chart series", () => {
   const parsed = FuelSystemInputSchema.parse(boostedSix);
   const r = sizeParsedFuelSystem(parsed);
+  it("the API answer is the sizing plus the three series over the engine's own rpm span (common practice, no source)", () => {
+    const a = sizingAnswer(parsed);
+    expect(a.result).toEqual(r);
+    expect(a.charts.dutyVsRpm[0]!.rpm).toBe(parsed.engine.idleRpm);
+    expect(a.charts.dutyVsRpm.at(-1)!.rpm).toBe(parsed.engine.redlineRpm);
+    expect(a.charts.dutyVsEthanol).toEqual(dutyAcrossEthanol(parsed, r.crankPowerKw));
+    expect(a.charts.pumpSupply).toEqual(pumpSupplyCurve(parsed, r));
+  });
   it("duty across rpm ends at the target duty at redline", () => {
     const s = dutyAcrossRpm(r, 1000, 7000, 7);
     expect(s).toHaveLength(7);

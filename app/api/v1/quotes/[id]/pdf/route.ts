@@ -2,6 +2,7 @@ import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
+import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
 import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
 import { pdfResponse } from "@/lib/pdf/spec-sheet-data";
@@ -11,5 +12,5 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
   const id = await uuidParam(ctx, "That quote");
   const data = await quoteSheetData(m.shopId, id, ownRecordsOnly(m.role) ? m.user.id : undefined);
-  return pdfResponse(await renderQuoteSheet(data), quotePdfName(data.quote.label));
+  return pdfResponse(await cachedPdf("quote-sheet", data, renderQuoteSheet), quotePdfName(data.quote.label));
 });
