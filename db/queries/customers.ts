@@ -28,7 +28,8 @@ export async function createCustomer(shopId: string, input: CustomerInput) {
 }
 
 /** Updates only within the shop; returns null when the customer is not the shop's. */
-export async function updateCustomer(shopId: string, id: string, input: CustomerInput) {
+/** Sets the fields given (an absent field, `undefined`, is left as it is). */
+export async function updateCustomer(shopId: string, id: string, input: Partial<CustomerInput>) {
   const [row] = await db.update(customers).set({ ...input, updatedAt: new Date() }).where(and(eq(customers.shopId, shopId), eq(customers.id, id))).returning();
   return row ?? null;
 }

@@ -40,6 +40,22 @@ describe("tenancy: a member of shop B cannot see or touch shop A's customers", (
     expect(await fingerprint(["customers"])).toBe(before);
   });
 
+  it("PATCH changes only the fields sent; an empty string clears one; an empty body is a 422 (common practice, no source)", async () => {
+    const made = await request(outsider, "POST", "/api/v1/customers", { name: "Partial Patch", email: "partial@example.test", phone: "555-0100" });
+    const id = made.json.customer.id;
+    const renamed = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { name: "Partial Patch Renamed" });
+    expect(renamed.status).toBe(200);
+    expect(renamed.json.customer).toMatchObject({ name: "Partial Patch Renamed", email: "partial@example.test", phone: "555-0100" });
+    const cleared = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { phone: "" });
+    expect(cleared.json.customer).toMatchObject({ name: "Partial Patch Renamed", email: "partial@example.test", phone: null });
+    const empty = await request(outsider, "PATCH", `/api/v1/customers/${id}`, {});
+    expect(empty.status).toBe(422);
+    expect(empty.json.error.issues[0].path).toBe("(body)");
+    const blankName = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { name: " " });
+    expect(blankName.status).toBe(422);
+    expect(blankName.json.error.issues[0].path).toBe("name");
+  });
+
   it("creates a customer in its own shop only", async () => {
     const r = await request(outsider, "POST", "/api/v1/customers", { name: "Only Mine" });
     expect(r.status).toBe(201);

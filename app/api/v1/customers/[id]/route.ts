@@ -4,7 +4,7 @@ import { requireMember } from "@/lib/auth/member";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
-import { CustomerSchema } from "@/lib/validations/customers";
+import { CustomerPatchSchema } from "@/lib/validations/customers";
 
 type Ctx = IdCtx;
 const idOf = (ctx: Ctx) => uuidParam(ctx, "That customer");
@@ -16,10 +16,11 @@ export const GET = handle<Ctx>(async (_req, ctx) => {
   return Response.json({ customer: c });
 });
 
+/** PATCH — changes only the fields sent (`{ "email": "" }` clears the e-mail). */
 export const PATCH = handle<Ctx>(async (req, ctx) => {
   const m = await requireMember("customers:write");
   const id = await idOf(ctx);
-  const input = CustomerSchema.parse(await readJson(req));
+  const input = CustomerPatchSchema.parse(await readJson(req));
   const c = await updateCustomer(m.shopId, id, input);
   if (!c) throw new NotFoundError("That customer");
   return Response.json({ customer: c });
