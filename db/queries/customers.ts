@@ -27,8 +27,7 @@ export async function createCustomer(shopId: string, input: CustomerInput) {
   return row!;
 }
 
-/** Updates only within the shop; returns null when the customer is not the shop's. */
-/** Sets the fields given (an absent field, `undefined`, is left as it is). */
+/** Sets the fields given (an absent, `undefined` one is left as it is), only within the shop; null when the customer is not the shop's. */
 export async function updateCustomer(shopId: string, id: string, input: Partial<CustomerInput>) {
   const [row] = await db.update(customers).set({ ...input, updatedAt: new Date() }).where(and(eq(customers.shopId, shopId), eq(customers.id, id))).returning();
   return row ?? null;

@@ -61,7 +61,7 @@ export async function cachedPdf<T>(kind: string, data: T, render: (data: T) => P
   return job;
 }
 
-/** For tests and the benchmark's cold case: how full the cache is. */
+/** For tests: how full the cache is and how many renders wait. */
 export function pdfCacheStats() {
   return { entries: cache.size, bytes: cache.calculatedSize, queued: renders.pendingCount, rendering: renders.activeCount };
 }

@@ -26,7 +26,6 @@ export const CustomerUpdateSchema = CustomerSchema.extend({ id: z.uuid("Unknown 
 
 /** PATCH over the API: only the fields sent change; an empty string clears an optional one. */
 export const CustomerPatchSchema = CustomerSchema.partial().refine((o) => Object.values(o).some((v) => v !== undefined), { message: "Send at least one of name, email, phone or notes" });
-export type CustomerPatch = z.output<typeof CustomerPatchSchema>;
 
 export const CustomerListQuery = z.object({
   q: z.string().trim().max(100, "Search is too long").optional(),

@@ -98,8 +98,8 @@ if (soak) {
   const samples: { s: number; rss: number }[] = [{ s: 0, rss: serverRssMiB() }];
   const t0 = Date.now();
   const timer = setInterval(() => samples.push({ s: Math.round((Date.now() - t0) / 1000), rss: serverRssMiB() }), 10_000);
-  // Moderate load: a mix of the four cases, 4 connections each.
-  // The four everyday cases (the cold PDFs would only show the sheet cache filling to its bound).
+  // Moderate load: the four everyday cases at once, 4 connections each (1 for the PDF); the cold
+  // PDFs are left out, they would only show the sheet cache filling to its bound.
   const mix = CASES.slice(0, 4);
   const results = await Promise.all(mix.map((c) => run(c, c.name.includes("PDF") ? 1 : 4, total)));
   clearInterval(timer);
