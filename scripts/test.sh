@@ -32,6 +32,7 @@ start_s3_fake 4579 .data/s3-test
 mkdir -p test-results
 rm -f test-results/vitest.json test-results/vitest-system.json
 
+check "format (prettier)" node node_modules/prettier/bin/prettier.cjs --check . --log-level=warn
 check "lint (eslint)" node node_modules/eslint/bin/eslint.js . --max-warnings=0
 check "typecheck (tsc)" node node_modules/typescript/bin/tsc --noEmit
 
@@ -75,6 +76,6 @@ V_PASSED=$((V_PASSED + S_PASSED)); V_FAILED=$((V_FAILED + S_FAILED))
 
 PASSED=$((V_PASSED + CHECK_PASSED)); FAILED=$((V_FAILED + CHECK_FAILED))
 echo
-echo "tests: $V_PASSED passed, $V_FAILED failed; checks (lint, typecheck, build): $CHECK_PASSED passed, $CHECK_FAILED failed"
+echo "tests: $V_PASSED passed, $V_FAILED failed; checks (format, lint, typecheck, build): $CHECK_PASSED passed, $CHECK_FAILED failed"
 echo "$PASSED passed, $FAILED failed"
 [ "$FAILED" = 0 ]

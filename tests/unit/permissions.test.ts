@@ -1,8 +1,10 @@
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
+
 import { describe, expect, it } from "vitest";
+
 import { navFor } from "@/components/shell/nav-items";
-import { PERMISSIONS, can } from "@/lib/auth/permissions";
+import { can, PERMISSIONS } from "@/lib/auth/permissions";
 import { ROLES } from "@/lib/auth/roles";
 
 describe("permissions table", () => {
@@ -19,7 +21,8 @@ describe("permissions table", () => {
     expect(navFor("customer").map((i) => i.href)).toEqual(["/my"]);
   });
   it("every role named in the table is a known role", () => {
-    for (const roles of Object.values(PERMISSIONS)) for (const r of roles) expect(ROLES).toContain(r);
+    for (const roles of Object.values(PERMISSIONS))
+      for (const r of roles) expect(ROLES).toContain(r);
   });
 });
 
@@ -37,12 +40,21 @@ describe("authorization coverage", () => {
   // Sign-in and friends are for signed-out visitors; health has no data; share links are
   // opened without an account, the signed token being the key (tests/integration/share-links);
   // the payment webhook is authenticated by its signature (tests/integration/payments).
-  const guarded = files.filter((f) => !f.includes("api/auth") && !f.includes("api/health") && !f.includes("(auth)") && !f.startsWith("app/share/") && f !== "app/api/webhooks/payments/route.ts");
+  const guarded = files.filter(
+    (f) =>
+      !f.includes("api/auth") &&
+      !f.includes("api/health") &&
+      !f.includes("(auth)") &&
+      !f.startsWith("app/share/") &&
+      f !== "app/api/webhooks/payments/route.ts",
+  );
   it("finds the app's actions and routes", () => expect(guarded.length).toBeGreaterThan(5));
   it.each(guarded)("%s checks the member's permission", (f) => {
     const src = readFileSync(f, "utf8");
     const exported = (src.match(/export (const|async function) \w+/g) ?? []).length;
-    const checks = (src.match(/requireMember\("[a-z]+:[a-z]+"\)|memberAction\("[a-z]+:[a-z]+"/g) ?? []).length;
+    const checks = (
+      src.match(/requireMember\(\s*"[a-z]+:[a-z]+"\s*\)|memberAction\(\s*"[a-z]+:[a-z]+"/g) ?? []
+    ).length;
     expect(checks).toBeGreaterThanOrEqual(exported);
   });
 });
