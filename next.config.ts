@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+
 import { API_CSP, COMMON_HEADERS } from "./lib/http/security";
 
 const nextConfig: NextConfig = {

@@ -1,9 +1,18 @@
 import { getSessionCookie } from "better-auth/cookies";
 import { NextResponse, type NextRequest } from "next/server";
-import { UNAVAILABLE_HTML, databaseAnswering } from "@/lib/http/db-health";
+
+import { databaseAnswering, UNAVAILABLE_HTML } from "@/lib/http/db-health";
 import { pageCsp } from "@/lib/http/security";
 
-const PUBLIC = ["/share", "/sign-in", "/sign-up", "/forgot-password", "/reset-password", "/accept-invitation", "/check-email"];
+const PUBLIC = [
+  "/share",
+  "/sign-in",
+  "/sign-up",
+  "/forgot-password",
+  "/reset-password",
+  "/accept-invitation",
+  "/check-email",
+];
 
 /**
  * Every page request: a fresh CSP nonce (Next applies it to its own scripts), a 503 page while
@@ -14,10 +23,21 @@ export async function proxy(req: NextRequest) {
   const nonce = Buffer.from(crypto.randomUUID()).toString("base64");
   const csp = pageCsp(nonce);
   if (!(await databaseAnswering())) {
-    return new NextResponse(UNAVAILABLE_HTML, { status: 503, headers: { "content-type": "text/html; charset=utf-8", "retry-after": "5", "cache-control": "no-store", "content-security-policy": csp } });
+    return new NextResponse(UNAVAILABLE_HTML, {
+      status: 503,
+      headers: {
+        "content-type": "text/html; charset=utf-8",
+        "retry-after": "5",
+        "cache-control": "no-store",
+        "content-security-policy": csp,
+      },
+    });
   }
   const { pathname } = req.nextUrl;
-  if (!PUBLIC.some((p) => pathname === p || pathname.startsWith(`${p}/`)) && !getSessionCookie(req)) {
+  if (
+    !PUBLIC.some((p) => pathname === p || pathname.startsWith(`${p}/`)) &&
+    !getSessionCookie(req)
+  ) {
     return NextResponse.redirect(new URL("/sign-in", req.url));
   }
   const headers = new Headers(req.headers);

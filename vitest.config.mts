@@ -1,4 +1,5 @@
 import { fileURLToPath } from "node:url";
+
 import { defineConfig } from "vitest/config";
 
 const root = fileURLToPath(new URL(".", import.meta.url));
@@ -8,20 +9,42 @@ export default defineConfig({
   resolve: { alias },
   test: {
     projects: [
-      { resolve: { alias }, test: { name: "unit", include: ["tests/calc/**/*.test.ts", "tests/unit/**/*.test.ts"] } },
       {
         resolve: { alias },
-        test: { name: "integration", include: ["tests/integration/**/*.test.ts"], fileParallelism: false, testTimeout: 30000, hookTimeout: 60000 },
+        test: { name: "unit", include: ["tests/calc/**/*.test.ts", "tests/unit/**/*.test.ts"] },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          fileParallelism: false,
+          testTimeout: 30000,
+          hookTimeout: 60000,
+        },
       },
       {
         resolve: { alias },
         // App instances started and killed by the tests, the database stopped under them: run alone, after the rest.
-        test: { name: "system", include: ["tests/system/**/*.test.ts"], fileParallelism: false, testTimeout: 120000, hookTimeout: 180000 },
+        test: {
+          name: "system",
+          include: ["tests/system/**/*.test.ts"],
+          fileParallelism: false,
+          testTimeout: 120000,
+          hookTimeout: 180000,
+        },
       },
       {
         resolve: { alias },
         // Polls wait up to 10 s: a loaded CI machine answers slower than this one.
-        test: { name: "e2e", include: ["tests/e2e/**/*.test.ts"], fileParallelism: false, testTimeout: 90000, hookTimeout: 120000, expect: { poll: { timeout: 10000, interval: 100 } } },
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          fileParallelism: false,
+          testTimeout: 90000,
+          hookTimeout: 120000,
+          expect: { poll: { timeout: 10000, interval: 100 } },
+        },
       },
     ],
   },

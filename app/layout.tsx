@@ -1,6 +1,8 @@
 import type { Metadata, Viewport } from "next";
 import { connection } from "next/server";
+
 import { bodyFont, displayFont } from "./fonts";
+
 import "./globals.css";
 
 export const metadata: Metadata = {

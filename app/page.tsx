@@ -1,4 +1,5 @@
 import { redirect } from "next/navigation";
+
 import { currentMember } from "@/lib/auth/member";
 
 export default async function Home() {

@@ -1,13 +1,20 @@
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
+
 import { serverEnv } from "@/lib/env";
+
 import * as schema from "./schema";
 
 type Db = ReturnType<typeof drizzle<typeof schema>>;
 const globalForDb = globalThis as unknown as { fuelwrightDb?: Db; fuelwrightSql?: postgres.Sql };
 
 function connect(): Db {
-  const sql = postgres(serverEnv().DATABASE_URL, { max: 10, idle_timeout: 20, connect_timeout: 5, onnotice: () => {} });
+  const sql = postgres(serverEnv().DATABASE_URL, {
+    max: 10,
+    idle_timeout: 20,
+    connect_timeout: 5,
+    onnotice: () => {},
+  });
   globalForDb.fuelwrightSql = sql;
   return drizzle(sql, { schema });
 }

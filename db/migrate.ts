@@ -9,7 +9,9 @@ if (!url) {
 }
 const sql = postgres(url, { max: 1, onnotice: () => {} });
 try {
-  await migrate(drizzle(sql), { migrationsFolder: new URL("./migrations", import.meta.url).pathname });
+  await migrate(drizzle(sql), {
+    migrationsFolder: new URL("./migrations", import.meta.url).pathname,
+  });
   console.log("migrations: up to date");
 } finally {
   await sql.end();

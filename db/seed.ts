@@ -4,10 +4,16 @@
  * password must never be used in production.
  */
 import { hashPassword } from "better-auth/crypto";
-import { eq, sql as dsql } from "drizzle-orm";
+import { sql as dsql, eq } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
-import { CALC_VERSION, FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "../lib/calc";
+
+import {
+  CALC_VERSION,
+  FuelSystemInputSchema,
+  sizeParsedFuelSystem,
+  type FuelSystemInput,
+} from "../lib/calc";
 import { DEFAULT_BSFC } from "../lib/calc/power";
 import { quoteTotals } from "../lib/catalog/quote-totals";
 import * as schema from "./schema";
@@ -16,38 +22,125 @@ import { DEMO_PARTS } from "./seed-catalog";
 export const DEMO_PASSWORD = "fuelwright-demo";
 export const DEMO_SHOP_ID = "demo-shop-ridgeback";
 export const DEMO_USERS = [
-  { id: "demo-user-owner", role: "owner", name: "Marisol Okafor", email: "owner@demo.fuelwright.test" },
-  { id: "demo-user-tuner", role: "tuner", name: "Teodor Vance", email: "tuner@demo.fuelwright.test" },
-  { id: "demo-user-counter", role: "counter", name: "Priya Lindqvist", email: "counter@demo.fuelwright.test" },
-  { id: "demo-user-customer", role: "customer", name: "Dashiell Moreau", email: "customer@demo.fuelwright.test" },
+  {
+    id: "demo-user-owner",
+    role: "owner",
+    name: "Marisol Okafor",
+    email: "owner@demo.fuelwright.test",
+  },
+  {
+    id: "demo-user-tuner",
+    role: "tuner",
+    name: "Teodor Vance",
+    email: "tuner@demo.fuelwright.test",
+  },
+  {
+    id: "demo-user-counter",
+    role: "counter",
+    name: "Priya Lindqvist",
+    email: "counter@demo.fuelwright.test",
+  },
+  {
+    id: "demo-user-customer",
+    role: "customer",
+    name: "Dashiell Moreau",
+    email: "customer@demo.fuelwright.test",
+  },
 ] as const;
 
 const CUSTOMERS = [
-  { id: "00000000-0000-4000-8000-000000000001", name: "Dashiell Moreau", email: "customer@demo.fuelwright.test", phone: "555-0142", notes: "Turbo six, flex fuel. Wants 500 whp on pump E85.", userId: "demo-user-customer" },
-  { id: "00000000-0000-4000-8000-000000000002", name: "Harriet Quill", email: "harriet.quill@example.test", phone: "555-0177", notes: "NA four-cylinder track car." },
-  { id: "00000000-0000-4000-8000-000000000003", name: "Bo Castellanos", email: "bo.castellanos@example.test", phone: "555-0103", notes: "Supercharged V8, twin pumps planned." },
-  { id: "00000000-0000-4000-8000-000000000004", name: "Ingrid Achterberg", email: null, phone: "555-0199", notes: null },
-  { id: "00000000-0000-4000-8000-000000000005", name: "Kwame Ostrowski", email: "kwame.o@example.test", phone: null, notes: "Drag car, methanol later?" },
+  {
+    id: "00000000-0000-4000-8000-000000000001",
+    name: "Dashiell Moreau",
+    email: "customer@demo.fuelwright.test",
+    phone: "555-0142",
+    notes: "Turbo six, flex fuel. Wants 500 whp on pump E85.",
+    userId: "demo-user-customer",
+  },
+  {
+    id: "00000000-0000-4000-8000-000000000002",
+    name: "Harriet Quill",
+    email: "harriet.quill@example.test",
+    phone: "555-0177",
+    notes: "NA four-cylinder track car.",
+  },
+  {
+    id: "00000000-0000-4000-8000-000000000003",
+    name: "Bo Castellanos",
+    email: "bo.castellanos@example.test",
+    phone: "555-0103",
+    notes: "Supercharged V8, twin pumps planned.",
+  },
+  {
+    id: "00000000-0000-4000-8000-000000000004",
+    name: "Ingrid Achterberg",
+    email: null,
+    phone: "555-0199",
+    notes: null,
+  },
+  {
+    id: "00000000-0000-4000-8000-000000000005",
+    name: "Kwame Ostrowski",
+    email: "kwame.o@example.test",
+    phone: null,
+    notes: "Drag car, methanol later?",
+  },
 ];
 
 const pump = (quantity: number, scale = 1) => ({
   label: "Ridgeline RP-340 (demo curve)",
   quantity,
   curves: [
-    { voltage: 12, points: [{ pressureKpa: 300, flowLPerH: 300 * scale }, { pressureKpa: 500, flowLPerH: 250 * scale }, { pressureKpa: 700, flowLPerH: 190 * scale }] },
-    { voltage: 13.5, points: [{ pressureKpa: 300, flowLPerH: 340 * scale }, { pressureKpa: 500, flowLPerH: 290 * scale }, { pressureKpa: 700, flowLPerH: 230 * scale }] },
+    {
+      voltage: 12,
+      points: [
+        { pressureKpa: 300, flowLPerH: 300 * scale },
+        { pressureKpa: 500, flowLPerH: 250 * scale },
+        { pressureKpa: 700, flowLPerH: 190 * scale },
+      ],
+    },
+    {
+      voltage: 13.5,
+      points: [
+        { pressureKpa: 300, flowLPerH: 340 * scale },
+        { pressureKpa: 500, flowLPerH: 290 * scale },
+        { pressureKpa: 700, flowLPerH: 230 * scale },
+      ],
+    },
   ],
 });
 
 /** Invented demo builds across the statuses. */
-const BUILDS: { id: string; customerId: string; title: string; vehicle: string; status: "draft" | "sized" | "quoted" | "ordered" | "fitted" | "verified"; inputs: FuelSystemInput }[] = [
+const BUILDS: {
+  id: string;
+  customerId: string;
+  title: string;
+  vehicle: string;
+  status: "draft" | "sized" | "quoted" | "ordered" | "fitted" | "verified";
+  inputs: FuelSystemInput;
+}[] = [
   {
     id: "10000000-0000-4000-8000-000000000001",
     customerId: CUSTOMERS[1]!.id,
     title: "Track day on pump gas",
     vehicle: "Harlan Vesta 2.0 NA four",
     status: "verified",
-    inputs: { engine: { cylinders: 4, displacementL: 2.0, aspiration: "na", redlineRpm: 7800, idleRpm: 900, maxBoostKpa: 0 }, target: { powerKw: 160, measuredAt: "crank", drivetrainLossPct: 12 }, fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 }, injectors: { count: 4, ratedFlowCcPerMin: 440, ratedPressureKpa: 300, minPulseWidthMs: 0.6 }, regulator: { type: "fixed", basePressureKpa: 350 }, pumps: [pump(1, 0.6)], electrical: { voltageAtPump: 13.5 } },
+    inputs: {
+      engine: {
+        cylinders: 4,
+        displacementL: 2.0,
+        aspiration: "na",
+        redlineRpm: 7800,
+        idleRpm: 900,
+        maxBoostKpa: 0,
+      },
+      target: { powerKw: 160, measuredAt: "crank", drivetrainLossPct: 12 },
+      fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 },
+      injectors: { count: 4, ratedFlowCcPerMin: 440, ratedPressureKpa: 300, minPulseWidthMs: 0.6 },
+      regulator: { type: "fixed", basePressureKpa: 350 },
+      pumps: [pump(1, 0.6)],
+      electrical: { voltageAtPump: 13.5 },
+    },
   },
   {
     id: "10000000-0000-4000-8000-000000000002",
@@ -55,7 +148,26 @@ const BUILDS: { id: string; customerId: string; title: string; vehicle: string; 
     title: "500 whp on pump E85",
     vehicle: "Corvane RX6 3.0 turbo inline-six",
     status: "sized",
-    inputs: { engine: { cylinders: 6, displacementL: 3.0, aspiration: "turbo", redlineRpm: 7200, idleRpm: 850, maxBoostKpa: 170 }, target: { powerKw: 373, measuredAt: "wheel", drivetrainLossPct: 15 }, fuel: { ethanolMinVolPct: 51, ethanolMaxVolPct: 83 }, injectors: { count: 6, ratedFlowCcPerMin: 1300, ratedPressureKpa: 300, minPulseWidthMs: 0.8 }, regulator: { type: "boost-referenced", basePressureKpa: 400 }, pumps: [pump(2)], electrical: { voltageAtPump: 13.0 }, lines: { feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2, filterDropKpa: 10 }, return: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 0, filterDropKpa: 0 } } },
+    inputs: {
+      engine: {
+        cylinders: 6,
+        displacementL: 3.0,
+        aspiration: "turbo",
+        redlineRpm: 7200,
+        idleRpm: 850,
+        maxBoostKpa: 170,
+      },
+      target: { powerKw: 373, measuredAt: "wheel", drivetrainLossPct: 15 },
+      fuel: { ethanolMinVolPct: 51, ethanolMaxVolPct: 83 },
+      injectors: { count: 6, ratedFlowCcPerMin: 1300, ratedPressureKpa: 300, minPulseWidthMs: 0.8 },
+      regulator: { type: "boost-referenced", basePressureKpa: 400 },
+      pumps: [pump(2)],
+      electrical: { voltageAtPump: 13.0 },
+      lines: {
+        feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2, filterDropKpa: 10 },
+        return: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 0, filterDropKpa: 0 },
+      },
+    },
   },
   {
     id: "10000000-0000-4000-8000-000000000003",
@@ -63,7 +175,22 @@ const BUILDS: { id: string; customerId: string; title: string; vehicle: string; 
     title: "Twin-turbo V8, last of the injectors",
     vehicle: "Brennan Stag 5.0 twin-turbo V8",
     status: "quoted",
-    inputs: { engine: { cylinders: 8, displacementL: 5.0, aspiration: "turbo", redlineRpm: 7000, idleRpm: 800, maxBoostKpa: 140 }, target: { powerKw: 700, measuredAt: "crank", drivetrainLossPct: 15 }, fuel: { ethanolMinVolPct: 70, ethanolMaxVolPct: 85 }, injectors: { count: 8, ratedFlowCcPerMin: 1600, ratedPressureKpa: 300 }, regulator: { type: "boost-referenced", basePressureKpa: 400 }, pumps: [pump(3)], electrical: { voltageAtPump: 13.2 } },
+    inputs: {
+      engine: {
+        cylinders: 8,
+        displacementL: 5.0,
+        aspiration: "turbo",
+        redlineRpm: 7000,
+        idleRpm: 800,
+        maxBoostKpa: 140,
+      },
+      target: { powerKw: 700, measuredAt: "crank", drivetrainLossPct: 15 },
+      fuel: { ethanolMinVolPct: 70, ethanolMaxVolPct: 85 },
+      injectors: { count: 8, ratedFlowCcPerMin: 1600, ratedPressureKpa: 300 },
+      regulator: { type: "boost-referenced", basePressureKpa: 400 },
+      pumps: [pump(3)],
+      electrical: { voltageAtPump: 13.2 },
+    },
   },
   {
     id: "10000000-0000-4000-8000-000000000004",
@@ -71,7 +198,22 @@ const BUILDS: { id: string; customerId: string; title: string; vehicle: string; 
     title: "Supercharged V6 that leans out at boost",
     vehicle: "Ostrander GT 3.5 supercharged V6",
     status: "draft",
-    inputs: { engine: { cylinders: 6, displacementL: 3.5, aspiration: "supercharged", redlineRpm: 6800, idleRpm: 750, maxBoostKpa: 90 }, target: { powerKw: 330, measuredAt: "wheel", drivetrainLossPct: 17 }, fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 }, injectors: { count: 6, ratedFlowCcPerMin: 550, ratedPressureKpa: 300 }, regulator: { type: "fixed", basePressureKpa: 380 }, pumps: [pump(1, 0.7)], electrical: { voltageAtPump: 12.5 } },
+    inputs: {
+      engine: {
+        cylinders: 6,
+        displacementL: 3.5,
+        aspiration: "supercharged",
+        redlineRpm: 6800,
+        idleRpm: 750,
+        maxBoostKpa: 90,
+      },
+      target: { powerKw: 330, measuredAt: "wheel", drivetrainLossPct: 17 },
+      fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 },
+      injectors: { count: 6, ratedFlowCcPerMin: 550, ratedPressureKpa: 300 },
+      regulator: { type: "fixed", basePressureKpa: 380 },
+      pumps: [pump(1, 0.7)],
+      electrical: { voltageAtPump: 12.5 },
+    },
   },
 ];
 
@@ -81,7 +223,10 @@ export async function seed(url: string) {
   try {
     const hash = await hashPassword(DEMO_PASSWORD);
     await db.transaction(async (tx) => {
-      await tx.insert(schema.organization).values({ id: DEMO_SHOP_ID, name: "Ridgeback Fuel & Dyno", slug: "ridgeback-fuel-dyno" }).onConflictDoNothing();
+      await tx
+        .insert(schema.organization)
+        .values({ id: DEMO_SHOP_ID, name: "Ridgeback Fuel & Dyno", slug: "ridgeback-fuel-dyno" })
+        .onConflictDoNothing();
       await tx
         .insert(schema.shopSettings)
         .values({
@@ -98,44 +243,170 @@ export async function seed(url: string) {
         })
         .onConflictDoNothing();
       for (const u of DEMO_USERS) {
-        await tx.insert(schema.user).values({ id: u.id, name: u.name, email: u.email, emailVerified: true }).onConflictDoNothing();
-        await tx.insert(schema.account).values({ id: `${u.id}-credential`, accountId: u.id, providerId: "credential", userId: u.id, password: hash }).onConflictDoNothing();
-        await tx.insert(schema.member).values({ id: `${u.id}-member`, organizationId: DEMO_SHOP_ID, userId: u.id, role: u.role }).onConflictDoNothing();
+        await tx
+          .insert(schema.user)
+          .values({ id: u.id, name: u.name, email: u.email, emailVerified: true })
+          .onConflictDoNothing();
+        await tx
+          .insert(schema.account)
+          .values({
+            id: `${u.id}-credential`,
+            accountId: u.id,
+            providerId: "credential",
+            userId: u.id,
+            password: hash,
+          })
+          .onConflictDoNothing();
+        await tx
+          .insert(schema.member)
+          .values({
+            id: `${u.id}-member`,
+            organizationId: DEMO_SHOP_ID,
+            userId: u.id,
+            role: u.role,
+          })
+          .onConflictDoNothing();
       }
-      for (const c of CUSTOMERS) await tx.insert(schema.customers).values({ ...c, shopId: DEMO_SHOP_ID }).onConflictDoNothing();
+      for (const c of CUSTOMERS)
+        await tx
+          .insert(schema.customers)
+          .values({ ...c, shopId: DEMO_SHOP_ID })
+          .onConflictDoNothing();
       for (const b of BUILDS) {
         const inputs = FuelSystemInputSchema.parse(b.inputs);
         const result = sizeParsedFuelSystem(inputs);
         const row = { shopId: DEMO_SHOP_ID, inputs, result, calcVersion: CALC_VERSION };
-        const inserted = await tx.insert(schema.builds).values({ ...row, id: b.id, customerId: b.customerId, title: b.title, vehicle: b.vehicle, status: b.status, tunerId: "demo-user-tuner", createdBy: "demo-user-tuner", updatedBy: "demo-user-tuner" }).onConflictDoNothing().returning({ id: schema.builds.id });
-        if (inserted.length) await tx.insert(schema.buildRevisions).values({ ...row, buildId: b.id, version: 1, status: b.status, authorId: "demo-user-tuner", note: "Demo build" });
+        const inserted = await tx
+          .insert(schema.builds)
+          .values({
+            ...row,
+            id: b.id,
+            customerId: b.customerId,
+            title: b.title,
+            vehicle: b.vehicle,
+            status: b.status,
+            tunerId: "demo-user-tuner",
+            createdBy: "demo-user-tuner",
+            updatedBy: "demo-user-tuner",
+          })
+          .onConflictDoNothing()
+          .returning({ id: schema.builds.id });
+        if (inserted.length)
+          await tx.insert(schema.buildRevisions).values({
+            ...row,
+            buildId: b.id,
+            version: 1,
+            status: b.status,
+            authorId: "demo-user-tuner",
+            note: "Demo build",
+          });
       }
-      for (const p of DEMO_PARTS) await tx.insert(schema.parts).values({ ...p, shopId: DEMO_SHOP_ID }).onConflictDoNothing();
+      for (const p of DEMO_PARTS)
+        await tx
+          .insert(schema.parts)
+          .values({ ...p, shopId: DEMO_SHOP_ID })
+          .onConflictDoNothing();
       const bySku = new Map(DEMO_PARTS.map((p) => [p.sku, p]));
-      const partLine = (sku: string, qty: number) => ({ kind: "part" as const, partId: bySku.get(sku)!.id, sku, description: `${bySku.get(sku)!.brand} ${bySku.get(sku)!.name}`, quantityMilli: qty * 1000, unitPriceMinor: bySku.get(sku)!.priceMinor, discountBp: 0 });
-      const labour = (hours: number) => ({ kind: "labour" as const, partId: null, sku: null, description: "Fuel system fitting and setup", quantityMilli: hours * 1000, unitPriceMinor: 12000, discountBp: 0 });
+      const partLine = (sku: string, qty: number) => ({
+        kind: "part" as const,
+        partId: bySku.get(sku)!.id,
+        sku,
+        description: `${bySku.get(sku)!.brand} ${bySku.get(sku)!.name}`,
+        quantityMilli: qty * 1000,
+        unitPriceMinor: bySku.get(sku)!.priceMinor,
+        discountBp: 0,
+      });
+      const labour = (hours: number) => ({
+        kind: "labour" as const,
+        partId: null,
+        sku: null,
+        description: "Fuel system fitting and setup",
+        quantityMilli: hours * 1000,
+        unitPriceMinor: 12000,
+        discountBp: 0,
+      });
       const QUOTES = [
-        { id: "30000000-0000-4000-8000-000000000001", number: 1, build: BUILDS[0]!, status: "accepted" as const, validUntil: "2099-12-31", lines: [partLine("HF-INJ-1000", 6), partLine("KF-P400", 1), partLine("TH-HOSE-8P", 5), partLine("HF-ECS-1", 1), { ...labour(5), discountBp: 1000 }] },
-        { id: "30000000-0000-4000-8000-000000000002", number: 2, build: BUILDS[2]!, status: "sent" as const, validUntil: "2099-06-30", lines: [partLine("HF-INJ-2200", 8), partLine("OM-IL500", 2), partLine("KF-HAT-2", 1), labour(8)] },
-        { id: "30000000-0000-4000-8000-000000000003", number: 3, build: BUILDS[3]!, status: "draft" as const, validUntil: "2099-03-31", lines: [partLine("HF-INJ-750", 6), partLine("SW-REG-BR6", 1), labour(3)] },
+        {
+          id: "30000000-0000-4000-8000-000000000001",
+          number: 1,
+          build: BUILDS[0]!,
+          status: "accepted" as const,
+          validUntil: "2099-12-31",
+          lines: [
+            partLine("HF-INJ-1000", 6),
+            partLine("KF-P400", 1),
+            partLine("TH-HOSE-8P", 5),
+            partLine("HF-ECS-1", 1),
+            { ...labour(5), discountBp: 1000 },
+          ],
+        },
+        {
+          id: "30000000-0000-4000-8000-000000000002",
+          number: 2,
+          build: BUILDS[2]!,
+          status: "sent" as const,
+          validUntil: "2099-06-30",
+          lines: [
+            partLine("HF-INJ-2200", 8),
+            partLine("OM-IL500", 2),
+            partLine("KF-HAT-2", 1),
+            labour(8),
+          ],
+        },
+        {
+          id: "30000000-0000-4000-8000-000000000003",
+          number: 3,
+          build: BUILDS[3]!,
+          status: "draft" as const,
+          validUntil: "2099-03-31",
+          lines: [partLine("HF-INJ-750", 6), partLine("SW-REG-BR6", 1), labour(3)],
+        },
       ];
       for (const q of QUOTES) {
         const t = quoteTotals(q.lines, 825);
         const inserted = await tx
           .insert(schema.quotes)
-          .values({ id: q.id, shopId: DEMO_SHOP_ID, number: q.number, customerId: q.build.customerId, buildId: q.build.id, status: q.status, currency: "USD", taxRateBp: 825, validUntil: q.validUntil, notes: `For ${q.build.title}`, subtotalMinor: t.subtotalMinor, discountMinor: t.discountMinor, taxMinor: t.taxMinor, totalMinor: t.totalMinor, createdBy: "demo-user-counter" })
+          .values({
+            id: q.id,
+            shopId: DEMO_SHOP_ID,
+            number: q.number,
+            customerId: q.build.customerId,
+            buildId: q.build.id,
+            status: q.status,
+            currency: "USD",
+            taxRateBp: 825,
+            validUntil: q.validUntil,
+            notes: `For ${q.build.title}`,
+            subtotalMinor: t.subtotalMinor,
+            discountMinor: t.discountMinor,
+            taxMinor: t.taxMinor,
+            totalMinor: t.totalMinor,
+            createdBy: "demo-user-counter",
+          })
           .onConflictDoNothing()
           .returning({ id: schema.quotes.id });
         if (!inserted.length) continue;
-        await tx.insert(schema.quoteLines).values(q.lines.map((l, i) => ({ ...l, shopId: DEMO_SHOP_ID, quoteId: q.id, position: i + 1 })));
+        await tx
+          .insert(schema.quoteLines)
+          .values(
+            q.lines.map((l, i) => ({ ...l, shopId: DEMO_SHOP_ID, quoteId: q.id, position: i + 1 })),
+          );
         if (q.status === "accepted") {
-          for (const l of q.lines) if (l.partId) await tx.update(schema.parts).set({ reserved: dsql`${schema.parts.reserved} + ${l.quantityMilli / 1000}` }).where(eq(schema.parts.id, l.partId));
+          for (const l of q.lines)
+            if (l.partId)
+              await tx
+                .update(schema.parts)
+                .set({ reserved: dsql`${schema.parts.reserved} + ${l.quantityMilli / 1000}` })
+                .where(eq(schema.parts.id, l.partId));
         }
       }
       await tx
         .insert(schema.shopCounters)
         .values({ shopId: DEMO_SHOP_ID, name: "quote", value: QUOTES.length })
-        .onConflictDoUpdate({ target: [schema.shopCounters.shopId, schema.shopCounters.name], set: { value: dsql`greatest(${schema.shopCounters.value}, ${QUOTES.length})` } });
+        .onConflictDoUpdate({
+          target: [schema.shopCounters.shopId, schema.shopCounters.name],
+          set: { value: dsql`greatest(${schema.shopCounters.value}, ${QUOTES.length})` },
+        });
     });
   } finally {
     await sql.end();

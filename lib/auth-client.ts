@@ -1,4 +1,5 @@
 "use client";
+
 import { organizationClient } from "better-auth/client/plugins";
 import { createAuthClient } from "better-auth/react";
 

@@ -5,11 +5,12 @@ import { organization } from "better-auth/plugins";
 import { createAccessControl } from "better-auth/plugins/access";
 import { defaultStatements, ownerAc } from "better-auth/plugins/organization/access";
 import { and, asc, eq } from "drizzle-orm";
+
 import { db } from "@/db";
 import * as schema from "@/db/schema";
+import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
-import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
 
 const env = serverEnv();
 const ac = createAccessControl(defaultStatements);
@@ -49,7 +50,13 @@ export const auth = betterAuth({
     autoSignInAfterVerification: true,
     sendVerificationEmail: async ({ user, url }) => {
       // An invited person proves the address by the invitation link; no second e-mail.
-      const [pending] = await db.select({ id: schema.invitation.id }).from(schema.invitation).where(and(eq(schema.invitation.email, user.email), eq(schema.invitation.status, "pending"))).limit(1);
+      const [pending] = await db
+        .select({ id: schema.invitation.id })
+        .from(schema.invitation)
+        .where(
+          and(eq(schema.invitation.email, user.email), eq(schema.invitation.status, "pending")),
+        )
+        .limit(1);
       if (pending) return;
       await sendMail({
         to: user.email,
@@ -69,7 +76,12 @@ export const auth = betterAuth({
       create: {
         // A new session starts in the member's first shop.
         before: async (s) => {
-          const [m] = await db.select({ organizationId: schema.member.organizationId }).from(schema.member).where(eq(schema.member.userId, s.userId)).orderBy(asc(schema.member.createdAt)).limit(1);
+          const [m] = await db
+            .select({ organizationId: schema.member.organizationId })
+            .from(schema.member)
+            .where(eq(schema.member.userId, s.userId))
+            .orderBy(asc(schema.member.createdAt))
+            .limit(1);
           return { data: { ...s, activeOrganizationId: m?.organizationId ?? null } };
         },
       },
@@ -100,6 +112,10 @@ export type Session = typeof auth.$Infer.Session;
 
 /** Is this user a member of the shop? (Used by the session hook and the invitation flow.) */
 export async function membershipOf(userId: string, shopId: string) {
-  const [m] = await db.select().from(schema.member).where(and(eq(schema.member.userId, userId), eq(schema.member.organizationId, shopId))).limit(1);
+  const [m] = await db
+    .select()
+    .from(schema.member)
+    .where(and(eq(schema.member.userId, userId), eq(schema.member.organizationId, shopId)))
+    .limit(1);
   return m;
 }

@@ -15,7 +15,10 @@ const EnvSchema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().min(8).default("whsec_fuelwright_local_fake"),
   PAYMENTS_API_URL: z.string().url("PAYMENTS_API_URL must be an http(s) URL").optional(),
   /** Object storage for uploads: the local S3 fake by default; a real endpoint and keys switch. */
-  S3_ENDPOINT: z.string().url("S3_ENDPOINT must be an http(s) URL").default("http://127.0.0.1:4569"),
+  S3_ENDPOINT: z
+    .string()
+    .url("S3_ENDPOINT must be an http(s) URL")
+    .default("http://127.0.0.1:4569"),
   S3_REGION: z.string().default("us-east-1"),
   S3_BUCKET: z.string().min(3).default("fuelwright-uploads"),
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
@@ -33,7 +36,11 @@ export function serverEnv(): ServerEnv {
   if (cached) return cached;
   // `next build` evaluates route modules without serving them; the server validates at boot.
   if (process.env.NEXT_PHASE === "phase-production-build") {
-    return EnvSchema.parse({ DATABASE_URL: "postgres://build@127.0.0.1:1/build", BETTER_AUTH_SECRET: "build-time-placeholder-never-served-0000", ...process.env });
+    return EnvSchema.parse({
+      DATABASE_URL: "postgres://build@127.0.0.1:1/build",
+      BETTER_AUTH_SECRET: "build-time-placeholder-never-served-0000",
+      ...process.env,
+    });
   }
   const parsed = EnvSchema.safeParse(process.env);
   if (!parsed.success) {

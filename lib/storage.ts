@@ -1,5 +1,7 @@
 import "server-only";
+
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+
 import { HttpError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
 
@@ -8,7 +10,12 @@ let client: S3Client | undefined;
 /** The AWS S3 SDK, pointed at S3_ENDPOINT (the local fake by default). */
 function s3(): S3Client {
   const env = serverEnv();
-  client ??= new S3Client({ endpoint: env.S3_ENDPOINT, region: env.S3_REGION, forcePathStyle: true, credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY } });
+  client ??= new S3Client({
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION,
+    forcePathStyle: true,
+    credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY },
+  });
   return client;
 }
 
@@ -17,12 +24,25 @@ async function storage<T>(call: () => Promise<T>): Promise<T> {
     return await call();
   } catch (e) {
     console.error("object storage:", (e as Error).message);
-    throw new HttpError(503, "storage_unavailable", "File storage is not answering; nothing was stored. Try again in a moment.");
+    throw new HttpError(
+      503,
+      "storage_unavailable",
+      "File storage is not answering; nothing was stored. Try again in a moment.",
+    );
   }
 }
 
 export async function putObject(key: string, body: Buffer, contentType: string) {
-  await storage(() => s3().send(new PutObjectCommand({ Bucket: serverEnv().S3_BUCKET, Key: key, Body: body, ContentType: contentType })));
+  await storage(() =>
+    s3().send(
+      new PutObjectCommand({
+        Bucket: serverEnv().S3_BUCKET,
+        Key: key,
+        Body: body,
+        ContentType: contentType,
+      }),
+    ),
+  );
 }
 
 export async function getObject(key: string): Promise<Buffer> {

@@ -4,6 +4,7 @@
  * INBOX_PORT lists them (GET /messages, newest last) and clears them (DELETE /messages).
  */
 import http from "node:http";
+
 import { SMTPServer } from "smtp-server";
 
 const smtpPort = Number(process.env.SMTP_PORT ?? 2525);
@@ -19,7 +20,9 @@ function parse(raw) {
   }
   let text = rest.join("\n\n");
   if (/quoted-printable/i.test(headers["content-transfer-encoding"] ?? "")) {
-    text = text.replace(/=\r?\n/g, "").replace(/=([0-9A-F]{2})/gi, (_, h) => String.fromCharCode(parseInt(h, 16)));
+    text = text
+      .replace(/=\r?\n/g, "")
+      .replace(/=([0-9A-F]{2})/gi, (_, h) => String.fromCharCode(parseInt(h, 16)));
     text = Buffer.from(text, "latin1").toString("utf8");
   }
   return { headers, text };
@@ -33,7 +36,14 @@ const smtp = new SMTPServer({
     stream.on("data", (c) => chunks.push(c));
     stream.on("end", () => {
       const { headers, text } = parse(Buffer.concat(chunks).toString("utf8"));
-      messages.push({ id: messages.length + 1, from: session.envelope.mailFrom?.address, to: session.envelope.rcptTo.map((r) => r.address), subject: headers.subject ?? "", text, receivedAt: new Date().toISOString() });
+      messages.push({
+        id: messages.length + 1,
+        from: session.envelope.mailFrom?.address,
+        to: session.envelope.rcptTo.map((r) => r.address),
+        subject: headers.subject ?? "",
+        text,
+        receivedAt: new Date().toISOString(),
+      });
       done();
     });
   },
@@ -57,5 +67,16 @@ inbox.on("error", (e) => {
   console.error(`mail sink inbox: ${e.message}`);
   process.exit(1);
 });
-smtp.listen(smtpPort, "127.0.0.1", () => inbox.listen(inboxPort, "127.0.0.1", () => console.log(`mail sink: SMTP 127.0.0.1:${smtpPort}, inbox http://127.0.0.1:${inboxPort}/messages`)));
-for (const sig of ["SIGINT", "SIGTERM"]) process.on(sig, () => { smtp.close(); inbox.close(); process.exit(0); });
+smtp.listen(smtpPort, "127.0.0.1", () =>
+  inbox.listen(inboxPort, "127.0.0.1", () =>
+    console.log(
+      `mail sink: SMTP 127.0.0.1:${smtpPort}, inbox http://127.0.0.1:${inboxPort}/messages`,
+    ),
+  ),
+);
+for (const sig of ["SIGINT", "SIGTERM"])
+  process.on(sig, () => {
+    smtp.close();
+    inbox.close();
+    process.exit(0);
+  });

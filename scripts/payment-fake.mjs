@@ -12,7 +12,8 @@ import { createHmac, randomBytes } from "node:crypto";
 import http from "node:http";
 
 const port = Number(process.env.PAYMENTS_PORT ?? 12111);
-const webhookUrl = process.env.PAYMENTS_WEBHOOK_URL ?? "http://127.0.0.1:3000/api/webhooks/payments";
+const webhookUrl =
+  process.env.PAYMENTS_WEBHOOK_URL ?? "http://127.0.0.1:3000/api/webhooks/payments";
 const secret = process.env.STRIPE_WEBHOOK_SECRET ?? "whsec_fuelwright_local_fake";
 const publicUrl = process.env.PAYMENTS_PUBLIC_URL ?? `http://127.0.0.1:${port}`;
 const sessions = new Map();
@@ -39,7 +40,10 @@ function send(res, status, body, headers = {}) {
   res.writeHead(status, { "content-type": "application/json", ...headers });
   res.end(JSON.stringify(body));
 }
-const apiError = (res, status, message, param) => send(res, status, { error: { type: "invalid_request_error", message, ...(param ? { param } : {}) } });
+const apiError = (res, status, message, param) =>
+  send(res, status, {
+    error: { type: "invalid_request_error", message, ...(param ? { param } : {}) },
+  });
 
 function createSession(p) {
   const lines = Array.isArray(p.line_items) ? p.line_items : [];
@@ -51,17 +55,35 @@ function createSession(p) {
   for (const [i, l] of lines.entries()) {
     const unit = Number(l.price_data?.unit_amount);
     const qty = Number(l.quantity ?? 1);
-    if (!Number.isInteger(unit) || unit < 0) return [400, "unit_amount must be a whole number of the smallest unit", `line_items[${i}][price_data][unit_amount]`];
+    if (!Number.isInteger(unit) || unit < 0)
+      return [
+        400,
+        "unit_amount must be a whole number of the smallest unit",
+        `line_items[${i}][price_data][unit_amount]`,
+      ];
     amount += unit * qty;
     currency = l.price_data?.currency;
   }
   const sid = id("cs");
   const s = {
-    id: sid, object: "checkout.session", mode: "payment", status: "open", payment_status: "unpaid",
-    amount_total: amount, amount_subtotal: amount, currency, livemode: false, created: now(), expires_at: now() + 86400,
-    client_reference_id: p.client_reference_id ?? null, customer_email: p.customer_email ?? null, metadata: p.metadata ?? {},
-    success_url: p.success_url.replace("{CHECKOUT_SESSION_ID}", sid), cancel_url: p.cancel_url ?? null,
-    payment_intent: null, url: `${publicUrl}/pay/${sid}`,
+    id: sid,
+    object: "checkout.session",
+    mode: "payment",
+    status: "open",
+    payment_status: "unpaid",
+    amount_total: amount,
+    amount_subtotal: amount,
+    currency,
+    livemode: false,
+    created: now(),
+    expires_at: now() + 86400,
+    client_reference_id: p.client_reference_id ?? null,
+    customer_email: p.customer_email ?? null,
+    metadata: p.metadata ?? {},
+    success_url: p.success_url.replace("{CHECKOUT_SESSION_ID}", sid),
+    cancel_url: p.cancel_url ?? null,
+    payment_intent: null,
+    url: `${publicUrl}/pay/${sid}`,
     line_items_description: lines.map((l) => l.price_data?.product_data?.name ?? "Item").join(", "),
   };
   sessions.set(sid, s);
@@ -79,7 +101,11 @@ async function deliver(evt) {
   const sig = createHmac("sha256", secret).update(`${t}.${payload}`).digest("hex");
   for (let attempt = 0; attempt < 3; attempt++) {
     try {
-      const r = await fetch(webhookUrl, { method: "POST", headers: { "content-type": "application/json", "stripe-signature": `t=${t},v1=${sig}` }, body: payload });
+      const r = await fetch(webhookUrl, {
+        method: "POST",
+        headers: { "content-type": "application/json", "stripe-signature": `t=${t},v1=${sig}` },
+        body: payload,
+      });
       evt.deliveries.push({ at: new Date().toISOString(), status: r.status });
       if (r.ok) return r.status;
     } catch (e) {
@@ -94,7 +120,15 @@ function complete(s) {
   if (s.status === "open") {
     Object.assign(s, { status: "complete", payment_status: "paid", payment_intent: id("pi") });
   }
-  const evt = { id: id("evt"), object: "event", type: "checkout.session.completed", api_version: "2026-01-01", created: now(), livemode: false, data: { object: publicSession(s) } };
+  const evt = {
+    id: id("evt"),
+    object: "event",
+    type: "checkout.session.completed",
+    api_version: "2026-01-01",
+    created: now(),
+    livemode: false,
+    data: { object: publicSession(s) },
+  };
   Object.defineProperty(evt, "deliveries", { value: [], enumerable: false });
   events.set(evt.id, evt);
   return evt;
@@ -112,9 +146,13 @@ input{width:100%;padding:.5rem;font:inherit;box-sizing:border-box}button{margin-
 <p class="note">Local test checkout: no card is charged and nothing leaves this machine.</p>
 <div class="box"><h1 style="font-size:1.25rem;margin:0 0 .5rem">${esc(s.line_items_description)}</h1>
 <p>Amount due: <strong data-testid="amount">${esc(amount)}</strong></p>
-${done ? `<p data-testid="state">This checkout is ${esc(s.status)}.</p>` : `<form method="post" action="/pay/${esc(s.id)}">
+${
+  done
+    ? `<p data-testid="state">This checkout is ${esc(s.status)}.</p>`
+    : `<form method="post" action="/pay/${esc(s.id)}">
 <label for="card">Card number (test)</label><input id="card" name="card" value="4242 4242 4242 4242" inputmode="numeric" autocomplete="off">
-<button type="submit">Pay ${esc(amount)}</button></form>`}
+<button type="submit">Pay ${esc(amount)}</button></form>`
+}
 ${s.cancel_url && !done ? `<p><a href="${esc(s.cancel_url)}">Cancel and go back</a></p>` : ""}</div></body></html>`;
 }
 
@@ -122,7 +160,13 @@ function readBody(req) {
   return new Promise((resolve, reject) => {
     let size = 0;
     const chunks = [];
-    req.on("data", (c) => { size += c.length; if (size > 1e6) { reject(new Error("too large")); req.destroy(); } else chunks.push(c); });
+    req.on("data", (c) => {
+      size += c.length;
+      if (size > 1e6) {
+        reject(new Error("too large"));
+        req.destroy();
+      } else chunks.push(c);
+    });
     req.on("end", () => resolve(Buffer.concat(chunks).toString("utf8")));
     req.on("error", reject);
   });
@@ -134,21 +178,34 @@ const server = http.createServer(async (req, res) => {
     const path = url.pathname;
     let m;
     if (path.startsWith("/v1/")) {
-      if (!/^Bearer sk_\w+/.test(req.headers.authorization ?? "")) return send(res, 401, { error: { type: "invalid_request_error", message: "Invalid API key provided" } });
+      if (!/^Bearer sk_\w+/.test(req.headers.authorization ?? ""))
+        return send(res, 401, {
+          error: { type: "invalid_request_error", message: "Invalid API key provided" },
+        });
       if (req.method === "POST" && path === "/v1/checkout/sessions") {
         const [status, body, param] = createSession(parseForm(await readBody(req)));
-        return status === 200 ? send(res, 200, publicSession(body)) : apiError(res, status, body, param);
+        return status === 200
+          ? send(res, 200, publicSession(body))
+          : apiError(res, status, body, param);
       }
       if (req.method === "GET" && (m = path.match(/^\/v1\/checkout\/sessions\/([\w]+)$/))) {
         const s = sessions.get(m[1]);
-        return s ? send(res, 200, publicSession(s)) : apiError(res, 404, `No such checkout.session: '${m[1]}'`, "id");
+        return s
+          ? send(res, 200, publicSession(s))
+          : apiError(res, 404, `No such checkout.session: '${m[1]}'`, "id");
       }
       return apiError(res, 404, `Unrecognized request URL (${req.method}: ${path})`);
     }
     if ((m = path.match(/^\/pay\/([\w]+)$/))) {
       const s = sessions.get(m[1]);
-      if (!s) { res.writeHead(404, { "content-type": "text/plain" }); return res.end("No such checkout"); }
-      if (req.method === "GET") { res.writeHead(200, { "content-type": "text/html; charset=utf-8" }); return res.end(checkoutPage(s)); }
+      if (!s) {
+        res.writeHead(404, { "content-type": "text/plain" });
+        return res.end("No such checkout");
+      }
+      if (req.method === "GET") {
+        res.writeHead(200, { "content-type": "text/html; charset=utf-8" });
+        return res.end(checkoutPage(s));
+      }
       if (req.method === "POST") {
         await readBody(req);
         const wasOpen = s.status === "open";
@@ -157,7 +214,10 @@ const server = http.createServer(async (req, res) => {
         return res.end();
       }
     }
-    if (req.method === "GET" && path === "/__fake/events") return send(res, 200, { data: [...events.values()].map((e) => ({ ...e, deliveries: e.deliveries })) });
+    if (req.method === "GET" && path === "/__fake/events")
+      return send(res, 200, {
+        data: [...events.values()].map((e) => ({ ...e, deliveries: e.deliveries })),
+      });
     if (req.method === "POST" && (m = path.match(/^\/__fake\/events\/([\w]+)\/deliver$/))) {
       const e = events.get(m[1]);
       return e ? send(res, 200, { status: await deliver(e) }) : apiError(res, 404, "No such event");
@@ -177,4 +237,6 @@ const server = http.createServer(async (req, res) => {
   }
 });
 
-server.listen(port, "127.0.0.1", () => console.log(`payment fake on ${publicUrl} → webhooks to ${webhookUrl}`));
+server.listen(port, "127.0.0.1", () =>
+  console.log(`payment fake on ${publicUrl} → webhooks to ${webhookUrl}`),
+);

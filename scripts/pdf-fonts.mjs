@@ -25,7 +25,15 @@ function withoutTables(font, drop) {
   for (let i = 0; i < n; i++) {
     const at = 12 + i * 16;
     const tag = font.toString("latin1", at, at + 4);
-    if (!drop.includes(tag)) tables.push({ tag, checksum: font.readUInt32BE(at + 4), data: font.subarray(font.readUInt32BE(at + 8), font.readUInt32BE(at + 8) + font.readUInt32BE(at + 12)) });
+    if (!drop.includes(tag))
+      tables.push({
+        tag,
+        checksum: font.readUInt32BE(at + 4),
+        data: font.subarray(
+          font.readUInt32BE(at + 8),
+          font.readUInt32BE(at + 8) + font.readUInt32BE(at + 12),
+        ),
+      });
   }
   const head = Buffer.alloc(12 + tables.length * 16);
   font.copy(head, 0, 0, 4);
@@ -50,8 +58,15 @@ function withoutTables(font, drop) {
   });
   return Buffer.concat([head, ...bodies]);
 }
-for (const [pkg, file] of [["inter", "inter-latin-400-normal"], ["inter", "inter-latin-700-normal"], ["barlow", "barlow-latin-700-normal"]]) {
+for (const [pkg, file] of [
+  ["inter", "inter-latin-400-normal"],
+  ["inter", "inter-latin-700-normal"],
+  ["barlow", "barlow-latin-700-normal"],
+]) {
   const woff = readFileSync(join(root, "node_modules/@fontsource", pkg, "files", `${file}.woff`));
-  writeFileSync(join(out, `${file}.ttf`), withoutTables(Buffer.from(toSfnt(woff)), ["GSUB", "GPOS"]));
+  writeFileSync(
+    join(out, `${file}.ttf`),
+    withoutTables(Buffer.from(toSfnt(woff)), ["GSUB", "GPOS"]),
+  );
   console.log(`lib/pdf/fonts/${file}.ttf`);
 }

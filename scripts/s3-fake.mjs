@@ -4,6 +4,12 @@ import S3rver from "s3rver";
 
 const port = Number(process.env.S3_PORT ?? 4569);
 const bucket = process.env.S3_BUCKET ?? "fuelwright-uploads";
-const server = new S3rver({ port, address: "127.0.0.1", silent: true, directory: process.env.S3_DIR ?? ".data/s3", configureBuckets: [{ name: bucket }] });
+const server = new S3rver({
+  port,
+  address: "127.0.0.1",
+  silent: true,
+  directory: process.env.S3_DIR ?? ".data/s3",
+  configureBuckets: [{ name: bucket }],
+});
 await server.run();
 console.log(`S3 fake on http://127.0.0.1:${port} (bucket ${bucket})`);

@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+
 import { AppFrame } from "@/components/shell/app-frame";
 import { requirePageMember } from "@/lib/auth/member";
 

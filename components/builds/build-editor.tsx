@@ -2,15 +2,31 @@
 
 import { useEffect, useMemo, useState, useTransition } from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
+
 import { saveBuildAction, type SaveBuildState } from "@/app/(shop)/builds/[id]/actions";
 import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
-import { AN_SIZES, ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS, FuelSystemInputSchema, convertInputs, converter, quantityOf, shopBsfcFor, sizeParsedFuelSystem, toShown, type FuelSystemInput, type ShopBsfcRow, type UnitSystem } from "@/lib/calc";
 import type { BuildStatus } from "@/db/schema/builds";
 import { diffInputs, stableJson } from "@/lib/builds/diff";
+import {
+  AN_SIZES,
+  ASPIRATION_CLASS_LABELS,
+  converter,
+  convertInputs,
+  FUEL_CLASS_LABELS,
+  FuelSystemInputSchema,
+  quantityOf,
+  shopBsfcFor,
+  sizeParsedFuelSystem,
+  toShown,
+  type FuelSystemInput,
+  type ShopBsfcRow,
+  type UnitSystem,
+} from "@/lib/calc";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
+
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
 import { SizingCharts } from "./sizing-charts";
@@ -18,16 +34,43 @@ import { SizingCharts } from "./sizing-charts";
 /** The optional parts of a build, switched on and off in the form. */
 const OPTIONAL = ["feed", "return", "wiring", "deadTime"] as const;
 type Optional = (typeof OPTIONAL)[number];
-type Values = FuelSystemInput & { title: string; status: BuildStatus; include: Record<Optional, boolean> };
-
-const OPTIONAL_DEFAULTS = {
-  feed: { insideDiameterMm: AN_SIZES[1].typicalHoseIdMm, lengthM: 5, fittingsK: 4, filterDropKpa: 7 },
-  return: { insideDiameterMm: AN_SIZES[1].typicalHoseIdMm, lengthM: 5, fittingsK: 3, filterDropKpa: 0 },
-  wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
-  deadTime: { voltages: [10, 12, 14], pressuresKpa: [300, 400], deadTimeMs: [[1.3, 1.4], [0.9, 1.0], [0.7, 0.75]] },
+type Values = FuelSystemInput & {
+  title: string;
+  status: BuildStatus;
+  include: Record<Optional, boolean>;
 };
 
-const toNumber = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : typeof v === "number" ? v : Number(String(v).replace(",", ".")));
+const OPTIONAL_DEFAULTS = {
+  feed: {
+    insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
+    lengthM: 5,
+    fittingsK: 4,
+    filterDropKpa: 7,
+  },
+  return: {
+    insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
+    lengthM: 5,
+    fittingsK: 3,
+    filterDropKpa: 0,
+  },
+  wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
+  deadTime: {
+    voltages: [10, 12, 14],
+    pressuresKpa: [300, 400],
+    deadTimeMs: [
+      [1.3, 1.4],
+      [0.9, 1.0],
+      [0.7, 0.75],
+    ],
+  },
+};
+
+const toNumber = (v: unknown) =>
+  v === "" || v === null || v === undefined
+    ? undefined
+    : typeof v === "number"
+      ? v
+      : Number(String(v).replace(",", "."));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
 
 /** Form values (shown units, optional parts kept while switched off) → the canonical inputs. */
@@ -37,7 +80,10 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   void status;
   const v = structuredClone(rest) as FuelSystemInput;
   const inc = include ?? { feed: false, return: false, wiring: false, deadTime: false };
-  const lines = { ...(inc.feed ? { feed: v.lines?.feed } : {}), ...(inc.return ? { return: v.lines?.return } : {}) };
+  const lines = {
+    ...(inc.feed ? { feed: v.lines?.feed } : {}),
+    ...(inc.return ? { return: v.lines?.return } : {}),
+  };
   if (lines.feed || lines.return) v.lines = lines;
   else delete v.lines;
   if (!inc.wiring && v.electrical) delete v.electrical.wiring;
@@ -46,18 +92,45 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
 }
 
 /** Canonical inputs → form values in the shown units, with the optional parts filled in. */
-function valuesOf(inputs: FuelSystemInput, units: UnitSystem, title: string, status: BuildStatus): Values {
-  const include = { feed: Boolean(inputs.lines?.feed), return: Boolean(inputs.lines?.return), wiring: Boolean(inputs.electrical?.wiring), deadTime: Boolean(inputs.injectors?.deadTime) };
+function valuesOf(
+  inputs: FuelSystemInput,
+  units: UnitSystem,
+  title: string,
+  status: BuildStatus,
+): Values {
+  const include = {
+    feed: Boolean(inputs.lines?.feed),
+    return: Boolean(inputs.lines?.return),
+    wiring: Boolean(inputs.electrical?.wiring),
+    deadTime: Boolean(inputs.injectors?.deadTime),
+  };
   const full: FuelSystemInput = {
     ...inputs,
-    injectors: { ...inputs.injectors, deadTime: inputs.injectors.deadTime ?? OPTIONAL_DEFAULTS.deadTime },
-    electrical: { ...inputs.electrical, wiring: inputs.electrical.wiring ?? OPTIONAL_DEFAULTS.wiring },
-    lines: { feed: inputs.lines?.feed ?? OPTIONAL_DEFAULTS.feed, return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return },
+    injectors: {
+      ...inputs.injectors,
+      deadTime: inputs.injectors.deadTime ?? OPTIONAL_DEFAULTS.deadTime,
+    },
+    electrical: {
+      ...inputs.electrical,
+      wiring: inputs.electrical.wiring ?? OPTIONAL_DEFAULTS.wiring,
+    },
+    lines: {
+      feed: inputs.lines?.feed ?? OPTIONAL_DEFAULTS.feed,
+      return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return,
+    },
   };
   return { ...convertInputs(full, units, "toShown"), title, status, include };
 }
 
-function Section({ title, children, toggle }: { title: string; children?: React.ReactNode; toggle?: React.ReactNode }) {
+function Section({
+  title,
+  children,
+  toggle,
+}: {
+  title: string;
+  children?: React.ReactNode;
+  toggle?: React.ReactNode;
+}) {
   return (
     <fieldset className="rounded-lg border border-ink-200 bg-white p-4">
       <legend className="px-1 font-display text-lg font-semibold">{title}</legend>
@@ -67,31 +140,81 @@ function Section({ title, children, toggle }: { title: string; children?: React.
   );
 }
 
-function NumberField({ register, name, label, unit, error }: { register: UseFormRegister<Values>; name: string; label: string; unit: string; error?: string }) {
-  return <UnitNumberField id={idOf(name)} label={label} unit={unit} error={error} announce {...register(name as never, { setValueAs: toNumber })} />;
+function NumberField({
+  register,
+  name,
+  label,
+  unit,
+  error,
+}: {
+  register: UseFormRegister<Values>;
+  name: string;
+  label: string;
+  unit: string;
+  error?: string;
+}) {
+  return (
+    <UnitNumberField
+      id={idOf(name)}
+      label={label}
+      unit={unit}
+      error={error}
+      announce
+      {...register(name as never, { setValueAs: toNumber })}
+    />
+  );
 }
 
 /** The build sheet: inputs on one side, the live sizing beside them, recomputed in the browser. */
-export function BuildEditor(props: { buildId: string; title: string; status: BuildStatus; version: number; inputs: FuelSystemInput; readOnly: boolean; units: UnitSystem; shopBsfc?: ShopBsfcRow[] }) {
+export function BuildEditor(props: {
+  buildId: string;
+  title: string;
+  status: BuildStatus;
+  version: number;
+  inputs: FuelSystemInput;
+  readOnly: boolean;
+  units: UnitSystem;
+  shopBsfc?: ShopBsfcRow[];
+}) {
   const [version, setVersion] = useState(props.version);
   const [units, setUnits] = useState<UnitSystem>(props.units);
   const [saved, setSaved] = useState<SaveBuildState | null>(null);
   // The canonical inputs, title and status as last saved: what "unsaved changes" compares against.
-  const [baseline, setBaseline] = useState({ inputs: props.inputs, title: props.title, status: props.status });
+  const [baseline, setBaseline] = useState({
+    inputs: props.inputs,
+    title: props.title,
+    status: props.status,
+  });
   const [pending, start] = useTransition();
-  const { register, control, reset, getValues, setValue } = useForm<Values>({ defaultValues: valuesOf(props.inputs, props.units, props.title, props.status) });
+  const { register, control, reset, getValues, setValue } = useForm<Values>({
+    defaultValues: valuesOf(props.inputs, props.units, props.title, props.status),
+  });
   const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
 
-  const inputs = useMemo(() => inputsOf(values, units, baseline.inputs), [values, units, baseline.inputs]);
+  const inputs = useMemo(
+    () => inputsOf(values, units, baseline.inputs),
+    [values, units, baseline.inputs],
+  );
   const parsed = useMemo(() => FuelSystemInputSchema.safeParse(inputs), [inputs]);
-  const result = useMemo(() => (parsed.success ? sizeParsedFuelSystem(parsed.data) : null), [parsed]);
-  const baselineJson = useMemo(() => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs), [baseline.inputs]);
-  const dirty = values.title !== baseline.title || values.status !== baseline.status || !parsed.success || stableJson(parsed.data) !== baselineJson;
+  const result = useMemo(
+    () => (parsed.success ? sizeParsedFuelSystem(parsed.data) : null),
+    [parsed],
+  );
+  const baselineJson = useMemo(
+    () => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs),
+    [baseline.inputs],
+  );
+  const dirty =
+    values.title !== baseline.title ||
+    values.status !== baseline.status ||
+    !parsed.success ||
+    stableJson(parsed.data) !== baselineJson;
   const errors = useMemo(() => {
     const out: Record<string, string> = {};
     if (!parsed.success) for (const i of parsed.error.issues) out[i.path.join(".")] ??= i.message;
-    for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {})) out[k.replace(/^inputs\./, "")] ??= v;
+    for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
+      out[k.replace(/^inputs\./, "")] ??= v;
     return out;
   }, [parsed, saved]);
 
@@ -108,8 +231,22 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
     const current = getValues();
     const canonical = inputsOf(current, units, baseline.inputs);
     // Switched-off parts keep their typed values through the switch as well.
-    const all = inputsOf({ ...current, include: { feed: true, return: true, wiring: true, deadTime: true } }, units, baseline.inputs);
-    const shown = valuesOf({ ...canonical, lines: all.lines, electrical: { ...canonical.electrical, wiring: all.electrical.wiring }, injectors: { ...canonical.injectors, deadTime: all.injectors.deadTime } }, next, current.title, current.status);
+    const all = inputsOf(
+      { ...current, include: { feed: true, return: true, wiring: true, deadTime: true } },
+      units,
+      baseline.inputs,
+    );
+    const shown = valuesOf(
+      {
+        ...canonical,
+        lines: all.lines,
+        electrical: { ...canonical.electrical, wiring: all.electrical.wiring },
+        injectors: { ...canonical.injectors, deadTime: all.injectors.deadTime },
+      },
+      next,
+      current.title,
+      current.status,
+    );
     reset({ ...shown, include: current.include });
     setUnits(next);
     const form = new FormData();
@@ -120,11 +257,20 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
   const save = () =>
     start(async () => {
       const v = getValues();
-      const res = await saveBuildAction(props.buildId, { version, title: v.title, status: v.status, inputs });
+      const res = await saveBuildAction(props.buildId, {
+        version,
+        title: v.title,
+        status: v.status,
+        inputs,
+      });
       setSaved(res);
       if (res.ok) {
         setVersion(res.version);
-        setBaseline({ inputs: parsed.success ? (parsed.data as FuelSystemInput) : inputs, title: v.title, status: v.status });
+        setBaseline({
+          inputs: parsed.success ? (parsed.data as FuelSystemInput) : inputs,
+          title: v.title,
+          status: v.status,
+        });
       }
     });
 
@@ -132,56 +278,103 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
     const q = quantityOf(name);
     return q ? converter(q, units).unit : fallback;
   };
-  const num = (name: string, label: string, unit: string) => <NumberField key={name} register={register} name={name} label={label} unit={unitOf(name, unit)} error={errors[name]} />;
-  const select = (name: string, label: string, options: [string, string][], onChange?: (v: string) => void) => (
+  const num = (name: string, label: string, unit: string) => (
+    <NumberField
+      key={name}
+      register={register}
+      name={name}
+      label={label}
+      unit={unitOf(name, unit)}
+      error={errors[name]}
+    />
+  );
+  const select = (
+    name: string,
+    label: string,
+    options: [string, string][],
+    onChange?: (v: string) => void,
+  ) => (
     <div key={name}>
-      <label htmlFor={idOf(name)} className="block text-sm font-medium text-ink-700">{label}</label>
-      <select id={idOf(name)} className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2" {...register(name as never, onChange ? { onChange: (e) => onChange(e.target.value) } : undefined)}>
+      <label htmlFor={idOf(name)} className="block text-sm font-medium text-ink-700">
+        {label}
+      </label>
+      <select
+        id={idOf(name)}
+        className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2"
+        {...register(
+          name as never,
+          onChange ? { onChange: (e) => onChange(e.target.value) } : undefined,
+        )}
+      >
         {options.map(([v, l]) => (
-          <option key={v} value={v}>{l}</option>
+          <option key={v} value={v}>
+            {l}
+          </option>
         ))}
       </select>
-      {errors[name] ? <p role="alert" className="mt-1 text-sm text-danger-700">✕ {errors[name]}</p> : null}
+      {errors[name] ? (
+        <p role="alert" className="mt-1 text-sm text-danger-700">
+          ✕ {errors[name]}
+        </p>
+      ) : null}
     </div>
   );
   const toggle = (key: Optional, label: string) => (
     <label className="flex items-center gap-2 text-sm">
-      <input type="checkbox" className="size-4 accent-copper-600" {...register(`include.${key}` as const)} />
+      <input
+        type="checkbox"
+        className="size-4 accent-copper-600"
+        {...register(`include.${key}` as const)}
+      />
       {label}
     </label>
   );
   const anPicker = (side: "feed" | "return") => {
     const idMm = inputs.lines?.[side]?.insideDiameterMm;
-    const match = AN_SIZES.find((s) => idMm !== undefined && Math.abs(s.typicalHoseIdMm - idMm) < 0.05);
+    const match = AN_SIZES.find(
+      (s) => idMm !== undefined && Math.abs(s.typicalHoseIdMm - idMm) < 0.05,
+    );
     return (
       <div>
-        <label htmlFor={`b-${side}-an`} className="block text-sm font-medium text-ink-700">Hose size</label>
+        <label htmlFor={`b-${side}-an`} className="block text-sm font-medium text-ink-700">
+          Hose size
+        </label>
         <select
           id={`b-${side}-an`}
           value={match ? String(match.dash) : ""}
           onChange={(e) => {
             const s = AN_SIZES.find((x) => String(x.dash) === e.target.value);
-            if (s) setValue(`lines.${side}.insideDiameterMm` as never, toShown("diameter", s.typicalHoseIdMm, units) as never, { shouldDirty: true });
+            if (s)
+              setValue(
+                `lines.${side}.insideDiameterMm` as never,
+                toShown("diameter", s.typicalHoseIdMm, units) as never,
+                { shouldDirty: true },
+              );
           }}
           className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2"
         >
           <option value="">Other (type the inside diameter)</option>
           {AN_SIZES.map((s) => (
-            <option key={s.dash} value={s.dash}>AN −{s.dash} (typical hose ID {s.typicalHoseIdMm} mm)</option>
+            <option key={s.dash} value={s.dash}>
+              AN −{s.dash} (typical hose ID {s.typicalHoseIdMm} mm)
+            </option>
           ))}
         </select>
       </div>
     );
   };
   const lineFields = (side: "feed" | "return") => [
-    <div key={`${side}-an`} className="sm:col-span-2">{anPicker(side)}</div>,
+    <div key={`${side}-an`} className="sm:col-span-2">
+      {anPicker(side)}
+    </div>,
     num(`lines.${side}.insideDiameterMm`, "Inside diameter", "mm"),
     num(`lines.${side}.lengthM`, "Length", "m"),
     num(`lines.${side}.fittingsK`, "Fittings (sum of K)", "K"),
     num(`lines.${side}.filterDropKpa`, "Filter drop", "kPa"),
   ];
   const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
-  const conflictChanges = saved && !saved.ok && saved.conflict ? diffInputs(inputs, saved.conflict.inputs, units) : [];
+  const conflictChanges =
+    saved && !saved.ok && saved.conflict ? diffInputs(inputs, saved.conflict.inputs, units) : [];
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
@@ -197,15 +390,35 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
         <fieldset disabled={props.readOnly} className="space-y-4">
           <div className="flex flex-wrap items-end gap-3">
             <div className="min-w-64 flex-1">
-              <label htmlFor="b-title" className="block text-sm font-medium text-ink-700">Title</label>
-              <input id="b-title" className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold" {...register("title")} />
+              <label htmlFor="b-title" className="block text-sm font-medium text-ink-700">
+                Title
+              </label>
+              <input
+                id="b-title"
+                className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold"
+                {...register("title")}
+              />
             </div>
-            {select("status", "Status", [[props.status, STATUS_LABELS[props.status]], ...STATUS_NEXT[props.status].map((s) => [s, STATUS_LABELS[s]] as [string, string])])}
+            {select("status", "Status", [
+              [props.status, STATUS_LABELS[props.status]],
+              ...STATUS_NEXT[props.status].map((s) => [s, STATUS_LABELS[s]] as [string, string]),
+            ])}
           </div>
         </fieldset>
-        <div role="radiogroup" aria-label="Units" className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm">
+        <div
+          role="radiogroup"
+          aria-label="Units"
+          className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm"
+        >
           {(["metric", "imperial"] as const).map((u) => (
-            <button key={u} type="button" role="radio" aria-checked={units === u} onClick={() => switchUnits(u)} className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}>
+            <button
+              key={u}
+              type="button"
+              role="radio"
+              aria-checked={units === u}
+              onClick={() => switchUnits(u)}
+              className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}
+            >
               {u === "metric" ? "Metric (kPa, kW, cc/min)" : "Imperial (psi, hp, lb/h)"}
             </button>
           ))}
@@ -214,14 +427,21 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
           <Section title="Engine">
             {num("engine.cylinders", "Cylinders", "count")}
             {num("engine.displacementL", "Displacement", "L")}
-            {select("engine.aspiration", "Aspiration", [["na", "Naturally aspirated"], ["turbo", "Turbocharged"], ["supercharged", "Supercharged"]])}
+            {select("engine.aspiration", "Aspiration", [
+              ["na", "Naturally aspirated"],
+              ["turbo", "Turbocharged"],
+              ["supercharged", "Supercharged"],
+            ])}
             {num("engine.maxBoostKpa", "Boost", "kPa")}
             {num("engine.redlineRpm", "Redline", "rpm")}
             {num("engine.idleRpm", "Idle", "rpm")}
           </Section>
           <Section title="Power goal">
             {num("target.powerKw", "Target power", "kW")}
-            {select("target.measuredAt", "Measured at", [["wheel", "the wheels"], ["crank", "the crank"]])}
+            {select("target.measuredAt", "Measured at", [
+              ["wheel", "the wheels"],
+              ["crank", "the crank"],
+            ])}
             {num("target.drivetrainLossPct", "Drivetrain loss", "%")}
           </Section>
           <Section title="Fuel and blend range">
@@ -230,25 +450,52 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
             {num("fuel.bsfcGPerKwh", "BSFC (blank: rule of thumb)", "g/kWh")}
             {num("fuel.targetLambda", "Target lambda (blank: reference)", "λ")}
             <ShopBsfcOffer
-              row={shopBsfcFor(props.shopBsfc ?? [], Number(inputs.fuel?.ethanolMaxVolPct), inputs.engine?.aspiration ?? "na")}
+              row={shopBsfcFor(
+                props.shopBsfc ?? [],
+                Number(inputs.fuel?.ethanolMaxVolPct),
+                inputs.engine?.aspiration ?? "na",
+              )}
               units={units}
               current={inputs.fuel?.bsfcGPerKwh}
-              onUse={(g) => setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, { shouldDirty: true })}
+              onUse={(g) =>
+                setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, {
+                  shouldDirty: true,
+                })
+              }
             />
           </Section>
-          <Section title="Injectors" toggle={<div className="mb-1">{toggle("deadTime", "Use the injector's dead-time table")}</div>}>
+          <Section
+            title="Injectors"
+            toggle={
+              <div className="mb-1">{toggle("deadTime", "Use the injector's dead-time table")}</div>
+            }
+          >
             {num("injectors.count", "Injectors", "count")}
             {num("injectors.ratedFlowCcPerMin", "Rated flow", "cc/min")}
             {num("injectors.ratedPressureKpa", "Rated at", "kPa")}
             {num("injectors.minPulseWidthMs", "Minimum pulse width", "ms")}
             {inc.deadTime ? (
               <div className="sm:col-span-2">
-                <DeadTimeGrid control={control as never} register={register as never} setValue={setValue as never} pressureUnit={converter("pressure", units).unit} error={errors["injectors.deadTime.deadTimeMs"] ?? errors["injectors.deadTime.voltages"] ?? errors["injectors.deadTime.pressuresKpa"]} toNumber={toNumber} />
+                <DeadTimeGrid
+                  control={control as never}
+                  register={register as never}
+                  setValue={setValue as never}
+                  pressureUnit={converter("pressure", units).unit}
+                  error={
+                    errors["injectors.deadTime.deadTimeMs"] ??
+                    errors["injectors.deadTime.voltages"] ??
+                    errors["injectors.deadTime.pressuresKpa"]
+                  }
+                  toNumber={toNumber}
+                />
               </div>
             ) : null}
           </Section>
           <Section title="Regulator">
-            {select("regulator.type", "Regulator", [["boost-referenced", "Boost-referenced (1:1)"], ["fixed", "Fixed (not referenced)"]])}
+            {select("regulator.type", "Regulator", [
+              ["boost-referenced", "Boost-referenced (1:1)"],
+              ["fixed", "Fixed (not referenced)"],
+            ])}
             {num("regulator.basePressureKpa", "Base pressure", "kPa")}
           </Section>
           <Section title="Pump">
@@ -256,46 +503,102 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
             {num("pumps.0.curves.0.voltage", "Curve tested at", "V")}
             <div className="sm:col-span-2">
               <p className="text-sm font-medium text-ink-700">Flow curve</p>
-              {errors["pumps.0.curves.0.points"] ? <p role="alert" className="text-sm text-danger-700">✕ {errors["pumps.0.curves.0.points"]}</p> : null}
+              {errors["pumps.0.curves.0.points"] ? (
+                <p role="alert" className="text-sm text-danger-700">
+                  ✕ {errors["pumps.0.curves.0.points"]}
+                </p>
+              ) : null}
               <div className="mt-1 space-y-2">
                 {points.fields.map((p, i) => (
                   <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    {num(`pumps.0.curves.0.points.${i}.pressureKpa`, `Point ${i + 1} pressure`, "kPa")}
+                    {num(
+                      `pumps.0.curves.0.points.${i}.pressureKpa`,
+                      `Point ${i + 1} pressure`,
+                      "kPa",
+                    )}
                     {num(`pumps.0.curves.0.points.${i}.flowLPerH`, `Point ${i + 1} flow`, "L/h")}
-                    <Button type="button" variant="ghost" aria-label={`Remove point ${i + 1}`} onClick={() => points.remove(i)}>✕</Button>
+                    <Button
+                      type="button"
+                      variant="ghost"
+                      aria-label={`Remove point ${i + 1}`}
+                      onClick={() => points.remove(i)}
+                    >
+                      ✕
+                    </Button>
                   </div>
                 ))}
               </div>
-              <Button type="button" variant="secondary" className="mt-2" onClick={() => points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)}>Add point</Button>
+              <Button
+                type="button"
+                variant="secondary"
+                className="mt-2"
+                onClick={() =>
+                  points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)
+                }
+              >
+                Add point
+              </Button>
             </div>
           </Section>
-          <Section title="Electrical" toggle={<div className="mb-1">{toggle("wiring", "Work out the voltage from the wiring")}</div>}>
+          <Section
+            title="Electrical"
+            toggle={
+              <div className="mb-1">{toggle("wiring", "Work out the voltage from the wiring")}</div>
+            }
+          >
             {num("electrical.voltageAtPump", "Voltage at the pump", "V")}
-            {inc.wiring ? [
-              num("electrical.wiring.sourceVoltage", "Supply voltage (charging)", "V"),
-              num("electrical.wiring.gaugeAwg", "Wire gauge", "AWG"),
-              num("electrical.wiring.roundTripLengthM", "Wire length, there and back", "m"),
-              num("electrical.wiring.currentA", "Pump current", "A"),
-            ] : null}
+            {inc.wiring
+              ? [
+                  num("electrical.wiring.sourceVoltage", "Supply voltage (charging)", "V"),
+                  num("electrical.wiring.gaugeAwg", "Wire gauge", "AWG"),
+                  num("electrical.wiring.roundTripLengthM", "Wire length, there and back", "m"),
+                  num("electrical.wiring.currentA", "Pump current", "A"),
+                ]
+              : null}
           </Section>
-          <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>{inc.feed ? lineFields("feed") : null}</Section>
-          <Section title="Return line" toggle={toggle("return", "Size the return line (regulator to tank)")}>{inc.return ? lineFields("return") : null}</Section>
+          <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
+            {inc.feed ? lineFields("feed") : null}
+          </Section>
+          <Section
+            title="Return line"
+            toggle={toggle("return", "Size the return line (regulator to tank)")}
+          >
+            {inc.return ? lineFields("return") : null}
+          </Section>
           {!props.readOnly ? (
             <div className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3">
-              <Button type="submit" disabled={pending}>{pending ? "Saving…" : "Save build"}</Button>
-              <span className="figure text-sm text-ink-600">version {version}{dirty ? " · unsaved changes" : ""}</span>
+              <Button type="submit" disabled={pending}>
+                {pending ? "Saving…" : "Save build"}
+              </Button>
+              <span className="figure text-sm text-ink-600">
+                version {version}
+                {dirty ? " · unsaved changes" : ""}
+              </span>
               <FormStatus ok={saved?.ok} message={saved?.message} />
               {saved && !saved.ok && saved.conflict ? (
                 <div className="w-full text-sm text-caution-700" data-testid="conflict">
                   <p>
-                    ▲ {saved.conflict.authorName ?? "Someone"} saved version {saved.conflict.version} (“{saved.conflict.title}”) at {saved.conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC. Your entries are still here; nothing was overwritten. Reload to take theirs, then re-apply yours.
+                    ▲ {saved.conflict.authorName ?? "Someone"} saved version{" "}
+                    {saved.conflict.version} (“{saved.conflict.title}”) at{" "}
+                    {saved.conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC. Your entries are
+                    still here; nothing was overwritten. Reload to take theirs, then re-apply yours.
                   </p>
                   {conflictChanges.length > 0 ? (
                     <table className="mt-2 w-full text-left text-ink-800">
-                      <thead><tr><th scope="col">Field</th><th scope="col">Yours</th><th scope="col">Theirs (saved)</th></tr></thead>
+                      <thead>
+                        <tr>
+                          <th scope="col">Field</th>
+                          <th scope="col">Yours</th>
+                          <th scope="col">Theirs (saved)</th>
+                        </tr>
+                      </thead>
                       <tbody>
                         {conflictChanges.map((c) => (
-                          <tr key={c.path}><td>{c.label}</td><td className="figure">{c.before}</td><td className="figure">{c.after}</td></tr>
+                          <tr key={c.path}>
+                            <td>{c.label}</td>
+                            <td className="figure">{c.before}</td>
+                            <td className="figure">{c.after}</td>
+                          </tr>
                         ))}
                       </tbody>
                     </table>
@@ -319,16 +622,34 @@ export function BuildEditor(props: { buildId: string; title: string; status: Bui
 }
 
 /** "Use this shop's measured BSFC (n builds)": the shop's own figure beside the rule of thumb. */
-function ShopBsfcOffer({ row, units, current, onUse }: { row: ShopBsfcRow | null; units: UnitSystem; current?: number; onUse: (gPerKwh: number) => void }) {
+function ShopBsfcOffer({
+  row,
+  units,
+  current,
+  onUse,
+}: {
+  row: ShopBsfcRow | null;
+  units: UnitSystem;
+  current?: number;
+  onUse: (gPerKwh: number) => void;
+}) {
   const c = converter("bsfc", units);
   const fmt = (g: number) => `${c.to(g).toFixed(units === "metric" ? 0 : 2)} ${c.unit}`;
   if (!row) {
-    return <p className="text-sm text-ink-600 sm:col-span-2" data-testid="shop-bsfc">No verified builds with logged power for this fuel and aspiration yet; the rule of thumb applies.</p>;
+    return (
+      <p className="text-sm text-ink-600 sm:col-span-2" data-testid="shop-bsfc">
+        No verified builds with logged power for this fuel and aspiration yet; the rule of thumb
+        applies.
+      </p>
+    );
   }
   const mean = Math.round(row.meanGPerKwh);
   const inUse = current !== undefined && Math.abs(current - mean) < 0.5;
   return (
-    <div className="rounded-md border border-copper-100 bg-copper-50 p-3 text-sm sm:col-span-2" data-testid="shop-bsfc">
+    <div
+      className="rounded-md border border-copper-100 bg-copper-50 p-3 text-sm sm:col-span-2"
+      data-testid="shop-bsfc"
+    >
       <p>
         This shop measured <span className="figure font-semibold">{fmt(mean)}</span>
         {` on ${FUEL_CLASS_LABELS[row.fuel]} fuel, ${ASPIRATION_CLASS_LABELS[row.aspiration].toLowerCase()}${row.builds > 1 ? ` (range ${fmt(row.minGPerKwh)} – ${fmt(row.maxGPerKwh)})` : ""}.`}

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
+
 import { copyBuildAction } from "@/app/(shop)/builds/[id]/copy-actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
@@ -10,7 +11,11 @@ export function CopyBuildButton({ buildId }: { buildId: string }) {
   const [message, setMessage] = useState<string>();
   return (
     <span className="inline-flex items-center gap-2">
-      <Button variant="secondary" disabled={pending} onClick={() => start(async () => setMessage((await copyBuildAction(buildId)).message))}>
+      <Button
+        variant="secondary"
+        disabled={pending}
+        onClick={() => start(async () => setMessage((await copyBuildAction(buildId)).message))}
+      >
         {pending ? "Copying…" : "Copy as next power step"}
       </Button>
       <FormStatus message={message} />

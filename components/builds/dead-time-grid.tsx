@@ -1,6 +1,12 @@
 "use client";
 
-import { useWatch, type Control, type UseFormRegister, type UseFormSetValue } from "react-hook-form";
+import {
+  useWatch,
+  type Control,
+  type UseFormRegister,
+  type UseFormSetValue,
+} from "react-hook-form";
+
 import { Button } from "@/components/ui/button";
 
 interface Table {
@@ -12,27 +18,86 @@ interface Table {
 const cell = "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right";
 
 /** The injector's dead time by battery voltage (rows) and differential pressure (columns). */
-export function DeadTimeGrid({ control, register, setValue, pressureUnit, error, toNumber }: { control: Control<any>; register: UseFormRegister<any>; setValue: UseFormSetValue<any>; pressureUnit: string; error?: string; toNumber: (v: unknown) => number | undefined }) {
-  const t = (useWatch({ control, name: "injectors.deadTime" }) as Table | undefined) ?? { voltages: [], pressuresKpa: [], deadTimeMs: [] };
+export function DeadTimeGrid({
+  control,
+  register,
+  setValue,
+  pressureUnit,
+  error,
+  toNumber,
+}: {
+  control: Control<any>;
+  register: UseFormRegister<any>;
+  setValue: UseFormSetValue<any>;
+  pressureUnit: string;
+  error?: string;
+  toNumber: (v: unknown) => number | undefined;
+}) {
+  const t = (useWatch({ control, name: "injectors.deadTime" }) as Table | undefined) ?? {
+    voltages: [],
+    pressuresKpa: [],
+    deadTimeMs: [],
+  };
   const put = (next: Table) => setValue("injectors.deadTime", next, { shouldDirty: true });
-  const addRow = () => put({ ...t, voltages: [...t.voltages, undefined], deadTimeMs: [...t.deadTimeMs, t.pressuresKpa.map(() => undefined)] });
-  const addCol = () => put({ ...t, pressuresKpa: [...t.pressuresKpa, undefined], deadTimeMs: t.deadTimeMs.map((r) => [...r, undefined]) });
-  const dropRow = (i: number) => put({ ...t, voltages: t.voltages.filter((_, k) => k !== i), deadTimeMs: t.deadTimeMs.filter((_, k) => k !== i) });
-  const dropCol = (j: number) => put({ ...t, pressuresKpa: t.pressuresKpa.filter((_, k) => k !== j), deadTimeMs: t.deadTimeMs.map((r) => r.filter((_, k) => k !== j)) });
+  const addRow = () =>
+    put({
+      ...t,
+      voltages: [...t.voltages, undefined],
+      deadTimeMs: [...t.deadTimeMs, t.pressuresKpa.map(() => undefined)],
+    });
+  const addCol = () =>
+    put({
+      ...t,
+      pressuresKpa: [...t.pressuresKpa, undefined],
+      deadTimeMs: t.deadTimeMs.map((r) => [...r, undefined]),
+    });
+  const dropRow = (i: number) =>
+    put({
+      ...t,
+      voltages: t.voltages.filter((_, k) => k !== i),
+      deadTimeMs: t.deadTimeMs.filter((_, k) => k !== i),
+    });
+  const dropCol = (j: number) =>
+    put({
+      ...t,
+      pressuresKpa: t.pressuresKpa.filter((_, k) => k !== j),
+      deadTimeMs: t.deadTimeMs.map((r) => r.filter((_, k) => k !== j)),
+    });
   const n = { setValueAs: toNumber };
   return (
     <div>
-      <p className="text-sm font-medium text-ink-700">Dead time (ms) by voltage and pressure across the injector ({pressureUnit})</p>
-      {error ? <p role="alert" className="text-sm text-danger-700">✕ {error}</p> : null}
+      <p className="text-sm font-medium text-ink-700">
+        Dead time (ms) by voltage and pressure across the injector ({pressureUnit})
+      </p>
+      {error ? (
+        <p role="alert" className="text-sm text-danger-700">
+          ✕ {error}
+        </p>
+      ) : null}
       <div className="mt-1 overflow-x-auto">
         <table className="text-sm">
           <thead>
             <tr>
-              <th scope="col" className="px-1 text-left font-normal text-ink-600">V \ {pressureUnit}</th>
+              <th scope="col" className="px-1 text-left font-normal text-ink-600">
+                V \ {pressureUnit}
+              </th>
               {t.pressuresKpa.map((_, j) => (
                 <th key={j} scope="col" className="px-1">
-                  <input aria-label={`Pressure column ${j + 1} (${pressureUnit})`} inputMode="decimal" className={cell} {...register(`injectors.deadTime.pressuresKpa.${j}`, n)} />
-                  <button type="button" className="text-xs text-ink-500 underline" aria-label={`Remove pressure column ${j + 1}`} onClick={() => dropCol(j)} disabled={t.pressuresKpa.length < 2}>remove</button>
+                  <input
+                    aria-label={`Pressure column ${j + 1} (${pressureUnit})`}
+                    inputMode="decimal"
+                    className={cell}
+                    {...register(`injectors.deadTime.pressuresKpa.${j}`, n)}
+                  />
+                  <button
+                    type="button"
+                    className="text-xs text-ink-500 underline"
+                    aria-label={`Remove pressure column ${j + 1}`}
+                    onClick={() => dropCol(j)}
+                    disabled={t.pressuresKpa.length < 2}
+                  >
+                    remove
+                  </button>
                 </th>
               ))}
             </tr>
@@ -41,15 +106,33 @@ export function DeadTimeGrid({ control, register, setValue, pressureUnit, error,
             {t.voltages.map((_, i) => (
               <tr key={i}>
                 <th scope="row" className="px-1">
-                  <input aria-label={`Voltage row ${i + 1} (V)`} inputMode="decimal" className={cell} {...register(`injectors.deadTime.voltages.${i}`, n)} />
+                  <input
+                    aria-label={`Voltage row ${i + 1} (V)`}
+                    inputMode="decimal"
+                    className={cell}
+                    {...register(`injectors.deadTime.voltages.${i}`, n)}
+                  />
                 </th>
                 {t.pressuresKpa.map((_, j) => (
                   <td key={j} className="px-1">
-                    <input aria-label={`Dead time at row ${i + 1}, column ${j + 1} (ms)`} inputMode="decimal" className={cell} {...register(`injectors.deadTime.deadTimeMs.${i}.${j}`, n)} />
+                    <input
+                      aria-label={`Dead time at row ${i + 1}, column ${j + 1} (ms)`}
+                      inputMode="decimal"
+                      className={cell}
+                      {...register(`injectors.deadTime.deadTimeMs.${i}.${j}`, n)}
+                    />
                   </td>
                 ))}
                 <td>
-                  <button type="button" className="text-xs text-ink-500 underline" aria-label={`Remove voltage row ${i + 1}`} onClick={() => dropRow(i)} disabled={t.voltages.length < 2}>remove</button>
+                  <button
+                    type="button"
+                    className="text-xs text-ink-500 underline"
+                    aria-label={`Remove voltage row ${i + 1}`}
+                    onClick={() => dropRow(i)}
+                    disabled={t.voltages.length < 2}
+                  >
+                    remove
+                  </button>
                 </td>
               </tr>
             ))}
@@ -57,8 +140,22 @@ export function DeadTimeGrid({ control, register, setValue, pressureUnit, error,
         </table>
       </div>
       <div className="mt-2 flex gap-2">
-        <Button type="button" variant="secondary" onClick={addRow} disabled={t.voltages.length >= 20}>Add voltage</Button>
-        <Button type="button" variant="secondary" onClick={addCol} disabled={t.pressuresKpa.length >= 20}>Add pressure</Button>
+        <Button
+          type="button"
+          variant="secondary"
+          onClick={addRow}
+          disabled={t.voltages.length >= 20}
+        >
+          Add voltage
+        </Button>
+        <Button
+          type="button"
+          variant="secondary"
+          onClick={addCol}
+          disabled={t.pressuresKpa.length >= 20}
+        >
+          Add pressure
+        </Button>
       </div>
     </div>
   );

@@ -2,61 +2,126 @@
 
 import { useState, useTransition } from "react";
 import useSWR from "swr";
+
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { api } from "@/lib/api-client";
 import { fetcher } from "@/lib/fetcher";
 
-interface Link { id: string; expiresAt: string; revokedAt: string | null; createdAt: string; active: boolean }
+interface Link {
+  id: string;
+  expiresAt: string;
+  revokedAt: string | null;
+  createdAt: string;
+  active: boolean;
+}
 
 /** Expiring, revocable links to this build's spec sheet for people without an account. */
 export function ShareLinks({ buildId }: { buildId: string }) {
-  const { data, mutate } = useSWR<{ links: Link[] }>(`/api/v1/builds/${buildId}/share-links`, fetcher);
+  const { data, mutate } = useSWR<{ links: Link[] }>(
+    `/api/v1/builds/${buildId}/share-links`,
+    fetcher,
+  );
   const [days, setDays] = useState("14");
   const [url, setUrl] = useState<string | null>(null);
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
   return (
     <section aria-labelledby="share" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
-      <h2 id="share" className="text-xl font-semibold">Share the spec sheet</h2>
+      <h2 id="share" className="text-xl font-semibold">
+        Share the spec sheet
+      </h2>
       <div className="mt-2 flex flex-wrap items-end gap-3">
         <div>
-          <label htmlFor="share-days" className="block text-sm font-medium text-ink-700">Link works for</label>
-          <select id="share-days" value={days} onChange={(e) => setDays(e.target.value)} className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2">
-            {["1", "7", "14", "30", "90"].map((d) => <option key={d} value={d}>{d} day{d === "1" ? "" : "s"}</option>)}
+          <label htmlFor="share-days" className="block text-sm font-medium text-ink-700">
+            Link works for
+          </label>
+          <select
+            id="share-days"
+            value={days}
+            onChange={(e) => setDays(e.target.value)}
+            className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
+          >
+            {["1", "7", "14", "30", "90"].map((d) => (
+              <option key={d} value={d}>
+                {d} day{d === "1" ? "" : "s"}
+              </option>
+            ))}
           </select>
         </div>
-        <Button variant="secondary" disabled={pending} onClick={() => start(async () => {
-          const res = await api<{ url: string }>("POST", `/api/v1/builds/${buildId}/share-links`, { days: Number(days) });
-          if (res.ok) {
-            setUrl(res.data.url);
-            setStatus({ ok: true, message: "Link made: copy it now, it is shown only once" });
-            await mutate();
-          } else setStatus({ ok: false, message: res.message });
-        })}>Make a link</Button>
+        <Button
+          variant="secondary"
+          disabled={pending}
+          onClick={() =>
+            start(async () => {
+              const res = await api<{ url: string }>(
+                "POST",
+                `/api/v1/builds/${buildId}/share-links`,
+                { days: Number(days) },
+              );
+              if (res.ok) {
+                setUrl(res.data.url);
+                setStatus({ ok: true, message: "Link made: copy it now, it is shown only once" });
+                await mutate();
+              } else setStatus({ ok: false, message: res.message });
+            })
+          }
+        >
+          Make a link
+        </Button>
         <FormStatus ok={status?.ok} message={status?.message} />
       </div>
       {url ? (
         <div className="mt-3 flex flex-wrap items-center gap-2">
-          <label htmlFor="share-url" className="sr-only">Share link</label>
-          <input id="share-url" readOnly value={url} className="figure min-w-96 flex-1 rounded-md border border-ink-300 bg-ink-50 px-3 py-2 text-sm" onFocus={(e) => e.currentTarget.select()} />
-          <Button variant="ghost" onClick={() => void navigator.clipboard?.writeText(url)}>Copy</Button>
+          <label htmlFor="share-url" className="sr-only">
+            Share link
+          </label>
+          <input
+            id="share-url"
+            readOnly
+            value={url}
+            className="figure min-w-96 flex-1 rounded-md border border-ink-300 bg-ink-50 px-3 py-2 text-sm"
+            onFocus={(e) => e.currentTarget.select()}
+          />
+          <Button variant="ghost" onClick={() => void navigator.clipboard?.writeText(url)}>
+            Copy
+          </Button>
         </div>
       ) : null}
       {data && data.links.length ? (
         <ul className="mt-3 divide-y divide-ink-100 text-sm">
           {data.links.map((l) => {
-            const state = l.revokedAt ? "withdrawn" : !l.active ? "expired" : `works until ${l.expiresAt.slice(0, 10)}`;
+            const state = l.revokedAt
+              ? "withdrawn"
+              : !l.active
+                ? "expired"
+                : `works until ${l.expiresAt.slice(0, 10)}`;
             return (
               <li key={l.id} className="flex items-center gap-3 py-2">
-                <span className="figure text-ink-600">made {l.createdAt.slice(0, 16).replace("T", " ")} UTC</span>
+                <span className="figure text-ink-600">
+                  made {l.createdAt.slice(0, 16).replace("T", " ")} UTC
+                </span>
                 <span className="flex-1">{state}</span>
                 {l.active ? (
-                  <Button variant="ghost" onClick={() => window.confirm("Withdraw this link? Anyone holding it loses access at once.") && start(async () => {
-                    const res = await api("DELETE", `/api/v1/share-links/${l.id}`);
-                    setStatus(res.ok || res.status === 204 ? { ok: true, message: "Link withdrawn" } : { ok: false, message: res.message });
-                    await mutate();
-                  })}>Withdraw</Button>
+                  <Button
+                    variant="ghost"
+                    onClick={() =>
+                      window.confirm(
+                        "Withdraw this link? Anyone holding it loses access at once.",
+                      ) &&
+                      start(async () => {
+                        const res = await api("DELETE", `/api/v1/share-links/${l.id}`);
+                        setStatus(
+                          res.ok || res.status === 204
+                            ? { ok: true, message: "Link withdrawn" }
+                            : { ok: false, message: res.message },
+                        );
+                        await mutate();
+                      })
+                    }
+                  >
+                    Withdraw
+                  </Button>
                 ) : null}
               </li>
             );

@@ -3,12 +3,13 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import useSWR from "swr";
+
 import { Button } from "@/components/ui/button";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
 import type { ChosenPart, KitRole } from "@/db/schema/builds";
 import { api } from "@/lib/api-client";
-import type { Candidate } from "@/lib/catalog/recommend";
 import { formatMoney } from "@/lib/catalog/money";
+import type { Candidate } from "@/lib/catalog/recommend";
 import { fetcher } from "@/lib/fetcher";
 
 interface Kit {
@@ -20,7 +21,17 @@ interface Kit {
 const key = (c: { part: { id: string }; quantity: number }) => `${c.part.id}:${c.quantity}`;
 
 /** Ranked parts per role with the reasons; choosing writes them into the build and sizes it with their data. */
-export function KitPicker({ buildId, currency, canChoose, canQuote }: { buildId: string; currency: string; canChoose: boolean; canQuote: boolean }) {
+export function KitPicker({
+  buildId,
+  currency,
+  canChoose,
+  canQuote,
+}: {
+  buildId: string;
+  currency: string;
+  canChoose: boolean;
+  canQuote: boolean;
+}) {
   const router = useRouter();
   const { data, error, isLoading, mutate } = useSWR<Kit>(`/api/v1/builds/${buildId}/kit`, fetcher);
   // What the person changed; every other role shows the chosen part, else the best that fits.
@@ -29,15 +40,32 @@ export function KitPicker({ buildId, currency, canChoose, canQuote }: { buildId:
   const [pending, start] = useTransition();
 
   if (isLoading) return <p aria-live="polite">Working out the kit…</p>;
-  if (error) return <p role="alert" className="text-danger-700">✕ {error.message}</p>;
+  if (error)
+    return (
+      <p role="alert" className="text-danger-700">
+        ✕ {error.message}
+      </p>
+    );
   if (!data) return null;
   const pick: Partial<Record<KitRole, string>> = {};
   for (const r of data.roles) {
     const chosen = data.chosen.find((c) => c.role === r.role);
     const best = r.candidates.find((c) => c.fits);
-    pick[r.role] = r.role in override ? override[r.role] : chosen ? `${chosen.partId}:${chosen.quantity}` : r.needed && best ? key(best) : undefined;
+    pick[r.role] =
+      r.role in override
+        ? override[r.role]
+        : chosen
+          ? `${chosen.partId}:${chosen.quantity}`
+          : r.needed && best
+            ? key(best)
+            : undefined;
   }
-  if (data.roles.every((r) => r.candidates.length === 0)) return <EmptyState title="No parts to choose from">Add injectors, pumps and lines to the catalog (Parts → Import CSV).</EmptyState>;
+  if (data.roles.every((r) => r.candidates.length === 0))
+    return (
+      <EmptyState title="No parts to choose from">
+        Add injectors, pumps and lines to the catalog (Parts → Import CSV).
+      </EmptyState>
+    );
 
   const total = data.roles.reduce((sum, r) => {
     const c = r.candidates.find((x) => key(x) === pick[r.role]);
@@ -52,9 +80,16 @@ export function KitPicker({ buildId, currency, canChoose, canQuote }: { buildId:
         const [partId, qty] = v.split(":");
         return [{ role: r.role, partId: partId!, quantity: Number(qty) }];
       });
-      const res = await api<{ build: { version: number } }>("POST", `/api/v1/builds/${buildId}/kit`, { version: data.buildVersion, parts });
+      const res = await api<{ build: { version: number } }>(
+        "POST",
+        `/api/v1/builds/${buildId}/kit`,
+        { version: data.buildVersion, parts },
+      );
       if (res.ok) {
-        setStatus({ ok: true, message: `Parts written into the build as version ${res.data.build.version}` });
+        setStatus({
+          ok: true,
+          message: `Parts written into the build as version ${res.data.build.version}`,
+        });
         await mutate();
         setPick({});
         router.refresh();
@@ -71,22 +106,54 @@ export function KitPicker({ buildId, currency, canChoose, canQuote }: { buildId:
   return (
     <div className="space-y-4">
       {data.roles.map((r) => (
-        <fieldset key={r.role} className="rounded-lg border border-ink-200 bg-white p-4" disabled={!canChoose}>
-          <legend className="px-1 font-display text-lg font-semibold">{r.label}{!r.needed ? " (not needed)" : ""}</legend>
-          {r.candidates.length === 0 ? <p className="text-sm text-ink-600">No {r.label.toLowerCase()} in the catalog.</p> : null}
+        <fieldset
+          key={r.role}
+          className="rounded-lg border border-ink-200 bg-white p-4"
+          disabled={!canChoose}
+        >
+          <legend className="px-1 font-display text-lg font-semibold">
+            {r.label}
+            {!r.needed ? " (not needed)" : ""}
+          </legend>
+          {r.candidates.length === 0 ? (
+            <p className="text-sm text-ink-600">No {r.label.toLowerCase()} in the catalog.</p>
+          ) : null}
           <ul className="space-y-2">
             <li>
               <label className="flex items-center gap-2 text-sm">
-                <input type="radio" name={r.role} checked={!pick[r.role]} onChange={() => setPick((p) => ({ ...p, [r.role]: undefined }))} /> None
+                <input
+                  type="radio"
+                  name={r.role}
+                  checked={!pick[r.role]}
+                  onChange={() => setPick((p) => ({ ...p, [r.role]: undefined }))}
+                />{" "}
+                None
               </label>
             </li>
             {r.candidates.slice(0, 6).map((c, i) => (
               <li key={key(c)}>
                 <label className="flex items-start gap-2 text-sm">
-                  <input type="radio" className="mt-1" name={r.role} checked={pick[r.role] === key(c)} onChange={() => setPick((p) => ({ ...p, [r.role]: key(c) }))} aria-label={`${r.label}: ${c.quantity} × ${c.part.sku}`} />
+                  <input
+                    type="radio"
+                    className="mt-1"
+                    name={r.role}
+                    checked={pick[r.role] === key(c)}
+                    onChange={() => setPick((p) => ({ ...p, [r.role]: key(c) }))}
+                    aria-label={`${r.label}: ${c.quantity} × ${c.part.sku}`}
+                  />
                   <span>
-                    <span className="font-medium">{c.quantity > 1 ? `${c.quantity} × ` : ""}{c.part.brand} {c.part.name}</span> <span className="figure text-ink-600">{c.part.sku} · {formatMoney(c.part.priceMinor, currency)}</span>{" "}
-                    {c.fits ? <Signal level="ok">{i === 0 ? "Best fit" : "Fits"}</Signal> : <Signal level="danger">Does not fit</Signal>}
+                    <span className="font-medium">
+                      {c.quantity > 1 ? `${c.quantity} × ` : ""}
+                      {c.part.brand} {c.part.name}
+                    </span>{" "}
+                    <span className="figure text-ink-600">
+                      {c.part.sku} · {formatMoney(c.part.priceMinor, currency)}
+                    </span>{" "}
+                    {c.fits ? (
+                      <Signal level="ok">{i === 0 ? "Best fit" : "Fits"}</Signal>
+                    ) : (
+                      <Signal level="danger">Does not fit</Signal>
+                    )}
                     <span className="block text-ink-700">{c.why.join("; ")}</span>
                   </span>
                 </label>
@@ -97,8 +164,16 @@ export function KitPicker({ buildId, currency, canChoose, canQuote }: { buildId:
       ))}
       <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-ink-200 bg-ink-50 py-3">
         <span className="figure font-semibold">Parts {formatMoney(total, currency)}</span>
-        {canChoose ? <Button onClick={choose} disabled={pending}>{pending ? "Working…" : "Use these parts"}</Button> : null}
-        {canQuote && data.chosen.length ? <Button variant="secondary" onClick={quote} disabled={pending}>Create quote from the chosen parts</Button> : null}
+        {canChoose ? (
+          <Button onClick={choose} disabled={pending}>
+            {pending ? "Working…" : "Use these parts"}
+          </Button>
+        ) : null}
+        {canQuote && data.chosen.length ? (
+          <Button variant="secondary" onClick={quote} disabled={pending}>
+            Create quote from the chosen parts
+          </Button>
+        ) : null}
         <FormStatus ok={status?.ok} message={status?.message} />
       </div>
     </div>

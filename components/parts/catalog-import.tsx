@@ -2,14 +2,28 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { api } from "@/lib/api-client";
 import { formatMoney } from "@/lib/catalog/money";
 import { CSV_COLUMNS } from "@/lib/validations/parts";
 
-interface PreviewRow { line: number; sku: string; name: string; brand: string; category: string; priceMinor: number; stock: number; action: "add" | "update" }
-interface RowError { line: number; field: string; message: string }
+interface PreviewRow {
+  line: number;
+  sku: string;
+  name: string;
+  brand: string;
+  category: string;
+  priceMinor: number;
+  stock: number;
+  action: "add" | "update";
+}
+interface RowError {
+  line: number;
+  field: string;
+  message: string;
+}
 type Result = { preview: PreviewRow[]; ignoredColumns: string[]; added?: number; updated?: number };
 
 /** Upload → preview (nothing written) → import all rows in one go, or none with every problem listed. */
@@ -25,13 +39,21 @@ export function CatalogImport({ currency }: { currency: string }) {
   const send = async (text: string, dryRun: boolean) => {
     setBusy(dryRun ? "checking" : "importing");
     setStatus(null);
-    const res = await api<Result>("POST", `/api/v1/parts/import${dryRun ? "?dryRun=1" : ""}`, text, { headers: { "content-type": "text/csv", accept: "application/json" } });
+    const res = await api<Result>(
+      "POST",
+      `/api/v1/parts/import${dryRun ? "?dryRun=1" : ""}`,
+      text,
+      { headers: { "content-type": "text/csv", accept: "application/json" } },
+    );
     setBusy("");
     if (res.ok) {
       setPreview(res.data);
       setErrors([]);
       if (!dryRun) {
-        setStatus({ ok: true, message: `Imported: ${res.data.added} added, ${res.data.updated} updated` });
+        setStatus({
+          ok: true,
+          message: `Imported: ${res.data.added} added, ${res.data.updated} updated`,
+        });
         setCsv(null);
         router.refresh();
       }
@@ -46,8 +68,14 @@ export function CatalogImport({ currency }: { currency: string }) {
   return (
     <div className="space-y-4">
       <div className="rounded-lg border border-ink-200 bg-white p-5">
-        <label htmlFor="csv-file" className="block font-semibold">Catalog file (CSV)</label>
-        <p className="mt-1 text-sm text-ink-600">First line: column names. Required: sku, category, brand, name, price, stock. All columns: <span className="figure">{CSV_COLUMNS.join(", ")}</span>. Pump curves as “13.5V 300:340 500:290” (kPa:L/h). Known SKUs are updated.</p>
+        <label htmlFor="csv-file" className="block font-semibold">
+          Catalog file (CSV)
+        </label>
+        <p className="mt-1 text-sm text-ink-600">
+          First line: column names. Required: sku, category, brand, name, price, stock. All columns:{" "}
+          <span className="figure">{CSV_COLUMNS.join(", ")}</span>. Pump curves as “13.5V 300:340
+          500:290” (kPa:L/h). Known SKUs are updated.
+        </p>
         <input
           id="csv-file"
           type="file"
@@ -66,37 +94,93 @@ export function CatalogImport({ currency }: { currency: string }) {
             await send(text, true);
           }}
         />
-        <p aria-live="polite" className="mt-2 text-sm text-ink-700">{busy === "checking" ? `Checking ${fileName}…` : busy === "importing" ? "Importing…" : ""}</p>
+        <p aria-live="polite" className="mt-2 text-sm text-ink-700">
+          {busy === "checking" ? `Checking ${fileName}…` : busy === "importing" ? "Importing…" : ""}
+        </p>
         <FormStatus ok={status?.ok} message={status?.message} />
       </div>
       {errors.length ? (
-        <section aria-labelledby="imp-errors" className="rounded-lg border border-danger-600 bg-white p-5">
-          <h2 id="imp-errors" className="font-semibold text-danger-700">✕ Fix these rows, then choose the file again</h2>
+        <section
+          aria-labelledby="imp-errors"
+          className="rounded-lg border border-danger-600 bg-white p-5"
+        >
+          <h2 id="imp-errors" className="font-semibold text-danger-700">
+            ✕ Fix these rows, then choose the file again
+          </h2>
           <table className="mt-2 w-full text-left text-sm" data-testid="import-errors">
-            <thead><tr><th scope="col">Line</th><th scope="col">Column</th><th scope="col">Problem</th></tr></thead>
+            <thead>
+              <tr>
+                <th scope="col">Line</th>
+                <th scope="col">Column</th>
+                <th scope="col">Problem</th>
+              </tr>
+            </thead>
             <tbody>
               {errors.map((e, i) => (
-                <tr key={i} className="border-t border-ink-100"><td className="figure">{e.line}</td><td className="figure">{e.field}</td><td>{e.message}</td></tr>
+                <tr key={i} className="border-t border-ink-100">
+                  <td className="figure">{e.line}</td>
+                  <td className="figure">{e.field}</td>
+                  <td>{e.message}</td>
+                </tr>
               ))}
             </tbody>
           </table>
         </section>
       ) : null}
       {preview && preview.preview.length ? (
-        <section aria-labelledby="imp-preview" className="rounded-lg border border-ink-200 bg-white p-5">
-          <h2 id="imp-preview" className="font-semibold">Preview: {preview.preview.length} rows read ({preview.preview.filter((r) => r.action === "add").length} new, {preview.preview.filter((r) => r.action === "update").length} updates)</h2>
-          {preview.ignoredColumns.length ? <p className="text-sm text-caution-700">▲ Columns not used: {preview.ignoredColumns.join(", ")}</p> : null}
+        <section
+          aria-labelledby="imp-preview"
+          className="rounded-lg border border-ink-200 bg-white p-5"
+        >
+          <h2 id="imp-preview" className="font-semibold">
+            Preview: {preview.preview.length} rows read (
+            {preview.preview.filter((r) => r.action === "add").length} new,{" "}
+            {preview.preview.filter((r) => r.action === "update").length} updates)
+          </h2>
+          {preview.ignoredColumns.length ? (
+            <p className="text-sm text-caution-700">
+              ▲ Columns not used: {preview.ignoredColumns.join(", ")}
+            </p>
+          ) : null}
           <div className="mt-2 max-h-96 overflow-auto">
             <table className="w-full text-left text-sm">
-              <thead><tr><th scope="col">Line</th><th scope="col">SKU</th><th scope="col">Part</th><th scope="col">Category</th><th scope="col" className="text-right">Price</th><th scope="col" className="text-right">Stock</th><th scope="col">Action</th></tr></thead>
+              <thead>
+                <tr>
+                  <th scope="col">Line</th>
+                  <th scope="col">SKU</th>
+                  <th scope="col">Part</th>
+                  <th scope="col">Category</th>
+                  <th scope="col" className="text-right">
+                    Price
+                  </th>
+                  <th scope="col" className="text-right">
+                    Stock
+                  </th>
+                  <th scope="col">Action</th>
+                </tr>
+              </thead>
               <tbody>
                 {preview.preview.map((r) => (
-                  <tr key={r.line} className="border-t border-ink-100"><td className="figure">{r.line}</td><td className="figure">{r.sku}</td><td>{r.brand} {r.name}</td><td>{r.category}</td><td className="figure text-right">{formatMoney(r.priceMinor, currency)}</td><td className="figure text-right">{r.stock}</td><td>{r.action}</td></tr>
+                  <tr key={r.line} className="border-t border-ink-100">
+                    <td className="figure">{r.line}</td>
+                    <td className="figure">{r.sku}</td>
+                    <td>
+                      {r.brand} {r.name}
+                    </td>
+                    <td>{r.category}</td>
+                    <td className="figure text-right">{formatMoney(r.priceMinor, currency)}</td>
+                    <td className="figure text-right">{r.stock}</td>
+                    <td>{r.action}</td>
+                  </tr>
                 ))}
               </tbody>
             </table>
           </div>
-          {csv && errors.length === 0 ? <Button className="mt-3" disabled={busy !== ""} onClick={() => send(csv, false)}>Import {preview.preview.length} parts</Button> : null}
+          {csv && errors.length === 0 ? (
+            <Button className="mt-3" disabled={busy !== ""} onClick={() => send(csv, false)}>
+              Import {preview.preview.length} parts
+            </Button>
+          ) : null}
         </section>
       ) : null}
     </div>

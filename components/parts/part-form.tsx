@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
+
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
@@ -12,29 +13,78 @@ import type { FlatPart } from "@/lib/validations/parts";
 
 /** The spec fields each category shows: [column, label, hint]. */
 const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
-  injector: [["flow_cc_min", "Rated flow (cc/min)"], ["rated_kpa", "Rated at (kPa)", "300 kPa (43.5 psi) is the usual rating pressure"], ["min_pulse_ms", "Minimum pulse width (ms)"], ["impedance", "Impedance (high or low)"], ["connector", "Connector"], ["ethanol_ok", "Rated for ethanol (yes/no)"]],
-  pump: [["pump_curve", "Flow curve", "e.g. 13.5V 300:340 500:290 | 12V 300:300 (kPa:L/h)"], ["current_a", "Current draw (A)"], ["mounting", "Mounting (in-tank or inline)"], ["ethanol_ok", "Rated for ethanol (yes/no)"]],
-  regulator: [["regulator_type", "Type (boost-referenced or fixed)"], ["min_kpa", "Lowest setting (kPa)"], ["max_kpa", "Highest setting (kPa)"], ["an_dash", "Port size (AN dash)"]],
-  line: [["an_dash", "AN dash size"], ["inside_mm", "Inside diameter (mm)"], ["material", "Material"], ["ethanol_ok", "Rated for ethanol (yes/no)"]],
+  injector: [
+    ["flow_cc_min", "Rated flow (cc/min)"],
+    ["rated_kpa", "Rated at (kPa)", "300 kPa (43.5 psi) is the usual rating pressure"],
+    ["min_pulse_ms", "Minimum pulse width (ms)"],
+    ["impedance", "Impedance (high or low)"],
+    ["connector", "Connector"],
+    ["ethanol_ok", "Rated for ethanol (yes/no)"],
+  ],
+  pump: [
+    ["pump_curve", "Flow curve", "e.g. 13.5V 300:340 500:290 | 12V 300:300 (kPa:L/h)"],
+    ["current_a", "Current draw (A)"],
+    ["mounting", "Mounting (in-tank or inline)"],
+    ["ethanol_ok", "Rated for ethanol (yes/no)"],
+  ],
+  regulator: [
+    ["regulator_type", "Type (boost-referenced or fixed)"],
+    ["min_kpa", "Lowest setting (kPa)"],
+    ["max_kpa", "Highest setting (kPa)"],
+    ["an_dash", "Port size (AN dash)"],
+  ],
+  line: [
+    ["an_dash", "AN dash size"],
+    ["inside_mm", "Inside diameter (mm)"],
+    ["material", "Material"],
+    ["ethanol_ok", "Rated for ethanol (yes/no)"],
+  ],
   fitting: [["an_dash", "AN dash size"]],
-  filter: [["micron", "Rating (µm)"], ["drop_kpa", "Pressure drop at rated flow (kPa)"], ["an_dash", "Port size (AN dash)"], ["ethanol_ok", "Rated for ethanol (yes/no)"]],
+  filter: [
+    ["micron", "Rating (µm)"],
+    ["drop_kpa", "Pressure drop at rated flow (kPa)"],
+    ["an_dash", "Port size (AN dash)"],
+    ["ethanol_ok", "Rated for ethanol (yes/no)"],
+  ],
   sensor: [],
   other: [],
 };
 
-export function PartForm({ id, initial, canDelete }: { id?: string; initial: FlatPart; canDelete: boolean }) {
+export function PartForm({
+  id,
+  initial,
+  canDelete,
+}: {
+  id?: string;
+  initial: FlatPart;
+  canDelete: boolean;
+}) {
   const router = useRouter();
   const [values, setValues] = useState<FlatPart>(initial);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
   const category = (values.category || "injector") as PartCategory;
-  const set = (k: keyof FlatPart) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setValues((v) => ({ ...v, [k]: e.target.value }));
-  const field = (k: keyof FlatPart, label: string, hint?: string) => <Field key={k} label={label} name={k} id={`p-${k}`} value={values[k] ?? ""} onChange={set(k)} error={errors[k]} hint={hint} />;
+  const set = (k: keyof FlatPart) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
+    setValues((v) => ({ ...v, [k]: e.target.value }));
+  const field = (k: keyof FlatPart, label: string, hint?: string) => (
+    <Field
+      key={k}
+      label={label}
+      name={k}
+      id={`p-${k}`}
+      value={values[k] ?? ""}
+      onChange={set(k)}
+      error={errors[k]}
+      hint={hint}
+    />
+  );
 
   const submit = () =>
     start(async () => {
-      const res = id ? await api("PATCH", `/api/v1/parts/${id}`, { ...values, category }) : await api<{ part: { id: string } }>("POST", "/api/v1/parts", { ...values, category });
+      const res = id
+        ? await api("PATCH", `/api/v1/parts/${id}`, { ...values, category })
+        : await api<{ part: { id: string } }>("POST", "/api/v1/parts", { ...values, category });
       if (res.ok) {
         setErrors({});
         setStatus({ ok: true, message: "Saved" });
@@ -58,9 +108,18 @@ export function PartForm({ id, initial, canDelete }: { id?: string; initial: Fla
       <fieldset className="grid gap-3 rounded-lg border border-ink-200 bg-white p-4 sm:grid-cols-2">
         <legend className="px-1 font-display text-lg font-semibold">Part</legend>
         {field("sku", "SKU")}
-        <SelectField label="Category" name="category" id="p-category" value={category} onChange={set("category")} error={errors.category}>
+        <SelectField
+          label="Category"
+          name="category"
+          id="p-category"
+          value={category}
+          onChange={set("category")}
+          error={errors.category}
+        >
           {PART_CATEGORIES.map((c) => (
-            <option key={c} value={c}>{CATEGORY_LABELS[c]}</option>
+            <option key={c} value={c}>
+              {CATEGORY_LABELS[c]}
+            </option>
           ))}
         </SelectField>
         {field("brand", "Brand")}
@@ -72,19 +131,26 @@ export function PartForm({ id, initial, canDelete }: { id?: string; initial: Fla
       </fieldset>
       {SPEC_FIELDS[category].length ? (
         <fieldset className="grid gap-3 rounded-lg border border-ink-200 bg-white p-4 sm:grid-cols-2">
-          <legend className="px-1 font-display text-lg font-semibold">{CATEGORY_LABELS[category]} data</legend>
+          <legend className="px-1 font-display text-lg font-semibold">
+            {CATEGORY_LABELS[category]} data
+          </legend>
           {SPEC_FIELDS[category].map(([k, label, hint]) => field(k, label, hint))}
         </fieldset>
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>{pending ? "Saving…" : "Save part"}</Button>
+        <Button type="submit" disabled={pending}>
+          {pending ? "Saving…" : "Save part"}
+        </Button>
         {id && canDelete ? (
           <Button
             type="button"
             variant="danger"
             disabled={pending}
             onClick={() => {
-              if (!window.confirm(`Delete ${values.sku} from the catalog? Quotes keep their lines.`)) return;
+              if (
+                !window.confirm(`Delete ${values.sku} from the catalog? Quotes keep their lines.`)
+              )
+                return;
               start(async () => {
                 const res = await api("DELETE", `/api/v1/parts/${id}`);
                 if (res.ok || res.status === 204) {

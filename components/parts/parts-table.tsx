@@ -3,11 +3,13 @@
 import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
+
 import { EmptyState } from "@/components/ui/status";
 import { PART_CATEGORIES, type Part } from "@/db/schema/catalog";
+import { CATEGORY_LABELS, specSummary } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
 import { fetcher } from "@/lib/fetcher";
-import { CATEGORY_LABELS, specSummary } from "@/lib/catalog/labels";
+
 import { StockBadge } from "./stock-badge";
 
 /** The catalog table, searched, filtered and sorted through GET /api/v1/parts. */
@@ -15,54 +17,132 @@ export function PartsTable({ currency, canEdit }: { currency: string; canEdit: b
   const [q, setQ] = useState("");
   const [category, setCategory] = useState("");
   const [sort, setSort] = useState("name");
-  const params = new URLSearchParams({ sort, ...(q ? { q } : {}), ...(category ? { category } : {}) });
-  const { data, error, isLoading } = useSWR<{ parts: Part[] }>(`/api/v1/parts?${params}`, fetcher, { keepPreviousData: true });
+  const params = new URLSearchParams({
+    sort,
+    ...(q ? { q } : {}),
+    ...(category ? { category } : {}),
+  });
+  const { data, error, isLoading } = useSWR<{ parts: Part[] }>(`/api/v1/parts?${params}`, fetcher, {
+    keepPreviousData: true,
+  });
   const filtered = Boolean(q || category);
   return (
     <div>
       <div className="mb-4 flex flex-wrap gap-3" role="search">
-        <label className="sr-only" htmlFor="pq">Search parts</label>
-        <input id="pq" type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="SKU, name or brand" className="rounded-md border border-ink-300 px-3 py-2" />
-        <label className="sr-only" htmlFor="pc">Category</label>
-        <select id="pc" value={category} onChange={(e) => setCategory(e.target.value)} className="rounded-md border border-ink-300 px-3 py-2">
+        <label className="sr-only" htmlFor="pq">
+          Search parts
+        </label>
+        <input
+          id="pq"
+          type="search"
+          value={q}
+          onChange={(e) => setQ(e.target.value)}
+          placeholder="SKU, name or brand"
+          className="rounded-md border border-ink-300 px-3 py-2"
+        />
+        <label className="sr-only" htmlFor="pc">
+          Category
+        </label>
+        <select
+          id="pc"
+          value={category}
+          onChange={(e) => setCategory(e.target.value)}
+          className="rounded-md border border-ink-300 px-3 py-2"
+        >
           <option value="">All categories</option>
           {PART_CATEGORIES.map((c) => (
-            <option key={c} value={c}>{CATEGORY_LABELS[c]}</option>
+            <option key={c} value={c}>
+              {CATEGORY_LABELS[c]}
+            </option>
           ))}
         </select>
-        <label className="sr-only" htmlFor="ps">Sort</label>
-        <select id="ps" value={sort} onChange={(e) => setSort(e.target.value)} className="rounded-md border border-ink-300 px-3 py-2">
+        <label className="sr-only" htmlFor="ps">
+          Sort
+        </label>
+        <select
+          id="ps"
+          value={sort}
+          onChange={(e) => setSort(e.target.value)}
+          className="rounded-md border border-ink-300 px-3 py-2"
+        >
           <option value="name">Name</option>
           <option value="sku">SKU</option>
           <option value="price">Price, lowest first</option>
           <option value="stock">Free stock, lowest first</option>
         </select>
-        <span aria-live="polite" className="self-center text-sm text-ink-600">{isLoading ? "Loading…" : error ? `✕ ${error.message}` : data ? `${data.parts.length} part${data.parts.length === 1 ? "" : "s"}` : ""}</span>
+        <span aria-live="polite" className="self-center text-sm text-ink-600">
+          {isLoading
+            ? "Loading…"
+            : error
+              ? `✕ ${error.message}`
+              : data
+                ? `${data.parts.length} part${data.parts.length === 1 ? "" : "s"}`
+                : ""}
+        </span>
       </div>
       {data && data.parts.length === 0 ? (
-        <EmptyState title={filtered ? "No part matches" : "The catalog is empty"}>{filtered ? "Try another search or category." : canEdit ? "Add parts one by one or import a CSV." : "Counter staff add parts here."}</EmptyState>
+        <EmptyState title={filtered ? "No part matches" : "The catalog is empty"}>
+          {filtered
+            ? "Try another search or category."
+            : canEdit
+              ? "Add parts one by one or import a CSV."
+              : "Counter staff add parts here."}
+        </EmptyState>
       ) : (
         <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
           <table className="w-full text-left text-sm">
             <thead className="bg-ink-100 text-ink-700">
               <tr>
-                <th scope="col" className="px-4 py-2">SKU</th>
-                <th scope="col" className="px-4 py-2">Part</th>
-                <th scope="col" className="px-4 py-2">Category</th>
-                <th scope="col" className="px-4 py-2">Key figures</th>
-                <th scope="col" className="px-4 py-2 text-right">Price</th>
-                <th scope="col" className="px-4 py-2 text-right">Stock</th>
+                <th scope="col" className="px-4 py-2">
+                  SKU
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Part
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Category
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Key figures
+                </th>
+                <th scope="col" className="px-4 py-2 text-right">
+                  Price
+                </th>
+                <th scope="col" className="px-4 py-2 text-right">
+                  Stock
+                </th>
               </tr>
             </thead>
             <tbody>
               {(data?.parts ?? []).map((p) => (
                 <tr key={p.id} className="border-t border-ink-100">
-                  <td className="figure px-4 py-2">{canEdit ? <Link href={`/parts/${p.id}`} className="text-copper-700 underline">{p.sku}</Link> : p.sku}</td>
-                  <td className="px-4 py-2">{p.name}<p className="text-xs text-ink-600">{p.brand}</p></td>
+                  <td className="figure px-4 py-2">
+                    {canEdit ? (
+                      <Link href={`/parts/${p.id}`} className="text-copper-700 underline">
+                        {p.sku}
+                      </Link>
+                    ) : (
+                      p.sku
+                    )}
+                  </td>
+                  <td className="px-4 py-2">
+                    {p.name}
+                    <p className="text-xs text-ink-600">{p.brand}</p>
+                  </td>
                   <td className="px-4 py-2">{CATEGORY_LABELS[p.category]}</td>
-                  <td className="px-4 py-2 text-ink-700">{specSummary(p.category, p.specs as Record<string, unknown>)}</td>
-                  <td className="figure px-4 py-2 text-right">{formatMoney(p.priceMinor, currency)}</td>
-                  <td className="px-4 py-2 text-right"><StockBadge stock={p.stock} reserved={p.reserved} reorderLevel={p.reorderLevel} /></td>
+                  <td className="px-4 py-2 text-ink-700">
+                    {specSummary(p.category, p.specs as Record<string, unknown>)}
+                  </td>
+                  <td className="figure px-4 py-2 text-right">
+                    {formatMoney(p.priceMinor, currency)}
+                  </td>
+                  <td className="px-4 py-2 text-right">
+                    <StockBadge
+                      stock={p.stock}
+                      reserved={p.reserved}
+                      reorderLevel={p.reorderLevel}
+                    />
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
+
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { api } from "@/lib/api-client";
@@ -18,9 +19,14 @@ export function DepositButton({ id, amount }: { id: string; amount: string }) {
     });
   return (
     <div className="mt-6 rounded-lg border border-copper-100 bg-copper-50 p-4">
-      <p className="text-sm text-ink-800">The shop asks for a deposit of <strong className="figure">{amount}</strong> to order your parts.</p>
+      <p className="text-sm text-ink-800">
+        The shop asks for a deposit of <strong className="figure">{amount}</strong> to order your
+        parts.
+      </p>
       <div className="mt-3 flex flex-wrap items-center gap-3">
-        <Button onClick={pay} disabled={pending} aria-busy={pending}>{pending ? "Opening the secure checkout…" : `Pay deposit ${amount}`}</Button>
+        <Button onClick={pay} disabled={pending} aria-busy={pending}>
+          {pending ? "Opening the secure checkout…" : `Pay deposit ${amount}`}
+        </Button>
         <FormStatus ok={false} message={error} />
       </div>
     </div>

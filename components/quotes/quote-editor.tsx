@@ -2,25 +2,82 @@
 
 import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
+
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import type { QuoteStatus } from "@/db/schema/catalog";
 import { api } from "@/lib/api-client";
-import { formatMoney, formatScaled, minorToPlain, parseMoney, parseScaled } from "@/lib/catalog/money";
+import {
+  formatMoney,
+  formatScaled,
+  minorToPlain,
+  parseMoney,
+  parseScaled,
+} from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_NEXT, QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
-export interface EditorLine { kind: "part" | "labour" | "fee"; partId: string | null; sku: string | null; description: string; quantityMilli: number; unitPriceMinor: number; discountBp: number }
-interface Row { kind: EditorLine["kind"]; partId: string | null; sku: string | null; description: string; qty: string; price: string; discount: string }
-interface CatalogOption { id: string; sku: string; label: string; priceMinor: number; free: number }
+export interface EditorLine {
+  kind: "part" | "labour" | "fee";
+  partId: string | null;
+  sku: string | null;
+  description: string;
+  quantityMilli: number;
+  unitPriceMinor: number;
+  discountBp: number;
+}
+interface Row {
+  kind: EditorLine["kind"];
+  partId: string | null;
+  sku: string | null;
+  description: string;
+  qty: string;
+  price: string;
+  discount: string;
+}
+interface CatalogOption {
+  id: string;
+  sku: string;
+  label: string;
+  priceMinor: number;
+  free: number;
+}
 
-const toRow = (l: EditorLine): Row => ({ kind: l.kind, partId: l.partId, sku: l.sku, description: l.description, qty: formatScaled(l.quantityMilli, 3), price: minorToPlain(l.unitPriceMinor), discount: formatScaled(l.discountBp, 2) });
-const cell = "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right aria-[invalid=true]:border-danger-600";
+const toRow = (l: EditorLine): Row => ({
+  kind: l.kind,
+  partId: l.partId,
+  sku: l.sku,
+  description: l.description,
+  qty: formatScaled(l.quantityMilli, 3),
+  price: minorToPlain(l.unitPriceMinor),
+  discount: formatScaled(l.discountBp, 2),
+});
+const cell =
+  "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right aria-[invalid=true]:border-danger-600";
 
-const ACTION_LABELS: Partial<Record<QuoteStatus, string>> = { accepted: "Mark accepted", declined: "Mark declined", expired: "Mark expired", deposit_paid: "Record deposit paid", ordered: "Mark ordered", draft: "Back to draft" };
+const ACTION_LABELS: Partial<Record<QuoteStatus, string>> = {
+  accepted: "Mark accepted",
+  declined: "Mark declined",
+  expired: "Mark expired",
+  deposit_paid: "Record deposit paid",
+  ordered: "Mark ordered",
+  draft: "Back to draft",
+};
 
 /** A quote's lines (editable while draft or sent), totals worked live in integer cents, workflow and e-mail. */
-type EditorProps = { id: string; version: number; status: QuoteStatus; currency: string; taxRateBp: number; validUntil: string; notes: string; lines: EditorLine[]; catalog: CatalogOption[]; canWrite: boolean; customerEmail: string | null };
+type EditorProps = {
+  id: string;
+  version: number;
+  status: QuoteStatus;
+  currency: string;
+  taxRateBp: number;
+  validUntil: string;
+  notes: string;
+  lines: EditorLine[];
+  catalog: CatalogOption[];
+  canWrite: boolean;
+  customerEmail: string | null;
+};
 type Outcome = { ok: boolean; message: string } | null;
 
 /**
@@ -29,10 +86,21 @@ type Outcome = { ok: boolean; message: string } | null;
  */
 export function QuoteEditor(props: EditorProps) {
   const [outcome, setOutcome] = useState<Outcome>(null);
-  return <QuoteEditorForm key={`${props.id}-${props.version}`} {...props} outcome={outcome} setOutcome={setOutcome} />;
+  return (
+    <QuoteEditorForm
+      key={`${props.id}-${props.version}`}
+      {...props}
+      outcome={outcome}
+      setOutcome={setOutcome}
+    />
+  );
 }
 
-function QuoteEditorForm({ outcome: status, setOutcome: setStatus, ...props }: EditorProps & { outcome: Outcome; setOutcome: (o: Outcome) => void }) {
+function QuoteEditorForm({
+  outcome: status,
+  setOutcome: setStatus,
+  ...props
+}: EditorProps & { outcome: Outcome; setOutcome: (o: Outcome) => void }) {
   const router = useRouter();
   const editable = props.canWrite && (props.status === "draft" || props.status === "sent");
   const [rows, setRows] = useState<Row[]>(props.lines.map(toRow));
@@ -51,30 +119,75 @@ function QuoteEditorForm({ outcome: status, setOutcome: setStatus, ...props }: E
       })),
     [rows],
   );
-  const bad = parsed.map((p) => ({ qty: p.quantityMilli === null || p.quantityMilli === 0, price: p.unitPriceMinor === null, discount: p.discountBp === null || (p.discountBp ?? 0) > 10000 }));
-  const allGood = bad.every((b) => !b.qty && !b.price && !b.discount) && rows.every((r) => r.description.trim());
-  const totals = useMemo(() => quoteTotals(parsed.map((p) => ({ quantityMilli: p.quantityMilli ?? 0, unitPriceMinor: p.unitPriceMinor ?? 0, discountBp: p.discountBp ?? 0 })), props.taxRateBp), [parsed, props.taxRateBp]);
+  const bad = parsed.map((p) => ({
+    qty: p.quantityMilli === null || p.quantityMilli === 0,
+    price: p.unitPriceMinor === null,
+    discount: p.discountBp === null || (p.discountBp ?? 0) > 10000,
+  }));
+  const allGood =
+    bad.every((b) => !b.qty && !b.price && !b.discount) && rows.every((r) => r.description.trim());
+  const totals = useMemo(
+    () =>
+      quoteTotals(
+        parsed.map((p) => ({
+          quantityMilli: p.quantityMilli ?? 0,
+          unitPriceMinor: p.unitPriceMinor ?? 0,
+          discountBp: p.discountBp ?? 0,
+        })),
+        props.taxRateBp,
+      ),
+    [parsed, props.taxRateBp],
+  );
   const money = (m: number) => formatMoney(m, props.currency);
-  const setRow = (i: number, patch: Partial<Row>) => setRows((rs) => rs.map((r, k) => (k === i ? { ...r, ...patch } : r)));
+  const setRow = (i: number, patch: Partial<Row>) =>
+    setRows((rs) => rs.map((r, k) => (k === i ? { ...r, ...patch } : r)));
 
   const save = () =>
     start(async () => {
-      const lines = rows.map((r, i) => ({ kind: r.kind, partId: r.partId, sku: r.sku, description: r.description, quantityMilli: parsed[i]!.quantityMilli!, unitPriceMinor: parsed[i]!.unitPriceMinor!, discountBp: parsed[i]!.discountBp ?? 0 }));
-      const res = await api("PATCH", `/api/v1/quotes/${props.id}`, { version: props.version, validUntil, notes, lines });
-      setStatus(res.ok ? { ok: true, message: "Quote saved" } : { ok: false, message: res.issues[0] ? `${res.message}: ${res.issues[0].message}` : res.message });
+      const lines = rows.map((r, i) => ({
+        kind: r.kind,
+        partId: r.partId,
+        sku: r.sku,
+        description: r.description,
+        quantityMilli: parsed[i]!.quantityMilli!,
+        unitPriceMinor: parsed[i]!.unitPriceMinor!,
+        discountBp: parsed[i]!.discountBp ?? 0,
+      }));
+      const res = await api("PATCH", `/api/v1/quotes/${props.id}`, {
+        version: props.version,
+        validUntil,
+        notes,
+        lines,
+      });
+      setStatus(
+        res.ok
+          ? { ok: true, message: "Quote saved" }
+          : {
+              ok: false,
+              message: res.issues[0] ? `${res.message}: ${res.issues[0].message}` : res.message,
+            },
+      );
       if (res.ok) router.refresh();
     });
   const post = (path: string, body: unknown, done: string, label: string) =>
     start(async () => {
       setBusy(label);
-      const res = await api<{ quote?: { id: string } }>("POST", `/api/v1/quotes/${props.id}/${path}`, body);
+      const res = await api<{ quote?: { id: string } }>(
+        "POST",
+        `/api/v1/quotes/${props.id}/${path}`,
+        body,
+      );
       setBusy("");
       setStatus(res.ok ? { ok: true, message: done } : { ok: false, message: res.message });
-      if (res.ok && path === "revise" && res.data.quote) router.push(`/quotes/${res.data.quote.id}`);
+      if (res.ok && path === "revise" && res.data.quote)
+        router.push(`/quotes/${res.data.quote.id}`);
       else if (res.ok) router.refresh();
     });
 
-  const dirty = JSON.stringify(rows) !== JSON.stringify(props.lines.map(toRow)) || validUntil !== props.validUntil || notes !== props.notes;
+  const dirty =
+    JSON.stringify(rows) !== JSON.stringify(props.lines.map(toRow)) ||
+    validUntil !== props.validUntil ||
+    notes !== props.notes;
 
   return (
     <div className="space-y-4">
@@ -82,86 +195,328 @@ function QuoteEditorForm({ outcome: status, setOutcome: setStatus, ...props }: E
         <table className="w-full text-left text-sm">
           <thead className="bg-ink-100 text-ink-700">
             <tr>
-              <th scope="col" className="px-3 py-2">Line</th>
-              <th scope="col" className="w-24 px-3 py-2 text-right">Qty</th>
-              <th scope="col" className="w-32 px-3 py-2 text-right">Unit price</th>
-              <th scope="col" className="w-24 px-3 py-2 text-right">Discount %</th>
-              <th scope="col" className="w-32 px-3 py-2 text-right">Amount</th>
-              {editable ? <th scope="col" className="px-3 py-2"><span className="sr-only">Remove</span></th> : null}
+              <th scope="col" className="px-3 py-2">
+                Line
+              </th>
+              <th scope="col" className="w-24 px-3 py-2 text-right">
+                Qty
+              </th>
+              <th scope="col" className="w-32 px-3 py-2 text-right">
+                Unit price
+              </th>
+              <th scope="col" className="w-24 px-3 py-2 text-right">
+                Discount %
+              </th>
+              <th scope="col" className="w-32 px-3 py-2 text-right">
+                Amount
+              </th>
+              {editable ? (
+                <th scope="col" className="px-3 py-2">
+                  <span className="sr-only">Remove</span>
+                </th>
+              ) : null}
             </tr>
           </thead>
           <tbody>
             {rows.length === 0 ? (
-              <tr><td colSpan={6} className="px-3 py-4 text-ink-600">No lines yet: add parts, labour or a fee below.</td></tr>
+              <tr>
+                <td colSpan={6} className="px-3 py-4 text-ink-600">
+                  No lines yet: add parts, labour or a fee below.
+                </td>
+              </tr>
             ) : null}
             {rows.map((r, i) => (
               <tr key={i} className="border-t border-ink-100">
                 <td className="px-3 py-2">
-                  {editable ? <input aria-label={`Line ${i + 1} description`} className="w-full rounded-md border border-ink-300 px-2 py-1" value={r.description} onChange={(e) => setRow(i, { description: e.target.value })} /> : r.description}
-                  <span className="block text-xs text-ink-600">{r.kind}{r.sku ? ` · ${r.sku}` : ""}</span>
+                  {editable ? (
+                    <input
+                      aria-label={`Line ${i + 1} description`}
+                      className="w-full rounded-md border border-ink-300 px-2 py-1"
+                      value={r.description}
+                      onChange={(e) => setRow(i, { description: e.target.value })}
+                    />
+                  ) : (
+                    r.description
+                  )}
+                  <span className="block text-xs text-ink-600">
+                    {r.kind}
+                    {r.sku ? ` · ${r.sku}` : ""}
+                  </span>
                 </td>
-                <td className="px-3 py-2 text-right">{editable ? <input aria-label={`Line ${i + 1} quantity`} aria-invalid={bad[i]!.qty} inputMode="decimal" className={cell} value={r.qty} onChange={(e) => setRow(i, { qty: e.target.value })} /> : r.qty}</td>
-                <td className="px-3 py-2 text-right">{editable ? <input aria-label={`Line ${i + 1} unit price`} aria-invalid={bad[i]!.price} inputMode="decimal" className={cell} value={r.price} onChange={(e) => setRow(i, { price: e.target.value })} /> : money(parsed[i]!.unitPriceMinor ?? 0)}</td>
-                <td className="px-3 py-2 text-right">{editable ? <input aria-label={`Line ${i + 1} discount`} aria-invalid={bad[i]!.discount} inputMode="decimal" className={cell} value={r.discount} onChange={(e) => setRow(i, { discount: e.target.value })} /> : r.discount}</td>
+                <td className="px-3 py-2 text-right">
+                  {editable ? (
+                    <input
+                      aria-label={`Line ${i + 1} quantity`}
+                      aria-invalid={bad[i]!.qty}
+                      inputMode="decimal"
+                      className={cell}
+                      value={r.qty}
+                      onChange={(e) => setRow(i, { qty: e.target.value })}
+                    />
+                  ) : (
+                    r.qty
+                  )}
+                </td>
+                <td className="px-3 py-2 text-right">
+                  {editable ? (
+                    <input
+                      aria-label={`Line ${i + 1} unit price`}
+                      aria-invalid={bad[i]!.price}
+                      inputMode="decimal"
+                      className={cell}
+                      value={r.price}
+                      onChange={(e) => setRow(i, { price: e.target.value })}
+                    />
+                  ) : (
+                    money(parsed[i]!.unitPriceMinor ?? 0)
+                  )}
+                </td>
+                <td className="px-3 py-2 text-right">
+                  {editable ? (
+                    <input
+                      aria-label={`Line ${i + 1} discount`}
+                      aria-invalid={bad[i]!.discount}
+                      inputMode="decimal"
+                      className={cell}
+                      value={r.discount}
+                      onChange={(e) => setRow(i, { discount: e.target.value })}
+                    />
+                  ) : (
+                    r.discount
+                  )}
+                </td>
                 <td className="figure px-3 py-2 text-right">{money(totals.lines[i]!.netMinor)}</td>
-                {editable ? <td className="px-3 py-2"><Button type="button" variant="ghost" aria-label={`Remove line ${i + 1}`} onClick={() => setRows((rs) => rs.filter((_, k) => k !== i))}>✕</Button></td> : null}
+                {editable ? (
+                  <td className="px-3 py-2">
+                    <Button
+                      type="button"
+                      variant="ghost"
+                      aria-label={`Remove line ${i + 1}`}
+                      onClick={() => setRows((rs) => rs.filter((_, k) => k !== i))}
+                    >
+                      ✕
+                    </Button>
+                  </td>
+                ) : null}
               </tr>
             ))}
           </tbody>
           <tfoot className="border-t border-ink-200 text-right" data-testid="quote-totals">
-            <tr><td colSpan={4} className="px-3 py-1">Subtotal</td><td className="figure px-3 py-1">{money(totals.subtotalMinor)}</td></tr>
-            {totals.discountMinor ? <tr><td colSpan={4} className="px-3 py-1">Discounts</td><td className="figure px-3 py-1">−{money(totals.discountMinor)}</td></tr> : null}
-            <tr><td colSpan={4} className="px-3 py-1">Tax {formatScaled(props.taxRateBp, 2)} %</td><td className="figure px-3 py-1">{money(totals.taxMinor)}</td></tr>
-            <tr className="font-semibold"><td colSpan={4} className="px-3 py-1">Total</td><td className="figure px-3 py-1" data-testid="quote-total">{money(totals.totalMinor)}</td></tr>
+            <tr>
+              <td colSpan={4} className="px-3 py-1">
+                Subtotal
+              </td>
+              <td className="figure px-3 py-1">{money(totals.subtotalMinor)}</td>
+            </tr>
+            {totals.discountMinor ? (
+              <tr>
+                <td colSpan={4} className="px-3 py-1">
+                  Discounts
+                </td>
+                <td className="figure px-3 py-1">−{money(totals.discountMinor)}</td>
+              </tr>
+            ) : null}
+            <tr>
+              <td colSpan={4} className="px-3 py-1">
+                Tax {formatScaled(props.taxRateBp, 2)} %
+              </td>
+              <td className="figure px-3 py-1">{money(totals.taxMinor)}</td>
+            </tr>
+            <tr className="font-semibold">
+              <td colSpan={4} className="px-3 py-1">
+                Total
+              </td>
+              <td className="figure px-3 py-1" data-testid="quote-total">
+                {money(totals.totalMinor)}
+              </td>
+            </tr>
           </tfoot>
         </table>
       </div>
-      {!allGood && editable ? <p role="alert" className="text-sm text-danger-700">✕ Each line needs a description, a quantity above 0 (up to 3 decimals), a price like 12.50 and a discount from 0 to 100 %.</p> : null}
+      {!allGood && editable ? (
+        <p role="alert" className="text-sm text-danger-700">
+          ✕ Each line needs a description, a quantity above 0 (up to 3 decimals), a price like 12.50
+          and a discount from 0 to 100 %.
+        </p>
+      ) : null}
       {editable ? (
         <div className="flex flex-wrap items-end gap-3">
           <div>
-            <label htmlFor="q-add-part" className="block text-sm font-medium text-ink-700">Add a part</label>
-            <select id="q-add-part" value={addPart} onChange={(e) => setAddPart(e.target.value)} className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2">
+            <label htmlFor="q-add-part" className="block text-sm font-medium text-ink-700">
+              Add a part
+            </label>
+            <select
+              id="q-add-part"
+              value={addPart}
+              onChange={(e) => setAddPart(e.target.value)}
+              className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
+            >
               <option value="">Choose from the catalog…</option>
               {props.catalog.map((p) => (
-                <option key={p.id} value={p.id}>{p.sku} — {p.label} ({p.free} free)</option>
+                <option key={p.id} value={p.id}>
+                  {p.sku} — {p.label} ({p.free} free)
+                </option>
               ))}
             </select>
           </div>
-          <Button type="button" variant="secondary" disabled={!addPart} onClick={() => {
-            const p = props.catalog.find((x) => x.id === addPart);
-            if (p) setRows((rs) => [...rs, { kind: "part", partId: p.id, sku: p.sku, description: p.label, qty: "1", price: minorToPlain(p.priceMinor), discount: "0" }]);
-            setAddPart("");
-          }}>Add part</Button>
-          <Button type="button" variant="secondary" onClick={() => setRows((rs) => [...rs, { kind: "labour", partId: null, sku: null, description: "Labour", qty: "1", price: "120.00", discount: "0" }])}>Add labour</Button>
-          <Button type="button" variant="secondary" onClick={() => setRows((rs) => [...rs, { kind: "fee", partId: null, sku: null, description: "Dyno session", qty: "1", price: "0.00", discount: "0" }])}>Add fee</Button>
+          <Button
+            type="button"
+            variant="secondary"
+            disabled={!addPart}
+            onClick={() => {
+              const p = props.catalog.find((x) => x.id === addPart);
+              if (p)
+                setRows((rs) => [
+                  ...rs,
+                  {
+                    kind: "part",
+                    partId: p.id,
+                    sku: p.sku,
+                    description: p.label,
+                    qty: "1",
+                    price: minorToPlain(p.priceMinor),
+                    discount: "0",
+                  },
+                ]);
+              setAddPart("");
+            }}
+          >
+            Add part
+          </Button>
+          <Button
+            type="button"
+            variant="secondary"
+            onClick={() =>
+              setRows((rs) => [
+                ...rs,
+                {
+                  kind: "labour",
+                  partId: null,
+                  sku: null,
+                  description: "Labour",
+                  qty: "1",
+                  price: "120.00",
+                  discount: "0",
+                },
+              ])
+            }
+          >
+            Add labour
+          </Button>
+          <Button
+            type="button"
+            variant="secondary"
+            onClick={() =>
+              setRows((rs) => [
+                ...rs,
+                {
+                  kind: "fee",
+                  partId: null,
+                  sku: null,
+                  description: "Dyno session",
+                  qty: "1",
+                  price: "0.00",
+                  discount: "0",
+                },
+              ])
+            }
+          >
+            Add fee
+          </Button>
         </div>
       ) : null}
       <div className="grid gap-3 sm:grid-cols-2">
         <div>
-          <label htmlFor="q-valid" className="block text-sm font-medium text-ink-700">Valid until</label>
-          <input id="q-valid" type="date" disabled={!editable} value={validUntil} onChange={(e) => setValidUntil(e.target.value)} className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2" />
+          <label htmlFor="q-valid" className="block text-sm font-medium text-ink-700">
+            Valid until
+          </label>
+          <input
+            id="q-valid"
+            type="date"
+            disabled={!editable}
+            value={validUntil}
+            onChange={(e) => setValidUntil(e.target.value)}
+            className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
+          />
         </div>
         <div>
-          <label htmlFor="q-notes" className="block text-sm font-medium text-ink-700">Notes for the customer</label>
-          <textarea id="q-notes" disabled={!editable} value={notes} onChange={(e) => setNotes(e.target.value)} rows={2} className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2" />
+          <label htmlFor="q-notes" className="block text-sm font-medium text-ink-700">
+            Notes for the customer
+          </label>
+          <textarea
+            id="q-notes"
+            disabled={!editable}
+            value={notes}
+            onChange={(e) => setNotes(e.target.value)}
+            rows={2}
+            className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2"
+          />
         </div>
       </div>
       {props.canWrite ? (
         <div className="flex flex-wrap items-center gap-3 border-t border-ink-200 pt-3">
-          {editable ? <Button onClick={save} disabled={pending || !allGood || !dirty}>{pending && !busy ? "Saving…" : "Save quote"}</Button> : null}
           {editable ? (
-            <Button variant="secondary" disabled={pending || dirty || rows.length === 0 || !props.customerEmail} title={!props.customerEmail ? "The customer has no e-mail address" : dirty ? "Save first" : undefined} onClick={() => post("send", undefined, `Sent to ${props.customerEmail}`, "send")}>
-              {busy === "send" ? "Sending…" : props.status === "sent" ? "Send again" : "Send to customer"}
+            <Button onClick={save} disabled={pending || !allGood || !dirty}>
+              {pending && !busy ? "Saving…" : "Save quote"}
             </Button>
           ) : null}
-          {QUOTE_NEXT[props.status].filter((s) => s !== "sent").map((s) => (
-            <Button key={s} variant={s === "declined" || s === "expired" ? "ghost" : "secondary"} disabled={pending || dirty} onClick={() => {
-              if ((s === "declined" || s === "expired") && !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)) return;
-              post("status", { status: s }, `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`, s);
-            }}>{ACTION_LABELS[s] ?? s}</Button>
-          ))}
-          {props.status === "accepted" ? <Button variant="secondary" disabled={pending} onClick={() => window.confirm("Make a new editable revision? This one is replaced and its stock released.") && post("revise", undefined, "New revision made", "revise")}>Revise quote</Button> : null}
+          {editable ? (
+            <Button
+              variant="secondary"
+              disabled={pending || dirty || rows.length === 0 || !props.customerEmail}
+              title={
+                !props.customerEmail
+                  ? "The customer has no e-mail address"
+                  : dirty
+                    ? "Save first"
+                    : undefined
+              }
+              onClick={() => post("send", undefined, `Sent to ${props.customerEmail}`, "send")}
+            >
+              {busy === "send"
+                ? "Sending…"
+                : props.status === "sent"
+                  ? "Send again"
+                  : "Send to customer"}
+            </Button>
+          ) : null}
+          {QUOTE_NEXT[props.status]
+            .filter((s) => s !== "sent")
+            .map((s) => (
+              <Button
+                key={s}
+                variant={s === "declined" || s === "expired" ? "ghost" : "secondary"}
+                disabled={pending || dirty}
+                onClick={() => {
+                  if (
+                    (s === "declined" || s === "expired") &&
+                    !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)
+                  )
+                    return;
+                  post(
+                    "status",
+                    { status: s },
+                    `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`,
+                    s,
+                  );
+                }}
+              >
+                {ACTION_LABELS[s] ?? s}
+              </Button>
+            ))}
+          {props.status === "accepted" ? (
+            <Button
+              variant="secondary"
+              disabled={pending}
+              onClick={() =>
+                window.confirm(
+                  "Make a new editable revision? This one is replaced and its stock released.",
+                ) && post("revise", undefined, "New revision made", "revise")
+              }
+            >
+              Revise quote
+            </Button>
+          ) : null}
           <FormStatus ok={status?.ok} message={status?.message} />
         </div>
       ) : null}

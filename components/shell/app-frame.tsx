@@ -1,18 +1,22 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
+
 import type { Member } from "@/lib/auth/member";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+
 import { Logo } from "./logo";
+import { navFor } from "./nav-items";
 import { NavLinks } from "./nav-links";
 import { SignOutButton } from "./sign-out-button";
-import { navFor } from "./nav-items";
 
 export function AppFrame({ member, children }: { member: Member; children: ReactNode }) {
   return (
     <div className="min-h-screen">
       <header className="bg-ink-900 text-white">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
-          <Link href="/" className="text-white"><Logo small /></Link>
+          <Link href="/" className="text-white">
+            <Logo small />
+          </Link>
           <nav aria-label="Main" className="order-3 w-full overflow-x-auto sm:order-none sm:w-auto">
             <NavLinks items={navFor(member.role).map(({ href, label }) => ({ href, label }))} />
           </nav>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
+
 import { authClient } from "@/lib/auth-client";
 
 export function SignOutButton() {

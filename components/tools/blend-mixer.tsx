@@ -1,11 +1,20 @@
 "use client";
 
 import { useState } from "react";
-import { VolumeToAddSchema, ethanolFromFlexSensorHz, volumeToAdd } from "@/lib/calc";
+
+import { ethanolFromFlexSensorHz, volumeToAdd, VolumeToAddSchema } from "@/lib/calc";
+
 import { NumInput, toNum } from "./num-input";
 
 export function BlendMixer() {
-  const [f, setF] = useState({ tankVolumeL: "20", tankEthanolVolPct: "10", addedEthanolVolPct: "83", targetEthanolVolPct: "50", tankCapacityL: "60", hz: "" });
+  const [f, setF] = useState({
+    tankVolumeL: "20",
+    tankEthanolVolPct: "10",
+    addedEthanolVolPct: "83",
+    targetEthanolVolPct: "50",
+    tankCapacityL: "60",
+    hz: "",
+  });
   const set = (k: keyof typeof f) => (v: string) => setF((s) => ({ ...s, [k]: v }));
   const parsed = VolumeToAddSchema.safeParse({
     tankVolumeL: toNum(f.tankVolumeL),
@@ -14,34 +23,96 @@ export function BlendMixer() {
     targetEthanolVolPct: toNum(f.targetEthanolVolPct),
     tankCapacityL: toNum(f.tankCapacityL),
   });
-  const err = (k: string) => (parsed.success ? undefined : parsed.error.issues.find((i) => i.path[0] === k)?.message);
+  const err = (k: string) =>
+    parsed.success ? undefined : parsed.error.issues.find((i) => i.path[0] === k)?.message;
   const result = parsed.success ? volumeToAdd(parsed.data) : null;
   const hz = toNum(f.hz);
-  const sensor = hz === undefined ? null : hz >= 50 && hz <= 150 ? `E${ethanolFromFlexSensorHz(hz).toFixed(0)}` : "Outside 50–150 Hz: sensor fault or water in the fuel";
+  const sensor =
+    hz === undefined
+      ? null
+      : hz >= 50 && hz <= 150
+        ? `E${ethanolFromFlexSensorHz(hz).toFixed(0)}`
+        : "Outside 50–150 Hz: sensor fault or water in the fuel";
   return (
     <section aria-labelledby="mixer" className="rounded-lg border border-ink-200 bg-white p-5">
-      <h2 id="mixer" className="text-xl font-semibold">Blend mixer</h2>
-      <p className="text-sm text-ink-600">How much to add to the tank to reach a target ethanol content.</p>
+      <h2 id="mixer" className="text-xl font-semibold">
+        Blend mixer
+      </h2>
+      <p className="text-sm text-ink-600">
+        How much to add to the tank to reach a target ethanol content.
+      </p>
       <div className="mt-4 grid gap-4 sm:grid-cols-2">
-        <NumInput id="mx-v" label="Fuel in the tank" unit="L" value={f.tankVolumeL} onChange={set("tankVolumeL")} error={err("tankVolumeL")} />
-        <NumInput id="mx-a" label="Its ethanol content" unit="%" value={f.tankEthanolVolPct} onChange={set("tankEthanolVolPct")} error={err("tankEthanolVolPct")} />
-        <NumInput id="mx-b" label="Ethanol content of the fuel added" unit="%" value={f.addedEthanolVolPct} onChange={set("addedEthanolVolPct")} error={err("addedEthanolVolPct")} />
-        <NumInput id="mx-t" label="Target" unit="%" value={f.targetEthanolVolPct} onChange={set("targetEthanolVolPct")} error={err("targetEthanolVolPct")} />
-        <NumInput id="mx-c" label="Tank capacity" unit="L" value={f.tankCapacityL} onChange={set("tankCapacityL")} error={err("tankCapacityL")} />
+        <NumInput
+          id="mx-v"
+          label="Fuel in the tank"
+          unit="L"
+          value={f.tankVolumeL}
+          onChange={set("tankVolumeL")}
+          error={err("tankVolumeL")}
+        />
+        <NumInput
+          id="mx-a"
+          label="Its ethanol content"
+          unit="%"
+          value={f.tankEthanolVolPct}
+          onChange={set("tankEthanolVolPct")}
+          error={err("tankEthanolVolPct")}
+        />
+        <NumInput
+          id="mx-b"
+          label="Ethanol content of the fuel added"
+          unit="%"
+          value={f.addedEthanolVolPct}
+          onChange={set("addedEthanolVolPct")}
+          error={err("addedEthanolVolPct")}
+        />
+        <NumInput
+          id="mx-t"
+          label="Target"
+          unit="%"
+          value={f.targetEthanolVolPct}
+          onChange={set("targetEthanolVolPct")}
+          error={err("targetEthanolVolPct")}
+        />
+        <NumInput
+          id="mx-c"
+          label="Tank capacity"
+          unit="L"
+          value={f.tankCapacityL}
+          onChange={set("tankCapacityL")}
+          error={err("tankCapacityL")}
+        />
       </div>
       <div aria-live="polite" className="mt-4 rounded-md bg-ink-50 p-4">
         {!result ? (
           <p className="text-ink-600">Fill in the fields to see the answer.</p>
         ) : result.ok ? (
-          <p className="figure text-2xl font-bold" data-testid="mix-result">Add {result.volumeL.toFixed(1)} L <span className="text-base font-normal text-ink-600">→ {result.finalVolumeL.toFixed(1)} L in the tank</span></p>
+          <p className="figure text-2xl font-bold" data-testid="mix-result">
+            Add {result.volumeL.toFixed(1)} L{" "}
+            <span className="text-base font-normal text-ink-600">
+              → {result.finalVolumeL.toFixed(1)} L in the tank
+            </span>
+          </p>
         ) : (
-          <p className="font-medium text-caution-700" data-testid="mix-result">▲ {result.message}</p>
+          <p className="font-medium text-caution-700" data-testid="mix-result">
+            ▲ {result.message}
+          </p>
         )}
-        <p className="mt-2 text-xs text-ink-500">Volumes add; the small shrink when ethanol and gasoline mix is ignored.</p>
+        <p className="mt-2 text-xs text-ink-500">
+          Volumes add; the small shrink when ethanol and gasoline mix is ignored.
+        </p>
       </div>
       <div className="mt-6 max-w-xs">
-        <NumInput id="mx-hz" label="Flex-fuel sensor reading" unit="Hz" value={f.hz} onChange={set("hz")} />
-        <p aria-live="polite" className="figure mt-2 font-semibold">{sensor ?? "50 Hz = E0 … 150 Hz = E100"}</p>
+        <NumInput
+          id="mx-hz"
+          label="Flex-fuel sensor reading"
+          unit="Hz"
+          value={f.hz}
+          onChange={set("hz")}
+        />
+        <p aria-live="polite" className="figure mt-2 font-semibold">
+          {sensor ?? "50 Hz = E0 … 150 Hz = E100"}
+        </p>
       </div>
     </section>
   );

@@ -3,8 +3,31 @@
 import { UnitNumberField } from "@/components/ui/unit-number-field";
 
 /** A labelled number box that keeps what the user typed and says when it is not a number. */
-export function NumInput({ id, label, unit, value, onChange, error }: { id: string; label: string; unit: string; value: string; onChange: (v: string) => void; error?: string }) {
-  return <UnitNumberField id={id} label={label} unit={unit} error={error} value={value} onChange={(e) => onChange(e.target.value)} />;
+export function NumInput({
+  id,
+  label,
+  unit,
+  value,
+  onChange,
+  error,
+}: {
+  id: string;
+  label: string;
+  unit: string;
+  value: string;
+  onChange: (v: string) => void;
+  error?: string;
+}) {
+  return (
+    <UnitNumberField
+      id={id}
+      label={label}
+      unit={unit}
+      error={error}
+      value={value}
+      onChange={(e) => onChange(e.target.value)}
+    />
+  );
 }
 
 export const toNum = (s: string): number | undefined => {

@@ -7,7 +7,11 @@ const styles = {
   ghost: "text-ink-700 hover:bg-ink-100",
 } as const;
 
-export function Button({ variant = "primary", className = "", ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: keyof typeof styles }) {
+export function Button({
+  variant = "primary",
+  className = "",
+  ...rest
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: keyof typeof styles }) {
   return (
     <button
       className={`inline-flex min-h-10 items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed ${styles[variant]} ${className}`}

@@ -1,4 +1,9 @@
-import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTMLAttributes } from "react";
+import type {
+  InputHTMLAttributes,
+  ReactNode,
+  SelectHTMLAttributes,
+  TextareaHTMLAttributes,
+} from "react";
 
 const control =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30 aria-[invalid=true]:border-danger-600";
@@ -26,25 +31,56 @@ function Message({ id, error, hint }: { id: string; error?: string | string[]; h
 }
 
 /** A labelled input with its error under it (announced, linked by aria-describedby). */
-export function Field({ label, name, error, hint, ...rest }: Common & InputHTMLAttributes<HTMLInputElement>) {
+export function Field({
+  label,
+  name,
+  error,
+  hint,
+  ...rest
+}: Common & InputHTMLAttributes<HTMLInputElement>) {
   const id = rest.id ?? `f-${name}`;
   const has = Boolean(error && error.length);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">{label}</label>
-      <input id={id} name={name} aria-invalid={has} aria-describedby={has ? `${id}-err` : undefined} className={control} {...rest} />
+      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
+        {label}
+      </label>
+      <input
+        id={id}
+        name={name}
+        aria-invalid={has}
+        aria-describedby={has ? `${id}-err` : undefined}
+        className={control}
+        {...rest}
+      />
       <Message id={`${id}-err`} error={error} hint={hint} />
     </div>
   );
 }
 
-export function SelectField({ label, name, error, hint, children, ...rest }: Common & SelectHTMLAttributes<HTMLSelectElement>) {
+export function SelectField({
+  label,
+  name,
+  error,
+  hint,
+  children,
+  ...rest
+}: Common & SelectHTMLAttributes<HTMLSelectElement>) {
   const id = rest.id ?? `f-${name}`;
   const has = Boolean(error && error.length);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">{label}</label>
-      <select id={id} name={name} aria-invalid={has} aria-describedby={has ? `${id}-err` : undefined} className={control} {...rest}>
+      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
+        {label}
+      </label>
+      <select
+        id={id}
+        name={name}
+        aria-invalid={has}
+        aria-describedby={has ? `${id}-err` : undefined}
+        className={control}
+        {...rest}
+      >
         {children}
       </select>
       <Message id={`${id}-err`} error={error} hint={hint} />
@@ -52,13 +88,29 @@ export function SelectField({ label, name, error, hint, children, ...rest }: Com
   );
 }
 
-export function TextAreaField({ label, name, error, hint, ...rest }: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+export function TextAreaField({
+  label,
+  name,
+  error,
+  hint,
+  ...rest
+}: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
   const id = rest.id ?? `f-${name}`;
   const has = Boolean(error && error.length);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">{label}</label>
-      <textarea id={id} name={name} aria-invalid={has} aria-describedby={has ? `${id}-err` : undefined} className={control} rows={3} {...rest} />
+      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
+        {label}
+      </label>
+      <textarea
+        id={id}
+        name={name}
+        aria-invalid={has}
+        aria-describedby={has ? `${id}-err` : undefined}
+        className={control}
+        rows={3}
+        {...rest}
+      />
       <Message id={`${id}-err`} error={error} hint={hint} />
     </div>
   );

@@ -3,14 +3,23 @@ import type { ReactNode } from "react";
 /** Form status line, announced to screen readers. */
 export function FormStatus({ ok, message }: { ok?: boolean; message?: string }) {
   return (
-    <p aria-live="polite" className={`min-h-6 text-sm font-medium ${ok ? "text-ok-700" : "text-danger-700"}`}>
+    <p
+      aria-live="polite"
+      className={`min-h-6 text-sm font-medium ${ok ? "text-ok-700" : "text-danger-700"}`}
+    >
       {message ? (ok ? "✓ " : "✕ ") + message : ""}
     </p>
   );
 }
 
 /** Signal badge: colour plus a symbol plus a word, never colour alone. */
-export function Signal({ level, children }: { level: "ok" | "info" | "caution" | "danger"; children: ReactNode }) {
+export function Signal({
+  level,
+  children,
+}: {
+  level: "ok" | "info" | "caution" | "danger";
+  children: ReactNode;
+}) {
   const map = {
     ok: ["bg-ok-50 text-ok-700 ring-ok-600/30", "✓"],
     info: ["bg-ink-100 text-ink-700 ring-ink-400/30", "i"],
@@ -19,7 +28,9 @@ export function Signal({ level, children }: { level: "ok" | "info" | "caution" |
   } as const;
   const [cls, sym] = map[level];
   return (
-    <span className={`inline-flex items-center gap-1 rounded px-2 py-0.5 text-xs font-semibold ring-1 ${cls}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded px-2 py-0.5 text-xs font-semibold ring-1 ${cls}`}
+    >
       <span aria-hidden="true">{sym}</span>
       {children}
     </span>

@@ -8,7 +8,13 @@ export function UnitNumberField({
   error,
   announce = false,
   ...input
-}: { id: string; label: string; unit: string; error?: string; announce?: boolean } & InputHTMLAttributes<HTMLInputElement>) {
+}: {
+  id: string;
+  label: string;
+  unit: string;
+  error?: string;
+  announce?: boolean;
+} & InputHTMLAttributes<HTMLInputElement>) {
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-medium text-ink-700">
@@ -23,7 +29,11 @@ export function UnitNumberField({
         {...input}
       />
       {error ? (
-        <p id={`${id}-err`} role={announce ? "alert" : undefined} className="mt-1 text-sm text-danger-700">
+        <p
+          id={`${id}-err`}
+          role={announce ? "alert" : undefined}
+          className="mt-1 text-sm text-danger-700"
+        >
           ✕ {error}
         </p>
       ) : null}

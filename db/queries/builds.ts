@@ -1,16 +1,30 @@
-import { escapeLike } from "./like";
 import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm";
+
 import { db } from "@/db";
-import { buildRevisions, builds, customers, member, user, type Build, type BuildStatus, type ChosenPart } from "@/db/schema";
-import type { FuelSystemResult } from "@/lib/calc";
+import {
+  buildRevisions,
+  builds,
+  customers,
+  member,
+  user,
+  type Build,
+  type BuildStatus,
+  type ChosenPart,
+} from "@/db/schema";
 import { HttpError } from "@/lib/auth/errors";
+import type { FuelSystemResult } from "@/lib/calc";
+
+import { escapeLike } from "./like";
 
 export class ConflictError extends HttpError {
   constructor(readonly current: Build) {
-    super(409, "conflict", `Someone saved this build meanwhile (now version ${current.version}); nothing was overwritten`);
+    super(
+      409,
+      "conflict",
+      `Someone saved this build meanwhile (now version ${current.version}); nothing was overwritten`,
+    );
   }
 }
-
 
 export const BUILD_SORTS = ["updated", "created", "title"] as const;
 export type BuildSort = (typeof BUILD_SORTS)[number];
@@ -22,11 +36,18 @@ const SORT_COLUMNS = {
 } as const;
 
 /** Opaque keyset cursor: base64url of [sort key of the last row, its id]. */
-const encodeCursor = (key: string, id: string) => Buffer.from(JSON.stringify([key, id])).toString("base64url");
+const encodeCursor = (key: string, id: string) =>
+  Buffer.from(JSON.stringify([key, id])).toString("base64url");
 function decodeCursor(c: string): [string, string] | null {
   try {
     const v: unknown = JSON.parse(Buffer.from(c, "base64url").toString("utf8"));
-    return Array.isArray(v) && v.length === 2 && typeof v[0] === "string" && typeof v[1] === "string" && /^[0-9a-f-]{36}$/i.test(v[1]) ? [v[0], v[1]] : null;
+    return Array.isArray(v) &&
+      v.length === 2 &&
+      typeof v[0] === "string" &&
+      typeof v[1] === "string" &&
+      /^[0-9a-f-]{36}$/i.test(v[1])
+      ? [v[0], v[1]]
+      : null;
   } catch {
     return null;
   }
@@ -62,7 +83,12 @@ export async function listBuilds(shopId: string, opts: BuildListOptions) {
     const key = sort.col === builds.title ? rawKey : new Date(rawKey);
     if (!(key instanceof Date) || !Number.isNaN(key.getTime())) {
       const beyond = sort.desc ? lt(sort.col, key as never) : gt(sort.col, key as never);
-      conds.push(or(beyond, and(eq(sort.col, key as never), sort.desc ? lt(builds.id, id) : gt(builds.id, id)))!);
+      conds.push(
+        or(
+          beyond,
+          and(eq(sort.col, key as never), sort.desc ? lt(builds.id, id) : gt(builds.id, id)),
+        )!,
+      );
     }
   }
   const rows = await db
@@ -85,12 +111,19 @@ export async function listBuilds(shopId: string, opts: BuildListOptions) {
     .innerJoin(customers, eq(customers.id, builds.customerId))
     .leftJoin(user, eq(user.id, builds.tunerId))
     .where(and(...conds))
-    .orderBy(sort.desc ? desc(sort.col) : asc(sort.col), sort.desc ? desc(builds.id) : asc(builds.id))
+    .orderBy(
+      sort.desc ? desc(sort.col) : asc(sort.col),
+      sort.desc ? desc(builds.id) : asc(builds.id),
+    )
     .limit(opts.limit + 1);
   const more = rows.length > opts.limit;
   const page = more ? rows.slice(0, opts.limit) : rows;
   const last = page[page.length - 1];
-  const lastKey = last ? (opts.sort === "title" ? last.title : (opts.sort === "created" ? last.createdAt : last.updatedAt).toISOString()) : "";
+  const lastKey = last
+    ? opts.sort === "title"
+      ? last.title
+      : (opts.sort === "created" ? last.createdAt : last.updatedAt).toISOString()
+    : "";
   return { builds: page, nextCursor: more && last ? encodeCursor(lastKey, last.id) : null };
 }
 
@@ -110,7 +143,13 @@ export async function getBuild(shopId: string, id: string, portalUserId?: string
     .select({ build: builds, customerName: customers.name, customerUserId: customers.userId })
     .from(builds)
     .innerJoin(customers, eq(customers.id, builds.customerId))
-    .where(and(eq(builds.shopId, shopId), eq(builds.id, id), portalUserId ? eq(customers.userId, portalUserId) : undefined))
+    .where(
+      and(
+        eq(builds.shopId, shopId),
+        eq(builds.id, id),
+        portalUserId ? eq(customers.userId, portalUserId) : undefined,
+      ),
+    )
     .limit(1);
   return row ?? null;
 }
@@ -118,22 +157,64 @@ export async function getBuild(shopId: string, id: string, portalUserId?: string
 /** Builds of the customer signed in to the portal (matched by their user id). */
 export async function listBuildsOfPortalUser(shopId: string, userId: string) {
   return db
-    .select({ id: builds.id, title: builds.title, vehicle: builds.vehicle, status: builds.status, updatedAt: builds.updatedAt })
+    .select({
+      id: builds.id,
+      title: builds.title,
+      vehicle: builds.vehicle,
+      status: builds.status,
+      updatedAt: builds.updatedAt,
+    })
     .from(builds)
     .innerJoin(customers, eq(customers.id, builds.customerId))
     .where(and(eq(builds.shopId, shopId), eq(customers.userId, userId)))
     .orderBy(desc(builds.updatedAt));
 }
 
-export async function createBuild(shopId: string, userId: string, v: { customerId: string; title: string; vehicle?: string; inputs: unknown; result: FuelSystemResult | null; calcVersion: string }) {
+export async function createBuild(
+  shopId: string,
+  userId: string,
+  v: {
+    customerId: string;
+    title: string;
+    vehicle?: string;
+    inputs: unknown;
+    result: FuelSystemResult | null;
+    calcVersion: string;
+  },
+) {
   return db.transaction(async (tx) => {
-    const [c] = await tx.select({ id: customers.id }).from(customers).where(and(eq(customers.shopId, shopId), eq(customers.id, v.customerId))).limit(1);
+    const [c] = await tx
+      .select({ id: customers.id })
+      .from(customers)
+      .where(and(eq(customers.shopId, shopId), eq(customers.id, v.customerId)))
+      .limit(1);
     if (!c) throw new HttpError(422, "invalid_input", "That customer is not in this shop");
     const [b] = await tx
       .insert(builds)
-      .values({ shopId, customerId: v.customerId, title: v.title, vehicle: v.vehicle || null, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, tunerId: userId, createdBy: userId, updatedBy: userId })
+      .values({
+        shopId,
+        customerId: v.customerId,
+        title: v.title,
+        vehicle: v.vehicle || null,
+        inputs: v.inputs,
+        result: v.result,
+        calcVersion: v.calcVersion,
+        tunerId: userId,
+        createdBy: userId,
+        updatedBy: userId,
+      })
       .returning();
-    await tx.insert(buildRevisions).values({ shopId, buildId: b!.id, version: 1, status: b!.status, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, authorId: userId, note: "Created" });
+    await tx.insert(buildRevisions).values({
+      shopId,
+      buildId: b!.id,
+      version: 1,
+      status: b!.status,
+      inputs: v.inputs,
+      result: v.result,
+      calcVersion: v.calcVersion,
+      authorId: userId,
+      note: "Created",
+    });
     return b!;
   });
 }
@@ -147,7 +228,16 @@ export async function saveBuild(
   id: string,
   userId: string,
   expectedVersion: number,
-  v: { title?: string; vehicle?: string; status?: BuildStatus; note?: string; inputs: unknown; result: FuelSystemResult; calcVersion: string; parts?: ChosenPart[] },
+  v: {
+    title?: string;
+    vehicle?: string;
+    status?: BuildStatus;
+    note?: string;
+    inputs: unknown;
+    result: FuelSystemResult;
+    calcVersion: string;
+    parts?: ChosenPart[];
+  },
 ) {
   return db.transaction(async (tx) => {
     const [b] = await tx
@@ -167,18 +257,40 @@ export async function saveBuild(
       .where(and(eq(builds.shopId, shopId), eq(builds.id, id), eq(builds.version, expectedVersion)))
       .returning();
     if (!b) {
-      const [current] = await tx.select().from(builds).where(and(eq(builds.shopId, shopId), eq(builds.id, id))).limit(1);
+      const [current] = await tx
+        .select()
+        .from(builds)
+        .where(and(eq(builds.shopId, shopId), eq(builds.id, id)))
+        .limit(1);
       if (!current) throw new HttpError(404, "not_found", "That build was not found");
       throw new ConflictError(current);
     }
-    await tx.insert(buildRevisions).values({ shopId, buildId: id, version: b.version, status: b.status, inputs: v.inputs, result: v.result, calcVersion: v.calcVersion, parts: b.parts, authorId: userId, note: v.note || null });
+    await tx.insert(buildRevisions).values({
+      shopId,
+      buildId: id,
+      version: b.version,
+      status: b.status,
+      inputs: v.inputs,
+      result: v.result,
+      calcVersion: v.calcVersion,
+      parts: b.parts,
+      authorId: userId,
+      note: v.note || null,
+    });
     return b;
   });
 }
 
 export async function listRevisions(shopId: string, buildId: string) {
   return db
-    .select({ id: buildRevisions.id, version: buildRevisions.version, status: buildRevisions.status, note: buildRevisions.note, createdAt: buildRevisions.createdAt, authorId: buildRevisions.authorId })
+    .select({
+      id: buildRevisions.id,
+      version: buildRevisions.version,
+      status: buildRevisions.status,
+      note: buildRevisions.note,
+      createdAt: buildRevisions.createdAt,
+      authorId: buildRevisions.authorId,
+    })
     .from(buildRevisions)
     .where(and(eq(buildRevisions.shopId, shopId), eq(buildRevisions.buildId, buildId)))
     .orderBy(desc(buildRevisions.version));
@@ -188,7 +300,13 @@ export async function getRevision(shopId: string, buildId: string, version: numb
   const [row] = await db
     .select()
     .from(buildRevisions)
-    .where(and(eq(buildRevisions.shopId, shopId), eq(buildRevisions.buildId, buildId), eq(buildRevisions.version, version)))
+    .where(
+      and(
+        eq(buildRevisions.shopId, shopId),
+        eq(buildRevisions.buildId, buildId),
+        eq(buildRevisions.version, version),
+      ),
+    )
     .limit(1);
   return row ?? null;
 }

@@ -1,4 +1,5 @@
 import { and, desc, eq, isNotNull, sql } from "drizzle-orm";
+
 import { db } from "@/db";
 import { builds, datalogMappings, datalogs } from "@/db/schema";
 
@@ -8,29 +9,60 @@ export async function recordDatalog(v: typeof datalogs.$inferInsert) {
 }
 
 export async function listDatalogs(shopId: string, buildId: string) {
-  return db.select().from(datalogs).where(and(eq(datalogs.shopId, shopId), eq(datalogs.buildId, buildId))).orderBy(desc(datalogs.uploadedAt));
+  return db
+    .select()
+    .from(datalogs)
+    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.buildId, buildId)))
+    .orderBy(desc(datalogs.uploadedAt));
 }
 
 export async function getDatalog(shopId: string, id: string) {
-  const [row] = await db.select().from(datalogs).where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id))).limit(1);
+  const [row] = await db
+    .select()
+    .from(datalogs)
+    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function rememberedMapping(shopId: string, key: string) {
-  const [row] = await db.select().from(datalogMappings).where(and(eq(datalogMappings.shopId, shopId), eq(datalogMappings.headerKey, key))).limit(1);
+  const [row] = await db
+    .select()
+    .from(datalogMappings)
+    .where(and(eq(datalogMappings.shopId, shopId), eq(datalogMappings.headerKey, key)))
+    .limit(1);
   return row ?? null;
 }
 
 /** Keeps the mapping for this logger's header set and the analysis on the log, together. */
-export async function saveAnalysis(shopId: string, userId: string, id: string, key: string, mapping: unknown, analysis: unknown) {
+export async function saveAnalysis(
+  shopId: string,
+  userId: string,
+  id: string,
+  key: string,
+  mapping: unknown,
+  analysis: unknown,
+) {
   await db.transaction(async (tx) => {
-    await tx.insert(datalogMappings).values({ shopId, headerKey: key, mapping, updatedBy: userId }).onConflictDoUpdate({ target: [datalogMappings.shopId, datalogMappings.headerKey], set: { mapping, updatedBy: userId, updatedAt: new Date() } });
-    await tx.update(datalogs).set({ mapping, analysis }).where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
+    await tx
+      .insert(datalogMappings)
+      .values({ shopId, headerKey: key, mapping, updatedBy: userId })
+      .onConflictDoUpdate({
+        target: [datalogMappings.shopId, datalogMappings.headerKey],
+        set: { mapping, updatedBy: userId, updatedAt: new Date() },
+      });
+    await tx
+      .update(datalogs)
+      .set({ mapping, analysis })
+      .where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
   });
 }
 
 export async function markDatalogVerified(shopId: string, userId: string, id: string) {
-  await db.update(datalogs).set({ verifiedAt: new Date(), verifiedBy: userId }).where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
+  await db
+    .update(datalogs)
+    .set({ verifiedAt: new Date(), verifiedBy: userId })
+    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
 }
 
 /**
@@ -47,16 +79,34 @@ export async function verifiedBsfcPoints(shopId: string) {
     })
     .from(datalogs)
     .innerJoin(builds, and(eq(builds.id, datalogs.buildId), eq(builds.shopId, datalogs.shopId)))
-    .where(and(eq(datalogs.shopId, shopId), isNotNull(datalogs.verifiedAt), eq(builds.status, "verified"), sql`${datalogs.analysis} -> 'measuredBsfc' ->> 'gPerKwh' is not null`))
+    .where(
+      and(
+        eq(datalogs.shopId, shopId),
+        isNotNull(datalogs.verifiedAt),
+        eq(builds.status, "verified"),
+        sql`${datalogs.analysis} -> 'measuredBsfc' ->> 'gPerKwh' is not null`,
+      ),
+    )
     .orderBy(datalogs.buildId, desc(datalogs.verifiedAt));
 }
 
 /** The newest verified log of a build, with its analysis (for the spec sheet). */
 export async function latestVerifiedDatalog(shopId: string, buildId: string) {
   const [row] = await db
-    .select({ id: datalogs.id, fileName: datalogs.fileName, analysis: datalogs.analysis, verifiedAt: datalogs.verifiedAt })
+    .select({
+      id: datalogs.id,
+      fileName: datalogs.fileName,
+      analysis: datalogs.analysis,
+      verifiedAt: datalogs.verifiedAt,
+    })
     .from(datalogs)
-    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.buildId, buildId), isNotNull(datalogs.verifiedAt)))
+    .where(
+      and(
+        eq(datalogs.shopId, shopId),
+        eq(datalogs.buildId, buildId),
+        isNotNull(datalogs.verifiedAt),
+      ),
+    )
     .orderBy(desc(datalogs.verifiedAt))
     .limit(1);
   return row ?? null;

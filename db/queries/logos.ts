@@ -1,5 +1,7 @@
 import { createHash } from "node:crypto";
+
 import { eq } from "drizzle-orm";
+
 import { db } from "@/db";
 import { shopLogos } from "@/db/schema";
 import type { ImageInfo } from "@/lib/images/logo";
@@ -11,23 +13,55 @@ export async function getLogo(shopId: string) {
 
 /** The logo's facts without its bytes (for the settings page). */
 export async function logoFacts(shopId: string) {
-  const [row] = await db.select({ contentType: shopLogos.contentType, sha256: shopLogos.sha256, width: shopLogos.width, height: shopLogos.height, uploadedAt: shopLogos.uploadedAt }).from(shopLogos).where(eq(shopLogos.shopId, shopId)).limit(1);
+  const [row] = await db
+    .select({
+      contentType: shopLogos.contentType,
+      sha256: shopLogos.sha256,
+      width: shopLogos.width,
+      height: shopLogos.height,
+      uploadedAt: shopLogos.uploadedAt,
+    })
+    .from(shopLogos)
+    .where(eq(shopLogos.shopId, shopId))
+    .limit(1);
   return row ?? null;
 }
 
 export async function setLogo(shopId: string, userId: string, bytes: Buffer, info: ImageInfo) {
-  const values = { contentType: info.contentType, bytes, sha256: createHash("sha256").update(bytes).digest("hex"), width: info.width, height: info.height, uploadedBy: userId, uploadedAt: new Date() };
-  const [row] = await db.insert(shopLogos).values({ shopId, ...values }).onConflictDoUpdate({ target: shopLogos.shopId, set: values }).returning({ sha256: shopLogos.sha256, width: shopLogos.width, height: shopLogos.height, contentType: shopLogos.contentType });
+  const values = {
+    contentType: info.contentType,
+    bytes,
+    sha256: createHash("sha256").update(bytes).digest("hex"),
+    width: info.width,
+    height: info.height,
+    uploadedBy: userId,
+    uploadedAt: new Date(),
+  };
+  const [row] = await db
+    .insert(shopLogos)
+    .values({ shopId, ...values })
+    .onConflictDoUpdate({ target: shopLogos.shopId, set: values })
+    .returning({
+      sha256: shopLogos.sha256,
+      width: shopLogos.width,
+      height: shopLogos.height,
+      contentType: shopLogos.contentType,
+    });
   return row!;
 }
 
 export async function deleteLogo(shopId: string) {
-  const rows = await db.delete(shopLogos).where(eq(shopLogos.shopId, shopId)).returning({ shopId: shopLogos.shopId });
+  const rows = await db
+    .delete(shopLogos)
+    .where(eq(shopLogos.shopId, shopId))
+    .returning({ shopId: shopLogos.shopId });
   return rows.length > 0;
 }
 
 /** The logo in the form the PDF renderer takes. */
-export async function pdfLogo(shopId: string): Promise<{ data: Buffer; format: "png" | "jpg" } | null> {
+export async function pdfLogo(
+  shopId: string,
+): Promise<{ data: Buffer; format: "png" | "jpg" } | null> {
   const row = await getLogo(shopId);
   return row ? { data: row.bytes, format: row.contentType === "image/png" ? "png" : "jpg" } : null;
 }

@@ -1,12 +1,22 @@
-import { escapeLike } from "./like";
 import { and, asc, desc, eq, ilike, inArray, or, sql } from "drizzle-orm";
+
 import { db } from "@/db";
 import { parts, type PartCategory } from "@/db/schema";
 import type { PartValues } from "@/lib/validations/parts";
 
-const SORTS = { name: [asc(parts.name)], sku: [asc(parts.sku)], price: [asc(parts.priceMinor)], stock: [asc(sql`${parts.stock} - ${parts.reserved}`)] } as const;
+import { escapeLike } from "./like";
 
-export async function listParts(shopId: string, opts: { q?: string; category?: PartCategory; sort?: keyof typeof SORTS; limit?: number } = {}) {
+const SORTS = {
+  name: [asc(parts.name)],
+  sku: [asc(parts.sku)],
+  price: [asc(parts.priceMinor)],
+  stock: [asc(sql`${parts.stock} - ${parts.reserved}`)],
+} as const;
+
+export async function listParts(
+  shopId: string,
+  opts: { q?: string; category?: PartCategory; sort?: keyof typeof SORTS; limit?: number } = {},
+) {
   const conds = [eq(parts.shopId, shopId)];
   if (opts.category) conds.push(eq(parts.category, opts.category));
   if (opts.q) {
@@ -22,34 +32,63 @@ export async function listParts(shopId: string, opts: { q?: string; category?: P
 }
 
 export async function getPart(shopId: string, id: string) {
-  const [row] = await db.select().from(parts).where(and(eq(parts.shopId, shopId), eq(parts.id, id))).limit(1);
+  const [row] = await db
+    .select()
+    .from(parts)
+    .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function getPartsByIds(shopId: string, ids: string[]) {
   if (ids.length === 0) return [];
-  return db.select().from(parts).where(and(eq(parts.shopId, shopId), inArray(parts.id, ids)));
+  return db
+    .select()
+    .from(parts)
+    .where(and(eq(parts.shopId, shopId), inArray(parts.id, ids)));
 }
 
 export async function createPart(shopId: string, v: PartValues) {
-  const [row] = await db.insert(parts).values({ shopId, ...v }).onConflictDoNothing().returning();
+  const [row] = await db
+    .insert(parts)
+    .values({ shopId, ...v })
+    .onConflictDoNothing()
+    .returning();
   return row ?? null; // null: the SKU is taken
 }
 
 export async function updatePart(shopId: string, id: string, v: PartValues) {
-  const [row] = await db.update(parts).set({ ...v, updatedAt: new Date() }).where(and(eq(parts.shopId, shopId), eq(parts.id, id))).returning();
+  const [row] = await db
+    .update(parts)
+    .set({ ...v, updatedAt: new Date() })
+    .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+    .returning();
   return row ?? null;
 }
 
 export async function deletePart(shopId: string, id: string) {
-  const rows = await db.delete(parts).where(and(eq(parts.shopId, shopId), eq(parts.id, id))).returning({ id: parts.id });
+  const rows = await db
+    .delete(parts)
+    .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+    .returning({ id: parts.id });
   return rows.length > 0;
 }
 
 /** Which SKUs of a list the shop has already (the import preview marks them "update"). */
 export async function existingSkus(shopId: string, skus: string[]) {
   if (skus.length === 0) return new Set<string>();
-  const rows = await db.select({ sku: parts.sku }).from(parts).where(and(eq(parts.shopId, shopId), inArray(sql`lower(${parts.sku})`, skus.map((s) => s.toLowerCase()))));
+  const rows = await db
+    .select({ sku: parts.sku })
+    .from(parts)
+    .where(
+      and(
+        eq(parts.shopId, shopId),
+        inArray(
+          sql`lower(${parts.sku})`,
+          skus.map((s) => s.toLowerCase()),
+        ),
+      ),
+    );
   return new Set(rows.map((r) => r.sku.toLowerCase()));
 }
 
@@ -78,7 +117,7 @@ export async function importParts(shopId: string, rows: PartValues[]) {
           },
         })
         .returning({ inserted: sql<boolean>`(xmax = 0)` });
-      for (const r of res) (r.inserted ? added++ : updated++);
+      for (const r of res) r.inserted ? added++ : updated++;
     }
     return { added, updated };
   });

@@ -1,14 +1,26 @@
 import { and, desc, eq } from "drizzle-orm";
+
 import { db } from "@/db";
 import { paymentEvents, payments, quotes } from "@/db/schema";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 export async function listPayments(shopId: string, quoteId: string) {
-  return db.select().from(payments).where(and(eq(payments.shopId, shopId), eq(payments.quoteId, quoteId))).orderBy(desc(payments.createdAt));
+  return db
+    .select()
+    .from(payments)
+    .where(and(eq(payments.shopId, shopId), eq(payments.quoteId, quoteId)))
+    .orderBy(desc(payments.createdAt));
 }
 
-export async function recordPendingPayment(v: { shopId: string; quoteId: string; checkoutSessionId: string; amountMinor: number; currency: string; createdBy: string }) {
+export async function recordPendingPayment(v: {
+  shopId: string;
+  quoteId: string;
+  checkoutSessionId: string;
+  amountMinor: number;
+  currency: string;
+  createdBy: string;
+}) {
   const [row] = await db.insert(payments).values(v).onConflictDoNothing().returning();
   return row;
 }
@@ -18,26 +30,57 @@ export async function recordPendingPayment(v: { shopId: string; quoteId: string;
  * "deposit paid". A second call for the same session (a redelivered or out-of-order event, or the
  * customer's return after the webhook) changes nothing and says so.
  */
-export async function markPaymentPaid(tx: Tx, checkoutSessionId: string, eventId: string): Promise<"paid" | "already" | "unknown"> {
-  const [p] = await tx.select().from(payments).where(eq(payments.checkoutSessionId, checkoutSessionId)).for("update").limit(1);
+export async function markPaymentPaid(
+  tx: Tx,
+  checkoutSessionId: string,
+  eventId: string,
+): Promise<"paid" | "already" | "unknown"> {
+  const [p] = await tx
+    .select()
+    .from(payments)
+    .where(eq(payments.checkoutSessionId, checkoutSessionId))
+    .for("update")
+    .limit(1);
   if (!p) return "unknown";
   if (p.status === "paid") return "already";
-  await tx.update(payments).set({ status: "paid", paidAt: new Date(), paidEventId: eventId }).where(eq(payments.id, p.id));
+  await tx
+    .update(payments)
+    .set({ status: "paid", paidAt: new Date(), paidEventId: eventId })
+    .where(eq(payments.id, p.id));
   const [q] = await tx.select().from(quotes).where(eq(quotes.id, p.quoteId)).for("update").limit(1);
   if (q?.status === "accepted") {
-    await tx.update(quotes).set({ status: "deposit_paid", statusChangedAt: new Date(), statusChangedBy: null, version: q.version + 1, updatedAt: new Date() }).where(eq(quotes.id, q.id));
+    await tx
+      .update(quotes)
+      .set({
+        status: "deposit_paid",
+        statusChangedAt: new Date(),
+        statusChangedBy: null,
+        version: q.version + 1,
+        updatedAt: new Date(),
+      })
+      .where(eq(quotes.id, q.id));
   }
   return "paid";
 }
 
 export async function markPaymentExpired(tx: Tx, checkoutSessionId: string) {
-  await tx.update(payments).set({ status: "expired" }).where(and(eq(payments.checkoutSessionId, checkoutSessionId), eq(payments.status, "pending")));
+  await tx
+    .update(payments)
+    .set({ status: "expired" })
+    .where(and(eq(payments.checkoutSessionId, checkoutSessionId), eq(payments.status, "pending")));
 }
 
 /** Runs `fn` once per provider event id, in one transaction with the event's record; a repeat returns null. */
-export async function onceForEvent<T>(event: { id: string; type: string; checkoutSessionId: string | null }, fn: (tx: Tx) => Promise<T>): Promise<T | null> {
+export async function onceForEvent<T>(
+  event: { id: string; type: string; checkoutSessionId: string | null },
+  fn: (tx: Tx) => Promise<T>,
+): Promise<T | null> {
   return db.transaction(async (tx) => {
-    const [fresh] = await tx.insert(paymentEvents).values({ id: event.id, type: event.type, checkoutSessionId: event.checkoutSessionId }).onConflictDoNothing().returning({ id: paymentEvents.id });
+    const [fresh] = await tx
+      .insert(paymentEvents)
+      .values({ id: event.id, type: event.type, checkoutSessionId: event.checkoutSessionId })
+      .onConflictDoNothing()
+      .returning({ id: paymentEvents.id });
     if (!fresh) return null;
     return fn(tx);
   });

@@ -1,18 +1,30 @@
 import { eq } from "drizzle-orm";
+
 import { db } from "@/db";
 import { shopSettings, user } from "@/db/schema";
 import type { UnitSystem } from "@/lib/calc";
 
 /** The units this person sees: their own choice, else the shop's setting, else metric. */
 export async function unitSystemOf(userId: string, shopId: string): Promise<UnitSystem> {
-  const [u] = await db.select({ units: user.unitSystem }).from(user).where(eq(user.id, userId)).limit(1);
+  const [u] = await db
+    .select({ units: user.unitSystem })
+    .from(user)
+    .where(eq(user.id, userId))
+    .limit(1);
   if (u?.units) return u.units;
-  const [s] = await db.select({ units: shopSettings.units }).from(shopSettings).where(eq(shopSettings.shopId, shopId)).limit(1);
+  const [s] = await db
+    .select({ units: shopSettings.units })
+    .from(shopSettings)
+    .where(eq(shopSettings.shopId, shopId))
+    .limit(1);
   return s?.units ?? "metric";
 }
 
 export async function setUnitSystem(userId: string, units: UnitSystem) {
-  await db.update(user).set({ unitSystem: units, updatedAt: new Date() }).where(eq(user.id, userId));
+  await db
+    .update(user)
+    .set({ unitSystem: units, updatedAt: new Date() })
+    .where(eq(user.id, userId));
 }
 
 /** A person's display name (for "saved by …"), or null. */

@@ -1,5 +1,7 @@
 import { randomBytes, randomUUID } from "node:crypto";
+
 import { and, asc, desc, eq, gt, isNull, sql } from "drizzle-orm";
+
 import { db } from "@/db";
 import { customers, invitation, member, organization, shopSettings, user } from "@/db/schema";
 import { DEFAULT_BSFC } from "@/lib/calc";
@@ -24,7 +26,11 @@ export function slugify(name: string): string {
 }
 
 /** Creates a shop with its settings and makes the user its owner, in one transaction. */
-export async function createShopWithOwner(userId: string, shopName: string, opts: { id?: string; slug?: string } = {}) {
+export async function createShopWithOwner(
+  userId: string,
+  shopName: string,
+  opts: { id?: string; slug?: string } = {},
+) {
   return db.transaction(async (tx) => {
     const id = opts.id ?? randomUUID();
     const slug = opts.slug ?? `${slugify(shopName)}-${id.slice(0, 6)}`;
@@ -45,16 +51,30 @@ export async function getShopSettings(shopId: string) {
   return row ?? null;
 }
 
-export async function updateShopSettings(shopId: string, name: string, values: Partial<typeof shopSettings.$inferInsert>) {
+export async function updateShopSettings(
+  shopId: string,
+  name: string,
+  values: Partial<typeof shopSettings.$inferInsert>,
+) {
   await db.transaction(async (tx) => {
     await tx.update(organization).set({ name }).where(eq(organization.id, shopId));
-    await tx.update(shopSettings).set({ ...values, updatedAt: new Date() }).where(eq(shopSettings.shopId, shopId));
+    await tx
+      .update(shopSettings)
+      .set({ ...values, updatedAt: new Date() })
+      .where(eq(shopSettings.shopId, shopId));
   });
 }
 
 export async function listMembers(shopId: string) {
   return db
-    .select({ id: member.id, role: member.role, userId: member.userId, name: user.name, email: user.email, createdAt: member.createdAt })
+    .select({
+      id: member.id,
+      role: member.role,
+      userId: member.userId,
+      name: user.name,
+      email: user.email,
+      createdAt: member.createdAt,
+    })
     .from(member)
     .innerJoin(user, eq(user.id, member.userId))
     .where(eq(member.organizationId, shopId))
@@ -62,21 +82,35 @@ export async function listMembers(shopId: string) {
 }
 
 export async function listPendingInvitations(shopId: string) {
-  return db.select().from(invitation).where(and(eq(invitation.organizationId, shopId), eq(invitation.status, "pending"))).orderBy(desc(invitation.createdAt));
+  return db
+    .select()
+    .from(invitation)
+    .where(and(eq(invitation.organizationId, shopId), eq(invitation.status, "pending")))
+    .orderBy(desc(invitation.createdAt));
 }
 
 export async function getMember(shopId: string, memberId: string) {
-  const [row] = await db.select().from(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId))).limit(1);
+  const [row] = await db
+    .select()
+    .from(member)
+    .where(and(eq(member.organizationId, shopId), eq(member.id, memberId)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function countOwners(shopId: string) {
-  const rows = await db.select({ id: member.id }).from(member).where(and(eq(member.organizationId, shopId), eq(member.role, "owner")));
+  const rows = await db
+    .select({ id: member.id })
+    .from(member)
+    .where(and(eq(member.organizationId, shopId), eq(member.role, "owner")));
   return rows.length;
 }
 
 export async function setMemberRole(shopId: string, memberId: string, role: string) {
-  await db.update(member).set({ role }).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
+  await db
+    .update(member)
+    .set({ role })
+    .where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
 }
 
 export async function removeMember(shopId: string, memberId: string) {
@@ -102,12 +136,26 @@ export async function findUserByEmail(email: string) {
 /** Joins an invited user to the shop: member row, invitation accepted, e-mail verified by the link. */
 export async function acceptInvitationFor(userId: string, inv: typeof invitation.$inferSelect) {
   await db.transaction(async (tx) => {
-    await tx.insert(member).values({ id: randomUUID(), organizationId: inv.organizationId, userId, role: inv.role ?? "customer" });
+    await tx.insert(member).values({
+      id: randomUUID(),
+      organizationId: inv.organizationId,
+      userId,
+      role: inv.role ?? "customer",
+    });
     await tx.update(invitation).set({ status: "accepted" }).where(eq(invitation.id, inv.id));
     await tx.update(user).set({ emailVerified: true }).where(eq(user.id, userId));
     // A portal invitation: this sign-in now sees the shop's customer records with that e-mail.
     if ((inv.role ?? "customer") === "customer") {
-      await tx.update(customers).set({ userId, updatedAt: new Date() }).where(and(eq(customers.shopId, inv.organizationId), sql`lower(${customers.email}) = lower(${inv.email})`, isNull(customers.userId)));
+      await tx
+        .update(customers)
+        .set({ userId, updatedAt: new Date() })
+        .where(
+          and(
+            eq(customers.shopId, inv.organizationId),
+            sql`lower(${customers.email}) = lower(${inv.email})`,
+            isNull(customers.userId),
+          ),
+        );
     }
   });
 }
@@ -121,12 +169,28 @@ export async function ensurePortalInvitation(shopId: string, inviterId: string, 
   const [open] = await db
     .select()
     .from(invitation)
-    .where(and(eq(invitation.organizationId, shopId), eq(invitation.email, normalized), eq(invitation.role, "customer"), eq(invitation.status, "pending"), gt(invitation.expiresAt, new Date())))
+    .where(
+      and(
+        eq(invitation.organizationId, shopId),
+        eq(invitation.email, normalized),
+        eq(invitation.role, "customer"),
+        eq(invitation.status, "pending"),
+        gt(invitation.expiresAt, new Date()),
+      ),
+    )
     .limit(1);
   if (open) return open;
   const [row] = await db
     .insert(invitation)
-    .values({ id: randomBytes(24).toString("base64url"), organizationId: shopId, email: normalized, role: "customer", status: "pending", expiresAt: new Date(Date.now() + 14 * 86_400_000), inviterId })
+    .values({
+      id: randomBytes(24).toString("base64url"),
+      organizationId: shopId,
+      email: normalized,
+      role: "customer",
+      status: "pending",
+      expiresAt: new Date(Date.now() + 14 * 86_400_000),
+      inviterId,
+    })
     .returning();
   return row!;
 }

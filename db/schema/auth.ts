@@ -25,7 +25,9 @@ export const session = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
     ipAddress: text("ip_address"),
     userAgent: text("user_agent"),
-    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
     activeOrganizationId: text("active_organization_id"),
   },
   (t) => [index("session_user_id_idx").on(t.userId)],
@@ -37,7 +39,9 @@ export const account = pgTable(
     id: text("id").primaryKey(),
     accountId: text("account_id").notNull(),
     providerId: text("provider_id").notNull(),
-    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
     accessToken: text("access_token"),
     refreshToken: text("refresh_token"),
     idToken: text("id_token"),
@@ -78,36 +82,62 @@ export const member = pgTable(
   "member",
   {
     id: text("id").primaryKey(),
-    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    organizationId: text("organization_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
     role: text("role").notNull().default("member"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("member_organization_id_idx").on(t.organizationId), index("member_user_id_idx").on(t.userId)],
+  (t) => [
+    index("member_organization_id_idx").on(t.organizationId),
+    index("member_user_id_idx").on(t.userId),
+  ],
 );
 
 export const invitation = pgTable(
   "invitation",
   {
     id: text("id").primaryKey(),
-    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    organizationId: text("organization_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     email: text("email").notNull(),
     role: text("role"),
     status: text("status").notNull().default("pending"),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    inviterId: text("inviter_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    inviterId: text("inviter_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
   },
-  (t) => [index("invitation_organization_id_idx").on(t.organizationId), index("invitation_email_idx").on(t.email)],
+  (t) => [
+    index("invitation_organization_id_idx").on(t.organizationId),
+    index("invitation_email_idx").on(t.email),
+  ],
 );
 
-export const userRelations = relations(user, ({ many }) => ({ members: many(member), sessions: many(session) }));
-export const organizationRelations = relations(organization, ({ many }) => ({ members: many(member), invitations: many(invitation) }));
+export const userRelations = relations(user, ({ many }) => ({
+  members: many(member),
+  sessions: many(session),
+}));
+export const organizationRelations = relations(organization, ({ many }) => ({
+  members: many(member),
+  invitations: many(invitation),
+}));
 export const memberRelations = relations(member, ({ one }) => ({
-  organization: one(organization, { fields: [member.organizationId], references: [organization.id] }),
+  organization: one(organization, {
+    fields: [member.organizationId],
+    references: [organization.id],
+  }),
   user: one(user, { fields: [member.userId], references: [user.id] }),
 }));
 export const invitationRelations = relations(invitation, ({ one }) => ({
-  organization: one(organization, { fields: [invitation.organizationId], references: [organization.id] }),
+  organization: one(organization, {
+    fields: [invitation.organizationId],
+    references: [organization.id],
+  }),
   inviter: one(user, { fields: [invitation.inviterId], references: [user.id] }),
 }));

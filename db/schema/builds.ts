@@ -1,12 +1,38 @@
 import { relations, sql } from "drizzle-orm";
-import { index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import {
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
+
 import { organization, user } from "./auth";
 import { customers } from "./shops";
 
-export const BUILD_STATUSES = ["draft", "sized", "quoted", "ordered", "fitted", "verified"] as const;
+export const BUILD_STATUSES = [
+  "draft",
+  "sized",
+  "quoted",
+  "ordered",
+  "fitted",
+  "verified",
+] as const;
 export type BuildStatus = (typeof BUILD_STATUSES)[number];
 
-export const KIT_ROLES = ["injector", "pump", "regulator", "feed-line", "return-line", "filter", "sensor"] as const;
+export const KIT_ROLES = [
+  "injector",
+  "pump",
+  "regulator",
+  "feed-line",
+  "return-line",
+  "filter",
+  "sensor",
+] as const;
 export type KitRole = (typeof KIT_ROLES)[number];
 /** A catalog part chosen for a build, with the figures it was chosen on. */
 export interface ChosenPart {
@@ -22,8 +48,12 @@ export const builds = pgTable(
   "builds",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    customerId: uuid("customer_id").notNull().references(() => customers.id, { onDelete: "restrict" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    customerId: uuid("customer_id")
+      .notNull()
+      .references(() => customers.id, { onDelete: "restrict" }),
     title: text("title").notNull(),
     vehicle: text("vehicle"),
     status: text("status", { enum: BUILD_STATUSES }).notNull().default("draft"),
@@ -60,8 +90,12 @@ export const buildRevisions = pgTable(
   "build_revisions",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id")
+      .notNull()
+      .references(() => builds.id, { onDelete: "cascade" }),
     version: integer("version").notNull(),
     status: text("status", { enum: BUILD_STATUSES }).notNull(),
     inputs: jsonb("inputs").notNull(),
@@ -72,14 +106,19 @@ export const buildRevisions = pgTable(
     authorId: text("author_id").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("build_revisions_build_version_idx").on(t.buildId, t.version), index("build_revisions_shop_idx").on(t.shopId)],
+  (t) => [
+    uniqueIndex("build_revisions_build_version_idx").on(t.buildId, t.version),
+    index("build_revisions_shop_idx").on(t.shopId),
+  ],
 );
 
 export const buildRelations = relations(builds, ({ one, many }) => ({
   customer: one(customers, { fields: [builds.customerId], references: [customers.id] }),
   revisions: many(buildRevisions),
 }));
-export const buildRevisionRelations = relations(buildRevisions, ({ one }) => ({ build: one(builds, { fields: [buildRevisions.buildId], references: [builds.id] }) }));
+export const buildRevisionRelations = relations(buildRevisions, ({ one }) => ({
+  build: one(builds, { fields: [buildRevisions.buildId], references: [builds.id] }),
+}));
 
 export type Build = typeof builds.$inferSelect;
 export type BuildRevision = typeof buildRevisions.$inferSelect;
@@ -89,8 +128,12 @@ export const datalogs = pgTable(
   "datalogs",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id")
+      .notNull()
+      .references(() => builds.id, { onDelete: "cascade" }),
     objectKey: text("object_key").notNull(),
     fileName: text("file_name").notNull(),
     sizeBytes: integer("size_bytes").notNull(),
@@ -114,7 +157,9 @@ export type DatalogRow = typeof datalogs.$inferSelect;
 export const datalogMappings = pgTable(
   "datalog_mappings",
   {
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     headerKey: text("header_key").notNull(),
     mapping: jsonb("mapping").notNull(),
     updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),

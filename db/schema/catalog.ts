@@ -1,10 +1,32 @@
 import { relations, sql } from "drizzle-orm";
-import { check, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import {
+  check,
+  date,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
+
 import { organization, user } from "./auth";
 import { builds } from "./builds";
 import { customers } from "./shops";
 
-export const PART_CATEGORIES = ["injector", "pump", "regulator", "line", "fitting", "filter", "sensor", "other"] as const;
+export const PART_CATEGORIES = [
+  "injector",
+  "pump",
+  "regulator",
+  "line",
+  "fitting",
+  "filter",
+  "sensor",
+  "other",
+] as const;
 export type PartCategory = (typeof PART_CATEGORIES)[number];
 
 /** One catalog part of a shop. Money in integer minor units (cents); specs validated per category. */
@@ -12,7 +34,9 @@ export const parts = pgTable(
   "parts",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     sku: text("sku").notNull(),
     category: text("category", { enum: PART_CATEGORIES }).notNull(),
     brand: text("brand").notNull(),
@@ -30,18 +54,32 @@ export const parts = pgTable(
   (t) => [
     uniqueIndex("parts_shop_sku_idx").on(t.shopId, t.sku),
     index("parts_shop_category_idx").on(t.shopId, t.category, t.name),
-    check("parts_money_nonneg", sql`${t.priceMinor} >= 0 and ${t.costMinor} >= 0 and ${t.reserved} >= 0`),
+    check(
+      "parts_money_nonneg",
+      sql`${t.priceMinor} >= 0 and ${t.costMinor} >= 0 and ${t.reserved} >= 0`,
+    ),
   ],
 );
 
-export const QUOTE_STATUSES = ["draft", "sent", "accepted", "deposit_paid", "ordered", "declined", "expired", "superseded"] as const;
+export const QUOTE_STATUSES = [
+  "draft",
+  "sent",
+  "accepted",
+  "deposit_paid",
+  "ordered",
+  "declined",
+  "expired",
+  "superseded",
+] as const;
 export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
 
 /** Per-shop gap-free counters (quote numbers): incremented inside the creating transaction. */
 export const shopCounters = pgTable(
   "shop_counters",
   {
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     value: integer("value").notNull().default(0),
   },
@@ -52,11 +90,15 @@ export const quotes = pgTable(
   "quotes",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     number: integer("number").notNull(),
     /** 1 for the first issue; an accepted quote that needs changing gets a new revision. */
     revision: integer("revision").notNull().default(1),
-    customerId: uuid("customer_id").notNull().references(() => customers.id, { onDelete: "restrict" }),
+    customerId: uuid("customer_id")
+      .notNull()
+      .references(() => customers.id, { onDelete: "restrict" }),
     buildId: uuid("build_id").references(() => builds.id, { onDelete: "set null" }),
     status: text("status", { enum: QUOTE_STATUSES }).notNull().default("draft"),
     currency: text("currency").notNull(),
@@ -88,8 +130,12 @@ export const quoteLines = pgTable(
   "quote_lines",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id")
+      .notNull()
+      .references(() => quotes.id, { onDelete: "cascade" }),
     position: integer("position").notNull(),
     kind: text("kind", { enum: QUOTE_LINE_KINDS }).notNull(),
     partId: uuid("part_id").references(() => parts.id, { onDelete: "set null" }),
@@ -101,7 +147,10 @@ export const quoteLines = pgTable(
     /** Line discount in basis points (1000 = 10 %). */
     discountBp: integer("discount_bp").notNull().default(0),
   },
-  (t) => [index("quote_lines_quote_idx").on(t.quoteId, t.position), index("quote_lines_shop_idx").on(t.shopId)],
+  (t) => [
+    index("quote_lines_quote_idx").on(t.quoteId, t.position),
+    index("quote_lines_shop_idx").on(t.shopId),
+  ],
 );
 
 /** Every e-mail sent about a quote. */
@@ -109,8 +158,12 @@ export const quoteMessages = pgTable(
   "quote_messages",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id")
+      .notNull()
+      .references(() => quotes.id, { onDelete: "cascade" }),
     to: text("to").notNull(),
     subject: text("subject").notNull(),
     messageId: text("message_id"),
@@ -125,8 +178,12 @@ export const quoteRelations = relations(quotes, ({ many, one }) => ({
   messages: many(quoteMessages),
   customer: one(customers, { fields: [quotes.customerId], references: [customers.id] }),
 }));
-export const quoteLineRelations = relations(quoteLines, ({ one }) => ({ quote: one(quotes, { fields: [quoteLines.quoteId], references: [quotes.id] }) }));
-export const quoteMessageRelations = relations(quoteMessages, ({ one }) => ({ quote: one(quotes, { fields: [quoteMessages.quoteId], references: [quotes.id] }) }));
+export const quoteLineRelations = relations(quoteLines, ({ one }) => ({
+  quote: one(quotes, { fields: [quoteLines.quoteId], references: [quotes.id] }),
+}));
+export const quoteMessageRelations = relations(quoteMessages, ({ one }) => ({
+  quote: one(quotes, { fields: [quoteMessages.quoteId], references: [quotes.id] }),
+}));
 
 export type Part = typeof parts.$inferSelect;
 export type Quote = typeof quotes.$inferSelect;
@@ -137,15 +194,22 @@ export const shareLinks = pgTable(
   "share_links",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    buildId: uuid("build_id").notNull().references(() => builds.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id")
+      .notNull()
+      .references(() => builds.id, { onDelete: "cascade" }),
     tokenHash: text("token_hash").notNull(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("share_links_token_idx").on(t.tokenHash), index("share_links_build_idx").on(t.shopId, t.buildId)],
+  (t) => [
+    uniqueIndex("share_links_token_idx").on(t.tokenHash),
+    index("share_links_build_idx").on(t.shopId, t.buildId),
+  ],
 );
 export type ShareLink = typeof shareLinks.$inferSelect;
 
@@ -157,8 +221,12 @@ export const payments = pgTable(
   "payments",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    quoteId: uuid("quote_id").notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    quoteId: uuid("quote_id")
+      .notNull()
+      .references(() => quotes.id, { onDelete: "cascade" }),
     provider: text("provider").notNull().default("stripe"),
     /** The provider's checkout session id (unique: one payment per session, whatever arrives twice). */
     checkoutSessionId: text("checkout_session_id").notNull(),
@@ -171,7 +239,10 @@ export const payments = pgTable(
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("payments_session_idx").on(t.checkoutSessionId), index("payments_quote_idx").on(t.shopId, t.quoteId)],
+  (t) => [
+    uniqueIndex("payments_session_idx").on(t.checkoutSessionId),
+    index("payments_quote_idx").on(t.shopId, t.quoteId),
+  ],
 );
 export type Payment = typeof payments.$inferSelect;
 

@@ -1,10 +1,22 @@
 import { relations } from "drizzle-orm";
-import { customType, index, integer, pgTable, real, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import {
+  customType,
+  index,
+  integer,
+  pgTable,
+  real,
+  text,
+  timestamp,
+  uuid,
+} from "drizzle-orm/pg-core";
+
 import { organization, user } from "./auth";
 
 /** A shop's defaults. One row per shop (organization). BSFC in g/kWh, pressures in kPa. */
 export const shopSettings = pgTable("shop_settings", {
-  shopId: text("shop_id").primaryKey().references(() => organization.id, { onDelete: "cascade" }),
+  shopId: text("shop_id")
+    .primaryKey()
+    .references(() => organization.id, { onDelete: "cascade" }),
   currency: text("currency").notNull().default("USD"),
   /** Tax rate in basis points (825 = 8.25 %). */
   taxRateBp: integer("tax_rate_bp").notNull().default(0),
@@ -14,7 +26,9 @@ export const shopSettings = pgTable("shop_settings", {
   depositBp: integer("deposit_bp").notNull().default(3000),
   /** Days a new quote stays valid. */
   quoteValidDays: integer("quote_valid_days").notNull().default(30),
-  units: text("units", { enum: ["metric", "imperial"] }).notNull().default("imperial"),
+  units: text("units", { enum: ["metric", "imperial"] })
+    .notNull()
+    .default("imperial"),
   address: text("address"),
   phone: text("phone"),
   bsfcGasolineNa: real("bsfc_gasoline_na").notNull(),
@@ -36,7 +50,9 @@ export const customers = pgTable(
   "customers",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    shopId: text("shop_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     email: text("email"),
     phone: text("phone"),
@@ -46,11 +62,19 @@ export const customers = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("customers_shop_id_idx").on(t.shopId), index("customers_shop_name_idx").on(t.shopId, t.name), index("customers_user_id_idx").on(t.userId)],
+  (t) => [
+    index("customers_shop_id_idx").on(t.shopId),
+    index("customers_shop_name_idx").on(t.shopId, t.name),
+    index("customers_user_id_idx").on(t.userId),
+  ],
 );
 
-export const shopSettingsRelations = relations(shopSettings, ({ one }) => ({ shop: one(organization, { fields: [shopSettings.shopId], references: [organization.id] }) }));
-export const customerRelations = relations(customers, ({ one }) => ({ shop: one(organization, { fields: [customers.shopId], references: [organization.id] }) }));
+export const shopSettingsRelations = relations(shopSettings, ({ one }) => ({
+  shop: one(organization, { fields: [shopSettings.shopId], references: [organization.id] }),
+}));
+export const customerRelations = relations(customers, ({ one }) => ({
+  shop: one(organization, { fields: [customers.shopId], references: [organization.id] }),
+}));
 
 export type ShopSettings = typeof shopSettings.$inferSelect;
 export type Customer = typeof customers.$inferSelect;
@@ -59,7 +83,9 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () =>
 
 /** The shop's logo for its PDFs and pages: a small PNG or JPEG, checked by its bytes on upload. */
 export const shopLogos = pgTable("shop_logos", {
-  shopId: text("shop_id").primaryKey().references(() => organization.id, { onDelete: "cascade" }),
+  shopId: text("shop_id")
+    .primaryKey()
+    .references(() => organization.id, { onDelete: "cascade" }),
   contentType: text("content_type", { enum: ["image/png", "image/jpeg"] }).notNull(),
   bytes: bytea("bytes").notNull(),
   sha256: text("sha256").notNull(),

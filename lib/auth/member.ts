@@ -1,11 +1,14 @@
 import "server-only";
+
 import { and, eq } from "drizzle-orm";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
+
 import { db } from "@/db";
 import { member, organization } from "@/db/schema";
 import { auth } from "@/lib/auth";
+
 import { ForbiddenError, UnauthorizedError } from "./errors";
 import { can, type Action } from "./permissions";
 import { isRole, type Role } from "./roles";
@@ -26,11 +29,20 @@ export const currentMember = cache(async (): Promise<Member | null> => {
     .select({ role: member.role, shopId: member.organizationId, shopName: organization.name })
     .from(member)
     .innerJoin(organization, eq(organization.id, member.organizationId))
-    .where(shopId ? and(eq(member.userId, session.user.id), eq(member.organizationId, shopId)) : eq(member.userId, session.user.id))
+    .where(
+      shopId
+        ? and(eq(member.userId, session.user.id), eq(member.organizationId, shopId))
+        : eq(member.userId, session.user.id),
+    )
     .limit(1);
   const m = rows[0];
   if (!m || !isRole(m.role)) return null;
-  return { user: { id: session.user.id, name: session.user.name, email: session.user.email }, shopId: m.shopId, shopName: m.shopName, role: m.role };
+  return {
+    user: { id: session.user.id, name: session.user.name, email: session.user.email },
+    shopId: m.shopId,
+    shopName: m.shopName,
+    role: m.role,
+  };
 });
 
 /** For route handlers and server actions: the member, allowed to take `action`, or an HttpError. */

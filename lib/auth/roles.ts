@@ -10,4 +10,5 @@ export const ROLE_LABELS: Record<Role, string> = {
   customer: "Customer",
 };
 
-export const isRole = (r: unknown): r is Role => typeof r === "string" && (ROLES as readonly string[]).includes(r);
+export const isRole = (r: unknown): r is Role =>
+  typeof r === "string" && (ROLES as readonly string[]).includes(r);

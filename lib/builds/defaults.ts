@@ -1,5 +1,4 @@
-import type { FuelSystemInput } from "@/lib/calc";
-import { DEFAULT_E85_RANGE } from "@/lib/calc";
+import { DEFAULT_E85_RANGE, type FuelSystemInput } from "@/lib/calc";
 
 /**
  * Starting inputs of a new build sheet: a boosted six on pump E85 (ASTM D5798 range), with an
@@ -7,16 +6,35 @@ import { DEFAULT_E85_RANGE } from "@/lib/calc";
  */
 export function newBuildInputs(): FuelSystemInput {
   return {
-    engine: { cylinders: 6, displacementL: 3.0, aspiration: "turbo", redlineRpm: 7000, idleRpm: 850, maxBoostKpa: 150 },
+    engine: {
+      cylinders: 6,
+      displacementL: 3.0,
+      aspiration: "turbo",
+      redlineRpm: 7000,
+      idleRpm: 850,
+      maxBoostKpa: 150,
+    },
     target: { powerKw: 375, measuredAt: "wheel", drivetrainLossPct: 15 },
-    fuel: { ethanolMinVolPct: DEFAULT_E85_RANGE.ethanolMinVolPct, ethanolMaxVolPct: DEFAULT_E85_RANGE.ethanolMaxVolPct },
+    fuel: {
+      ethanolMinVolPct: DEFAULT_E85_RANGE.ethanolMinVolPct,
+      ethanolMaxVolPct: DEFAULT_E85_RANGE.ethanolMaxVolPct,
+    },
     injectors: { count: 6, ratedFlowCcPerMin: 1000, ratedPressureKpa: 300 },
     regulator: { type: "boost-referenced", basePressureKpa: 300 },
     pumps: [
       {
         label: "Pump (enter its curve)",
         quantity: 1,
-        curves: [{ voltage: 13.5, points: [{ pressureKpa: 300, flowLPerH: 340 }, { pressureKpa: 500, flowLPerH: 290 }, { pressureKpa: 700, flowLPerH: 230 }] }],
+        curves: [
+          {
+            voltage: 13.5,
+            points: [
+              { pressureKpa: 300, flowLPerH: 340 },
+              { pressureKpa: 500, flowLPerH: 290 },
+              { pressureKpa: 700, flowLPerH: 230 },
+            ],
+          },
+        ],
       },
     ],
     electrical: { voltageAtPump: 13.0 },

@@ -1,16 +1,26 @@
-import { quantityOf, toShown, converter, type FuelSystemResult, type UnitSystem } from "@/lib/calc";
+import { converter, quantityOf, toShown, type FuelSystemResult, type UnitSystem } from "@/lib/calc";
 
 /** Every leaf of a JSON value by dotted path ("pumps.0.curves.0.voltage"). */
-export function flatten(value: unknown, path = "", out: Record<string, string | number | boolean | null> = {}) {
-  if (Array.isArray(value)) value.forEach((v, i) => flatten(v, path ? `${path}.${i}` : String(i), out));
-  else if (value && typeof value === "object") for (const [k, v] of Object.entries(value)) flatten(v, path ? `${path}.${k}` : k, out);
+export function flatten(
+  value: unknown,
+  path = "",
+  out: Record<string, string | number | boolean | null> = {},
+) {
+  if (Array.isArray(value))
+    value.forEach((v, i) => flatten(v, path ? `${path}.${i}` : String(i), out));
+  else if (value && typeof value === "object")
+    for (const [k, v] of Object.entries(value)) flatten(v, path ? `${path}.${k}` : k, out);
   else if (value !== undefined) out[path] = value as string | number | boolean | null;
   return out;
 }
 
 /** JSON with sorted keys, so that two equal objects compare equal whatever their key order. */
 export function stableJson(value: unknown): string {
-  return JSON.stringify(value, (_k, v) => (v && typeof v === "object" && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => a.localeCompare(b))) : v));
+  return JSON.stringify(value, (_k, v) =>
+    v && typeof v === "object" && !Array.isArray(v)
+      ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => a.localeCompare(b)))
+      : v,
+  );
 }
 
 const LABELS: Record<string, string> = {
@@ -39,16 +49,26 @@ const LABELS: Record<string, string> = {
   "electrical.wiring.roundTripLengthM": "Wiring: length there and back",
   "electrical.wiring.currentA": "Wiring: pump current",
 };
-const LINE_FIELDS: Record<string, string> = { insideDiameterMm: "inside diameter", lengthM: "length", roughnessMm: "roughness", fittingsK: "fittings K", filterDropKpa: "filter drop" };
+const LINE_FIELDS: Record<string, string> = {
+  insideDiameterMm: "inside diameter",
+  lengthM: "length",
+  roughnessMm: "roughness",
+  fittingsK: "fittings K",
+  filterDropKpa: "filter drop",
+};
 const PUMP_FIELDS: Record<string, string> = { pressureKpa: "pressure", flowLPerH: "flow" };
 
 /** A readable name for an input path; unknown paths read as their path. */
 export function labelOf(path: string): string {
   const line = /^lines\.(feed|return)\.(\w+)$/.exec(path);
-  if (line) return `${line[1] === "feed" ? "Feed" : "Return"} line ${LINE_FIELDS[line[2]!] ?? line[2]}`;
+  if (line)
+    return `${line[1] === "feed" ? "Feed" : "Return"} line ${LINE_FIELDS[line[2]!] ?? line[2]}`;
   const pt = /^pumps\.(\d+)\.curves\.(\d+)\.points\.(\d+)\.(\w+)$/.exec(path);
-  if (pt) return `Pump ${Number(pt[1]) + 1} curve ${Number(pt[2]) + 1} point ${Number(pt[3]) + 1} ${PUMP_FIELDS[pt[4]!] ?? pt[4]}`;
-  return LABELS[path] ?? path.replace(/\.(\d+)/g, (_m, i) => ` ${Number(i) + 1}`).replace(/\./g, " › ");
+  if (pt)
+    return `Pump ${Number(pt[1]) + 1} curve ${Number(pt[2]) + 1} point ${Number(pt[3]) + 1} ${PUMP_FIELDS[pt[4]!] ?? pt[4]}`;
+  return (
+    LABELS[path] ?? path.replace(/\.(\d+)/g, (_m, i) => ` ${Number(i) + 1}`).replace(/\./g, " › ")
+  );
 }
 
 export interface InputChange {
@@ -58,7 +78,11 @@ export interface InputChange {
   after: string;
 }
 
-function shown(path: string, v: string | number | boolean | null | undefined, units: UnitSystem): string {
+function shown(
+  path: string,
+  v: string | number | boolean | null | undefined,
+  units: UnitSystem,
+): string {
   if (v === undefined || v === null) return "—";
   if (typeof v !== "number") return String(v);
   const q = quantityOf(path);
@@ -70,7 +94,14 @@ export function diffInputs(a: unknown, b: unknown, units: UnitSystem): InputChan
   const fa = flatten(a);
   const fb = flatten(b);
   const paths = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
-  return paths.filter((p) => fa[p] !== fb[p]).map((p) => ({ path: p, label: labelOf(p), before: shown(p, fa[p], units), after: shown(p, fb[p], units) }));
+  return paths
+    .filter((p) => fa[p] !== fb[p])
+    .map((p) => ({
+      path: p,
+      label: labelOf(p),
+      before: shown(p, fa[p], units),
+      after: shown(p, fb[p], units),
+    }));
 }
 
 export interface KeyFigure {
@@ -81,16 +112,38 @@ export interface KeyFigure {
 }
 
 /** The headline figures of two results side by side. */
-export function compareKeyFigures(a: FuelSystemResult | null, b: FuelSystemResult | null, units: UnitSystem): KeyFigure[] {
-  const fig = (r: FuelSystemResult | null, pick: (r: FuelSystemResult) => number, q?: Parameters<typeof toShown>[0], unit = "", d = 1) => {
+export function compareKeyFigures(
+  a: FuelSystemResult | null,
+  b: FuelSystemResult | null,
+  units: UnitSystem,
+): KeyFigure[] {
+  const fig = (
+    r: FuelSystemResult | null,
+    pick: (r: FuelSystemResult) => number,
+    q?: Parameters<typeof toShown>[0],
+    unit = "",
+    d = 1,
+  ) => {
     if (!r) return "—";
     const v = pick(r);
     if (!Number.isFinite(v)) return "—";
     return q ? `${toShown(q, v, units)} ${converter(q, units).unit}` : `${v.toFixed(d)}${unit}`;
   };
-  const rows: [string, (r: FuelSystemResult) => number, Parameters<typeof toShown>[0] | undefined, string, number][] = [
+  const rows: [
+    string,
+    (r: FuelSystemResult) => number,
+    Parameters<typeof toShown>[0] | undefined,
+    string,
+    number,
+  ][] = [
     ["Duty at the richest blend", (r) => r.blend.rich.dutyPct, undefined, " %", 1],
-    ["Smallest injector rating", (r) => r.injector.requiredRatedFlowCcPerMin, "injectorFlow", "", 0],
+    [
+      "Smallest injector rating",
+      (r) => r.injector.requiredRatedFlowCcPerMin,
+      "injectorFlow",
+      "",
+      0,
+    ],
     ["Pump demand", (r) => r.pump.demandLPerH, "volumeFlow", "", 0],
     ["Pump supply", (r) => r.pump.supplyLPerH, "volumeFlow", "", 0],
     ["Pump margin", (r) => r.pump.marginPct, undefined, " %", 0],

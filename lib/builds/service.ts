@@ -1,6 +1,11 @@
-import { CALC_VERSION, FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "@/lib/calc";
 import type { BuildStatus } from "@/db/schema/builds";
 import { HttpError } from "@/lib/auth/errors";
+import {
+  CALC_VERSION,
+  FuelSystemInputSchema,
+  sizeParsedFuelSystem,
+  type FuelSystemInput,
+} from "@/lib/calc";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
 
 /** Validates and sizes inputs on the server — the same library the browser ran. */
@@ -13,6 +18,10 @@ export function sizeForSave(inputs: FuelSystemInput) {
 export function checkTransition(from: BuildStatus, to: BuildStatus | undefined): void {
   if (!to || to === from) return;
   if (!STATUS_NEXT[from].includes(to)) {
-    throw new HttpError(422, "invalid_transition", `A build cannot go from ${STATUS_LABELS[from]} to ${STATUS_LABELS[to]}`);
+    throw new HttpError(
+      422,
+      "invalid_transition",
+      `A build cannot go from ${STATUS_LABELS[from]} to ${STATUS_LABELS[to]}`,
+    );
   }
 }

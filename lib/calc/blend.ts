@@ -41,7 +41,13 @@ export interface VolumeToAddQuery {
 
 export type VolumeToAddResult =
   | { ok: true; volumeL: number; finalVolumeL: number }
-  | { ok: false; code: "target-unreachable" | "overflow" | "tank-over-capacity"; message: string; drainL?: number; thenAddL?: number };
+  | {
+      ok: false;
+      code: "target-unreachable" | "overflow" | "tank-over-capacity";
+      message: string;
+      drainL?: number;
+      thenAddL?: number;
+    };
 
 /**
  * Litres of fuel B to add to a tank holding V litres of fuel A to reach a target ethanol
@@ -52,16 +58,45 @@ export type VolumeToAddResult =
  */
 export function volumeToAdd(q: VolumeToAddQuery): VolumeToAddResult {
   const V = requireRange("tankVolumeL", q.tankVolumeL, 0, 1e5, "Fuel in the tank");
-  const a = requireRange("tankEthanolVolPct", q.tankEthanolVolPct, 0, 100, "Ethanol content in the tank");
-  const b = requireRange("addedEthanolVolPct", q.addedEthanolVolPct, 0, 100, "Ethanol content of the added fuel");
-  const t = requireRange("targetEthanolVolPct", q.targetEthanolVolPct, 0, 100, "Target ethanol content");
-  const cap = q.tankCapacityL === undefined ? undefined : requireRange("tankCapacityL", q.tankCapacityL, 0.1, 1e5, "Tank capacity");
+  const a = requireRange(
+    "tankEthanolVolPct",
+    q.tankEthanolVolPct,
+    0,
+    100,
+    "Ethanol content in the tank",
+  );
+  const b = requireRange(
+    "addedEthanolVolPct",
+    q.addedEthanolVolPct,
+    0,
+    100,
+    "Ethanol content of the added fuel",
+  );
+  const t = requireRange(
+    "targetEthanolVolPct",
+    q.targetEthanolVolPct,
+    0,
+    100,
+    "Target ethanol content",
+  );
+  const cap =
+    q.tankCapacityL === undefined
+      ? undefined
+      : requireRange("tankCapacityL", q.tankCapacityL, 0.1, 1e5, "Tank capacity");
   if (cap !== undefined && V > cap + EPS) {
-    return { ok: false, code: "tank-over-capacity", message: `The tank holds at most ${fmtL(cap)}, less than the ${fmtL(V)} said to be in it` };
+    return {
+      ok: false,
+      code: "tank-over-capacity",
+      message: `The tank holds at most ${fmtL(cap)}, less than the ${fmtL(V)} said to be in it`,
+    };
   }
   if (Math.abs(t - a) < EPS || V === 0) {
     if (V === 0 && Math.abs(t - b) > EPS && Math.abs(t - a) > EPS) {
-      return { ok: false, code: "target-unreachable", message: `The tank is empty: filling it with ${fmtE(b)} gives ${fmtE(b)}, not ${fmtE(t)}` };
+      return {
+        ok: false,
+        code: "target-unreachable",
+        message: `The tank is empty: filling it with ${fmtE(b)} gives ${fmtE(b)}, not ${fmtE(t)}`,
+      };
     }
     return { ok: true, volumeL: 0, finalVolumeL: V };
   }
@@ -113,17 +148,46 @@ export type FillSplitResult =
  */
 export function fillSplit(q: FillSplitQuery): FillSplitResult {
   const V = requireRange("fillVolumeL", q.fillVolumeL, 0.1, 1e5, "Fill volume");
-  const eA = requireRange("fuelAEthanolVolPct", q.fuelAEthanolVolPct, 0, 100, "Ethanol content of fuel A");
-  const eB = requireRange("fuelBEthanolVolPct", q.fuelBEthanolVolPct, 0, 100, "Ethanol content of fuel B");
-  const t = requireRange("targetEthanolVolPct", q.targetEthanolVolPct, 0, 100, "Target ethanol content");
+  const eA = requireRange(
+    "fuelAEthanolVolPct",
+    q.fuelAEthanolVolPct,
+    0,
+    100,
+    "Ethanol content of fuel A",
+  );
+  const eB = requireRange(
+    "fuelBEthanolVolPct",
+    q.fuelBEthanolVolPct,
+    0,
+    100,
+    "Ethanol content of fuel B",
+  );
+  const t = requireRange(
+    "targetEthanolVolPct",
+    q.targetEthanolVolPct,
+    0,
+    100,
+    "Target ethanol content",
+  );
   const V0 = requireRange("tankVolumeL", q.tankVolumeL ?? 0, 0, 1e5, "Fuel in the tank");
-  const e0 = requireRange("tankEthanolVolPct", q.tankEthanolVolPct ?? 0, 0, 100, "Ethanol content in the tank");
+  const e0 = requireRange(
+    "tankEthanolVolPct",
+    q.tankEthanolVolPct ?? 0,
+    0,
+    100,
+    "Ethanol content in the tank",
+  );
   const total = V0 + V;
   const mixWith = (a: number) => (V0 * e0 + a * eA + (V - a) * eB) / total;
   if (Math.abs(eA - eB) < EPS) {
     const e = mixWith(V);
     if (Math.abs(e - t) < 0.05) return { ok: true, fuelAL: V, fuelBL: 0, finalEthanolVolPct: e };
-    return { ok: false, code: "target-unreachable", message: `Both fuels are ${fmtE(eA)}: the tank ends at ${fmtE(e)} whatever the split`, closestEthanolVolPct: e };
+    return {
+      ok: false,
+      code: "target-unreachable",
+      message: `Both fuels are ${fmtE(eA)}: the tank ends at ${fmtE(e)} whatever the split`,
+      closestEthanolVolPct: e,
+    };
   }
   const a = (total * t - V0 * e0 - V * eB) / (eA - eB);
   if (a < -EPS || a > V + EPS) {
@@ -150,7 +214,13 @@ export const FLEX_SENSOR_HZ = { min: 50, max: 150 } as const;
  * @example ethanolFromFlexSensorHz(135) // 85
  */
 export function ethanolFromFlexSensorHz(frequencyHz: number): number {
-  requireRange("frequencyHz", frequencyHz, FLEX_SENSOR_HZ.min, FLEX_SENSOR_HZ.max, "Sensor frequency (a reading outside 50–150 Hz points to a sensor fault or water in the fuel)");
+  requireRange(
+    "frequencyHz",
+    frequencyHz,
+    FLEX_SENSOR_HZ.min,
+    FLEX_SENSOR_HZ.max,
+    "Sensor frequency (a reading outside 50–150 Hz points to a sensor fault or water in the fuel)",
+  );
   return frequencyHz - FLEX_SENSOR_HZ.min;
 }
 

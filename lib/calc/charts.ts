@@ -11,14 +11,23 @@ import { sizeParsedFuelSystem, type FuelSystemResult } from "./size";
  * proportion to rpm; below, it is the same line. The assumption is printed with the chart.
  * @example dutyAcrossRpm(result, 1000, 7000, 7)[6].dutyPctRich // = result.injector.dutyPct
  */
-export function dutyAcrossRpm(result: FuelSystemResult, fromRpm: number, toRpm: number, points = 25) {
+export function dutyAcrossRpm(
+  result: FuelSystemResult,
+  fromRpm: number,
+  toRpm: number,
+  points = 25,
+) {
   const redline = result.blend.rich.pulseWidthRedline.rpm;
   const out: { rpm: number; dutyPctLean: number; dutyPctRich: number }[] = [];
   const count = Math.max(2, Math.min(200, Math.floor(points)));
   for (let i = 0; i < count; i++) {
     const rpm = fromRpm + ((toRpm - fromRpm) * i) / (count - 1);
     const k = rpm / redline;
-    out.push({ rpm, dutyPctLean: result.blend.lean.dutyPct * k, dutyPctRich: result.blend.rich.dutyPct * k });
+    out.push({
+      rpm,
+      dutyPctLean: result.blend.lean.dutyPct * k,
+      dutyPctRich: result.blend.rich.dutyPct * k,
+    });
   }
   return out;
 }
@@ -28,16 +37,30 @@ export function dutyAcrossRpm(result: FuelSystemResult, fromRpm: number, toRpm: 
  * @example dutyAcrossEthanol(input, 11).map((p) => p.ethanolVolPct) // [0, 10, …, 100]
  */
 export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: number, points = 11) {
-  const dp = injectorDifferentialPressureKpa({ type: input.regulator.type, basePressureKpa: input.regulator.basePressureKpa, manifoldKpa: input.engine.maxBoostKpa });
+  const dp = injectorDifferentialPressureKpa({
+    type: input.regulator.type,
+    basePressureKpa: input.regulator.basePressureKpa,
+    manifoldKpa: input.engine.maxBoostKpa,
+  });
   const q = input.injectors.ratedFlowCcPerMin * Math.sqrt(dp / input.injectors.ratedPressureKpa);
   const out: { ethanolVolPct: number; dutyPct: number }[] = [];
   const count = Math.max(2, Math.min(101, Math.floor(points)));
   for (let i = 0; i < count; i++) {
     const e = (100 * i) / (count - 1);
     const b = fuelBlend(e);
-    const bsfc = input.fuel.bsfcGPerKwh ?? defaultBsfc({ ethanolVolPct: e, aspiration: input.engine.aspiration, targetLambda: input.fuel.targetLambda, defaults: input.fuel.bsfcDefaults }).bsfcGPerKwh;
+    const bsfc =
+      input.fuel.bsfcGPerKwh ??
+      defaultBsfc({
+        ethanolVolPct: e,
+        aspiration: input.engine.aspiration,
+        targetLambda: input.fuel.targetLambda,
+        defaults: input.fuel.bsfcDefaults,
+      }).bsfcGPerKwh;
     const mdot = (crankPowerKw * bsfc) / 60;
-    out.push({ ethanolVolPct: e, dutyPct: (100 * mdot) / (b.densityKgPerL * input.injectors.count * q) });
+    out.push({
+      ethanolVolPct: e,
+      dutyPct: (100 * mdot) / (b.densityKgPerL * input.injectors.count * q),
+    });
   }
   return out;
 }
@@ -46,17 +69,29 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
  * Pump supply against outlet pressure, with the engine's demand and working pressure marked.
  * @example pumpSupplyCurve(input, result)[0] // { pressureKpa: 0, supplyLPerH: …, demandLPerH: … }
  */
-export function pumpSupplyCurve(input: ParsedFuelSystemInput, result: FuelSystemResult, points = 25) {
+export function pumpSupplyCurve(
+  input: ParsedFuelSystemInput,
+  result: FuelSystemResult,
+  points = 25,
+) {
   const top = Math.max(
     result.pump.outletPressureKpa * 1.5,
-    railPressureKpa({ type: input.regulator.type, basePressureKpa: input.regulator.basePressureKpa, manifoldKpa: input.engine.maxBoostKpa }) + 100,
+    railPressureKpa({
+      type: input.regulator.type,
+      basePressureKpa: input.regulator.basePressureKpa,
+      manifoldKpa: input.engine.maxBoostKpa,
+    }) + 100,
   );
   const supplyAt = pumpSupplyFunction(input.pumps);
   const out: { pressureKpa: number; supplyLPerH: number; demandLPerH: number }[] = [];
   const count = Math.max(2, Math.min(200, Math.floor(points)));
   for (let i = 0; i < count; i++) {
     const p = (top * i) / (count - 1);
-    out.push({ pressureKpa: p, supplyLPerH: supplyAt(p, result.pump.voltageUsed).flowLPerH, demandLPerH: result.pump.demandLPerH });
+    out.push({
+      pressureKpa: p,
+      supplyLPerH: supplyAt(p, result.pump.voltageUsed).flowLPerH,
+      demandLPerH: result.pump.demandLPerH,
+    });
   }
   return out;
 }

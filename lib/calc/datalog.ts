@@ -14,7 +14,10 @@ export interface Datalog {
 }
 
 export class DatalogError extends Error {
-  constructor(message: string, readonly line?: number) {
+  constructor(
+    message: string,
+    readonly line?: number,
+  ) {
     super(message);
     this.name = "DatalogError";
   }
@@ -39,19 +42,34 @@ function toNumber(cell: string, decimalComma: boolean): number | null {
 export function parseDatalog(text: string): Datalog {
   const body = text.replace(/^\uFEFF/, "");
   if (!body.trim()) throw new DatalogError("The file is empty");
-  if (body.includes("\u0000")) throw new DatalogError("The file is not text: upload the CSV the logger exported");
+  if (body.includes("\u0000"))
+    throw new DatalogError("The file is not text: upload the CSV the logger exported");
   const firstLine = body.slice(0, body.search(/\r?\n|$/));
-  const counts = { ",": firstLine.split(",").length, ";": firstLine.split(";").length, "\t": firstLine.split("\t").length };
-  const delimiter = (Object.entries(counts).sort((a, b) => b[1] - a[1])[0]![0]) as Datalog["delimiter"];
-  if (counts[delimiter] > DATALOG_MAX_COLUMNS) throw new DatalogError(`The log has more than ${DATALOG_MAX_COLUMNS} columns`);
+  const counts = {
+    ",": firstLine.split(",").length,
+    ";": firstLine.split(";").length,
+    "\t": firstLine.split("\t").length,
+  };
+  const delimiter = Object.entries(counts).sort(
+    (a, b) => b[1] - a[1],
+  )[0]![0] as Datalog["delimiter"];
+  if (counts[delimiter] > DATALOG_MAX_COLUMNS)
+    throw new DatalogError(`The log has more than ${DATALOG_MAX_COLUMNS} columns`);
   const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: "greedy" });
   const lines = parsed.data;
   if (lines.length < 2) throw new DatalogError("The log has a header but no data rows");
   const headers = lines[0]!.map((h, i) => h.trim() || `Column ${i + 1}`);
-  if (headers.length < 2) throw new DatalogError("The log needs at least two columns (e.g. rpm and duty)");
-  const sample = lines.slice(1, 50).flat().map((c) => c.trim()).filter(Boolean);
+  if (headers.length < 2)
+    throw new DatalogError("The log needs at least two columns (e.g. rpm and duty)");
+  const sample = lines
+    .slice(1, 50)
+    .flat()
+    .map((c) => c.trim())
+    .filter(Boolean);
   const decimalComma = delimiter !== "," && sample.some((c) => /^[-+]?\d+,\d+$/.test(c));
-  const numericShare = (row: string[]) => row.filter((c) => toNumber(c, decimalComma) !== null).length / Math.max(1, row.filter((c) => c.trim()).length);
+  const numericShare = (row: string[]) =>
+    row.filter((c) => toNumber(c, decimalComma) !== null).length /
+    Math.max(1, row.filter((c) => c.trim()).length);
   let start = 1;
   let units: (string | null)[] = headers.map(() => null);
   if (lines[1] && numericShare(lines[1]) < 0.5) {
@@ -59,15 +77,23 @@ export function parseDatalog(text: string): Datalog {
     start = 2;
   }
   // A file cut off mid-row ends without a newline on a row shorter than the headers: leave that row out.
-  const cutShort = lines.length > start && !/\r?\n\s*$/.test(body) && lines[lines.length - 1]!.length < headers.length;
+  const cutShort =
+    lines.length > start &&
+    !/\r?\n\s*$/.test(body) &&
+    lines[lines.length - 1]!.length < headers.length;
   const end = cutShort ? lines.length - 1 : lines.length;
-  if (cutShort && end <= start) throw new DatalogError("The log is cut short: its only data row is incomplete. Export it again");
+  if (cutShort && end <= start)
+    throw new DatalogError(
+      "The log is cut short: its only data row is incomplete. Export it again",
+    );
   const rows: (number | null)[][] = [];
   for (let i = start; i < end; i++) {
     const cells = lines[i]!;
-    if (cells.length > DATALOG_MAX_COLUMNS) throw new DatalogError(`Line ${i + 1} has more than ${DATALOG_MAX_COLUMNS} columns`, i + 1);
+    if (cells.length > DATALOG_MAX_COLUMNS)
+      throw new DatalogError(`Line ${i + 1} has more than ${DATALOG_MAX_COLUMNS} columns`, i + 1);
     rows.push(headers.map((_, c) => toNumber(cells[c] ?? "", decimalComma)));
   }
-  if (!rows.some((r) => r.some((v) => v !== null))) throw new DatalogError("No numbers were found under the headers");
+  if (!rows.some((r) => r.some((v) => v !== null)))
+    throw new DatalogError("No numbers were found under the headers");
   return { headers, units, rows, delimiter, decimalComma, cutShort };
 }

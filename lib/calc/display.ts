@@ -1,5 +1,4 @@
 import {
-  UNIT_SYSTEMS,
   bsfcFromGPerKwh,
   bsfcToGPerKwh,
   injectorCcPerMinToLbPerH,
@@ -8,6 +7,7 @@ import {
   powerToKw,
   pressureFromKpa,
   pressureToKpa,
+  UNIT_SYSTEMS,
   volumeFlowFromLPerH,
   volumeFlowToLPerH,
   type UnitSystem,
@@ -17,7 +17,15 @@ import {
  * Display and entry units. The library and the database keep canonical metric units; screens
  * convert at the edge with these, for the person's unit system.
  */
-export type Quantity = "pressure" | "power" | "injectorFlow" | "volumeFlow" | "bsfc" | "length" | "diameter" | "temperature";
+export type Quantity =
+  | "pressure"
+  | "power"
+  | "injectorFlow"
+  | "volumeFlow"
+  | "bsfc"
+  | "length"
+  | "diameter"
+  | "temperature";
 
 const MM_PER_IN = 25.4; // exact, NIST SP 811 B.8
 const M_PER_FT = 0.3048; // exact, NIST SP 811 B.8
@@ -32,27 +40,75 @@ interface Conv {
 export function converter(q: Quantity, system: UnitSystem): Conv {
   const u = UNIT_SYSTEMS[system];
   if (system === "metric") {
-    const unit = { pressure: "kPa", power: "kW", injectorFlow: "cc/min", volumeFlow: "L/h", bsfc: "g/kWh", length: "m", diameter: "mm", temperature: "°C" }[q];
-    const decimals = { pressure: 0, power: 0, injectorFlow: 0, volumeFlow: 0, bsfc: 0, length: 2, diameter: 2, temperature: 0 }[q];
+    const unit = {
+      pressure: "kPa",
+      power: "kW",
+      injectorFlow: "cc/min",
+      volumeFlow: "L/h",
+      bsfc: "g/kWh",
+      length: "m",
+      diameter: "mm",
+      temperature: "°C",
+    }[q];
+    const decimals = {
+      pressure: 0,
+      power: 0,
+      injectorFlow: 0,
+      volumeFlow: 0,
+      bsfc: 0,
+      length: 2,
+      diameter: 2,
+      temperature: 0,
+    }[q];
     return { unit, decimals, to: (x) => x, from: (x) => x };
   }
   switch (q) {
     case "pressure":
-      return { unit: "psi", decimals: 1, to: (x) => pressureFromKpa(x, u.pressure), from: (x) => pressureToKpa(x, u.pressure) };
+      return {
+        unit: "psi",
+        decimals: 1,
+        to: (x) => pressureFromKpa(x, u.pressure),
+        from: (x) => pressureToKpa(x, u.pressure),
+      };
     case "power":
-      return { unit: "hp", decimals: 0, to: (x) => powerFromKw(x, u.power), from: (x) => powerToKw(x, u.power) };
+      return {
+        unit: "hp",
+        decimals: 0,
+        to: (x) => powerFromKw(x, u.power),
+        from: (x) => powerToKw(x, u.power),
+      };
     case "injectorFlow":
-      return { unit: "lb/h", decimals: 1, to: (x) => injectorCcPerMinToLbPerH(x), from: (x) => injectorLbPerHToCcPerMin(x) };
+      return {
+        unit: "lb/h",
+        decimals: 1,
+        to: (x) => injectorCcPerMinToLbPerH(x),
+        from: (x) => injectorLbPerHToCcPerMin(x),
+      };
     case "volumeFlow":
-      return { unit: "gal/h", decimals: 1, to: (x) => volumeFlowFromLPerH(x, u.volumeFlow), from: (x) => volumeFlowToLPerH(x, u.volumeFlow) };
+      return {
+        unit: "gal/h",
+        decimals: 1,
+        to: (x) => volumeFlowFromLPerH(x, u.volumeFlow),
+        from: (x) => volumeFlowToLPerH(x, u.volumeFlow),
+      };
     case "bsfc":
-      return { unit: "lb/hp/h", decimals: 3, to: (x) => bsfcFromGPerKwh(x, u.bsfc), from: (x) => bsfcToGPerKwh(x, u.bsfc) };
+      return {
+        unit: "lb/hp/h",
+        decimals: 3,
+        to: (x) => bsfcFromGPerKwh(x, u.bsfc),
+        from: (x) => bsfcToGPerKwh(x, u.bsfc),
+      };
     case "length":
       return { unit: "ft", decimals: 1, to: (x) => x / M_PER_FT, from: (x) => x * M_PER_FT };
     case "diameter":
       return { unit: "in", decimals: 3, to: (x) => x / MM_PER_IN, from: (x) => x * MM_PER_IN };
     case "temperature":
-      return { unit: "°F", decimals: 0, to: (x) => (x * 9) / 5 + 32, from: (x) => ((x - 32) * 5) / 9 };
+      return {
+        unit: "°F",
+        decimals: 0,
+        to: (x) => (x * 9) / 5 + 32,
+        from: (x) => ((x - 32) * 5) / 9,
+      };
   }
 }
 
@@ -96,12 +152,25 @@ export function quantityOf(path: string): Quantity | undefined {
  * `original`, when converting back, is the canonical object the shown one came from: a shown
  * value nobody changed converts back to its exact original, so rounding never drifts a build.
  */
-export function convertInputs<T>(value: T, system: UnitSystem, direction: "toShown" | "toCanonical", original?: unknown): T {
+export function convertInputs<T>(
+  value: T,
+  system: UnitSystem,
+  direction: "toShown" | "toCanonical",
+  original?: unknown,
+): T {
   const walk = (v: unknown, path: string, orig: unknown): unknown => {
-    if (Array.isArray(v)) return v.map((x, i) => walk(x, path ? `${path}.${i}` : String(i), Array.isArray(orig) ? orig[i] : undefined));
+    if (Array.isArray(v))
+      return v.map((x, i) =>
+        walk(x, path ? `${path}.${i}` : String(i), Array.isArray(orig) ? orig[i] : undefined),
+      );
     if (v && typeof v === "object") {
       const out: Record<string, unknown> = {};
-      for (const [k, x] of Object.entries(v)) out[k] = walk(x, path ? `${path}.${k}` : k, orig && typeof orig === "object" ? (orig as Record<string, unknown>)[k] : undefined);
+      for (const [k, x] of Object.entries(v))
+        out[k] = walk(
+          x,
+          path ? `${path}.${k}` : k,
+          orig && typeof orig === "object" ? (orig as Record<string, unknown>)[k] : undefined,
+        );
       return out;
     }
     if (typeof v !== "number" || !Number.isFinite(v)) return v;

@@ -31,7 +31,12 @@ export interface PullAnalysis {
   samples: number;
   peakDuty: { pct: number; rpm: number } | null;
   lambda: { meanAbsError: number; worstError: number; worstAtRpm: number } | null;
-  fuelPressure: { lowBoostDiffKpa: number; fullBoostDiffKpa: number; dropKpa: number; dropPct: number } | null;
+  fuelPressure: {
+    lowBoostDiffKpa: number;
+    fullBoostDiffKpa: number;
+    dropKpa: number;
+    dropPct: number;
+  } | null;
   /** At the sample of highest duty: fuel flow from duty and the injectors' data. */
   measuredFlow: { ccPerMin: number; gPerMin: number } | null;
   /** g/kWh at the sample of highest logged power. */
@@ -39,7 +44,8 @@ export interface PullAnalysis {
   warnings: Warning[];
 }
 
-const finite = (v: number | null | undefined): v is number => typeof v === "number" && Number.isFinite(v);
+const finite = (v: number | null | undefined): v is number =>
+  typeof v === "number" && Number.isFinite(v);
 
 /** Duty of a sample: logged, or pulse width over the four-stroke cycle time. */
 export function sampleDutyPct(s: PullSample): number | null {
@@ -50,7 +56,11 @@ export function sampleDutyPct(s: PullSample): number | null {
 
 /** Fuel flow of all injectors at a duty and differential (flow scales with √ΔP), cc/min and g/min. */
 export function flowFromDuty(dutyPct: number, diffKpa: number, c: PullContext) {
-  const perInjector = injectorFlowAtPressure({ ratedFlowCcPerMin: c.ratedFlowCcPerMin, ratedPressureKpa: c.ratedPressureKpa, differentialPressureKpa: diffKpa });
+  const perInjector = injectorFlowAtPressure({
+    ratedFlowCcPerMin: c.ratedFlowCcPerMin,
+    ratedPressureKpa: c.ratedPressureKpa,
+    differentialPressureKpa: diffKpa,
+  });
   const ccPerMin = c.injectorCount * perInjector * (dutyPct / 100);
   return { ccPerMin, gPerMin: ccPerMin * c.densityKgPerL };
 }
@@ -73,7 +83,11 @@ export function analyzePull(samples: PullSample[], c: PullContext): PullAnalysis
   if (loaded.length) {
     const errs = loaded.map((s) => ({ e: s.lambda! - c.targetLambda, rpm: s.rpm }));
     const worst = errs.reduce((a, b) => (Math.abs(b.e) > Math.abs(a.e) ? b : a));
-    lambda = { meanAbsError: errs.reduce((t, x) => t + Math.abs(x.e), 0) / errs.length, worstError: worst.e, worstAtRpm: worst.rpm };
+    lambda = {
+      meanAbsError: errs.reduce((t, x) => t + Math.abs(x.e), 0) / errs.length,
+      worstError: worst.e,
+      worstAtRpm: worst.rpm,
+    };
   }
   let fuelPressure: PullAnalysis["fuelPressure"] = null;
   const withP = rows.filter((s) => finite(s.fuelDiffKpa) && finite(s.boostKpa));
@@ -85,26 +99,67 @@ export function analyzePull(samples: PullSample[], c: PullContext): PullAnalysis
     if (low.length && high.length) {
       const lo = c.expectedDiffKpa ?? mean(low);
       const hi = mean(high);
-      fuelPressure = { lowBoostDiffKpa: lo, fullBoostDiffKpa: hi, dropKpa: lo - hi, dropPct: (100 * (lo - hi)) / lo };
+      fuelPressure = {
+        lowBoostDiffKpa: lo,
+        fullBoostDiffKpa: hi,
+        dropKpa: lo - hi,
+        dropPct: (100 * (lo - hi)) / lo,
+      };
     }
   }
-  const diffAt = (s: PullSample) => (finite(s.fuelDiffKpa) ? s.fuelDiffKpa : (fuelPressure?.fullBoostDiffKpa ?? c.expectedDiffKpa ?? c.ratedPressureKpa));
-  const measuredFlow = peak ? (({ ccPerMin, gPerMin }) => ({ ccPerMin, gPerMin }))(flowFromDuty(peak.pct, diffAt(peak.s), c)) : null;
+  const diffAt = (s: PullSample) =>
+    finite(s.fuelDiffKpa)
+      ? s.fuelDiffKpa
+      : (fuelPressure?.fullBoostDiffKpa ?? c.expectedDiffKpa ?? c.ratedPressureKpa);
+  const measuredFlow = peak
+    ? (({ ccPerMin, gPerMin }) => ({ ccPerMin, gPerMin }))(
+        flowFromDuty(peak.pct, diffAt(peak.s), c),
+      )
+    : null;
   let measuredBsfc: PullAnalysis["measuredBsfc"] = null;
-  const powered = rows.filter((s) => finite(s.powerKw) && s.powerKw > 0 && sampleDutyPct(s) !== null);
+  const powered = rows.filter(
+    (s) => finite(s.powerKw) && s.powerKw > 0 && sampleDutyPct(s) !== null,
+  );
   if (powered.length) {
     const top = powered.reduce((a, b) => (b.powerKw! > a.powerKw! ? b : a));
     const flow = flowFromDuty(sampleDutyPct(top)!, diffAt(top), c);
-    measuredBsfc = { gPerKwh: (flow.gPerMin * 60) / top.powerKw!, atRpm: top.rpm, powerKw: top.powerKw! };
+    measuredBsfc = {
+      gPerKwh: (flow.gPerMin * 60) / top.powerKw!,
+      atRpm: top.rpm,
+      powerKw: top.powerKw!,
+    };
   }
   if (peak && peak.pct > c.dutyDangerPct) {
-    warnings.push({ code: "log-duty-danger", severity: "danger", message: `Measured duty reached ${peak.pct.toFixed(1)} % at ${Math.round(peak.rpm)} rpm, above the ${c.dutyDangerPct} % limit.`, fix: "Fit larger injectors or raise the fuel pressure." });
+    warnings.push({
+      code: "log-duty-danger",
+      severity: "danger",
+      message: `Measured duty reached ${peak.pct.toFixed(1)} % at ${Math.round(peak.rpm)} rpm, above the ${c.dutyDangerPct} % limit.`,
+      fix: "Fit larger injectors or raise the fuel pressure.",
+    });
   }
   if (lambda && lambda.worstError > 0.05) {
-    warnings.push({ code: "log-lambda-lean", severity: "danger", message: `Lambda ran ${lambda.worstError.toFixed(2)} leaner than the target at ${Math.round(lambda.worstAtRpm)} rpm.`, fix: "Stop pulls until the fuelling is corrected; check duty, pressure and the fuel's ethanol content." });
+    warnings.push({
+      code: "log-lambda-lean",
+      severity: "danger",
+      message: `Lambda ran ${lambda.worstError.toFixed(2)} leaner than the target at ${Math.round(lambda.worstAtRpm)} rpm.`,
+      fix: "Stop pulls until the fuelling is corrected; check duty, pressure and the fuel's ethanol content.",
+    });
   }
   if (fuelPressure && fuelPressure.dropPct > 5) {
-    warnings.push({ code: "log-fuel-pressure-falls", severity: fuelPressure.dropPct > 10 ? "danger" : "caution", message: `The fuel-pressure differential fell ${fuelPressure.dropKpa.toFixed(0)} kPa (${fuelPressure.dropPct.toFixed(0)} %) under boost.`, fix: "The pump or regulator is not keeping up: check voltage at the pump, the filter, and the pump's margin." });
+    warnings.push({
+      code: "log-fuel-pressure-falls",
+      severity: fuelPressure.dropPct > 10 ? "danger" : "caution",
+      message: `The fuel-pressure differential fell ${fuelPressure.dropKpa.toFixed(0)} kPa (${fuelPressure.dropPct.toFixed(0)} %) under boost.`,
+      fix: "The pump or regulator is not keeping up: check voltage at the pump, the filter, and the pump's margin.",
+    });
   }
-  return { samples: rows.length, peakDuty: peak ? { pct: peak.pct, rpm: peak.rpm } : null, lambda, fuelPressure, measuredFlow, measuredBsfc, warnings };
+  return {
+    samples: rows.length,
+    peakDuty: peak ? { pct: peak.pct, rpm: peak.rpm } : null,
+    lambda,
+    fuelPressure,
+    measuredFlow,
+    measuredBsfc,
+    warnings,
+  };
 }

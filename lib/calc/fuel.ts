@@ -28,11 +28,18 @@ export function stoichAfrFromComposition(c: Composition): number {
   requireRange("oxygenMassFraction", O, 0, 1, "Oxygen mass fraction");
   const sum = C + H + O;
   if (Math.abs(sum - 1) > 0.02) {
-    throw new CalcInputError("composition", `Mass fractions must add up to 1 (they add up to ${sum.toFixed(3)})`);
+    throw new CalcInputError(
+      "composition",
+      `Mass fractions must add up to 1 (they add up to ${sum.toFixed(3)})`,
+    );
   }
-  const oxygenNeeded = C * ((2 * ATOMIC_MASS.O) / ATOMIC_MASS.C) + H * (ATOMIC_MASS.O / 2 / ATOMIC_MASS.H) - O;
+  const oxygenNeeded =
+    C * ((2 * ATOMIC_MASS.O) / ATOMIC_MASS.C) + H * (ATOMIC_MASS.O / 2 / ATOMIC_MASS.H) - O;
   if (oxygenNeeded <= 0) {
-    throw new CalcInputError("composition", "This composition carries all the oxygen it needs: it is not a fuel");
+    throw new CalcInputError(
+      "composition",
+      "This composition carries all the oxygen it needs: it is not a fuel",
+    );
   }
   return oxygenNeeded / OXYGEN_MASS_FRACTION_AIR;
 }

@@ -4,11 +4,39 @@
  */
 export { CalcInputError } from "./_lib/errors";
 export * from "./constants";
-export { fuelBlend, stoichAfrFromComposition, afrFromLambda, lambdaFromAfr, ETHANOL, METHANOL, E85_STANDARD_RANGES, DEFAULT_E85_RANGE } from "./fuel";
+export {
+  fuelBlend,
+  stoichAfrFromComposition,
+  afrFromLambda,
+  lambdaFromAfr,
+  ETHANOL,
+  METHANOL,
+  E85_STANDARD_RANGES,
+  DEFAULT_E85_RANGE,
+} from "./fuel";
 export type { Composition, FuelBlend, FuelProperties } from "./fuel";
-export { mixFuels, volumeToAdd, fillSplit, ethanolFromFlexSensorHz, flexSensorHzFromEthanol, FLEX_SENSOR_HZ } from "./blend";
-export type { FuelVolume, VolumeToAddQuery, VolumeToAddResult, FillSplitQuery, FillSplitResult } from "./blend";
-export { crankPowerFromWheel, fuelMassFlowGPerMin, defaultBsfc, DEFAULT_BSFC, G_PER_KWH_PER_LB_PER_HP_H } from "./power";
+export {
+  mixFuels,
+  volumeToAdd,
+  fillSplit,
+  ethanolFromFlexSensorHz,
+  flexSensorHzFromEthanol,
+  FLEX_SENSOR_HZ,
+} from "./blend";
+export type {
+  FuelVolume,
+  VolumeToAddQuery,
+  VolumeToAddResult,
+  FillSplitQuery,
+  FillSplitResult,
+} from "./blend";
+export {
+  crankPowerFromWheel,
+  fuelMassFlowGPerMin,
+  defaultBsfc,
+  DEFAULT_BSFC,
+  G_PER_KWH_PER_LB_PER_HP_H,
+} from "./power";
 export type { Aspiration, BsfcDefaults, BsfcEstimate } from "./power";
 export {
   injectorFlowAtPressure,
@@ -47,7 +75,21 @@ export { parseDatalog, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";
 export type { Datalog } from "./datalog";
 export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";
 export type { PullSample, PullContext, PullAnalysis } from "./dyno";
-export { DatalogMappingSchema, headerKey, mappingProblems, samplesFromLog, suggestMapping } from "./log-mapping";
+export {
+  DatalogMappingSchema,
+  headerKey,
+  mappingProblems,
+  samplesFromLog,
+  suggestMapping,
+} from "./log-mapping";
 export type { DatalogMapping } from "./log-mapping";
-export { shopBsfcTable, shopBsfcFor, fuelClassOf, aspirationClassOf, FUEL_CLASS_LABELS, ASPIRATION_CLASS_LABELS, MEASURED_BSFC_RANGE } from "./shop-bsfc";
+export {
+  shopBsfcTable,
+  shopBsfcFor,
+  fuelClassOf,
+  aspirationClassOf,
+  FUEL_CLASS_LABELS,
+  ASPIRATION_CLASS_LABELS,
+  MEASURED_BSFC_RANGE,
+} from "./shop-bsfc";
 export type { BsfcPoint, ShopBsfcRow, FuelClass, AspirationClass } from "./shop-bsfc";

@@ -7,10 +7,20 @@ import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
  * Q₂ = Q₁·√(ΔP₂/ΔP₁).
  * @example injectorFlowAtPressure({ ratedFlowCcPerMin: 1000, ratedPressureKpa: 300, differentialPressureKpa: 400 }) // 1154.7
  */
-export function injectorFlowAtPressure(q: { ratedFlowCcPerMin: number; ratedPressureKpa: number; differentialPressureKpa: number }): number {
+export function injectorFlowAtPressure(q: {
+  ratedFlowCcPerMin: number;
+  ratedPressureKpa: number;
+  differentialPressureKpa: number;
+}): number {
   requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e5, "Rated flow");
   requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Rated pressure");
-  requireRange("differentialPressureKpa", q.differentialPressureKpa, 0, 1e4, "Differential pressure");
+  requireRange(
+    "differentialPressureKpa",
+    q.differentialPressureKpa,
+    0,
+    1e4,
+    "Differential pressure",
+  );
   return q.ratedFlowCcPerMin * Math.sqrt(q.differentialPressureKpa / q.ratedPressureKpa);
 }
 
@@ -22,7 +32,11 @@ export type RegulatorType = "boost-referenced" | "fixed";
  * leaves the rail at base, so ΔP = base − manifold (boost lowers it, vacuum raises it).
  * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
  */
-export function injectorDifferentialPressureKpa(q: { type: RegulatorType; basePressureKpa: number; manifoldKpa: number }): number {
+export function injectorDifferentialPressureKpa(q: {
+  type: RegulatorType;
+  basePressureKpa: number;
+  manifoldKpa: number;
+}): number {
   return q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
 }
 
@@ -31,7 +45,11 @@ export function injectorDifferentialPressureKpa(q: { type: RegulatorType; basePr
  * boost; fixed base.
  * @example railPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 150 }) // 450
  */
-export function railPressureKpa(q: { type: RegulatorType; basePressureKpa: number; manifoldKpa: number }): number {
+export function railPressureKpa(q: {
+  type: RegulatorType;
+  basePressureKpa: number;
+  manifoldKpa: number;
+}): number {
   return q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
 }
 
@@ -39,8 +57,15 @@ export function railPressureKpa(q: { type: RegulatorType; basePressureKpa: numbe
  * Injector duty (%) to deliver a fuel mass flow: duty = ṁ / (ρ · n · Q_op).
  * @example injectorDutyPct({ fuelMassFlowGPerMin: 3000, densityKgPerL: 0.787, injectorCount: 6, flowAtOperatingCcPerMin: 1000 }) // 63.5
  */
-export function injectorDutyPct(q: { fuelMassFlowGPerMin: number; densityKgPerL: number; injectorCount: number; flowAtOperatingCcPerMin: number }): number {
-  return (100 * q.fuelMassFlowGPerMin) / (q.densityKgPerL * q.injectorCount * q.flowAtOperatingCcPerMin);
+export function injectorDutyPct(q: {
+  fuelMassFlowGPerMin: number;
+  densityKgPerL: number;
+  injectorCount: number;
+  flowAtOperatingCcPerMin: number;
+}): number {
+  return (
+    (100 * q.fuelMassFlowGPerMin) / (q.densityKgPerL * q.injectorCount * q.flowAtOperatingCcPerMin)
+  );
 }
 
 /**
@@ -48,7 +73,12 @@ export function injectorDutyPct(q: { fuelMassFlowGPerMin: number; densityKgPerL:
  * Q_req = ṁ / (ρ · n · duty).
  * @example requiredInjectorFlowCcPerMin({ fuelMassFlowGPerMin: 3000, densityKgPerL: 0.787, injectorCount: 6, designDutyPct: 80 }) // 794.2
  */
-export function requiredInjectorFlowCcPerMin(q: { fuelMassFlowGPerMin: number; densityKgPerL: number; injectorCount: number; designDutyPct: number }): number {
+export function requiredInjectorFlowCcPerMin(q: {
+  fuelMassFlowGPerMin: number;
+  densityKgPerL: number;
+  injectorCount: number;
+  designDutyPct: number;
+}): number {
   return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
 }
 
@@ -71,10 +101,22 @@ export interface DeadTimeTable {
  * (then `outOfRange` is true).
  * @example deadTimeMs({ voltages: [12, 14], pressuresKpa: [300, 400], deadTimeMs: [[1.0, 1.1], [0.8, 0.9]] }, 13, 350) // { value: 0.95, outOfRange: false }
  */
-export function deadTimeMs(table: DeadTimeTable, voltage: number, pressureKpa: number): { value: number; outOfRange: boolean } {
+export function deadTimeMs(
+  table: DeadTimeTable,
+  voltage: number,
+  pressureKpa: number,
+): { value: number; outOfRange: boolean } {
   const { voltages, pressuresKpa, deadTimeMs: grid } = table;
-  if (voltages.length === 0 || pressuresKpa.length === 0 || grid.length !== voltages.length || grid.some((r) => r.length !== pressuresKpa.length)) {
-    throw new CalcInputError("deadTime", "The dead-time table needs one row per voltage and one value per pressure");
+  if (
+    voltages.length === 0 ||
+    pressuresKpa.length === 0 ||
+    grid.length !== voltages.length ||
+    grid.some((r) => r.length !== pressuresKpa.length)
+  ) {
+    throw new CalcInputError(
+      "deadTime",
+      "The dead-time table needs one row per voltage and one value per pressure",
+    );
   }
   const v = clamp(voltage, voltages[0]!, voltages[voltages.length - 1]!);
   const p = clamp(pressureKpa, pressuresKpa[0]!, pressuresKpa[pressuresKpa.length - 1]!);
@@ -100,7 +142,9 @@ export interface IdleFuelQuery {
  */
 export function idleFuelPerCylinderMg(q: IdleFuelQuery): { airMg: number; fuelMg: number } {
   const cylinderVolumeM3 = q.displacementL / 1000 / q.cylinders;
-  const airKg = (cylinderVolumeM3 * q.volumetricEfficiency * q.manifoldKpaAbs * 1000) / (R_AIR_J_PER_KG_K * (q.intakeTempC + 273.15));
+  const airKg =
+    (cylinderVolumeM3 * q.volumetricEfficiency * q.manifoldKpaAbs * 1000) /
+    (R_AIR_J_PER_KG_K * (q.intakeTempC + 273.15));
   const airMg = airKg * 1e6;
   return { airMg, fuelMg: airMg / q.stoichAfr };
 }

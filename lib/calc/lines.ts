@@ -41,7 +41,10 @@ export function frictionFactor(re: number, relativeRoughness: number): number {
   if (re < RE_LAMINAR) return laminarFrictionFactor(re);
   if (re > RE_TURBULENT) return swameeJainFrictionFactor(re, relativeRoughness);
   const t = (re - RE_LAMINAR) / (RE_TURBULENT - RE_LAMINAR);
-  return (1 - t) * laminarFrictionFactor(RE_LAMINAR) + t * swameeJainFrictionFactor(RE_TURBULENT, relativeRoughness);
+  return (
+    (1 - t) * laminarFrictionFactor(RE_LAMINAR) +
+    t * swameeJainFrictionFactor(RE_TURBULENT, relativeRoughness)
+  );
 }
 
 export interface LineSegment {
@@ -68,8 +71,12 @@ export const DEFAULT_HOSE_ROUGHNESS_MM = 0.01;
  * Pressure drop in a line: Darcy–Weisbach f·(L/D)·ρv²/2 plus fittings ΣK·ρv²/2.
  * @example linePressureDrop({ insideDiameterMm: 8.7, lengthM: 5 }, { flowLPerH: 300, densityKgPerL: 0.745, viscosityMPaS: 0.41 }) // { pressureDropKpa: ≈ 5.6, regime: "turbulent", … }
  */
-export function linePressureDrop(line: LineSegment, fluid: { flowLPerH: number; densityKgPerL: number; viscosityMPaS: number }): LineDrop {
-  const D = requirePositive("insideDiameterMm", line.insideDiameterMm, 100, "Inside diameter") / 1000;
+export function linePressureDrop(
+  line: LineSegment,
+  fluid: { flowLPerH: number; densityKgPerL: number; viscosityMPaS: number },
+): LineDrop {
+  const D =
+    requirePositive("insideDiameterMm", line.insideDiameterMm, 100, "Inside diameter") / 1000;
   const L = requireRange("lengthM", line.lengthM, 0, 100, "Line length");
   const rho = fluid.densityKgPerL * 1000;
   const mu = fluid.viscosityMPaS / 1000;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import type { Datalog } from "./datalog";
 import type { PullSample } from "./dyno";
 
@@ -14,10 +15,23 @@ const pressureUnit = z.enum(["kPa", "bar", "psi"], { error: "Choose kPa, bar or 
 /** Which log column is what, and in which units: what the tuner picks on the mapping screen. */
 export const DatalogMappingSchema = z.object({
   rpm: col,
-  duty: z.object({ column: col, kind: z.enum(["duty_pct", "pulse_ms"], { error: "Duty in % or pulse width in ms" }) }),
-  mixture: z.object({ column: col, kind: z.enum(["lambda", "afr"]), afrStoich: z.number().min(5).max(20).default(14.7) }).optional(),
-  boost: z.object({ column: col, kind: z.enum(["gauge", "absolute"]), unit: pressureUnit }).optional(),
-  fuelPressure: z.object({ column: col, kind: z.enum(["rail", "differential"]), unit: pressureUnit }).optional(),
+  duty: z.object({
+    column: col,
+    kind: z.enum(["duty_pct", "pulse_ms"], { error: "Duty in % or pulse width in ms" }),
+  }),
+  mixture: z
+    .object({
+      column: col,
+      kind: z.enum(["lambda", "afr"]),
+      afrStoich: z.number().min(5).max(20).default(14.7),
+    })
+    .optional(),
+  boost: z
+    .object({ column: col, kind: z.enum(["gauge", "absolute"]), unit: pressureUnit })
+    .optional(),
+  fuelPressure: z
+    .object({ column: col, kind: z.enum(["rail", "differential"]), unit: pressureUnit })
+    .optional(),
   ethanol: z.object({ column: col }).optional(),
   power: z.object({ column: col, unit: z.enum(["kW", "hp"]) }).optional(),
 });
@@ -25,26 +39,60 @@ export type DatalogMapping = z.output<typeof DatalogMappingSchema>;
 
 /** The same logger writes the same header set: the key under which a shop's mapping is kept. */
 export function headerKey(headers: string[]): string {
-  return [...headers].map((h) => h.trim().toLowerCase()).sort().join("\u0001");
+  return [...headers]
+    .map((h) => h.trim().toLowerCase())
+    .sort()
+    .join("\u0001");
 }
 
 /** Every column the mapping names must be in the log. */
-export function mappingProblems(m: DatalogMapping, headers: string[]): { path: string; message: string }[] {
-  const named: [string, string | undefined][] = [["rpm", m.rpm], ["duty.column", m.duty.column], ["mixture.column", m.mixture?.column], ["boost.column", m.boost?.column], ["fuelPressure.column", m.fuelPressure?.column], ["ethanol.column", m.ethanol?.column], ["power.column", m.power?.column]];
-  return named.filter(([, c]) => c !== undefined && !headers.includes(c)).map(([path, c]) => ({ path, message: `The log has no column "${c}"` }));
+export function mappingProblems(
+  m: DatalogMapping,
+  headers: string[],
+): { path: string; message: string }[] {
+  const named: [string, string | undefined][] = [
+    ["rpm", m.rpm],
+    ["duty.column", m.duty.column],
+    ["mixture.column", m.mixture?.column],
+    ["boost.column", m.boost?.column],
+    ["fuelPressure.column", m.fuelPressure?.column],
+    ["ethanol.column", m.ethanol?.column],
+    ["power.column", m.power?.column],
+  ];
+  return named
+    .filter(([, c]) => c !== undefined && !headers.includes(c))
+    .map(([path, c]) => ({ path, message: `The log has no column "${c}"` }));
 }
 
 /** The log's rows as samples in canonical units (kPa gauge, differential pressure, lambda, kW). */
 export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
   const at = (c: string | undefined) => (c === undefined ? -1 : log.headers.indexOf(c));
-  const i = { rpm: at(m.rpm), duty: at(m.duty.column), mix: at(m.mixture?.column), boost: at(m.boost?.column), fuel: at(m.fuelPressure?.column), power: at(m.power?.column) };
+  const i = {
+    rpm: at(m.rpm),
+    duty: at(m.duty.column),
+    mix: at(m.mixture?.column),
+    boost: at(m.boost?.column),
+    fuel: at(m.fuelPressure?.column),
+    power: at(m.power?.column),
+  };
   const v = (row: (number | null)[], idx: number) => (idx < 0 ? null : (row[idx] ?? null));
   return log.rows.map((row) => {
     const rawBoost = v(row, i.boost);
-    const boostKpa = rawBoost === null || !m.boost ? null : rawBoost * KPA_PER[m.boost.unit] - (m.boost.kind === "absolute" ? ATMOSPHERE_KPA : 0);
+    const boostKpa =
+      rawBoost === null || !m.boost
+        ? null
+        : rawBoost * KPA_PER[m.boost.unit] - (m.boost.kind === "absolute" ? ATMOSPHERE_KPA : 0);
     const rawFuel = v(row, i.fuel);
-    const fuelKpa = rawFuel === null || !m.fuelPressure ? null : rawFuel * KPA_PER[m.fuelPressure.unit];
-    const fuelDiffKpa = fuelKpa === null ? null : m.fuelPressure!.kind === "differential" ? fuelKpa : boostKpa === null ? null : fuelKpa - boostKpa;
+    const fuelKpa =
+      rawFuel === null || !m.fuelPressure ? null : rawFuel * KPA_PER[m.fuelPressure.unit];
+    const fuelDiffKpa =
+      fuelKpa === null
+        ? null
+        : m.fuelPressure!.kind === "differential"
+          ? fuelKpa
+          : boostKpa === null
+            ? null
+            : fuelKpa - boostKpa;
     const mix = v(row, i.mix);
     const power = v(row, i.power);
     const duty = v(row, i.duty);
@@ -52,7 +100,12 @@ export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
       rpm: v(row, i.rpm) ?? 0,
       dutyPct: m.duty.kind === "duty_pct" ? duty : null,
       pulseMs: m.duty.kind === "pulse_ms" ? duty : null,
-      lambda: mix === null || !m.mixture ? null : m.mixture.kind === "lambda" ? mix : mix / m.mixture.afrStoich,
+      lambda:
+        mix === null || !m.mixture
+          ? null
+          : m.mixture.kind === "lambda"
+            ? mix
+            : mix / m.mixture.afrStoich,
       boostKpa,
       fuelDiffKpa,
       powerKw: power === null || !m.power ? null : power * KW_PER[m.power.unit],
@@ -63,8 +116,14 @@ export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
 /** A first guess from the headers and units row, for a logger the shop has not mapped yet. */
 export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   const find = (re: RegExp) => log.headers.find((h) => re.test(h));
-  const unitOf = (h: string | undefined) => (h ? (log.units[log.headers.indexOf(h)] ?? "").toLowerCase() : "");
-  const pu = (h: string | undefined) => (/psi/.test(unitOf(h) + (h ?? "").toLowerCase()) ? "psi" : /bar/.test(unitOf(h) + (h ?? "").toLowerCase()) ? "bar" : "kPa") as "kPa" | "bar" | "psi";
+  const unitOf = (h: string | undefined) =>
+    h ? (log.units[log.headers.indexOf(h)] ?? "").toLowerCase() : "";
+  const pu = (h: string | undefined) =>
+    (/psi/.test(unitOf(h) + (h ?? "").toLowerCase())
+      ? "psi"
+      : /bar/.test(unitOf(h) + (h ?? "").toLowerCase())
+        ? "bar"
+        : "kPa") as "kPa" | "bar" | "psi";
   const out: Partial<DatalogMapping> = {};
   const rpm = find(/\b(rpm|engine ?speed)\b/i);
   if (rpm) out.rpm = rpm;
@@ -81,7 +140,12 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   if (boost) out.boost = { column: boost, kind: "gauge", unit: pu(boost) };
   else if (map) out.boost = { column: map, kind: "absolute", unit: pu(map) };
   const fp = find(/fuel ?(press|pres|pressure)|\bfp\b|rail/i);
-  if (fp) out.fuelPressure = { column: fp, kind: /diff|delta/i.test(fp) ? "differential" : "rail", unit: pu(fp) };
+  if (fp)
+    out.fuelPressure = {
+      column: fp,
+      kind: /diff|delta/i.test(fp) ? "differential" : "rail",
+      unit: pu(fp),
+    };
   const eth = find(/ethanol|flex|\be ?%|\beth\b/i);
   if (eth) out.ethanol = { column: eth };
   const power = find(/power|\bwhp\b|\bhp\b|\bkw\b/i);

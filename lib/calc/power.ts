@@ -8,7 +8,10 @@ export const G_PER_KWH_PER_LB_PER_HP_H = 453.59237 / 0.74569987158227022;
  * crank power: P_crank = P_wheel / (1 − loss).
  * @example crankPowerFromWheel({ wheelPowerKw: 300, drivetrainLossPct: 15 }) // 352.94…
  */
-export function crankPowerFromWheel(q: { wheelPowerKw: number; drivetrainLossPct: number }): number {
+export function crankPowerFromWheel(q: {
+  wheelPowerKw: number;
+  drivetrainLossPct: number;
+}): number {
   requireRange("wheelPowerKw", q.wheelPowerKw, 0, 1e5, "Wheel power");
   requireRange("drivetrainLossPct", q.drivetrainLossPct, 0, 60, "Drivetrain loss");
   return q.wheelPowerKw / (1 - q.drivetrainLossPct / 100);
@@ -63,7 +66,12 @@ export interface BsfcEstimate {
  * when a target lambda is given.
  * @example defaultBsfc({ ethanolVolPct: 85, aspiration: "turbo" }).bsfcGPerKwh // 486.6 (0.80 lb/(hp·h))
  */
-export function defaultBsfc(q: { ethanolVolPct: number; aspiration: Aspiration; targetLambda?: number; defaults?: BsfcDefaults }): BsfcEstimate {
+export function defaultBsfc(q: {
+  ethanolVolPct: number;
+  aspiration: Aspiration;
+  targetLambda?: number;
+  defaults?: BsfcDefaults;
+}): BsfcEstimate {
   requireRange("ethanolVolPct", q.ethanolVolPct, 0, 100, "Ethanol content");
   const d = q.defaults ?? DEFAULT_BSFC;
   const boosted = q.aspiration !== "na";
@@ -71,6 +79,13 @@ export function defaultBsfc(q: { ethanolVolPct: number; aspiration: Aspiration; 
   const e = boosted ? d.e85BoostedGPerKwh : d.e85NaGPerKwh;
   const atRef = g + ((e - g) * q.ethanolVolPct) / 85;
   const referenceLambda = boosted ? d.referenceLambdaBoosted : d.referenceLambdaNa;
-  const lambda = q.targetLambda === undefined ? referenceLambda : requireRange("targetLambda", q.targetLambda, 0.5, 1.5, "Target lambda");
-  return { bsfcGPerKwh: (atRef * referenceLambda) / lambda, referenceLambda, atReferenceGPerKwh: atRef };
+  const lambda =
+    q.targetLambda === undefined
+      ? referenceLambda
+      : requireRange("targetLambda", q.targetLambda, 0.5, 1.5, "Target lambda");
+  return {
+    bsfcGPerKwh: (atRef * referenceLambda) / lambda,
+    referenceLambda,
+    atReferenceGPerKwh: atRef,
+  };
 }

@@ -42,7 +42,8 @@ function prepare(pump: Pump): PreparedPump {
 }
 
 function flowOf(p: PreparedPump, pressureKpa: number, voltage: number): PumpFlow {
-  if (p.curves.length === 0) return { flowLPerH: 0, pressureOutOfRange: true, voltageOutOfRange: true };
+  if (p.curves.length === 0)
+    return { flowLPerH: 0, pressureOutOfRange: true, voltageOutOfRange: true };
   let pressureOutOfRange = false;
   const atVoltage = p.scratch;
   for (let i = 0; i < p.curves.length; i++) {
@@ -52,7 +53,8 @@ function flowOf(p: PreparedPump, pressureKpa: number, voltage: number): PumpFlow
     atVoltage[i] = Math.max(0, r.value);
   }
   const v = interpolateLinear(p.voltages, atVoltage, voltage);
-  const voltageOutOfRange = p.voltages.length === 1 ? Math.abs(voltage - p.voltages[0]!) > 0.05 : v.outOfRange;
+  const voltageOutOfRange =
+    p.voltages.length === 1 ? Math.abs(voltage - p.voltages[0]!) > 0.05 : v.outOfRange;
   return { flowLPerH: Math.max(0, v.value), pressureOutOfRange, voltageOutOfRange };
 }
 
@@ -67,7 +69,9 @@ export function pumpFlowLPerH(pump: Pump, pressureKpa: number, voltage: number):
 }
 
 /** A reusable evaluator of several pumps in parallel (flows add at the same pressure). */
-export function pumpSupplyFunction(pumps: readonly Pump[]): (pressureKpa: number, voltage: number) => PumpFlow {
+export function pumpSupplyFunction(
+  pumps: readonly Pump[],
+): (pressureKpa: number, voltage: number) => PumpFlow {
   const prepared = pumps.map(prepare);
   return (pressureKpa, voltage) => {
     let flow = 0;
@@ -87,7 +91,11 @@ export function pumpSupplyFunction(pumps: readonly Pump[]): (pressureKpa: number
  * Total flow of several pumps in parallel at the same outlet pressure.
  * @example pumpsSupplyLPerH([pumpA, pumpA], 450, 12).flowLPerH // twice pumpA's flow
  */
-export function pumpsSupplyLPerH(pumps: readonly Pump[], pressureKpa: number, voltage: number): PumpFlow {
+export function pumpsSupplyLPerH(
+  pumps: readonly Pump[],
+  pressureKpa: number,
+  voltage: number,
+): PumpFlow {
   return pumpSupplyFunction(pumps)(pressureKpa, voltage);
 }
 

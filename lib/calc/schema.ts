@@ -8,38 +8,60 @@ import { z } from "zod";
 const num = (label: string, min: number, max: number, unit = "") => {
   const u = unit ? ` ${unit}` : "";
   return z
-    .number({ error: (iss) => (iss.input === undefined ? `${label} is required` : `${label} must be a number`) })
+    .number({
+      error: (iss) =>
+        iss.input === undefined ? `${label} is required` : `${label} must be a number`,
+    })
     .min(min, `${label} must be between ${min} and ${max}${u}`)
     .max(max, `${label} must be between ${min} and ${max}${u}`);
 };
-const int = (label: string, min: number, max: number) => num(label, min, max).int(`${label} must be a whole number`);
+const int = (label: string, min: number, max: number) =>
+  num(label, min, max).int(`${label} must be a whole number`);
 
 export const ASPIRATIONS = ["na", "turbo", "supercharged"] as const;
 export const REGULATOR_TYPES = ["boost-referenced", "fixed"] as const;
 
 export const EngineSchema = z
-  .object({
-    cylinders: int("Cylinders", 1, 16),
-    displacementL: num("Displacement", 0.1, 20, "L"),
-    aspiration: z.enum(ASPIRATIONS, { error: "Aspiration must be na, turbo or supercharged" }),
-    redlineRpm: num("Redline", 1000, 20000, "rpm"),
-    idleRpm: num("Idle speed", 300, 3000, "rpm").default(850),
-    maxBoostKpa: num("Boost", 0, 500, "kPa").default(0),
-    idleManifoldKpaAbs: num("Idle manifold pressure", 15, 101, "kPa absolute").default(35),
-    idleVolumetricEfficiency: num("Idle volumetric efficiency", 0.2, 1.2).default(0.8),
-    intakeTempC: num("Intake air temperature", -30, 90, "°C").default(30),
-  }, { error: "Give the engine: cylinders, displacement, aspiration and redline" })
+  .object(
+    {
+      cylinders: int("Cylinders", 1, 16),
+      displacementL: num("Displacement", 0.1, 20, "L"),
+      aspiration: z.enum(ASPIRATIONS, { error: "Aspiration must be na, turbo or supercharged" }),
+      redlineRpm: num("Redline", 1000, 20000, "rpm"),
+      idleRpm: num("Idle speed", 300, 3000, "rpm").default(850),
+      maxBoostKpa: num("Boost", 0, 500, "kPa").default(0),
+      idleManifoldKpaAbs: num("Idle manifold pressure", 15, 101, "kPa absolute").default(35),
+      idleVolumetricEfficiency: num("Idle volumetric efficiency", 0.2, 1.2).default(0.8),
+      intakeTempC: num("Intake air temperature", -30, 90, "°C").default(30),
+    },
+    { error: "Give the engine: cylinders, displacement, aspiration and redline" },
+  )
   .superRefine((e, ctx) => {
-    if (e.idleRpm >= e.redlineRpm) ctx.addIssue({ code: "custom", path: ["idleRpm"], message: "Idle speed must be below the redline" });
+    if (e.idleRpm >= e.redlineRpm)
+      ctx.addIssue({
+        code: "custom",
+        path: ["idleRpm"],
+        message: "Idle speed must be below the redline",
+      });
     if (e.aspiration === "na" && e.maxBoostKpa > 0)
-      ctx.addIssue({ code: "custom", path: ["maxBoostKpa"], message: "A naturally aspirated engine has no boost: set boost to 0 or choose turbo or supercharged" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["maxBoostKpa"],
+        message:
+          "A naturally aspirated engine has no boost: set boost to 0 or choose turbo or supercharged",
+      });
   });
 
-export const TargetSchema = z.object({
-  powerKw: num("Target power", 1, 5000, "kW"),
-  measuredAt: z.enum(["wheel", "crank"], { error: "Say whether the power is at the wheels or the crank" }),
-  drivetrainLossPct: num("Drivetrain loss", 0, 50, "%").default(15),
-}, { error: "Give the power goal: power and where it is measured" });
+export const TargetSchema = z.object(
+  {
+    powerKw: num("Target power", 1, 5000, "kW"),
+    measuredAt: z.enum(["wheel", "crank"], {
+      error: "Say whether the power is at the wheels or the crank",
+    }),
+    drivetrainLossPct: num("Drivetrain loss", 0, 50, "%").default(15),
+  },
+  { error: "Give the power goal: power and where it is measured" },
+);
 
 export const BsfcDefaultsSchema = z.object({
   gasolineNaGPerKwh: num("BSFC gasoline NA", 150, 1200, "g/kWh"),
@@ -51,13 +73,16 @@ export const BsfcDefaultsSchema = z.object({
 });
 
 export const FuelSchema = z
-  .object({
-    ethanolMinVolPct: num("Lowest ethanol content", 0, 100, "%"),
-    ethanolMaxVolPct: num("Highest ethanol content", 0, 100, "%"),
-    bsfcGPerKwh: num("BSFC", 150, 1200, "g/kWh").optional(),
-    targetLambda: num("Target lambda", 0.6, 1.3).optional(),
-    bsfcDefaults: BsfcDefaultsSchema.optional(),
-  }, { error: "Give the fuel: the lowest and highest ethanol content" })
+  .object(
+    {
+      ethanolMinVolPct: num("Lowest ethanol content", 0, 100, "%"),
+      ethanolMaxVolPct: num("Highest ethanol content", 0, 100, "%"),
+      bsfcGPerKwh: num("BSFC", 150, 1200, "g/kWh").optional(),
+      targetLambda: num("Target lambda", 0.6, 1.3).optional(),
+      bsfcDefaults: BsfcDefaultsSchema.optional(),
+    },
+    { error: "Give the fuel: the lowest and highest ethanol content" },
+  )
   .refine((f) => f.ethanolMinVolPct <= f.ethanolMaxVolPct, {
     path: ["ethanolMaxVolPct"],
     message: "The highest ethanol content must not be below the lowest",
@@ -65,36 +90,70 @@ export const FuelSchema = z
 
 export const DeadTimeTableSchema = z
   .object({
-    voltages: z.array(num("Dead-time voltage", 5, 20, "V")).min(1, "Give at least one voltage").max(20),
-    pressuresKpa: z.array(num("Dead-time pressure", 50, 1500, "kPa")).min(1, "Give at least one pressure").max(20),
+    voltages: z
+      .array(num("Dead-time voltage", 5, 20, "V"))
+      .min(1, "Give at least one voltage")
+      .max(20),
+    pressuresKpa: z
+      .array(num("Dead-time pressure", 50, 1500, "kPa"))
+      .min(1, "Give at least one pressure")
+      .max(20),
     deadTimeMs: z.array(z.array(num("Dead time", 0, 10, "ms")).max(20)).max(20),
   })
   .superRefine((t, ctx) => {
     const ascending = (xs: number[]) => xs.every((x, i) => i === 0 || x > xs[i - 1]!);
-    if (!ascending(t.voltages)) ctx.addIssue({ code: "custom", path: ["voltages"], message: "Voltages must rise from left to right, each once" });
-    if (!ascending(t.pressuresKpa)) ctx.addIssue({ code: "custom", path: ["pressuresKpa"], message: "Pressures must rise, each once" });
-    if (t.deadTimeMs.length !== t.voltages.length || t.deadTimeMs.some((r) => r.length !== t.pressuresKpa.length))
-      ctx.addIssue({ code: "custom", path: ["deadTimeMs"], message: "The table needs one row per voltage and one value per pressure" });
+    if (!ascending(t.voltages))
+      ctx.addIssue({
+        code: "custom",
+        path: ["voltages"],
+        message: "Voltages must rise from left to right, each once",
+      });
+    if (!ascending(t.pressuresKpa))
+      ctx.addIssue({
+        code: "custom",
+        path: ["pressuresKpa"],
+        message: "Pressures must rise, each once",
+      });
+    if (
+      t.deadTimeMs.length !== t.voltages.length ||
+      t.deadTimeMs.some((r) => r.length !== t.pressuresKpa.length)
+    )
+      ctx.addIssue({
+        code: "custom",
+        path: ["deadTimeMs"],
+        message: "The table needs one row per voltage and one value per pressure",
+      });
   });
 
-export const InjectorsSchema = z.object({
-  count: int("Injector count", 1, 32),
-  ratedFlowCcPerMin: num("Injector rated flow", 20, 10000, "cc/min"),
-  ratedPressureKpa: num("Injector rated pressure", 100, 1000, "kPa").default(300),
-  deadTime: DeadTimeTableSchema.optional(),
-  minPulseWidthMs: num("Minimum pulse width", 0.1, 10, "ms").optional(),
-}, { error: "Give the injectors: count and rated flow" });
+export const InjectorsSchema = z.object(
+  {
+    count: int("Injector count", 1, 32),
+    ratedFlowCcPerMin: num("Injector rated flow", 20, 10000, "cc/min"),
+    ratedPressureKpa: num("Injector rated pressure", 100, 1000, "kPa").default(300),
+    deadTime: DeadTimeTableSchema.optional(),
+    minPulseWidthMs: num("Minimum pulse width", 0.1, 10, "ms").optional(),
+  },
+  { error: "Give the injectors: count and rated flow" },
+);
 
-export const RegulatorSchema = z.object({
-  type: z.enum(REGULATOR_TYPES, { error: "Regulator must be boost-referenced or fixed" }),
-  basePressureKpa: num("Base pressure", 50, 1000, "kPa"),
-}, { error: "Give the regulator: type and base pressure" });
+export const RegulatorSchema = z.object(
+  {
+    type: z.enum(REGULATOR_TYPES, { error: "Regulator must be boost-referenced or fixed" }),
+    basePressureKpa: num("Base pressure", 50, 1000, "kPa"),
+  },
+  { error: "Give the regulator: type and base pressure" },
+);
 
 export const PumpCurveSchema = z
   .object({
     voltage: num("Curve voltage", 6, 20, "V"),
     points: z
-      .array(z.object({ pressureKpa: num("Curve pressure", 0, 1500, "kPa"), flowLPerH: num("Curve flow", 0, 3000, "L/h") }))
+      .array(
+        z.object({
+          pressureKpa: num("Curve pressure", 0, 1500, "kPa"),
+          flowLPerH: num("Curve flow", 0, 3000, "L/h"),
+        }),
+      )
       .min(2, "A pump curve needs at least two points")
       .max(40, "A pump curve takes at most 40 points"),
   })
@@ -103,7 +162,10 @@ export const PumpCurveSchema = z
       const ps = c.points.map((p) => p.pressureKpa).sort((a, b) => a - b);
       return ps.every((p, i) => i === 0 || p - ps[i - 1]! >= 1);
     },
-    { path: ["points"], message: "Each pressure may appear once on a curve, at least 1 kPa from the next" },
+    {
+      path: ["points"],
+      message: "Each pressure may appear once on a curve, at least 1 kPa from the next",
+    },
   );
 
 export const PumpSchema = z.object({
@@ -119,10 +181,13 @@ export const WiringSchema = z.object({
   currentA: num("Pump current", 0, 80, "A"),
 });
 
-export const ElectricalSchema = z.object({
-  voltageAtPump: num("Voltage at the pump", 6, 20, "V"),
-  wiring: WiringSchema.optional(),
-}, { error: "Give the voltage at the pump" });
+export const ElectricalSchema = z.object(
+  {
+    voltageAtPump: num("Voltage at the pump", 6, 20, "V"),
+    wiring: WiringSchema.optional(),
+  },
+  { error: "Give the voltage at the pump" },
+);
 
 export const LineSchema = z.object({
   insideDiameterMm: num("Inside diameter", 2, 40, "mm"),
@@ -142,20 +207,29 @@ export const LimitsSchema = z
     minPumpMarginPct: num("Minimum pump margin", 0, 200, "%").default(25),
     maxLineDropKpa: num("Line drop limit", 1, 100, "kPa").default(14),
   })
-  .refine((l) => l.dutyCautionPct <= l.dutyDangerPct, { path: ["dutyDangerPct"], message: "The danger level must not be below the caution level" });
+  .refine((l) => l.dutyCautionPct <= l.dutyDangerPct, {
+    path: ["dutyDangerPct"],
+    message: "The danger level must not be below the caution level",
+  });
 
 export const FuelSystemInputSchema = z
-  .object({
-    engine: EngineSchema,
-    target: TargetSchema,
-    fuel: FuelSchema,
-    injectors: InjectorsSchema,
-    regulator: RegulatorSchema,
-    pumps: z.array(PumpSchema, { error: "Add at least one fuel pump" }).min(1, "Add at least one fuel pump").max(6, "At most six pump entries"),
-    electrical: ElectricalSchema,
-    lines: LinesSchema.optional(),
-    limits: LimitsSchema.optional(),
-  }, { error: "Send the build as a JSON object" })
+  .object(
+    {
+      engine: EngineSchema,
+      target: TargetSchema,
+      fuel: FuelSchema,
+      injectors: InjectorsSchema,
+      regulator: RegulatorSchema,
+      pumps: z
+        .array(PumpSchema, { error: "Add at least one fuel pump" })
+        .min(1, "Add at least one fuel pump")
+        .max(6, "At most six pump entries"),
+      electrical: ElectricalSchema,
+      lines: LinesSchema.optional(),
+      limits: LimitsSchema.optional(),
+    },
+    { error: "Send the build as a JSON object" },
+  )
   .superRefine((s, ctx) => {
     // A fixed regulator loses the boost from ΔP; keep some pressure across the injector.
     if (s.regulator.type === "fixed" && s.regulator.basePressureKpa - s.engine.maxBoostKpa < 50) {
@@ -174,7 +248,12 @@ export type ParsedFuelSystemInput = z.output<typeof FuelSystemInputSchema>;
 
 export const BlendMixSchema = z.object({
   parts: z
-    .array(z.object({ volumeL: num("Volume", 0, 100000, "L"), ethanolVolPct: num("Ethanol content", 0, 100, "%") }))
+    .array(
+      z.object({
+        volumeL: num("Volume", 0, 100000, "L"),
+        ethanolVolPct: num("Ethanol content", 0, 100, "%"),
+      }),
+    )
     .min(1, "Add at least one fuel")
     .max(50, "At most 50 fills"),
 });

@@ -7,10 +7,17 @@ import type { Aspiration } from "./power";
 
 /** Fuel classes by ethanol content (% by volume). */
 export type FuelClass = "gasoline" | "mid-blend" | "e85";
-export const FUEL_CLASS_LABELS: Record<FuelClass, string> = { gasoline: "Gasoline (E0–E15)", "mid-blend": "Mid blend (E16–E50)", e85: "E85 class (E51–E100)" };
+export const FUEL_CLASS_LABELS: Record<FuelClass, string> = {
+  gasoline: "Gasoline (E0–E15)",
+  "mid-blend": "Mid blend (E16–E50)",
+  e85: "E85 class (E51–E100)",
+};
 /** Breathing classes, the split the rule-of-thumb BSFC anchors use. */
 export type AspirationClass = "na" | "boosted";
-export const ASPIRATION_CLASS_LABELS: Record<AspirationClass, string> = { na: "Naturally aspirated", boosted: "Boosted" };
+export const ASPIRATION_CLASS_LABELS: Record<AspirationClass, string> = {
+  na: "Naturally aspirated",
+  boosted: "Boosted",
+};
 
 /**
  * E15 is the highest blend sold as gasoline in the US (EPA E15 partial waiver); ASTM D5798
@@ -22,7 +29,8 @@ export function fuelClassOf(ethanolVolPct: number): FuelClass {
   return "e85";
 }
 
-export const aspirationClassOf = (a: Aspiration): AspirationClass => (a === "na" ? "na" : "boosted");
+export const aspirationClassOf = (a: Aspiration): AspirationClass =>
+  a === "na" ? "na" : "boosted";
 
 /** One verified build's measured figure. */
 export interface BsfcPoint {
@@ -49,7 +57,12 @@ export const MEASURED_BSFC_RANGE = { min: 150, max: 1200 } as const;
 export function shopBsfcTable(points: readonly BsfcPoint[]): ShopBsfcRow[] {
   const perBuild = new Map<string, BsfcPoint>();
   for (const p of points) {
-    if (!Number.isFinite(p.gPerKwh) || p.gPerKwh < MEASURED_BSFC_RANGE.min || p.gPerKwh > MEASURED_BSFC_RANGE.max) continue;
+    if (
+      !Number.isFinite(p.gPerKwh) ||
+      p.gPerKwh < MEASURED_BSFC_RANGE.min ||
+      p.gPerKwh > MEASURED_BSFC_RANGE.max
+    )
+      continue;
     if (!Number.isFinite(p.ethanolVolPct) || p.ethanolVolPct < 0 || p.ethanolVolPct > 100) continue;
     perBuild.set(p.buildId, p);
   }
@@ -64,12 +77,26 @@ export function shopBsfcTable(points: readonly BsfcPoint[]): ShopBsfcRow[] {
   }
   const order: FuelClass[] = ["gasoline", "mid-blend", "e85"];
   return [...groups.values()]
-    .map((g) => ({ fuel: g.fuel, aspiration: g.aspiration, builds: g.xs.length, meanGPerKwh: g.xs.reduce((a, b) => a + b, 0) / g.xs.length, minGPerKwh: Math.min(...g.xs), maxGPerKwh: Math.max(...g.xs) }))
-    .sort((a, b) => order.indexOf(a.fuel) - order.indexOf(b.fuel) || a.aspiration.localeCompare(b.aspiration));
+    .map((g) => ({
+      fuel: g.fuel,
+      aspiration: g.aspiration,
+      builds: g.xs.length,
+      meanGPerKwh: g.xs.reduce((a, b) => a + b, 0) / g.xs.length,
+      minGPerKwh: Math.min(...g.xs),
+      maxGPerKwh: Math.max(...g.xs),
+    }))
+    .sort(
+      (a, b) =>
+        order.indexOf(a.fuel) - order.indexOf(b.fuel) || a.aspiration.localeCompare(b.aspiration),
+    );
 }
 
 /** The shop's row for a sizing at this ethanol content and aspiration, or null when it has none. */
-export function shopBsfcFor(table: readonly ShopBsfcRow[], ethanolVolPct: number, aspiration: Aspiration): ShopBsfcRow | null {
+export function shopBsfcFor(
+  table: readonly ShopBsfcRow[],
+  ethanolVolPct: number,
+  aspiration: Aspiration,
+): ShopBsfcRow | null {
   if (!Number.isFinite(ethanolVolPct)) return null;
   const fuel = fuelClassOf(ethanolVolPct);
   const asp = aspirationClassOf(aspiration);

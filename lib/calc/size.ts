@@ -68,7 +68,11 @@ export interface FuelSystemResult {
     dutyBand: "ok" | "caution" | "danger" | "static";
     powerCeilingKw: number;
     pulseWidthRedline: PulseWidth;
-    pulseWidthIdle: PulseWidth & { differentialPressureKpa: number; minPulseWidthMs: number | null; fuelPerInjectionMg: number };
+    pulseWidthIdle: PulseWidth & {
+      differentialPressureKpa: number;
+      minPulseWidthMs: number | null;
+      fuelPerInjectionMg: number;
+    };
   };
   pump: {
     voltageUsed: number;
@@ -92,12 +96,24 @@ export interface FuelSystemResult {
     assumedLengthM: number | null;
   };
   powerCeiling: { kw: number; limitedBy: "injectors" | "pump" | "feed-line"; headroomPct: number };
-  limits: { designDutyPct: number; dutyCautionPct: number; dutyDangerPct: number; minPumpMarginPct: number; maxLineDropKpa: number };
+  limits: {
+    designDutyPct: number;
+    dutyCautionPct: number;
+    dutyDangerPct: number;
+    minPumpMarginPct: number;
+    maxLineDropKpa: number;
+  };
   warnings: Warning[];
   trace: TraceStep[];
 }
 
-const DEFAULT_LIMITS = { designDutyPct: 80, dutyCautionPct: 80, dutyDangerPct: 90, minPumpMarginPct: 25, maxLineDropKpa: 14 };
+const DEFAULT_LIMITS = {
+  designDutyPct: 80,
+  dutyCautionPct: 80,
+  dutyDangerPct: 90,
+  minPumpMarginPct: 25,
+  maxLineDropKpa: 14,
+};
 /** Line length assumed for a recommendation when the build gives none. */
 const ASSUMED_LINE_LENGTH_M = 5;
 
@@ -122,17 +138,27 @@ export function sizeFuelSystem(input: FuelSystemInput): FuelSystemResult {
 export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemResult {
   const t = new Tracer();
   const warnings: Warning[] = [];
-  const warn = (code: string, severity: Severity, message: string, fix?: string) => warnings.push({ code, severity, message, fix });
+  const warn = (code: string, severity: Severity, message: string, fix?: string) =>
+    warnings.push({ code, severity, message, fix });
   const { engine, target, fuel, injectors, regulator, pumps, electrical } = input;
   const l = input.limits;
   const limits = l
-    ? { designDutyPct: l.designDutyPct, dutyCautionPct: l.dutyCautionPct, dutyDangerPct: l.dutyDangerPct, minPumpMarginPct: l.minPumpMarginPct, maxLineDropKpa: l.maxLineDropKpa }
+    ? {
+        designDutyPct: l.designDutyPct,
+        dutyCautionPct: l.dutyCautionPct,
+        dutyDangerPct: l.dutyDangerPct,
+        minPumpMarginPct: l.minPumpMarginPct,
+        maxLineDropKpa: l.maxLineDropKpa,
+      }
     : { ...DEFAULT_LIMITS };
   const design = limits.designDutyPct / 100;
   const n = injectors.count;
 
   // Power
-  const wheelPowerKw = target.measuredAt === "wheel" ? target.powerKw : target.powerKw * (1 - target.drivetrainLossPct / 100);
+  const wheelPowerKw =
+    target.measuredAt === "wheel"
+      ? target.powerKw
+      : target.powerKw * (1 - target.drivetrainLossPct / 100);
   const crankPowerKw =
     target.measuredAt === "wheel"
       ? t.add({
@@ -149,11 +175,18 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       : target.powerKw;
 
   // Pressures at full load
-  const dpOp = injectorDifferentialPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: engine.maxBoostKpa });
+  const dpOp = injectorDifferentialPressureKpa({
+    type: regulator.type,
+    basePressureKpa: regulator.basePressureKpa,
+    manifoldKpa: engine.maxBoostKpa,
+  });
   t.add({
     id: "injector-dp",
     label: "Pressure across the injector at full boost",
-    formula: regulator.type === "boost-referenced" ? "base pressure (the regulator follows boost 1:1)" : "base pressure − boost",
+    formula:
+      regulator.type === "boost-referenced"
+        ? "base pressure (the regulator follows boost 1:1)"
+        : "base pressure − boost",
     inputs: [
       { label: "base pressure", value: regulator.basePressureKpa, unit: "kPa" },
       { label: "boost", value: engine.maxBoostKpa, unit: "kPa" },
@@ -194,10 +227,14 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     });
   }
 
-  const dead = (dp: number): number | null => (injectors.deadTime ? deadTimeMs(injectors.deadTime, voltageUsed, dp).value : null);
+  const dead = (dp: number): number | null =>
+    injectors.deadTime ? deadTimeMs(injectors.deadTime, voltageUsed, dp).value : null;
   const redlineCycle = cycleTimeMs(engine.redlineRpm);
 
-  const endOf = (ethanolVolPct: number, which: "lean" | "rich"): { props: FuelBlend; end: BlendEnd } => {
+  const endOf = (
+    ethanolVolPct: number,
+    which: "lean" | "rich",
+  ): { props: FuelBlend; end: BlendEnd } => {
     const b = fuelBlend(ethanolVolPct);
     const tag = which === "lean" ? "lowest" : "highest";
     let bsfc: number;
@@ -206,12 +243,18 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       bsfc = fuel.bsfcGPerKwh;
       bsfcSource = "given";
     } else {
-      const est = defaultBsfc({ ethanolVolPct, aspiration: engine.aspiration, targetLambda: fuel.targetLambda, defaults: fuel.bsfcDefaults });
+      const est = defaultBsfc({
+        ethanolVolPct,
+        aspiration: engine.aspiration,
+        targetLambda: fuel.targetLambda,
+        defaults: fuel.bsfcDefaults,
+      });
       bsfcSource = "rule-of-thumb";
       bsfc = t.add({
         id: `bsfc-${which}`,
         label: `BSFC at E${ethanolVolPct} (${tag} ethanol)`,
-        formula: "gasoline and E85 rules of thumb, linear in ethanol %, × reference lambda ÷ target lambda",
+        formula:
+          "gasoline and E85 rules of thumb, linear in ethanol %, × reference lambda ÷ target lambda",
         inputs: [
           { label: "at reference lambda", value: est.atReferenceGPerKwh, unit: "g/kWh" },
           { label: "reference lambda", value: est.referenceLambda, unit: "λ" },
@@ -326,7 +369,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
 
   // Idle: the least fuel is needed at the lowest ethanol content.
   const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs);
-  const dpIdle = injectorDifferentialPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: idleManifoldGauge });
+  const dpIdle = injectorDifferentialPressureKpa({
+    type: regulator.type,
+    basePressureKpa: regulator.basePressureKpa,
+    manifoldKpa: idleManifoldGauge,
+  });
   const idleFuel = idleFuelPerCylinderMg({
     displacementL: engine.displacementL,
     cylinders: engine.cylinders,
@@ -348,17 +395,25 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       { label: "pressure across at idle", value: dpIdle, unit: "kPa" },
       { label: "injector flow at idle", value: qIdle, unit: "cc/min" },
     ],
-    value: ((fuelPerInjectionMg / 1000 / leanProps.densityKgPerL) / qIdle) * 60000,
+    value: (fuelPerInjectionMg / 1000 / leanProps.densityKgPerL / qIdle) * 60000,
     unit: "ms",
   });
   const idleDead = dead(dpIdle);
 
   // Pump: outlet pressure = rail + filter + feed-line drop at the pump's own flow (fixed point).
-  const rail = railPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: engine.maxBoostKpa });
+  const rail = railPressureKpa({
+    type: regulator.type,
+    basePressureKpa: regulator.basePressureKpa,
+    manifoldKpa: engine.maxBoostKpa,
+  });
   const demand = rich.fuelVolumeFlowLPerH;
   const feedLine = input.lines?.feed;
   const returnLine = input.lines?.return;
-  const fluid = (flowLPerH: number) => ({ flowLPerH, densityKgPerL: richProps.densityKgPerL, viscosityMPaS: richProps.viscosityMPaS });
+  const fluid = (flowLPerH: number) => ({
+    flowLPerH,
+    densityKgPerL: richProps.densityKgPerL,
+    viscosityMPaS: richProps.viscosityMPaS,
+  });
   const supplyAt = pumpSupplyFunction(pumps);
   const base = rail + (feedLine?.filterDropKpa ?? 0);
   let outlet = base;
@@ -366,7 +421,10 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   if (feedLine) {
     // The outlet pressure p solves g(p) = p − base − drop(supply(p)) = 0; g rises with p and
     // the root lies between base and base + drop(supply(base)). Illinois false position.
-    const g = (p: number) => p - base - linePressureDrop(feedLine, fluid(supplyAt(p, voltageUsed).flowLPerH)).pressureDropKpa;
+    const g = (p: number) =>
+      p -
+      base -
+      linePressureDrop(feedLine, fluid(supplyAt(p, voltageUsed).flowLPerH)).pressureDropKpa;
     let lo = base;
     let glo = g(lo);
     let hi = base - glo;
@@ -400,7 +458,10 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   t.add({
     id: "pump-outlet",
     label: "Pressure the pump works against",
-    formula: regulator.type === "boost-referenced" ? "base pressure + boost + filter and feed-line losses" : "base pressure + filter and feed-line losses",
+    formula:
+      regulator.type === "boost-referenced"
+        ? "base pressure + boost + filter and feed-line losses"
+        : "base pressure + filter and feed-line losses",
     inputs: [
       { label: "rail pressure", value: rail, unit: "kPa" },
       { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, unit: "kPa" },
@@ -452,18 +513,29 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       { label: "density", value: rich.densityKgPerL, unit: "kg/L" },
       { label: "BSFC", value: rich.bsfcGPerKwh, unit: "g/kWh" },
     ],
-    value: ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * rich.densityKgPerL * 1000) / rich.bsfcGPerKwh,
+    value:
+      ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * rich.densityKgPerL * 1000) /
+      rich.bsfcGPerKwh,
     unit: "kW",
   });
 
   // Idle: the return line carries almost the whole pump flow.
-  const idleRail = railPressureKpa({ type: regulator.type, basePressureKpa: regulator.basePressureKpa, manifoldKpa: idleManifoldGauge });
+  const idleRail = railPressureKpa({
+    type: regulator.type,
+    basePressureKpa: regulator.basePressureKpa,
+    manifoldKpa: idleManifoldGauge,
+  });
   const idleSupply = supplyAt(Math.max(0, idleRail), voltageUsed);
-  const idleConsumptionLPerH = ((idleFuel.fuelMg * engine.cylinders * (engine.idleRpm / 2)) / 1000 / leanProps.densityKgPerL) * 0.06;
+  const idleConsumptionLPerH =
+    ((idleFuel.fuelMg * engine.cylinders * (engine.idleRpm / 2)) / 1000 / leanProps.densityKgPerL) *
+    0.06;
   const idleReturn = Math.max(0, idleSupply.flowLPerH - idleConsumptionLPerH);
 
   // Lines
-  const lineResult = (line: { insideDiameterMm: number; lengthM: number; roughnessMm?: number; fittingsK: number }, flow: number): LineResult => {
+  const lineResult = (
+    line: { insideDiameterMm: number; lengthM: number; roughnessMm?: number; fittingsK: number },
+    flow: number,
+  ): LineResult => {
     // Fields listed one by one: object spread is slow on V8's hot path here (measured, ~8 µs).
     const d = linePressureDrop(line, fluid(flow));
     return {
@@ -511,9 +583,20 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       unit: "kPa",
     });
   }
-  const recommend = (flow: number, like?: { lengthM: number; roughnessMm?: number; fittingsK: number }): number | null => {
+  const recommend = (
+    flow: number,
+    like?: { lengthM: number; roughnessMm?: number; fittingsK: number },
+  ): number | null => {
     for (const size of AN_SIZES) {
-      const drop = linePressureDrop({ insideDiameterMm: size.typicalHoseIdMm, lengthM: like?.lengthM ?? ASSUMED_LINE_LENGTH_M, roughnessMm: like?.roughnessMm, fittingsK: like?.fittingsK ?? 0 }, fluid(flow));
+      const drop = linePressureDrop(
+        {
+          insideDiameterMm: size.typicalHoseIdMm,
+          lengthM: like?.lengthM ?? ASSUMED_LINE_LENGTH_M,
+          roughnessMm: like?.roughnessMm,
+          fittingsK: like?.fittingsK ?? 0,
+        },
+        fluid(flow),
+      );
       if (drop.pressureDropKpa <= limits.maxLineDropKpa) return size.dash;
     }
     return null;
@@ -525,62 +608,174 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const injCeiling = Math.min(lean.powerCeilingKw, rich.powerCeilingKw);
   const pumpLimited = pumpCeiling < injCeiling;
   const ceilingKw = Math.min(injCeiling, pumpCeiling);
-  const limitedBy: FuelSystemResult["powerCeiling"]["limitedBy"] = pumpLimited ? (feed && !feed.withinLimit ? "feed-line" : "pump") : "injectors";
+  const limitedBy: FuelSystemResult["powerCeiling"]["limitedBy"] = pumpLimited
+    ? feed && !feed.withinLimit
+      ? "feed-line"
+      : "pump"
+    : "injectors";
 
   // Warnings
   const dutyMax = Math.max(lean.dutyPct, rich.dutyPct);
-  const dutyBand = dutyMax >= 100 ? "static" : dutyMax > limits.dutyDangerPct ? "danger" : dutyMax > limits.dutyCautionPct ? "caution" : "ok";
+  const dutyBand =
+    dutyMax >= 100
+      ? "static"
+      : dutyMax > limits.dutyDangerPct
+        ? "danger"
+        : dutyMax > limits.dutyCautionPct
+          ? "caution"
+          : "ok";
   const needRating = Math.max(lean.requiredRatedFlowCcPerMin, rich.requiredRatedFlowCcPerMin);
   const biggerInjector = `Fit injectors rated at least ${Math.ceil(needRating)} cc/min at ${injectors.ratedPressureKpa} kPa, add injectors, or raise the base pressure.`;
   if (dutyBand === "static") {
-    warn("injector-static", "danger", `The injectors would need ${dutyMax.toFixed(0)} % duty at E${rich.ethanolVolPct}: they cannot deliver the fuel for this power.`, biggerInjector);
+    warn(
+      "injector-static",
+      "danger",
+      `The injectors would need ${dutyMax.toFixed(0)} % duty at E${rich.ethanolVolPct}: they cannot deliver the fuel for this power.`,
+      biggerInjector,
+    );
   } else if (dutyBand === "danger") {
-    warn("injector-duty-danger", "danger", `Injector duty reaches ${dutyMax.toFixed(0)} %: almost no headroom for a richer blend, hot fuel or voltage sag.`, biggerInjector);
+    warn(
+      "injector-duty-danger",
+      "danger",
+      `Injector duty reaches ${dutyMax.toFixed(0)} %: almost no headroom for a richer blend, hot fuel or voltage sag.`,
+      biggerInjector,
+    );
   } else if (dutyBand === "caution") {
-    warn("injector-duty-caution", "caution", `Injector duty reaches ${dutyMax.toFixed(0)} %, above the ${limits.dutyCautionPct} % comfort level.`, biggerInjector);
+    warn(
+      "injector-duty-caution",
+      "caution",
+      `Injector duty reaches ${dutyMax.toFixed(0)} %, above the ${limits.dutyCautionPct} % comfort level.`,
+      biggerInjector,
+    );
   }
   if (regulator.type === "fixed" && engine.maxBoostKpa > 0) {
-    warn("fixed-regulator-boost", "caution", `With a fixed regulator the pressure across the injectors falls from ${regulator.basePressureKpa} to ${dpOp.toFixed(0)} kPa at full boost, and injector flow falls with it.`, "Use a boost-referenced regulator, or size the injectors for the pressure at full boost (done here).");
+    warn(
+      "fixed-regulator-boost",
+      "caution",
+      `With a fixed regulator the pressure across the injectors falls from ${regulator.basePressureKpa} to ${dpOp.toFixed(0)} kPa at full boost, and injector flow falls with it.`,
+      "Use a boost-referenced regulator, or size the injectors for the pressure at full boost (done here).",
+    );
   }
   if (injectors.minPulseWidthMs !== undefined && idleEffective < injectors.minPulseWidthMs) {
-    warn("idle-pulse-short", "caution", `At idle the injectors would open for ${idleEffective.toFixed(2)} ms, below their ${injectors.minPulseWidthMs} ms minimum: expect a rough, uneven idle.`, "Choose smaller injectors, lower the base pressure, or raise idle speed or airflow.");
+    warn(
+      "idle-pulse-short",
+      "caution",
+      `At idle the injectors would open for ${idleEffective.toFixed(2)} ms, below their ${injectors.minPulseWidthMs} ms minimum: expect a rough, uneven idle.`,
+      "Choose smaller injectors, lower the base pressure, or raise idle speed or airflow.",
+    );
   }
   if (!injectors.deadTime) {
-    warn("dead-time-missing", "info", "No dead-time table for these injectors: commanded pulse widths cannot be given, only effective opening times.", "Enter the injector's dead-time table (from its data sheet) or pick it from the catalog.");
-  } else if (deadTimeMs(injectors.deadTime, voltageUsed, dpOp).outOfRange || deadTimeMs(injectors.deadTime, voltageUsed, dpIdle).outOfRange) {
-    warn("dead-time-outside-table", "info", "The voltage or pressure lies outside the injector's dead-time table; the nearest edge of the table was used.", "Extend the dead-time table to the operating voltage and pressure.");
+    warn(
+      "dead-time-missing",
+      "info",
+      "No dead-time table for these injectors: commanded pulse widths cannot be given, only effective opening times.",
+      "Enter the injector's dead-time table (from its data sheet) or pick it from the catalog.",
+    );
+  } else if (
+    deadTimeMs(injectors.deadTime, voltageUsed, dpOp).outOfRange ||
+    deadTimeMs(injectors.deadTime, voltageUsed, dpIdle).outOfRange
+  ) {
+    warn(
+      "dead-time-outside-table",
+      "info",
+      "The voltage or pressure lies outside the injector's dead-time table; the nearest edge of the table was used.",
+      "Extend the dead-time table to the operating voltage and pressure.",
+    );
   }
   if (supply.flowLPerH < demand) {
-    warn("pump-short", "danger", `The pumps deliver ${supply.flowLPerH.toFixed(0)} L/h at ${outlet.toFixed(0)} kPa and ${voltageUsed.toFixed(1)} V, less than the ${demand.toFixed(0)} L/h the engine needs: the rail pressure will collapse at full load.`, "Add a pump or fit a larger one, raise the voltage at the pump, or lower the target power.");
+    warn(
+      "pump-short",
+      "danger",
+      `The pumps deliver ${supply.flowLPerH.toFixed(0)} L/h at ${outlet.toFixed(0)} kPa and ${voltageUsed.toFixed(1)} V, less than the ${demand.toFixed(0)} L/h the engine needs: the rail pressure will collapse at full load.`,
+      "Add a pump or fit a larger one, raise the voltage at the pump, or lower the target power.",
+    );
   } else if (margin < limits.minPumpMarginPct) {
-    warn("pump-margin-low", "caution", `Pump margin is ${margin.toFixed(0)} %, below the ${limits.minPumpMarginPct} % minimum.`, "Fit a larger pump or a second one, or improve the pump's wiring.");
+    warn(
+      "pump-margin-low",
+      "caution",
+      `Pump margin is ${margin.toFixed(0)} %, below the ${limits.minPumpMarginPct} % minimum.`,
+      "Fit a larger pump or a second one, or improve the pump's wiring.",
+    );
   }
   if (supply.pressureOutOfRange) {
-    warn("pump-curve-pressure-range", "caution", `The pump curve has no data at ${outlet.toFixed(0)} kPa; its end segment was extended, so the supply figure is an estimate.`, "Enter curve points that cover the working pressure.");
+    warn(
+      "pump-curve-pressure-range",
+      "caution",
+      `The pump curve has no data at ${outlet.toFixed(0)} kPa; its end segment was extended, so the supply figure is an estimate.`,
+      "Enter curve points that cover the working pressure.",
+    );
   }
   if (supply.voltageOutOfRange) {
-    warn("pump-curve-voltage-range", "caution", `The pump curves do not cover ${voltageUsed.toFixed(1)} V; the nearest tested voltages were extended.`, "Enter a curve at (or around) the real voltage at the pump.");
+    warn(
+      "pump-curve-voltage-range",
+      "caution",
+      `The pump curves do not cover ${voltageUsed.toFixed(1)} V; the nearest tested voltages were extended.`,
+      "Enter a curve at (or around) the real voltage at the pump.",
+    );
   }
   if (electrical.wiring && wireDropV !== null && wireDropV > 0.5) {
-    warn("pump-wire-drop", "caution", `The pump wiring loses ${wireDropV.toFixed(2)} V at ${electrical.wiring.currentA} A.`, "Use heavier wire, a shorter run or a relay close to the pump.");
+    warn(
+      "pump-wire-drop",
+      "caution",
+      `The pump wiring loses ${wireDropV.toFixed(2)} V at ${electrical.wiring.currentA} A.`,
+      "Use heavier wire, a shorter run or a relay close to the pump.",
+    );
   }
   if (feed && !feed.withinLimit) {
-    warn("feed-line-drop", "caution", `The feed line loses ${feed.pressureDropKpa.toFixed(1)} kPa at ${feed.flowLPerH.toFixed(0)} L/h, above the ${limits.maxLineDropKpa} kPa limit.`, recommendedFeedDash ? `Use −${recommendedFeedDash} AN or larger.` : "Use a larger line than −12 AN or split the feed.");
+    warn(
+      "feed-line-drop",
+      "caution",
+      `The feed line loses ${feed.pressureDropKpa.toFixed(1)} kPa at ${feed.flowLPerH.toFixed(0)} L/h, above the ${limits.maxLineDropKpa} kPa limit.`,
+      recommendedFeedDash
+        ? `Use −${recommendedFeedDash} AN or larger.`
+        : "Use a larger line than −12 AN or split the feed.",
+    );
   }
   if (ret && !ret.withinLimit) {
-    warn("return-line-drop", "caution", `At idle the return line carries ${ret.flowLPerH.toFixed(0)} L/h and loses ${ret.pressureDropKpa.toFixed(1)} kPa: rail pressure will sit high at idle and the fuel will heat.`, recommendedReturnDash ? `Use −${recommendedReturnDash} AN or larger for the return.` : "Use a larger return line.");
+    warn(
+      "return-line-drop",
+      "caution",
+      `At idle the return line carries ${ret.flowLPerH.toFixed(0)} L/h and loses ${ret.pressureDropKpa.toFixed(1)} kPa: rail pressure will sit high at idle and the fuel will heat.`,
+      recommendedReturnDash
+        ? `Use −${recommendedReturnDash} AN or larger for the return.`
+        : "Use a larger return line.",
+    );
   }
-  if (supply.flowLPerH > 0 && supply.flowLPerH - demand <= 0.05 * supply.flowLPerH && supply.flowLPerH >= demand) {
-    warn("no-return-flow", "caution", "At full load almost no fuel returns to the tank: the regulator is at the edge of regulating.", "A return-style system must always return some fuel; add pump capacity.");
+  if (
+    supply.flowLPerH > 0 &&
+    supply.flowLPerH - demand <= 0.05 * supply.flowLPerH &&
+    supply.flowLPerH >= demand
+  ) {
+    warn(
+      "no-return-flow",
+      "caution",
+      "At full load almost no fuel returns to the tank: the regulator is at the edge of regulating.",
+      "A return-style system must always return some fuel; add pump capacity.",
+    );
   }
   if (ceilingKw < crankPowerKw) {
-    warn("ceiling-below-target", "danger", `The system tops out at ${ceilingKw.toFixed(0)} kW crank, below the ${crankPowerKw.toFixed(0)} kW target (limited by the ${limitedBy}).`, pumpLimited ? "Add pump capacity." : biggerInjector);
+    warn(
+      "ceiling-below-target",
+      "danger",
+      `The system tops out at ${ceilingKw.toFixed(0)} kW crank, below the ${crankPowerKw.toFixed(0)} kW target (limited by the ${limitedBy}).`,
+      pumpLimited ? "Add pump capacity." : biggerInjector,
+    );
   }
   if (lean.bsfcSource === "rule-of-thumb") {
-    warn("bsfc-rule-of-thumb", "info", "BSFC comes from rules of thumb; verify the fuel flow on the dyno.", "Enter a measured BSFC once the engine has been on the dyno.");
+    warn(
+      "bsfc-rule-of-thumb",
+      "info",
+      "BSFC comes from rules of thumb; verify the fuel flow on the dyno.",
+      "Enter a measured BSFC once the engine has been on the dyno.",
+    );
   }
   if (fuel.ethanolMaxVolPct - fuel.ethanolMinVolPct >= 20) {
-    warn("blend-range-flex", "info", `The blend can run from E${fuel.ethanolMinVolPct} to E${fuel.ethanolMaxVolPct}: the tune needs an ethanol content sensor to follow it.`, "Fit an ethanol content sensor and a flex-fuel tune.");
+    warn(
+      "blend-range-flex",
+      "info",
+      `The blend can run from E${fuel.ethanolMinVolPct} to E${fuel.ethanolMaxVolPct}: the tune needs an ethanol content sensor to follow it.`,
+      "Fit an ethanol content sensor and a flex-fuel tune.",
+    );
   }
 
   return {
@@ -594,7 +789,10 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       count: n,
       differentialPressureKpa: dpOp,
       flowAtOperatingCcPerMin: qOp,
-      requiredFlowAtOperatingCcPerMin: Math.max(lean.requiredFlowAtOperatingCcPerMin, rich.requiredFlowAtOperatingCcPerMin),
+      requiredFlowAtOperatingCcPerMin: Math.max(
+        lean.requiredFlowAtOperatingCcPerMin,
+        rich.requiredFlowAtOperatingCcPerMin,
+      ),
       requiredRatedFlowCcPerMin: needRating,
       dutyPct: rich.dutyPct,
       dutyBand,

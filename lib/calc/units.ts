@@ -1,4 +1,5 @@
 import convert from "convert-units";
+
 import { requirePositive } from "./_lib/errors";
 import { KG_PER_LB, KW_PER_HP, KW_PER_PS } from "./constants";
 import { G_PER_KWH_PER_LB_PER_HP_H } from "./power";
@@ -55,20 +56,52 @@ export const INJECTOR_RATING_DENSITY_KG_PER_L = 0.72;
  * lb/h → cc/min at a stated density (kg/L = g/cc).
  * @example injectorLbPerHToCcPerMin(1, 0.72) // 10.4998
  */
-export function injectorLbPerHToCcPerMin(lbPerH: number, densityKgPerL = INJECTOR_RATING_DENSITY_KG_PER_L): number {
+export function injectorLbPerHToCcPerMin(
+  lbPerH: number,
+  densityKgPerL = INJECTOR_RATING_DENSITY_KG_PER_L,
+): number {
   requirePositive("densityKgPerL", densityKgPerL, 2, "Density");
   return lbPerHToGPerMin(lbPerH) / densityKgPerL;
 }
-export function injectorCcPerMinToLbPerH(ccPerMin: number, densityKgPerL = INJECTOR_RATING_DENSITY_KG_PER_L): number {
+export function injectorCcPerMinToLbPerH(
+  ccPerMin: number,
+  densityKgPerL = INJECTOR_RATING_DENSITY_KG_PER_L,
+): number {
   requirePositive("densityKgPerL", densityKgPerL, 2, "Density");
   return gPerMinToLbPerH(ccPerMin * densityKgPerL);
 }
 
-export const bsfcToGPerKwh = (value: number, unit: BsfcUnit): number => (unit === "g/kWh" ? value : value * G_PER_KWH_PER_LB_PER_HP_H);
-export const bsfcFromGPerKwh = (gPerKwh: number, unit: BsfcUnit): number => (unit === "g/kWh" ? gPerKwh : gPerKwh / G_PER_KWH_PER_LB_PER_HP_H);
+export const bsfcToGPerKwh = (value: number, unit: BsfcUnit): number =>
+  unit === "g/kWh" ? value : value * G_PER_KWH_PER_LB_PER_HP_H;
+export const bsfcFromGPerKwh = (gPerKwh: number, unit: BsfcUnit): number =>
+  unit === "g/kWh" ? gPerKwh : gPerKwh / G_PER_KWH_PER_LB_PER_HP_H;
 
 /** The display units of each unit system. */
-export const UNIT_SYSTEMS: Record<UnitSystem, { pressure: PressureUnit; power: PowerUnit; injectorFlow: InjectorFlowUnit; volumeFlow: VolumeFlowUnit; volume: VolumeUnit; bsfc: BsfcUnit }> = {
-  metric: { pressure: "kPa", power: "kW", injectorFlow: "cc/min", volumeFlow: "l/h", volume: "l", bsfc: "g/kWh" },
-  imperial: { pressure: "psi", power: "hp", injectorFlow: "lb/h", volumeFlow: "gal/h", volume: "gal", bsfc: "lb/hp/h" },
+export const UNIT_SYSTEMS: Record<
+  UnitSystem,
+  {
+    pressure: PressureUnit;
+    power: PowerUnit;
+    injectorFlow: InjectorFlowUnit;
+    volumeFlow: VolumeFlowUnit;
+    volume: VolumeUnit;
+    bsfc: BsfcUnit;
+  }
+> = {
+  metric: {
+    pressure: "kPa",
+    power: "kW",
+    injectorFlow: "cc/min",
+    volumeFlow: "l/h",
+    volume: "l",
+    bsfc: "g/kWh",
+  },
+  imperial: {
+    pressure: "psi",
+    power: "hp",
+    injectorFlow: "lb/h",
+    volumeFlow: "gal/h",
+    volume: "gal",
+    bsfc: "lb/hp/h",
+  },
 };

@@ -23,7 +23,11 @@ export function copperResistanceOhmPerM(gauge: number): number {
  * Voltage lost in the pump's feed and ground wires: V = I · R, R over the round-trip length.
  * @example wireVoltageDropV({ gaugeAwg: 12, roundTripLengthM: 10, currentA: 15 }) // 0.78
  */
-export function wireVoltageDropV(q: { gaugeAwg: number; roundTripLengthM: number; currentA: number }): number {
+export function wireVoltageDropV(q: {
+  gaugeAwg: number;
+  roundTripLengthM: number;
+  currentA: number;
+}): number {
   requirePositive("roundTripLengthM", q.roundTripLengthM, 100, "Wire length");
   requireRange("currentA", q.currentA, 0, 200, "Pump current");
   return q.currentA * copperResistanceOhmPerM(q.gaugeAwg) * q.roundTripLengthM;

@@ -1,6 +1,13 @@
 import Papa from "papaparse";
-import { CSV_COLUMNS, FlatPartSchema, flatOf, type FlatPart, type PartValues } from "@/lib/validations/parts";
+
 import type { Part } from "@/db/schema/catalog";
+import {
+  CSV_COLUMNS,
+  flatOf,
+  FlatPartSchema,
+  type FlatPart,
+  type PartValues,
+} from "@/lib/validations/parts";
 
 export interface CsvRowError {
   line: number;
@@ -26,17 +33,48 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
   const parsed = Papa.parse<string[]>(src, { header: false, skipEmptyLines: false, delimiter: "" });
   const table = parsed.data;
   const errors: CsvRowError[] = [];
-  const header = (table[0] ?? []).map((h) => h.trim().toLowerCase().replace(/[\s-]+/g, "_"));
+  const header = (table[0] ?? []).map((h) =>
+    h
+      .trim()
+      .toLowerCase()
+      .replace(/[\s-]+/g, "_"),
+  );
   const missing = REQUIRED.filter((c) => !header.includes(c));
-  if (table.length === 0 || header.every((h) => h === "")) return { rows: [], errors: [{ line: 1, field: "header", message: "The file is empty: the first line must name the columns" }], ignoredColumns: [] };
-  if (missing.length) return { rows: [], errors: [{ line: 1, field: "header", message: `Missing column${missing.length > 1 ? "s" : ""}: ${missing.join(", ")}` }], ignoredColumns: [] };
+  if (table.length === 0 || header.every((h) => h === ""))
+    return {
+      rows: [],
+      errors: [
+        {
+          line: 1,
+          field: "header",
+          message: "The file is empty: the first line must name the columns",
+        },
+      ],
+      ignoredColumns: [],
+    };
+  if (missing.length)
+    return {
+      rows: [],
+      errors: [
+        {
+          line: 1,
+          field: "header",
+          message: `Missing column${missing.length > 1 ? "s" : ""}: ${missing.join(", ")}`,
+        },
+      ],
+      ignoredColumns: [],
+    };
   const known = new Set<string>(CSV_COLUMNS);
   const ignoredColumns = header.filter((h) => h && !known.has(h));
   const rows: ParsedCatalog["rows"] = [];
   const seen = new Map<string, number>();
   const dataRows = table.slice(1);
   if (dataRows.filter((r) => r.some((c) => c.trim() !== "")).length > MAX_CSV_ROWS) {
-    return { rows: [], errors: [{ line: 1, field: "file", message: `At most ${MAX_CSV_ROWS} parts per file` }], ignoredColumns };
+    return {
+      rows: [],
+      errors: [{ line: 1, field: "file", message: `At most ${MAX_CSV_ROWS} parts per file` }],
+      ignoredColumns,
+    };
   }
   dataRows.forEach((cells, i) => {
     const line = i + 2;
@@ -47,7 +85,8 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
     });
     const r = FlatPartSchema.safeParse(flat);
     if (!r.success) {
-      for (const iss of r.error.issues) errors.push({ line, field: String(iss.path[0] ?? "row"), message: iss.message });
+      for (const iss of r.error.issues)
+        errors.push({ line, field: String(iss.path[0] ?? "row"), message: iss.message });
       return;
     }
     const key = r.data.sku.toLowerCase();
@@ -63,6 +102,22 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
 }
 
 /** The catalog as CSV, with the same columns the import reads. */
-export function catalogCsv(parts: Pick<Part, "sku" | "category" | "brand" | "name" | "priceMinor" | "costMinor" | "stock" | "reorderLevel" | "specs">[]): string {
-  return Papa.unparse({ fields: [...CSV_COLUMNS], data: parts.map((p) => CSV_COLUMNS.map((c) => flatOf(p)[c] ?? "")) });
+export function catalogCsv(
+  parts: Pick<
+    Part,
+    | "sku"
+    | "category"
+    | "brand"
+    | "name"
+    | "priceMinor"
+    | "costMinor"
+    | "stock"
+    | "reorderLevel"
+    | "specs"
+  >[],
+): string {
+  return Papa.unparse({
+    fields: [...CSV_COLUMNS],
+    data: parts.map((p) => CSV_COLUMNS.map((c) => flatOf(p)[c] ?? "")),
+  });
 }

@@ -18,7 +18,10 @@ export function specSummary(category: PartCategory, s: Record<string, unknown>):
     case "injector":
       return `${s.ratedFlowCcPerMin} cc/min @ ${s.ratedPressureKpa} kPa${s.minPulseWidthMs ? ` · min ${s.minPulseWidthMs} ms` : ""}${e}`;
     case "pump": {
-      const c = (s.curves as { voltage: number; points: { pressureKpa: number; flowLPerH: number }[] }[] | undefined)?.[0];
+      const c = (
+        s.curves as
+          { voltage: number; points: { pressureKpa: number; flowLPerH: number }[] }[] | undefined
+      )?.[0];
       const p = c?.points.find((x) => x.pressureKpa === 300) ?? c?.points[0];
       return `${p ? `${p.flowLPerH} L/h @ ${p.pressureKpa} kPa, ${c!.voltage} V` : ""} · ${s.mounting}${e}`;
     }
@@ -38,4 +41,5 @@ export function specSummary(category: PartCategory, s: Record<string, unknown>):
 }
 
 /** Q-0007, or Q-0007-r2 for a later revision. */
-export const quoteLabel = (number: number, revision: number) => `Q-${String(number).padStart(4, "0")}${revision > 1 ? `-r${revision}` : ""}`;
+export const quoteLabel = (number: number, revision: number) =>
+  `Q-${String(number).padStart(4, "0")}${revision > 1 ? `-r${revision}` : ""}`;

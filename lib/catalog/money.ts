@@ -5,7 +5,10 @@
 
 /** "1,234.5" → 123450; null when it is not an amount with at most two decimals. */
 export function parseMoney(text: string): number | null {
-  const s = text.trim().replace(/^[$€£]/, "").replace(/,(?=\d{3}(\D|$))/g, "");
+  const s = text
+    .trim()
+    .replace(/^[$€£]/, "")
+    .replace(/,(?=\d{3}(\D|$))/g, "");
   const m = /^(\d{1,9})(?:\.(\d{1,2}))?$/.exec(s);
   if (!m) return null;
   return Number(m[1]) * 100 + Number((m[2] ?? "").padEnd(2, "0"));

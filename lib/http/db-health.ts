@@ -1,5 +1,7 @@
 import "server-only";
+
 import { sql } from "drizzle-orm";
+
 import { db } from "@/db";
 
 const TTL_MS = 1000;
@@ -16,7 +18,10 @@ export async function databaseAnswering(): Promise<boolean> {
   if (now - last.at < (last.ok ? TTL_MS : DOWN_TTL_MS)) return last.ok;
   if (last.pending) return last.pending;
   const probe = Promise.race([
-    db.execute(sql`select 1`).then(() => true, () => false),
+    db.execute(sql`select 1`).then(
+      () => true,
+      () => false,
+    ),
     new Promise<boolean>((resolve) => setTimeout(() => resolve(false), 2000).unref?.()),
   ]);
   last.pending = probe;

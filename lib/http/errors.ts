@@ -1,6 +1,7 @@
 import { ZodError } from "zod";
-import { CalcInputError } from "@/lib/calc";
+
 import { HttpError } from "@/lib/auth/errors";
+import { CalcInputError } from "@/lib/calc";
 
 export interface FieldIssue {
   path: string;
@@ -9,32 +10,86 @@ export interface FieldIssue {
 
 /** Field issues of a ZodError as `a.b.0` paths. */
 export function zodIssues(err: ZodError): FieldIssue[] {
-  return err.issues.map((i) => ({ path: i.path.map(String).join(".") || "(body)", message: i.message }));
+  return err.issues.map((i) => ({
+    path: i.path.map(String).join(".") || "(body)",
+    message: i.message,
+  }));
 }
 
 /** Turns any error into a JSON response: 4xx for what the caller did, 500 without details otherwise. */
 export function errorResponse(err: unknown): Response {
   if (err instanceof ZodError) {
-    return Response.json({ error: { code: "invalid_input", message: "Some fields are not valid", issues: zodIssues(err) } }, { status: 422 });
+    return Response.json(
+      {
+        error: {
+          code: "invalid_input",
+          message: "Some fields are not valid",
+          issues: zodIssues(err),
+        },
+      },
+      { status: 422 },
+    );
   }
   if (err instanceof CalcInputError) {
-    return Response.json({ error: { code: "invalid_input", message: err.message, issues: [{ path: err.field, message: err.message }] } }, { status: 422 });
+    return Response.json(
+      {
+        error: {
+          code: "invalid_input",
+          message: err.message,
+          issues: [{ path: err.field, message: err.message }],
+        },
+      },
+      { status: 422 },
+    );
   }
   if (err instanceof HttpError) {
-    return Response.json({ error: { code: err.code, message: err.message } }, { status: err.status, headers: err.status === 503 ? { "Retry-After": "5" } : undefined });
+    return Response.json(
+      { error: { code: err.code, message: err.message } },
+      { status: err.status, headers: err.status === 503 ? { "Retry-After": "5" } : undefined },
+    );
   }
   if (isDatabaseDown(err)) {
-    return Response.json({ error: { code: "unavailable", message: "The database is not answering; try again in a moment" } }, { status: 503, headers: { "Retry-After": "5" } });
+    return Response.json(
+      {
+        error: {
+          code: "unavailable",
+          message: "The database is not answering; try again in a moment",
+        },
+      },
+      { status: 503, headers: { "Retry-After": "5" } },
+    );
   }
   console.error(err);
-  return Response.json({ error: { code: "internal", message: "Something went wrong on our side" } }, { status: 500 });
+  return Response.json(
+    { error: { code: "internal", message: "Something went wrong on our side" } },
+    { status: 500 },
+  );
 }
 
-const DB_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
+const DB_DOWN_CODES = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "EPIPE",
+  "CONNECT_TIMEOUT",
+  "CONNECTION_CLOSED",
+  "CONNECTION_ENDED",
+  "CONNECTION_DESTROYED",
+  "57P01",
+  "57P02",
+  "57P03",
+  "08000",
+  "08001",
+  "08003",
+  "08006",
+]);
 
 /** Is this (or what caused it: drizzle and better-auth wrap driver errors) the database being away? */
 export function isDatabaseDown(err: unknown): boolean {
-  for (let e = err, depth = 0; e && typeof e === "object" && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+  for (
+    let e = err, depth = 0;
+    e && typeof e === "object" && depth < 5;
+    e = (e as { cause?: unknown }).cause, depth++
+  ) {
     const code = (e as { code?: unknown }).code;
     if (typeof code === "string" && DB_DOWN_CODES.has(code)) return true;
     if (e instanceof AggregateError && e.errors.some((x) => isDatabaseDown(x))) return true;
@@ -47,7 +102,8 @@ const MAX_BODY_BYTES = 256 * 1024;
 /** Reads a JSON body with a size limit; bad JSON or too large → 4xx. */
 export async function readJson(req: Request): Promise<unknown> {
   const length = Number(req.headers.get("content-length") ?? "0");
-  if (length > MAX_BODY_BYTES) throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
+  if (length > MAX_BODY_BYTES)
+    throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
   const text = await readLimited(req);
   if (!text.trim()) throw new HttpError(400, "empty_body", "Send a JSON body");
   try {
@@ -64,18 +120,24 @@ export async function readText(req: Request, max: number, what = "file"): Promis
   if (length > max) throw new HttpError(413, "too_large", limitMsg);
   const text = await readLimited(req, max, limitMsg);
   if (!text.trim()) throw new HttpError(400, "empty_body", `The ${what} is empty`);
-  if (text.includes("\u0000")) throw new HttpError(415, "not_text", `The ${what} is not a text (CSV) file`);
+  if (text.includes("\u0000"))
+    throw new HttpError(415, "not_text", `The ${what} is not a text (CSV) file`);
   return text;
 }
 
-async function readLimited(req: Request, max = MAX_BODY_BYTES, limitMsg = `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`): Promise<string> {
+async function readLimited(
+  req: Request,
+  max = MAX_BODY_BYTES,
+  limitMsg = `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`,
+): Promise<string> {
   return new TextDecoder().decode(await readBytesLimited(req, max, limitMsg));
 }
 
 /** Reads a binary body (an image upload) up to `max` bytes; larger → 413, empty → 400. */
 export async function readBytes(req: Request, max: number, what = "file"): Promise<Buffer> {
   const limitMsg = `The ${what} is larger than ${max >= 1024 * 1024 ? `${Math.round(max / 1024 / 1024)} MB` : `${Math.round(max / 1024)} KiB`}`;
-  if (Number(req.headers.get("content-length") ?? "0") > max) throw new HttpError(413, "too_large", limitMsg);
+  if (Number(req.headers.get("content-length") ?? "0") > max)
+    throw new HttpError(413, "too_large", limitMsg);
   const bytes = await readBytesLimited(req, max, limitMsg);
   if (bytes.length === 0) throw new HttpError(400, "empty_body", `The ${what} is empty`);
   return bytes;

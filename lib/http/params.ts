@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import { NotFoundError } from "@/lib/auth/errors";
 
 export type IdCtx = { params: Promise<{ id: string }> };

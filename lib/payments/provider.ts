@@ -1,5 +1,7 @@
 import "server-only";
+
 import Stripe from "stripe";
+
 import { HttpError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
 
@@ -22,7 +24,13 @@ export function payments(): Stripe {
     maxNetworkRetries: url ? 0 : 2,
     telemetry: false,
     timeout: 10_000,
-    ...(url ? { host: url.hostname, port: Number(url.port || (url.protocol === "https:" ? 443 : 80)), protocol: url.protocol.replace(":", "") as "http" | "https" } : {}),
+    ...(url
+      ? {
+          host: url.hostname,
+          port: Number(url.port || (url.protocol === "https:" ? 443 : 80)),
+          protocol: url.protocol.replace(":", "") as "http" | "https",
+        }
+      : {}),
   });
   return client;
 }
@@ -31,7 +39,11 @@ export function payments(): Stripe {
 export function verifiedEvent(rawBody: string, signature: string | null): Stripe.Event {
   if (!signature) throw new HttpError(400, "bad_signature", "The webhook has no signature header");
   try {
-    return payments().webhooks.constructEvent(rawBody, signature, serverEnv().STRIPE_WEBHOOK_SECRET);
+    return payments().webhooks.constructEvent(
+      rawBody,
+      signature,
+      serverEnv().STRIPE_WEBHOOK_SECRET,
+    );
   } catch {
     throw new HttpError(400, "bad_signature", "The webhook signature does not match");
   }

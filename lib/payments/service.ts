@@ -1,11 +1,21 @@
 import "server-only";
+
 import type Stripe from "stripe";
-import { confirmPayment, listPayments, markPaymentExpired, markPaymentPaid, onceForEvent, recordPendingPayment } from "@/db/queries/payments";
+
+import {
+  confirmPayment,
+  listPayments,
+  markPaymentExpired,
+  markPaymentPaid,
+  onceForEvent,
+  recordPendingPayment,
+} from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { quoteLabel } from "@/lib/catalog/labels";
 import { serverEnv } from "@/lib/env";
+
 import { depositOf } from "./deposit";
 import { payments, verifiedEvent } from "./provider";
 
@@ -14,7 +24,11 @@ async function provider<T>(call: () => Promise<T>): Promise<T> {
     return await call();
   } catch (e) {
     console.error("payment provider:", (e as Error).message);
-    throw new HttpError(502, "payments_unavailable", "The payment service is not answering; nothing was charged. Try again in a moment.");
+    throw new HttpError(
+      502,
+      "payments_unavailable",
+      "The payment service is not answering; nothing was charged. Try again in a moment.",
+    );
   }
 }
 
@@ -22,10 +36,21 @@ async function provider<T>(call: () => Promise<T>): Promise<T> {
  * Opens (or reopens) a checkout for the deposit on the customer's own accepted quote and returns
  * the provider's page to send them to.
  */
-export async function startDeposit(shopId: string, userId: string, quoteId: string): Promise<{ url: string; amountMinor: number }> {
+export async function startDeposit(
+  shopId: string,
+  userId: string,
+  quoteId: string,
+): Promise<{ url: string; amountMinor: number }> {
   const q = await getQuote(shopId, quoteId, userId);
   if (!q) throw new NotFoundError("That quote");
-  if (q.quote.status !== "accepted") throw new HttpError(409, "not_awaiting_deposit", q.quote.status === "deposit_paid" ? "The deposit on this quote is already paid" : "Accept the quote before paying its deposit");
+  if (q.quote.status !== "accepted")
+    throw new HttpError(
+      409,
+      "not_awaiting_deposit",
+      q.quote.status === "deposit_paid"
+        ? "The deposit on this quote is already paid"
+        : "Accept the quote before paying its deposit",
+    );
   const settings = await getShopSettings(shopId);
   const amountMinor = depositOf(q.quote.totalMinor, settings?.settings.depositBp ?? 3000);
   if (amountMinor <= 0) throw new HttpError(422, "no_deposit", "This quote asks for no deposit");
@@ -40,7 +65,18 @@ export async function startDeposit(shopId: string, userId: string, quoteId: stri
   const session = await provider(() =>
     stripe.checkout.sessions.create({
       mode: "payment",
-      line_items: [{ quantity: 1, price_data: { currency: q.quote.currency.toLowerCase(), unit_amount: amountMinor, product_data: { name: `Deposit (${pct} %) on quote ${quoteLabel(q.quote.number, q.quote.revision)}` } } }],
+      line_items: [
+        {
+          quantity: 1,
+          price_data: {
+            currency: q.quote.currency.toLowerCase(),
+            unit_amount: amountMinor,
+            product_data: {
+              name: `Deposit (${pct} %) on quote ${quoteLabel(q.quote.number, q.quote.revision)}`,
+            },
+          },
+        },
+      ],
       customer_email: q.customerEmail ?? undefined,
       client_reference_id: quoteId,
       metadata: { shop_id: shopId, quote_id: quoteId },
@@ -48,13 +84,26 @@ export async function startDeposit(shopId: string, userId: string, quoteId: stri
       cancel_url: `${serverEnv().APP_URL}/my/quotes/${quoteId}?payment=cancelled`,
     }),
   );
-  if (!session.url) throw new HttpError(502, "payments_unavailable", "The payment service gave no checkout page");
-  await recordPendingPayment({ shopId, quoteId, checkoutSessionId: session.id, amountMinor, currency: q.quote.currency, createdBy: userId });
+  if (!session.url)
+    throw new HttpError(502, "payments_unavailable", "The payment service gave no checkout page");
+  await recordPendingPayment({
+    shopId,
+    quoteId,
+    checkoutSessionId: session.id,
+    amountMinor,
+    currency: q.quote.currency,
+    createdBy: userId,
+  });
   return { url: session.url, amountMinor };
 }
 
 /** The customer is back from checkout: ask the provider, and record the payment if it is paid. */
-export async function confirmReturn(shopId: string, userId: string, quoteId: string, sessionId: string): Promise<"paid" | "already" | "unpaid"> {
+export async function confirmReturn(
+  shopId: string,
+  userId: string,
+  quoteId: string,
+  sessionId: string,
+): Promise<"paid" | "already" | "unpaid"> {
   const q = await getQuote(shopId, quoteId, userId);
   if (!q) throw new NotFoundError("That quote");
   const mine = (await listPayments(shopId, quoteId)).some((p) => p.checkoutSessionId === sessionId);
@@ -66,7 +115,9 @@ export async function confirmReturn(shopId: string, userId: string, quoteId: str
 }
 
 function sessionOf(event: Stripe.Event): Stripe.Checkout.Session | null {
-  return event.type.startsWith("checkout.session.") ? (event.data.object as Stripe.Checkout.Session) : null;
+  return event.type.startsWith("checkout.session.")
+    ? (event.data.object as Stripe.Checkout.Session)
+    : null;
 }
 
 /**
@@ -76,16 +127,24 @@ function sessionOf(event: Stripe.Event): Stripe.Checkout.Session | null {
 export async function handlePaymentWebhook(rawBody: string, signature: string | null) {
   const event = verifiedEvent(rawBody, signature);
   const session = sessionOf(event);
-  const outcome = await onceForEvent({ id: event.id, type: event.type, checkoutSessionId: session?.id ?? null }, async (tx) => {
-    if (!session) return "ignored";
-    if (event.type === "checkout.session.completed" || event.type === "checkout.session.async_payment_succeeded") {
-      return session.payment_status === "paid" ? markPaymentPaid(tx, session.id, event.id) : "unpaid";
-    }
-    if (event.type === "checkout.session.expired") {
-      await markPaymentExpired(tx, session.id);
-      return "expired";
-    }
-    return "ignored";
-  });
+  const outcome = await onceForEvent(
+    { id: event.id, type: event.type, checkoutSessionId: session?.id ?? null },
+    async (tx) => {
+      if (!session) return "ignored";
+      if (
+        event.type === "checkout.session.completed" ||
+        event.type === "checkout.session.async_payment_succeeded"
+      ) {
+        return session.payment_status === "paid"
+          ? markPaymentPaid(tx, session.id, event.id)
+          : "unpaid";
+      }
+      if (event.type === "checkout.session.expired") {
+        await markPaymentExpired(tx, session.id);
+        return "expired";
+      }
+      return "ignored";
+    },
+  );
   return { received: true, event: event.id, outcome: outcome ?? "duplicate" };
 }

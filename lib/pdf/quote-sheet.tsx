@@ -1,11 +1,19 @@
-import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
+import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+
 import { SAFETY_POINTS } from "@/lib/safety";
-import { COPPER, Letterhead, MUTED, base, pdfText, type PdfShop } from "./common";
+
+import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
 
 const s = {
   ...base,
   ...StyleSheet.create({
-    th: { fontWeight: 700, color: MUTED, paddingVertical: 3, borderBottomWidth: 0.5, borderBottomColor: MUTED },
+    th: {
+      fontWeight: 700,
+      color: MUTED,
+      paddingVertical: 3,
+      borderBottomWidth: 0.5,
+      borderBottomColor: MUTED,
+    },
     td: { paddingVertical: 3, borderBottomWidth: 0.3, borderBottomColor: "#d9dee3" },
     num: { textAlign: "right" },
     total: { flexDirection: "row", justifyContent: "flex-end", gap: 12, paddingVertical: 1.5 },
@@ -14,11 +22,31 @@ const s = {
 
 export interface QuoteSheetData {
   shop: PdfShop;
-  quote: { label: string; status: string; createdAt: Date; validUntil: string; notes: string | null; currency: string };
+  quote: {
+    label: string;
+    status: string;
+    createdAt: Date;
+    validUntil: string;
+    notes: string | null;
+    currency: string;
+  };
   customer: { name: string; email: string | null };
   buildTitle: string | null;
-  lines: { sku: string | null; description: string; quantity: string; unitPrice: string; discount: string | null; net: string }[];
-  totals: { subtotal: string; discount: string | null; taxRatePct: string; tax: string; total: string };
+  lines: {
+    sku: string | null;
+    description: string;
+    quantity: string;
+    unitPrice: string;
+    discount: string | null;
+    net: string;
+  }[];
+  totals: {
+    subtotal: string;
+    discount: string | null;
+    taxRatePct: string;
+    tax: string;
+    total: string;
+  };
   deposit: { pct: string; amount: string; paid: string | null } | null;
 }
 
@@ -32,9 +60,21 @@ const COLS = [
 
 function QuoteSheet({ d }: { d: QuoteSheetData }) {
   return (
-    <Document title={`Quote ${d.quote.label}`} author={d.shop.name} subject="Fuel system quote" creator="Fuelwright">
+    <Document
+      title={`Quote ${d.quote.label}`}
+      author={d.shop.name}
+      subject="Fuel system quote"
+      creator="Fuelwright"
+    >
       <Page size="A4" style={s.page}>
-        <Letterhead shop={d.shop} title={`Quote ${d.quote.label}`} lines={[`${d.quote.status} · issued ${d.quote.createdAt.toISOString().slice(0, 10)}`, `Valid until ${d.quote.validUntil}`]} />
+        <Letterhead
+          shop={d.shop}
+          title={`Quote ${d.quote.label}`}
+          lines={[
+            `${d.quote.status} · issued ${d.quote.createdAt.toISOString().slice(0, 10)}`,
+            `Valid until ${d.quote.validUntil}`,
+          ]}
+        />
         <View style={[s.row, { marginTop: 8 }]}>
           <View style={s.col}>
             <Text style={s.h2}>For</Text>
@@ -43,13 +83,19 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
           </View>
           <View style={s.col}>
             <Text style={s.h2}>Work</Text>
-            <Text>{d.buildTitle ? `Fuel system for ${d.buildTitle}` : "Fuel system parts and labour"}</Text>
+            <Text>
+              {d.buildTitle ? `Fuel system for ${d.buildTitle}` : "Fuel system parts and labour"}
+            </Text>
           </View>
         </View>
 
         <Text style={s.h2}>Lines</Text>
         <View style={{ flexDirection: "row" }}>
-          {COLS.map((c) => <Text key={c.key} style={[s.th, { width: c.width }, "num" in c ? s.num : {}]}>{c.label}</Text>)}
+          {COLS.map((c) => (
+            <Text key={c.key} style={[s.th, { width: c.width }, "num" in c ? s.num : {}]}>
+              {c.label}
+            </Text>
+          ))}
         </View>
         {d.lines.map((l, i) => (
           <View key={i} style={{ flexDirection: "row" }} wrap={false}>
@@ -64,16 +110,41 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
           </View>
         ))}
         <View style={{ marginTop: 6 }}>
-          <View style={s.total}><Text>Subtotal</Text><Text style={{ width: 80, textAlign: "right" }}>{d.totals.subtotal}</Text></View>
-          {d.totals.discount ? <View style={s.total}><Text>Discounts</Text><Text style={{ width: 80, textAlign: "right" }}>-{d.totals.discount}</Text></View> : null}
-          <View style={s.total}><Text>Tax ({d.totals.taxRatePct} %)</Text><Text style={{ width: 80, textAlign: "right" }}>{d.totals.tax}</Text></View>
-          <View style={[s.total, { borderTopWidth: 1, borderTopColor: COPPER, marginTop: 2, paddingTop: 3 }]}><Text style={{ fontWeight: 700, fontSize: 10 }}>Total</Text><Text style={{ width: 80, textAlign: "right", fontWeight: 700, fontSize: 10 }}>{d.totals.total}</Text></View>
+          <View style={s.total}>
+            <Text>Subtotal</Text>
+            <Text style={{ width: 80, textAlign: "right" }}>{d.totals.subtotal}</Text>
+          </View>
+          {d.totals.discount ? (
+            <View style={s.total}>
+              <Text>Discounts</Text>
+              <Text style={{ width: 80, textAlign: "right" }}>-{d.totals.discount}</Text>
+            </View>
+          ) : null}
+          <View style={s.total}>
+            <Text>Tax ({d.totals.taxRatePct} %)</Text>
+            <Text style={{ width: 80, textAlign: "right" }}>{d.totals.tax}</Text>
+          </View>
+          <View
+            style={[
+              s.total,
+              { borderTopWidth: 1, borderTopColor: COPPER, marginTop: 2, paddingTop: 3 },
+            ]}
+          >
+            <Text style={{ fontWeight: 700, fontSize: 10 }}>Total</Text>
+            <Text style={{ width: 80, textAlign: "right", fontWeight: 700, fontSize: 10 }}>
+              {d.totals.total}
+            </Text>
+          </View>
         </View>
 
         {d.deposit ? (
           <View style={{ marginTop: 8 }}>
             <Text style={s.h2}>Deposit</Text>
-            <Text>{d.deposit.paid ? `Deposit of ${d.deposit.amount} received ${d.deposit.paid}. Thank you.` : `A deposit of ${d.deposit.pct} % (${d.deposit.amount}) is asked when the quote is accepted; the shop orders the parts once it is paid. Pay it from your portal.`}</Text>
+            <Text>
+              {d.deposit.paid
+                ? `Deposit of ${d.deposit.amount} received ${d.deposit.paid}. Thank you.`
+                : `A deposit of ${d.deposit.pct} % (${d.deposit.amount}) is asked when the quote is accepted; the shop orders the parts once it is paid. Pay it from your portal.`}
+            </Text>
           </View>
         ) : null}
         {d.quote.notes ? (
@@ -85,9 +156,17 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
 
         <View style={s.caution} wrap={false}>
           <Text style={{ fontWeight: 700 }}>Fuel burns.</Text>
-          {SAFETY_POINTS.filter((_, i) => i !== 2).map((p) => <Text key={p}>- {p}</Text>)}
+          {SAFETY_POINTS.filter((_, i) => i !== 2).map((p) => (
+            <Text key={p}>- {p}</Text>
+          ))}
         </View>
-        <Text style={[s.muted, { position: "absolute", bottom: 16, left: 32, right: 32, fontSize: 7 }]} fixed render={({ pageNumber, totalPages }) => `Quote ${d.quote.label} · ${d.shop.name} · page ${pageNumber} of ${totalPages} · prices in ${d.quote.currency}`} />
+        <Text
+          style={[s.muted, { position: "absolute", bottom: 16, left: 32, right: 32, fontSize: 7 }]}
+          fixed
+          render={({ pageNumber, totalPages }) =>
+            `Quote ${d.quote.label} · ${d.shop.name} · page ${pageNumber} of ${totalPages} · prices in ${d.quote.currency}`
+          }
+        />
       </Page>
     </Document>
   );

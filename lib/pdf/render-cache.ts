@@ -1,7 +1,10 @@
 import "server-only";
+
 import { createHash } from "node:crypto";
+
 import { LRUCache } from "lru-cache";
 import pLimit from "p-limit";
+
 import { HttpError } from "@/lib/auth/errors";
 
 /**
@@ -17,7 +20,10 @@ import { HttpError } from "@/lib/auth/errors";
 export const PDF_CACHE_BYTES = 64 * 1024 * 1024;
 export const PDF_QUEUE_LIMIT = 24;
 
-const cache = new LRUCache<string, Buffer>({ maxSize: PDF_CACHE_BYTES, sizeCalculation: (b) => Math.max(1, b.length) });
+const cache = new LRUCache<string, Buffer>({
+  maxSize: PDF_CACHE_BYTES,
+  sizeCalculation: (b) => Math.max(1, b.length),
+});
 const inFlight = new Map<string, Promise<Buffer>>();
 const renders = pLimit(1);
 
@@ -39,12 +45,17 @@ function digestable(v: unknown): unknown {
   if (v instanceof Uint8Array) return `bytes:${sha256(v)}`;
   if (v instanceof Date) return v.toISOString();
   if (Array.isArray(v)) return v.map(digestable);
-  if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, digestable(x)]));
+  if (v && typeof v === "object")
+    return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, digestable(x)]));
   return v;
 }
 
 /** The PDF for `data`: from the cache, from a render already running, or rendered now. */
-export async function cachedPdf<T>(kind: string, data: T, render: (data: T) => Promise<Buffer>): Promise<Buffer> {
+export async function cachedPdf<T>(
+  kind: string,
+  data: T,
+  render: (data: T) => Promise<Buffer>,
+): Promise<Buffer> {
   const key = pdfKey(kind, data);
   const hit = cache.get(key);
   if (hit) return hit;
@@ -63,7 +74,12 @@ export async function cachedPdf<T>(kind: string, data: T, render: (data: T) => P
 
 /** For tests: how full the cache is and how many renders wait. */
 export function pdfCacheStats() {
-  return { entries: cache.size, bytes: cache.calculatedSize, queued: renders.pendingCount, rendering: renders.activeCount };
+  return {
+    entries: cache.size,
+    bytes: cache.calculatedSize,
+    queued: renders.pendingCount,
+    rendering: renders.activeCount,
+  };
 }
 
 /** For tests: forget every cached sheet. */

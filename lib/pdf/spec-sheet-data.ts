@@ -1,38 +1,88 @@
 import "server-only";
+
 import { getBuild, getRevision } from "@/db/queries/builds";
 import { latestVerifiedDatalog } from "@/db/queries/datalogs";
 import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { NotFoundError } from "@/lib/auth/errors";
-import { FuelSystemInputSchema, sizeParsedFuelSystem, CALC_VERSION, type FuelSystemResult } from "@/lib/calc";
+import {
+  CALC_VERSION,
+  FuelSystemInputSchema,
+  sizeParsedFuelSystem,
+  type FuelSystemResult,
+} from "@/lib/calc";
+
 import type { SpecSheetData } from "./spec-sheet";
 
 /** Everything a spec sheet prints, from a saved revision (the latest unless `version` is given). */
-export async function specSheetData(shopId: string, buildId: string, opts: { version?: number; portalUserId?: string; viewerId?: string }): Promise<SpecSheetData> {
+export async function specSheetData(
+  shopId: string,
+  buildId: string,
+  opts: { version?: number; portalUserId?: string; viewerId?: string },
+): Promise<SpecSheetData> {
   const row = await getBuild(shopId, buildId, opts.portalUserId);
   if (!row) throw new NotFoundError("That build");
   const rev = await getRevision(shopId, buildId, opts.version ?? row.build.version);
   if (!rev) throw new NotFoundError(`Version ${opts.version} of that build`);
-  const [settings, logo, log] = await Promise.all([getShopSettings(shopId), pdfLogo(shopId), rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null]);
+  const [settings, logo, log] = await Promise.all([
+    getShopSettings(shopId),
+    pdfLogo(shopId),
+    rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null,
+  ]);
   const input = FuelSystemInputSchema.parse(rev.inputs);
   const stored = rev.result as FuelSystemResult | null;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
   // Staff see their own units; customers and share links the shop's.
-  const units = opts.viewerId && !opts.portalUserId ? await unitSystemOf(opts.viewerId, shopId) : (settings?.settings.units ?? "metric");
+  const units =
+    opts.viewerId && !opts.portalUserId
+      ? await unitSystemOf(opts.viewerId, shopId)
+      : (settings?.settings.units ?? "metric");
   return {
-    shop: { name: settings?.name ?? "", address: settings?.settings.address ?? null, phone: settings?.settings.phone ?? null, logo },
-    build: { title: row.build.title, vehicle: row.build.vehicle, customerName: row.customerName, version: rev.version, savedAt: rev.createdAt, tunerName: await userName(row.build.tunerId) },
+    shop: {
+      name: settings?.name ?? "",
+      address: settings?.settings.address ?? null,
+      phone: settings?.settings.phone ?? null,
+      logo,
+    },
+    build: {
+      title: row.build.title,
+      vehicle: row.build.vehicle,
+      customerName: row.customerName,
+      version: rev.version,
+      savedAt: rev.createdAt,
+      tunerName: await userName(row.build.tunerId),
+    },
     input,
     result,
     parts: rev.parts,
     units,
-    verification: log?.analysis && log.verifiedAt ? { fileName: log.fileName, verifiedAt: log.verifiedAt, analysis: log.analysis as NonNullable<SpecSheetData["verification"]>["analysis"] } : null,
+    verification:
+      log?.analysis && log.verifiedAt
+        ? {
+            fileName: log.fileName,
+            verifiedAt: log.verifiedAt,
+            analysis: log.analysis as NonNullable<SpecSheetData["verification"]>["analysis"],
+          }
+        : null,
   };
 }
 
-export const pdfFileName = (title: string, version: number) => `${title.replace(/[^\w.-]+/g, "-").replace(/^-+|-+$/g, "").slice(0, 60) || "build"}-v${version}.pdf`;
+export const pdfFileName = (title: string, version: number) =>
+  `${
+    title
+      .replace(/[^\w.-]+/g, "-")
+      .replace(/^-+|-+$/g, "")
+      .slice(0, 60) || "build"
+  }-v${version}.pdf`;
 
 /** The PDF as a response: shown in the browser, never cached by shared caches. */
 export const pdfResponse = (pdf: Buffer, fileName: string, extra: Record<string, string> = {}) =>
-  new Response(new Uint8Array(pdf), { headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${fileName}"`, "cache-control": "private, no-store", ...extra } });
+  new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `inline; filename="${fileName}"`,
+      "cache-control": "private, no-store",
+      ...extra,
+    },
+  });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import { BUILD_STATUSES, type BuildStatus } from "@/db/schema/builds";
 import { FuelSystemInputSchema } from "@/lib/calc";
 
@@ -21,7 +22,8 @@ export const STATUS_LABELS: Record<BuildStatus, string> = {
   verified: "Verified",
 };
 
-const text = (label: string, max: number) => z.string().trim().max(max, `${label} is too long (at most ${max} characters)`);
+const text = (label: string, max: number) =>
+  z.string().trim().max(max, `${label} is too long (at most ${max} characters)`);
 
 export const BuildCreateSchema = z.object({
   customerId: z.uuid("Choose a customer"),
@@ -43,7 +45,9 @@ export const BuildListQuery = z.object({
   q: z.string().trim().max(100, "Search is too long").optional(),
   status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
   tuner: z.string().trim().min(1).max(64, "Unknown tuner").optional(),
-  sort: z.enum(["updated", "created", "title"], { error: "Sort by updated, created or title" }).default("updated"),
+  sort: z
+    .enum(["updated", "created", "title"], { error: "Sort by updated, created or title" })
+    .default("updated"),
   cursor: z.string().max(400).optional(),
   limit: z.coerce.number().int().min(1).max(100).default(25),
 });

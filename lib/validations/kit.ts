@@ -1,9 +1,18 @@
 import { z } from "zod";
+
 import { KIT_ROLES } from "@/db/schema/builds";
 
 /** The parts chosen for a build, by role. */
 export const KitChoiceSchema = z.object({
   version: z.number({ error: "version is required" }).int().min(1),
-  parts: z.array(z.object({ role: z.enum(KIT_ROLES, { error: "Unknown kit role" }), partId: z.uuid("Unknown part"), quantity: z.number().int().min(1).max(100) })).min(1, "Choose at least one part").max(20),
+  parts: z
+    .array(
+      z.object({
+        role: z.enum(KIT_ROLES, { error: "Unknown kit role" }),
+        partId: z.uuid("Unknown part"),
+        quantity: z.number().int().min(1).max(100),
+      }),
+    )
+    .min(1, "Choose at least one part")
+    .max(20),
 });
-

@@ -4,11 +4,12 @@
  * Run: npm run bench
  */
 import { Bench } from "tinybench";
+
 import {
-  FuelSystemInputSchema,
   cycleTimeMs,
-  fuelBlend,
   defaultBsfc,
+  fuelBlend,
+  FuelSystemInputSchema,
   injectorDutyPct,
   injectorFlowAtPressure,
   sizeFuelSystem,
@@ -26,11 +27,23 @@ function sweep(): number {
   const crankKw = 450 / 0.85;
   for (const e of [parsed.fuel.ethanolMinVolPct, parsed.fuel.ethanolMaxVolPct]) {
     const b = fuelBlend(e);
-    const bsfc = defaultBsfc({ ethanolVolPct: e, aspiration: parsed.engine.aspiration }).bsfcGPerKwh;
+    const bsfc = defaultBsfc({
+      ethanolVolPct: e,
+      aspiration: parsed.engine.aspiration,
+    }).bsfcGPerKwh;
     const mdot = (crankKw * bsfc) / 60;
     for (const flow of candidates) {
-      const q = injectorFlowAtPressure({ ratedFlowCcPerMin: flow, ratedPressureKpa: 300, differentialPressureKpa: 400 });
-      const dutyAtRedline = injectorDutyPct({ fuelMassFlowGPerMin: mdot, densityKgPerL: b.densityKgPerL, injectorCount: 6, flowAtOperatingCcPerMin: q });
+      const q = injectorFlowAtPressure({
+        ratedFlowCcPerMin: flow,
+        ratedPressureKpa: 300,
+        differentialPressureKpa: 400,
+      });
+      const dutyAtRedline = injectorDutyPct({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: 6,
+        flowAtOperatingCcPerMin: q,
+      });
       for (const rpm of rpms) {
         const duty = (dutyAtRedline * rpm) / parsed.engine.redlineRpm;
         acc += (duty / 100) * cycleTimeMs(rpm);
@@ -57,7 +70,11 @@ await bench.run();
 const rows = bench.tasks.map((t) => {
   const samples = [...(t.result?.samples ?? [])].sort((a, b) => a - b);
   const medianMs = samples.length ? samples[Math.floor(samples.length / 2)]! : Number.NaN;
-  return { task: t.name, "median µs": Number((medianMs * 1000).toFixed(2)), samples: samples.length };
+  return {
+    task: t.name,
+    "median µs": Number((medianMs * 1000).toFixed(2)),
+    samples: samples.length,
+  };
 });
 console.table(rows);
 console.log(`goal: one sizing < 20 µs, sweep < 5 ms (sink ${sink > 0 ? "ok" : "?"})`);

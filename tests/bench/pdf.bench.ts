@@ -9,13 +9,21 @@ import { boostedSix } from "../calc/fixtures";
 const input = FuelSystemInputSchema.parse(boostedSix);
 const data: SpecSheetData = {
   shop: { name: "Bench Shop", address: "1 Bench Road", phone: "555-0000" },
-  build: { title: "Bench build", vehicle: "Bench vehicle", customerName: "Bench Customer", version: 4, savedAt: new Date(), tunerName: "Bench Tuner" },
+  build: {
+    title: "Bench build",
+    vehicle: "Bench vehicle",
+    customerName: "Bench Customer",
+    version: 4,
+    savedAt: new Date(),
+    tunerName: "Bench Tuner",
+  },
   input,
   result: sizeParsedFuelSystem(input),
   parts: [{ role: "injector", partId: "p", sku: "B-1", name: "Bench injector", quantity: 6 }],
   units: "imperial",
 };
-const q = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))]!;
+const q = (xs: number[], p: number) =>
+  [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))]!;
 
 for (let i = 0; i < 3; i++) await renderSpecSheet(data); // warm-up (fonts, layout caches)
 const ms: number[] = [];
@@ -27,14 +35,26 @@ for (let i = 0; i < 30; i++) {
 const N = 24;
 const t0 = performance.now();
 let next = 0;
-await Promise.all(Array.from({ length: 4 }, async () => {
-  while (next < N) {
-    next++;
-    await renderSpecSheet(data);
-  }
-}));
+await Promise.all(
+  Array.from({ length: 4 }, async () => {
+    while (next < N) {
+      next++;
+      await renderSpecSheet(data);
+    }
+  }),
+);
 const secs = (performance.now() - t0) / 1000;
 console.table([
-  { case: "one render, sequential", runs: ms.length, "p50 ms": +q(ms, 0.5).toFixed(1), "p95 ms": +q(ms, 0.95).toFixed(1) },
-  { case: "4 at a time", runs: N, "renders/s": +(N / secs).toFixed(1), "mean ms": +((secs * 1000) / N).toFixed(1) },
+  {
+    case: "one render, sequential",
+    runs: ms.length,
+    "p50 ms": +q(ms, 0.5).toFixed(1),
+    "p95 ms": +q(ms, 0.95).toFixed(1),
+  },
+  {
+    case: "4 at a time",
+    runs: N,
+    "renders/s": +(N / secs).toFixed(1),
+    "mean ms": +((secs * 1000) / N).toFixed(1),
+  },
 ]);

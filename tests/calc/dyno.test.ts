@@ -1,9 +1,30 @@
 import { describe, expect, it } from "vitest";
-import { DatalogError, DatalogMappingSchema, analyzePull, flowFromDuty, headerKey, mappingProblems, parseDatalog, sampleDutyPct, samplesFromLog, suggestMapping, type PullContext, type PullSample } from "@/lib/calc";
+
+import {
+  analyzePull,
+  DatalogError,
+  DatalogMappingSchema,
+  flowFromDuty,
+  headerKey,
+  mappingProblems,
+  parseDatalog,
+  sampleDutyPct,
+  samplesFromLog,
+  suggestMapping,
+  type PullContext,
+  type PullSample,
+} from "@/lib/calc";
 
 // A synthetic pull built in the test from known inputs (no outside source needed: the checks
 // are that the analysis recovers what was put in). Injector data: 1000 cc/min at 300 kPa, 6 of them.
-const ctx: PullContext = { injectorCount: 6, ratedFlowCcPerMin: 1000, ratedPressureKpa: 300, densityKgPerL: 0.787, targetLambda: 0.78, dutyDangerPct: 90 };
+const ctx: PullContext = {
+  injectorCount: 6,
+  ratedFlowCcPerMin: 1000,
+  ratedPressureKpa: 300,
+  densityKgPerL: 0.787,
+  targetLambda: 0.78,
+  dutyDangerPct: 90,
+};
 function pull(opts: { leanAt?: number; diffDropKpa?: number } = {}): PullSample[] {
   const out: PullSample[] = [];
   for (let rpm = 3000; rpm <= 7000; rpm += 50) {
@@ -12,7 +33,10 @@ function pull(opts: { leanAt?: number; diffDropKpa?: number } = {}): PullSample[
     out.push({
       rpm,
       dutyPct: 40 + 40 * f, // 80 % at 7000 rpm
-      lambda: opts.leanAt !== undefined && Math.abs(rpm - opts.leanAt) < 1 ? 0.86 : 0.78 + 0.01 * Math.sin(rpm),
+      lambda:
+        opts.leanAt !== undefined && Math.abs(rpm - opts.leanAt) < 1
+          ? 0.86
+          : 0.78 + 0.01 * Math.sin(rpm),
       boostKpa,
       fuelDiffKpa: 300 - (boostKpa > 100 ? (opts.diffDropKpa ?? 0) : 0),
       powerKw: 100 + 250 * f, // 350 kW at 7000 rpm
@@ -60,7 +84,14 @@ describe("pull analysis", () => {
     // 10 ms at 6000 rpm: cycle 20 ms → 50 % (by hand).
     expect(sampleDutyPct({ rpm: 6000, pulseMs: 10 })).toBeCloseTo(50, 9);
     expect(sampleDutyPct({ rpm: 6000 })).toBeNull();
-    const a = analyzePull([{ rpm: 6000, pulseMs: 19 }, { rpm: 0, pulseMs: 5 }, { rpm: Number.NaN, dutyPct: 99 }], ctx);
+    const a = analyzePull(
+      [
+        { rpm: 6000, pulseMs: 19 },
+        { rpm: 0, pulseMs: 5 },
+        { rpm: Number.NaN, dutyPct: 99 },
+      ],
+      ctx,
+    );
     expect(a.samples).toBe(1);
     expect(a.peakDuty!.pct).toBeCloseTo(95, 9);
     expect(a.warnings.map((w) => w.code)).toContain("log-duty-danger");
@@ -69,17 +100,24 @@ describe("pull analysis", () => {
 
 describe("datalog parser", () => {
   it("reads semicolons with decimal commas, a units row, blank lines and a BOM", () => {
-    const text = "\uFEFFTime;RPM;Inj Duty;Lambda 1\r\ns;rpm;%;λ\r\n\r\n0,00;3000;41,5;0,79\r\n0,05;3050;42,0;0,78\r\n\r\n";
+    const text =
+      "\uFEFFTime;RPM;Inj Duty;Lambda 1\r\ns;rpm;%;λ\r\n\r\n0,00;3000;41,5;0,79\r\n0,05;3050;42,0;0,78\r\n\r\n";
     const log = parseDatalog(text);
     expect(log.headers).toEqual(["Time", "RPM", "Inj Duty", "Lambda 1"]);
     expect(log.units).toEqual(["s", "rpm", "%", "λ"]);
     expect(log.delimiter).toBe(";");
     expect(log.decimalComma).toBe(true);
-    expect(log.rows).toEqual([[0, 3000, 41.5, 0.79], [0.05, 3050, 42, 0.78]]);
+    expect(log.rows).toEqual([
+      [0, 3000, 41.5, 0.79],
+      [0.05, 3050, 42, 0.78],
+    ]);
   });
 
   it("reads commas and tabs, and keeps blank cells as null", () => {
-    expect(parseDatalog("rpm,duty\n3000,40.5\n3100,\n").rows).toEqual([[3000, 40.5], [3100, null]]);
+    expect(parseDatalog("rpm,duty\n3000,40.5\n3100,\n").rows).toEqual([
+      [3000, 40.5],
+      [3100, null],
+    ]);
     expect(parseDatalog("rpm\tduty\n3000\t1e1\n").rows).toEqual([[3000, 10]]);
   });
 
@@ -87,13 +125,18 @@ describe("datalog parser", () => {
     expect(() => parseDatalog("")).toThrow(DatalogError);
     expect(() => parseDatalog("rpm,duty\n")).toThrow("no data rows");
     expect(() => parseDatalog("a\u0000b")).toThrow("not text");
-    expect(() => parseDatalog(`${Array.from({ length: 600 }, (_, i) => `c${i}`).join(",")}\n1,2\n`)).toThrow("more than 500 columns");
+    expect(() =>
+      parseDatalog(`${Array.from({ length: 600 }, (_, i) => `c${i}`).join(",")}\n1,2\n`),
+    ).toThrow("more than 500 columns");
     expect(() => parseDatalog("rpm,duty\nx,y\nz,w\n")).toThrow("No numbers");
   });
 
   it("a file cut off mid-row loses only that partial row, and says so (common practice, no source)", () => {
     const cut = parseDatalog("rpm,duty,lambda\n3000,40,0.80\n3100,41,0.79\n3200,4");
-    expect(cut.rows).toEqual([[3000, 40, 0.8], [3100, 41, 0.79]]);
+    expect(cut.rows).toEqual([
+      [3000, 40, 0.8],
+      [3100, 41, 0.79],
+    ]);
     expect(cut.cutShort).toBe(true);
     // A last row without a newline but complete is kept.
     expect(parseDatalog("rpm,duty\n3000,40\n3100,41").rows).toHaveLength(2);
@@ -103,7 +146,9 @@ describe("datalog parser", () => {
 });
 
 describe("column mapping", () => {
-  const log = parseDatalog("Engine RPM,Inj Duty,AFR,MAP,Fuel Pressure,Ethanol,Power\nrpm,%,afr,psi,psi,%,hp\n6000,80,11.76,29.4,72.5,85,400\n");
+  const log = parseDatalog(
+    "Engine RPM,Inj Duty,AFR,MAP,Fuel Pressure,Ethanol,Power\nrpm,%,afr,psi,psi,%,hp\n6000,80,11.76,29.4,72.5,85,400\n",
+  );
 
   it("guesses the columns from headers and units", () => {
     expect(suggestMapping(log)).toEqual({
@@ -132,7 +177,12 @@ describe("column mapping", () => {
 
   it("the same header set in another order is the same logger; unknown columns are named", () => {
     expect(headerKey(["RPM", "Duty"])).toBe(headerKey(["duty ", "rpm"]));
-    expect(mappingProblems(DatalogMappingSchema.parse({ rpm: "RPM", duty: { column: "Nope", kind: "duty_pct" } }), log.headers)).toEqual([
+    expect(
+      mappingProblems(
+        DatalogMappingSchema.parse({ rpm: "RPM", duty: { column: "Nope", kind: "duty_pct" } }),
+        log.headers,
+      ),
+    ).toEqual([
       { path: "rpm", message: 'The log has no column "RPM"' },
       { path: "duty.column", message: 'The log has no column "Nope"' },
     ]);

@@ -1,20 +1,22 @@
 import { describe, expect, it } from "vitest";
+
 import {
+  afrFromLambda,
   CalcInputError,
+  compositionOf,
   DEFAULT_E85_RANGE,
   E85_STANDARD_RANGES,
   ETHANOL,
-  GASOLINE,
-  METHANOL,
-  afrFromLambda,
-  compositionOf,
   fuelBlend,
+  GASOLINE,
   lambdaFromAfr,
+  METHANOL,
   stoichAfrFromComposition,
 } from "@/lib/calc";
 
 /** Heywood's closed form for CHyOz with air as O2 + 3.773 N2 (Heywood 1988, ch. 3; from memory). */
-const heywood = (y: number, z: number) => (34.56 * (4 + y - 2 * z)) / (12.011 + 1.008 * y + 16.0 * z);
+const heywood = (y: number, z: number) =>
+  (34.56 * (4 + y - 2 * z)) / (12.011 + 1.008 * y + 16.0 * z);
 
 describe("stoichAfrFromComposition", () => {
   // Heywood, Internal Combustion Engine Fundamentals, appendix D, table D.4 (from memory).
@@ -30,7 +32,12 @@ describe("stoichAfrFromComposition", () => {
 
   it("agrees with Heywood's closed form for C1HyOz within 0.3 %", () => {
     // Heywood ch. 3 (from memory): the closed form above.
-    for (const [y, z] of [[2.25, 0], [3, 0.5], [4, 1], [1.87, 0]] as const) {
+    for (const [y, z] of [
+      [2.25, 0],
+      [3, 0.5],
+      [4, 1],
+      [1.87, 0],
+    ] as const) {
       const ours = stoichAfrFromComposition(compositionOf(1, y, z));
       expect(Math.abs(ours / heywood(y, z) - 1)).toBeLessThan(0.003);
     }
@@ -44,14 +51,38 @@ describe("stoichAfrFromComposition", () => {
   });
 
   it("rejects fractions that do not add up to one, or negatives", () => {
-    expect(() => stoichAfrFromComposition({ carbonMassFraction: 0.5, hydrogenMassFraction: 0.1, oxygenMassFraction: 0.1 })).toThrow(CalcInputError);
-    expect(() => stoichAfrFromComposition({ carbonMassFraction: -0.1, hydrogenMassFraction: 0.6, oxygenMassFraction: 0.5 })).toThrow(/between 0 and 1/);
-    expect(() => stoichAfrFromComposition({ carbonMassFraction: Number.NaN, hydrogenMassFraction: 0.5, oxygenMassFraction: 0.5 })).toThrow(/number/);
+    expect(() =>
+      stoichAfrFromComposition({
+        carbonMassFraction: 0.5,
+        hydrogenMassFraction: 0.1,
+        oxygenMassFraction: 0.1,
+      }),
+    ).toThrow(CalcInputError);
+    expect(() =>
+      stoichAfrFromComposition({
+        carbonMassFraction: -0.1,
+        hydrogenMassFraction: 0.6,
+        oxygenMassFraction: 0.5,
+      }),
+    ).toThrow(/between 0 and 1/);
+    expect(() =>
+      stoichAfrFromComposition({
+        carbonMassFraction: Number.NaN,
+        hydrogenMassFraction: 0.5,
+        oxygenMassFraction: 0.5,
+      }),
+    ).toThrow(/number/);
   });
 
   it("refuses a composition that needs no air", () => {
     // Pure oxygen "fuel": nothing to burn.
-    expect(() => stoichAfrFromComposition({ carbonMassFraction: 0, hydrogenMassFraction: 0, oxygenMassFraction: 1 })).toThrow(/not a fuel/);
+    expect(() =>
+      stoichAfrFromComposition({
+        carbonMassFraction: 0,
+        hydrogenMassFraction: 0,
+        oxygenMassFraction: 1,
+      }),
+    ).toThrow(/not a fuel/);
   });
 });
 
@@ -71,9 +102,15 @@ describe("fuelBlend", () => {
 
   it("uses heating values within 2 % of AFDC's (GREET) figures", () => {
     // AFDC: gasoline 18 676 Btu/lb = 43.44 MJ/kg; ethanol 11 585 Btu/lb = 26.95 MJ/kg (1 Btu/lb = 2.326 kJ/kg).
-    expect(Math.abs(GASOLINE.lowerHeatingValueMjPerKg / ((18676 * 2.326) / 1000) - 1)).toBeLessThan(0.02);
-    expect(Math.abs(ETHANOL.lowerHeatingValueMjPerKg / ((11585 * 2.326) / 1000) - 1)).toBeLessThan(0.02);
-    expect(Math.abs(METHANOL.lowerHeatingValueMjPerKg / ((8637 * 2.326) / 1000) - 1)).toBeLessThan(0.02);
+    expect(Math.abs(GASOLINE.lowerHeatingValueMjPerKg / ((18676 * 2.326) / 1000) - 1)).toBeLessThan(
+      0.02,
+    );
+    expect(Math.abs(ETHANOL.lowerHeatingValueMjPerKg / ((11585 * 2.326) / 1000) - 1)).toBeLessThan(
+      0.02,
+    );
+    expect(Math.abs(METHANOL.lowerHeatingValueMjPerKg / ((8637 * 2.326) / 1000) - 1)).toBeLessThan(
+      0.02,
+    );
   });
 
   it("gives E10 ≈ 14.1, E30 ≈ 12.9 and E85 ≈ 9.8 stoich", () => {
@@ -122,7 +159,10 @@ describe("lambda and AFR", () => {
     // λ × 14.7 is the "gasoline AFR" scale (common practice, no source).
     const lambda = lambdaFromAfr(11.76, 14.7);
     expect(lambda).toBeCloseTo(0.8, 10);
-    expect(afrFromLambda(lambda, fuelBlend(85).stoichAfr)).toBeCloseTo(0.8 * fuelBlend(85).stoichAfr, 10);
+    expect(afrFromLambda(lambda, fuelBlend(85).stoichAfr)).toBeCloseTo(
+      0.8 * fuelBlend(85).stoichAfr,
+      10,
+    );
   });
   it("refuses nonsense lambdas", () => {
     expect(() => afrFromLambda(0, 14.7)).toThrow(CalcInputError);
@@ -133,7 +173,10 @@ describe("E85 ranges of the standards", () => {
   it("holds ASTM D5798's 51–83 % (and the earlier 68–83 %) as the default range", () => {
     // ASTM D5798, revisions from 2011: 51–83 vol %; earlier 68–83 vol %.
     expect(E85_STANDARD_RANGES.astmD5798).toEqual({ ethanolMinVolPct: 51, ethanolMaxVolPct: 83 });
-    expect(E85_STANDARD_RANGES.astmD5798Pre2011).toEqual({ ethanolMinVolPct: 68, ethanolMaxVolPct: 83 });
+    expect(E85_STANDARD_RANGES.astmD5798Pre2011).toEqual({
+      ethanolMinVolPct: 68,
+      ethanolMaxVolPct: 83,
+    });
     expect(DEFAULT_E85_RANGE.ethanolMinVolPct).toBeLessThan(DEFAULT_E85_RANGE.ethanolMaxVolPct);
     // EIA AEO 2011: annual-average US E85 was 74 % ethanol — inside the default range.
     expect(74).toBeGreaterThan(DEFAULT_E85_RANGE.ethanolMinVolPct);

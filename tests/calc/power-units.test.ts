@@ -1,19 +1,20 @@
 import Qty from "js-quantities";
 import { describe, expect, it } from "vitest";
+
 import {
-  CalcInputError,
-  DEFAULT_BSFC,
-  G_PER_KWH_PER_LB_PER_HP_H,
-  KPA_PER_PSI,
-  KW_PER_HP,
   bsfcFromGPerKwh,
   bsfcToGPerKwh,
+  CalcInputError,
   crankPowerFromWheel,
+  DEFAULT_BSFC,
   defaultBsfc,
   fuelMassFlowGPerMin,
+  G_PER_KWH_PER_LB_PER_HP_H,
   gPerMinToLbPerH,
   injectorCcPerMinToLbPerH,
   injectorLbPerHToCcPerMin,
+  KPA_PER_PSI,
+  KW_PER_HP,
   lbPerHToGPerMin,
   powerFromKw,
   powerToKw,
@@ -39,11 +40,18 @@ describe("crankPowerFromWheel", () => {
   });
   it("divides by (1 − loss), loss a share of crank power", () => {
     // calc-spec §2, by hand: 300 / 0.85.
-    expect(crankPowerFromWheel({ wheelPowerKw: 300, drivetrainLossPct: 15 })).toBeCloseTo(300 / 0.85, 12);
+    expect(crankPowerFromWheel({ wheelPowerKw: 300, drivetrainLossPct: 15 })).toBeCloseTo(
+      300 / 0.85,
+      12,
+    );
   });
   it("refuses a loss of 60 % or more and negative power", () => {
-    expect(() => crankPowerFromWheel({ wheelPowerKw: 300, drivetrainLossPct: 100 })).toThrow(CalcInputError);
-    expect(() => crankPowerFromWheel({ wheelPowerKw: -1, drivetrainLossPct: 10 })).toThrow(/Wheel power/);
+    expect(() => crankPowerFromWheel({ wheelPowerKw: 300, drivetrainLossPct: 100 })).toThrow(
+      CalcInputError,
+    );
+    expect(() => crankPowerFromWheel({ wheelPowerKw: -1, drivetrainLossPct: 10 })).toThrow(
+      /Wheel power/,
+    );
   });
 });
 
@@ -60,17 +68,34 @@ describe("fuel mass flow and BSFC", () => {
   it("uses the rules of thumb 0.50 / 0.60 / 0.70 / 0.80 lb/(hp·h)", () => {
     // Common practice, no source (calc-spec §2).
     const lb = (g: number) => bsfcFromGPerKwh(g, "lb/hp/h");
-    expect(lb(defaultBsfc({ ethanolVolPct: 0, aspiration: "na" }).bsfcGPerKwh)).toBeCloseTo(0.5, 12);
-    expect(lb(defaultBsfc({ ethanolVolPct: 0, aspiration: "turbo" }).bsfcGPerKwh)).toBeCloseTo(0.6, 12);
-    expect(lb(defaultBsfc({ ethanolVolPct: 85, aspiration: "na" }).bsfcGPerKwh)).toBeCloseTo(0.7, 12);
-    expect(lb(defaultBsfc({ ethanolVolPct: 85, aspiration: "supercharged" }).bsfcGPerKwh)).toBeCloseTo(0.8, 12);
+    expect(lb(defaultBsfc({ ethanolVolPct: 0, aspiration: "na" }).bsfcGPerKwh)).toBeCloseTo(
+      0.5,
+      12,
+    );
+    expect(lb(defaultBsfc({ ethanolVolPct: 0, aspiration: "turbo" }).bsfcGPerKwh)).toBeCloseTo(
+      0.6,
+      12,
+    );
+    expect(lb(defaultBsfc({ ethanolVolPct: 85, aspiration: "na" }).bsfcGPerKwh)).toBeCloseTo(
+      0.7,
+      12,
+    );
+    expect(
+      lb(defaultBsfc({ ethanolVolPct: 85, aspiration: "supercharged" }).bsfcGPerKwh),
+    ).toBeCloseTo(0.8, 12);
     // Halfway in ethanol is halfway in BSFC.
-    expect(lb(defaultBsfc({ ethanolVolPct: 42.5, aspiration: "turbo" }).bsfcGPerKwh)).toBeCloseTo(0.7, 12);
+    expect(lb(defaultBsfc({ ethanolVolPct: 42.5, aspiration: "turbo" }).bsfcGPerKwh)).toBeCloseTo(
+      0.7,
+      12,
+    );
   });
   it("scales by λ_ref / λ for a richer target", () => {
     const ref = defaultBsfc({ ethanolVolPct: 0, aspiration: "turbo" });
     const rich = defaultBsfc({ ethanolVolPct: 0, aspiration: "turbo", targetLambda: 0.75 });
-    expect(rich.bsfcGPerKwh).toBeCloseTo((ref.bsfcGPerKwh * DEFAULT_BSFC.referenceLambdaBoosted) / 0.75, 9);
+    expect(rich.bsfcGPerKwh).toBeCloseTo(
+      (ref.bsfcGPerKwh * DEFAULT_BSFC.referenceLambdaBoosted) / 0.75,
+      9,
+    );
     expect(rich.bsfcGPerKwh).toBeGreaterThan(ref.bsfcGPerKwh);
   });
 });
@@ -95,8 +120,12 @@ describe("unit conversions against NIST SP 811 and an independent units library 
     // NIST SP 811: 1 US gal = 3.785 411 784 L exactly.
     expect(rel(volumeToL(1, "gal"), 3.785411784)).toBeLessThan(1e-6);
     expect(rel(volumeFromL(50, "gal"), Qty("50 l").to("gal").scalar)).toBeLessThan(1e-6);
-    expect(rel(volumeFlowToLPerH(100, "gal/h"), Qty("100 gal/h").to("l/h").scalar)).toBeLessThan(1e-6);
-    expect(rel(volumeFlowFromLPerH(255, "l/min"), Qty("255 l/h").to("l/min").scalar)).toBeLessThan(1e-6);
+    expect(rel(volumeFlowToLPerH(100, "gal/h"), Qty("100 gal/h").to("l/h").scalar)).toBeLessThan(
+      1e-6,
+    );
+    expect(rel(volumeFlowFromLPerH(255, "l/min"), Qty("255 l/h").to("l/min").scalar)).toBeLessThan(
+      1e-6,
+    );
   });
   it("mass flow: lb/h to g/min is exact", () => {
     // NIST SP 811: 1 lb = 0.453 592 37 kg exactly.

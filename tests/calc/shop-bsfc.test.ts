@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { aspirationClassOf, fuelClassOf, shopBsfcFor, shopBsfcTable, type BsfcPoint } from "@/lib/calc";
+
+import {
+  aspirationClassOf,
+  fuelClassOf,
+  shopBsfcFor,
+  shopBsfcTable,
+  type BsfcPoint,
+} from "@/lib/calc";
 
 describe("fuel classes", () => {
   it("splits at E15 and E51", () => {
@@ -14,7 +21,11 @@ describe("fuel classes", () => {
     expect(fuelClassOf(83)).toBe("e85");
     expect(fuelClassOf(100)).toBe("e85");
     // Turbo and supercharged share the boosted anchors, as the rule-of-thumb BSFC does (common practice, no source).
-    expect([aspirationClassOf("na"), aspirationClassOf("turbo"), aspirationClassOf("supercharged")]).toEqual(["na", "boosted", "boosted"]);
+    expect([
+      aspirationClassOf("na"),
+      aspirationClassOf("turbo"),
+      aspirationClassOf("supercharged"),
+    ]).toEqual(["na", "boosted", "boosted"]);
   });
 });
 
@@ -29,14 +40,21 @@ describe("the shop's measured BSFC table", () => {
 
   it("groups by fuel class and aspiration, one figure per build", () => {
     const t = shopBsfcTable(pts);
-    expect(t.map((r) => `${r.fuel}/${r.aspiration}/${r.builds}`)).toEqual(["gasoline/na/1", "e85/boosted/2", "e85/na/1"]);
+    expect(t.map((r) => `${r.fuel}/${r.aspiration}/${r.builds}`)).toEqual([
+      "gasoline/na/1",
+      "e85/boosted/2",
+      "e85/na/1",
+    ]);
     const boosted = t.find((r) => r.fuel === "e85" && r.aspiration === "boosted")!;
     expect(boosted.meanGPerKwh).toBe(500);
     expect([boosted.minGPerKwh, boosted.maxGPerKwh]).toEqual([480, 520]);
   });
 
   it("a build's later figure replaces its earlier one", () => {
-    const t = shopBsfcTable([...pts, { buildId: "a", ethanolVolPct: 80, aspiration: "turbo", gPerKwh: 500 }]);
+    const t = shopBsfcTable([
+      ...pts,
+      { buildId: "a", ethanolVolPct: 80, aspiration: "turbo", gPerKwh: 500 },
+    ]);
     const boosted = t.find((r) => r.fuel === "e85" && r.aspiration === "boosted")!;
     expect(boosted.builds).toBe(2);
     expect(boosted.meanGPerKwh).toBe(510);

@@ -1,11 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+
 import {
   CalcInputError,
-  FuelSystemInputSchema,
   dutyAcrossEthanol,
   dutyAcrossRpm,
   fuelBlend,
+  FuelSystemInputSchema,
   pumpSupplyCurve,
   sizeFuelSystem,
   sizeParsedFuelSystem,
@@ -13,6 +14,7 @@ import {
   type FuelSystemInput,
   type FuelSystemResult,
 } from "@/lib/calc";
+
 import { boostedSix, naFour } from "./fixtures";
 
 const withInput = (patch: (i: FuelSystemInput) => void): FuelSystemInput => {
@@ -26,7 +28,8 @@ function assertAllFinite(value: unknown, path = "result"): void {
   if (typeof value === "number") {
     expect(Number.isFinite(value), `${path} = ${value}`).toBe(true);
   } else if (Array.isArray(value)) value.forEach((v, i) => assertAllFinite(v, `${path}[${i}]`));
-  else if (value && typeof value === "object") for (const [k, v] of Object.entries(value)) assertAllFinite(v, `${path}.${k}`);
+  else if (value && typeof value === "object")
+    for (const [k, v] of Object.entries(value)) assertAllFinite(v, `${path}.${k}`);
 }
 
 describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§4", () => {
@@ -63,7 +66,10 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
   it("works the pump against rail + boost + losses", () => {
     expect(r.pump.railPressureKpa).toBe(550);
     expect(r.pump.outletPressureKpa).toBeCloseTo(550 + 10 + r.lines.feed!.pressureDropKpa, 1);
-    expect(r.pump.demandLPerH).toBeCloseTo((r.fuelMassFlowGPerMin / fuelBlend(85).densityKgPerL) * 0.06, 9);
+    expect(r.pump.demandLPerH).toBeCloseTo(
+      (r.fuelMassFlowGPerMin / fuelBlend(85).densityKgPerL) * 0.06,
+      9,
+    );
     expect(r.pump.marginPct).toBeCloseTo((r.pump.supplyLPerH / r.pump.demandLPerH - 1) * 100, 9);
   });
 
@@ -76,22 +82,39 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
 
   it("names what limits the power ceiling", () => {
     expect(r.powerCeiling.kw).toBe(Math.min(r.injector.powerCeilingKw, r.pump.powerCeilingKw));
-    expect(r.powerCeiling.limitedBy).toBe(r.pump.powerCeilingKw < r.injector.powerCeilingKw ? "pump" : "injectors");
+    expect(r.powerCeiling.limitedBy).toBe(
+      r.pump.powerCeilingKw < r.injector.powerCeilingKw ? "pump" : "injectors",
+    );
   });
 
   it("shows its working: each figure has a trace step", () => {
     const ids = r.trace.map((s) => s.id);
-    for (const id of ["crank-power", "injector-dp", "duty-rich", "duty-lean", "pulse-redline", "pulse-idle", "pump-margin", "feed-drop"]) expect(ids).toContain(id);
+    for (const id of [
+      "crank-power",
+      "injector-dp",
+      "duty-rich",
+      "duty-lean",
+      "pulse-redline",
+      "pulse-idle",
+      "pump-margin",
+      "feed-drop",
+    ])
+      expect(ids).toContain(id);
     const duty = r.trace.find((s) => s.id === "duty-rich")!;
     expect(duty.value).toBe(r.injector.dutyPct);
     expect(duty.formula).toMatch(/fuel needed/);
   });
 
   it("with a fixed regulator loses the boost from ΔP and warns", () => {
-    const fixed = sizeFuelSystem(withInput((i) => (i.regulator = { type: "fixed", basePressureKpa: 450 })));
+    const fixed = sizeFuelSystem(
+      withInput((i) => (i.regulator = { type: "fixed", basePressureKpa: 450 })),
+    );
     expect(fixed.injector.differentialPressureKpa).toBe(300);
     expect(fixed.pump.railPressureKpa).toBe(450);
-    expect(fixed.injector.pulseWidthIdle.differentialPressureKpa).toBeCloseTo(450 + (101.325 - 35), 9);
+    expect(fixed.injector.pulseWidthIdle.differentialPressureKpa).toBeCloseTo(
+      450 + (101.325 - 35),
+      9,
+    );
     expect(fixed.warnings.map((w) => w.code)).toContain("fixed-regulator-boost");
   });
 
@@ -100,7 +123,9 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
     const duty = r.injector.dutyPct;
     // A duty near 90 % leaves almost no headroom (common practice, no source).
     const at = (pct: number) => band((450 * pct) / duty);
-    expect(at(85).warnings.find((w) => w.code === "injector-duty-caution")?.severity).toBe("caution");
+    expect(at(85).warnings.find((w) => w.code === "injector-duty-caution")?.severity).toBe(
+      "caution",
+    );
     expect(at(93).warnings.find((w) => w.code === "injector-duty-danger")?.severity).toBe("danger");
     const stat = at(120);
     expect(stat.injector.dutyBand).toBe("static");
@@ -115,7 +140,15 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
   });
 
   it("uses the voltage left after the wiring when the wiring is given", () => {
-    const wired = sizeFuelSystem(withInput((i) => (i.electrical = { voltageAtPump: 13, wiring: { sourceVoltage: 13.5, gaugeAwg: 16, roundTripLengthM: 8, currentA: 20 } })));
+    const wired = sizeFuelSystem(
+      withInput(
+        (i) =>
+          (i.electrical = {
+            voltageAtPump: 13,
+            wiring: { sourceVoltage: 13.5, gaugeAwg: 16, roundTripLengthM: 8, currentA: 20 },
+          }),
+      ),
+    );
     expect(wired.pump.voltageUsed).toBeCloseTo(13.5 - wired.pump.wireDropV!, 12);
     expect(wired.pump.supplyLPerH).toBeLessThan(r.pump.supplyLPerH + 60);
   });
@@ -143,10 +176,22 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
 
 describe("sizeFuelSystem rejects bad input with the field and the reason", () => {
   it.each([
-    ["regulator.basePressureKpa", (i: FuelSystemInput) => (i.regulator.basePressureKpa = 5000), /Base pressure must be between 50 and 1000 kPa/],
+    [
+      "regulator.basePressureKpa",
+      (i: FuelSystemInput) => (i.regulator.basePressureKpa = 5000),
+      /Base pressure must be between 50 and 1000 kPa/,
+    ],
     ["injectors.count", (i: FuelSystemInput) => (i.injectors.count = -2), /Injector count/],
-    ["engine.cylinders", (i: FuelSystemInput) => ((i.engine as { cylinders: unknown }).cylinders = "six"), /Cylinders must be a number/],
-    ["fuel.ethanolMaxVolPct", (i: FuelSystemInput) => (i.fuel.ethanolMaxVolPct = 50), /not be below the lowest/],
+    [
+      "engine.cylinders",
+      (i: FuelSystemInput) => ((i.engine as { cylinders: unknown }).cylinders = "six"),
+      /Cylinders must be a number/,
+    ],
+    [
+      "fuel.ethanolMaxVolPct",
+      (i: FuelSystemInput) => (i.fuel.ethanolMaxVolPct = 50),
+      /not be below the lowest/,
+    ],
     ["pumps", (i: FuelSystemInput) => (i.pumps = []), /at least one fuel pump/],
   ])("%s", (field, patch, message) => {
     try {
@@ -159,13 +204,19 @@ describe("sizeFuelSystem rejects bad input with the field and the reason", () =>
     }
   });
   it("requires the base pressure of a fixed regulator to exceed the boost", () => {
-    const r = FuelSystemInputSchema.safeParse(withInput((i) => (i.regulator = { type: "fixed", basePressureKpa: 180 })));
+    const r = FuelSystemInputSchema.safeParse(
+      withInput((i) => (i.regulator = { type: "fixed", basePressureKpa: 180 })),
+    );
     expect(r.success).toBe(false);
     expect(r.error!.issues[0]!.path).toEqual(["regulator", "basePressureKpa"]);
   });
   it("refuses NaN and Infinity", () => {
-    expect(() => sizeFuelSystem(withInput((i) => (i.target.powerKw = Number.NaN)))).toThrow(CalcInputError);
-    expect(() => sizeFuelSystem(withInput((i) => (i.engine.displacementL = Number.POSITIVE_INFINITY)))).toThrow(CalcInputError);
+    expect(() => sizeFuelSystem(withInput((i) => (i.target.powerKw = Number.NaN)))).toThrow(
+      CalcInputError,
+    );
+    expect(() =>
+      sizeFuelSystem(withInput((i) => (i.engine.displacementL = Number.POSITIVE_INFINITY))),
+    ).toThrow(CalcInputError);
   });
 });
 
@@ -179,29 +230,62 @@ describe("sizeFuelSystem properties", () => {
 
   it("duty rises with power and falls with more or bigger injectors", () => {
     fc.assert(
-      fc.property(fc.double({ min: 50, max: 1500, noNaN: true }), fc.double({ min: 1.01, max: 3, noNaN: true }), (kw, k) => {
-        const a = size((i) => (i.target.powerKw = kw));
-        expect(size((i) => (i.target.powerKw = kw * k)).injector.dutyPct).toBeGreaterThan(a.injector.dutyPct);
-        expect(size((i) => ((i.target.powerKw = kw), (i.injectors.ratedFlowCcPerMin *= k))).injector.dutyPct).toBeLessThan(a.injector.dutyPct);
-        expect(size((i) => ((i.target.powerKw = kw), (i.injectors.count = 12))).injector.dutyPct).toBeCloseTo(a.injector.dutyPct / 2, 9);
-      }),
+      fc.property(
+        fc.double({ min: 50, max: 1500, noNaN: true }),
+        fc.double({ min: 1.01, max: 3, noNaN: true }),
+        (kw, k) => {
+          const a = size((i) => (i.target.powerKw = kw));
+          expect(size((i) => (i.target.powerKw = kw * k)).injector.dutyPct).toBeGreaterThan(
+            a.injector.dutyPct,
+          );
+          expect(
+            size((i) => ((i.target.powerKw = kw), (i.injectors.ratedFlowCcPerMin *= k))).injector
+              .dutyPct,
+          ).toBeLessThan(a.injector.dutyPct);
+          expect(
+            size((i) => ((i.target.powerKw = kw), (i.injectors.count = 12))).injector.dutyPct,
+          ).toBeCloseTo(a.injector.dutyPct / 2, 9);
+        },
+      ),
       { numRuns: 50 },
     );
   });
 
   it("sizing at the injectors' power ceiling gives the design duty", () => {
     fc.assert(
-      fc.property(fc.double({ min: 60, max: 90, noNaN: true }), fc.integer({ min: 0, max: 100 }), (designDutyPct, e) => {
-        const first = size((i) => ((i.limits = { ...i.limits!, designDutyPct }), (i.fuel.ethanolMinVolPct = e), (i.fuel.ethanolMaxVolPct = e), (i.target.measuredAt = "crank")));
-        const again = size((i) => ((i.limits = { ...i.limits!, designDutyPct }), (i.fuel.ethanolMinVolPct = e), (i.fuel.ethanolMaxVolPct = e), (i.target.measuredAt = "crank"), (i.target.powerKw = first.injector.powerCeilingKw)));
-        expect(again.injector.dutyPct).toBeCloseTo(designDutyPct, 6);
-      }),
+      fc.property(
+        fc.double({ min: 60, max: 90, noNaN: true }),
+        fc.integer({ min: 0, max: 100 }),
+        (designDutyPct, e) => {
+          const first = size(
+            (i) => (
+              (i.limits = { ...i.limits!, designDutyPct }),
+              (i.fuel.ethanolMinVolPct = e),
+              (i.fuel.ethanolMaxVolPct = e),
+              (i.target.measuredAt = "crank")
+            ),
+          );
+          const again = size(
+            (i) => (
+              (i.limits = { ...i.limits!, designDutyPct }),
+              (i.fuel.ethanolMinVolPct = e),
+              (i.fuel.ethanolMaxVolPct = e),
+              (i.target.measuredAt = "crank"),
+              (i.target.powerKw = first.injector.powerCeilingKw)
+            ),
+          );
+          expect(again.injector.dutyPct).toBeCloseTo(designDutyPct, 6);
+        },
+      ),
       { numRuns: 50 },
     );
   });
 
   it("never returns NaN or Infinity for any input the schema accepts", () => {
-    const curvePoint = fc.record({ pressureKpa: fc.double({ min: 0, max: 1500, noNaN: true }), flowLPerH: fc.double({ min: 0, max: 3000, noNaN: true }) });
+    const curvePoint = fc.record({
+      pressureKpa: fc.double({ min: 0, max: 1500, noNaN: true }),
+      flowLPerH: fc.double({ min: 0, max: 3000, noNaN: true }),
+    });
     const input = fc.record({
       engine: fc.record({
         cylinders: fc.integer({ min: 1, max: 16 }),
@@ -211,15 +295,53 @@ describe("sizeFuelSystem properties", () => {
         idleRpm: fc.double({ min: 300, max: 3000, noNaN: true }),
         maxBoostKpa: fc.double({ min: 0, max: 500, noNaN: true }),
       }),
-      target: fc.record({ powerKw: fc.double({ min: 1, max: 5000, noNaN: true }), measuredAt: fc.constantFrom("wheel", "crank"), drivetrainLossPct: fc.double({ min: 0, max: 50, noNaN: true }) }),
-      fuel: fc.record({ ethanolMinVolPct: fc.double({ min: 0, max: 50, noNaN: true }), ethanolMaxVolPct: fc.double({ min: 50, max: 100, noNaN: true }), targetLambda: fc.option(fc.double({ min: 0.6, max: 1.3, noNaN: true }), { nil: undefined }) }),
-      injectors: fc.record({ count: fc.integer({ min: 1, max: 32 }), ratedFlowCcPerMin: fc.double({ min: 20, max: 10000, noNaN: true }), ratedPressureKpa: fc.double({ min: 100, max: 1000, noNaN: true }), minPulseWidthMs: fc.double({ min: 0.1, max: 10, noNaN: true }) }),
-      regulator: fc.record({ type: fc.constantFrom("boost-referenced", "fixed"), basePressureKpa: fc.double({ min: 50, max: 1000, noNaN: true }) }),
-      pumps: fc.array(fc.record({ quantity: fc.integer({ min: 1, max: 4 }), curves: fc.array(fc.record({ voltage: fc.double({ min: 6, max: 20, noNaN: true }), points: fc.uniqueArray(curvePoint, { minLength: 2, maxLength: 6, selector: (p) => Math.round(p.pressureKpa) }) }), { minLength: 1, maxLength: 3 }) }), { minLength: 1, maxLength: 3 }),
+      target: fc.record({
+        powerKw: fc.double({ min: 1, max: 5000, noNaN: true }),
+        measuredAt: fc.constantFrom("wheel", "crank"),
+        drivetrainLossPct: fc.double({ min: 0, max: 50, noNaN: true }),
+      }),
+      fuel: fc.record({
+        ethanolMinVolPct: fc.double({ min: 0, max: 50, noNaN: true }),
+        ethanolMaxVolPct: fc.double({ min: 50, max: 100, noNaN: true }),
+        targetLambda: fc.option(fc.double({ min: 0.6, max: 1.3, noNaN: true }), { nil: undefined }),
+      }),
+      injectors: fc.record({
+        count: fc.integer({ min: 1, max: 32 }),
+        ratedFlowCcPerMin: fc.double({ min: 20, max: 10000, noNaN: true }),
+        ratedPressureKpa: fc.double({ min: 100, max: 1000, noNaN: true }),
+        minPulseWidthMs: fc.double({ min: 0.1, max: 10, noNaN: true }),
+      }),
+      regulator: fc.record({
+        type: fc.constantFrom("boost-referenced", "fixed"),
+        basePressureKpa: fc.double({ min: 50, max: 1000, noNaN: true }),
+      }),
+      pumps: fc.array(
+        fc.record({
+          quantity: fc.integer({ min: 1, max: 4 }),
+          curves: fc.array(
+            fc.record({
+              voltage: fc.double({ min: 6, max: 20, noNaN: true }),
+              points: fc.uniqueArray(curvePoint, {
+                minLength: 2,
+                maxLength: 6,
+                selector: (p) => Math.round(p.pressureKpa),
+              }),
+            }),
+            { minLength: 1, maxLength: 3 },
+          ),
+        }),
+        { minLength: 1, maxLength: 3 },
+      ),
       electrical: fc.record({ voltageAtPump: fc.double({ min: 6, max: 20, noNaN: true }) }),
       lines: fc.record({
-        feed: fc.record({ insideDiameterMm: fc.double({ min: 2, max: 40, noNaN: true }), lengthM: fc.double({ min: 0.1, max: 30, noNaN: true }) }),
-        return: fc.record({ insideDiameterMm: fc.double({ min: 2, max: 40, noNaN: true }), lengthM: fc.double({ min: 0.1, max: 30, noNaN: true }) }),
+        feed: fc.record({
+          insideDiameterMm: fc.double({ min: 2, max: 40, noNaN: true }),
+          lengthM: fc.double({ min: 0.1, max: 30, noNaN: true }),
+        }),
+        return: fc.record({
+          insideDiameterMm: fc.double({ min: 2, max: 40, noNaN: true }),
+          lengthM: fc.double({ min: 0.1, max: 30, noNaN: true }),
+        }),
       }),
     });
     let sized = 0;
@@ -230,7 +352,9 @@ describe("sizeFuelSystem properties", () => {
         sized++;
         const r = sizeParsedFuelSystem(parsed.data);
         assertAllFinite(r);
-        assertAllFinite(dutyAcrossRpm(r, parsed.data.engine.idleRpm, parsed.data.engine.redlineRpm));
+        assertAllFinite(
+          dutyAcrossRpm(r, parsed.data.engine.idleRpm, parsed.data.engine.redlineRpm),
+        );
         assertAllFinite(dutyAcrossEthanol(parsed.data, r.crankPowerKw));
         assertAllFinite(pumpSupplyCurve(parsed.data, r));
       }),
@@ -242,7 +366,39 @@ describe("sizeFuelSystem properties", () => {
 
 describe("regressions found by the property tests", () => {
   it("a pump curve of denormal flows gives finite figures", () => {
-    const r = sizeFuelSystem({"engine":{"cylinders":1,"displacementL":0.1,"aspiration":"na","redlineRpm":3001,"idleRpm":300,"maxBoostKpa":0},"target":{"powerKw":1,"measuredAt":"wheel","drivetrainLossPct":0},"fuel":{"ethanolMinVolPct":0,"ethanolMaxVolPct":50},"injectors":{"count":1,"ratedFlowCcPerMin":20,"ratedPressureKpa":100,"minPulseWidthMs":0.1},"regulator":{"type":"boost-referenced","basePressureKpa":50},"pumps":[{"quantity":1,"curves":[{"voltage":6,"points":[{"pressureKpa":50.00000002829482,"flowLPerH":2e-323},{"pressureKpa":0,"flowLPerH":1.5719545166619716e-308}]}]}],"electrical":{"voltageAtPump":6},"lines":{"feed":{"insideDiameterMm":2,"lengthM":0.1},"return":{"insideDiameterMm":2,"lengthM":0.1}}} as FuelSystemInput);
+    const r = sizeFuelSystem({
+      engine: {
+        cylinders: 1,
+        displacementL: 0.1,
+        aspiration: "na",
+        redlineRpm: 3001,
+        idleRpm: 300,
+        maxBoostKpa: 0,
+      },
+      target: { powerKw: 1, measuredAt: "wheel", drivetrainLossPct: 0 },
+      fuel: { ethanolMinVolPct: 0, ethanolMaxVolPct: 50 },
+      injectors: { count: 1, ratedFlowCcPerMin: 20, ratedPressureKpa: 100, minPulseWidthMs: 0.1 },
+      regulator: { type: "boost-referenced", basePressureKpa: 50 },
+      pumps: [
+        {
+          quantity: 1,
+          curves: [
+            {
+              voltage: 6,
+              points: [
+                { pressureKpa: 50.00000002829482, flowLPerH: 2e-323 },
+                { pressureKpa: 0, flowLPerH: 1.5719545166619716e-308 },
+              ],
+            },
+          ],
+        },
+      ],
+      electrical: { voltageAtPump: 6 },
+      lines: {
+        feed: { insideDiameterMm: 2, lengthM: 0.1 },
+        return: { insideDiameterMm: 2, lengthM: 0.1 },
+      },
+    } as FuelSystemInput);
     assertAllFinite(r);
   });
 });

@@ -1,7 +1,9 @@
 import { readFileSync } from "node:fs";
 import { createRequire } from "node:module";
+
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
 
@@ -28,10 +30,26 @@ interface Violation {
 async function seriousViolations(page: Page): Promise<string[]> {
   await page.evaluate(AXE); // through the debugging protocol: the page's CSP does not apply to it
   const found = (await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> } }).axe;
-    return (await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] } })).violations;
+    const axe = (
+      window as unknown as {
+        axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> };
+      }
+    ).axe;
+    return (
+      await axe.run(document, {
+        runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] },
+      })
+    ).violations;
   })) as Violation[];
-  return found.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
+  return found
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map(
+      (v) =>
+        `${v.impact} ${v.id}: ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => n.target.join(" "))
+          .join(", ")}`,
+    );
 }
 
 /** Collects Content-Security-Policy violations the page reports (none expected). */
@@ -51,8 +69,19 @@ describe("accessibility (axe-core)", () => {
     await page.goto("/sign-in");
     const report: Record<string, string[]> = { "/sign-in": await seriousViolations(page) };
     await signInAs(page, "owner");
-    const [quote] = await sql`select id from quotes where shop_id = 'demo-shop-ridgeback' order by number limit 1`;
-    for (const path of ["/builds", "/builds/10000000-0000-4000-8000-000000000002", "/tools", "/parts", "/quotes", `/quotes/${quote!.id}`, "/customers", "/settings", "/builds/10000000-0000-4000-8000-000000000002/dyno"]) {
+    const [quote] =
+      await sql`select id from quotes where shop_id = 'demo-shop-ridgeback' order by number limit 1`;
+    for (const path of [
+      "/builds",
+      "/builds/10000000-0000-4000-8000-000000000002",
+      "/tools",
+      "/parts",
+      "/quotes",
+      `/quotes/${quote!.id}`,
+      "/customers",
+      "/settings",
+      "/builds/10000000-0000-4000-8000-000000000002/dyno",
+    ]) {
       await page.goto(path);
       await page.waitForLoadState("networkidle");
       report[path] = await seriousViolations(page);
@@ -80,7 +109,13 @@ describe("keyboard only", () => {
     await page.goto("/sign-in");
     // Tab from the top of the page to the e-mail field, then through the form.
     await page.keyboard.press("Tab");
-    for (let i = 0; i < 10 && (await page.evaluate(() => document.activeElement?.getAttribute("type"))) !== "email"; i++) await page.keyboard.press("Tab");
+    for (
+      let i = 0;
+      i < 10 &&
+      (await page.evaluate(() => document.activeElement?.getAttribute("type"))) !== "email";
+      i++
+    )
+      await page.keyboard.press("Tab");
     await page.keyboard.type("counter@demo.fuelwright.test");
     await page.keyboard.press("Tab");
     await page.keyboard.type("fuelwright-demo");
@@ -88,11 +123,25 @@ describe("keyboard only", () => {
     await page.waitForURL("**/builds");
     await page.goto("/customers");
     const name = `Keyboard Customer ${Date.now().toString(36)}`;
-    for (let i = 0; i < 60 && (await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name)) !== "name"; i++) await page.keyboard.press("Tab");
-    expect(await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name)).toBe("name");
+    for (
+      let i = 0;
+      i < 60 &&
+      (await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name)) !==
+        "name";
+      i++
+    )
+      await page.keyboard.press("Tab");
+    expect(
+      await page.evaluate(() => (document.activeElement as HTMLInputElement | null)?.name),
+    ).toBe("name");
     await page.keyboard.type(name);
     await page.keyboard.press("Enter");
-    await expect.poll(async () => (await sql`select count(*)::int as n from customers where name = ${name}`)[0]!.n).toBe(1);
+    await expect
+      .poll(
+        async () =>
+          (await sql`select count(*)::int as n from customers where name = ${name}`)[0]!.n,
+      )
+      .toBe(1);
     // The focused control always shows where it is.
     const outline = await page.evaluate(() => {
       const el = document.activeElement as HTMLElement | null;

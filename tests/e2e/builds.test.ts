@@ -1,5 +1,6 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 
 let browser: Browser;
@@ -12,7 +13,9 @@ afterAll(async () => {
 
 /** The editor's fields are filled in by the form library once the page has hydrated. */
 async function editorReady(page: Page) {
-  await expect.poll(() => page.getByLabel("Injectors (count)").inputValue(), { timeout: 15000 }).not.toBe("");
+  await expect
+    .poll(() => page.getByLabel("Injectors (count)").inputValue(), { timeout: 15000 })
+    .not.toBe("");
 }
 
 describe("build sheets", () => {
@@ -34,9 +37,13 @@ describe("build sheets", () => {
     await page.getByLabel("Injectors (count)").fill("12");
     await expect.poll(async () => parseFloat(await duty())).toBeCloseTo(before / 2, 0);
     await page.getByLabel("Injectors (count)").fill("0");
-    await expect.poll(() => page.getByText("Injector count must be between 1 and 32").count()).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByText("Injector count must be between 1 and 32").count())
+      .toBeGreaterThan(0);
     await page.getByLabel("Injectors (count)").fill("3");
-    await expect.poll(() => page.getByTestId("warnings").innerText()).toMatch(/duty|cannot deliver/i);
+    await expect
+      .poll(() => page.getByTestId("warnings").innerText())
+      .toMatch(/duty|cannot deliver/i);
     await page.screenshot({ path: "test-results/screenshots/build-editor.png", fullPage: true });
     await page.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => page.getByText("Saved as version 2").count()).toBe(1);
@@ -60,7 +67,9 @@ describe("build sheets", () => {
     await expect.poll(() => p2.getByText(/Someone saved this build meanwhile/).count()).toBe(1);
     expect(await p2.getByLabel("Injectors (count)").inputValue()).toBe("8");
     // The other person's change is shown beside ours.
-    await expect.poll(() => p2.getByTestId("conflict").innerText()).toMatch(/Drivetrain loss\s+15\s+12/);
+    await expect
+      .poll(() => p2.getByTestId("conflict").innerText())
+      .toMatch(/Drivetrain loss\s+15\s+12/);
 
     // Restore version 1 (count 6) as a new revision 4.
     await page.goto(`${url}/revisions/1`);
@@ -73,7 +82,9 @@ describe("build sheets", () => {
 
     // A power step on the same car starts from these inputs as a new build.
     await page.getByRole("button", { name: "Copy as next power step" }).click();
-    await page.waitForURL((u) => /\/builds\/[0-9a-f-]{36}$/.test(u.pathname) && !u.href.startsWith(url));
+    await page.waitForURL(
+      (u) => /\/builds\/[0-9a-f-]{36}$/.test(u.pathname) && !u.href.startsWith(url),
+    );
     await editorReady(page);
     expect(await page.getByLabel("Title").inputValue()).toBe(`${title} — next step`);
     expect(await page.getByLabel("Injectors (count)").inputValue()).toBe("6");
@@ -113,7 +124,8 @@ describe("build sheets", () => {
     await page.getByRole("button", { name: "Add voltage" }).click();
     await expect.poll(() => page.getByLabel("Voltage row 4 (V)").count()).toBe(1);
     await page.getByLabel("Voltage row 4 (V)").fill("16");
-    for (const col of [1, 2]) await page.getByLabel(`Dead time at row 4, column ${col} (ms)`).fill("0.6");
+    for (const col of [1, 2])
+      await page.getByLabel(`Dead time at row 4, column ${col} (ms)`).fill("0.6");
     await page.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => page.getByText("Saved as version 2").count()).toBe(1);
 
@@ -150,7 +162,9 @@ describe("build sheets", () => {
     await page.getByRole("button", { name: "← Previous" }).click();
     await expect.poll(() => rows.first().innerText()).toBe(first);
     await page.getByLabel("Search builds").fill("Dashiell"); // a demo customer (db/seed.ts)
-    await expect.poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Dashiell Moreau"))).toBe(true);
+    await expect
+      .poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Dashiell Moreau")))
+      .toBe(true);
     await page.getByLabel("Search builds").fill("no such build zzq");
     await expect.poll(() => page.getByText("No build matches").count()).toBe(1);
     await ctx.close();

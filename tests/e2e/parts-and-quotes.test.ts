@@ -1,5 +1,6 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { waitForMail } from "../helpers/mail";
 
@@ -23,10 +24,18 @@ describe("parts counter", () => {
       "sku,category,brand,name,price,stock,flow_cc_min,rated_kpa,min_pulse_ms,ethanol_ok",
       `${tag}-1,injector,Testbrand,Bad row,twelve,4,1000,300,1.0,yes`,
     ].join("\n");
-    await page.getByLabel("Catalog file (CSV)").setInputFiles({ name: "catalog.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
-    await expect.poll(() => page.getByTestId("import-errors").innerText()).toMatch(/2\s+price\s+Price must be an amount/);
-    const good = csv.replace("twelve", "139.00").replace("Bad row", "Import test injector") + `\n${tag}-2,injector,Testbrand,Second import test injector,149.00,8,1100,300,1.0,yes`;
-    await page.getByLabel("Catalog file (CSV)").setInputFiles({ name: "catalog.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
+    await page
+      .getByLabel("Catalog file (CSV)")
+      .setInputFiles({ name: "catalog.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
+    await expect
+      .poll(() => page.getByTestId("import-errors").innerText())
+      .toMatch(/2\s+price\s+Price must be an amount/);
+    const good =
+      csv.replace("twelve", "139.00").replace("Bad row", "Import test injector") +
+      `\n${tag}-2,injector,Testbrand,Second import test injector,149.00,8,1100,300,1.0,yes`;
+    await page
+      .getByLabel("Catalog file (CSV)")
+      .setInputFiles({ name: "catalog.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
     await page.getByRole("button", { name: "Import 2 parts" }).click();
     await expect.poll(() => page.getByText("Imported: 2 added, 0 updated").count()).toBe(1);
     await page.goto("/parts");
@@ -35,16 +44,22 @@ describe("parts counter", () => {
 
     // The turbo six on E85 from the demo data.
     await page.goto("/builds/10000000-0000-4000-8000-000000000002/kit");
-    await expect.poll(() => page.getByText("Best fit").count(), { timeout: 15000 }).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByText("Best fit").count(), { timeout: 15000 })
+      .toBeGreaterThan(0);
     await page.screenshot({ path: "test-results/screenshots/kit.png", fullPage: true });
     await page.getByRole("button", { name: "Use these parts" }).click();
-    await expect.poll(() => page.getByText(/Parts written into the build as version \d+/).count()).toBe(1);
+    await expect
+      .poll(() => page.getByText(/Parts written into the build as version \d+/).count())
+      .toBe(1);
     await page.getByRole("button", { name: "Create quote from the chosen parts" }).click();
     await page.waitForURL(/\/quotes\/[0-9a-f-]{36}$/);
     const label = (await page.getByRole("heading", { level: 1 }).innerText()).replace("Quote ", "");
     await expect.poll(() => page.getByTestId("quote-total").innerText()).toMatch(/^\$\d/);
     await page.getByRole("button", { name: "Send to customer" }).click();
-    await expect.poll(() => page.getByText("Sent to customer@demo.fuelwright.test").count()).toBe(1);
+    await expect
+      .poll(() => page.getByText("Sent to customer@demo.fuelwright.test").count())
+      .toBe(1);
     await expect.poll(() => page.getByTestId("quote-status").innerText()).toBe("Sent");
     await expect.poll(() => page.getByTestId("quote-messages").count()).toBe(1);
     await page.screenshot({ path: "test-results/screenshots/quote.png", fullPage: true });

@@ -1,5 +1,6 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
 import { request, signIn } from "../helpers/http";
@@ -21,11 +22,19 @@ describe("customer portal", () => {
     const tag = Date.now().toString(36);
     const email = `portal-${tag}@customer.fuelwright.test`;
     const api = await signIn("counter@demo.fuelwright.test");
-    const customer = await request(api, "POST", "/api/v1/customers", { name: `Portal Customer ${tag}`, email });
+    const customer = await request(api, "POST", "/api/v1/customers", {
+      name: `Portal Customer ${tag}`,
+      email,
+    });
     expect(customer.status).toBe(201);
-    const [demo] = await sql`select inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
+    const [demo] =
+      await sql`select inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
     const tuner = await signIn("tuner@demo.fuelwright.test");
-    const build = await request(tuner, "POST", "/api/v1/builds", { customerId: customer.json.customer.id, title: `Portal E2E build ${tag}`, inputs: demo!.inputs });
+    const build = await request(tuner, "POST", "/api/v1/builds", {
+      customerId: customer.json.customer.id,
+      title: `Portal E2E build ${tag}`,
+      inputs: demo!.inputs,
+    });
     expect(build.status).toBe(201);
     const quote = await request(api, "POST", "/api/v1/quotes", { buildId: build.json.build.id });
     expect(quote.status).toBe(201);
@@ -55,14 +64,20 @@ describe("customer portal", () => {
     await expect.poll(() => page.getByText(`Portal E2E build ${tag}`).count()).toBeGreaterThan(0);
 
     // The spec sheet downloads as a PDF with the build's title.
-    const href = await page.getByRole("link", { name: "Download the spec sheet (PDF)" }).first().getAttribute("href");
+    const href = await page
+      .getByRole("link", { name: "Download the spec sheet (PDF)" })
+      .first()
+      .getAttribute("href");
     const pdf = await ctx.request.get(href!);
     expect(pdf.headers()["content-type"]).toBe("application/pdf");
     const sheet = inspectPdf(Buffer.from(await pdf.body()));
     expect(sheet.title).toContain(`Portal E2E build ${tag}`);
 
     // Accept, then pay the deposit at the local test checkout.
-    await page.getByRole("link", { name: /^Quote Q-/ }).first().click();
+    await page
+      .getByRole("link", { name: /^Quote Q-/ })
+      .first()
+      .click();
     await page.waitForURL(`**/my/quotes/${quoteId}`);
     await page.getByRole("button", { name: "Accept quote" }).click();
     await expect.poll(() => page.getByTestId("my-quote-status").innerText()).toBe("Accepted");

@@ -1,6 +1,8 @@
 import { mkdirSync } from "node:fs";
+
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { launchBrowser, newClient } from "../helpers/browser";
 import { sql } from "../helpers/db";
 import { firstLink, waitForMail } from "../helpers/mail";
@@ -24,7 +26,8 @@ async function signIn(page: Page, email: string, password = "fuelwright-demo") {
   await page.getByRole("button", { name: "Sign in" }).click();
 }
 
-const navLabels = (page: Page) => page.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
+const navLabels = (page: Page) =>
+  page.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
 
 describe("demo sign-ins", () => {
   it.each([
@@ -38,7 +41,9 @@ describe("demo sign-ins", () => {
     await signIn(page, `${role}@demo.fuelwright.test`);
     await page.waitForURL(`**${landing}`);
     expect(await navLabels(page)).toEqual(expected);
-    await expect.poll(() => page.getByTestId("who").innerText()).toContain(role === "customer" ? "Customer" : role[0]!.toUpperCase() + role.slice(1));
+    await expect
+      .poll(() => page.getByTestId("who").innerText())
+      .toContain(role === "customer" ? "Customer" : role[0]!.toUpperCase() + role.slice(1));
     await page.screenshot({ path: `${shots}/nav-${role}.png`, fullPage: true });
     await ctx.close();
   });
@@ -128,7 +133,8 @@ describe("settings", () => {
     await p2.waitForURL("**/builds");
     expect(await navLabels(p2)).toContain("Settings");
     await expect.poll(() => p2.getByTestId("who").innerText()).toContain("Tuner");
-    const [m] = await sql`select m.role from member m join "user" u on u.id = m.user_id where u.email = ${email}`;
+    const [m] =
+      await sql`select m.role from member m join "user" u on u.id = m.user_id where u.email = ${email}`;
     expect(m!.role).toBe("tuner");
     await p2.screenshot({ path: `${shots}/invited-tuner.png` });
     await guest.close();
@@ -159,7 +165,8 @@ describe("sign-up", () => {
     await page.goto(firstLink(mail.text));
     await page.waitForURL("**/builds");
     await expect.poll(() => page.getByTestId("who").innerText()).toContain("Brandt Boost Works");
-    const [m] = await sql`select m.role, o.name from member m join "user" u on u.id = m.user_id join organization o on o.id = m.organization_id where u.email = ${email}`;
+    const [m] =
+      await sql`select m.role, o.name from member m join "user" u on u.id = m.user_id join organization o on o.id = m.organization_id where u.email = ${email}`;
     expect(m).toMatchObject({ role: "owner", name: "Brandt Boost Works" });
     await ctx.close();
   });

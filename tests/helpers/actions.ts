@@ -1,10 +1,13 @@
 import { existsSync, readFileSync } from "node:fs";
 import { createRequire } from "node:module";
+
 import { BASE_URL, type Client } from "./http";
 
 const require = createRequire(import.meta.url);
 // React's own encoder for server-action arguments (what the browser sends).
-const { encodeReply } = require("next/dist/compiled/react-server-dom-webpack/client.edge") as { encodeReply: (v: unknown) => Promise<string | FormData> };
+const { encodeReply } = require("next/dist/compiled/react-server-dom-webpack/client.edge") as {
+  encodeReply: (v: unknown) => Promise<string | FormData>;
+};
 
 export interface ActionRef {
   id: string;
@@ -18,15 +21,32 @@ export interface ActionRef {
 export function actionManifest(): ActionRef[] {
   // npm test and `npm run test:env -- --prod` serve .next-test; plain `next dev` keeps only what it compiled.
   const dist = process.env.NEXT_DIST_DIR || ".next-test";
-  const file = [`${dist}/server/server-reference-manifest.json`, `${dist}/dev/server/server-reference-manifest.json`].find(existsSync);
+  const file = [
+    `${dist}/server/server-reference-manifest.json`,
+    `${dist}/dev/server/server-reference-manifest.json`,
+  ].find(existsSync);
   if (!file) return [];
-  const m = JSON.parse(readFileSync(file, "utf8")) as { node: Record<string, { filename?: string; exportedName?: string; workers: Record<string, unknown> }> };
-  return Object.entries(m.node).map(([id, v]) => ({ id, file: v.filename ?? "", name: v.exportedName ?? "", page: pagePath(Object.keys(v.workers)[0] ?? "") }));
+  const m = JSON.parse(readFileSync(file, "utf8")) as {
+    node: Record<
+      string,
+      { filename?: string; exportedName?: string; workers: Record<string, unknown> }
+    >;
+  };
+  return Object.entries(m.node).map(([id, v]) => ({
+    id,
+    file: v.filename ?? "",
+    name: v.exportedName ?? "",
+    page: pagePath(Object.keys(v.workers)[0] ?? ""),
+  }));
 }
 
 /** "app/(shop)/customers/[id]/page" → "/customers/x" with a placeholder for each segment parameter. */
 function pagePath(worker: string): string {
-  const p = worker.replace(/^app/, "").replace(/\/page$/, "").replace(/\/\([^)]+\)/g, "").replace(/\[[^\]]+\]/g, "00000000-0000-4000-8000-000000000001");
+  const p = worker
+    .replace(/^app/, "")
+    .replace(/\/page$/, "")
+    .replace(/\/\([^)]+\)/g, "")
+    .replace(/\[[^\]]+\]/g, "00000000-0000-4000-8000-000000000001");
   return p || "/";
 }
 
@@ -40,7 +60,11 @@ export interface ActionResult {
 }
 
 /** Calls a server action over HTTP the way the browser does. */
-export async function callAction(client: Client | null, ref: ActionRef, args: unknown[]): Promise<ActionResult> {
+export async function callAction(
+  client: Client | null,
+  ref: ActionRef,
+  args: unknown[],
+): Promise<ActionResult> {
   let body: string | FormData;
   try {
     body = await encodeReply(args);
@@ -50,18 +74,33 @@ export async function callAction(client: Client | null, ref: ActionRef, args: un
   const res = await fetch(`${BASE_URL}${ref.page}`, {
     method: "POST",
     redirect: "manual",
-    headers: { accept: "text/x-component", "next-action": ref.id, origin: BASE_URL, ...(typeof body === "string" ? { "content-type": "text/plain;charset=UTF-8" } : {}), ...(client ? { cookie: client.cookie, "x-forwarded-for": client.ip } : {}) },
+    headers: {
+      accept: "text/x-component",
+      "next-action": ref.id,
+      origin: BASE_URL,
+      ...(typeof body === "string" ? { "content-type": "text/plain;charset=UTF-8" } : {}),
+      ...(client ? { cookie: client.cookie, "x-forwarded-for": client.ip } : {}),
+    },
     body,
   });
   const text = await res.text();
-  const line = text.split("\n").map((l) => l.replace(/^[0-9a-f]+:/, "")).find((l) => l.startsWith("{") && l.includes('"ok":'));
+  const line = text
+    .split("\n")
+    .map((l) => l.replace(/^[0-9a-f]+:/, ""))
+    .find((l) => l.startsWith("{") && l.includes('"ok":'));
   let state: ActionResult["state"] = null;
   try {
     state = line ? JSON.parse(line) : null;
   } catch {
     state = null;
   }
-  return { http: res.status, state, redirect: res.headers.get("x-action-redirect") ?? (res.status >= 300 && res.status < 400 ? res.headers.get("location") : null) };
+  return {
+    http: res.status,
+    state,
+    redirect:
+      res.headers.get("x-action-redirect") ??
+      (res.status >= 300 && res.status < 400 ? res.headers.get("location") : null),
+  };
 }
 
 export function formOf(values: Record<string, string>): FormData {

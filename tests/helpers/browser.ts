@@ -21,13 +21,26 @@ export async function launchBrowser(): Promise<Browser> {
 
 let ipCounter = Math.floor(Math.random() * 60000);
 /** A context that looks like its own client to the sign-in rate limit. */
-export async function newClient(browser: Browser, viewport = { width: 1280, height: 900 }): Promise<BrowserContext> {
+export async function newClient(
+  browser: Browser,
+  viewport = { width: 1280, height: 900 },
+): Promise<BrowserContext> {
   ipCounter++;
-  return browser.newContext({ baseURL: BASE_URL, viewport, extraHTTPHeaders: { "x-forwarded-for": `172.${16 + (Math.floor(ipCounter / 62500) % 16)}.${Math.floor(ipCounter / 250) % 250}.${(ipCounter % 250) + 1}` } });
+  return browser.newContext({
+    baseURL: BASE_URL,
+    viewport,
+    extraHTTPHeaders: {
+      "x-forwarded-for": `172.${16 + (Math.floor(ipCounter / 62500) % 16)}.${Math.floor(ipCounter / 250) % 250}.${(ipCounter % 250) + 1}`,
+    },
+  });
 }
 
 /** Signs a demo member in through the form and waits for their landing page. */
-export async function signInAs(page: import("playwright-core").Page, who: "owner" | "tuner" | "counter" | "customer", landing = who === "customer" ? "**/my" : "**/builds") {
+export async function signInAs(
+  page: import("playwright-core").Page,
+  who: "owner" | "tuner" | "counter" | "customer",
+  landing = who === "customer" ? "**/my" : "**/builds",
+) {
   await page.goto("/sign-in");
   await page.getByLabel("E-mail").fill(`${who}@demo.fuelwright.test`);
   await page.getByLabel("Password").fill("fuelwright-demo");

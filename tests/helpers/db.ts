@@ -1,8 +1,12 @@
 import { randomUUID } from "node:crypto";
+
 import { hashPassword } from "better-auth/crypto";
 import postgres from "postgres";
 
-export const sql = postgres(process.env.DATABASE_URL ?? "postgres://fuelwright@127.0.0.1:54339/fuelwright_test", { max: 2, onnotice: () => {} });
+export const sql = postgres(
+  process.env.DATABASE_URL ?? "postgres://fuelwright@127.0.0.1:54339/fuelwright_test",
+  { max: 2, onnotice: () => {} },
+);
 
 /** A second, unrelated shop with an owner who can sign in (password `other-shop-pass`). */
 export async function makeOtherShop(label = randomUUID().slice(0, 8)) {
@@ -22,7 +26,9 @@ export async function makeOtherShop(label = randomUUID().slice(0, 8)) {
 export async function fingerprint(tables: string[]): Promise<string> {
   const parts: string[] = [];
   for (const t of tables) {
-    const [row] = await sql.unsafe(`select count(*)::int as n, coalesce(md5(string_agg(x::text, ',' order by x::text)), '') as h from "${t}" x`);
+    const [row] = await sql.unsafe(
+      `select count(*)::int as n, coalesce(md5(string_agg(x::text, ',' order by x::text)), '') as h from "${t}" x`,
+    );
     parts.push(`${t}:${row!.n}:${row!.h}`);
   }
   return parts.join("|");

@@ -33,7 +33,13 @@ export async function signIn(email: string, password = DEMO_PASSWORD): Promise<C
 }
 
 /** A request as a signed-in client (or signed out with `null`). Redirects are not followed. */
-export async function request(client: Client | null, method: string, path: string, body?: unknown, headers: Record<string, string> = {}) {
+export async function request(
+  client: Client | null,
+  method: string,
+  path: string,
+  body?: unknown,
+  headers: Record<string, string> = {},
+) {
   const res = await fetch(`${BASE_URL}${path}`, {
     method,
     redirect: "manual",
@@ -41,7 +47,9 @@ export async function request(client: Client | null, method: string, path: strin
       origin: BASE_URL,
       "x-forwarded-for": client?.ip ?? nextIp(),
       ...(client ? { cookie: client.cookie } : {}),
-      ...(body !== undefined && typeof body !== "string" ? { "content-type": "application/json" } : {}),
+      ...(body !== undefined && typeof body !== "string"
+        ? { "content-type": "application/json" }
+        : {}),
       ...headers,
     },
     body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
@@ -58,6 +66,13 @@ export async function request(client: Client | null, method: string, path: strin
 
 /** A GET whose body is binary (a PDF, an image). */
 export async function getBytes(client: Client | null, path: string) {
-  const res = await fetch(`${BASE_URL}${path}`, { redirect: "manual", headers: { origin: BASE_URL, "x-forwarded-for": client?.ip ?? nextIp(), ...(client ? { cookie: client.cookie } : {}) } });
+  const res = await fetch(`${BASE_URL}${path}`, {
+    redirect: "manual",
+    headers: {
+      origin: BASE_URL,
+      "x-forwarded-for": client?.ip ?? nextIp(),
+      ...(client ? { cookie: client.cookie } : {}),
+    },
+  });
   return { status: res.status, headers: res.headers, bytes: Buffer.from(await res.arrayBuffer()) };
 }

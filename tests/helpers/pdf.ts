@@ -14,6 +14,10 @@ export function inspectPdf(pdf: Buffer) {
   const info = execFileSync("pdfinfo", [file], { encoding: "utf8" });
   const pages = Number(/Pages:\s+(\d+)/.exec(info)![1]);
   const title = /Title:\s+(.*)/.exec(info)?.[1]?.trim() ?? "";
-  const images = execFileSync("pdfimages", ["-list", file], { encoding: "utf8" }).trim().split("\n").slice(2).filter(Boolean).length;
+  const images = execFileSync("pdfimages", ["-list", file], { encoding: "utf8" })
+    .trim()
+    .split("\n")
+    .slice(2)
+    .filter(Boolean).length;
   return { text, pages, title, images };
 }

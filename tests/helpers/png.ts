@@ -21,12 +21,21 @@ const chunk = (type: string, data: Buffer) => {
 };
 
 /** A real, solid-colour RGB PNG of w × h pixels, made in the test (no fixture file). */
-export function solidPng(w: number, h: number, rgb: [number, number, number] = [179, 89, 44]): Buffer {
+export function solidPng(
+  w: number,
+  h: number,
+  rgb: [number, number, number] = [179, 89, 44],
+): Buffer {
   const ihdr = Buffer.alloc(13);
   ihdr.writeUInt32BE(w, 0);
   ihdr.writeUInt32BE(h, 4);
   ihdr.set([8, 2, 0, 0, 0], 8); // 8-bit, truecolour, deflate, no filter set, no interlace
   const row = Buffer.concat([Buffer.from([0]), Buffer.alloc(w * 3).map((_, i) => rgb[i % 3]!)]);
   const raw = Buffer.concat(Array.from({ length: h }, () => row));
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", ihdr), chunk("IDAT", deflateSync(raw)), chunk("IEND", Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    chunk("IDAT", deflateSync(raw)),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
 }

@@ -1,4 +1,5 @@
 import { expect } from "vitest";
+
 import { formOf } from "./actions";
 import { sql } from "./db";
 import { BASE_URL, request, type Client } from "./http";
@@ -36,57 +37,235 @@ export interface Cell {
 const CSV = (body: string) => ({ body, type: "text/csv" });
 export const ROUTES: Record<string, Cell> = {
   "GET /api/health": { call: () => ({ path: "/api/health" }), expect: "ok ok ok ok ok ok" },
-  "GET /api/auth/[...all]": { call: () => ({ path: "/api/auth/get-session" }), expect: "ok ok ok ok ok ok" },
-  "POST /api/auth/[...all]": { call: () => ({ path: "/api/auth/request-password-reset", body: { email: "nobody@nowhere.fuelwright.test", redirectTo: "/reset-password" } }), expect: "ok ok ok ok ok ok" },
-  "POST /api/webhooks/payments": { call: () => ({ path: "/api/webhooks/payments", body: { id: "evt_forged" } }), expect: "ok ok ok ok ok ok" },
-  "GET /share/[token]/pdf": { call: () => ({ path: "/share/not-a-real-token/pdf" }), expect: "ok ok ok ok ok ok", mayVanish: true },
+  "GET /api/auth/[...all]": {
+    call: () => ({ path: "/api/auth/get-session" }),
+    expect: "ok ok ok ok ok ok",
+  },
+  "POST /api/auth/[...all]": {
+    call: () => ({
+      path: "/api/auth/request-password-reset",
+      body: { email: "nobody@nowhere.fuelwright.test", redirectTo: "/reset-password" },
+    }),
+    expect: "ok ok ok ok ok ok",
+  },
+  "POST /api/webhooks/payments": {
+    call: () => ({ path: "/api/webhooks/payments", body: { id: "evt_forged" } }),
+    expect: "ok ok ok ok ok ok",
+  },
+  "GET /share/[token]/pdf": {
+    call: () => ({ path: "/share/not-a-real-token/pdf" }),
+    expect: "ok ok ok ok ok ok",
+    mayVanish: true,
+  },
 
   "GET /api/v1/builds": { call: () => ({ path: "/api/v1/builds" }), expect: "401 ok ok ok ok ok" },
-  "POST /api/v1/builds": { call: (f) => ({ path: "/api/v1/builds", body: { customerId: f.customer, title: "Matrix build", inputs: f.inputs } }), expect: "401 ok ok 403 403 422" },
-  "GET /api/v1/builds/[id]": { call: (f) => ({ path: `/api/v1/builds/${f.build}` }), expect: "401 ok ok ok ok 404" },
-  "PATCH /api/v1/builds/[id]": { call: (f) => ({ path: `/api/v1/builds/${f.build}`, body: { version: 1, title: "Matrix build", inputs: f.inputs } }), expect: "401 ok ok 403 403 404" },
-  "GET /api/v1/builds/[id]/revisions": { call: (f) => ({ path: `/api/v1/builds/${f.build}/revisions` }), expect: "401 ok ok ok ok 404" },
-  "GET /api/v1/builds/[id]/spec-sheet": { call: (f) => ({ path: `/api/v1/builds/${f.build}/spec-sheet` }), expect: "401 ok ok ok ok 404" },
-  "GET /api/v1/builds/[id]/datalogs": { call: (f) => ({ path: `/api/v1/builds/${f.build}/datalogs` }), expect: "401 ok ok ok 403 404" },
-  "POST /api/v1/builds/[id]/datalogs": { call: (f) => ({ path: `/api/v1/builds/${f.build}/datalogs`, raw: CSV("rpm,duty\n3000,40\n") }), expect: "401 ok ok 403 403 404" },
-  "GET /api/v1/builds/[id]/kit": { call: (f) => ({ path: `/api/v1/builds/${f.build}/kit` }), expect: "401 ok ok ok 403 404" },
-  "POST /api/v1/builds/[id]/kit": { call: (f) => ({ path: `/api/v1/builds/${f.build}/kit`, body: { version: 1, parts: [{ role: "filter", partId: f.part, quantity: 1 }] } }), expect: "401 ok ok ok 403 404" },
-  "GET /api/v1/builds/[id]/share-links": { call: (f) => ({ path: `/api/v1/builds/${f.build}/share-links` }), expect: "401 ok ok ok 403 404" },
-  "POST /api/v1/builds/[id]/share-links": { call: (f) => ({ path: `/api/v1/builds/${f.build}/share-links`, body: { days: 1 } }), expect: "401 ok ok ok 403 404" },
-  "DELETE /api/v1/share-links/[id]": { call: (f) => ({ path: `/api/v1/share-links/${f.share}` }), expect: "401 ok ok ok 403 404", mayVanish: true },
-  "POST /api/v1/calc/size": { call: (f) => ({ path: "/api/v1/calc/size", body: f.inputs }), expect: "401 ok ok ok ok ok" },
-  "POST /api/v1/calc/blend": { call: () => ({ path: "/api/v1/calc/blend", body: {} }), expect: "401 ok ok ok ok ok" },
-  "GET /api/v1/customers": { call: () => ({ path: "/api/v1/customers" }), expect: "401 ok ok ok 403 ok" },
-  "POST /api/v1/customers": { call: () => ({ path: "/api/v1/customers", body: { name: "Matrix customer" } }), expect: "401 ok ok ok 403 ok" },
-  "GET /api/v1/customers/[id]": { call: (f) => ({ path: `/api/v1/customers/${f.customer}` }), expect: "401 ok ok ok 403 404" },
-  "PATCH /api/v1/customers/[id]": { call: (f) => ({ path: `/api/v1/customers/${f.customer}`, body: { name: "Matrix customer (renamed)" } }), expect: "401 ok ok ok 403 404" },
-  "DELETE /api/v1/customers/[id]": { call: (f) => ({ path: `/api/v1/customers/${f.doomedCustomer}` }), expect: "401 ok ok ok 403 404", mayVanish: true },
-  "GET /api/v1/datalogs/[id]": { call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}` }), expect: "401 ok ok ok 403 404" },
-  "GET /api/v1/datalogs/[id]/file": { call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}/file` }), expect: "401 ok ok ok 403 404" },
-  "POST /api/v1/datalogs/[id]/analysis": { call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}/analysis`, body: { mapping: { rpm: "rpm", duty: { column: "duty", kind: "duty_pct" } } } }), expect: "401 ok ok 403 403 404" },
-  "POST /api/v1/datalogs/[id]/verify": { call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}/verify` }), expect: "401 ok ok 403 403 404" },
+  "POST /api/v1/builds": {
+    call: (f) => ({
+      path: "/api/v1/builds",
+      body: { customerId: f.customer, title: "Matrix build", inputs: f.inputs },
+    }),
+    expect: "401 ok ok 403 403 422",
+  },
+  "GET /api/v1/builds/[id]": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "PATCH /api/v1/builds/[id]": {
+    call: (f) => ({
+      path: `/api/v1/builds/${f.build}`,
+      body: { version: 1, title: "Matrix build", inputs: f.inputs },
+    }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "GET /api/v1/builds/[id]/revisions": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/revisions` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "GET /api/v1/builds/[id]/spec-sheet": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/spec-sheet` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "GET /api/v1/builds/[id]/datalogs": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/datalogs` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "POST /api/v1/builds/[id]/datalogs": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/datalogs`, raw: CSV("rpm,duty\n3000,40\n") }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "GET /api/v1/builds/[id]/kit": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/kit` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "POST /api/v1/builds/[id]/kit": {
+    call: (f) => ({
+      path: `/api/v1/builds/${f.build}/kit`,
+      body: { version: 1, parts: [{ role: "filter", partId: f.part, quantity: 1 }] },
+    }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "GET /api/v1/builds/[id]/share-links": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/share-links` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "POST /api/v1/builds/[id]/share-links": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/share-links`, body: { days: 1 } }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "DELETE /api/v1/share-links/[id]": {
+    call: (f) => ({ path: `/api/v1/share-links/${f.share}` }),
+    expect: "401 ok ok ok 403 404",
+    mayVanish: true,
+  },
+  "POST /api/v1/calc/size": {
+    call: (f) => ({ path: "/api/v1/calc/size", body: f.inputs }),
+    expect: "401 ok ok ok ok ok",
+  },
+  "POST /api/v1/calc/blend": {
+    call: () => ({ path: "/api/v1/calc/blend", body: {} }),
+    expect: "401 ok ok ok ok ok",
+  },
+  "GET /api/v1/customers": {
+    call: () => ({ path: "/api/v1/customers" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "POST /api/v1/customers": {
+    call: () => ({ path: "/api/v1/customers", body: { name: "Matrix customer" } }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "GET /api/v1/customers/[id]": {
+    call: (f) => ({ path: `/api/v1/customers/${f.customer}` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "PATCH /api/v1/customers/[id]": {
+    call: (f) => ({
+      path: `/api/v1/customers/${f.customer}`,
+      body: { name: "Matrix customer (renamed)" },
+    }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "DELETE /api/v1/customers/[id]": {
+    call: (f) => ({ path: `/api/v1/customers/${f.doomedCustomer}` }),
+    expect: "401 ok ok ok 403 404",
+    mayVanish: true,
+  },
+  "GET /api/v1/datalogs/[id]": {
+    call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "GET /api/v1/datalogs/[id]/file": {
+    call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}/file` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "POST /api/v1/datalogs/[id]/analysis": {
+    call: (f) => ({
+      path: `/api/v1/datalogs/${f.datalog}/analysis`,
+      body: { mapping: { rpm: "rpm", duty: { column: "duty", kind: "duty_pct" } } },
+    }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "POST /api/v1/datalogs/[id]/verify": {
+    call: (f) => ({ path: `/api/v1/datalogs/${f.datalog}/verify` }),
+    expect: "401 ok ok 403 403 404",
+  },
   "GET /api/v1/parts": { call: () => ({ path: "/api/v1/parts" }), expect: "401 ok ok ok 403 ok" },
-  "POST /api/v1/parts": { call: () => ({ path: "/api/v1/parts", body: {} }), expect: "401 ok 403 ok 403 ok" },
-  "GET /api/v1/parts/[id]": { call: (f) => ({ path: `/api/v1/parts/${f.part}` }), expect: "401 ok ok ok 403 404" },
-  "PATCH /api/v1/parts/[id]": { call: (f) => ({ path: `/api/v1/parts/${f.doomedPart}`, body: { sku: f.doomedSku, category: "fitting", brand: "Matrixware", name: "Access matrix part (renamed)", price: "1.00", stock: "1" } }), expect: "401 ok 403 ok 403 404" },
-  "DELETE /api/v1/parts/[id]": { call: (f) => ({ path: `/api/v1/parts/${f.doomedPart}` }), expect: "401 ok 403 ok 403 404", mayVanish: true },
-  "GET /api/v1/parts/export": { call: () => ({ path: "/api/v1/parts/export" }), expect: "401 ok ok ok 403 ok" },
-  "POST /api/v1/parts/import": { call: () => ({ path: "/api/v1/parts/import?dryRun=1", raw: CSV("sku,name\n") }), expect: "401 ok 403 ok 403 ok" },
+  "POST /api/v1/parts": {
+    call: () => ({ path: "/api/v1/parts", body: {} }),
+    expect: "401 ok 403 ok 403 ok",
+  },
+  "GET /api/v1/parts/[id]": {
+    call: (f) => ({ path: `/api/v1/parts/${f.part}` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "PATCH /api/v1/parts/[id]": {
+    call: (f) => ({
+      path: `/api/v1/parts/${f.doomedPart}`,
+      body: {
+        sku: f.doomedSku,
+        category: "fitting",
+        brand: "Matrixware",
+        name: "Access matrix part (renamed)",
+        price: "1.00",
+        stock: "1",
+      },
+    }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "DELETE /api/v1/parts/[id]": {
+    call: (f) => ({ path: `/api/v1/parts/${f.doomedPart}` }),
+    expect: "401 ok 403 ok 403 404",
+    mayVanish: true,
+  },
+  "GET /api/v1/parts/export": {
+    call: () => ({ path: "/api/v1/parts/export" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "POST /api/v1/parts/import": {
+    call: () => ({ path: "/api/v1/parts/import?dryRun=1", raw: CSV("sku,name\n") }),
+    expect: "401 ok 403 ok 403 ok",
+  },
   "GET /api/v1/quotes": { call: () => ({ path: "/api/v1/quotes" }), expect: "401 ok ok ok ok ok" },
-  "POST /api/v1/quotes": { call: (f) => ({ path: "/api/v1/quotes", body: { buildId: f.build } }), expect: "401 ok 403 ok 403 422" },
-  "GET /api/v1/quotes/[id]": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}` }), expect: "401 ok ok ok 404 404" },
-  "PATCH /api/v1/quotes/[id]": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}`, body: { version: 1, validUntil: "2099-01-31", notes: "Matrix", lines: [] } }), expect: "401 ok 403 ok 403 404" },
-  "POST /api/v1/quotes/[id]/status": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/status`, body: { status: "expired" } }), expect: "401 ok 403 ok 403 404" },
-  "POST /api/v1/quotes/[id]/send": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/send` }), expect: "401 ok 403 ok 403 404" },
-  "POST /api/v1/quotes/[id]/revise": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/revise` }), expect: "401 ok 403 ok 403 404" },
-  "POST /api/v1/quotes/[id]/respond": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/respond`, body: { decision: "accept" } }), expect: "401 403 403 403 404 403" },
-  "POST /api/v1/quotes/[id]/deposit": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/deposit` }), expect: "401 403 403 403 404 403" },
-  "GET /api/v1/quotes/[id]/deposit": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/deposit?session=cs_matrix` }), expect: "401 403 403 403 404 403" },
-  "GET /api/v1/quotes/[id]/pdf": { call: (f) => ({ path: `/api/v1/quotes/${f.quote}/pdf` }), expect: "401 ok ok ok 404 404" },
-  "GET /api/v1/shop/bsfc": { call: () => ({ path: "/api/v1/shop/bsfc" }), expect: "401 ok ok ok 403 ok" },
-  "GET /api/v1/shop/logo": { call: () => ({ path: "/api/v1/shop/logo" }), expect: "401 ok ok ok ok ok", mayVanish: true },
-  "PUT /api/v1/shop/logo": { call: () => ({ path: "/api/v1/shop/logo", raw: { body: "not an image", type: "image/png" } }), expect: "401 ok 403 403 403 ok" },
-  "DELETE /api/v1/shop/logo": { call: () => ({ path: "/api/v1/shop/logo" }), expect: "401 ok 403 403 403 ok", mayVanish: true },
+  "POST /api/v1/quotes": {
+    call: (f) => ({ path: "/api/v1/quotes", body: { buildId: f.build } }),
+    expect: "401 ok 403 ok 403 422",
+  },
+  "GET /api/v1/quotes/[id]": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}` }),
+    expect: "401 ok ok ok 404 404",
+  },
+  "PATCH /api/v1/quotes/[id]": {
+    call: (f) => ({
+      path: `/api/v1/quotes/${f.quote}`,
+      body: { version: 1, validUntil: "2099-01-31", notes: "Matrix", lines: [] },
+    }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/quotes/[id]/status": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/status`, body: { status: "expired" } }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/quotes/[id]/send": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/send` }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/quotes/[id]/revise": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/revise` }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/quotes/[id]/respond": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/respond`, body: { decision: "accept" } }),
+    expect: "401 403 403 403 404 403",
+  },
+  "POST /api/v1/quotes/[id]/deposit": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/deposit` }),
+    expect: "401 403 403 403 404 403",
+  },
+  "GET /api/v1/quotes/[id]/deposit": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/deposit?session=cs_matrix` }),
+    expect: "401 403 403 403 404 403",
+  },
+  "GET /api/v1/quotes/[id]/pdf": {
+    call: (f) => ({ path: `/api/v1/quotes/${f.quote}/pdf` }),
+    expect: "401 ok ok ok 404 404",
+  },
+  "GET /api/v1/shop/bsfc": {
+    call: () => ({ path: "/api/v1/shop/bsfc" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "GET /api/v1/shop/logo": {
+    call: () => ({ path: "/api/v1/shop/logo" }),
+    expect: "401 ok ok ok ok ok",
+    mayVanish: true,
+  },
+  "PUT /api/v1/shop/logo": {
+    call: () => ({ path: "/api/v1/shop/logo", raw: { body: "not an image", type: "image/png" } }),
+    expect: "401 ok 403 403 403 ok",
+  },
+  "DELETE /api/v1/shop/logo": {
+    call: () => ({ path: "/api/v1/shop/logo" }),
+    expect: "401 ok 403 403 403 ok",
+    mayVanish: true,
+  },
 };
 
 export interface ActionCell {
@@ -97,42 +276,134 @@ export interface ActionCell {
 }
 const prev = { ok: false };
 export const ACTIONS: Record<string, ActionCell> = {
-  "app/(shop)/builds/new/actions.ts#createBuildAction": { page: () => "/builds/new", args: (f) => [prev, formOf({ customerId: f.customer, title: "Matrix action build" })], expect: "401 ok ok 403 403 422" },
-  "app/(shop)/builds/[id]/actions.ts#saveBuildAction": { page: (f) => `/builds/${f.build}`, args: (f) => [f.build, { version: 1, title: "Matrix build", inputs: f.inputs }], expect: "401 ok ok 403 403 404" },
-  "app/(shop)/builds/[id]/copy-actions.ts#copyBuildAction": { page: (f) => `/builds/${f.build}`, args: (f) => [f.build], expect: "401 ok ok 403 403 404" },
-  "app/(shop)/builds/[id]/revisions/[version]/actions.ts#restoreRevisionAction": { page: (f) => `/builds/${f.build}/revisions/1`, args: (f) => [{ buildId: f.build, version: 1, currentVersion: 999999 }], expect: "401 ok ok 403 403 404" },
-  "app/(shop)/customers/actions.ts#createCustomerAction": { page: () => "/customers", args: () => [prev, formOf({ name: "Matrix action customer" })], expect: "401 ok ok ok 403 ok" },
-  "app/(shop)/customers/actions.ts#updateCustomerAction": { page: (f) => `/customers/${f.customer}`, args: (f) => [prev, formOf({ id: f.customer, name: "Matrix customer (action)" })], expect: "401 ok ok ok 403 404" },
-  "app/(shop)/customers/actions.ts#deleteCustomerAction": { page: (f) => `/customers/${f.customer}`, args: (f) => [prev, formOf({ id: f.doomedCustomer })], expect: "401 ok ok ok 403 404", mayVanish: true },
-  "app/(shop)/customers/actions.ts#invitePortalAction": { page: (f) => `/customers/${f.customer}`, args: (f) => [prev, formOf({ id: f.customer })], expect: "401 ok ok ok 403 404" },
-  "app/(shop)/settings/actions.ts#updateSettingsAction": { page: () => "/settings", args: () => [prev, formOf({})], expect: "401 ok 403 403 403 ok" },
-  "app/(shop)/settings/actions.ts#inviteMemberAction": { page: () => "/settings", args: () => [prev, formOf({})], expect: "401 ok 403 403 403 ok" },
-  "app/(shop)/settings/actions.ts#changeRoleAction": { page: () => "/settings", args: () => [prev, formOf({})], expect: "401 ok 403 403 403 ok" },
-  "app/(shop)/settings/actions.ts#removeMemberAction": { page: () => "/settings", args: () => [prev, formOf({})], expect: "401 ok 403 403 403 ok" },
-  "app/(shop)/preferences/actions.ts#setUnitsAction": { page: (f) => `/builds/${f.build}`, args: () => [prev, formOf({ units: "metric" })], expect: "401 ok ok ok 403 ok" },
+  "app/(shop)/builds/new/actions.ts#createBuildAction": {
+    page: () => "/builds/new",
+    args: (f) => [prev, formOf({ customerId: f.customer, title: "Matrix action build" })],
+    expect: "401 ok ok 403 403 422",
+  },
+  "app/(shop)/builds/[id]/actions.ts#saveBuildAction": {
+    page: (f) => `/builds/${f.build}`,
+    args: (f) => [f.build, { version: 1, title: "Matrix build", inputs: f.inputs }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "app/(shop)/builds/[id]/copy-actions.ts#copyBuildAction": {
+    page: (f) => `/builds/${f.build}`,
+    args: (f) => [f.build],
+    expect: "401 ok ok 403 403 404",
+  },
+  "app/(shop)/builds/[id]/revisions/[version]/actions.ts#restoreRevisionAction": {
+    page: (f) => `/builds/${f.build}/revisions/1`,
+    args: (f) => [{ buildId: f.build, version: 1, currentVersion: 999999 }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "app/(shop)/customers/actions.ts#createCustomerAction": {
+    page: () => "/customers",
+    args: () => [prev, formOf({ name: "Matrix action customer" })],
+    expect: "401 ok ok ok 403 ok",
+  },
+  "app/(shop)/customers/actions.ts#updateCustomerAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [prev, formOf({ id: f.customer, name: "Matrix customer (action)" })],
+    expect: "401 ok ok ok 403 404",
+  },
+  "app/(shop)/customers/actions.ts#deleteCustomerAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [prev, formOf({ id: f.doomedCustomer })],
+    expect: "401 ok ok ok 403 404",
+    mayVanish: true,
+  },
+  "app/(shop)/customers/actions.ts#invitePortalAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [prev, formOf({ id: f.customer })],
+    expect: "401 ok ok ok 403 404",
+  },
+  "app/(shop)/settings/actions.ts#updateSettingsAction": {
+    page: () => "/settings",
+    args: () => [prev, formOf({})],
+    expect: "401 ok 403 403 403 ok",
+  },
+  "app/(shop)/settings/actions.ts#inviteMemberAction": {
+    page: () => "/settings",
+    args: () => [prev, formOf({})],
+    expect: "401 ok 403 403 403 ok",
+  },
+  "app/(shop)/settings/actions.ts#changeRoleAction": {
+    page: () => "/settings",
+    args: () => [prev, formOf({})],
+    expect: "401 ok 403 403 403 ok",
+  },
+  "app/(shop)/settings/actions.ts#removeMemberAction": {
+    page: () => "/settings",
+    args: () => [prev, formOf({})],
+    expect: "401 ok 403 403 403 ok",
+  },
+  "app/(shop)/preferences/actions.ts#setUnitsAction": {
+    page: (f) => `/builds/${f.build}`,
+    args: () => [prev, formOf({ units: "metric" })],
+    expect: "401 ok ok ok 403 ok",
+  },
   // Public by design: signing up and accepting an invitation check their own inputs.
-  "app/(auth)/actions.ts#signUpAction": { page: () => "/sign-up", args: () => [prev, formOf({})], expect: "ok ok ok ok ok ok" },
-  "app/(auth)/actions.ts#acceptInvitationAction": { page: () => "/accept-invitation/00000000-0000-4000-8000-00000000abcd", args: () => [prev, formOf({ invitationId: "00000000-0000-4000-8000-00000000abcd" })], expect: "ok ok ok ok ok ok", mayVanish: true },
-  "app/(auth)/actions.ts#acceptAsSignedInAction": { page: () => "/accept-invitation/00000000-0000-4000-8000-00000000abcd", args: () => ["00000000-0000-4000-8000-00000000abcd"], expect: "ok ok ok ok ok ok", mayVanish: true },
+  "app/(auth)/actions.ts#signUpAction": {
+    page: () => "/sign-up",
+    args: () => [prev, formOf({})],
+    expect: "ok ok ok ok ok ok",
+  },
+  "app/(auth)/actions.ts#acceptInvitationAction": {
+    page: () => "/accept-invitation/00000000-0000-4000-8000-00000000abcd",
+    args: () => [prev, formOf({ invitationId: "00000000-0000-4000-8000-00000000abcd" })],
+    expect: "ok ok ok ok ok ok",
+    mayVanish: true,
+  },
+  "app/(auth)/actions.ts#acceptAsSignedInAction": {
+    page: () => "/accept-invitation/00000000-0000-4000-8000-00000000abcd",
+    args: () => ["00000000-0000-4000-8000-00000000abcd"],
+    expect: "ok ok ok ok ok ok",
+    mayVanish: true,
+  },
 };
 
 /** Fresh fixtures in the demo shop, made by its staff. */
 export async function makeFixtures(c: { tuner: Client; counter: Client }): Promise<Fx> {
   const { tuner, counter } = c;
-  const [demo] = await sql`select customer_id, inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
+  const [demo] =
+    await sql`select customer_id, inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
   const portalCustomer = demo!.customer_id as string; // linked to the demo customer's sign-in
-  const made = await request(tuner, "POST", "/api/v1/builds", { customerId: portalCustomer, title: "Access matrix build", inputs: demo!.inputs });
+  const made = await request(tuner, "POST", "/api/v1/builds", {
+    customerId: portalCustomer,
+    title: "Access matrix build",
+    inputs: demo!.inputs,
+  });
   const build = made.json.build.id as string;
-  const doomed = await request(counter, "POST", "/api/v1/customers", { name: "Access matrix doomed customer" });
+  const doomed = await request(counter, "POST", "/api/v1/customers", {
+    name: "Access matrix doomed customer",
+  });
   // The one the customer routes and actions edit: never a shared demo record.
-  const own = await request(counter, "POST", "/api/v1/customers", { name: "Access matrix customer", email: `matrix-${Date.now().toString(36)}@example.test` });
+  const own = await request(counter, "POST", "/api/v1/customers", {
+    name: "Access matrix customer",
+    email: `matrix-${Date.now().toString(36)}@example.test`,
+  });
   const quote = await request(counter, "POST", "/api/v1/quotes", { buildId: build });
-  const [part] = await sql`select id from parts where shop_id = 'demo-shop-ridgeback' order by sku limit 1`;
+  const [part] =
+    await sql`select id from parts where shop_id = 'demo-shop-ridgeback' order by sku limit 1`;
   const doomedSku = `MX-${Date.now().toString(36)}`;
-  const [doomedPart] = await sql`insert into parts (shop_id, sku, category, brand, name, price_minor) values ('demo-shop-ridgeback', ${doomedSku}, 'fitting', 'Matrixware', 'Access matrix doomed part', 100) returning id`;
-  const log = await fetch(`${BASE_URL}/api/v1/builds/${build}/datalogs`, { method: "POST", body: "rpm,duty\n3000,40\n3100,41\n", headers: { cookie: tuner.cookie, "x-forwarded-for": tuner.ip, origin: BASE_URL, "content-type": "text/csv", "x-file-name": "matrix.csv" } });
+  const [doomedPart] =
+    await sql`insert into parts (shop_id, sku, category, brand, name, price_minor) values ('demo-shop-ridgeback', ${doomedSku}, 'fitting', 'Matrixware', 'Access matrix doomed part', 100) returning id`;
+  const log = await fetch(`${BASE_URL}/api/v1/builds/${build}/datalogs`, {
+    method: "POST",
+    body: "rpm,duty\n3000,40\n3100,41\n",
+    headers: {
+      cookie: tuner.cookie,
+      "x-forwarded-for": tuner.ip,
+      origin: BASE_URL,
+      "content-type": "text/csv",
+      "x-file-name": "matrix.csv",
+    },
+  });
   const share = await request(tuner, "POST", `/api/v1/builds/${build}/share-links`, { days: 1 });
-  expect([made.status, doomed.status, own.status, quote.status, log.status, share.status], "fixtures").toEqual([201, 201, 201, 201, 201, 201]);
+  expect(
+    [made.status, doomed.status, own.status, quote.status, log.status, share.status],
+    "fixtures",
+  ).toEqual([201, 201, 201, 201, 201, 201]);
   return {
     build,
     customer: own.json.customer.id,

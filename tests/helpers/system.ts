@@ -1,6 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
 import { existsSync } from "node:fs";
+
 import postgres from "postgres";
 
 /**
@@ -8,7 +9,9 @@ import postgres from "postgres";
  * killed by the test, on their own database in the test cluster, and that cluster stopped and
  * started under them. `npm test` runs these after every other suite, alone.
  */
-export const PG_PORT = Number(new URL(process.env.DATABASE_URL ?? "postgres://x@127.0.0.1:54339/x").port || 54339);
+export const PG_PORT = Number(
+  new URL(process.env.DATABASE_URL ?? "postgres://x@127.0.0.1:54339/x").port || 54339,
+);
 export const SYSTEM_DB = "fuelwright_system";
 export const SYSTEM_DB_URL = `postgres://fuelwright@127.0.0.1:${PG_PORT}/${SYSTEM_DB}`;
 const DIST = process.env.NEXT_DIST_DIR || ".next-test";
@@ -50,27 +53,45 @@ export interface App {
 
 /** Starts `next start` on the production build; resolves when /api/health answers. */
 export async function startApp(port: number, env: Record<string, string> = {}): Promise<App> {
-  if (!existsSync(`${DIST}/BUILD_ID`)) throw new Error(`no production build in ${DIST}: run npm test, or npm run test:env -- --prod`);
+  if (!existsSync(`${DIST}/BUILD_ID`))
+    throw new Error(`no production build in ${DIST}: run npm test, or npm run test:env -- --prod`);
   const log: string[] = [];
-  const proc = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)], {
-    env: { ...process.env, NODE_ENV: "production", NEXT_DIST_DIR: DIST, DATABASE_URL: SYSTEM_DB_URL, APP_URL: `http://127.0.0.1:${port}`, AUTH_RATE_LIMIT: "off", ...env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
+  const proc = spawn(
+    process.execPath,
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)],
+    {
+      env: {
+        ...process.env,
+        NODE_ENV: "production",
+        NEXT_DIST_DIR: DIST,
+        DATABASE_URL: SYSTEM_DB_URL,
+        APP_URL: `http://127.0.0.1:${port}`,
+        AUTH_RATE_LIMIT: "off",
+        ...env,
+      },
+      stdio: ["ignore", "pipe", "pipe"],
+    },
+  );
   proc.stdout!.on("data", (d) => log.push(String(d)));
   proc.stderr!.on("data", (d) => log.push(String(d)));
   const url = `http://127.0.0.1:${port}`;
   const end = Date.now() + 60_000;
   for (;;) {
-    if (proc.exitCode !== null) throw new Error(`app on ${port} exited: ${log.join("").slice(-2000)}`);
+    if (proc.exitCode !== null)
+      throw new Error(`app on ${port} exited: ${log.join("").slice(-2000)}`);
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
     } catch {
       /* not up yet */
     }
-    if (Date.now() > end) throw new Error(`app on ${port} did not come up: ${log.join("").slice(-2000)}`);
+    if (Date.now() > end)
+      throw new Error(`app on ${port} did not come up: ${log.join("").slice(-2000)}`);
     await new Promise((r) => setTimeout(r, 200));
   }
-  const exited = () => (proc.exitCode !== null || proc.signalCode !== null ? Promise.resolve() : once(proc, "exit").then(() => undefined));
+  const exited = () =>
+    proc.exitCode !== null || proc.signalCode !== null
+      ? Promise.resolve()
+      : once(proc, "exit").then(() => undefined);
   return {
     port,
     url,
@@ -88,14 +109,45 @@ export async function startApp(port: number, env: Record<string, string> = {}): 
 }
 
 /** Signs in against one instance; the cookie works on any instance sharing the database. */
-export async function signInAt(url: string, email: string, password = "fuelwright-demo", origin = url) {
-  const res = await fetch(`${url}/api/auth/sign-in/email`, { method: "POST", headers: { "content-type": "application/json", origin }, body: JSON.stringify({ email, password }) });
+export async function signInAt(
+  url: string,
+  email: string,
+  password = "fuelwright-demo",
+  origin = url,
+) {
+  const res = await fetch(`${url}/api/auth/sign-in/email`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin },
+    body: JSON.stringify({ email, password }),
+  });
   if (!res.ok) throw new Error(`sign-in at ${url} failed: ${res.status} ${await res.text()}`);
-  return { cookie: res.headers.getSetCookie().map((c) => c.split(";")[0]!).join("; "), setCookie: res.headers.getSetCookie() };
+  return {
+    cookie: res.headers
+      .getSetCookie()
+      .map((c) => c.split(";")[0]!)
+      .join("; "),
+    setCookie: res.headers.getSetCookie(),
+  };
 }
 
-export async function call(url: string, cookie: string, method: string, path: string, body?: unknown, origin = url) {
-  const res = await fetch(`${url}${path}`, { method, redirect: "manual", headers: { cookie, origin, ...(body === undefined ? {} : { "content-type": "application/json" }) }, body: body === undefined ? undefined : JSON.stringify(body) });
+export async function call(
+  url: string,
+  cookie: string,
+  method: string,
+  path: string,
+  body?: unknown,
+  origin = url,
+) {
+  const res = await fetch(`${url}${path}`, {
+    method,
+    redirect: "manual",
+    headers: {
+      cookie,
+      origin,
+      ...(body === undefined ? {} : { "content-type": "application/json" }),
+    },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
   const text = await res.text();
   let json: any;
   try {

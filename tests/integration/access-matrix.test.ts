@@ -1,10 +1,12 @@
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
+
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { actionManifest, callAction, type ActionRef } from "../helpers/actions";
-import { ACTIONS, ROUTES, WHO, makeFixtures, type Fx, type Who } from "../helpers/surface";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
+import { ACTIONS, makeFixtures, ROUTES, WHO, type Fx, type Who } from "../helpers/surface";
 
 /**
  * Every route handler and every server action of the app, found in the file tree, against
@@ -30,20 +32,56 @@ const routeKeys = files
   .filter((f) => f.endsWith("/route.ts"))
   .flatMap((f) => {
     const src = readFileSync(f, "utf8");
-    const path = f.replace(/^app/, "").replace(/\/route\.ts$/, "").replace(/\/\([^)]+\)/g, "");
-    const methods = new Set([...src.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]!));
-    for (const m of src.matchAll(/export const \{([^}]+)\}/g)) for (const x of m[1]!.split(",")) if (/^(GET|POST|PUT|PATCH|DELETE)$/.test(x.trim())) methods.add(x.trim());
+    const path = f
+      .replace(/^app/, "")
+      .replace(/\/route\.ts$/, "")
+      .replace(/\/\([^)]+\)/g, "");
+    const methods = new Set(
+      [...src.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)].map(
+        (m) => m[1]!,
+      ),
+    );
+    for (const m of src.matchAll(/export const \{([^}]+)\}/g))
+      for (const x of m[1]!.split(","))
+        if (/^(GET|POST|PUT|PATCH|DELETE)$/.test(x.trim())) methods.add(x.trim());
     return [...methods].map((m) => `${m} ${path}`);
   });
 const actionKeys = files
-  .filter((f) => f.endsWith(".ts") && /^["']use server["']/.test(readFileSync(f, "utf8").trimStart()))
-  .flatMap((f) => [...readFileSync(f, "utf8").matchAll(/export (?:const|async function) (\w+Action)\b/g)].map((m) => `${f}#${m[1]}`));
+  .filter(
+    (f) => f.endsWith(".ts") && /^["']use server["']/.test(readFileSync(f, "utf8").trimStart()),
+  )
+  .flatMap((f) =>
+    [...readFileSync(f, "utf8").matchAll(/export (?:const|async function) (\w+Action)\b/g)].map(
+      (m) => `${f}#${m[1]}`,
+    ),
+  );
 
 let fx: Fx;
 const clients = {} as Record<Who, Client | null>;
 
 // Everything but sessions and rate-limit counters, which sign-ins and reads touch by design.
-const TABLES = ["account", "build_revisions", "builds", "customers", "datalog_mappings", "datalogs", "invitation", "member", "organization", "parts", "payment_events", "payments", "quote_lines", "quote_messages", "quotes", "share_links", "shop_counters", "shop_logos", "shop_settings", "user"];
+const TABLES = [
+  "account",
+  "build_revisions",
+  "builds",
+  "customers",
+  "datalog_mappings",
+  "datalogs",
+  "invitation",
+  "member",
+  "organization",
+  "parts",
+  "payment_events",
+  "payments",
+  "quote_lines",
+  "quote_messages",
+  "quotes",
+  "share_links",
+  "shop_counters",
+  "shop_logos",
+  "shop_settings",
+  "user",
+];
 
 beforeAll(async () => {
   const other = await makeOtherShop();
@@ -77,10 +115,22 @@ describe("access matrix", () => {
   it("lists every route handler and every server action (a new one without a row fails here)", () => {
     expect(routeKeys.length).toBeGreaterThan(40);
     expect(actionKeys.length).toBeGreaterThan(10);
-    expect(routeKeys.filter((k) => !(k in ROUTES)), "routes without a matrix row").toEqual([]);
-    expect(Object.keys(ROUTES).filter((k) => !routeKeys.includes(k)), "matrix rows for routes that no longer exist").toEqual([]);
-    expect(actionKeys.filter((k) => !(k in ACTIONS)), "actions without a matrix row").toEqual([]);
-    expect(Object.keys(ACTIONS).filter((k) => !actionKeys.includes(k)), "matrix rows for actions that no longer exist").toEqual([]);
+    expect(
+      routeKeys.filter((k) => !(k in ROUTES)),
+      "routes without a matrix row",
+    ).toEqual([]);
+    expect(
+      Object.keys(ROUTES).filter((k) => !routeKeys.includes(k)),
+      "matrix rows for routes that no longer exist",
+    ).toEqual([]);
+    expect(
+      actionKeys.filter((k) => !(k in ACTIONS)),
+      "actions without a matrix row",
+    ).toEqual([]);
+    expect(
+      Object.keys(ACTIONS).filter((k) => !actionKeys.includes(k)),
+      "matrix rows for actions that no longer exist",
+    ).toEqual([]);
   });
 
   it("route handlers: each caller gets the expected outcome; every refusal changes nothing", async () => {
@@ -92,11 +142,20 @@ describe("access matrix", () => {
         const { path, body, raw } = cell.call(fx);
         const denied = expected[i] !== "ok";
         const before = denied ? await fingerprint(TABLES) : "";
-        const res = raw ? await request(clients[who], method, path, raw.body as string, { "content-type": raw.type }) : await request(clients[who], method, path, body);
+        const res = raw
+          ? await request(clients[who], method, path, raw.body as string, {
+              "content-type": raw.type,
+            })
+          : await request(clients[who], method, path, body);
         judge(key, who, expected[i]!, res.status, Boolean(cell.mayVanish));
         if (denied) {
-          expect(res.headers.get("content-type"), `${key} as ${who}: a JSON refusal`).toMatch(/application\/json/);
-          expect(await fingerprint(TABLES), `${key} as ${who}: a refusal changed the database`).toBe(before);
+          expect(res.headers.get("content-type"), `${key} as ${who}: a JSON refusal`).toMatch(
+            /application\/json/,
+          );
+          expect(
+            await fingerprint(TABLES),
+            `${key} as ${who}: a refusal changed the database`,
+          ).toBe(before);
         }
       }
     }
@@ -117,9 +176,17 @@ describe("access matrix", () => {
         expect(r.http, `${key} as ${who}: the action answered`).toBeLessThan(500);
         // A redirect is success; otherwise the state's status says how it ended.
         // The proxy sends a caller with no session to sign-in before any action runs.
-        const status = r.redirect ? (/\/sign-in\b/.test(r.redirect) ? 401 : 200) : (r.state?.status ?? 200);
+        const status = r.redirect
+          ? /\/sign-in\b/.test(r.redirect)
+            ? 401
+            : 200
+          : (r.state?.status ?? 200);
         judge(key, who, expected[i]!, status, Boolean(cell.mayVanish));
-        if (denied) expect(await fingerprint(TABLES), `${key} as ${who}: a refusal changed the database`).toBe(before);
+        if (denied)
+          expect(
+            await fingerprint(TABLES),
+            `${key} as ${who}: a refusal changed the database`,
+          ).toBe(before);
       }
     }
   });

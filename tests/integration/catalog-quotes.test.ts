@@ -1,12 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
 
 let counter: Client, tuner: Client, customer: Client, outsider: Client;
 const tag = `T${Date.now().toString(36).toUpperCase()}`;
-const HEADER = "sku,category,brand,name,price,cost,stock,reorder_level,flow_cc_min,rated_kpa,min_pulse_ms,ethanol_ok,pump_curve,mounting,an_dash,inside_mm";
-const csvPost = (c: Client, body: string, dry = false) => request(c, "POST", `/api/v1/parts/import${dry ? "?dryRun=1" : ""}`, body, { "content-type": "text/csv" });
+const HEADER =
+  "sku,category,brand,name,price,cost,stock,reorder_level,flow_cc_min,rated_kpa,min_pulse_ms,ethanol_ok,pump_curve,mounting,an_dash,inside_mm";
+const csvPost = (c: Client, body: string, dry = false) =>
+  request(c, "POST", `/api/v1/parts/import${dry ? "?dryRun=1" : ""}`, body, {
+    "content-type": "text/csv",
+  });
 
 beforeAll(async () => {
   const other = await makeOtherShop();
@@ -40,7 +45,11 @@ describe("catalog CSV import", () => {
       expect.arrayContaining([
         expect.objectContaining({ line: 3, field: "price" }),
         expect.objectContaining({ line: 4, field: "category" }),
-        expect.objectContaining({ line: 6, field: "sku", message: expect.stringContaining("line 2") }),
+        expect.objectContaining({
+          line: 6,
+          field: "sku",
+          message: expect.stringContaining("line 2"),
+        }),
         expect.objectContaining({ line: 7, field: "pump_curve" }),
       ]),
     );
@@ -49,7 +58,11 @@ describe("catalog CSV import", () => {
   });
 
   it("previews without writing, then imports every row and updates known SKUs; export reads back", async () => {
-    const csv = [HEADER, `${tag}-P,pump,Testbrand,Good pump,249.50,150,3,1,,,,yes,13.5V 300:400 500:340 700:270,in-tank,,`, `${tag}-H,line,Testbrand,Hose,24,,50,10,,,,yes,,,8,10.3`].join("\r\n");
+    const csv = [
+      HEADER,
+      `${tag}-P,pump,Testbrand,Good pump,249.50,150,3,1,,,,yes,13.5V 300:400 500:340 700:270,in-tank,,`,
+      `${tag}-H,line,Testbrand,Hose,24,,50,10,,,,yes,,,8,10.3`,
+    ].join("\r\n");
     const before = await fingerprint(["parts"]);
     const dry = await csvPost(counter, csv, true);
     expect(dry.status).toBe(200);
@@ -59,7 +72,8 @@ describe("catalog CSV import", () => {
     expect(done.json).toMatchObject({ added: 2, updated: 0 });
     const again = await csvPost(counter, csv.replace("249.50", "259.00"));
     expect(again.json).toMatchObject({ added: 0, updated: 2 });
-    const [p] = await sql`select price_minor, specs from parts where shop_id = 'demo-shop-ridgeback' and sku = ${`${tag}-P`}`;
+    const [p] =
+      await sql`select price_minor, specs from parts where shop_id = 'demo-shop-ridgeback' and sku = ${`${tag}-P`}`;
     expect(p!.price_minor).toBe(25900);
     expect(p!.specs.curves[0].points[1]).toEqual({ pressureKpa: 500, flowLPerH: 340 });
     const exp = await request(counter, "GET", "/api/v1/parts/export");
@@ -72,9 +86,15 @@ describe("catalog CSV import", () => {
     const before = await fingerprint(["parts"]);
     expect((await csvPost(counter, "")).status).toBe(400);
     expect((await csvPost(counter, "sku,category\u0000\u0001")).status).toBe(415);
-    expect((await request(counter, "POST", "/api/v1/parts/import", "x", { "content-type": "image/png" })).status).toBe(415);
+    expect(
+      (await request(counter, "POST", "/api/v1/parts/import", "x", { "content-type": "image/png" }))
+        .status,
+    ).toBe(415);
     expect((await csvPost(counter, `${HEADER}\n${"x,".repeat(1_100_000)}`)).status).toBe(413);
-    expect((await csvPost(counter, "sku,brand\nA,B")).json.error.rows[0]).toMatchObject({ line: 1, field: "header" });
+    expect((await csvPost(counter, "sku,brand\nA,B")).json.error.rows[0]).toMatchObject({
+      line: 1,
+      field: "header",
+    });
     expect(await fingerprint(["parts"])).toBe(before);
   });
 
@@ -94,38 +114,89 @@ describe("quotes", () => {
   const customerId = "00000000-0000-4000-8000-000000000001"; // the portal customer (db/seed.ts)
 
   it("numbers have no gaps or duplicates under 20 concurrent creations", async () => {
-    const made = await Promise.all(Array.from({ length: 20 }, () => request(counter, "POST", "/api/v1/quotes", { customerId })));
+    const made = await Promise.all(
+      Array.from({ length: 20 }, () => request(counter, "POST", "/api/v1/quotes", { customerId })),
+    );
     expect(made.map((r) => r.status)).toEqual(Array(20).fill(201));
     const numbers = made.map((r) => r.json.quote.number as number).sort((a, b) => a - b);
     expect(new Set(numbers).size).toBe(20);
     expect(numbers[19]! - numbers[0]!).toBe(19);
-    const [{ max }] = (await sql`select max(number)::int as max from quotes where shop_id = 'demo-shop-ridgeback'`) as unknown as [{ max: number }];
+    const [{ max }] =
+      (await sql`select max(number)::int as max from quotes where shop_id = 'demo-shop-ridgeback'`) as unknown as [
+        { max: number },
+      ];
     expect(max).toBe(numbers[19]);
   });
 
   it("holds stock when accepted and releases it when declined; editing locks once accepted", async () => {
-    const [part] = await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs) values ('demo-shop-ridgeback', ${`${tag}-RES`}, 'other', 'Testbrand', 'Reservable', 1000, 5, '{}') returning id`;
+    const [part] =
+      await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs) values ('demo-shop-ridgeback', ${`${tag}-RES`}, 'other', 'Testbrand', 'Reservable', 1000, 5, '{}') returning id`;
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
-    const lines = [{ kind: "part", partId: part!.id, description: "Reservable", quantityMilli: 2000, unitPriceMinor: 1000, discountBp: 0 }];
-    const saved = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "2099-01-01", lines });
+    const lines = [
+      {
+        kind: "part",
+        partId: part!.id,
+        description: "Reservable",
+        quantityMilli: 2000,
+        unitPriceMinor: 1000,
+        discountBp: 0,
+      },
+    ];
+    const saved = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "2099-01-01",
+      lines,
+    });
     expect(saved.status).toBe(200);
     // By hand: 2 × 10.00 = 20.00; 8.25 % tax = 1.65; total 21.65.
-    expect(saved.json.quote).toMatchObject({ subtotalMinor: 2000, taxMinor: 165, totalMinor: 2165 });
-    const reserved = async () => (await sql`select reserved from parts where id = ${part!.id}`)[0]!.reserved as number;
-    expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" })).status).toBe(422); // draft → accepted skips "sent"
+    expect(saved.json.quote).toMatchObject({
+      subtotalMinor: 2000,
+      taxMinor: 165,
+      totalMinor: 2165,
+    });
+    const reserved = async () =>
+      (await sql`select reserved from parts where id = ${part!.id}`)[0]!.reserved as number;
+    expect(
+      (await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" }))
+        .status,
+    ).toBe(422); // draft → accepted skips "sent"
     await sql`update quotes set status = 'sent' where id = ${q.id}`;
-    expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" })).status).toBe(200);
+    expect(
+      (await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" }))
+        .status,
+    ).toBe(200);
     expect(await reserved()).toBe(2);
-    const locked = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: saved.json.quote.version + 2, validUntil: "2099-01-01", lines: [] });
+    const locked = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: saved.json.quote.version + 2,
+      validUntil: "2099-01-01",
+      lines: [],
+    });
     expect(locked.status).toBe(409);
-    expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "declined" })).status).toBe(200);
+    expect(
+      (await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "declined" }))
+        .status,
+    ).toBe(200);
     expect(await reserved()).toBe(0);
   });
 
   it("a revision of an accepted quote keeps its number and moves the held stock", async () => {
-    const [part] = await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs) values ('demo-shop-ridgeback', ${`${tag}-REV`}, 'other', 'Testbrand', 'Revisable', 500, 9, '{}') returning id`;
+    const [part] =
+      await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs) values ('demo-shop-ridgeback', ${`${tag}-REV`}, 'other', 'Testbrand', 'Revisable', 500, 9, '{}') returning id`;
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
-    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "2099-01-01", lines: [{ kind: "part", partId: part!.id, description: "R", quantityMilli: 3000, unitPriceMinor: 500, discountBp: 0 }] });
+    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "2099-01-01",
+      lines: [
+        {
+          kind: "part",
+          partId: part!.id,
+          description: "R",
+          quantityMilli: 3000,
+          unitPriceMinor: 500,
+          discountBp: 0,
+        },
+      ],
+    });
     await sql`update quotes set status = 'sent' where id = ${q.id}`;
     await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" });
     const rev = await request(counter, "POST", `/api/v1/quotes/${q.id}/revise`);
@@ -138,20 +209,55 @@ describe("quotes", () => {
   it("bad lines get field errors and write nothing", async () => {
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
     const before = await fingerprint(["quotes", "quote_lines"]);
-    const r = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "soon", lines: [{ kind: "part", description: "", quantityMilli: -1, unitPriceMinor: 1.5, discountBp: 20000 }] });
+    const r = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "soon",
+      lines: [
+        {
+          kind: "part",
+          description: "",
+          quantityMilli: -1,
+          unitPriceMinor: 1.5,
+          discountBp: 20000,
+        },
+      ],
+    });
     expect(r.status).toBe(422);
     const paths = r.json.error.issues.map((i: { path: string }) => i.path);
-    expect(paths).toEqual(expect.arrayContaining(["validUntil", "lines.0.description", "lines.0.quantityMilli", "lines.0.unitPriceMinor", "lines.0.discountBp"]));
+    expect(paths).toEqual(
+      expect.arrayContaining([
+        "validUntil",
+        "lines.0.description",
+        "lines.0.quantityMilli",
+        "lines.0.unitPriceMinor",
+        "lines.0.discountBp",
+      ]),
+    );
     expect(await fingerprint(["quotes", "quote_lines"])).toBe(before);
   });
 
   it("sending e-mails the customer with a portal link and logs it; the customer sees only their own quotes", async () => {
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
     expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/send`)).status).toBe(422); // no lines yet
-    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "2099-01-01", lines: [{ kind: "labour", description: "Fitting", quantityMilli: 1500, unitPriceMinor: 12000, discountBp: 0 }] });
+    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "2099-01-01",
+      lines: [
+        {
+          kind: "labour",
+          description: "Fitting",
+          quantityMilli: 1500,
+          unitPriceMinor: 12000,
+          discountBp: 0,
+        },
+      ],
+    });
     const sent = await request(counter, "POST", `/api/v1/quotes/${q.id}/send`);
     expect(sent.status).toBe(200);
-    const mail = await waitForMail("customer@demo.fuelwright.test", new RegExp(`Q-${String(q.number).padStart(4, "0")}`));
+    const mail = await waitForMail(
+      "customer@demo.fuelwright.test",
+      new RegExp(`Q-${String(q.number).padStart(4, "0")}`),
+    );
     expect(mail.text).toContain(`/my/quotes/${q.id}`);
     expect(mail.text).toContain("$194.85"); // 1.5 h × 120.00 = 180.00 + 8.25 % = 194.85 (by hand)
     const got = await request(customer, "GET", `/api/v1/quotes/${q.id}`);
@@ -161,12 +267,19 @@ describe("quotes", () => {
     const list = await request(customer, "GET", "/api/v1/quotes");
     const ids = list.json.quotes.map((x: { id: string }) => x.id);
     expect(ids).toContain(q.id);
-    const [{ n }] = (await sql`select count(*)::int as n from quotes q join customers c on c.id = q.customer_id where c.user_id = 'demo-user-customer' and q.status <> 'draft'`) as unknown as [{ n: number }];
+    const [{ n }] =
+      (await sql`select count(*)::int as n from quotes q join customers c on c.id = q.customer_id where c.user_id = 'demo-user-customer' and q.status <> 'draft'`) as unknown as [
+        { n: number },
+      ];
     expect(ids).toHaveLength(n);
     // Another customer's quote is "not found" to this customer, and any quote to another shop.
-    const [othersQuote] = await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null limit 1`;
+    const [othersQuote] =
+      await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null limit 1`;
     expect((await request(customer, "GET", `/api/v1/quotes/${othersQuote!.id}`)).status).toBe(404);
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" })).status).toBe(403);
+    expect(
+      (await request(customer, "POST", `/api/v1/quotes/${q.id}/status`, { status: "accepted" }))
+        .status,
+    ).toBe(403);
     expect((await request(outsider, "GET", `/api/v1/quotes/${q.id}`)).status).toBe(404);
     expect((await request(outsider, "POST", `/api/v1/quotes/${q.id}/send`)).status).toBe(404);
     expect((await request(tuner, "POST", "/api/v1/quotes", { customerId })).status).toBe(403);
@@ -177,18 +290,42 @@ describe("customer decisions", () => {
   it("the customer accepts their own sent quote once; the decision records who and when", async () => {
     const customerId = "00000000-0000-4000-8000-000000000001";
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId })).json.quote;
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(404); // a draft is not shown to the customer at all
+    expect(
+      (await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" }))
+        .status,
+    ).toBe(404); // a draft is not shown to the customer at all
     await sql`update quotes set status = 'sent' where id = ${q.id}`;
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "maybe" })).status).toBe(422);
-    expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(403);
-    const ok = await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" });
+    expect(
+      (await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "maybe" }))
+        .status,
+    ).toBe(422);
+    expect(
+      (await request(counter, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" }))
+        .status,
+    ).toBe(403);
+    const ok = await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, {
+      decision: "accept",
+    });
     expect(ok.status).toBe(200);
-    expect(ok.json.quote).toMatchObject({ status: "accepted", statusChangedBy: "demo-user-customer" });
+    expect(ok.json.quote).toMatchObject({
+      status: "accepted",
+      statusChangedBy: "demo-user-customer",
+    });
     expect(ok.json.quote.statusChangedAt).toBeTruthy();
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "decline" })).status).toBe(409);
-    const [other] = await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null and q.status = 'sent' limit 1`;
+    expect(
+      (await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "decline" }))
+        .status,
+    ).toBe(409);
+    const [other] =
+      await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null and q.status = 'sent' limit 1`;
     expect(other).toBeTruthy(); // demo quote 2 is sent to a customer without a sign-in (db/seed.ts)
-    expect((await request(customer, "POST", `/api/v1/quotes/${other!.id}/respond`, { decision: "accept" })).status).toBe(404);
+    expect(
+      (
+        await request(customer, "POST", `/api/v1/quotes/${other!.id}/respond`, {
+          decision: "accept",
+        })
+      ).status,
+    ).toBe(404);
   });
 });
 
@@ -201,24 +338,59 @@ describe("kit recommendation on a build", () => {
     expect(inj.length).toBeGreaterThan(3);
     const best = inj[0];
     expect(best.fits).toBe(true);
-    const pump = kit.json.roles.find((r: { role: string }) => r.role === "pump").candidates.find((c: { fits: boolean }) => c.fits);
+    const pump = kit.json.roles
+      .find((r: { role: string }) => r.role === "pump")
+      .candidates.find((c: { fits: boolean }) => c.fits);
     const before = await fingerprint(["builds", "build_revisions"]);
-    expect((await request(customer, "POST", `/api/v1/builds/${buildId}/kit`, { version: kit.json.buildVersion, parts: [] })).status).toBe(403);
-    expect((await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, { version: kit.json.buildVersion, parts: [{ role: "pump", partId: best.part.id, quantity: 1 }] })).status).toBe(422);
+    expect(
+      (
+        await request(customer, "POST", `/api/v1/builds/${buildId}/kit`, {
+          version: kit.json.buildVersion,
+          parts: [],
+        })
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, {
+          version: kit.json.buildVersion,
+          parts: [{ role: "pump", partId: best.part.id, quantity: 1 }],
+        })
+      ).status,
+    ).toBe(422);
     expect(await fingerprint(["builds", "build_revisions"])).toBe(before);
-    const chose = await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, { version: kit.json.buildVersion, parts: [{ role: "injector", partId: best.part.id, quantity: best.quantity }, { role: "pump", partId: pump.part.id, quantity: pump.quantity }] });
+    const chose = await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, {
+      version: kit.json.buildVersion,
+      parts: [
+        { role: "injector", partId: best.part.id, quantity: best.quantity },
+        { role: "pump", partId: pump.part.id, quantity: pump.quantity },
+      ],
+    });
     expect(chose.status).toBe(200);
     expect(chose.json.build.version).toBe(kit.json.buildVersion + 1);
-    expect(chose.json.build.inputs.injectors.ratedFlowCcPerMin).toBe(best.part.specs.ratedFlowCcPerMin);
+    expect(chose.json.build.inputs.injectors.ratedFlowCcPerMin).toBe(
+      best.part.specs.ratedFlowCcPerMin,
+    );
     expect(chose.json.build.result.blend.rich.dutyPct).toBeCloseTo(best.figure, 6);
-    expect(chose.json.build.parts.map((p: { role: string }) => p.role)).toEqual(["injector", "pump"]);
-    const [rev] = await sql`select parts from build_revisions where build_id = ${buildId} and version = ${chose.json.build.version}`;
+    expect(chose.json.build.parts.map((p: { role: string }) => p.role)).toEqual([
+      "injector",
+      "pump",
+    ]);
+    const [rev] =
+      await sql`select parts from build_revisions where build_id = ${buildId} and version = ${chose.json.build.version}`;
     expect(rev!.parts).toHaveLength(2);
-    const stale = await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, { version: kit.json.buildVersion, parts: [{ role: "injector", partId: best.part.id, quantity: 6 }] });
+    const stale = await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, {
+      version: kit.json.buildVersion,
+      parts: [{ role: "injector", partId: best.part.id, quantity: 6 }],
+    });
     expect(stale.status).toBe(409);
     const quote = await request(counter, "POST", "/api/v1/quotes", { buildId });
     expect(quote.status).toBe(201);
     const full = await request(counter, "GET", `/api/v1/quotes/${quote.json.quote.id}`);
-    expect(full.json.lines.map((l: { kind: string }) => l.kind)).toEqual(["part", "part", "labour"]);
+    expect(full.json.lines.map((l: { kind: string }) => l.kind)).toEqual([
+      "part",
+      "part",
+      "labour",
+    ]);
   });
 });

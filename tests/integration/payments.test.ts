@@ -1,5 +1,6 @@
 import Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
@@ -14,7 +15,12 @@ let counter: Client, customer: Client, owner: Client, outsider: Client;
 
 beforeAll(async () => {
   const other = await makeOtherShop();
-  [counter, customer, owner, outsider] = await Promise.all([signIn("counter@demo.fuelwright.test"), signIn("customer@demo.fuelwright.test"), signIn("owner@demo.fuelwright.test"), signIn(other.email, other.password)]);
+  [counter, customer, owner, outsider] = await Promise.all([
+    signIn("counter@demo.fuelwright.test"),
+    signIn("customer@demo.fuelwright.test"),
+    signIn("owner@demo.fuelwright.test"),
+    signIn(other.email, other.password),
+  ]);
 });
 afterAll(async () => {
   await sql.end();
@@ -22,19 +28,52 @@ afterAll(async () => {
 
 /** A quote with one labour line, sent and accepted by the demo customer. */
 async function acceptedQuote(unitPriceMinor = 36805) {
-  const q = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID })).json.quote;
-  await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "2099-01-01", lines: [{ kind: "labour", description: "Fuel system fitting", quantityMilli: 3000, unitPriceMinor, discountBp: 0 }] });
+  const q = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID })).json
+    .quote;
+  await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+    version: q.version,
+    validUntil: "2099-01-01",
+    lines: [
+      {
+        kind: "labour",
+        description: "Fuel system fitting",
+        quantityMilli: 3000,
+        unitPriceMinor,
+        discountBp: 0,
+      },
+    ],
+  });
   await sql`update quotes set status = 'sent' where id = ${q.id}`;
-  expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" })).status).toBe(200);
+  expect(
+    (await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, { decision: "accept" }))
+      .status,
+  ).toBe(200);
   return (await sql`select * from quotes where id = ${q.id}`)[0]!;
 }
 
 /** A provider event as the SDK would receive it, signed with the SDK's own test-header helper. */
-function signedEvent(type: string, session: Record<string, unknown>, id = `evt_test_${Math.random().toString(36).slice(2)}`, secret = SECRET) {
-  const payload = JSON.stringify({ id, object: "event", type, api_version: "2026-01-01", created: Math.floor(Date.now() / 1000), livemode: false, data: { object: { object: "checkout.session", ...session } } });
+function signedEvent(
+  type: string,
+  session: Record<string, unknown>,
+  id = `evt_test_${Math.random().toString(36).slice(2)}`,
+  secret = SECRET,
+) {
+  const payload = JSON.stringify({
+    id,
+    object: "event",
+    type,
+    api_version: "2026-01-01",
+    created: Math.floor(Date.now() / 1000),
+    livemode: false,
+    data: { object: { object: "checkout.session", ...session } },
+  });
   return { id, payload, header: Stripe.webhooks.generateTestHeaderString({ payload, secret }) };
 }
-const deliver = (e: { payload: string; header: string }) => request(null, "POST", "/api/webhooks/payments", e.payload, { "content-type": "application/json", "stripe-signature": e.header });
+const deliver = (e: { payload: string; header: string }) =>
+  request(null, "POST", "/api/webhooks/payments", e.payload, {
+    "content-type": "application/json",
+    "stripe-signature": e.header,
+  });
 
 describe("deposit payments", () => {
   it("the customer opens a checkout for the shop's deposit share; the fake's completion webhook marks the quote paid", async () => {
@@ -45,18 +84,39 @@ describe("deposit payments", () => {
     expect(start.json.amountMinor).toBe(Math.round((q.total_minor * 30) / 100));
     const sessionId = new URL(start.json.url).pathname.split("/").pop()!;
     const [pending] = await sql`select * from payments where checkout_session_id = ${sessionId}`;
-    expect(pending).toMatchObject({ status: "pending", amount_minor: start.json.amountMinor, quote_id: q.id });
+    expect(pending).toMatchObject({
+      status: "pending",
+      amount_minor: start.json.amountMinor,
+      quote_id: q.id,
+    });
     // A second click before paying reuses the open checkout.
-    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`)).json.url).toBe(start.json.url);
-    const done = await (await fetch(`${FAKE}/__fake/sessions/${sessionId}/complete`, { method: "POST" })).json();
+    expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`)).json.url).toBe(
+      start.json.url,
+    );
+    const done = await (
+      await fetch(`${FAKE}/__fake/sessions/${sessionId}/complete`, { method: "POST" })
+    ).json();
     expect(done.status).toBe(200);
-    const [paid] = await sql`select p.status, p.paid_event_id, q.status as quote_status from payments p join quotes q on q.id = p.quote_id where p.checkout_session_id = ${sessionId}`;
-    expect(paid).toMatchObject({ status: "paid", paid_event_id: done.event.id, quote_status: "deposit_paid" });
+    const [paid] =
+      await sql`select p.status, p.paid_event_id, q.status as quote_status from payments p join quotes q on q.id = p.quote_id where p.checkout_session_id = ${sessionId}`;
+    expect(paid).toMatchObject({
+      status: "paid",
+      paid_event_id: done.event.id,
+      quote_status: "deposit_paid",
+    });
     // The customer's return from checkout confirms without a second payment.
-    const back = await request(customer, "GET", `/api/v1/quotes/${q.id}/deposit?session=${sessionId}`);
+    const back = await request(
+      customer,
+      "GET",
+      `/api/v1/quotes/${q.id}/deposit?session=${sessionId}`,
+    );
     expect(back.status).toBe(303);
     expect(back.headers.get("location")).toContain(`/my/quotes/${q.id}?payment=paid`);
-    expect((await sql`select count(*)::int as n from payments where quote_id = ${q.id} and status = 'paid'`)[0]!.n).toBe(1);
+    expect(
+      (
+        await sql`select count(*)::int as n from payments where quote_id = ${q.id} and status = 'paid'`
+      )[0]!.n,
+    ).toBe(1);
     expect((await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`)).status).toBe(409);
   });
 
@@ -65,14 +125,33 @@ describe("deposit payments", () => {
     const start = await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`);
     const sessionId = new URL(start.json.url).pathname.split("/").pop()!;
     const before = await fingerprint(TABLES);
-    const good = signedEvent("checkout.session.completed", { id: sessionId, payment_status: "paid", status: "complete" });
-    const forged = signedEvent("checkout.session.completed", { id: sessionId, payment_status: "paid", status: "complete" }, undefined, "whsec_someone_else");
-    for (const bad of [forged, { payload: good.payload, header: "t=1,v1=00" }, { payload: good.payload.replace('"paid"', '"unpaid"'), header: good.header }]) {
+    const good = signedEvent("checkout.session.completed", {
+      id: sessionId,
+      payment_status: "paid",
+      status: "complete",
+    });
+    const forged = signedEvent(
+      "checkout.session.completed",
+      { id: sessionId, payment_status: "paid", status: "complete" },
+      undefined,
+      "whsec_someone_else",
+    );
+    for (const bad of [
+      forged,
+      { payload: good.payload, header: "t=1,v1=00" },
+      { payload: good.payload.replace('"paid"', '"unpaid"'), header: good.header },
+    ]) {
       const r = await deliver(bad);
       expect(r.status).toBe(400);
       expect(r.json.error.code).toBe("bad_signature");
     }
-    expect((await request(null, "POST", "/api/webhooks/payments", good.payload, { "content-type": "application/json" })).status).toBe(400);
+    expect(
+      (
+        await request(null, "POST", "/api/webhooks/payments", good.payload, {
+          "content-type": "application/json",
+        })
+      ).status,
+    ).toBe(400);
     expect(await fingerprint(TABLES)).toBe(before);
   });
 
@@ -80,22 +159,46 @@ describe("deposit payments", () => {
     const q = await acceptedQuote(12345);
     const start = await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`);
     const sessionId = new URL(start.json.url).pathname.split("/").pop()!;
-    const e = signedEvent("checkout.session.completed", { id: sessionId, payment_status: "paid", status: "complete" });
+    const e = signedEvent("checkout.session.completed", {
+      id: sessionId,
+      payment_status: "paid",
+      status: "complete",
+    });
     const first = await deliver(e);
     expect(first.status).toBe(200);
     expect(first.json.outcome).toBe("paid");
     const again = await deliver(e);
     expect(again.status).toBe(200);
     expect(again.json.outcome).toBe("duplicate");
-    const other = await deliver(signedEvent("checkout.session.completed", { id: sessionId, payment_status: "paid", status: "complete" }));
+    const other = await deliver(
+      signedEvent("checkout.session.completed", {
+        id: sessionId,
+        payment_status: "paid",
+        status: "complete",
+      }),
+    );
     expect(other.json.outcome).toBe("already");
     // A late "expired" for the paid checkout changes nothing.
-    expect((await deliver(signedEvent("checkout.session.expired", { id: sessionId, payment_status: "unpaid", status: "expired" }))).status).toBe(200);
+    expect(
+      (
+        await deliver(
+          signedEvent("checkout.session.expired", {
+            id: sessionId,
+            payment_status: "unpaid",
+            status: "expired",
+          }),
+        )
+      ).status,
+    ).toBe(200);
     const rows = await sql`select status from payments where quote_id = ${q.id}`;
     expect(rows.map((r) => r.status)).toEqual(["paid"]);
     const [after] = await sql`select status, version from quotes where id = ${q.id}`;
     expect(after).toMatchObject({ status: "deposit_paid", version: q.version + 1 });
-    expect((await sql`select count(*)::int as n from payment_events where checkout_session_id = ${sessionId}`)[0]!.n).toBe(3);
+    expect(
+      (
+        await sql`select count(*)::int as n from payment_events where checkout_session_id = ${sessionId}`
+      )[0]!.n,
+    ).toBe(3);
   });
 
   it("only the quote's own customer pays, and only once it is accepted", async () => {
@@ -104,14 +207,25 @@ describe("deposit payments", () => {
     expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/deposit`)).status).toBe(403);
     expect((await request(outsider, "POST", `/api/v1/quotes/${q.id}/deposit`)).status).toBe(403); // another shop's owner: not a customer
     expect((await request(null, "POST", `/api/v1/quotes/${q.id}/deposit`)).status).toBe(401);
-    const [others] = await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null and q.shop_id = 'demo-shop-ridgeback' limit 1`;
-    expect((await request(customer, "POST", `/api/v1/quotes/${others!.id}/deposit`)).status).toBe(404);
-    expect((await request(customer, "GET", `/api/v1/quotes/${q.id}/deposit?session=nonsense`)).status).toBe(422);
-    expect((await request(customer, "GET", `/api/v1/quotes/${q.id}/deposit?session=cs_test_not_ours`)).status).toBe(404);
+    const [others] =
+      await sql`select q.id from quotes q join customers c on c.id = q.customer_id where c.user_id is null and q.shop_id = 'demo-shop-ridgeback' limit 1`;
+    expect((await request(customer, "POST", `/api/v1/quotes/${others!.id}/deposit`)).status).toBe(
+      404,
+    );
+    expect(
+      (await request(customer, "GET", `/api/v1/quotes/${q.id}/deposit?session=nonsense`)).status,
+    ).toBe(422);
+    expect(
+      (await request(customer, "GET", `/api/v1/quotes/${q.id}/deposit?session=cs_test_not_ours`))
+        .status,
+    ).toBe(404);
     expect(await fingerprint(TABLES)).toBe(before);
-    const draft = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID })).json.quote;
+    const draft = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID }))
+      .json.quote;
     await sql`update quotes set status = 'sent' where id = ${draft.id}`;
-    expect((await request(customer, "POST", `/api/v1/quotes/${draft.id}/deposit`)).status).toBe(409);
+    expect((await request(customer, "POST", `/api/v1/quotes/${draft.id}/deposit`)).status).toBe(
+      409,
+    );
   });
 });
 
@@ -128,7 +242,8 @@ describe("quote PDF", () => {
     expect(text).toContain("Fuel burns.");
     expect((await getBytes(customer, `/api/v1/quotes/${q.id}/pdf`)).status).toBe(200);
     expect((await getBytes(outsider, `/api/v1/quotes/${q.id}/pdf`)).status).toBe(404);
-    const draft = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID })).json.quote;
+    const draft = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID }))
+      .json.quote;
     expect((await getBytes(customer, `/api/v1/quotes/${draft.id}/pdf`)).status).toBe(404);
     expect((await request(customer, "GET", `/api/v1/quotes/${draft.id}`)).status).toBe(404);
     expect((await getBytes(counter, `/api/v1/quotes/${draft.id}/pdf`)).status).toBe(200);
@@ -138,16 +253,33 @@ describe("quote PDF", () => {
 describe("shop logo", () => {
   it("the owner uploads a PNG; it is served to members and embedded in PDFs; bad uploads change nothing", async () => {
     const png = solidPng(96, 32);
-    const send = (client: Client, body: Buffer, type = "image/png") => fetch(`${BASE_URL}/api/v1/shop/logo`, { method: "PUT", body: new Uint8Array(body), headers: { cookie: client.cookie, origin: BASE_URL, "content-type": type, "x-forwarded-for": client.ip } });
+    const send = (client: Client, body: Buffer, type = "image/png") =>
+      fetch(`${BASE_URL}/api/v1/shop/logo`, {
+        method: "PUT",
+        body: new Uint8Array(body),
+        headers: {
+          cookie: client.cookie,
+          origin: BASE_URL,
+          "content-type": type,
+          "x-forwarded-for": client.ip,
+        },
+      });
     const put = await send(owner, png);
     expect(put.status).toBe(200);
-    expect((await put.json()).logo).toMatchObject({ width: 96, height: 32, contentType: "image/png" });
+    expect((await put.json()).logo).toMatchObject({
+      width: 96,
+      height: 32,
+      contentType: "image/png",
+    });
     const got = await getBytes(customer, "/api/v1/shop/logo");
     expect(got.status).toBe(200);
     expect(got.bytes.equals(png)).toBe(true);
     const q = await acceptedQuote();
-    expect(inspectPdf((await getBytes(customer, `/api/v1/quotes/${q.id}/pdf`)).bytes).images).toBe(1);
-    const ours = async () => (await sql`select sha256 from shop_logos where shop_id = 'demo-shop-ridgeback'`)[0]?.sha256;
+    expect(inspectPdf((await getBytes(customer, `/api/v1/quotes/${q.id}/pdf`)).bytes).images).toBe(
+      1,
+    );
+    const ours = async () =>
+      (await sql`select sha256 from shop_logos where shop_id = 'demo-shop-ridgeback'`)[0]?.sha256;
     const before = await ours();
     expect((await send(counter, png)).status).toBe(403);
     const notImage = await send(owner, Buffer.from("%PDF-1.7 not a logo"));
@@ -168,18 +300,38 @@ describe("shop logo", () => {
 describe("portal invitation", () => {
   it("sending a quote to a customer without a sign-in invites them in the same e-mail, once", async () => {
     const email = `new-${Date.now()}@customer.fuelwright.test`;
-    const [c] = await sql`insert into customers (shop_id, name, email) values ('demo-shop-ridgeback', 'Invited Customer', ${email}) returning id`;
+    const [c] =
+      await sql`insert into customers (shop_id, name, email) values ('demo-shop-ridgeback', 'Invited Customer', ${email}) returning id`;
     const q = (await request(counter, "POST", "/api/v1/quotes", { customerId: c!.id })).json.quote;
-    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, { version: q.version, validUntil: "2099-01-01", lines: [{ kind: "labour", description: "Fitting", quantityMilli: 1000, unitPriceMinor: 10000, discountBp: 0 }] });
+    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "2099-01-01",
+      lines: [
+        {
+          kind: "labour",
+          description: "Fitting",
+          quantityMilli: 1000,
+          unitPriceMinor: 10000,
+          discountBp: 0,
+        },
+      ],
+    });
     const sent = await request(counter, "POST", `/api/v1/quotes/${q.id}/send`);
     expect(sent.status).toBe(200);
     const mail = await waitForMail(email, /quote/);
     const link = /https?:\/\/\S+\/accept-invitation\/([\w-]+)/.exec(mail.text);
     expect(link).toBeTruthy();
     const [inv] = await sql`select * from invitation where id = ${link![1]!}`;
-    expect(inv).toMatchObject({ email, role: "customer", status: "pending", organization_id: "demo-shop-ridgeback" });
+    expect(inv).toMatchObject({
+      email,
+      role: "customer",
+      status: "pending",
+      organization_id: "demo-shop-ridgeback",
+    });
     expect((await request(counter, "POST", `/api/v1/quotes/${q.id}/send`)).status).toBe(200);
-    expect((await sql`select count(*)::int as n from invitation where email = ${email}`)[0]!.n).toBe(1);
+    expect(
+      (await sql`select count(*)::int as n from invitation where email = ${email}`)[0]!.n,
+    ).toBe(1);
     const page = await request(null, "GET", `/accept-invitation/${link![1]}`);
     expect(page.status).toBe(200);
     expect(page.text).toContain("Customer");

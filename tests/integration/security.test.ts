@@ -1,4 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
+
 import { makeOtherShop, sql } from "../helpers/db";
 import { BASE_URL, nextIp, signIn } from "../helpers/http";
 import { firstLink, waitForMail } from "../helpers/mail";
@@ -7,7 +8,13 @@ afterAll(async () => {
   await sql.end();
 });
 
-const directives = (csp: string) => Object.fromEntries(csp.split(";").map((d) => d.trim().split(/\s+/)).map(([k, ...v]) => [k!, v]));
+const directives = (csp: string) =>
+  Object.fromEntries(
+    csp
+      .split(";")
+      .map((d) => d.trim().split(/\s+/))
+      .map(([k, ...v]) => [k!, v]),
+  );
 
 // The headers' meanings: CSP Level 3 (W3C), RFC 7034 (X-Frame-Options), Fetch standard (nosniff),
 // Referrer Policy (W3C); the expectations are common practice, no source.
@@ -38,7 +45,9 @@ describe("security headers", () => {
     for (const path of ["/api/health", "/api/v1/builds"]) {
       const res = await fetch(`${BASE_URL}${path}`);
       expect(res.headers.get("x-content-type-options"), path).toBe("nosniff");
-      expect(res.headers.get("content-security-policy"), path).toMatch(/default-src 'none'.*frame-ancestors 'none'/);
+      expect(res.headers.get("content-security-policy"), path).toMatch(
+        /default-src 'none'.*frame-ancestors 'none'/,
+      );
       expect(res.headers.get("referrer-policy"), path).toBe("strict-origin-when-cross-origin");
     }
   });
@@ -48,7 +57,11 @@ describe("sessions", () => {
   it("the session cookie is HttpOnly and SameSite=Lax (Secure comes with an https address: tests/system)", async () => {
     const res = await fetch(`${BASE_URL}/api/auth/sign-in/email`, {
       method: "POST",
-      headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": nextIp() },
+      headers: {
+        "content-type": "application/json",
+        origin: BASE_URL,
+        "x-forwarded-for": nextIp(),
+      },
       body: JSON.stringify({ email: "counter@demo.fuelwright.test", password: "fuelwright-demo" }),
     });
     expect(res.status).toBe(200);
@@ -61,15 +74,27 @@ describe("sessions", () => {
   it("a password-reset link works once", async () => {
     const u = await makeOtherShop();
     const ip = nextIp();
-    const post = (path: string, body: unknown) => fetch(`${BASE_URL}/api/auth${path}`, { method: "POST", headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": ip }, body: JSON.stringify(body) });
-    expect((await post("/request-password-reset", { email: u.email, redirectTo: "/reset-password" })).status).toBe(200);
+    const post = (path: string, body: unknown) =>
+      fetch(`${BASE_URL}/api/auth${path}`, {
+        method: "POST",
+        headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": ip },
+        body: JSON.stringify(body),
+      });
+    expect(
+      (await post("/request-password-reset", { email: u.email, redirectTo: "/reset-password" }))
+        .status,
+    ).toBe(200);
     const mail = await waitForMail(u.email, /Reset your Fuelwright password/);
     // The link goes through the auth server, which redirects to the page with ?token=.
     const hop = await fetch(firstLink(mail.text), { redirect: "manual" });
     const token = new URL(hop.headers.get("location")!, BASE_URL).searchParams.get("token")!;
     expect(token).toBeTruthy();
-    expect((await post("/reset-password", { token, newPassword: "a-brand-new-pass-1" })).status).toBe(200);
-    expect((await post("/reset-password", { token, newPassword: "another-new-pass-2" })).status).toBe(400);
+    expect(
+      (await post("/reset-password", { token, newPassword: "a-brand-new-pass-1" })).status,
+    ).toBe(200);
+    expect(
+      (await post("/reset-password", { token, newPassword: "another-new-pass-2" })).status,
+    ).toBe(400);
     // The first new password is the one that holds.
     await expect(signIn(u.email, "a-brand-new-pass-1")).resolves.toBeTruthy();
     await expect(signIn(u.email, "another-new-pass-2")).rejects.toThrow();

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
 
@@ -7,7 +8,11 @@ const BUILD = "10000000-0000-4000-8000-000000000003"; // demo twin-turbo V8 (db/
 
 beforeAll(async () => {
   const other = await makeOtherShop();
-  [counter, customer, outsider] = await Promise.all([signIn("counter@demo.fuelwright.test"), signIn("customer@demo.fuelwright.test"), signIn(other.email, other.password)]);
+  [counter, customer, outsider] = await Promise.all([
+    signIn("counter@demo.fuelwright.test"),
+    signIn("customer@demo.fuelwright.test"),
+    signIn(other.email, other.password),
+  ]);
 });
 afterAll(async () => {
   await sql.end();
@@ -46,8 +51,12 @@ describe("share links", () => {
     await sql`update share_links set expires_at = now() - interval '1 minute' where id = ${made.json.link.id}`;
     expect((await request(null, "GET", p)).text).toContain("This link has expired");
     expect((await request(null, "GET", `${p}/pdf`)).status).toBe(404);
-    const fresh = await request(counter, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 1 });
-    expect((await request(counter, "DELETE", `/api/v1/share-links/${fresh.json.link.id}`)).status).toBe(204);
+    const fresh = await request(counter, "POST", `/api/v1/builds/${BUILD}/share-links`, {
+      days: 1,
+    });
+    expect(
+      (await request(counter, "DELETE", `/api/v1/share-links/${fresh.json.link.id}`)).status,
+    ).toBe(204);
     const revoked = await request(null, "GET", path(fresh.json.url));
     expect(revoked.text).toContain("withdrawn by the shop");
     expect(revoked.text).not.toContain("Twin-turbo V8");
@@ -56,9 +65,15 @@ describe("share links", () => {
 
   it("only staff of the shop make or withdraw links", async () => {
     const before = await fingerprint(["share_links"]);
-    expect((await request(customer, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 })).status).toBe(403);
-    expect((await request(outsider, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 })).status).toBe(404);
-    expect((await request(counter, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 365 })).status).toBe(422);
+    expect(
+      (await request(customer, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 })).status,
+    ).toBe(403);
+    expect(
+      (await request(outsider, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 })).status,
+    ).toBe(404);
+    expect(
+      (await request(counter, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 365 })).status,
+    ).toBe(422);
     const [any] = await sql`select id from share_links limit 1`;
     expect((await request(outsider, "DELETE", `/api/v1/share-links/${any!.id}`)).status).toBe(404);
     expect(await fingerprint(["share_links"])).toBe(before);

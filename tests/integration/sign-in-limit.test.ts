@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+
 import { BASE_URL, nextIp } from "../helpers/http";
 
 describe("sign-in rate limit", () => {
@@ -9,7 +10,10 @@ describe("sign-in rate limit", () => {
       const res = await fetch(`${BASE_URL}/api/auth/sign-in/email`, {
         method: "POST",
         headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": ip },
-        body: JSON.stringify({ email: "owner@demo.fuelwright.test", password: "wrong-password-123" }),
+        body: JSON.stringify({
+          email: "owner@demo.fuelwright.test",
+          password: "wrong-password-123",
+        }),
       });
       statuses.push(res.status);
     }

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
@@ -16,7 +17,8 @@ beforeAll(async () => {
     signIn("customer@demo.fuelwright.test"),
     signIn(other.email, other.password),
   ]);
-  const [row] = await sql`select id from customers where shop_id = ${DEMO_SHOP} order by name limit 1`;
+  const [row] =
+    await sql`select id from customers where shop_id = ${DEMO_SHOP} order by name limit 1`;
   demoCustomerId = row!.id;
 });
 afterAll(async () => {
@@ -34,20 +36,44 @@ describe("tenancy: a member of shop B cannot see or touch shop A's customers", (
 
   it("gets 404 for another shop's customer on read, write and delete, and nothing changes", async () => {
     const before = await fingerprint(["customers"]);
-    expect((await request(outsider, "GET", `/api/v1/customers/${demoCustomerId}`)).status).toBe(404);
-    expect((await request(outsider, "PATCH", `/api/v1/customers/${demoCustomerId}`, { name: "Taken over" })).status).toBe(404);
-    expect((await request(outsider, "DELETE", `/api/v1/customers/${demoCustomerId}`)).status).toBe(404);
+    expect((await request(outsider, "GET", `/api/v1/customers/${demoCustomerId}`)).status).toBe(
+      404,
+    );
+    expect(
+      (
+        await request(outsider, "PATCH", `/api/v1/customers/${demoCustomerId}`, {
+          name: "Taken over",
+        })
+      ).status,
+    ).toBe(404);
+    expect((await request(outsider, "DELETE", `/api/v1/customers/${demoCustomerId}`)).status).toBe(
+      404,
+    );
     expect(await fingerprint(["customers"])).toBe(before);
   });
 
   it("PATCH changes only the fields sent; an empty string clears one; an empty body is a 422 (common practice, no source)", async () => {
-    const made = await request(outsider, "POST", "/api/v1/customers", { name: "Partial Patch", email: "partial@example.test", phone: "555-0100" });
+    const made = await request(outsider, "POST", "/api/v1/customers", {
+      name: "Partial Patch",
+      email: "partial@example.test",
+      phone: "555-0100",
+    });
     const id = made.json.customer.id;
-    const renamed = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { name: "Partial Patch Renamed" });
+    const renamed = await request(outsider, "PATCH", `/api/v1/customers/${id}`, {
+      name: "Partial Patch Renamed",
+    });
     expect(renamed.status).toBe(200);
-    expect(renamed.json.customer).toMatchObject({ name: "Partial Patch Renamed", email: "partial@example.test", phone: "555-0100" });
+    expect(renamed.json.customer).toMatchObject({
+      name: "Partial Patch Renamed",
+      email: "partial@example.test",
+      phone: "555-0100",
+    });
     const cleared = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { phone: "" });
-    expect(cleared.json.customer).toMatchObject({ name: "Partial Patch Renamed", email: "partial@example.test", phone: null });
+    expect(cleared.json.customer).toMatchObject({
+      name: "Partial Patch Renamed",
+      email: "partial@example.test",
+      phone: null,
+    });
     const empty = await request(outsider, "PATCH", `/api/v1/customers/${id}`, {});
     expect(empty.status).toBe(422);
     expect(empty.json.error.issues[0].path).toBe("(body)");
@@ -88,15 +114,27 @@ describe("roles", () => {
   });
 
   it("a tuner or counter cannot invite, change roles or remove members, and nothing changes", async () => {
-    const [m] = await sql`select id from member where organization_id = ${DEMO_SHOP} and role = 'customer' limit 1`;
+    const [m] =
+      await sql`select id from member where organization_id = ${DEMO_SHOP} and role = 'customer' limit 1`;
     const before = await fingerprint(["member", "invitation"]);
     for (const who of [tuner, counter]) {
-      const invite = await request(who, "POST", "/api/auth/organization/invite-member", { email: "sneaky@example.test", role: "owner", organizationId: DEMO_SHOP });
+      const invite = await request(who, "POST", "/api/auth/organization/invite-member", {
+        email: "sneaky@example.test",
+        role: "owner",
+        organizationId: DEMO_SHOP,
+      });
       expect(invite.status).toBeGreaterThanOrEqual(400);
       expect(invite.status).toBeLessThan(500);
-      const role = await request(who, "POST", "/api/auth/organization/update-member-role", { memberId: m!.id, role: "owner", organizationId: DEMO_SHOP });
+      const role = await request(who, "POST", "/api/auth/organization/update-member-role", {
+        memberId: m!.id,
+        role: "owner",
+        organizationId: DEMO_SHOP,
+      });
       expect(role.status).toBeGreaterThanOrEqual(400);
-      const remove = await request(who, "POST", "/api/auth/organization/remove-member", { memberIdOrEmail: m!.id, organizationId: DEMO_SHOP });
+      const remove = await request(who, "POST", "/api/auth/organization/remove-member", {
+        memberIdOrEmail: m!.id,
+        organizationId: DEMO_SHOP,
+      });
       expect(remove.status).toBeGreaterThanOrEqual(400);
     }
     expect(await fingerprint(["member", "invitation"])).toBe(before);
@@ -104,7 +142,11 @@ describe("roles", () => {
 
   it("an owner's invitation records the role and e-mails a link", async () => {
     const email = `new-counter-${Date.now()}@example.test`;
-    const r = await request(owner, "POST", "/api/auth/organization/invite-member", { email, role: "counter", organizationId: DEMO_SHOP });
+    const r = await request(owner, "POST", "/api/auth/organization/invite-member", {
+      email,
+      role: "counter",
+      organizationId: DEMO_SHOP,
+    });
     expect(r.status).toBe(200);
     const [inv] = await sql`select id, role, status from invitation where email = ${email}`;
     expect(inv).toMatchObject({ role: "counter", status: "pending" });
@@ -117,7 +159,10 @@ describe("roles", () => {
 describe("customers API input", () => {
   it("rejects bad input with the field path and keeps the data", async () => {
     const before = await fingerprint(["customers"]);
-    const r = await request(counter, "POST", "/api/v1/customers", { name: "", email: "not-an-email" });
+    const r = await request(counter, "POST", "/api/v1/customers", {
+      name: "",
+      email: "not-an-email",
+    });
     expect(r.status).toBe(422);
     const paths = r.json.error.issues.map((i: { path: string }) => i.path);
     expect(paths).toEqual(expect.arrayContaining(["name", "email"]));

@@ -2,8 +2,10 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+
 import { afterAll, describe, expect, it } from "vitest";
-import { PG_PORT, freshDatabase, sqlFor } from "../helpers/system";
+
+import { freshDatabase, PG_PORT, sqlFor } from "../helpers/system";
 
 const conns: ReturnType<typeof sqlFor>[] = [];
 afterAll(async () => {
@@ -12,16 +14,24 @@ afterAll(async () => {
 
 /** Every table's row count and a hash of its rows, in one string. */
 async function snapshot(sql: ReturnType<typeof sqlFor>) {
-  const tables = (await sql`select tablename from pg_tables where schemaname = 'public' order by 1`).map((r) => r.tablename as string);
+  const tables = (
+    await sql`select tablename from pg_tables where schemaname = 'public' order by 1`
+  ).map((r) => r.tablename as string);
   const parts: string[] = [];
   for (const t of tables) {
-    const [row] = await sql.unsafe(`select count(*)::int as n, coalesce(md5(string_agg(x::text, ',' order by x::text)), '') as h from "${t}" x`);
+    const [row] = await sql.unsafe(
+      `select count(*)::int as n, coalesce(md5(string_agg(x::text, ',' order by x::text)), '') as h from "${t}" x`,
+    );
     parts.push(`${t}:${row!.n}:${row!.h}`);
   }
   return { tables, text: parts.join("\n") };
 }
 
-const npm = (script: string, url: string, args: string[]) => spawnSync("npm", ["run", "-s", script, "--", ...args], { env: { ...process.env, DATABASE_URL: url }, encoding: "utf8" });
+const npm = (script: string, url: string, args: string[]) =>
+  spawnSync("npm", ["run", "-s", script, "--", ...args], {
+    env: { ...process.env, DATABASE_URL: url },
+    encoding: "utf8",
+  });
 
 describe("backup and restore", () => {
   it("db:backup then db:restore round-trips a seeded database, also over one that changed since", async () => {

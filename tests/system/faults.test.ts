@@ -1,6 +1,15 @@
 import { SMTPServer } from "smtp-server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { call, freshDatabase, postgresCtl, signInAt, sqlFor, startApp, type App } from "../helpers/system";
+
+import {
+  call,
+  freshDatabase,
+  postgresCtl,
+  signInAt,
+  sqlFor,
+  startApp,
+  type App,
+} from "../helpers/system";
 
 let app: App;
 let sql: ReturnType<typeof sqlFor>;
@@ -18,7 +27,8 @@ afterAll(async () => {
   await sql?.end();
 });
 
-const api = (method: string, path: string, body?: unknown) => call(app.url, cookie, method, path, body);
+const api = (method: string, path: string, body?: unknown) =>
+  call(app.url, cookie, method, path, body);
 
 describe("lost updates", () => {
   it("concurrent edits of one build: exactly one wins each round, and no acknowledged save is lost", async () => {
@@ -26,7 +36,13 @@ describe("lost updates", () => {
     for (let round = 0; round < 5; round++) {
       const cur = await api("GET", `/api/v1/builds/${BUILD}`);
       const results = await Promise.all(
-        Array.from({ length: 6 }, (_, i) => api("PATCH", `/api/v1/builds/${BUILD}`, { version: cur.json.build.version, note: `round ${round} editor ${i}`, inputs: cur.json.build.inputs }).then((r) => ({ r, note: `round ${round} editor ${i}` }))),
+        Array.from({ length: 6 }, (_, i) =>
+          api("PATCH", `/api/v1/builds/${BUILD}`, {
+            version: cur.json.build.version,
+            note: `round ${round} editor ${i}`,
+            inputs: cur.json.build.inputs,
+          }).then((r) => ({ r, note: `round ${round} editor ${i}` })),
+        ),
       );
       const ok = results.filter((x) => x.r.status === 200);
       expect(ok, `round ${round}`).toHaveLength(1);
@@ -34,7 +50,8 @@ describe("lost updates", () => {
       acked.push({ version: ok[0]!.r.json.build.version, note: ok[0]!.note });
     }
     for (const a of acked) {
-      const [rev] = await sql`select note from build_revisions where build_id = ${BUILD} and version = ${a.version}`;
+      const [rev] =
+        await sql`select note from build_revisions where build_id = ${BUILD} and version = ${a.version}`;
       expect(rev?.note, `version ${a.version}`).toBe(a.note);
     }
   });
@@ -68,10 +85,12 @@ describe("lost updates", () => {
     }
     expect(kills).toBe(3);
     for (const a of acked) {
-      const [rev] = await sql`select note from build_revisions where build_id = ${BUILD} and version = ${a.version}`;
+      const [rev] =
+        await sql`select note from build_revisions where build_id = ${BUILD} and version = ${a.version}`;
       expect(rev?.note, `acknowledged version ${a.version}`).toBe(a.note);
     }
-    const mismatched = await sql`select b.id, b.version, max(r.version) as newest from builds b join build_revisions r on r.build_id = b.id group by b.id, b.version having b.version <> max(r.version)`;
+    const mismatched =
+      await sql`select b.id, b.version, max(r.version) as newest from builds b join build_revisions r on r.build_id = b.id group by b.id, b.version having b.version <> max(r.version)`;
     expect(mismatched).toEqual([]);
   }, 180_000);
 });
@@ -105,7 +124,9 @@ describe("the database goes away", () => {
       await new Promise((r) => setTimeout(r, 250));
     }
     expect(status).toBe(200);
-    await expect.poll(async () => (await api("GET", "/builds")).status, { timeout: 10_000, interval: 200 }).toBe(200);
+    await expect
+      .poll(async () => (await api("GET", "/builds")).status, { timeout: 10_000, interval: 200 })
+      .toBe(200);
   }, 90_000);
 });
 
@@ -114,10 +135,24 @@ describe("mail faults", () => {
     const q = await api("POST", "/api/v1/quotes", { buildId: BUILD });
     expect(q.status).toBe(201);
     const id = q.json.quote.id;
-    const [part] = await sql`select id, sku, name, price_minor from parts where shop_id = 'demo-shop-ridgeback' and category = 'injector' limit 1`;
+    const [part] =
+      await sql`select id, sku, name, price_minor from parts where shop_id = 'demo-shop-ridgeback' and category = 'injector' limit 1`;
     const cur = await api("GET", `/api/v1/quotes/${id}`);
-    const lines = [{ kind: "part", partId: part!.id, sku: part!.sku, description: part!.name, quantityMilli: 6000, unitPriceMinor: part!.price_minor }];
-    const upd = await api("PATCH", `/api/v1/quotes/${id}`, { version: cur.json.quote.version, validUntil: "2099-01-31", lines });
+    const lines = [
+      {
+        kind: "part",
+        partId: part!.id,
+        sku: part!.sku,
+        description: part!.name,
+        quantityMilli: 6000,
+        unitPriceMinor: part!.price_minor,
+      },
+    ];
+    const upd = await api("PATCH", `/api/v1/quotes/${id}`, {
+      version: cur.json.quote.version,
+      validUntil: "2099-01-31",
+      lines,
+    });
     expect(upd.status, upd.text).toBe(200);
 
     const down = await api("POST", `/api/v1/quotes/${id}/send`);
@@ -126,7 +161,14 @@ describe("mail faults", () => {
     expect((await api("GET", `/api/v1/quotes/${id}`)).json.quote.status).toBe("draft");
 
     const received: string[] = [];
-    const smtp = new SMTPServer({ authOptional: true, disabledCommands: ["STARTTLS"], onData(stream, _s, done) { stream.on("data", (c) => received.push(String(c))); stream.on("end", () => done()); } });
+    const smtp = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ["STARTTLS"],
+      onData(stream, _s, done) {
+        stream.on("data", (c) => received.push(String(c)));
+        stream.on("end", () => done());
+      },
+    });
     await new Promise<void>((r) => smtp.listen(SMTP_PORT, "127.0.0.1", r));
     try {
       const retry = await api("POST", `/api/v1/quotes/${id}/send`);
@@ -138,4 +180,3 @@ describe("mail faults", () => {
     }
   });
 });
-

@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { convertInputs, converter, quantityOf, toShown } from "@/lib/calc";
+
 import { compareKeyFigures, diffInputs, flatten, stableJson } from "@/lib/builds/diff";
+import { converter, convertInputs, quantityOf, toShown } from "@/lib/calc";
+
 import { boostedSix } from "../calc/fixtures";
 
 describe("display units", () => {
@@ -41,9 +43,15 @@ describe("display units", () => {
     expect(back.regulator.basePressureKpa).toBeCloseTo(60 * 6.894757, 1); // NIST SP 811 B.8; kept to 0.1 kPa
     expect(back.injectors.count).toBe(boostedSix.injectors.count);
     // AN −8 hose: 11.1 mm typical ID is shown as 0.437 in and comes back as 11.1 mm, not 11.0998.
-    const withLine = convertInputs({ lines: { feed: { insideDiameterMm: 11.1, lengthM: 5 } } }, "imperial", "toShown");
+    const withLine = convertInputs(
+      { lines: { feed: { insideDiameterMm: 11.1, lengthM: 5 } } },
+      "imperial",
+      "toShown",
+    );
     expect(withLine.lines.feed.insideDiameterMm).toBe(0.437);
-    expect(convertInputs(withLine, "imperial", "toCanonical").lines.feed.insideDiameterMm).toBe(11.1);
+    expect(convertInputs(withLine, "imperial", "toCanonical").lines.feed.insideDiameterMm).toBe(
+      11.1,
+    );
   });
 });
 
@@ -54,7 +62,11 @@ describe("build diffs", () => {
   });
 
   it("lists changed inputs with labels and units", () => {
-    const after = { ...boostedSix, target: { ...boostedSix.target, powerKw: 500 }, injectors: { ...boostedSix.injectors, count: 8 } };
+    const after = {
+      ...boostedSix,
+      target: { ...boostedSix.target, powerKw: 500 },
+      injectors: { ...boostedSix.injectors, count: 8 },
+    };
     const ch = diffInputs(boostedSix, after, "metric");
     expect(ch.map((c) => c.label).sort()).toEqual(["Injectors", "Target power"]);
     expect(ch.find((c) => c.label === "Target power")).toMatchObject({ after: "500 kW" });
@@ -62,10 +74,20 @@ describe("build diffs", () => {
   });
 
   it("marks the key figures that changed", () => {
-    const r = { blend: { rich: { dutyPct: 80 } }, injector: { requiredRatedFlowCcPerMin: 900 }, pump: { demandLPerH: 300, supplyLPerH: 400, marginPct: 33, railPressureKpa: 450 }, powerCeiling: { kw: 600 } };
+    const r = {
+      blend: { rich: { dutyPct: 80 } },
+      injector: { requiredRatedFlowCcPerMin: 900 },
+      pump: { demandLPerH: 300, supplyLPerH: 400, marginPct: 33, railPressureKpa: 450 },
+      powerCeiling: { kw: 600 },
+    };
     const r2 = { ...r, blend: { rich: { dutyPct: 92 } } };
     const figs = compareKeyFigures(r as never, r2 as never, "metric");
-    expect(figs.filter((f) => f.changed).map((f) => f.label)).toEqual(["Duty at the richest blend"]);
-    expect(compareKeyFigures(null, r as never, "metric")[0]).toMatchObject({ before: "—", changed: true });
+    expect(figs.filter((f) => f.changed).map((f) => f.label)).toEqual([
+      "Duty at the richest blend",
+    ]);
+    expect(compareKeyFigures(null, r as never, "metric")[0]).toMatchObject({
+      before: "—",
+      changed: true,
+    });
   });
 });

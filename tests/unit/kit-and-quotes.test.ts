@@ -1,22 +1,72 @@
 import { describe, expect, it } from "vitest";
+
 import { FuelSystemInputSchema, sizeParsedFuelSystem } from "@/lib/calc";
-import { mulDivRound, parseMoney, minorToPlain } from "@/lib/catalog/money";
+import { minorToPlain, mulDivRound, parseMoney } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { applyKit, recommendKit, type CatalogPart } from "@/lib/catalog/recommend";
+
 import { boostedSix, naFour } from "../calc/fixtures";
 
 // Catalog fixtures: invented parts (inputs, not check values).
 let n = 0;
-const part = (category: CatalogPart["category"], specs: Record<string, unknown>, priceMinor = 10000, stock = 10): CatalogPart => ({ id: `00000000-0000-4000-8000-${String(++n).padStart(12, "0")}`, sku: `T-${n}`, brand: "Test", name: `${category} ${n}`, category, priceMinor, stock, reserved: 0, specs });
-const curve = (flowAt300: number) => [{ voltage: 13, points: [{ pressureKpa: 300, flowLPerH: flowAt300 }, { pressureKpa: 500, flowLPerH: flowAt300 * 0.85 }, { pressureKpa: 700, flowLPerH: flowAt300 * 0.7 }] }];
+const part = (
+  category: CatalogPart["category"],
+  specs: Record<string, unknown>,
+  priceMinor = 10000,
+  stock = 10,
+): CatalogPart => ({
+  id: `00000000-0000-4000-8000-${String(++n).padStart(12, "0")}`,
+  sku: `T-${n}`,
+  brand: "Test",
+  name: `${category} ${n}`,
+  category,
+  priceMinor,
+  stock,
+  reserved: 0,
+  specs,
+});
+const curve = (flowAt300: number) => [
+  {
+    voltage: 13,
+    points: [
+      { pressureKpa: 300, flowLPerH: flowAt300 },
+      { pressureKpa: 500, flowLPerH: flowAt300 * 0.85 },
+      { pressureKpa: 700, flowLPerH: flowAt300 * 0.7 },
+    ],
+  },
+];
 
 describe("kit recommendation", () => {
   const input = FuelSystemInputSchema.parse(boostedSix);
-  const small = part("injector", { ratedFlowCcPerMin: 600, ratedPressureKpa: 300, minPulseWidthMs: 0.5, ethanolOk: true });
-  const right = part("injector", { ratedFlowCcPerMin: 1000, ratedPressureKpa: 300, minPulseWidthMs: 0.5, ethanolOk: true });
-  const bigger = part("injector", { ratedFlowCcPerMin: 1300, ratedPressureKpa: 300, minPulseWidthMs: 0.5, ethanolOk: true });
-  const huge = part("injector", { ratedFlowCcPerMin: 4000, ratedPressureKpa: 300, minPulseWidthMs: 1.5, ethanolOk: true });
-  const gasOnly = part("injector", { ratedFlowCcPerMin: 1000, ratedPressureKpa: 300, ethanolOk: false });
+  const small = part("injector", {
+    ratedFlowCcPerMin: 600,
+    ratedPressureKpa: 300,
+    minPulseWidthMs: 0.5,
+    ethanolOk: true,
+  });
+  const right = part("injector", {
+    ratedFlowCcPerMin: 1000,
+    ratedPressureKpa: 300,
+    minPulseWidthMs: 0.5,
+    ethanolOk: true,
+  });
+  const bigger = part("injector", {
+    ratedFlowCcPerMin: 1300,
+    ratedPressureKpa: 300,
+    minPulseWidthMs: 0.5,
+    ethanolOk: true,
+  });
+  const huge = part("injector", {
+    ratedFlowCcPerMin: 4000,
+    ratedPressureKpa: 300,
+    minPulseWidthMs: 1.5,
+    ethanolOk: true,
+  });
+  const gasOnly = part("injector", {
+    ratedFlowCcPerMin: 1000,
+    ratedPressureKpa: 300,
+    ethanolOk: false,
+  });
   const weakPump = part("pump", { curves: curve(300), mounting: "in-tank", ethanolOk: true });
   const strongPump = part("pump", { curves: curve(520), mounting: "in-tank", ethanolOk: true });
   const rec = recommendKit(input, [small, right, bigger, huge, gasOnly, weakPump, strongPump]);
@@ -26,7 +76,9 @@ describe("kit recommendation", () => {
     const inj = role("injector");
     expect(inj[0]!.part.id).toBe(right.id);
     expect(inj.find((c) => c.part.id === small.id)!.fits).toBe(false);
-    expect(inj.find((c) => c.part.id === small.id)!.why.join(" ")).toMatch(/over the 80 % design duty/);
+    expect(inj.find((c) => c.part.id === small.id)!.why.join(" ")).toMatch(
+      /over the 80 % design duty/,
+    );
   });
 
   it("refuses an injector too big for idle and one not rated for ethanol", () => {
@@ -50,7 +102,10 @@ describe("kit recommendation", () => {
   });
 
   it("applying the chosen parts sizes the build on their data", () => {
-    const next = applyKit(input, [{ role: "injector", part: right, quantity: 6 }, { role: "pump", part: weakPump, quantity: 2 }]);
+    const next = applyKit(input, [
+      { role: "injector", part: right, quantity: 6 },
+      { role: "pump", part: weakPump, quantity: 2 },
+    ]);
     expect(next.injectors.ratedFlowCcPerMin).toBe(1000);
     expect(next.pumps[0]!.quantity).toBe(2);
     const r = sizeParsedFuelSystem(next);
@@ -60,8 +115,13 @@ describe("kit recommendation", () => {
   it("asks for an ethanol sensor only when the blend varies", () => {
     const sensor = part("sensor", { kind: "ethanol" });
     expect(recommendKit(input, [sensor]).roles.find((r) => r.role === "sensor")!.needed).toBe(true);
-    const fixed = FuelSystemInputSchema.parse({ ...naFour, fuel: { ethanolMinVolPct: 10, ethanolMaxVolPct: 10 } });
-    expect(recommendKit(fixed, [sensor]).roles.find((r) => r.role === "sensor")!.needed).toBe(false);
+    const fixed = FuelSystemInputSchema.parse({
+      ...naFour,
+      fuel: { ethanolMinVolPct: 10, ethanolMaxVolPct: 10 },
+    });
+    expect(recommendKit(fixed, [sensor]).roles.find((r) => r.role === "sensor")!.needed).toBe(
+      false,
+    );
   });
 });
 
@@ -77,15 +137,32 @@ describe("quote totals in integer cents", () => {
       ],
       825,
     );
-    expect(t).toMatchObject({ subtotalMinor: 139900, discountMinor: 6000, taxMinor: 11047, totalMinor: 144947 });
+    expect(t).toMatchObject({
+      subtotalMinor: 139900,
+      discountMinor: 6000,
+      taxMinor: 11047,
+      totalMinor: 144947,
+    });
   });
 
   it("rounds half a cent up", () => {
     // By hand: 1.5 × 0.33 = 0.495 → 0.50; 10 % tax = 0.05. And 0.10 at 5 % tax = 0.005 → 0.01.
-    expect(quoteTotals([{ quantityMilli: 1500, unitPriceMinor: 33, discountBp: 0 }], 1000)).toMatchObject({ subtotalMinor: 50, taxMinor: 5, totalMinor: 55 });
-    expect(quoteTotals([{ quantityMilli: 1000, unitPriceMinor: 10, discountBp: 0 }], 500).taxMinor).toBe(1);
+    expect(
+      quoteTotals([{ quantityMilli: 1500, unitPriceMinor: 33, discountBp: 0 }], 1000),
+    ).toMatchObject({ subtotalMinor: 50, taxMinor: 5, totalMinor: 55 });
+    expect(
+      quoteTotals([{ quantityMilli: 1000, unitPriceMinor: 10, discountBp: 0 }], 500).taxMinor,
+    ).toBe(1);
     // 0.1 + 0.2 in floating point is 0.30000000000000004; in cents it is exact.
-    expect(quoteTotals([{ quantityMilli: 1000, unitPriceMinor: 10, discountBp: 0 }, { quantityMilli: 1000, unitPriceMinor: 20, discountBp: 0 }], 0).totalMinor).toBe(30);
+    expect(
+      quoteTotals(
+        [
+          { quantityMilli: 1000, unitPriceMinor: 10, discountBp: 0 },
+          { quantityMilli: 1000, unitPriceMinor: 20, discountBp: 0 },
+        ],
+        0,
+      ).totalMinor,
+    ).toBe(30);
   });
 
   it("an empty quote is zero", () => {

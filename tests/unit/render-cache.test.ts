@@ -1,7 +1,8 @@
 import { describe, expect, it, vi } from "vitest";
 
 vi.mock("server-only", () => ({}));
-const { PDF_QUEUE_LIMIT, RenderBusyError, cachedPdf, clearPdfCache, pdfCacheStats, pdfKey } = await import("@/lib/pdf/render-cache");
+const { PDF_QUEUE_LIMIT, RenderBusyError, cachedPdf, clearPdfCache, pdfCacheStats, pdfKey } =
+  await import("@/lib/pdf/render-cache");
 
 const deferred = () => {
   let resolve!: (b: Buffer) => void;
@@ -11,17 +12,32 @@ const deferred = () => {
 
 describe("PDF render cache (common practice, no source)", () => {
   it("keys by content: same data same key, any change or another logo a new key", () => {
-    const a = { build: { title: "A", savedAt: new Date("2026-12-01T00:00:00Z") }, shop: { logo: { data: Buffer.from([1, 2, 3]) } } };
-    expect(pdfKey("spec-sheet", a)).toBe(pdfKey("spec-sheet", structuredClone({ ...a, shop: { logo: { data: Buffer.from([1, 2, 3]) } } })));
-    expect(pdfKey("spec-sheet", { ...a, build: { ...a.build, title: "B" } })).not.toBe(pdfKey("spec-sheet", a));
-    expect(pdfKey("spec-sheet", { ...a, shop: { logo: { data: Buffer.from([1, 2, 4]) } } })).not.toBe(pdfKey("spec-sheet", a));
+    const a = {
+      build: { title: "A", savedAt: new Date("2026-12-01T00:00:00Z") },
+      shop: { logo: { data: Buffer.from([1, 2, 3]) } },
+    };
+    expect(pdfKey("spec-sheet", a)).toBe(
+      pdfKey(
+        "spec-sheet",
+        structuredClone({ ...a, shop: { logo: { data: Buffer.from([1, 2, 3]) } } }),
+      ),
+    );
+    expect(pdfKey("spec-sheet", { ...a, build: { ...a.build, title: "B" } })).not.toBe(
+      pdfKey("spec-sheet", a),
+    );
+    expect(
+      pdfKey("spec-sheet", { ...a, shop: { logo: { data: Buffer.from([1, 2, 4]) } } }),
+    ).not.toBe(pdfKey("spec-sheet", a));
     expect(pdfKey("quote-sheet", a)).not.toBe(pdfKey("spec-sheet", a));
   });
 
   it("renders a sheet once: a repeat is served from the cache, concurrent asks share one render", async () => {
     clearPdfCache();
     const render = vi.fn(async (d: { n: number }) => Buffer.from(`pdf ${d.n}`));
-    const [x, y] = await Promise.all([cachedPdf("t", { n: 1 }, render), cachedPdf("t", { n: 1 }, render)]);
+    const [x, y] = await Promise.all([
+      cachedPdf("t", { n: 1 }, render),
+      cachedPdf("t", { n: 1 }, render),
+    ]);
     const z = await cachedPdf("t", { n: 1 }, render);
     expect(render).toHaveBeenCalledTimes(1);
     expect([x, y, z].map(String)).toEqual(["pdf 1", "pdf 1", "pdf 1"]);

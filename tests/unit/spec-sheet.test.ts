@@ -1,16 +1,30 @@
 import { describe, expect, it } from "vitest";
-import { FuelSystemInputSchema, analyzePull, fuelBlend, sizeParsedFuelSystem, toShown } from "@/lib/calc";
+
+import {
+  analyzePull,
+  fuelBlend,
+  FuelSystemInputSchema,
+  sizeParsedFuelSystem,
+  toShown,
+} from "@/lib/calc";
 import { renderSpecSheet, type SpecSheetData } from "@/lib/pdf/spec-sheet";
 import { SAFETY_POINTS } from "@/lib/safety";
+
 import { boostedSix, naFour } from "../calc/fixtures";
 import { inspectPdf } from "../helpers/pdf";
-
 
 const sheet = (inputs: unknown, extra: Partial<SpecSheetData> = {}): SpecSheetData => {
   const input = FuelSystemInputSchema.parse(inputs);
   return {
     shop: { name: "Test Shop", address: "1 Test Road", phone: "555-0000" },
-    build: { title: "Sheet test build", vehicle: "Test vehicle", customerName: "Test Customer", version: 3, savedAt: new Date("2026-11-30T10:00:00Z"), tunerName: "Test Tuner" },
+    build: {
+      title: "Sheet test build",
+      vehicle: "Test vehicle",
+      customerName: "Test Customer",
+      version: 3,
+      savedAt: new Date("2026-11-30T10:00:00Z"),
+      tunerName: "Test Tuner",
+    },
     input,
     result: sizeParsedFuelSystem(input),
     parts: [],
@@ -21,7 +35,17 @@ const sheet = (inputs: unknown, extra: Partial<SpecSheetData> = {}): SpecSheetDa
 
 describe("spec sheet PDF", () => {
   it("a full build: key figures, parts, cautions, at most two pages", async () => {
-    const d = sheet(boostedSix, { parts: [{ role: "injector", partId: "p1", sku: "TST-1000", name: "Testbrand 1000 cc/min injector", quantity: 6 }] });
+    const d = sheet(boostedSix, {
+      parts: [
+        {
+          role: "injector",
+          partId: "p1",
+          sku: "TST-1000",
+          name: "Testbrand 1000 cc/min injector",
+          quantity: 6,
+        },
+      ],
+    });
     const pdf = await renderSpecSheet(d);
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
     const { text, pages } = inspectPdf(pdf);
@@ -55,9 +79,34 @@ describe("spec sheet PDF", () => {
     // A pull made in the test: duty rising to 70 % at 7000 rpm, lambda 0.80, power logged (no outside source: the
     // sheet must print what the analysis found).
     const input = plain.input;
-    const samples = Array.from({ length: 41 }, (_, i) => ({ rpm: 3000 + i * 100, dutyPct: 30 + i, lambda: 0.8, boostKpa: 100, fuelDiffKpa: 300, powerKw: 100 + i * 5 }));
-    const analysis = analyzePull(samples, { injectorCount: input.injectors.count, ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin, ratedPressureKpa: input.injectors.ratedPressureKpa, densityKgPerL: fuelBlend(80).densityKgPerL, targetLambda: 0.8, dutyDangerPct: 85 });
-    const d = sheet(boostedSix, { verification: { fileName: "pull-7.csv", verifiedAt: new Date("2026-12-01T12:00:00Z"), analysis: { ...analysis, ethanolPct: 80, targetLambda: 0.8, predictedPeakDutyPct: plain.result.blend.rich.dutyPct } } });
+    const samples = Array.from({ length: 41 }, (_, i) => ({
+      rpm: 3000 + i * 100,
+      dutyPct: 30 + i,
+      lambda: 0.8,
+      boostKpa: 100,
+      fuelDiffKpa: 300,
+      powerKw: 100 + i * 5,
+    }));
+    const analysis = analyzePull(samples, {
+      injectorCount: input.injectors.count,
+      ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
+      ratedPressureKpa: input.injectors.ratedPressureKpa,
+      densityKgPerL: fuelBlend(80).densityKgPerL,
+      targetLambda: 0.8,
+      dutyDangerPct: 85,
+    });
+    const d = sheet(boostedSix, {
+      verification: {
+        fileName: "pull-7.csv",
+        verifiedAt: new Date("2026-12-01T12:00:00Z"),
+        analysis: {
+          ...analysis,
+          ethanolPct: 80,
+          targetLambda: 0.8,
+          predictedPeakDutyPct: plain.result.blend.rich.dutyPct,
+        },
+      },
+    });
     const { text, pages } = inspectPdf(await renderSpecSheet(d));
     expect(pages).toBeLessThanOrEqual(2);
     const flat = text.replace(/\s+/g, " ");

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
@@ -14,21 +15,36 @@ import { ResetPasswordSchema } from "@/lib/validations/auth";
 export function ResetPasswordForm({ token }: { token: string }) {
   const router = useRouter();
   const [status, setStatus] = useState<string>();
-  const { register, handleSubmit, formState } = useForm<z.input<typeof ResetPasswordSchema>, unknown, z.output<typeof ResetPasswordSchema>>({
+  const { register, handleSubmit, formState } = useForm<
+    z.input<typeof ResetPasswordSchema>,
+    unknown,
+    z.output<typeof ResetPasswordSchema>
+  >({
     resolver: zodResolver(ResetPasswordSchema),
     defaultValues: { token },
   });
   const onSubmit = handleSubmit(async (data) => {
-    const { error } = await authClient.resetPassword({ newPassword: data.password, token: data.token });
+    const { error } = await authClient.resetPassword({
+      newPassword: data.password,
+      token: data.token,
+    });
     if (error) return setStatus("This reset link is not valid any more. Ask for a new one.");
     router.replace("/sign-in?reset=1");
   });
   return (
     <form onSubmit={onSubmit} noValidate className="mt-6 space-y-4">
       <input type="hidden" {...register("token")} />
-      <Field label="New password" type="password" autoComplete="new-password" error={formState.errors.password?.message} {...register("password")} />
+      <Field
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        error={formState.errors.password?.message}
+        {...register("password")}
+      />
       <FormStatus message={status} />
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>Set password</Button>
+      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
+        Set password
+      </Button>
     </form>
   );
 }

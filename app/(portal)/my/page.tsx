@@ -1,32 +1,47 @@
 import type { Metadata } from "next";
-import { EmptyState, PageHeader } from "@/components/ui/status";
 import Link from "next/link";
+
+import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listBuildsOfPortalUser } from "@/db/queries/builds";
 import { listQuotes } from "@/db/queries/quotes";
+import { requirePageMember } from "@/lib/auth/member";
 import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
-import { requirePageMember } from "@/lib/auth/member";
 import { STATUS_LABELS } from "@/lib/validations/builds";
+import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "My builds" };
 
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
-  const [builds, quotes] = await Promise.all([listBuildsOfPortalUser(m.shopId, m.user.id), listQuotes(m.shopId, { portalUserId: m.user.id })]);
+  const [builds, quotes] = await Promise.all([
+    listBuildsOfPortalUser(m.shopId, m.user.id),
+    listQuotes(m.shopId, { portalUserId: m.user.id }),
+  ]);
   return (
     <>
       <PageHeader title="My builds" />
-      <p className="mb-4 text-ink-700">Welcome, {m.user.name}. Your builds from {m.shopName}.</p>
+      <p className="mb-4 text-ink-700">
+        Welcome, {m.user.name}. Your builds from {m.shopName}.
+      </p>
       {builds.length === 0 ? (
-        <EmptyState title="Nothing shared with you yet">When the shop sizes your fuel system, the build shows up on this page.</EmptyState>
+        <EmptyState title="Nothing shared with you yet">
+          When the shop sizes your fuel system, the build shows up on this page.
+        </EmptyState>
       ) : (
         <ul className="space-y-2" aria-label="My builds">
           {builds.map((b) => (
             <li key={b.id} className="rounded-lg border border-ink-200 bg-white p-4">
               <p className="font-semibold">{b.title}</p>
-              <p className="text-sm text-ink-600">{b.vehicle ?? ""} · {STATUS_LABELS[b.status]}</p>
-              <a href={`/api/v1/builds/${b.id}/spec-sheet`} className="text-sm text-copper-700 underline">Download the spec sheet (PDF)</a>
+              <p className="text-sm text-ink-600">
+                {b.vehicle ?? ""} · {STATUS_LABELS[b.status]}
+              </p>
+              <a
+                href={`/api/v1/builds/${b.id}/spec-sheet`}
+                className="text-sm text-copper-700 underline"
+              >
+                Download the spec sheet (PDF)
+              </a>
             </li>
           ))}
         </ul>
@@ -36,12 +51,22 @@ export default async function MyBuildsPage() {
         <p className="text-ink-700">No quotes yet.</p>
       ) : (
         <ul className="space-y-2" aria-label="My quotes">
-          {quotes.filter((q) => q.status !== "draft" && q.status !== "superseded").map((q) => (
-            <li key={q.id} className="rounded-lg border border-ink-200 bg-white p-4">
-              <Link href={`/my/quotes/${q.id}`} className="font-semibold text-copper-700 underline">Quote {quoteLabel(q.number, q.revision)}</Link>
-              <p className="text-sm text-ink-600">{QUOTE_STATUS_LABELS[q.status]} · {formatMoney(q.totalMinor, q.currency)} · valid until {q.validUntil}</p>
-            </li>
-          ))}
+          {quotes
+            .filter((q) => q.status !== "draft" && q.status !== "superseded")
+            .map((q) => (
+              <li key={q.id} className="rounded-lg border border-ink-200 bg-white p-4">
+                <Link
+                  href={`/my/quotes/${q.id}`}
+                  className="font-semibold text-copper-700 underline"
+                >
+                  Quote {quoteLabel(q.number, q.revision)}
+                </Link>
+                <p className="text-sm text-ink-600">
+                  {QUOTE_STATUS_LABELS[q.status]} · {formatMoney(q.totalMinor, q.currency)} · valid
+                  until {q.validUntil}
+                </p>
+              </li>
+            ))}
         </ul>
       )}
     </>

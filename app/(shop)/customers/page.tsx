@@ -1,15 +1,21 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+
 import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listCustomers } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { CustomerListQuery } from "@/lib/validations/customers";
+
 import { CustomerForm } from "./customer-form";
 
 export const metadata: Metadata = { title: "Customers" };
 
-export default async function CustomersPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+export default async function CustomersPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | undefined>>;
+}) {
   const m = await requirePageMember("customers:read");
   const parsed = CustomerListQuery.safeParse(await searchParams);
   const q = parsed.success ? parsed.data.q : undefined;
@@ -18,29 +24,52 @@ export default async function CustomersPage({ searchParams }: { searchParams: Pr
     <>
       <PageHeader title="Customers">
         <form role="search" className="flex gap-2" action="/customers">
-          <label htmlFor="q" className="sr-only">Search customers</label>
-          <input id="q" name="q" type="search" defaultValue={q} placeholder="Name, e-mail or phone" className="rounded-md border border-ink-300 px-3 py-2" />
-          <button className="rounded-md border border-ink-300 bg-white px-3 py-2 text-sm font-semibold">Search</button>
+          <label htmlFor="q" className="sr-only">
+            Search customers
+          </label>
+          <input
+            id="q"
+            name="q"
+            type="search"
+            defaultValue={q}
+            placeholder="Name, e-mail or phone"
+            className="rounded-md border border-ink-300 px-3 py-2"
+          />
+          <button className="rounded-md border border-ink-300 bg-white px-3 py-2 text-sm font-semibold">
+            Search
+          </button>
         </form>
       </PageHeader>
       <div className="grid gap-8 lg:grid-cols-[1fr_22rem]">
         <section aria-label="Customer list">
           {rows.length === 0 ? (
-            <EmptyState title={q ? `No customer matches “${q}”` : "No customers yet"}>{q ? "Try another search." : "Add the first one with the form."}</EmptyState>
+            <EmptyState title={q ? `No customer matches “${q}”` : "No customers yet"}>
+              {q ? "Try another search." : "Add the first one with the form."}
+            </EmptyState>
           ) : (
             <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
               <table className="w-full text-left text-sm">
                 <thead className="bg-ink-100 text-ink-700">
                   <tr>
-                    <th scope="col" className="px-4 py-2">Name</th>
-                    <th scope="col" className="px-4 py-2">E-mail</th>
-                    <th scope="col" className="px-4 py-2">Phone</th>
+                    <th scope="col" className="px-4 py-2">
+                      Name
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      E-mail
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Phone
+                    </th>
                   </tr>
                 </thead>
                 <tbody>
                   {rows.map((c) => (
                     <tr key={c.id} className="border-t border-ink-100">
-                      <td className="px-4 py-2 font-medium"><Link className="text-copper-700 underline" href={`/customers/${c.id}`}>{c.name}</Link></td>
+                      <td className="px-4 py-2 font-medium">
+                        <Link className="text-copper-700 underline" href={`/customers/${c.id}`}>
+                          {c.name}
+                        </Link>
+                      </td>
                       <td className="px-4 py-2">{c.email ?? "—"}</td>
                       <td className="px-4 py-2">{c.phone ?? "—"}</td>
                     </tr>
@@ -51,8 +80,13 @@ export default async function CustomersPage({ searchParams }: { searchParams: Pr
           )}
         </section>
         {can(m.role, "customers:write") ? (
-          <section aria-labelledby="add-customer" className="rounded-lg border border-ink-200 bg-white p-5">
-            <h2 id="add-customer" className="mb-4 text-xl font-semibold">Add a customer</h2>
+          <section
+            aria-labelledby="add-customer"
+            className="rounded-lg border border-ink-200 bg-white p-5"
+          >
+            <h2 id="add-customer" className="mb-4 text-xl font-semibold">
+              Add a customer
+            </h2>
             <CustomerForm />
           </section>
         ) : null}

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+
 import { PartsTable } from "@/components/parts/parts-table";
 import { PageHeader } from "@/components/ui/status";
 import { getShopSettings } from "@/db/queries/shops";
@@ -8,7 +9,8 @@ import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Parts" };
 
-const link = "rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100";
+const link =
+  "rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100";
 
 export default async function PartsPage() {
   const m = await requirePageMember("parts:read");
@@ -18,9 +20,22 @@ export default async function PartsPage() {
     <>
       <PageHeader title="Parts">
         <div className="flex flex-wrap gap-2">
-          <a href="/api/v1/parts/export" className={link} download>Export CSV</a>
-          {canEdit ? <Link href="/parts/import" className={link}>Import CSV</Link> : null}
-          {canEdit ? <Link href="/parts/new" className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700">Add part</Link> : null}
+          <a href="/api/v1/parts/export" className={link} download>
+            Export CSV
+          </a>
+          {canEdit ? (
+            <Link href="/parts/import" className={link}>
+              Import CSV
+            </Link>
+          ) : null}
+          {canEdit ? (
+            <Link
+              href="/parts/new"
+              className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700"
+            >
+              Add part
+            </Link>
+          ) : null}
         </div>
       </PageHeader>
       <PartsTable currency={s?.settings.currency ?? "USD"} canEdit={canEdit} />

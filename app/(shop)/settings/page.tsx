@@ -1,14 +1,16 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+
 import { PageHeader } from "@/components/ui/status";
 import { logoFacts } from "@/db/queries/logos";
 import { getShopSettings, listMembers, listPendingInvitations } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
-import { minorToPlain } from "@/lib/catalog/money";
+import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
+import { minorToPlain } from "@/lib/catalog/money";
 import { shopBsfc } from "@/lib/dyno/service";
+
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
 import { SettingsForm } from "./settings-form";
@@ -20,14 +22,26 @@ export default async function SettingsPage() {
   const s = await getShopSettings(m.shopId);
   if (!s) notFound();
   const owner = can(m.role, "members:manage");
-  const [members, invitations, logo, measured] = await Promise.all([listMembers(m.shopId), owner ? listPendingInvitations(m.shopId) : Promise.resolve([]), logoFacts(m.shopId), shopBsfc(m.shopId)]);
+  const [members, invitations, logo, measured] = await Promise.all([
+    listMembers(m.shopId),
+    owner ? listPendingInvitations(m.shopId) : Promise.resolve([]),
+    logoFacts(m.shopId),
+    shopBsfc(m.shopId),
+  ]);
   return (
     <>
       <PageHeader title="Settings" />
       <div className="grid gap-8 xl:grid-cols-[1fr_26rem]">
-        <section aria-labelledby="shop-defaults" className="rounded-lg border border-ink-200 bg-white p-5">
-          <h2 id="shop-defaults" className="text-xl font-semibold">Shop defaults</h2>
-          {!can(m.role, "settings:update") ? <p className="mt-1 text-sm text-ink-600">Only the owner can change these.</p> : null}
+        <section
+          aria-labelledby="shop-defaults"
+          className="rounded-lg border border-ink-200 bg-white p-5"
+        >
+          <h2 id="shop-defaults" className="text-xl font-semibold">
+            Shop defaults
+          </h2>
+          {!can(m.role, "settings:update") ? (
+            <p className="mt-1 text-sm text-ink-600">Only the owner can change these.</p>
+          ) : null}
           <SettingsForm
             readOnly={!can(m.role, "settings:update")}
             initial={{
@@ -54,13 +68,39 @@ export default async function SettingsPage() {
               quoteValidDays: String(s.settings.quoteValidDays),
             }}
           />
-          <LogoUpload logo={logo ? { width: logo.width, height: logo.height, version: logo.sha256.slice(0, 12), uploadedAt: logo.uploadedAt.toISOString().slice(0, 10) } : null} canEdit={can(m.role, "settings:update")} />
+          <LogoUpload
+            logo={
+              logo
+                ? {
+                    width: logo.width,
+                    height: logo.height,
+                    version: logo.sha256.slice(0, 12),
+                    uploadedAt: logo.uploadedAt.toISOString().slice(0, 10),
+                  }
+                : null
+            }
+            canEdit={can(m.role, "settings:update")}
+          />
         </section>
-        <section aria-labelledby="members" className="rounded-lg border border-ink-200 bg-white p-5">
-          <h2 id="members" className="text-xl font-semibold">Members</h2>
+        <section
+          aria-labelledby="members"
+          className="rounded-lg border border-ink-200 bg-white p-5"
+        >
+          <h2 id="members" className="text-xl font-semibold">
+            Members
+          </h2>
           <ul className="mt-4 divide-y divide-ink-100">
             {members.map((x) => (
-              <MemberRow key={x.id} member={{ id: x.id, name: x.name, email: x.email, role: isRole(x.role) ? x.role : "customer" }} editable={owner && x.userId !== m.user.id} />
+              <MemberRow
+                key={x.id}
+                member={{
+                  id: x.id,
+                  name: x.name,
+                  email: x.email,
+                  role: isRole(x.role) ? x.role : "customer",
+                }}
+                editable={owner && x.userId !== m.user.id}
+              />
             ))}
           </ul>
           {owner ? (
@@ -74,7 +114,8 @@ export default async function SettingsPage() {
                 <ul className="mt-2 space-y-1 text-sm" aria-label="Pending invitations">
                   {invitations.map((i) => (
                     <li key={i.id}>
-                      {i.email} — {isRole(i.role) ? ROLE_LABELS[i.role] : i.role}, until {i.expiresAt.toISOString().slice(0, 10)}
+                      {i.email} — {isRole(i.role) ? ROLE_LABELS[i.role] : i.role}, until{" "}
+                      {i.expiresAt.toISOString().slice(0, 10)}
                     </li>
                   ))}
                 </ul>
@@ -83,27 +124,69 @@ export default async function SettingsPage() {
           ) : null}
         </section>
       </div>
-      <section aria-labelledby="measured-bsfc" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
-        <h2 id="measured-bsfc" className="text-xl font-semibold">Measured BSFC from verified builds</h2>
-        <p className="mt-1 text-sm text-ink-600">Each build verified with a dyno log that logged power adds its figure here. Build sheets offer these beside the rule-of-thumb defaults above.</p>
+      <section
+        aria-labelledby="measured-bsfc"
+        className="mt-8 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="measured-bsfc" className="text-xl font-semibold">
+          Measured BSFC from verified builds
+        </h2>
+        <p className="mt-1 text-sm text-ink-600">
+          Each build verified with a dyno log that logged power adds its figure here. Build sheets
+          offer these beside the rule-of-thumb defaults above.
+        </p>
         {measured.length === 0 ? (
-          <p className="mt-3 text-sm text-ink-600">Nothing measured yet: verify a build on the dyno with power in the log.</p>
+          <p className="mt-3 text-sm text-ink-600">
+            Nothing measured yet: verify a build on the dyno with power in the log.
+          </p>
         ) : (
           <table className="mt-3 w-full text-sm">
             <thead className="text-left text-ink-600">
-              <tr><th scope="col" className="py-1">Fuel</th><th scope="col">Aspiration</th><th scope="col" className="text-right">Builds</th><th scope="col" className="text-right">Mean</th><th scope="col" className="text-right">Range</th><th scope="col" className="text-right">Rule of thumb</th></tr>
+              <tr>
+                <th scope="col" className="py-1">
+                  Fuel
+                </th>
+                <th scope="col">Aspiration</th>
+                <th scope="col" className="text-right">
+                  Builds
+                </th>
+                <th scope="col" className="text-right">
+                  Mean
+                </th>
+                <th scope="col" className="text-right">
+                  Range
+                </th>
+                <th scope="col" className="text-right">
+                  Rule of thumb
+                </th>
+              </tr>
             </thead>
             <tbody className="divide-y divide-ink-100">
               {measured.map((r) => {
-                const rule = r.fuel === "gasoline" ? (r.aspiration === "na" ? s.settings.bsfcGasolineNa : s.settings.bsfcGasolineBoosted) : r.fuel === "e85" ? (r.aspiration === "na" ? s.settings.bsfcE85Na : s.settings.bsfcE85Boosted) : null;
+                const rule =
+                  r.fuel === "gasoline"
+                    ? r.aspiration === "na"
+                      ? s.settings.bsfcGasolineNa
+                      : s.settings.bsfcGasolineBoosted
+                    : r.fuel === "e85"
+                      ? r.aspiration === "na"
+                        ? s.settings.bsfcE85Na
+                        : s.settings.bsfcE85Boosted
+                      : null;
                 return (
                   <tr key={`${r.fuel}/${r.aspiration}`}>
                     <td className="py-1.5">{FUEL_CLASS_LABELS[r.fuel]}</td>
                     <td>{ASPIRATION_CLASS_LABELS[r.aspiration]}</td>
                     <td className="figure text-right">{r.builds}</td>
-                    <td className="figure text-right font-semibold">{Math.round(r.meanGPerKwh)} g/kWh</td>
-                    <td className="figure text-right">{Math.round(r.minGPerKwh)}–{Math.round(r.maxGPerKwh)}</td>
-                    <td className="figure text-right text-ink-600">{rule === null ? "blend of the two" : `${Math.round(rule)} g/kWh`}</td>
+                    <td className="figure text-right font-semibold">
+                      {Math.round(r.meanGPerKwh)} g/kWh
+                    </td>
+                    <td className="figure text-right">
+                      {Math.round(r.minGPerKwh)}–{Math.round(r.maxGPerKwh)}
+                    </td>
+                    <td className="figure text-right text-ink-600">
+                      {rule === null ? "blend of the two" : `${Math.round(rule)} g/kWh`}
+                    </td>
                   </tr>
                 );
               })}

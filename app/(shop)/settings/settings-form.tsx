@@ -1,18 +1,33 @@
 "use client";
 
 import { useActionState } from "react";
+
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
+
 import { updateSettingsAction } from "./actions";
 
-export function SettingsForm({ initial, readOnly }: { initial: Record<string, string>; readOnly: boolean }) {
+export function SettingsForm({
+  initial,
+  readOnly,
+}: {
+  initial: Record<string, string>;
+  readOnly: boolean;
+}) {
   const [state, action, pending] = useActionState(updateSettingsAction, initialActionState);
   const v = { ...initial, ...state.values };
   const e = state.fieldErrors ?? {};
   const num = (name: string, label: string, unit: string) => (
-    <Field key={name} label={`${label} (${unit})`} name={name} inputMode="decimal" defaultValue={v[name]} error={e[name]} />
+    <Field
+      key={name}
+      label={`${label} (${unit})`}
+      name={name}
+      inputMode="decimal"
+      defaultValue={v[name]}
+      error={e[name]}
+    />
   );
   return (
     <form action={action} noValidate className="mt-4" aria-label="Shop defaults">
@@ -21,7 +36,13 @@ export function SettingsForm({ initial, readOnly }: { initial: Record<string, st
           <Field label="Shop name" name="shopName" defaultValue={v.shopName} error={e.shopName} />
           <Field label="Phone" name="phone" defaultValue={v.phone} error={e.phone} />
           <Field label="Address" name="address" defaultValue={v.address} error={e.address} />
-          <Field label="Currency" name="currency" defaultValue={v.currency} error={e.currency} hint="Three letters, e.g. USD or EUR." />
+          <Field
+            label="Currency"
+            name="currency"
+            defaultValue={v.currency}
+            error={e.currency}
+            hint="Three letters, e.g. USD or EUR."
+          />
           {num("taxRatePct", "Tax rate", "%")}
           <SelectField label="Units" name="units" defaultValue={v.units} error={e.units}>
             <option value="imperial">Imperial (hp, psi, lb/h, gal)</option>
@@ -57,7 +78,9 @@ export function SettingsForm({ initial, readOnly }: { initial: Record<string, st
         </fieldset>
         {!readOnly ? (
           <div className="flex items-center gap-4">
-            <Button type="submit" disabled={pending}>{pending ? "Saving…" : "Save settings"}</Button>
+            <Button type="submit" disabled={pending}>
+              {pending ? "Saving…" : "Save settings"}
+            </Button>
             <FormStatus ok={state.ok} message={state.message} />
           </div>
         ) : null}

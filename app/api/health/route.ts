@@ -1,4 +1,5 @@
 import { sql } from "drizzle-orm";
+
 import { db } from "@/db";
 import { handle } from "@/lib/http/handler";
 

@@ -9,7 +9,13 @@ export class CalcInputError extends Error {
 }
 
 /** Throws a CalcInputError unless `value` is a finite number within [min, max]. */
-export function requireRange(field: string, value: number, min: number, max: number, label = field): number {
+export function requireRange(
+  field: string,
+  value: number,
+  min: number,
+  max: number,
+  label = field,
+): number {
   if (typeof value !== "number" || !Number.isFinite(value)) {
     throw new CalcInputError(field, `${label} must be a number`);
   }
@@ -20,9 +26,17 @@ export function requireRange(field: string, value: number, min: number, max: num
 }
 
 /** Throws unless `value` is a finite number strictly above zero (and at most max). */
-export function requirePositive(field: string, value: number, max = Number.MAX_SAFE_INTEGER, label = field): number {
+export function requirePositive(
+  field: string,
+  value: number,
+  max = Number.MAX_SAFE_INTEGER,
+  label = field,
+): number {
   if (typeof value !== "number" || !Number.isFinite(value) || value <= 0 || value > max) {
-    throw new CalcInputError(field, `${label} must be a number above 0${max < Number.MAX_SAFE_INTEGER ? ` and at most ${max}` : ""}`);
+    throw new CalcInputError(
+      field,
+      `${label} must be a number above 0${max < Number.MAX_SAFE_INTEGER ? ` and at most ${max}` : ""}`,
+    );
   }
   return value;
 }

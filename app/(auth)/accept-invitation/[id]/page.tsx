@@ -1,13 +1,25 @@
 import { headers } from "next/headers";
+
 import { findUserByEmail, getInvitation } from "@/db/queries/shops";
 import { auth } from "@/lib/auth";
-import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
+import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
+
 import { AcceptForm, AcceptSignedInButton } from "./accept-form";
 
-export default async function AcceptInvitationPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function AcceptInvitationPage({
+  params,
+}: {
+  params: Promise<{ id: string }>;
+}) {
   const { id } = await params;
   const inv = await getInvitation(id);
-  const bad = !inv ? "This invitation does not exist." : inv.invitation.status !== "pending" ? "This invitation has already been used or withdrawn." : inv.invitation.expiresAt < new Date() ? "This invitation has expired; ask the shop for a new one." : null;
+  const bad = !inv
+    ? "This invitation does not exist."
+    : inv.invitation.status !== "pending"
+      ? "This invitation has already been used or withdrawn."
+      : inv.invitation.expiresAt < new Date()
+        ? "This invitation has expired; ask the shop for a new one."
+        : null;
   if (bad || !inv) {
     return (
       <>
@@ -23,13 +35,20 @@ export default async function AcceptInvitationPage({ params }: { params: Promise
     <>
       <h1 className="text-2xl font-bold">Join {inv.shopName}</h1>
       <p className="mt-2 text-ink-700">
-        You are invited as <strong>{role}</strong> with the e-mail <strong>{inv.invitation.email}</strong>.
+        You are invited as <strong>{role}</strong> with the e-mail{" "}
+        <strong>{inv.invitation.email}</strong>.
       </p>
       {existing ? (
         session?.user.email === inv.invitation.email ? (
           <AcceptSignedInButton invitationId={id} />
         ) : (
-          <p className="mt-4 text-ink-700">This e-mail already has an account. <a className="text-copper-600 underline" href="/sign-in">Sign in</a> as {inv.invitation.email}, then open this link again.</p>
+          <p className="mt-4 text-ink-700">
+            This e-mail already has an account.{" "}
+            <a className="text-copper-600 underline" href="/sign-in">
+              Sign in
+            </a>{" "}
+            as {inv.invitation.email}, then open this link again.
+          </p>
         )
       ) : (
         <AcceptForm invitationId={id} />

@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { z } from "zod";
+
 import { createBuild, getBuild } from "@/db/queries/builds";
 import { HttpError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
@@ -10,7 +11,9 @@ import { sizeForSave } from "@/lib/builds/service";
 import type { FuelSystemInput } from "@/lib/calc";
 
 /** "Power step": a new build for the same car, starting from this build's inputs. */
-export async function copyBuildAction(buildId: string): Promise<{ ok: false; status: number; message: string }> {
+export async function copyBuildAction(
+  buildId: string,
+): Promise<{ ok: false; status: number; message: string }> {
   let target: string;
   try {
     const m = await requireMember("builds:write");
@@ -27,7 +30,8 @@ export async function copyBuildAction(buildId: string): Promise<{ ok: false; sta
     target = `/builds/${copy.id}`;
   } catch (e) {
     if (e instanceof HttpError) return { ok: false, status: e.status, message: e.message };
-    if (e instanceof z.ZodError) return { ok: false, status: 404, message: "That build was not found" };
+    if (e instanceof z.ZodError)
+      return { ok: false, status: 404, message: "That build was not found" };
     throw e;
   }
   redirect(target);

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
@@ -8,9 +9,9 @@ import { SafetyNote } from "@/components/tools/safety-note";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
-import { shopBsfc } from "@/lib/dyno/service";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemInput } from "@/lib/calc";
+import { shopBsfc } from "@/lib/dyno/service";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
 export const metadata: Metadata = { title: "Build sheet" };
@@ -20,16 +21,37 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const { id } = await params;
   const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
   if (!row) notFound();
-  const [revisions, bsfcRows] = await Promise.all([listRevisions(m.shopId, id), shopBsfc(m.shopId)]);
+  const [revisions, bsfcRows] = await Promise.all([
+    listRevisions(m.shopId, id),
+    shopBsfc(m.shopId),
+  ]);
   const b = row.build;
   return (
     <>
       <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
-        <p className="text-sm text-ink-600">{row.customerName}{b.vehicle ? ` · ${b.vehicle}` : ""}</p>
+        <p className="text-sm text-ink-600">
+          {row.customerName}
+          {b.vehicle ? ` · ${b.vehicle}` : ""}
+        </p>
         <div className="flex flex-wrap items-center gap-3">
-          <a href={`/api/v1/builds/${b.id}/spec-sheet`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Spec sheet (PDF)</a>
-          <Link href={`/builds/${b.id}/dyno`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Dyno logs</Link>
-          <Link href={`/builds/${b.id}/kit`} className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100">Parts kit{b.parts.length ? ` (${b.parts.length} chosen)` : ""}</Link>
+          <a
+            href={`/api/v1/builds/${b.id}/spec-sheet`}
+            className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
+          >
+            Spec sheet (PDF)
+          </a>
+          <Link
+            href={`/builds/${b.id}/dyno`}
+            className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
+          >
+            Dyno logs
+          </Link>
+          <Link
+            href={`/builds/${b.id}/kit`}
+            className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
+          >
+            Parts kit{b.parts.length ? ` (${b.parts.length} chosen)` : ""}
+          </Link>
           {can(m.role, "builds:write") ? <CopyBuildButton buildId={b.id} /> : null}
         </div>
       </div>
@@ -43,17 +65,40 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         units={await unitSystemOf(m.user.id, m.shopId)}
         shopBsfc={bsfcRows}
       />
-      <section aria-labelledby="revs" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
-        <h2 id="revs" className="text-xl font-semibold">Revisions</h2>
+      <section
+        aria-labelledby="revs"
+        className="mt-8 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="revs" className="text-xl font-semibold">
+          Revisions
+        </h2>
         <ol className="mt-2 divide-y divide-ink-100 text-sm">
           {revisions.map((r) => (
             <li key={r.id} className="flex gap-4 py-2">
               <span className="figure w-12 font-semibold">v{r.version}</span>
               <span className="w-20">{STATUS_LABELS[r.status]}</span>
-              <span className="figure w-44 text-ink-600">{r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC</span>
+              <span className="figure w-44 text-ink-600">
+                {r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+              </span>
               <span className="flex-1">{r.note ?? ""}</span>
-              <Link href={`/builds/${b.id}/revisions/${r.version}`} className="text-copper-700 underline" aria-label={`View version ${r.version}`}>View</Link>
-              {r.version > 1 ? <Link href={`/builds/${b.id}/compare?from=${r.version - 1}&to=${r.version}`} className="text-copper-700 underline" aria-label={`Compare version ${r.version} with version ${r.version - 1}`}>Changes</Link> : <span className="w-14" />}
+              <Link
+                href={`/builds/${b.id}/revisions/${r.version}`}
+                className="text-copper-700 underline"
+                aria-label={`View version ${r.version}`}
+              >
+                View
+              </Link>
+              {r.version > 1 ? (
+                <Link
+                  href={`/builds/${b.id}/compare?from=${r.version - 1}&to=${r.version}`}
+                  className="text-copper-700 underline"
+                  aria-label={`Compare version ${r.version} with version ${r.version - 1}`}
+                >
+                  Changes
+                </Link>
+              ) : (
+                <span className="w-14" />
+              )}
             </li>
           ))}
         </ol>

@@ -1,10 +1,12 @@
-import { notFound } from "next/navigation";
-import { PageHeader } from "@/components/ui/status";
 import Link from "next/link";
+import { notFound } from "next/navigation";
+
+import { PageHeader } from "@/components/ui/status";
 import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
-import { STATUS_LABELS } from "@/lib/validations/builds";
 import { requirePageMember } from "@/lib/auth/member";
+import { STATUS_LABELS } from "@/lib/validations/builds";
+
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";
 import { PortalAccess } from "./portal-access";
@@ -24,20 +26,38 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
         <h2 className="mb-4 text-xl font-semibold">Details</h2>
         <CustomerForm customer={c} />
       </section>
-      <section aria-labelledby="cust-portal" className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
-        <h2 id="cust-portal" className="mb-2 text-xl font-semibold">Customer portal</h2>
+      <section
+        aria-labelledby="cust-portal"
+        className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="cust-portal" className="mb-2 text-xl font-semibold">
+          Customer portal
+        </h2>
         <PortalAccess id={c.id} hasSignIn={Boolean(c.userId)} email={c.email} />
       </section>
-      <section aria-labelledby="cust-builds" className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5">
+      <section
+        aria-labelledby="cust-builds"
+        className="mt-6 max-w-xl rounded-lg border border-ink-200 bg-white p-5"
+      >
         <div className="flex items-center justify-between">
-          <h2 id="cust-builds" className="text-xl font-semibold">Builds</h2>
-          <Link href={`/builds/new?customer=${c.id}`} className="text-sm font-semibold text-copper-700 underline">New build</Link>
+          <h2 id="cust-builds" className="text-xl font-semibold">
+            Builds
+          </h2>
+          <Link
+            href={`/builds/new?customer=${c.id}`}
+            className="text-sm font-semibold text-copper-700 underline"
+          >
+            New build
+          </Link>
         </div>
         {builds.length === 0 ? <p className="mt-2 text-sm text-ink-600">No builds yet.</p> : null}
         <ul className="mt-2 space-y-1">
           {builds.map((b) => (
             <li key={b.id}>
-              <Link href={`/builds/${b.id}`} className="text-copper-700 underline">{b.title}</Link> <span className="text-sm text-ink-600">· {STATUS_LABELS[b.status]}</span>
+              <Link href={`/builds/${b.id}`} className="text-copper-700 underline">
+                {b.title}
+              </Link>{" "}
+              <span className="text-sm text-ink-600">· {STATUS_LABELS[b.status]}</span>
             </li>
           ))}
         </ul>

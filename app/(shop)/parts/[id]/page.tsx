@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+
 import { PartForm } from "@/components/parts/part-form";
 import { PageHeader } from "@/components/ui/status";
 import { getPart } from "@/db/queries/parts";
@@ -16,7 +17,9 @@ export default async function PartPage({ params }: { params: Promise<{ id: strin
   return (
     <>
       <PageHeader title={`${p.sku} — ${p.name}`} />
-      <p className="mb-3 text-sm text-ink-700">{p.reserved} held by accepted quotes; {p.stock - p.reserved} free.</p>
+      <p className="mb-3 text-sm text-ink-700">
+        {p.reserved} held by accepted quotes; {p.stock - p.reserved} free.
+      </p>
       <PartForm id={p.id} initial={flatOf(p)} canDelete />
     </>
   );

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+
 import { CatalogImport } from "@/components/parts/catalog-import";
 import { PageHeader } from "@/components/ui/status";
 import { getShopSettings } from "@/db/queries/shops";
@@ -13,7 +14,9 @@ export default async function ImportPartsPage() {
   return (
     <>
       <PageHeader title="Import parts">
-        <Link href="/parts" className="text-sm text-copper-700 underline">Back to the catalog</Link>
+        <Link href="/parts" className="text-sm text-copper-700 underline">
+          Back to the catalog
+        </Link>
       </PageHeader>
       <CatalogImport currency={s?.settings.currency ?? "USD"} />
     </>

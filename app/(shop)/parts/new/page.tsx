@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+
 import { PartForm } from "@/components/parts/part-form";
 import { PageHeader } from "@/components/ui/status";
 import { requirePageMember } from "@/lib/auth/member";
@@ -10,7 +11,16 @@ export default async function NewPartPage() {
   return (
     <>
       <PageHeader title="Add part" />
-      <PartForm initial={{ category: "injector", stock: "0", reorder_level: "0", ethanol_ok: "yes", rated_kpa: "300" }} canDelete={false} />
+      <PartForm
+        initial={{
+          category: "injector",
+          stock: "0",
+          reorder_level: "0",
+          ethanol_ok: "yes",
+          rated_kpa: "300",
+        }}
+        canDelete={false}
+      />
     </>
   );
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { QuoteEditor } from "@/components/quotes/quote-editor";
 import { PageHeader } from "@/components/ui/status";
 import { listParts } from "@/db/queries/parts";
@@ -14,7 +15,11 @@ import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quote" };
 
-const PAYMENT_LABELS = { pending: "checkout opened, not paid", paid: "deposit paid", expired: "checkout expired" } as const;
+const PAYMENT_LABELS = {
+  pending: "checkout opened, not paid",
+  paid: "deposit paid",
+  expired: "checkout expired",
+} as const;
 
 export default async function QuotePage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("quotes:read");
@@ -22,21 +27,50 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const q = /^[0-9a-f-]{36}$/i.test(id) ? await getQuote(m.shopId, id) : null;
   if (!q) notFound();
   const canWrite = can(m.role, "quotes:write");
-  const catalog = canWrite ? (await listParts(m.shopId, { sort: "sku", limit: 2000 })).map((p) => ({ id: p.id, sku: p.sku, label: `${p.brand} ${p.name}`, priceMinor: p.priceMinor, free: p.stock - p.reserved })) : [];
+  const catalog = canWrite
+    ? (await listParts(m.shopId, { sort: "sku", limit: 2000 })).map((p) => ({
+        id: p.id,
+        sku: p.sku,
+        label: `${p.brand} ${p.name}`,
+        priceMinor: p.priceMinor,
+        free: p.stock - p.reserved,
+      }))
+    : [];
   const qt = q.quote;
   const payments = await listPayments(m.shopId, qt.id);
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
         <div className="flex items-center gap-3">
-          <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Quote PDF</a>
-          <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span>
+          <a
+            href={`/api/v1/quotes/${qt.id}/pdf`}
+            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
+          >
+            Quote PDF
+          </a>
+          <span
+            className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white"
+            data-testid="quote-status"
+          >
+            {QUOTE_STATUS_LABELS[qt.status]}
+          </span>
         </div>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
-        {q.customerName}{q.customerEmail ? ` <${q.customerEmail}>` : " (no e-mail address)"}
-        {qt.buildId ? <> · for <Link href={`/builds/${qt.buildId}`} className="text-copper-700 underline">{q.buildTitle}</Link></> : null}
-        {qt.statusChangedAt ? ` · ${QUOTE_STATUS_LABELS[qt.status]} ${qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC` : ""}
+        {q.customerName}
+        {q.customerEmail ? ` <${q.customerEmail}>` : " (no e-mail address)"}
+        {qt.buildId ? (
+          <>
+            {" "}
+            · for{" "}
+            <Link href={`/builds/${qt.buildId}`} className="text-copper-700 underline">
+              {q.buildTitle}
+            </Link>
+          </>
+        ) : null}
+        {qt.statusChangedAt
+          ? ` · ${QUOTE_STATUS_LABELS[qt.status]} ${qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC`
+          : ""}
       </p>
       <QuoteEditor
         key={qt.id}
@@ -47,32 +81,64 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         taxRateBp={qt.taxRateBp}
         validUntil={qt.validUntil}
         notes={qt.notes ?? ""}
-        lines={q.lines.map((l) => ({ kind: l.kind, partId: l.partId, sku: l.sku, description: l.description, quantityMilli: l.quantityMilli, unitPriceMinor: l.unitPriceMinor, discountBp: l.discountBp }))}
+        lines={q.lines.map((l) => ({
+          kind: l.kind,
+          partId: l.partId,
+          sku: l.sku,
+          description: l.description,
+          quantityMilli: l.quantityMilli,
+          unitPriceMinor: l.unitPriceMinor,
+          discountBp: l.discountBp,
+        }))}
         catalog={catalog}
         canWrite={canWrite}
         customerEmail={q.customerEmail}
       />
-      <section aria-labelledby="q-pay" className="mt-6 rounded-lg border border-ink-200 bg-white p-5">
-        <h2 id="q-pay" className="text-lg font-semibold">Deposit</h2>
+      <section
+        aria-labelledby="q-pay"
+        className="mt-6 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="q-pay" className="text-lg font-semibold">
+          Deposit
+        </h2>
         {payments.length === 0 ? (
-          <p className="mt-1 text-sm text-ink-600">{qt.status === "accepted" ? "Waiting for the customer to pay the deposit in their portal." : "No payment yet."}</p>
+          <p className="mt-1 text-sm text-ink-600">
+            {qt.status === "accepted"
+              ? "Waiting for the customer to pay the deposit in their portal."
+              : "No payment yet."}
+          </p>
         ) : (
           <ul className="mt-2 space-y-1 text-sm" data-testid="quote-payments">
             {payments.map((p) => (
               <li key={p.id}>
-                <span className="figure">{formatMoney(p.amountMinor, p.currency)}</span> — {PAYMENT_LABELS[p.status]}
-                {p.paidAt ? ` ${p.paidAt.toISOString().replace("T", " ").slice(0, 16)} UTC` : ` (checkout opened ${p.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC)`}
+                <span className="figure">{formatMoney(p.amountMinor, p.currency)}</span> —{" "}
+                {PAYMENT_LABELS[p.status]}
+                {p.paidAt
+                  ? ` ${p.paidAt.toISOString().replace("T", " ").slice(0, 16)} UTC`
+                  : ` (checkout opened ${p.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC)`}
               </li>
             ))}
           </ul>
         )}
       </section>
-      <section aria-labelledby="q-mail" className="mt-6 rounded-lg border border-ink-200 bg-white p-5">
-        <h2 id="q-mail" className="text-lg font-semibold">E-mails sent</h2>
-        {q.messages.length === 0 ? <p className="mt-1 text-sm text-ink-600">None yet.</p> : (
+      <section
+        aria-labelledby="q-mail"
+        className="mt-6 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="q-mail" className="text-lg font-semibold">
+          E-mails sent
+        </h2>
+        {q.messages.length === 0 ? (
+          <p className="mt-1 text-sm text-ink-600">None yet.</p>
+        ) : (
           <ul className="mt-2 space-y-1 text-sm" data-testid="quote-messages">
             {q.messages.map((msg) => (
-              <li key={msg.id}><span className="figure">{msg.sentAt.toISOString().replace("T", " ").slice(0, 16)} UTC</span> to {msg.to}: “{msg.subject}”</li>
+              <li key={msg.id}>
+                <span className="figure">
+                  {msg.sentAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+                </span>{" "}
+                to {msg.to}: “{msg.subject}”
+              </li>
             ))}
           </ul>
         )}

@@ -14,7 +14,13 @@ import { BuildCreateSchema, BuildListQuery } from "@/lib/validations/builds";
 export const GET = handle(async (req) => {
   const m = await requireMember("builds:view");
   const { tuner, ...q } = BuildListQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
-  return Response.json(await listBuilds(m.shopId, { ...q, tunerId: tuner, portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined }));
+  return Response.json(
+    await listBuilds(m.shopId, {
+      ...q,
+      tunerId: tuner,
+      portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined,
+    }),
+  );
 });
 
 /** POST /api/v1/builds — a new build sheet for a customer (default inputs when none are sent). */
@@ -22,6 +28,11 @@ export const POST = handle(async (req) => {
   const m = await requireMember("builds:write");
   const body = BuildCreateSchema.parse(await readJson(req));
   const sized = sizeForSave(body.inputs ?? newBuildInputs());
-  const build = await createBuild(m.shopId, m.user.id, { customerId: body.customerId, title: body.title, vehicle: body.vehicle, ...sized });
+  const build = await createBuild(m.shopId, m.user.id, {
+    customerId: body.customerId,
+    title: body.title,
+    vehicle: body.vehicle,
+    ...sized,
+  });
   return Response.json({ build }, { status: 201 });
 });

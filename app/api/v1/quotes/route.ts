@@ -9,7 +9,11 @@ import { QuoteCreateSchema } from "@/lib/validations/quotes";
 /** GET /api/v1/quotes — the shop's quotes (a customer's own only). */
 export const GET = handle(async () => {
   const m = await requireMember("quotes:view");
-  return Response.json({ quotes: await listQuotes(m.shopId, { portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined }) });
+  return Response.json({
+    quotes: await listQuotes(m.shopId, {
+      portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined,
+    }),
+  });
 });
 
 /** POST /api/v1/quotes — a draft from a build's chosen parts ({ buildId }) or for a customer. */

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
 import { PageHeader } from "@/components/ui/status";
@@ -19,11 +20,20 @@ export const metadata: Metadata = { title: "My quote" };
 /** A customer's own quote, read-only. Anyone else's is "not found". */
 const PAYMENT_NOTES: Record<string, { ok: boolean; text: string }> = {
   paid: { ok: true, text: "Thank you: your deposit is paid." },
-  pending: { ok: false, text: "The payment is not confirmed yet; this page shows it as soon as it is." },
+  pending: {
+    ok: false,
+    text: "The payment is not confirmed yet; this page shows it as soon as it is.",
+  },
   cancelled: { ok: false, text: "Checkout was cancelled; nothing was charged." },
 };
 
-export default async function MyQuotePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ payment?: string }> }) {
+export default async function MyQuotePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<{ payment?: string }>;
+}) {
   const m = await requirePageMember("portal:view");
   const { id } = await params;
   const note = PAYMENT_NOTES[(await searchParams).payment ?? ""];
@@ -32,37 +42,98 @@ export default async function MyQuotePage({ params, searchParams }: { params: Pr
   const qt = q.quote;
   const money = (v: number) => formatMoney(v, qt.currency);
   const t = quoteTotals(q.lines, qt.taxRateBp);
-  const [settings, paid] = await Promise.all([getShopSettings(m.shopId), listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid"))]);
+  const [settings, paid] = await Promise.all([
+    getShopSettings(m.shopId),
+    listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid")),
+  ]);
   const deposit = depositOf(qt.totalMinor, settings?.settings.depositBp ?? 3000);
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
         <div className="flex items-center gap-4">
-          <a href={`/api/v1/quotes/${qt.id}/pdf`} className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100">Download quote (PDF)</a>
-          <Link href="/my" className="text-sm text-copper-700 underline">Back</Link>
+          <a
+            href={`/api/v1/quotes/${qt.id}/pdf`}
+            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
+          >
+            Download quote (PDF)
+          </a>
+          <Link href="/my" className="text-sm text-copper-700 underline">
+            Back
+          </Link>
         </div>
       </PageHeader>
-      {note ? <p role="status" className={`mb-4 rounded-md px-3 py-2 text-sm font-medium ${note.ok ? "bg-ok-50 text-ok-700" : "bg-ink-100 text-ink-800"}`}>{note.text}</p> : null}
-      <p className="mb-4 text-ink-700"><span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span> · valid until {qt.validUntil}{q.buildTitle ? ` · ${q.buildTitle}` : ""}</p>
+      {note ? (
+        <p
+          role="status"
+          className={`mb-4 rounded-md px-3 py-2 text-sm font-medium ${note.ok ? "bg-ok-50 text-ok-700" : "bg-ink-100 text-ink-800"}`}
+        >
+          {note.text}
+        </p>
+      ) : null}
+      <p className="mb-4 text-ink-700">
+        <span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span> · valid until{" "}
+        {qt.validUntil}
+        {q.buildTitle ? ` · ${q.buildTitle}` : ""}
+      </p>
       <table className="w-full rounded-lg border border-ink-200 bg-white text-left text-sm">
-        <thead className="bg-ink-100"><tr><th scope="col" className="px-3 py-2">Item</th><th scope="col" className="px-3 py-2 text-right">Qty</th><th scope="col" className="px-3 py-2 text-right">Amount</th></tr></thead>
+        <thead className="bg-ink-100">
+          <tr>
+            <th scope="col" className="px-3 py-2">
+              Item
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Qty
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Amount
+            </th>
+          </tr>
+        </thead>
         <tbody>
           {q.lines.map((l, i) => (
-            <tr key={l.id} className="border-t border-ink-100"><td className="px-3 py-2">{l.description}</td><td className="figure px-3 py-2 text-right">{formatScaled(l.quantityMilli, 3)}</td><td className="figure px-3 py-2 text-right">{money(t.lines[i]!.netMinor)}</td></tr>
+            <tr key={l.id} className="border-t border-ink-100">
+              <td className="px-3 py-2">{l.description}</td>
+              <td className="figure px-3 py-2 text-right">{formatScaled(l.quantityMilli, 3)}</td>
+              <td className="figure px-3 py-2 text-right">{money(t.lines[i]!.netMinor)}</td>
+            </tr>
           ))}
         </tbody>
         <tfoot className="text-right">
-          <tr><td colSpan={2} className="px-3 py-1">Tax</td><td className="figure px-3 py-1">{money(qt.taxMinor)}</td></tr>
-          <tr className="font-semibold"><td colSpan={2} className="px-3 py-1">Total</td><td className="figure px-3 py-1">{money(qt.totalMinor)}</td></tr>
+          <tr>
+            <td colSpan={2} className="px-3 py-1">
+              Tax
+            </td>
+            <td className="figure px-3 py-1">{money(qt.taxMinor)}</td>
+          </tr>
+          <tr className="font-semibold">
+            <td colSpan={2} className="px-3 py-1">
+              Total
+            </td>
+            <td className="figure px-3 py-1">{money(qt.totalMinor)}</td>
+          </tr>
         </tfoot>
       </table>
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
-      {qt.status === "accepted" && deposit > 0 ? <DepositButton id={qt.id} amount={money(deposit)} /> : null}
+      {qt.status === "accepted" && deposit > 0 ? (
+        <DepositButton id={qt.id} amount={money(deposit)} />
+      ) : null}
       {paid.map((p) => (
-        <p key={p.id} className="mt-4 text-sm text-ok-700" data-testid="deposit-paid">✓ Deposit of {formatMoney(p.amountMinor, p.currency)} paid {p.paidAt?.toISOString().replace("T", " ").slice(0, 16)} UTC.</p>
+        <p key={p.id} className="mt-4 text-sm text-ok-700" data-testid="deposit-paid">
+          ✓ Deposit of {formatMoney(p.amountMinor, p.currency)} paid{" "}
+          {p.paidAt?.toISOString().replace("T", " ").slice(0, 16)} UTC.
+        </p>
       ))}
-      {qt.status === "sent" ? <QuoteDecision id={qt.id} /> : qt.statusChangedAt ? <p className="mt-4 text-sm text-ink-700" data-testid="decision">{QUOTE_STATUS_LABELS[qt.status]} on {qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC.</p> : null}
-      <p className="mt-6 text-sm text-ink-600">Fuel system work must be fitted and checked by qualified people, following your local codes.</p>
+      {qt.status === "sent" ? (
+        <QuoteDecision id={qt.id} />
+      ) : qt.statusChangedAt ? (
+        <p className="mt-4 text-sm text-ink-700" data-testid="decision">
+          {QUOTE_STATUS_LABELS[qt.status]} on{" "}
+          {qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC.
+        </p>
+      ) : null}
+      <p className="mt-6 text-sm text-ink-600">
+        Fuel system work must be fitted and checked by qualified people, following your local codes.
+      </p>
     </>
   );
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getBuild, getRevision, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
@@ -16,7 +17,13 @@ const versionOf = (v: string | string[] | undefined) => {
 };
 
 /** Two revisions of one build side by side: what changed in the inputs and in the key figures. */
-export default async function CompareRevisionsPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function CompareRevisionsPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const m = await requirePageMember("builds:read");
   const { id } = await params;
   const sp = await searchParams;
@@ -26,15 +33,37 @@ export default async function CompareRevisionsPage({ params, searchParams }: { p
   const latest = row.build.version;
   const to = versionOf(sp.to) ?? latest;
   const from = versionOf(sp.from) ?? Math.max(1, to - 1);
-  const [a, b, revisions, units] = await Promise.all([getRevision(m.shopId, id, from), getRevision(m.shopId, id, to), listRevisions(m.shopId, id), unitSystemOf(m.user.id, m.shopId)]);
+  const [a, b, revisions, units] = await Promise.all([
+    getRevision(m.shopId, id, from),
+    getRevision(m.shopId, id, to),
+    listRevisions(m.shopId, id),
+    unitSystemOf(m.user.id, m.shopId),
+  ]);
   const changes = a && b ? diffInputs(a.inputs, b.inputs, units) : [];
-  const figures = a && b ? compareKeyFigures(a.result as FuelSystemResult | null, b.result as FuelSystemResult | null, units) : [];
+  const figures =
+    a && b
+      ? compareKeyFigures(
+          a.result as FuelSystemResult | null,
+          b.result as FuelSystemResult | null,
+          units,
+        )
+      : [];
   const picker = (name: string, value: number, label: string) => (
     <div>
-      <label htmlFor={`cmp-${name}`} className="block text-sm font-medium text-ink-700">{label}</label>
-      <select id={`cmp-${name}`} name={name} defaultValue={value} className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2">
+      <label htmlFor={`cmp-${name}`} className="block text-sm font-medium text-ink-700">
+        {label}
+      </label>
+      <select
+        id={`cmp-${name}`}
+        name={name}
+        defaultValue={value}
+        className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
+      >
         {revisions.map((r) => (
-          <option key={r.version} value={r.version}>Version {r.version}{r.note ? ` — ${r.note}` : ""}</option>
+          <option key={r.version} value={r.version}>
+            Version {r.version}
+            {r.note ? ` — ${r.note}` : ""}
+          </option>
         ))}
       </select>
     </div>
@@ -42,44 +71,82 @@ export default async function CompareRevisionsPage({ params, searchParams }: { p
   return (
     <>
       <PageHeader title={`${row.build.title} — compare`}>
-        <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+        <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">
+          Back to the build
+        </Link>
       </PageHeader>
       <form className="mb-6 flex flex-wrap items-end gap-3" action={`/builds/${id}/compare`}>
         {picker("from", from, "From")}
         {picker("to", to, "To")}
-        <button type="submit" className="rounded-md bg-ink-800 px-4 py-2 text-sm font-semibold text-white">Compare</button>
+        <button
+          type="submit"
+          className="rounded-md bg-ink-800 px-4 py-2 text-sm font-semibold text-white"
+        >
+          Compare
+        </button>
       </form>
       {!a || !b ? (
-        <p role="alert" className="text-danger-700">✕ Version {!a ? from : to} of this build does not exist; pick one from the lists.</p>
+        <p role="alert" className="text-danger-700">
+          ✕ Version {!a ? from : to} of this build does not exist; pick one from the lists.
+        </p>
       ) : (
         <div className="grid gap-6 lg:grid-cols-2">
-          <section aria-labelledby="cmp-inputs" className="rounded-lg border border-ink-200 bg-white p-5">
-            <h2 id="cmp-inputs" className="text-lg font-semibold">Inputs changed</h2>
+          <section
+            aria-labelledby="cmp-inputs"
+            className="rounded-lg border border-ink-200 bg-white p-5"
+          >
+            <h2 id="cmp-inputs" className="text-lg font-semibold">
+              Inputs changed
+            </h2>
             {changes.length === 0 ? (
-              <p className="mt-2 text-sm text-ink-700">The inputs of version {from} and version {to} are the same.</p>
+              <p className="mt-2 text-sm text-ink-700">
+                The inputs of version {from} and version {to} are the same.
+              </p>
             ) : (
               <table className="mt-2 w-full text-left text-sm" data-testid="input-changes">
                 <thead className="text-ink-600">
-                  <tr><th scope="col">Field</th><th scope="col">Version {from}</th><th scope="col">Version {to}</th></tr>
+                  <tr>
+                    <th scope="col">Field</th>
+                    <th scope="col">Version {from}</th>
+                    <th scope="col">Version {to}</th>
+                  </tr>
                 </thead>
                 <tbody>
                   {changes.map((c) => (
-                    <tr key={c.path} className="border-t border-ink-100"><td className="py-1">{c.label}</td><td className="figure">{c.before}</td><td className="figure font-semibold">{c.after}</td></tr>
+                    <tr key={c.path} className="border-t border-ink-100">
+                      <td className="py-1">{c.label}</td>
+                      <td className="figure">{c.before}</td>
+                      <td className="figure font-semibold">{c.after}</td>
+                    </tr>
                   ))}
                 </tbody>
               </table>
             )}
           </section>
-          <section aria-labelledby="cmp-figs" className="rounded-lg border border-ink-200 bg-white p-5">
-            <h2 id="cmp-figs" className="text-lg font-semibold">Key figures</h2>
+          <section
+            aria-labelledby="cmp-figs"
+            className="rounded-lg border border-ink-200 bg-white p-5"
+          >
+            <h2 id="cmp-figs" className="text-lg font-semibold">
+              Key figures
+            </h2>
             <table className="mt-2 w-full text-left text-sm" data-testid="figure-changes">
               <thead className="text-ink-600">
-                <tr><th scope="col">Figure</th><th scope="col">Version {from}</th><th scope="col">Version {to}</th><th scope="col"><span className="sr-only">Changed</span></th></tr>
+                <tr>
+                  <th scope="col">Figure</th>
+                  <th scope="col">Version {from}</th>
+                  <th scope="col">Version {to}</th>
+                  <th scope="col">
+                    <span className="sr-only">Changed</span>
+                  </th>
+                </tr>
               </thead>
               <tbody>
                 {figures.map((f) => (
                   <tr key={f.label} className="border-t border-ink-100">
-                    <td className="py-1">{f.label}</td><td className="figure">{f.before}</td><td className="figure font-semibold">{f.after}</td>
+                    <td className="py-1">{f.label}</td>
+                    <td className="figure">{f.before}</td>
+                    <td className="figure font-semibold">{f.after}</td>
                     <td>{f.changed ? <Signal level="info">changed</Signal> : null}</td>
                   </tr>
                 ))}

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild } from "@/db/queries/builds";
@@ -22,17 +23,32 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
     <>
       <PageHeader title={`Dyno verification — ${row.build.title}`}>
         <div className="flex items-center gap-3">
-          <span className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white" data-testid="build-status">{STATUS_LABELS[row.build.status]}</span>
-          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+          <span
+            className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white"
+            data-testid="build-status"
+          >
+            {STATUS_LABELS[row.build.status]}
+          </span>
+          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">
+            Back to the build
+          </Link>
         </div>
       </PageHeader>
       <p className="mb-4 rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm text-ink-800">
-        Stop a pull at once if lambda goes lean or fuel pressure falls. Dyno work on fuel systems follows your local codes and licensed practice.
+        Stop a pull at once if lambda goes lean or fuel pressure falls. Dyno work on fuel systems
+        follows your local codes and licensed practice.
       </p>
       <DynoWorkbench
         buildId={id}
         canUpload={can(m.role, "datalogs:upload")}
-        logs={logs.map((l) => ({ id: l.id, fileName: l.fileName, sizeBytes: l.sizeBytes, rowCount: l.rowCount, uploadedAt: l.uploadedAt.toISOString(), verifiedAt: l.verifiedAt?.toISOString() ?? null }))}
+        logs={logs.map((l) => ({
+          id: l.id,
+          fileName: l.fileName,
+          sizeBytes: l.sizeBytes,
+          rowCount: l.rowCount,
+          uploadedAt: l.uploadedAt.toISOString(),
+          verifiedAt: l.verifiedAt?.toISOString() ?? null,
+        }))}
       />
     </>
   );

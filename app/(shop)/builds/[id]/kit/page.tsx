@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { KitPicker } from "@/components/kit/kit-picker";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { PageHeader } from "@/components/ui/status";
@@ -20,10 +21,20 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
   return (
     <>
       <PageHeader title={`Parts kit — ${row.build.title}`}>
-        <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
+        <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">
+          Back to the build
+        </Link>
       </PageHeader>
-      <p className="mb-4 text-sm text-ink-700">Each part is sized with this build&apos;s inputs: injectors at the richest blend, pumps at rail plus boost and the build&apos;s voltage, lines against the shop&apos;s drop limit.</p>
-      <KitPicker buildId={id} currency={s?.settings.currency ?? "USD"} canChoose={can(m.role, "kit:choose")} canQuote={can(m.role, "quotes:write")} />
+      <p className="mb-4 text-sm text-ink-700">
+        Each part is sized with this build&apos;s inputs: injectors at the richest blend, pumps at
+        rail plus boost and the build&apos;s voltage, lines against the shop&apos;s drop limit.
+      </p>
+      <KitPicker
+        buildId={id}
+        currency={s?.settings.currency ?? "USD"}
+        canChoose={can(m.role, "kit:choose")}
+        canQuote={can(m.role, "quotes:write")}
+      />
       <SafetyNote />
     </>
   );

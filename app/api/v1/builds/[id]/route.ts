@@ -13,7 +13,11 @@ const idOf = (ctx: Ctx) => uuidParam(ctx, "That build");
 
 export const GET = handle<Ctx>(async (_req, ctx) => {
   const m = await requireMember("builds:view");
-  const row = await getBuild(m.shopId, await idOf(ctx), ownRecordsOnly(m.role) ? m.user.id : undefined);
+  const row = await getBuild(
+    m.shopId,
+    await idOf(ctx),
+    ownRecordsOnly(m.role) ? m.user.id : undefined,
+  );
   if (!row) throw new NotFoundError("That build");
   return Response.json({ build: row.build, customerName: row.customerName });
 });
@@ -31,7 +35,11 @@ export const PATCH = handle<Ctx>(async (req, ctx) => {
     const build = await saveBuild(m.shopId, id, m.user.id, body.version, { ...body, ...sized });
     return Response.json({ build });
   } catch (e) {
-    if (e instanceof ConflictError) return Response.json({ error: { code: e.code, message: e.message }, current: e.current }, { status: 409 });
+    if (e instanceof ConflictError)
+      return Response.json(
+        { error: { code: e.code, message: e.message }, current: e.current },
+        { status: 409 },
+      );
     throw e;
   }
 });

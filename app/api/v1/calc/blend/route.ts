@@ -1,15 +1,29 @@
 import { z } from "zod";
-import { BlendMixSchema, FillSplitSchema, FlexSensorSchema, VolumeToAddSchema, ethanolFromFlexSensorHz, fillSplit, mixFuels, volumeToAdd } from "@/lib/calc";
+
 import { requireMember } from "@/lib/auth/member";
+import {
+  BlendMixSchema,
+  ethanolFromFlexSensorHz,
+  fillSplit,
+  FillSplitSchema,
+  FlexSensorSchema,
+  mixFuels,
+  volumeToAdd,
+  VolumeToAddSchema,
+} from "@/lib/calc";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 
-const BlendRequest = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("mix"), ...BlendMixSchema.shape }),
-  z.object({ kind: z.literal("volume-to-add"), ...VolumeToAddSchema.shape }),
-  z.object({ kind: z.literal("fill-split"), ...FillSplitSchema.shape }),
-  z.object({ kind: z.literal("flex-sensor"), ...FlexSensorSchema.shape }),
-], { error: "kind must be mix, volume-to-add, fill-split or flex-sensor" });
+const BlendRequest = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("mix"), ...BlendMixSchema.shape }),
+    z.object({ kind: z.literal("volume-to-add"), ...VolumeToAddSchema.shape }),
+    z.object({ kind: z.literal("fill-split"), ...FillSplitSchema.shape }),
+    z.object({ kind: z.literal("flex-sensor"), ...FlexSensorSchema.shape }),
+  ],
+  { error: "kind must be mix, volume-to-add, fill-split or flex-sensor" },
+);
 
 /** POST /api/v1/calc/blend — the blend mixer's solvers, chosen by `kind`. */
 export const POST = handle(async (req) => {
@@ -23,6 +37,8 @@ export const POST = handle(async (req) => {
     case "fill-split":
       return Response.json({ result: fillSplit(body) });
     case "flex-sensor":
-      return Response.json({ result: { ethanolVolPct: ethanolFromFlexSensorHz(body.frequencyHz) } });
+      return Response.json({
+        result: { ethanolVolPct: ethanolFromFlexSensorHz(body.frequencyHz) },
+      });
   }
 });

@@ -1,5 +1,5 @@
-import { FuelSystemInputSchema, sizingAnswer } from "@/lib/calc";
 import { requireMember } from "@/lib/auth/member";
+import { FuelSystemInputSchema, sizingAnswer } from "@/lib/calc";
 import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 

@@ -22,13 +22,15 @@ export const PATCH = handle<IdCtx>(async (req, ctx) => {
     if (!part) throw new NotFoundError("That part");
     return Response.json({ part });
   } catch (e) {
-    if ((e as { code?: string }).code === "23505") throw new HttpError(409, "duplicate_sku", `SKU ${v.sku} is already in the catalog`);
+    if ((e as { code?: string }).code === "23505")
+      throw new HttpError(409, "duplicate_sku", `SKU ${v.sku} is already in the catalog`);
     throw e;
   }
 });
 
 export const DELETE = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("parts:write");
-  if (!(await deletePart(m.shopId, await uuidParam(ctx, "That part")))) throw new NotFoundError("That part");
+  if (!(await deletePart(m.shopId, await uuidParam(ctx, "That part"))))
+    throw new NotFoundError("That part");
   return new Response(null, { status: 204 });
 });

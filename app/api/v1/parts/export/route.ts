@@ -7,5 +7,10 @@ import { handle } from "@/lib/http/handler";
 export const GET = handle(async () => {
   const m = await requireMember("parts:read");
   const csv = catalogCsv(await listParts(m.shopId, { sort: "sku", limit: 100000 }));
-  return new Response(csv, { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="catalog-${new Date().toISOString().slice(0, 10)}.csv"` } });
+  return new Response(csv, {
+    headers: {
+      "content-type": "text/csv; charset=utf-8",
+      "content-disposition": `attachment; filename="catalog-${new Date().toISOString().slice(0, 10)}.csv"`,
+    },
+  });
 });

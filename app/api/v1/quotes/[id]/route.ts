@@ -9,7 +9,11 @@ import { QuoteUpdateSchema } from "@/lib/validations/quotes";
 
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
-  const q = await getQuote(m.shopId, await uuidParam(ctx, "That quote"), ownRecordsOnly(m.role) ? m.user.id : undefined);
+  const q = await getQuote(
+    m.shopId,
+    await uuidParam(ctx, "That quote"),
+    ownRecordsOnly(m.role) ? m.user.id : undefined,
+  );
   if (!q) throw new NotFoundError("That quote");
   return Response.json(q);
 });

@@ -7,6 +7,7 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 /** DELETE — revokes a share link at once. */
 export const DELETE = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("shares:manage");
-  if (!(await revokeShareLink(m.shopId, await uuidParam(ctx, "That link")))) throw new NotFoundError("That link");
+  if (!(await revokeShareLink(m.shopId, await uuidParam(ctx, "That link"))))
+    throw new NotFoundError("That link");
   return new Response(null, { status: 204 });
 });

@@ -3,14 +3,21 @@ import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
 import { readBytes } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
-import { LOGO_MAX_BYTES, checkLogo } from "@/lib/images/logo";
+import { checkLogo, LOGO_MAX_BYTES } from "@/lib/images/logo";
 
 /** GET — the shop's logo image (any member of the shop, customers included: it is on their PDFs). */
 export const GET = handle(async () => {
   const m = await requireMember("builds:view");
   const logo = await getLogo(m.shopId);
   if (!logo) throw new NotFoundError("The shop's logo");
-  return new Response(new Uint8Array(logo.bytes), { headers: { "content-type": logo.contentType, "cache-control": "private, max-age=60", etag: `"${logo.sha256}"`, "x-content-type-options": "nosniff" } });
+  return new Response(new Uint8Array(logo.bytes), {
+    headers: {
+      "content-type": logo.contentType,
+      "cache-control": "private, max-age=60",
+      etag: `"${logo.sha256}"`,
+      "x-content-type-options": "nosniff",
+    },
+  });
 });
 
 /** PUT (the image's bytes as the body) — upload or replace the logo: PNG or JPEG, at most 1 MB. */

@@ -1,17 +1,23 @@
-import { notFound } from "next/navigation";
 import Link from "next/link";
+import { notFound } from "next/navigation";
+
 import { ResultsPanel } from "@/components/builds/results-panel";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild, getRevision } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
-import { diffInputs } from "@/lib/builds/diff";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
+import { diffInputs } from "@/lib/builds/diff";
 import type { FuelSystemResult } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/validations/builds";
+
 import { RestoreButton } from "./restore-button";
 
-export default async function RevisionPage({ params }: { params: Promise<{ id: string; version: string }> }) {
+export default async function RevisionPage({
+  params,
+}: {
+  params: Promise<{ id: string; version: string }>;
+}) {
   const m = await requirePageMember("builds:read");
   const { id, version } = await params;
   const v = Number(version);
@@ -24,14 +30,33 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
     <>
       <PageHeader title={`${row.build.title} — version ${v}`}>
         <div className="flex items-center gap-3">
-          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">Back to the build</Link>
-          <a href={`/api/v1/builds/${id}/spec-sheet?version=${v}`} className="text-sm text-copper-700 underline">Spec sheet of version {v} (PDF)</a>
-          {v > 1 ? <Link href={`/builds/${id}/compare?from=${v - 1}&to=${v}`} className="text-sm text-copper-700 underline">Compare with version {v - 1}</Link> : null}
-          {!latest && can(m.role, "builds:write") ? <RestoreButton buildId={id} version={v} currentVersion={row.build.version} /> : null}
+          <Link href={`/builds/${id}`} className="text-sm text-copper-700 underline">
+            Back to the build
+          </Link>
+          <a
+            href={`/api/v1/builds/${id}/spec-sheet?version=${v}`}
+            className="text-sm text-copper-700 underline"
+          >
+            Spec sheet of version {v} (PDF)
+          </a>
+          {v > 1 ? (
+            <Link
+              href={`/builds/${id}/compare?from=${v - 1}&to=${v}`}
+              className="text-sm text-copper-700 underline"
+            >
+              Compare with version {v - 1}
+            </Link>
+          ) : null}
+          {!latest && can(m.role, "builds:write") ? (
+            <RestoreButton buildId={id} version={v} currentVersion={row.build.version} />
+          ) : null}
         </div>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
-        Read-only. {STATUS_LABELS[rev.status]}, saved {rev.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC{rev.note ? ` — ${rev.note}` : ""}. Figures as computed then (library {rev.calcVersion ?? "?"}).
+        Read-only. {STATUS_LABELS[rev.status]}, saved{" "}
+        {rev.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+        {rev.note ? ` — ${rev.note}` : ""}. Figures as computed then (library{" "}
+        {rev.calcVersion ?? "?"}).
       </p>
       <div className="grid gap-6 lg:grid-cols-2">
         <section className="rounded-lg border border-ink-200 bg-white p-5">

@@ -1,8 +1,10 @@
 "use client";
 
 import { useState, useTransition } from "react";
+
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
+
 import { restoreRevisionAction } from "./actions";
 
 export function RestoreButton(props: { buildId: string; version: number; currentVersion: number }) {
@@ -13,7 +15,12 @@ export function RestoreButton(props: { buildId: string; version: number; current
       <Button
         disabled={pending}
         onClick={() => {
-          if (!window.confirm(`Restore version ${props.version} as a new revision? The newer versions stay in the history.`)) return;
+          if (
+            !window.confirm(
+              `Restore version ${props.version} as a new revision? The newer versions stay in the history.`,
+            )
+          )
+            return;
           start(async () => setMessage((await restoreRevisionAction(props)).message));
         }}
       >

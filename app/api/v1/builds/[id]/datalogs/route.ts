@@ -1,4 +1,5 @@
 import { createHash, randomUUID } from "node:crypto";
+
 import { getBuild } from "@/db/queries/builds";
 import { listDatalogs, recordDatalog } from "@/db/queries/datalogs";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
@@ -16,7 +17,9 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("datalogs:read");
   const id = await uuidParam(ctx, "That build");
   if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
-  return Response.json({ datalogs: (await listDatalogs(m.shopId, id)).map(({ objectKey: _k, ...d }) => d) });
+  return Response.json({
+    datalogs: (await listDatalogs(m.shopId, id)).map(({ objectKey: _k, ...d }) => d),
+  });
 });
 
 /**
@@ -29,7 +32,8 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const id = await uuidParam(ctx, "That build");
   if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
   const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
-  if (!["text/csv", "text/plain", "application/vnd.ms-excel"].includes(type)) throw new HttpError(415, "not_csv", "Upload the datalog as a CSV file (text/csv)");
+  if (!["text/csv", "text/plain", "application/vnd.ms-excel"].includes(type))
+    throw new HttpError(415, "not_csv", "Upload the datalog as a CSV file (text/csv)");
   const text = await readText(req, MAX_BYTES, "datalog");
   let headers: string[];
   let rowCount: number;
@@ -44,10 +48,22 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
     throw e;
   }
   const bytes = Buffer.from(text, "utf8");
-  const fileName = (req.headers.get("x-file-name") ?? "datalog.csv").replace(/[^\w .()-]+/g, "_").slice(0, 120) || "datalog.csv";
+  const fileName =
+    (req.headers.get("x-file-name") ?? "datalog.csv").replace(/[^\w .()-]+/g, "_").slice(0, 120) ||
+    "datalog.csv";
   const objectKey = `${m.shopId}/builds/${id}/datalogs/${randomUUID()}.csv`;
   await putObject(objectKey, bytes, "text/csv");
-  const row = await recordDatalog({ shopId: m.shopId, buildId: id, objectKey, fileName, sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex"), headers, rowCount, uploadedBy: m.user.id });
+  const row = await recordDatalog({
+    shopId: m.shopId,
+    buildId: id,
+    objectKey,
+    fileName,
+    sizeBytes: bytes.length,
+    sha256: createHash("sha256").update(bytes).digest("hex"),
+    headers,
+    rowCount,
+    uploadedBy: m.user.id,
+  });
   const { objectKey: _k, ...datalog } = row;
   // cutShort: the file stopped mid-row, and that partial last row was left out of the analysis.
   return Response.json({ datalog, cutShort }, { status: 201 });

@@ -19,9 +19,15 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const id = await uuidParam(ctx, "That build");
   const body = KitChoiceSchema.parse(await readJson(req));
   try {
-    return Response.json({ build: await chooseKit(m.shopId, m.user.id, id, body.version, body.parts) });
+    return Response.json({
+      build: await chooseKit(m.shopId, m.user.id, id, body.version, body.parts),
+    });
   } catch (e) {
-    if (e instanceof ConflictError) return Response.json({ error: { code: e.code, message: e.message }, current: e.current }, { status: 409 });
+    if (e instanceof ConflictError)
+      return Response.json(
+        { error: { code: e.code, message: e.message }, current: e.current },
+        { status: 409 },
+      );
     throw e;
   }
 });

@@ -8,6 +8,7 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("builds:view");
   const id = await uuidParam(ctx, "That build");
-  if (!(await getBuild(m.shopId, id, ownRecordsOnly(m.role) ? m.user.id : undefined))) throw new NotFoundError("That build");
+  if (!(await getBuild(m.shopId, id, ownRecordsOnly(m.role) ? m.user.id : undefined)))
+    throw new NotFoundError("That build");
   return Response.json({ revisions: await listRevisions(m.shopId, id) });
 });

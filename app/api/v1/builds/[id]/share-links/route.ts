@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import { getBuild } from "@/db/queries/builds";
 import { createShareLink, listShareLinks } from "@/db/queries/shares";
 import { NotFoundError } from "@/lib/auth/errors";
@@ -8,7 +9,14 @@ import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 
-const Body = z.object({ days: z.number({ error: "days must be a number" }).int("days must be a whole number").min(1, "A link lasts at least 1 day").max(90, "A link lasts at most 90 days").default(14) });
+const Body = z.object({
+  days: z
+    .number({ error: "days must be a number" })
+    .int("days must be a whole number")
+    .min(1, "A link lasts at least 1 day")
+    .max(90, "A link lasts at most 90 days")
+    .default(14),
+});
 
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("shares:manage");
@@ -24,5 +32,11 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const { days } = Body.parse(await readJson(req));
   if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
   const { link, token } = await createShareLink(m.shopId, id, m.user.id, days);
-  return Response.json({ link: { id: link.id, expiresAt: link.expiresAt }, url: `${serverEnv().APP_URL}/share/${token}` }, { status: 201 });
+  return Response.json(
+    {
+      link: { id: link.id, expiresAt: link.expiresAt },
+      url: `${serverEnv().APP_URL}/share/${token}`,
+    },
+    { status: 201 },
+  );
 });

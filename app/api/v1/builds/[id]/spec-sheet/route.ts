@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
@@ -7,14 +8,24 @@ import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
 import { pdfFileName, pdfResponse, specSheetData } from "@/lib/pdf/spec-sheet-data";
 
-const Query = z.object({ version: z.coerce.number({ error: "version must be a number" }).int("version must be a whole number").min(1, "version starts at 1").optional() });
+const Query = z.object({
+  version: z.coerce
+    .number({ error: "version must be a number" })
+    .int("version must be a whole number")
+    .min(1, "version starts at 1")
+    .optional(),
+});
 
 /** GET ?version=N — the build's spec sheet as PDF, from its latest (or the named) saved revision. */
 export const GET = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember("builds:view");
   const id = await uuidParam(ctx, "That build");
   const { version } = Query.parse(Object.fromEntries(new URL(req.url).searchParams));
-  const data = await specSheetData(m.shopId, id, { version, portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined, viewerId: m.user.id });
+  const data = await specSheetData(m.shopId, id, {
+    version,
+    portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined,
+    viewerId: m.user.id,
+  });
   const pdf = await cachedPdf("spec-sheet", data, renderSpecSheet);
   return pdfResponse(pdf, pdfFileName(data.build.title, data.build.version));
 });

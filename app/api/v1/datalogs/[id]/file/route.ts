@@ -12,5 +12,12 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const d = await getDatalog(m.shopId, id);
   if (!d) throw new NotFoundError("That datalog");
   const body = await getObject(d.objectKey);
-  return new Response(new Uint8Array(body), { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${d.fileName}"`, "cache-control": "private, no-store", "x-content-type-options": "nosniff" } });
+  return new Response(new Uint8Array(body), {
+    headers: {
+      "content-type": "text/csv; charset=utf-8",
+      "content-disposition": `attachment; filename="${d.fileName}"`,
+      "cache-control": "private, no-store",
+      "x-content-type-options": "nosniff",
+    },
+  });
 });

@@ -2,9 +2,9 @@ import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
-import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
 import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
+import { cachedPdf } from "@/lib/pdf/render-cache";
 import { pdfResponse } from "@/lib/pdf/spec-sheet-data";
 
 /** GET — the quote as PDF. Staff read any of the shop's; a customer only their own (else 404). */
@@ -12,5 +12,8 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
   const id = await uuidParam(ctx, "That quote");
   const data = await quoteSheetData(m.shopId, id, ownRecordsOnly(m.role) ? m.user.id : undefined);
-  return pdfResponse(await cachedPdf("quote-sheet", data, renderQuoteSheet), quotePdfName(data.quote.label));
+  return pdfResponse(
+    await cachedPdf("quote-sheet", data, renderQuoteSheet),
+    quotePdfName(data.quote.label),
+  );
 });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+
 import { getQuote, setQuoteStatus } from "@/db/queries/quotes";
 import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import { requireMember } from "@/lib/auth/member";
@@ -6,7 +7,9 @@ import { readJson } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 
-const Body = z.object({ decision: z.enum(["accept", "decline"], { error: "Say accept or decline" }) });
+const Body = z.object({
+  decision: z.enum(["accept", "decline"], { error: "Say accept or decline" }),
+});
 
 /** POST { decision } — the customer accepts or declines their own sent quote (time and who are recorded). */
 export const POST = handle<IdCtx>(async (req, ctx) => {
@@ -15,7 +18,14 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const { decision } = Body.parse(await readJson(req));
   const q = await getQuote(m.shopId, id, m.user.id);
   if (!q) throw new NotFoundError("That quote");
-  if (q.quote.status !== "sent") throw new HttpError(409, "not_open", "This quote is no longer open for a decision");
-  const quote = await setQuoteStatus(m.shopId, id, m.user.id, decision === "accept" ? "accepted" : "declined", { portalUserId: m.user.id });
+  if (q.quote.status !== "sent")
+    throw new HttpError(409, "not_open", "This quote is no longer open for a decision");
+  const quote = await setQuoteStatus(
+    m.shopId,
+    id,
+    m.user.id,
+    decision === "accept" ? "accepted" : "declined",
+    { portalUserId: m.user.id },
+  );
   return Response.json({ quote });
 });

@@ -6,5 +6,7 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 /** POST — e-mails the quote to the customer; logged on the quote; a failed send changes nothing. */
 export const POST = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:write");
-  return Response.json(await sendQuote(m.shopId, m.shopName, m.user.id, await uuidParam(ctx, "That quote")));
+  return Response.json(
+    await sendQuote(m.shopId, m.shopName, m.user.id, await uuidParam(ctx, "That quote")),
+  );
 });
