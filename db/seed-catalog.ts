@@ -1,4 +1,4 @@
-import type { PartCategory } from "./schema/catalog";
+import type { PartCategory } from "@/lib/domain/parts";
 
 /**
  * The demo shop's catalog: invented brands, part numbers and prices, with figures in realistic

@@ -8,7 +8,7 @@ import { and, asc, eq } from "drizzle-orm";
 
 import { db } from "@/db";
 import * as schema from "@/db/schema";
-import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
+import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
 

@@ -2,8 +2,8 @@ import "server-only";
 
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 
-import { HttpError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
+import { HttpError } from "@/lib/http/http-error";
 
 let client: S3Client | undefined;
 

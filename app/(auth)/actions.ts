@@ -12,6 +12,7 @@ import {
   getInvitation,
 } from "@/db/queries/shops";
 import { fieldErrorsOf, formValues } from "@/lib/actions/member-action";
+import { zodIssues } from "@/lib/http/error-map";
 import type { ActionState } from "@/lib/actions/state";
 import { auth } from "@/lib/auth";
 import { currentMember } from "@/lib/auth/member";
@@ -26,7 +27,7 @@ export async function signUpAction(_prev: ActionState, form: FormData): Promise<
     return {
       ok: false,
       message: "Check the highlighted fields",
-      fieldErrors: fieldErrorsOf(parsed.error),
+      fieldErrors: fieldErrorsOf(zodIssues(parsed.error)),
       values,
     };
   const { name, email, password, shopName } = parsed.data;
@@ -75,7 +76,7 @@ export async function acceptInvitationAction(
     return {
       ok: false,
       message: "Check the highlighted fields",
-      fieldErrors: fieldErrorsOf(parsed.error),
+      fieldErrors: fieldErrorsOf(zodIssues(parsed.error)),
       values,
     };
   const inv = await getInvitation(parsed.data.invitationId);

@@ -8,7 +8,6 @@ import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
-import type { BuildStatus } from "@/db/schema/builds";
 import { diffInputs, stableJson } from "@/lib/builds/diff";
 import {
   AN_SIZES,
@@ -25,7 +24,7 @@ import {
   type ShopBsfcRow,
   type UnitSystem,
 } from "@/lib/calc";
-import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
+import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";

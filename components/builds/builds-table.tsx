@@ -5,9 +5,8 @@ import { useState } from "react";
 import useSWR from "swr";
 
 import { EmptyState, Signal } from "@/components/ui/status";
-import { BUILD_STATUSES, type BuildStatus } from "@/db/schema/builds";
+import { BUILD_STATUSES, STATUS_LABELS, type BuildStatus } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
-import { STATUS_LABELS } from "@/lib/validations/builds";
 
 interface Row {
   id: string;

@@ -6,10 +6,10 @@ import useSWR from "swr";
 
 import { Button } from "@/components/ui/button";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
-import type { ChosenPart, KitRole } from "@/db/schema/builds";
 import { api } from "@/lib/api-client";
 import { formatMoney } from "@/lib/catalog/money";
 import type { Candidate } from "@/lib/catalog/recommend";
+import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
 
 interface Kit {

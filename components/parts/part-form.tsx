@@ -6,9 +6,8 @@ import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
-import { PART_CATEGORIES, type PartCategory } from "@/db/schema/catalog";
 import { api } from "@/lib/api-client";
-import { CATEGORY_LABELS } from "@/lib/catalog/labels";
+import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 import type { FlatPart } from "@/lib/validations/parts";
 
 /** The spec fields each category shows: [column, label, hint]. */

@@ -5,9 +5,10 @@ import { useState } from "react";
 import useSWR from "swr";
 
 import { EmptyState } from "@/components/ui/status";
-import { PART_CATEGORIES, type Part } from "@/db/schema/catalog";
-import { CATEGORY_LABELS, specSummary } from "@/lib/catalog/labels";
+import { type Part } from "@/db/schema/catalog";
+import { specSummary } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
+import { CATEGORY_LABELS, PART_CATEGORIES } from "@/lib/domain/parts";
 import { fetcher } from "@/lib/fetcher";
 
 import { StockBadge } from "./stock-badge";

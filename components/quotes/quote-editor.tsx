@@ -5,7 +5,6 @@ import { useMemo, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
-import type { QuoteStatus } from "@/db/schema/catalog";
 import { api } from "@/lib/api-client";
 import {
   formatMoney,
@@ -15,7 +14,7 @@ import {
   parseScaled,
 } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
-import { QUOTE_NEXT, QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
+import { QUOTE_NEXT, QUOTE_STATUS_LABELS, type QuoteStatus } from "@/lib/domain/quotes";
 
 export interface EditorLine {
   kind: "part" | "labour" | "fee";

@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 
 import type { Member } from "@/lib/auth/member";
-import { ROLE_LABELS } from "@/lib/auth/roles";
+import { ROLE_LABELS } from "@/lib/domain/roles";
 
 import { Logo } from "./logo";
 import { navFor } from "./nav-items";

@@ -1,4 +1,4 @@
-import type { Role } from "@/lib/auth/roles";
+import type { Role } from "@/lib/domain/roles";
 
 export interface NavItem {
   href: string;

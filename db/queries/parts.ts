@@ -1,7 +1,8 @@
 import { and, asc, desc, eq, ilike, inArray, or, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { parts, type PartCategory } from "@/db/schema";
+import { parts } from "@/db/schema";
+import { type PartCategory } from "@/lib/domain/parts";
 import type { PartValues } from "@/lib/validations/parts";
 
 import { escapeLike } from "./like";

@@ -11,17 +11,17 @@ import {
   quotes,
   shopCounters,
   shopSettings,
-  type QuoteStatus,
 } from "@/db/schema";
-import { HttpError } from "@/lib/auth/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   QUOTE_EDITABLE,
   QUOTE_HOLDS_STOCK,
   QUOTE_NEXT,
   QUOTE_STATUS_LABELS,
-  type QuoteLineSchema,
-} from "@/lib/validations/quotes";
+  type QuoteStatus,
+} from "@/lib/domain/quotes";
+import { type QuoteLineSchema } from "@/lib/validations/quotes";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 export type QuoteLineInput = z.output<typeof QuoteLineSchema>;

@@ -11,37 +11,10 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import { BUILD_STATUSES, type ChosenPart } from "@/lib/domain/builds";
+
 import { organization, user } from "./auth";
 import { customers } from "./shops";
-
-export const BUILD_STATUSES = [
-  "draft",
-  "sized",
-  "quoted",
-  "ordered",
-  "fitted",
-  "verified",
-] as const;
-export type BuildStatus = (typeof BUILD_STATUSES)[number];
-
-export const KIT_ROLES = [
-  "injector",
-  "pump",
-  "regulator",
-  "feed-line",
-  "return-line",
-  "filter",
-  "sensor",
-] as const;
-export type KitRole = (typeof KIT_ROLES)[number];
-/** A catalog part chosen for a build, with the figures it was chosen on. */
-export interface ChosenPart {
-  role: KitRole;
-  partId: string;
-  sku: string;
-  name: string;
-  quantity: number;
-}
 
 /** A customer's build sheet: the validated sizing inputs and the last result computed from them. */
 export const builds = pgTable(

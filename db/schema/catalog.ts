@@ -13,21 +13,12 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import { PART_CATEGORIES } from "@/lib/domain/parts";
+import { PAYMENT_STATUSES, QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
+
 import { organization, user } from "./auth";
 import { builds } from "./builds";
 import { customers } from "./shops";
-
-export const PART_CATEGORIES = [
-  "injector",
-  "pump",
-  "regulator",
-  "line",
-  "fitting",
-  "filter",
-  "sensor",
-  "other",
-] as const;
-export type PartCategory = (typeof PART_CATEGORIES)[number];
 
 /** One catalog part of a shop. Money in integer minor units (cents); specs validated per category. */
 export const parts = pgTable(
@@ -60,18 +51,6 @@ export const parts = pgTable(
     ),
   ],
 );
-
-export const QUOTE_STATUSES = [
-  "draft",
-  "sent",
-  "accepted",
-  "deposit_paid",
-  "ordered",
-  "declined",
-  "expired",
-  "superseded",
-] as const;
-export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
 
 /** Per-shop gap-free counters (quote numbers): incremented inside the creating transaction. */
 export const shopCounters = pgTable(
@@ -123,8 +102,6 @@ export const quotes = pgTable(
     index("quotes_build_idx").on(t.buildId),
   ],
 );
-
-export const QUOTE_LINE_KINDS = ["part", "labour", "fee"] as const;
 
 export const quoteLines = pgTable(
   "quote_lines",
@@ -212,9 +189,6 @@ export const shareLinks = pgTable(
   ],
 );
 export type ShareLink = typeof shareLinks.$inferSelect;
-
-export const PAYMENT_STATUSES = ["pending", "paid", "expired"] as const;
-export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
 
 /** A deposit asked of the customer through the card-payment provider: one row per checkout session. */
 export const payments = pgTable(

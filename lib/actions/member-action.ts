@@ -3,13 +3,13 @@ import "server-only";
 import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 
-import { HttpError } from "@/lib/auth/errors";
 import { requireMember, type Member } from "@/lib/auth/member";
 import type { Action } from "@/lib/auth/permissions";
+import { describeError, type FieldIssue } from "@/lib/http/error-map";
 
 import type { ActionState } from "./state";
 
-/** Form data as a plain object of strings (files dropped). */
+/** Form data as a plain object of strings (files and React's own fields dropped). */
 export function formValues(form: FormData): Record<string, string> {
   const out: Record<string, string> = {};
   for (const [k, v] of form.entries())
@@ -17,56 +17,67 @@ export function formValues(form: FormData): Record<string, string> {
   return out;
 }
 
-/** Every field's messages, not only the first. */
-export function fieldErrorsOf(err: z.ZodError): Record<string, string[]> {
+/** Field issues as every field's messages, not only the first. */
+export function fieldErrorsOf(issues: FieldIssue[]): Record<string, string[]> {
   const out: Record<string, string[]> = {};
-  for (const i of err.issues) {
-    const key = i.path.map(String).join(".") || "form";
-    (out[key] ??= []).push(i.message);
-  }
+  for (const i of issues) (out[i.path === "(body)" ? "form" : i.path] ??= []).push(i.message);
   return out;
 }
 
+/** The one mapper's answer for an action: a refused ActionState with the values kept. */
+export function errorState(err: unknown, values?: Record<string, string>): ActionState {
+  unstable_rethrow(err); // redirect() and notFound() are control flow, not failures
+  const d = describeError(err);
+  const message =
+    d.status === 500
+      ? "Saving failed on our side; your entries are kept — try again"
+      : d.code === "invalid_input" &&
+          d.issues.length > 0 &&
+          d.message === "Some fields are not valid"
+        ? "Check the highlighted fields"
+        : d.message;
+  return {
+    ok: false,
+    status: d.status,
+    code: d.code,
+    message,
+    ...(d.issues.length ? { fieldErrors: fieldErrorsOf(d.issues) } : {}),
+    ...(values ? { values } : {}),
+    ...(d.current === undefined ? {} : { current: d.current }),
+  };
+}
+
 /**
- * The one wrapper for server actions: session → role check → zod parse → run.
- * Bad input comes back as field errors with the values typed, so nothing is lost.
+ * The one wrapper for server actions, a thin adapter over a command: session → zod parse →
+ * run (the command checks the role and the state) → ActionState. Takes FormData (forms with
+ * `useActionState`) or a plain object (calls through `useTransition`). Bad input comes back as
+ * field errors with the values typed, so nothing is lost.
  */
+export function memberAction<S extends z.ZodType, T>(
+  schema: S,
+  run: (member: Member, data: z.output<S>) => Promise<ActionState<T> | T | void>,
+): (prev: ActionState, input: unknown) => Promise<ActionState<T>>;
+/** @deprecated Transitional form: checks `action` here; new code lets the command check it. */
 export function memberAction<S extends z.ZodType>(
   action: Action,
   schema: S,
   run: (data: z.output<S>, member: Member, form: FormData) => Promise<ActionState | void>,
-) {
-  return async (_prev: ActionState, form: FormData): Promise<ActionState> => {
-    const values = formValues(form);
-    let member: Member;
+): (prev: ActionState, input: FormData) => Promise<ActionState>;
+export function memberAction(...args: unknown[]) {
+  const legacy = typeof args[0] === "string";
+  const action = legacy ? (args[0] as Action) : undefined;
+  const schema = (legacy ? args[1] : args[0]) as z.ZodType;
+  const run = (legacy ? args[2] : args[1]) as (...a: unknown[]) => Promise<unknown>;
+  return async (_prev: ActionState, input: unknown): Promise<ActionState> => {
+    const values = input instanceof FormData ? formValues(input) : undefined;
     try {
-      member = await requireMember(action);
+      const member = await requireMember(action);
+      const data = schema.parse(values ?? input);
+      const out = legacy ? await run(data, member, input) : await run(member, data);
+      if (out && typeof out === "object" && "ok" in out) return out as ActionState;
+      return { ok: true, ...(out === undefined ? {} : { data: out }) };
     } catch (e) {
-      if (e instanceof HttpError)
-        return { ok: false, status: e.status, message: e.message, values };
-      throw e;
-    }
-    const parsed = schema.safeParse(values);
-    if (!parsed.success)
-      return {
-        ok: false,
-        status: 422,
-        message: "Check the highlighted fields",
-        fieldErrors: fieldErrorsOf(parsed.error),
-        values,
-      };
-    try {
-      return (await run(parsed.data, member, form)) ?? { ok: true };
-    } catch (e) {
-      unstable_rethrow(e); // redirect() and notFound() are control flow, not failures
-      if (e instanceof HttpError)
-        return { ok: false, status: e.status, message: e.message, values };
-      console.error(e);
-      return {
-        ok: false,
-        message: "Saving failed on our side; your entries are kept — try again",
-        values,
-      };
+      return errorState(e, values);
     }
   };
 }

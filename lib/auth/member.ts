@@ -8,10 +8,10 @@ import { cache } from "react";
 import { db } from "@/db";
 import { member, organization } from "@/db/schema";
 import { auth } from "@/lib/auth";
+import { Forbidden, Unauthorized } from "@/lib/domain/errors";
+import { isRole, type Role } from "@/lib/domain/roles";
 
-import { ForbiddenError, UnauthorizedError } from "./errors";
 import { can, type Action } from "./permissions";
-import { isRole, type Role } from "./roles";
 
 export interface Member {
   user: { id: string; name: string; email: string };
@@ -48,8 +48,8 @@ export const currentMember = cache(async (): Promise<Member | null> => {
 /** For route handlers and server actions: the member, allowed to take `action`, or an HttpError. */
 export async function requireMember(action?: Action): Promise<Member> {
   const m = await currentMember();
-  if (!m) throw new UnauthorizedError();
-  if (action && !can(m.role, action)) throw new ForbiddenError();
+  if (!m) throw new Unauthorized();
+  if (action && !can(m.role, action)) throw new Forbidden();
   return m;
 }
 

@@ -1,4 +1,5 @@
-import type { Role } from "./roles";
+import { Forbidden } from "@/lib/domain/errors";
+import type { Role } from "@/lib/domain/roles";
 
 /**
  * The one permissions table: every action a member can take, and the roles that may take it.
@@ -45,4 +46,9 @@ export function can(role: Role, action: Action): boolean {
 /** Roles that see only the records tied to their own sign-in (their builds, quotes, files). */
 export function ownRecordsOnly(role: Role): boolean {
   return role === "customer";
+}
+
+/** For commands: the member may take `action`, or Forbidden is thrown. */
+export function authorize(member: { role: Role }, action: Action): void {
+  if (!can(member.role, action)) throw new Forbidden();
 }

@@ -1,12 +1,11 @@
-import type { BuildStatus } from "@/db/schema/builds";
-import { HttpError } from "@/lib/auth/errors";
 import {
   CALC_VERSION,
   FuelSystemInputSchema,
   sizeParsedFuelSystem,
   type FuelSystemInput,
 } from "@/lib/calc";
-import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
+import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
+import { HttpError } from "@/lib/http/http-error";
 
 /** Validates and sizes inputs on the server — the same library the browser ran. */
 export function sizeForSave(inputs: FuelSystemInput) {

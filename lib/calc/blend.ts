@@ -1,4 +1,4 @@
-import { CalcInputError, requireRange } from "./_lib/errors";
+import { CalcInputError, requireRange } from "./_lib/input-error";
 
 export interface FuelVolume {
   volumeL: number;

@@ -2,7 +2,7 @@
  * Fuelwright's calculation library: pure functions, no I/O. The browser, the server actions,
  * the PDF renderer and the JSON API all call this one implementation.
  */
-export { CalcInputError } from "./_lib/errors";
+export { CalcInputError } from "./_lib/input-error";
 export * from "./constants";
 export {
   fuelBlend,

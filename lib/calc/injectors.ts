@@ -1,4 +1,4 @@
-import { CalcInputError, requirePositive, requireRange } from "./_lib/errors";
+import { CalcInputError, requirePositive, requireRange } from "./_lib/input-error";
 import { clamp, interpolateLinear } from "./_lib/interpolate";
 import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
 

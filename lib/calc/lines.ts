@@ -1,4 +1,4 @@
-import { requirePositive, requireRange } from "./_lib/errors";
+import { requirePositive, requireRange } from "./_lib/input-error";
 
 /** Laminar below this Reynolds number; fully turbulent above the upper one. */
 export const RE_LAMINAR = 2300;

@@ -1,4 +1,4 @@
-import { requirePositive, requireRange } from "./_lib/errors";
+import { requirePositive, requireRange } from "./_lib/input-error";
 
 /** g/kWh in one lb/(hp·h): 453.59237 g / 0.74569987 kWh = 608.277 (Heywood ch. 2; NIST SP 811 factors). */
 export const G_PER_KWH_PER_LB_PER_HP_H = 453.59237 / 0.74569987158227022;

@@ -1,4 +1,4 @@
-import { CalcInputError } from "./_lib/errors";
+import { CalcInputError } from "./_lib/input-error";
 import { Tracer } from "./_lib/trace";
 import { fuelBlend, type FuelBlend } from "./fuel";
 import {

@@ -1,6 +1,6 @@
 import convert from "convert-units";
 
-import { requirePositive } from "./_lib/errors";
+import { requirePositive } from "./_lib/input-error";
 import { KG_PER_LB, KW_PER_HP, KW_PER_PS } from "./constants";
 import { G_PER_KWH_PER_LB_PER_HP_H } from "./power";
 

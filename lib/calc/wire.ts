@@ -1,4 +1,4 @@
-import { requirePositive, requireRange } from "./_lib/errors";
+import { requirePositive, requireRange } from "./_lib/input-error";
 import { COPPER_RESISTIVITY_OHM_M } from "./constants";
 
 /**

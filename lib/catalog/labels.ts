@@ -1,15 +1,4 @@
-import type { PartCategory } from "@/db/schema/catalog";
-
-export const CATEGORY_LABELS: Record<PartCategory, string> = {
-  injector: "Injector",
-  pump: "Pump",
-  regulator: "Regulator",
-  line: "Line / hose",
-  fitting: "Fitting",
-  filter: "Filter",
-  sensor: "Ethanol sensor",
-  other: "Other",
-};
+import type { PartCategory } from "@/lib/domain/parts";
 
 /** One line of a part's key figures for tables (canonical units). */
 export function specSummary(category: PartCategory, s: Record<string, unknown>): string {
@@ -40,6 +29,4 @@ export function specSummary(category: PartCategory, s: Record<string, unknown>):
   }
 }
 
-/** Q-0007, or Q-0007-r2 for a later revision. */
-export const quoteLabel = (number: number, revision: number) =>
-  `Q-${String(number).padStart(4, "0")}${revision > 1 ? `-r${revision}` : ""}`;
+//END

@@ -2,12 +2,13 @@ import "server-only";
 
 import { getBuild } from "@/db/queries/builds";
 import { createQuote, getQuote, recordQuoteSent } from "@/db/queries/quotes";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
+import { quoteLabel } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
+import { HttpError } from "@/lib/http/http-error";
 import { sendMail } from "@/lib/mail";
 import { portalInviteLink } from "@/lib/portal/invite";
 
-import { quoteLabel } from "./labels";
 import { formatMoney } from "./money";
 import { linesFromBuild } from "./service";
 
@@ -42,7 +43,7 @@ export async function quoteFromBuild(
  */
 export async function sendQuote(shopId: string, shopName: string, userId: string, id: string) {
   const q = await getQuote(shopId, id);
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   if (!["draft", "sent"].includes(q.quote.status))
     throw new HttpError(422, "invalid_transition", "Only a draft or sent quote is e-mailed");
   if (!q.customerEmail)

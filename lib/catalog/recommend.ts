@@ -1,10 +1,10 @@
-import type { KitRole } from "@/db/schema/builds";
-import type { PartCategory } from "@/db/schema/catalog";
 import {
   sizeParsedFuelSystem,
   type FuelSystemResult,
   type ParsedFuelSystemInput,
 } from "@/lib/calc";
+import { type KitRole } from "@/lib/domain/builds";
+import { type PartCategory } from "@/lib/domain/parts";
 
 /** A catalog part as the recommender needs it. */
 export interface CatalogPart {

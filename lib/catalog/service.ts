@@ -4,10 +4,12 @@ import { getBuild, saveBuild } from "@/db/queries/builds";
 import { getPartsByIds, listParts } from "@/db/queries/parts";
 import type { QuoteLineInput } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
-import type { ChosenPart, KitRole, Part } from "@/db/schema";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import type { Part } from "@/db/schema";
 import { sizeForSave } from "@/lib/builds/service";
 import { FuelSystemInputSchema, type FuelSystemInput } from "@/lib/calc";
+import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 
 import { applyKit, recommendKit, type CatalogPart } from "./recommend";
 
@@ -25,7 +27,7 @@ const asCatalog = (p: Part): CatalogPart => ({
 
 export async function kitFor(shopId: string, buildId: string) {
   const row = await getBuild(shopId, buildId);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   const input = FuelSystemInputSchema.parse(row.build.inputs);
   const catalog = (await listParts(shopId, { limit: 2000 })).map(asCatalog);
   return { build: row.build, recommendation: recommendKit(input, catalog) };
@@ -40,7 +42,7 @@ export async function chooseKit(
   choice: { role: KitRole; partId: string; quantity: number }[],
 ) {
   const row = await getBuild(shopId, buildId);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   const found = new Map(
     (await getPartsByIds(shopId, [...new Set(choice.map((c) => c.partId))])).map((p) => [p.id, p]),
   );

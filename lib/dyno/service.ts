@@ -10,7 +10,6 @@ import {
   saveAnalysis,
   verifiedBsfcPoints,
 } from "@/db/queries/datalogs";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
 import {
   analyzePull,
   ASPIRATIONS,
@@ -31,12 +30,14 @@ import {
   type Aspiration,
   type PullContext,
 } from "@/lib/calc";
+import { STATUS_LABELS, STATUS_NEXT } from "@/lib/domain/builds";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { getObject } from "@/lib/storage";
-import { STATUS_LABELS, STATUS_NEXT } from "@/lib/validations/builds";
 
 async function load(shopId: string, id: string) {
   const d = await getDatalog(shopId, id);
-  if (!d) throw new NotFoundError("That datalog");
+  if (!d) throw new NotFound("That datalog");
   const log = parseDatalog((await getObject(d.objectKey)).toString("utf8"));
   return { d, log };
 }
@@ -72,7 +73,7 @@ export async function analyseDatalog(shopId: string, userId: string, id: string,
       })),
     );
   const row = await getBuild(shopId, d.buildId);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   const input = FuelSystemInputSchema.parse(row.build.inputs);
   const result = sizeParsedFuelSystem(input);
   const samples = samplesFromLog(log, mapping);
@@ -134,11 +135,11 @@ export async function analyseDatalog(shopId: string, userId: string, id: string,
 /** "Mark verified": the build moves to verified, with this analysed log attached, as a new revision. */
 export async function verifyWithDatalog(shopId: string, userId: string, id: string) {
   const d = await getDatalog(shopId, id);
-  if (!d) throw new NotFoundError("That datalog");
+  if (!d) throw new NotFound("That datalog");
   if (!d.analysis)
     throw new HttpError(409, "not_analysed", "Analyse the log before marking the build verified");
   const row = await getBuild(shopId, d.buildId);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   const b = row.build;
   if (b.status !== "verified" && !STATUS_NEXT[b.status].includes("verified"))
     throw new HttpError(

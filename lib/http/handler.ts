@@ -1,4 +1,4 @@
-import { errorResponse } from "./errors";
+import { errorResponse } from "./error-map";
 
 type Handler<C> = (req: Request, ctx: C) => Promise<Response>;
 

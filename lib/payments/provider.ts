@@ -2,8 +2,8 @@ import "server-only";
 
 import Stripe from "stripe";
 
-import { HttpError } from "@/lib/auth/errors";
 import { serverEnv } from "@/lib/env";
+import { HttpError } from "@/lib/http/http-error";
 
 const FAKE_URL = "http://127.0.0.1:12111";
 let client: Stripe | undefined;

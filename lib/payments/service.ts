@@ -12,9 +12,10 @@ import {
 } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
-import { quoteLabel } from "@/lib/catalog/labels";
+import { NotFound } from "@/lib/domain/errors";
+import { quoteLabel } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
+import { HttpError } from "@/lib/http/http-error";
 
 import { depositOf } from "./deposit";
 import { payments, verifiedEvent } from "./provider";
@@ -42,7 +43,7 @@ export async function startDeposit(
   quoteId: string,
 ): Promise<{ url: string; amountMinor: number }> {
   const q = await getQuote(shopId, quoteId, userId);
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   if (q.quote.status !== "accepted")
     throw new HttpError(
       409,
@@ -105,9 +106,9 @@ export async function confirmReturn(
   sessionId: string,
 ): Promise<"paid" | "already" | "unpaid"> {
   const q = await getQuote(shopId, quoteId, userId);
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   const mine = (await listPayments(shopId, quoteId)).some((p) => p.checkoutSessionId === sessionId);
-  if (!mine) throw new NotFoundError("That payment");
+  if (!mine) throw new NotFound("That payment");
   const session = await provider(() => payments().checkout.sessions.retrieve(sessionId));
   if (session.payment_status !== "paid") return "unpaid";
   const r = await confirmPayment(session.id, `return:${session.id}`);

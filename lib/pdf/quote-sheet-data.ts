@@ -4,12 +4,11 @@ import { pdfLogo } from "@/db/queries/logos";
 import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
-import { NotFoundError } from "@/lib/auth/errors";
-import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { NotFound } from "@/lib/domain/errors";
+import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
 import { depositOf } from "@/lib/payments/deposit";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 import type { QuoteSheetData } from "./quote-sheet";
 
@@ -20,7 +19,7 @@ export async function quoteSheetData(
   portalUserId?: string,
 ): Promise<QuoteSheetData> {
   const q = await getQuote(shopId, id, portalUserId);
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   const [settings, logo, payments] = await Promise.all([
     getShopSettings(shopId),
     pdfLogo(shopId),

@@ -5,7 +5,7 @@ import { createHash } from "node:crypto";
 import { LRUCache } from "lru-cache";
 import pLimit from "p-limit";
 
-import { HttpError } from "@/lib/auth/errors";
+import { HttpError } from "@/lib/http/http-error";
 
 /**
  * PDF rendering is CPU-bound (~100–200 ms a sheet) and runs on the request's event loop. Three

@@ -5,13 +5,13 @@ import { latestVerifiedDatalog } from "@/db/queries/datalogs";
 import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
-import { NotFoundError } from "@/lib/auth/errors";
 import {
   CALC_VERSION,
   FuelSystemInputSchema,
   sizeParsedFuelSystem,
   type FuelSystemResult,
 } from "@/lib/calc";
+import { NotFound } from "@/lib/domain/errors";
 
 import type { SpecSheetData } from "./spec-sheet";
 
@@ -22,9 +22,9 @@ export async function specSheetData(
   opts: { version?: number; portalUserId?: string; viewerId?: string },
 ): Promise<SpecSheetData> {
   const row = await getBuild(shopId, buildId, opts.portalUserId);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   const rev = await getRevision(shopId, buildId, opts.version ?? row.build.version);
-  if (!rev) throw new NotFoundError(`Version ${opts.version} of that build`);
+  if (!rev) throw new NotFound(`Version ${opts.version} of that build`);
   const [settings, logo, log] = await Promise.all([
     getShopSettings(shopId),
     pdfLogo(shopId),

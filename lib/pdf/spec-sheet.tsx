@@ -11,7 +11,6 @@ import {
   View,
 } from "@react-pdf/renderer";
 
-import type { ChosenPart } from "@/db/schema/builds";
 import {
   converter,
   dutyAcrossRpm,
@@ -23,6 +22,7 @@ import {
   type Quantity,
   type UnitSystem,
 } from "@/lib/calc";
+import { type ChosenPart } from "@/lib/domain/builds";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";

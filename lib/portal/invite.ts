@@ -2,8 +2,9 @@ import "server-only";
 
 import { getCustomer } from "@/db/queries/customers";
 import { ensurePortalInvitation } from "@/db/queries/shops";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
+import { HttpError } from "@/lib/http/http-error";
 import { sendMail } from "@/lib/mail";
 
 /** The link with which a customer without a sign-in sets a password and opens their portal. */
@@ -24,7 +25,7 @@ export async function invitePortalCustomer(
   customerId: string,
 ) {
   const c = await getCustomer(shopId, customerId);
-  if (!c) throw new NotFoundError("That customer");
+  if (!c) throw new NotFound("That customer");
   if (c.userId)
     throw new HttpError(409, "already_invited", `${c.name} already signs in to the portal`);
   if (!c.email)

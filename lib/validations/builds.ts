@@ -1,26 +1,7 @@
 import { z } from "zod";
 
-import { BUILD_STATUSES, type BuildStatus } from "@/db/schema/builds";
 import { FuelSystemInputSchema } from "@/lib/calc";
-
-/** Status moves: forward one step, or back to draft for a rework. */
-export const STATUS_NEXT: Record<BuildStatus, readonly BuildStatus[]> = {
-  draft: ["sized"],
-  sized: ["draft", "quoted"],
-  quoted: ["draft", "ordered"],
-  ordered: ["fitted"],
-  fitted: ["verified"],
-  verified: ["draft"],
-};
-
-export const STATUS_LABELS: Record<BuildStatus, string> = {
-  draft: "Draft",
-  sized: "Sized",
-  quoted: "Quoted",
-  ordered: "Ordered",
-  fitted: "Fitted",
-  verified: "Verified",
-};
+import { BUILD_STATUSES } from "@/lib/domain/builds";
 
 const text = (label: string, max: number) =>
   z.string().trim().max(max, `${label} is too long (at most ${max} characters)`);

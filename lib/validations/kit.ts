@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-import { KIT_ROLES } from "@/db/schema/builds";
+import { KIT_ROLES } from "@/lib/domain/builds";
 
 /** The parts chosen for a build, by role. */
 export const KitChoiceSchema = z.object({

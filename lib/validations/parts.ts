@@ -1,8 +1,9 @@
 import { z } from "zod";
 
-import { PART_CATEGORIES, type Part, type PartCategory } from "@/db/schema/catalog";
+import { type Part } from "@/db/schema/catalog";
 import { DeadTimeTableSchema, PumpCurveSchema, REGULATOR_TYPES } from "@/lib/calc";
 import { minorToPlain, parseMoney } from "@/lib/catalog/money";
+import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
 /** The specification each category carries (canonical units, as lib/calc uses them). */
 export const SPEC_SCHEMAS = {

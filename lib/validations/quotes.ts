@@ -1,31 +1,6 @@
 import { z } from "zod";
 
-import { QUOTE_LINE_KINDS, QUOTE_STATUSES, type QuoteStatus } from "@/db/schema/catalog";
-
-/** Where a quote may go next. Accepted quotes hold stock; declining or expiring one releases it. */
-export const QUOTE_NEXT: Record<QuoteStatus, readonly QuoteStatus[]> = {
-  draft: ["sent"],
-  sent: ["accepted", "declined", "expired", "draft"],
-  accepted: ["deposit_paid", "declined", "expired"],
-  deposit_paid: ["ordered"],
-  ordered: [],
-  declined: [],
-  expired: [],
-  superseded: [],
-};
-export const QUOTE_EDITABLE: readonly QuoteStatus[] = ["draft", "sent"];
-export const QUOTE_HOLDS_STOCK: readonly QuoteStatus[] = ["accepted", "deposit_paid", "ordered"];
-
-export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = {
-  draft: "Draft",
-  sent: "Sent",
-  accepted: "Accepted",
-  deposit_paid: "Deposit paid",
-  ordered: "Ordered",
-  declined: "Declined",
-  expired: "Expired",
-  superseded: "Replaced by a revision",
-};
+import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
 const isoDate = z.iso.date({ error: "Give a date as YYYY-MM-DD" });
 

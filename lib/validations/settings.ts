@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-import { ROLES } from "@/lib/auth/roles";
+import { ROLES } from "@/lib/domain/roles";
 
 const n = (label: string, min: number, max: number) =>
   z.coerce

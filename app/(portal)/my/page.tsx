@@ -5,10 +5,9 @@ import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listBuildsOfPortalUser } from "@/db/queries/builds";
 import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
-import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
-import { STATUS_LABELS } from "@/lib/validations/builds";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
+import { STATUS_LABELS } from "@/lib/domain/builds";
+import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
 
 export const metadata: Metadata = { title: "My builds" };
 

@@ -7,7 +7,7 @@ import { z } from "zod";
 import { createCustomer, deleteCustomer, updateCustomer } from "@/db/queries/customers";
 import { getShopSettings } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { PATHS } from "@/lib/cache-tags";
 import { invitePortalCustomer } from "@/lib/portal/invite";
 import { CustomerSchema, CustomerUpdateSchema } from "@/lib/validations/customers";
@@ -27,7 +27,7 @@ export const updateCustomerAction = memberAction(
   CustomerUpdateSchema,
   async ({ id, ...data }, m) => {
     const c = await updateCustomer(m.shopId, id, data);
-    if (!c) throw new NotFoundError("That customer");
+    if (!c) throw new NotFound("That customer");
     revalidatePath(PATHS.customers);
     revalidatePath(PATHS.customer(id));
     return { ok: true, message: "Saved" };
@@ -39,7 +39,7 @@ export const deleteCustomerAction = memberAction(
   "customers:write",
   DeleteSchema,
   async ({ id }, m) => {
-    if (!(await deleteCustomer(m.shopId, id))) throw new NotFoundError("That customer");
+    if (!(await deleteCustomer(m.shopId, id))) throw new NotFound("That customer");
     revalidatePath(PATHS.customers);
     redirect(PATHS.customers);
   },

@@ -4,9 +4,8 @@ import Link from "next/link";
 import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
-import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
 
 export const metadata: Metadata = { title: "Quotes" };
 

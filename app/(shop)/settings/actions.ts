@@ -13,7 +13,7 @@ import {
 } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
 import { auth } from "@/lib/auth";
-import { ForbiddenError, NotFoundError } from "@/lib/auth/errors";
+import { Forbidden, NotFound } from "@/lib/domain/errors";
 import { PATHS } from "@/lib/cache-tags";
 import {
   InviteSchema,
@@ -65,9 +65,9 @@ export const inviteMemberAction = memberAction(
 
 async function guardLastOwner(shopId: string, memberId: string) {
   const target = await getMember(shopId, memberId);
-  if (!target) throw new NotFoundError("That member");
+  if (!target) throw new NotFound("That member");
   if (target.role === "owner" && (await countOwners(shopId)) <= 1)
-    throw new ForbiddenError("The shop needs at least one owner");
+    throw new Forbidden("The shop needs at least one owner");
   return target;
 }
 

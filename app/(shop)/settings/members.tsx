@@ -6,7 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
 
 import { changeRoleAction, inviteMemberAction, removeMemberAction } from "./actions";
 

@@ -6,9 +6,9 @@ import { logoFacts } from "@/db/queries/logos";
 import { getShopSettings, listMembers, listPendingInvitations } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
 import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
 import { minorToPlain } from "@/lib/catalog/money";
+import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 import { shopBsfc } from "@/lib/dyno/service";
 
 import { LogoUpload } from "./logo-upload";

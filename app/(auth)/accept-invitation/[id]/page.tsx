@@ -2,7 +2,7 @@ import { headers } from "next/headers";
 
 import { findUserByEmail, getInvitation } from "@/db/queries/shops";
 import { auth } from "@/lib/auth";
-import { isRole, ROLE_LABELS } from "@/lib/auth/roles";
+import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 
 import { AcceptForm, AcceptSignedInButton } from "./accept-form";
 

@@ -5,7 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 
 import { createBuild, getBuild } from "@/db/queries/builds";
-import { HttpError } from "@/lib/auth/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { sizeForSave } from "@/lib/builds/service";
 import type { FuelSystemInput } from "@/lib/calc";

@@ -11,8 +11,8 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemInput } from "@/lib/calc";
+import { STATUS_LABELS } from "@/lib/domain/builds";
 import { shopBsfc } from "@/lib/dyno/service";
-import { STATUS_LABELS } from "@/lib/validations/builds";
 
 export const metadata: Metadata = { title: "Build sheet" };
 

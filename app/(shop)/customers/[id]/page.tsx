@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/ui/status";
 import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
-import { STATUS_LABELS } from "@/lib/validations/builds";
+import { STATUS_LABELS } from "@/lib/domain/builds";
 
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";

@@ -9,9 +9,8 @@ import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
 
 export const metadata: Metadata = { title: "Quote" };
 

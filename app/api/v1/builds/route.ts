@@ -3,7 +3,7 @@ import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { newBuildInputs } from "@/lib/builds/defaults";
 import { sizeForSave } from "@/lib/builds/service";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { BuildCreateSchema, BuildListQuery } from "@/lib/validations/builds";
 

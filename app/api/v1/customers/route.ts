@@ -1,6 +1,6 @@
 import { createCustomer, listCustomers } from "@/db/queries/customers";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { CustomerListQuery, CustomerSchema } from "@/lib/validations/customers";
 

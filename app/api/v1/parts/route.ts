@@ -1,7 +1,7 @@
 import { createPart, listParts } from "@/db/queries/parts";
-import { HttpError } from "@/lib/auth/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { FlatPartSchema, PartListQuery } from "@/lib/validations/parts";
 

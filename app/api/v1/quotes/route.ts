@@ -2,7 +2,7 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { quoteFromBuild } from "@/lib/catalog/quote-service";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { QuoteCreateSchema } from "@/lib/validations/quotes";
 

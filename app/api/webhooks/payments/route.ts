@@ -1,4 +1,4 @@
-import { readText } from "@/lib/http/errors";
+import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { handlePaymentWebhook } from "@/lib/payments/service";
 

@@ -9,11 +9,10 @@ import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
-import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
 import { depositOf } from "@/lib/payments/deposit";
-import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "My quote" };
 

@@ -8,7 +8,7 @@ import { getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { STATUS_LABELS } from "@/lib/validations/builds";
+import { STATUS_LABELS } from "@/lib/domain/builds";
 
 export const metadata: Metadata = { title: "Dyno verification" };
 

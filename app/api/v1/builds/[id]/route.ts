@@ -1,9 +1,9 @@
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { checkTransition, sizeForSave } from "@/lib/builds/service";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { BuildSaveSchema } from "@/lib/validations/builds";
@@ -18,7 +18,7 @@ export const GET = handle<Ctx>(async (_req, ctx) => {
     await idOf(ctx),
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   return Response.json({ build: row.build, customerName: row.customerName });
 });
 
@@ -28,7 +28,7 @@ export const PATCH = handle<Ctx>(async (req, ctx) => {
   const id = await idOf(ctx);
   const body = BuildSaveSchema.parse(await readJson(req));
   const row = await getBuild(m.shopId, id);
-  if (!row) throw new NotFoundError("That build");
+  if (!row) throw new NotFound("That build");
   checkTransition(row.build.status, body.status);
   const sized = sizeForSave(body.inputs);
   try {

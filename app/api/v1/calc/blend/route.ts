@@ -11,7 +11,7 @@ import {
   volumeToAdd,
   VolumeToAddSchema,
 } from "@/lib/calc";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 
 const BlendRequest = z.discriminatedUnion(

@@ -1,7 +1,7 @@
 import { deleteCustomer, getCustomer, updateCustomer } from "@/db/queries/customers";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { CustomerPatchSchema } from "@/lib/validations/customers";
@@ -12,7 +12,7 @@ const idOf = (ctx: Ctx) => uuidParam(ctx, "That customer");
 export const GET = handle<Ctx>(async (_req, ctx) => {
   const m = await requireMember("customers:read");
   const c = await getCustomer(m.shopId, await idOf(ctx));
-  if (!c) throw new NotFoundError("That customer");
+  if (!c) throw new NotFound("That customer");
   return Response.json({ customer: c });
 });
 
@@ -22,12 +22,12 @@ export const PATCH = handle<Ctx>(async (req, ctx) => {
   const id = await idOf(ctx);
   const input = CustomerPatchSchema.parse(await readJson(req));
   const c = await updateCustomer(m.shopId, id, input);
-  if (!c) throw new NotFoundError("That customer");
+  if (!c) throw new NotFound("That customer");
   return Response.json({ customer: c });
 });
 
 export const DELETE = handle<Ctx>(async (_req, ctx) => {
   const m = await requireMember("customers:write");
-  if (!(await deleteCustomer(m.shopId, await idOf(ctx)))) throw new NotFoundError("That customer");
+  if (!(await deleteCustomer(m.shopId, await idOf(ctx)))) throw new NotFound("That customer");
   return new Response(null, { status: 204 });
 });

@@ -1,7 +1,8 @@
 import { deletePart, getPart, updatePart } from "@/db/queries/parts";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { FlatPartSchema } from "@/lib/validations/parts";
@@ -9,7 +10,7 @@ import { FlatPartSchema } from "@/lib/validations/parts";
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("parts:read");
   const part = await getPart(m.shopId, await uuidParam(ctx, "That part"));
-  if (!part) throw new NotFoundError("That part");
+  if (!part) throw new NotFound("That part");
   return Response.json({ part });
 });
 
@@ -19,7 +20,7 @@ export const PATCH = handle<IdCtx>(async (req, ctx) => {
   const v = FlatPartSchema.parse(await readJson(req));
   try {
     const part = await updatePart(m.shopId, id, v);
-    if (!part) throw new NotFoundError("That part");
+    if (!part) throw new NotFound("That part");
     return Response.json({ part });
   } catch (e) {
     if ((e as { code?: string }).code === "23505")
@@ -31,6 +32,6 @@ export const PATCH = handle<IdCtx>(async (req, ctx) => {
 export const DELETE = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("parts:write");
   if (!(await deletePart(m.shopId, await uuidParam(ctx, "That part"))))
-    throw new NotFoundError("That part");
+    throw new NotFound("That part");
   return new Response(null, { status: 204 });
 });

@@ -1,7 +1,7 @@
 import { existingSkus, importParts } from "@/db/queries/parts";
 import { requireMember } from "@/lib/auth/member";
 import { MAX_CSV_BYTES, parseCatalogCsv } from "@/lib/catalog/csv";
-import { readText } from "@/lib/http/errors";
+import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 
 /**

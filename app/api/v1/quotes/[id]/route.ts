@@ -1,8 +1,8 @@
 import { getQuote, updateQuote } from "@/db/queries/quotes";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { QuoteUpdateSchema } from "@/lib/validations/quotes";
@@ -14,7 +14,7 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
     await uuidParam(ctx, "That quote"),
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   return Response.json(q);
 });
 

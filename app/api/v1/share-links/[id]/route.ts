@@ -1,5 +1,5 @@
 import { revokeShareLink } from "@/db/queries/shares";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
@@ -8,6 +8,6 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 export const DELETE = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("shares:manage");
   if (!(await revokeShareLink(m.shopId, await uuidParam(ctx, "That link"))))
-    throw new NotFoundError("That link");
+    throw new NotFound("That link");
   return new Response(null, { status: 204 });
 });

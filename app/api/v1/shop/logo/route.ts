@@ -1,7 +1,8 @@
 import { deleteLogo, getLogo, setLogo } from "@/db/queries/logos";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
-import { readBytes } from "@/lib/http/errors";
+import { readBytes } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { checkLogo, LOGO_MAX_BYTES } from "@/lib/images/logo";
 
@@ -9,7 +10,7 @@ import { checkLogo, LOGO_MAX_BYTES } from "@/lib/images/logo";
 export const GET = handle(async () => {
   const m = await requireMember("builds:view");
   const logo = await getLogo(m.shopId);
-  if (!logo) throw new NotFoundError("The shop's logo");
+  if (!logo) throw new NotFound("The shop's logo");
   return new Response(new Uint8Array(logo.bytes), {
     headers: {
       "content-type": logo.contentType,
@@ -32,6 +33,6 @@ export const PUT = handle(async (req) => {
 /** DELETE — remove the logo. */
 export const DELETE = handle(async () => {
   const m = await requireMember("settings:update");
-  if (!(await deleteLogo(m.shopId))) throw new NotFoundError("The shop's logo");
+  if (!(await deleteLogo(m.shopId))) throw new NotFound("The shop's logo");
   return new Response(null, { status: 204 });
 });

@@ -9,7 +9,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { diffInputs } from "@/lib/builds/diff";
 import type { FuelSystemResult } from "@/lib/calc";
-import { STATUS_LABELS } from "@/lib/validations/builds";
+import { STATUS_LABELS } from "@/lib/domain/builds";
 
 import { RestoreButton } from "./restore-button";
 

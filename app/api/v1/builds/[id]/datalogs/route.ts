@@ -2,10 +2,11 @@ import { createHash, randomUUID } from "node:crypto";
 
 import { getBuild } from "@/db/queries/builds";
 import { listDatalogs, recordDatalog } from "@/db/queries/datalogs";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { DatalogError, parseDatalog } from "@/lib/calc";
-import { readText } from "@/lib/http/errors";
+import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { putObject } from "@/lib/storage";
@@ -16,7 +17,7 @@ const MAX_BYTES = 20 * 1024 * 1024;
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("datalogs:read");
   const id = await uuidParam(ctx, "That build");
-  if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
+  if (!(await getBuild(m.shopId, id))) throw new NotFound("That build");
   return Response.json({
     datalogs: (await listDatalogs(m.shopId, id)).map(({ objectKey: _k, ...d }) => d),
   });
@@ -30,7 +31,7 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
 export const POST = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember("datalogs:upload");
   const id = await uuidParam(ctx, "That build");
-  if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
+  if (!(await getBuild(m.shopId, id))) throw new NotFound("That build");
   const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
   if (!["text/csv", "text/plain", "application/vnd.ms-excel"].includes(type))
     throw new HttpError(415, "not_csv", "Upload the datalog as a CSV file (text/csv)");

@@ -1,7 +1,7 @@
 import { ConflictError } from "@/db/queries/builds";
 import { requireMember } from "@/lib/auth/member";
 import { chooseKit, kitFor } from "@/lib/catalog/service";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { KitChoiceSchema } from "@/lib/validations/kit";

@@ -1,5 +1,5 @@
 import { getBuild, listRevisions } from "@/db/queries/builds";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
@@ -9,6 +9,6 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("builds:view");
   const id = await uuidParam(ctx, "That build");
   if (!(await getBuild(m.shopId, id, ownRecordsOnly(m.role) ? m.user.id : undefined)))
-    throw new NotFoundError("That build");
+    throw new NotFound("That build");
   return Response.json({ revisions: await listRevisions(m.shopId, id) });
 });

@@ -2,10 +2,10 @@ import { z } from "zod";
 
 import { getBuild } from "@/db/queries/builds";
 import { createShareLink, listShareLinks } from "@/db/queries/shares";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { serverEnv } from "@/lib/env";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 
@@ -21,7 +21,7 @@ const Body = z.object({
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("shares:manage");
   const id = await uuidParam(ctx, "That build");
-  if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
+  if (!(await getBuild(m.shopId, id))) throw new NotFound("That build");
   return Response.json({ links: await listShareLinks(m.shopId, id) });
 });
 
@@ -30,7 +30,7 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember("shares:manage");
   const id = await uuidParam(ctx, "That build");
   const { days } = Body.parse(await readJson(req));
-  if (!(await getBuild(m.shopId, id))) throw new NotFoundError("That build");
+  if (!(await getBuild(m.shopId, id))) throw new NotFound("That build");
   const { link, token } = await createShareLink(m.shopId, id, m.user.id, days);
   return Response.json(
     {

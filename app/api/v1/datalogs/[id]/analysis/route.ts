@@ -1,6 +1,6 @@
 import { requireMember } from "@/lib/auth/member";
 import { analyseDatalog } from "@/lib/dyno/service";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 

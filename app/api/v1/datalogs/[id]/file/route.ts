@@ -1,5 +1,5 @@
 import { getDatalog } from "@/db/queries/datalogs";
-import { NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
@@ -10,7 +10,7 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("datalogs:read");
   const id = await uuidParam(ctx, "That datalog");
   const d = await getDatalog(m.shopId, id);
-  if (!d) throw new NotFoundError("That datalog");
+  if (!d) throw new NotFound("That datalog");
   const body = await getObject(d.objectKey);
   return new Response(new Uint8Array(body), {
     headers: {

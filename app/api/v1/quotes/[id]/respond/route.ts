@@ -1,9 +1,10 @@
 import { z } from "zod";
 
 import { getQuote, setQuoteStatus } from "@/db/queries/quotes";
-import { HttpError, NotFoundError } from "@/lib/auth/errors";
+import { NotFound } from "@/lib/domain/errors";
+import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 
@@ -17,7 +18,7 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
   const id = await uuidParam(ctx, "That quote");
   const { decision } = Body.parse(await readJson(req));
   const q = await getQuote(m.shopId, id, m.user.id);
-  if (!q) throw new NotFoundError("That quote");
+  if (!q) throw new NotFound("That quote");
   if (q.quote.status !== "sent")
     throw new HttpError(409, "not_open", "This quote is no longer open for a decision");
   const quote = await setQuoteStatus(

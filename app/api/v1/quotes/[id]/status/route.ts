@@ -1,6 +1,6 @@
 import { setQuoteStatus } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
-import { readJson } from "@/lib/http/errors";
+import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { QuoteStatusSchema } from "@/lib/validations/quotes";
