@@ -12,10 +12,10 @@ import {
   getInvitation,
 } from "@/db/queries/shops";
 import { fieldErrorsOf, formValues } from "@/lib/actions/member-action";
-import { zodIssues } from "@/lib/http/error-map";
 import type { ActionState } from "@/lib/actions/state";
 import { auth } from "@/lib/auth";
 import { currentMember } from "@/lib/auth/member";
+import { zodIssues } from "@/lib/http/error-map";
 import { AcceptInvitationSchema, SignUpSchema } from "@/lib/validations/auth";
 
 /** Sign-up: a new account and a new shop, with the new user as its owner. */

@@ -2,9 +2,9 @@ import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm"
 
 import { db } from "@/db";
 import { buildRevisions, builds, customers, member, user, type Build } from "@/db/schema";
-import { HttpError } from "@/lib/http/http-error";
 import type { FuelSystemResult } from "@/lib/calc";
 import { type BuildStatus, type ChosenPart } from "@/lib/domain/builds";
+import { HttpError } from "@/lib/http/http-error";
 
 import { escapeLike } from "./like";
 

@@ -12,7 +12,6 @@ import {
   shopCounters,
   shopSettings,
 } from "@/db/schema";
-import { HttpError } from "@/lib/http/http-error";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   QUOTE_EDITABLE,
@@ -21,6 +20,7 @@ import {
   QUOTE_STATUS_LABELS,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
+import { HttpError } from "@/lib/http/http-error";
 import { type QuoteLineSchema } from "@/lib/validations/quotes";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];

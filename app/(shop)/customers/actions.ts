@@ -7,8 +7,8 @@ import { z } from "zod";
 import { createCustomer, deleteCustomer, updateCustomer } from "@/db/queries/customers";
 import { getShopSettings } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
-import { NotFound } from "@/lib/domain/errors";
 import { PATHS } from "@/lib/cache-tags";
+import { NotFound } from "@/lib/domain/errors";
 import { invitePortalCustomer } from "@/lib/portal/invite";
 import { CustomerSchema, CustomerUpdateSchema } from "@/lib/validations/customers";
 

@@ -13,8 +13,8 @@ import {
 } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
 import { auth } from "@/lib/auth";
-import { Forbidden, NotFound } from "@/lib/domain/errors";
 import { PATHS } from "@/lib/cache-tags";
+import { Forbidden, NotFound } from "@/lib/domain/errors";
 import {
   InviteSchema,
   MemberRemoveSchema,

@@ -5,10 +5,10 @@ import { z } from "zod";
 
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
 import { userName } from "@/db/queries/preferences";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { checkTransition, sizeForSave } from "@/lib/builds/service";
 import { zodIssues } from "@/lib/http/error-map";
+import { HttpError } from "@/lib/http/http-error";
 import { BuildSaveSchema } from "@/lib/validations/builds";
 
 export type SaveBuildState =

@@ -5,10 +5,10 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 
 import { createBuild, getBuild } from "@/db/queries/builds";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { sizeForSave } from "@/lib/builds/service";
 import type { FuelSystemInput } from "@/lib/calc";
+import { HttpError } from "@/lib/http/http-error";
 
 /** "Power step": a new build for the same car, starting from this build's inputs. */
 export async function copyBuildAction(

@@ -1,8 +1,8 @@
 import { createPart, listParts } from "@/db/queries/parts";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { HttpError } from "@/lib/http/http-error";
 import { FlatPartSchema, PartListQuery } from "@/lib/validations/parts";
 
 /** GET /api/v1/parts?q=&category=&sort= — the shop's catalog. */

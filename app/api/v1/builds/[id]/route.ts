@@ -1,8 +1,8 @@
 import { ConflictError, getBuild, saveBuild } from "@/db/queries/builds";
-import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { checkTransition, sizeForSave } from "@/lib/builds/service";
+import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";

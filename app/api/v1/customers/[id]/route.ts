@@ -1,6 +1,6 @@
 import { deleteCustomer, getCustomer, updateCustomer } from "@/db/queries/customers";
-import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";

@@ -1,9 +1,9 @@
 import { deletePart, getPart, updatePart } from "@/db/queries/parts";
-import { NotFound } from "@/lib/domain/errors";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { HttpError } from "@/lib/http/http-error";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { FlatPartSchema } from "@/lib/validations/parts";
 

@@ -1,6 +1,6 @@
 import { revokeShareLink } from "@/db/queries/shares";
-import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 

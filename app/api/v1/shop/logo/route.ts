@@ -1,9 +1,9 @@
 import { deleteLogo, getLogo, setLogo } from "@/db/queries/logos";
-import { NotFound } from "@/lib/domain/errors";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { readBytes } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { HttpError } from "@/lib/http/http-error";
 import { checkLogo, LOGO_MAX_BYTES } from "@/lib/images/logo";
 
 /** GET — the shop's logo image (any member of the shop, customers included: it is on their PDFs). */

@@ -5,10 +5,10 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 
 import { ConflictError, getRevision, saveBuild } from "@/db/queries/builds";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { sizeForSave } from "@/lib/builds/service";
 import type { FuelSystemInput } from "@/lib/calc";
+import { HttpError } from "@/lib/http/http-error";
 
 const RestoreSchema = z.object({
   buildId: z.uuid(),

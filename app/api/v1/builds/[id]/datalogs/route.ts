@@ -2,12 +2,12 @@ import { createHash, randomUUID } from "node:crypto";
 
 import { getBuild } from "@/db/queries/builds";
 import { listDatalogs, recordDatalog } from "@/db/queries/datalogs";
-import { NotFound } from "@/lib/domain/errors";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
 import { DatalogError, parseDatalog } from "@/lib/calc";
+import { NotFound } from "@/lib/domain/errors";
 import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { HttpError } from "@/lib/http/http-error";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { putObject } from "@/lib/storage";
 

@@ -1,7 +1,7 @@
 import { getBuild, listRevisions } from "@/db/queries/builds";
-import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
+import { NotFound } from "@/lib/domain/errors";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 

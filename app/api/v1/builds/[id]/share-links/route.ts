@@ -2,8 +2,8 @@ import { z } from "zod";
 
 import { getBuild } from "@/db/queries/builds";
 import { createShareLink, listShareLinks } from "@/db/queries/shares";
-import { NotFound } from "@/lib/domain/errors";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";

@@ -1,11 +1,11 @@
 import { z } from "zod";
 
 import { getQuote, setQuoteStatus } from "@/db/queries/quotes";
-import { NotFound } from "@/lib/domain/errors";
-import { HttpError } from "@/lib/http/http-error";
 import { requireMember } from "@/lib/auth/member";
+import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { HttpError } from "@/lib/http/http-error";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 
 const Body = z.object({
