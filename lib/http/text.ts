@@ -11,19 +11,24 @@ export function controlCharacterIssue(text: string, path: string): FieldIssue | 
 }
 
 /** Every string inside a parsed JSON value or form that carries a control character. */
-export function controlCharacterIssues(value: unknown, path = ""): FieldIssue[] {
-  if (typeof value === "string") {
-    const issue = controlCharacterIssue(value, path || "(body)");
-    return issue ? [issue] : [];
+export function controlCharacterIssues(value: unknown): FieldIssue[] {
+  // An explicit stack, not recursion: a hostile body may nest thousands of levels deep.
+  const issues: FieldIssue[] = [];
+  const stack: [unknown, string][] = [[value, ""]];
+  while (stack.length) {
+    const [v, path] = stack.pop()!;
+    if (typeof v === "string") {
+      const issue = controlCharacterIssue(v, path || "(body)");
+      if (issue) issues.push(issue);
+    } else if (Array.isArray(v)) {
+      v.forEach((x, i) => stack.push([x, path ? `${path}.${i}` : String(i)]));
+    } else if (v && typeof v === "object") {
+      for (const [k, x] of Object.entries(v)) {
+        if (CONTROL.test(k))
+          issues.push({ path: path || "(body)", message: "A field name is not valid" });
+        stack.push([x, path ? `${path}.${k}` : k]);
+      }
+    }
   }
-  if (Array.isArray(value))
-    return value.flatMap((v, i) => controlCharacterIssues(v, path ? `${path}.${i}` : String(i)));
-  if (value && typeof value === "object")
-    return Object.entries(value).flatMap(([k, v]) => [
-      ...(CONTROL.test(k)
-        ? [{ path: path || "(body)", message: "A field name is not valid" }]
-        : []),
-      ...controlCharacterIssues(v, path ? `${path}.${k}` : k),
-    ]);
-  return [];
+  return issues.sort((a, b) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0));
 }

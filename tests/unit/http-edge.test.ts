@@ -87,6 +87,10 @@ describe("JSON bodies", () => {
       ["a", "b.1"],
     );
   });
+  it("survive a body nested thousands of levels deep", () => {
+    const deep = JSON.parse("[".repeat(20000) + '"\\u0000"' + "]".repeat(20000));
+    expect(controlCharacterIssues(deep)).toHaveLength(1);
+  });
   it("a NUL in a query parameter is a 422 naming the parameter", async () => {
     const route = handle(async () => Response.json({ ok: true }));
     const res = await route(req("GET", {}, undefined, "/api/v1/builds?q=a%00b"), undefined);
