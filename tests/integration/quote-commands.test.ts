@@ -120,6 +120,7 @@ describe("editing a quote: the route and the action give the same result", () =>
 
     // Accepted: no longer editable, whatever the version says.
     await sql`update quotes set status = 'accepted' where id in ${sql([a.id, b.id])}`;
+    const accepted = await fingerprint(["quotes", "quote_lines"]);
     const lockedRoute = await request(counter, "PATCH", `/api/v1/quotes/${a.id}`, {
       version: a.version + 1,
       notes: "Too late",
@@ -135,7 +136,7 @@ describe("editing a quote: the route and the action give the same result", () =>
     expect(lockedRoute.json.error.code).toBe("invalid_transition");
     expect(lockedAction).toMatchObject({ ok: false, status: 422, code: "invalid_transition" });
     expect(lockedAction.message).toBe(lockedRoute.json.error.message);
-    expect(await fingerprint(["quotes", "quote_lines"])).toBe(before);
+    expect(await fingerprint(["quotes", "quote_lines"])).toBe(accepted);
   });
 
   it("an edit writes only the fields it names: notes alone keep the lines, lines alone keep the notes", async () => {
@@ -343,19 +344,17 @@ describe("sending a quote the mail server refuses", () => {
 
 describe("who may call the quote actions", () => {
   const WHO = ["anon", "owner", "tuner", "counter", "customer", "outsider"] as const;
-  /** Outcomes per caller, as in the access matrix: ok, or the refusal's status. */
+  /**
+   * Outcomes per caller, as in the access matrix: ok, or the refusal's status. (The access
+   * matrix lists the actions under app/ only. createQuoteAction is in a build's manifest once a
+   * screen calls it: the kit picker's "Create quote".)
+   */
   const cases: {
     name: string;
     page: (id: string) => string;
     input: (id: string) => unknown;
     expect: string;
   }[] = [
-    {
-      name: "createQuoteAction",
-      page: () => "/quotes",
-      input: () => ({ customerId: CUSTOMER_ID }),
-      expect: "401 ok 403 ok 403 422",
-    },
     {
       name: "editQuoteAction",
       page: (id) => `/quotes/${id}`,
