@@ -279,7 +279,7 @@ export interface ActionCell {
 const prev = { ok: false };
 const NO_MEMBER = "00000000-0000-4000-8000-00000000abcd";
 /** The demo shop's settings as its form sends them (db/seed.ts and the column defaults). */
-const SEED_SETTINGS_FORM = {
+export const SEED_SETTINGS_FORM = {
   shopName: "Ridgeback Fuel & Dyno",
   currency: "USD",
   taxRatePct: "8.25",
