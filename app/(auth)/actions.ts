@@ -10,7 +10,8 @@ import {
 } from "@/lib/accounts/account-commands";
 import { errorState, formValues } from "@/lib/actions/member-action";
 import type { ActionState } from "@/lib/actions/state";
-import { NotFound } from "@/lib/domain/errors";
+import { Invalid, NotFound } from "@/lib/domain/errors";
+import { controlCharacterIssues } from "@/lib/http/text";
 import { AcceptInvitationSchema, SignUpSchema } from "@/lib/validations/auth";
 
 // For signed-out visitors: no member to ask for, so these adapt the commands themselves.
@@ -24,6 +25,14 @@ function refusal(e: unknown, values: Record<string, string> | undefined, failed:
 /** The form's fields as strings (anything else sent is no form: nothing to keep). */
 const fieldsOf = (input: unknown) => (input instanceof FormData ? formValues(input) : {});
 
+/** The form parsed as members' forms are: control characters refused, then the schema. */
+function parseForm<S extends z.ZodType>(schema: S, input: unknown): z.output<S> {
+  const fields = fieldsOf(input);
+  const issues = controlCharacterIssues(fields);
+  if (issues.length) throw new Invalid("Some fields carry control characters", issues);
+  return schema.parse(fields);
+}
+
 function withoutPassword(input: unknown): Record<string, string> {
   const values = fieldsOf(input);
   delete values.password;
@@ -34,7 +43,7 @@ function withoutPassword(input: unknown): Record<string, string> {
 export async function signUpAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   let email: string;
   try {
-    ({ email } = await signUp(SignUpSchema.parse(fieldsOf(form))));
+    ({ email } = await signUp(parseForm(SignUpSchema, form)));
   } catch (e) {
     return refusal(e, withoutPassword(form), "Sign-up failed on our side; try again");
   }
@@ -47,7 +56,7 @@ export async function acceptInvitationAction(
   form: FormData,
 ): Promise<ActionState> {
   try {
-    await acceptInvitation(AcceptInvitationSchema.parse(fieldsOf(form)));
+    await acceptInvitation(parseForm(AcceptInvitationSchema, form));
   } catch (e) {
     return refusal(e, withoutPassword(form), "Joining failed on our side; try again");
   }
