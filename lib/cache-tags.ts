@@ -2,5 +2,7 @@
 export const PATHS = {
   customers: "/customers",
   customer: (id: string) => `/customers/${id}`,
+  parts: "/parts",
+  part: (id: string) => `/parts/${id}`,
   settings: "/settings",
 } as const;

@@ -6,8 +6,9 @@ import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState, type ActionState } from "@/lib/actions/state";
 import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
+import { createPartAction, deletePartAction, updatePartAction } from "@/lib/parts/part-actions";
 import type { FlatPart } from "@/lib/validations/parts";
 
 /** The spec fields each category shows: [column, label, hint]. */
@@ -79,20 +80,28 @@ export function PartForm({
     />
   );
 
+  const refused = (res: ActionState) => {
+    setErrors(
+      Object.fromEntries(
+        Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [path, msgs.join(" ")]),
+      ),
+    );
+    setStatus({ ok: false, message: res.message ?? "Not saved" });
+  };
+
+  // Every field the form holds is sent; a spec the form does not show (the dead-time table) is
+  // kept by the update, which changes only what it is given.
   const submit = () =>
     start(async () => {
       const res = id
-        ? await api("PATCH", `/api/v1/parts/${id}`, { ...values, category })
-        : await api<{ part: { id: string } }>("POST", "/api/v1/parts", { ...values, category });
+        ? await updatePartAction(initialActionState, { ...values, category, id })
+        : await createPartAction(initialActionState, { ...values, category });
       if (res.ok) {
         setErrors({});
         setStatus({ ok: true, message: "Saved" });
         router.push("/parts");
         router.refresh();
-      } else {
-        setErrors(Object.fromEntries(res.issues.map((i) => [i.path, i.message])));
-        setStatus({ ok: false, message: res.message });
-      }
+      } else refused(res);
     });
 
   return (
@@ -151,11 +160,11 @@ export function PartForm({
               )
                 return;
               start(async () => {
-                const res = await api("DELETE", `/api/v1/parts/${id}`);
-                if (res.ok || res.status === 204) {
+                const res = await deletePartAction(initialActionState, { id });
+                if (res.ok) {
                   router.push("/parts");
                   router.refresh();
-                } else setStatus({ ok: false, message: res.message });
+                } else refused(res);
               });
             }}
           >

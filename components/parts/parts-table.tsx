@@ -5,7 +5,7 @@ import { useState } from "react";
 import useSWR from "swr";
 
 import { EmptyState } from "@/components/ui/status";
-import { type Part } from "@/db/schema/catalog";
+import type { Part } from "@/db/schema/catalog";
 import { specSummary } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
 import { CATEGORY_LABELS, PART_CATEGORIES } from "@/lib/domain/parts";

@@ -1,7 +1,8 @@
-import { and, asc, eq, ilike, or } from "drizzle-orm";
+import { and, asc, count, eq, ilike, or } from "drizzle-orm";
 
 import { db } from "@/db";
-import { customers } from "@/db/schema";
+import { builds, customers, quotes } from "@/db/schema";
+import { Conflict, NotFound } from "@/lib/domain/errors";
 import type { CustomerInput } from "@/lib/validations/customers";
 
 import { escapeLike } from "./like";
@@ -41,20 +42,60 @@ export async function createCustomer(shopId: string, input: CustomerInput) {
   return row!;
 }
 
-/** Sets the fields given (an absent, `undefined` one is left as it is), only within the shop; null when the customer is not the shop's. */
+/** Sets the fields given (an absent or `undefined` one keeps its value), within the shop only. */
 export async function updateCustomer(shopId: string, id: string, input: Partial<CustomerInput>) {
+  const given = Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined));
   const [row] = await db
     .update(customers)
-    .set({ ...input, updatedAt: new Date() })
+    .set({ ...given, updatedAt: new Date() })
     .where(and(eq(customers.shopId, shopId), eq(customers.id, id)))
     .returning();
-  return row ?? null;
+  if (!row) throw new NotFound("That customer");
+  return row;
 }
 
-export async function deleteCustomer(shopId: string, id: string) {
-  const rows = await db
-    .delete(customers)
-    .where(and(eq(customers.shopId, shopId), eq(customers.id, id)))
-    .returning({ id: customers.id });
-  return rows.length > 0;
+/** Is this (or what it wraps) a foreign-key violation: a row elsewhere still points here? */
+function isForeignKeyViolation(err: unknown): boolean {
+  for (let e = err, depth = 0; e && typeof e === "object" && depth < 5; depth++) {
+    if ((e as { code?: unknown }).code === "23503") return true;
+    e = (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+/**
+ * Deletes a customer who has no quotes and no builds, in one transaction (the row locked, so no
+ * quote or build can name them meanwhile). One who has any is kept, and their counts returned.
+ */
+export async function deleteCustomerIfUnused(shopId: string, id: string) {
+  try {
+    return await db.transaction(async (tx) => {
+      const [c] = await tx
+        .select({ id: customers.id, name: customers.name })
+        .from(customers)
+        .where(and(eq(customers.shopId, shopId), eq(customers.id, id)))
+        .for("update")
+        .limit(1);
+      if (!c) throw new NotFound("That customer");
+      const [q] = await tx
+        .select({ n: count() })
+        .from(quotes)
+        .where(and(eq(quotes.shopId, shopId), eq(quotes.customerId, id)));
+      const [b] = await tx
+        .select({ n: count() })
+        .from(builds)
+        .where(and(eq(builds.shopId, shopId), eq(builds.customerId, id)));
+      const usage = { name: c.name, quotes: q?.n ?? 0, builds: b?.n ?? 0 };
+      if (usage.quotes > 0 || usage.builds > 0) return { deleted: false as const, ...usage };
+      await tx.delete(customers).where(and(eq(customers.shopId, shopId), eq(customers.id, id)));
+      return { deleted: true as const, ...usage };
+    });
+  } catch (e) {
+    if (isForeignKeyViolation(e))
+      throw new Conflict(
+        "This customer is named on other records, so they are kept",
+        "customer_in_use",
+      );
+    throw e;
+  }
 }

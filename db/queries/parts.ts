@@ -1,9 +1,9 @@
 import { and, asc, desc, eq, ilike, inArray, or, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { parts } from "@/db/schema";
+import { parts, type Part } from "@/db/schema";
+import { Conflict, NotFound } from "@/lib/domain/errors";
 import { type PartCategory } from "@/lib/domain/parts";
-import type { PartValues } from "@/lib/validations/parts";
 
 import { escapeLike } from "./like";
 
@@ -49,22 +49,94 @@ export async function getPartsByIds(shopId: string, ids: string[]) {
     .where(and(eq(parts.shopId, shopId), inArray(parts.id, ids)));
 }
 
-export async function createPart(shopId: string, v: PartValues) {
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** A part's own columns, as a command writes them. */
+export type PartColumns = Pick<
+  typeof parts.$inferInsert,
+  "sku" | "category" | "brand" | "name" | "priceMinor" | "costMinor" | "stock" | "reorderLevel"
+> & { specs: Record<string, unknown> };
+
+/** The columns to change: only the keys present are written. */
+export type PartPatch = Partial<PartColumns>;
+
+const skuTaken = (sku: string | undefined) =>
+  Conflict.field(
+    "sku",
+    sku ? `SKU ${sku} is already in the catalog` : "That SKU is already in the catalog",
+    "duplicate_sku",
+  );
+
+/** Is this (or what it wraps: drizzle wraps driver errors) a unique-index violation? */
+function isUniqueViolation(err: unknown): boolean {
+  for (let e = err, depth = 0; e && typeof e === "object" && depth < 5; depth++) {
+    if ((e as { code?: unknown }).code === "23505") return true;
+    e = (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+/** JSON with sorted keys: jsonb keeps no key order, so two specs compare by content. */
+function canonical(v: unknown): string {
+  if (Array.isArray(v)) return `[${v.map(canonical).join(",")}]`;
+  if (v && typeof v === "object" && !(v instanceof Date))
+    return `{${Object.keys(v)
+      .sort()
+      .filter((k) => (v as Record<string, unknown>)[k] !== undefined)
+      .map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`)
+      .join(",")}}`;
+  return JSON.stringify(v);
+}
+
+/** A new part; a SKU the shop has already is a Conflict on `sku`. */
+export async function createPart(shopId: string, v: PartColumns) {
   const [row] = await db
     .insert(parts)
     .values({ shopId, ...v })
     .onConflictDoNothing()
     .returning();
-  return row ?? null; // null: the SKU is taken
+  if (!row) throw skuTaken(v.sku);
+  return row;
 }
 
-export async function updatePart(shopId: string, id: string, v: PartValues) {
-  const [row] = await db
-    .update(parts)
-    .set({ ...v, updatedAt: new Date() })
-    .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
-    .returning();
-  return row ?? null;
+/**
+ * Changes a part under a row lock, in one transaction: `change` sees the stored row and returns
+ * the columns to write (a key it leaves out keeps its stored value; it may throw to refuse).
+ * Nothing is written, and `updated_at` stays, when every given value equals the stored one.
+ */
+export async function updatePartWith(
+  shopId: string,
+  id: string,
+  change: (stored: Part) => PartPatch,
+) {
+  let sku: string | undefined;
+  try {
+    return await db.transaction(async (tx) => {
+      const [stored] = await tx
+        .select()
+        .from(parts)
+        .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+        .for("update")
+        .limit(1);
+      if (!stored) throw new NotFound("That part");
+      const patch = Object.fromEntries(
+        Object.entries(change(stored)).filter(
+          ([k, v]) => v !== undefined && canonical(v) !== canonical(stored[k as keyof Part]),
+        ),
+      ) as PartPatch;
+      sku = patch.sku;
+      if (Object.keys(patch).length === 0) return stored;
+      const [row] = await tx
+        .update(parts)
+        .set({ ...patch, updatedAt: new Date() })
+        .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+        .returning();
+      return row!;
+    });
+  } catch (e) {
+    if (isUniqueViolation(e)) throw skuTaken(sku);
+    throw e;
+  }
 }
 
 export async function deletePart(shopId: string, id: string) {
@@ -72,7 +144,7 @@ export async function deletePart(shopId: string, id: string) {
     .delete(parts)
     .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
     .returning({ id: parts.id });
-  return rows.length > 0;
+  if (rows.length === 0) throw new NotFound("That part");
 }
 
 /** Which SKUs of a list the shop has already (the import preview marks them "update"). */
@@ -93,35 +165,56 @@ export async function existingSkus(shopId: string, skus: string[]) {
   return new Set(rows.map((r) => r.sku.toLowerCase()));
 }
 
-/** Imports validated rows in one transaction: new SKUs are added, known ones updated. */
-export async function importParts(shopId: string, rows: PartValues[]) {
+/**
+ * Imports rows in one transaction, upserting by SKU. The shop's parts with these SKUs are locked
+ * first and handed to `build`, which returns the rows to write (for a known SKU: the stored part
+ * with the file's changes merged in).
+ */
+export async function importPartsWith(
+  shopId: string,
+  skus: string[],
+  build: (stored: Map<string, Part>) => PartColumns[],
+) {
   return db.transaction(async (tx) => {
-    let added = 0;
-    let updated = 0;
-    for (let i = 0; i < rows.length; i += 500) {
-      const chunk = rows.slice(i, i + 500);
-      const res = await tx
-        .insert(parts)
-        .values(chunk.map((r) => ({ shopId, ...r })))
-        .onConflictDoUpdate({
-          target: [parts.shopId, parts.sku],
-          set: {
-            category: sql`excluded.category`,
-            brand: sql`excluded.brand`,
-            name: sql`excluded.name`,
-            priceMinor: sql`excluded.price_minor`,
-            costMinor: sql`excluded.cost_minor`,
-            stock: sql`excluded.stock`,
-            reorderLevel: sql`excluded.reorder_level`,
-            specs: sql`excluded.specs`,
-            updatedAt: new Date(),
-          },
-        })
-        .returning({ inserted: sql<boolean>`(xmax = 0)` });
-      for (const r of res) r.inserted ? added++ : updated++;
+    const stored = new Map<string, Part>();
+    for (let i = 0; i < skus.length; i += 1000) {
+      const found = await tx
+        .select()
+        .from(parts)
+        .where(and(eq(parts.shopId, shopId), inArray(parts.sku, skus.slice(i, i + 1000))))
+        .for("update");
+      for (const p of found) stored.set(p.sku, p);
     }
-    return { added, updated };
+    return upsertParts(tx, shopId, build(stored));
   });
+}
+
+async function upsertParts(tx: Tx, shopId: string, rows: PartColumns[]) {
+  let added = 0;
+  let updated = 0;
+  for (let i = 0; i < rows.length; i += 500) {
+    const chunk = rows.slice(i, i + 500);
+    const res = await tx
+      .insert(parts)
+      .values(chunk.map((r) => ({ shopId, ...r })))
+      .onConflictDoUpdate({
+        target: [parts.shopId, parts.sku],
+        set: {
+          category: sql`excluded.category`,
+          brand: sql`excluded.brand`,
+          name: sql`excluded.name`,
+          priceMinor: sql`excluded.price_minor`,
+          costMinor: sql`excluded.cost_minor`,
+          stock: sql`excluded.stock`,
+          reorderLevel: sql`excluded.reorder_level`,
+          specs: sql`excluded.specs`,
+          updatedAt: new Date(),
+        },
+      })
+      .returning({ inserted: sql<boolean>`(xmax = 0)` });
+    for (const r of res) r.inserted ? added++ : updated++;
+  }
+  return { added, updated };
 }
 
 export async function partsNewestFirst(shopId: string) {

@@ -18,6 +18,8 @@ export interface ParsedCatalog {
   rows: (PartValues & { line: number })[];
   errors: CsvRowError[];
   ignoredColumns: string[];
+  /** The known columns the file has: for a SKU already in the catalog, only these change. */
+  columns: string[];
 }
 
 export const MAX_CSV_BYTES = 2 * 1024 * 1024;
@@ -51,6 +53,7 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
         },
       ],
       ignoredColumns: [],
+      columns: [],
     };
   if (missing.length)
     return {
@@ -63,9 +66,11 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
         },
       ],
       ignoredColumns: [],
+      columns: [],
     };
   const known = new Set<string>(CSV_COLUMNS);
   const ignoredColumns = header.filter((h) => h && !known.has(h));
+  const columns = CSV_COLUMNS.filter((c) => header.includes(c));
   const rows: ParsedCatalog["rows"] = [];
   const seen = new Map<string, number>();
   const dataRows = table.slice(1);
@@ -74,6 +79,7 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
       rows: [],
       errors: [{ line: 1, field: "file", message: `At most ${MAX_CSV_ROWS} parts per file` }],
       ignoredColumns,
+      columns,
     };
   }
   dataRows.forEach((cells, i) => {
@@ -98,7 +104,7 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
     seen.set(key, line);
     rows.push({ ...r.data, line });
   });
-  return { rows, errors, ignoredColumns };
+  return { rows, errors, ignoredColumns, columns };
 }
 
 /** The catalog as CSV, with the same columns the import reads. */

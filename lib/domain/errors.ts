@@ -47,8 +47,14 @@ export class Conflict<T = unknown> extends DomainError {
     message: string,
     readonly code: string = "conflict",
     readonly current?: T,
+    /** The field(s) the clash is about, when one is (a taken SKU: `sku`). */
+    readonly issues: FieldIssue[] = [],
   ) {
     super(message);
+  }
+  /** One field clashes: `Conflict.field("sku", "SKU X is already in the catalog", "duplicate_sku")`. */
+  static field(path: string, message: string, code = "conflict"): Conflict<never> {
+    return new Conflict<never>(message, code, undefined, [{ path, message }]);
   }
 }
 

@@ -61,7 +61,8 @@ export function describeError(err: unknown): ErrorDescription {
     if (err instanceof Unauthorized) return { ...base, status: 401 };
     if (err instanceof Forbidden) return { ...base, status: 403 };
     if (err instanceof NotFound) return { ...base, status: 404 };
-    if (err instanceof Conflict) return { ...base, status: 409, current: err.current };
+    if (err instanceof Conflict)
+      return { ...base, status: 409, current: err.current, issues: err.issues };
     if (err instanceof InvalidTransition) return { ...base, status: 422 };
     if (err instanceof Invalid) return { ...base, status: 422, issues: err.issues };
     if (err instanceof Unavailable) {

@@ -1,10 +1,15 @@
 import { z } from "zod";
 
+/** The database refuses NUL characters in text. */
+const noNul = (s: string) => !s.includes("\u0000");
+const NUL_MESSAGE = "Remove the control characters";
+
 const optionalText = (max: number, label: string) =>
   z
     .string()
     .trim()
     .max(max, `${label} is too long (at most ${max} characters)`)
+    .refine(noNul, NUL_MESSAGE)
     .optional()
     .transform((v) => (v ? v : null));
 
@@ -13,7 +18,8 @@ export const CustomerSchema = z.object({
     .string()
     .trim()
     .min(1, "Enter the customer's name")
-    .max(120, "Name is too long (at most 120 characters)"),
+    .max(120, "Name is too long (at most 120 characters)")
+    .refine(noNul, NUL_MESSAGE),
   email: z
     .string()
     .trim()
@@ -26,13 +32,19 @@ export const CustomerSchema = z.object({
 });
 export type CustomerInput = z.output<typeof CustomerSchema>;
 
-export const CustomerUpdateSchema = CustomerSchema.extend({ id: z.uuid("Unknown customer") });
+/**
+ * A change to a customer, from the edit form or `PATCH /api/v1/customers/:id`: the `.partial()`
+ * of the create schema plus the id. Only the fields sent change; an empty string clears an
+ * optional one; sending none is refused.
+ */
+export const CustomerUpdateSchema = CustomerSchema.partial()
+  .extend({ id: z.uuid("Unknown customer") })
+  .refine((o) => Object.entries(o).some(([k, v]) => k !== "id" && v !== undefined), {
+    message: "Send at least one of name, email, phone or notes",
+  });
+export type CustomerUpdate = z.output<typeof CustomerUpdateSchema>;
 
-/** PATCH over the API: only the fields sent change; an empty string clears an optional one. */
-export const CustomerPatchSchema = CustomerSchema.partial().refine(
-  (o) => Object.values(o).some((v) => v !== undefined),
-  { message: "Send at least one of name, email, phone or notes" },
-);
+export const CustomerIdSchema = z.object({ id: z.uuid("Unknown customer") });
 
 export const CustomerListQuery = z.object({
   q: z.string().trim().max(100, "Search is too long").optional(),

@@ -3,6 +3,7 @@ import { z } from "zod";
 import { type Part } from "@/db/schema/catalog";
 import { DeadTimeTableSchema, PumpCurveSchema, REGULATOR_TYPES } from "@/lib/calc";
 import { minorToPlain, parseMoney } from "@/lib/catalog/money";
+import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
 /** The specification each category carries (canonical units, as lib/calc uses them). */
@@ -84,8 +85,6 @@ export const CSV_COLUMNS = [
 export type FlatPart = Partial<Record<(typeof CSV_COLUMNS)[number], string>>;
 
 const blank = (v: string | undefined) => v === undefined || v.trim() === "";
-const numOf = (v: string | undefined) =>
-  blank(v) ? undefined : Number(v!.trim().replace(",", "."));
 const intText = (label: string) =>
   z
     .string({ error: `${label} is required` })
@@ -133,117 +132,215 @@ const money = (label: string, required: boolean) =>
       return m;
     });
 
-/** A flat row → the part's columns and validated specs, with field-named errors. */
-export const FlatPartSchema = z
-  .object({
-    sku: z
-      .string({ error: "SKU is required" })
-      .trim()
-      .min(1, "SKU is required")
-      .max(60, "SKU is too long (at most 60 characters)"),
-    category: z.enum(PART_CATEGORIES, {
-      error: `Category must be one of ${PART_CATEGORIES.join(", ")}`,
-    }),
-    brand: z.string({ error: "Brand is required" }).trim().min(1, "Brand is required").max(80),
-    name: z.string({ error: "Name is required" }).trim().min(1, "Name is required").max(200),
-    price: money("Price", true),
-    cost: money("Cost", false),
-    stock: intText("Stock"),
-    reorder_level: z
-      .string()
-      .optional()
-      .transform((v, ctx) => {
-        if (blank(v)) return 0;
-        if (!/^\d{1,7}$/.test(v!.trim()))
-          ctx.addIssue({
-            code: "custom",
-            message: "Reorder level must be a whole number of 0 or more",
-          });
-        return Number(v);
-      }),
-  })
-  .passthrough()
-  .transform((row, ctx) => {
-    const r = row as unknown as FlatPart & { category: PartCategory };
-    const n = (col: keyof FlatPart) => {
-      const v = numOf(r[col]);
-      if (v !== undefined && !Number.isFinite(v))
-        ctx.addIssue({ code: "custom", path: [col], message: `${col} must be a number` });
-      return v;
-    };
-    const bool = (col: keyof FlatPart) => {
-      const v = (r[col] ?? "").trim().toLowerCase();
-      if (v === "") return false;
-      if (["yes", "y", "true", "1"].includes(v)) return true;
-      if (["no", "n", "false", "0"].includes(v)) return false;
-      ctx.addIssue({ code: "custom", path: [col], message: `${col} must be yes or no` });
-      return false;
-    };
-    const text = (col: keyof FlatPart) => (blank(r[col]) ? undefined : r[col]!.trim());
-    let raw: unknown;
-    switch (r.category) {
-      case "injector":
-        raw = {
-          ratedFlowCcPerMin: n("flow_cc_min"),
-          ratedPressureKpa: n("rated_kpa") ?? 300,
-          minPulseWidthMs: n("min_pulse_ms"),
-          impedance: text("impedance"),
-          connector: text("connector"),
-          ethanolOk: bool("ethanol_ok"),
-        };
-        break;
-      case "pump":
-        raw = {
-          curves: blank(r.pump_curve) ? undefined : parsePumpCurve(r.pump_curve!),
-          currentA: n("current_a"),
-          mounting: text("mounting"),
-          ethanolOk: bool("ethanol_ok"),
-        };
-        break;
-      case "regulator":
-        raw = {
-          type: text("regulator_type"),
-          minPressureKpa: n("min_kpa"),
-          maxPressureKpa: n("max_kpa"),
-          dash: n("an_dash"),
-        };
-        break;
-      case "line":
-        raw = {
-          dash: n("an_dash"),
-          insideDiameterMm: n("inside_mm"),
-          material: text("material"),
-          ethanolOk: bool("ethanol_ok"),
-        };
-        break;
-      case "fitting":
-        raw = { dash: n("an_dash") };
-        break;
-      case "filter":
-        raw = {
-          micron: n("micron"),
-          dropKpa: n("drop_kpa") ?? 0,
-          dash: n("an_dash"),
-          ethanolOk: bool("ethanol_ok"),
-        };
-        break;
-      case "sensor":
-        raw = { kind: "ethanol" };
-        break;
-      default:
-        raw = {};
+/** Text without NUL characters (the database refuses them in text). */
+const noNul = (s: string) => !s.includes("\u0000");
+const NUL_MESSAGE = "Remove the control characters";
+
+/** A spec column as it arrives: text (a number or yes/no from a JSON client is taken as text). */
+const specCell = (col: string) =>
+  z.preprocess(
+    (v) => (typeof v === "number" || typeof v === "boolean" ? String(v) : v),
+    z
+      .string({ error: `${col} must be text or a number` })
+      .max(2000, `${col} is too long`)
+      .refine(noNul, NUL_MESSAGE),
+  );
+
+/** How a spec column becomes a spec key: its kind, and what a blank cell gives (else "not given"). */
+interface SpecColumn {
+  key: string;
+  kind: "number" | "text" | "yesno" | "curves";
+  blank?: unknown;
+}
+const SPEC_COLUMNS = {
+  flow_cc_min: { key: "ratedFlowCcPerMin", kind: "number" },
+  rated_kpa: { key: "ratedPressureKpa", kind: "number", blank: 300 },
+  min_pulse_ms: { key: "minPulseWidthMs", kind: "number" },
+  impedance: { key: "impedance", kind: "text" },
+  connector: { key: "connector", kind: "text" },
+  ethanol_ok: { key: "ethanolOk", kind: "yesno" },
+  pump_curve: { key: "curves", kind: "curves" },
+  current_a: { key: "currentA", kind: "number" },
+  mounting: { key: "mounting", kind: "text" },
+  regulator_type: { key: "type", kind: "text" },
+  min_kpa: { key: "minPressureKpa", kind: "number" },
+  max_kpa: { key: "maxPressureKpa", kind: "number" },
+  an_dash: { key: "dash", kind: "number" },
+  inside_mm: { key: "insideDiameterMm", kind: "number" },
+  material: { key: "material", kind: "text" },
+  micron: { key: "micron", kind: "number" },
+  drop_kpa: { key: "dropKpa", kind: "number", blank: 0 },
+} satisfies Partial<Record<(typeof CSV_COLUMNS)[number], SpecColumn>>;
+type SpecColumnName = keyof typeof SPEC_COLUMNS;
+const SPEC_COLUMN_NAMES = Object.keys(SPEC_COLUMNS) as SpecColumnName[];
+
+/** The spec keys each category stores (from its schema): injector → ratedFlowCcPerMin … deadTime. */
+export const SPEC_KEYS = Object.fromEntries(
+  PART_CATEGORIES.map((c) => [c, Object.keys((SPEC_SCHEMAS[c] as z.ZodObject).shape)]),
+) as Record<PartCategory, string[]>;
+
+/**
+ * What some flat columns say about a part's specs: the values of the keys they give, and every
+ * key they speak for (`covered`; a blank cell with no default clears its key). A key no sent
+ * column speaks for is left as stored — the dead-time table has no column at all.
+ */
+export interface SpecChange {
+  values: Record<string, unknown>;
+  covered: string[];
+}
+
+type IssueSink = (path: string, message: string) => void;
+
+/** Reads the spec columns present in `row` (every one when `all`: a new part's blanks count). */
+function specChangeOf(
+  row: Partial<Record<SpecColumnName, string>>,
+  issue: IssueSink,
+  all: boolean,
+): SpecChange {
+  const values: Record<string, unknown> = {};
+  const covered: string[] = [];
+  for (const col of SPEC_COLUMN_NAMES) {
+    const raw = row[col];
+    if (raw === undefined && !all) continue;
+    const spec: SpecColumn = SPEC_COLUMNS[col];
+    covered.push(spec.key);
+    const cell = (raw ?? "").trim();
+    let v: unknown;
+    if (cell === "") v = spec.kind === "yesno" ? false : spec.blank;
+    else if (spec.kind === "text") v = cell;
+    else if (spec.kind === "curves") v = parsePumpCurve(cell);
+    else if (spec.kind === "yesno") {
+      const t = cell.toLowerCase();
+      if (["yes", "y", "true", "1"].includes(t)) v = true;
+      else if (["no", "n", "false", "0"].includes(t)) v = false;
+      else {
+        issue(col, `${col} must be yes or no`);
+        v = false;
+      }
+    } else {
+      v = Number(cell.replace(",", "."));
+      if (!Number.isFinite(v)) issue(col, `${col} must be a number`);
     }
-    const specs = (SPEC_SCHEMAS[r.category] as z.ZodType).safeParse(raw);
-    if (!specs.success) {
-      for (const i of specs.error.issues)
+    if (v !== undefined) values[spec.key] = v;
+  }
+  return { values, covered };
+}
+
+/**
+ * A part's specs after a change: the stored specs (of the same category; pass `{}` when the
+ * category changes) with each key the change speaks for set to its value or removed, and every
+ * other stored key kept exactly as it was.
+ */
+export function mergeSpecs(
+  category: PartCategory,
+  stored: Record<string, unknown>,
+  change: SpecChange,
+): Record<string, unknown> {
+  const keys = new Set(SPEC_KEYS[category]);
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(stored)) if (keys.has(k)) out[k] = v;
+  for (const k of change.covered) {
+    if (!keys.has(k)) continue;
+    if (change.values[k] === undefined) delete out[k];
+    else out[k] = change.values[k];
+  }
+  return out;
+}
+
+/** The spec keys some flat columns speak for (a CSV's header → what its rows may change). */
+export function specKeysOfColumns(columns: readonly string[]): string[] {
+  return SPEC_COLUMN_NAMES.filter((c) => columns.includes(c)).map((c) => SPEC_COLUMNS[c].key);
+}
+
+/** Checks a category's specs; errors name the column the person sees (`flow_cc_min`). */
+export function checkSpecs(
+  category: PartCategory,
+  specs: Record<string, unknown>,
+): { ok: true; specs: Record<string, unknown> } | { ok: false; issues: FieldIssue[] } {
+  const r = (SPEC_SCHEMAS[category] as z.ZodType).safeParse(specs);
+  if (r.success) return { ok: true, specs: r.data as Record<string, unknown> };
+  return {
+    ok: false,
+    issues: r.error.issues.map((i) => ({
+      path: SPEC_COLUMN[String(i.path[0])] ?? String(i.path[0] ?? "specs"),
+      message: specMessage(String(i.path[0]), i.message),
+    })),
+  };
+}
+
+const requiredText = (label: string, max: number) =>
+  z
+    .string({ error: `${label} is required` })
+    .trim()
+    .min(1, `${label} is required`)
+    .max(max, `${label} is too long (at most ${max} characters)`)
+    .refine(noNul, NUL_MESSAGE);
+
+/** A part's flat fields (the CSV's columns, the part form's fields), as text; blanks are "not given". */
+export const PartFieldsSchema = z.object({
+  sku: requiredText("SKU", 60),
+  category: z.enum(PART_CATEGORIES, {
+    error: `Category must be one of ${PART_CATEGORIES.join(", ")}`,
+  }),
+  brand: requiredText("Brand", 80),
+  name: requiredText("Name", 200),
+  price: money("Price", true),
+  cost: money("Cost", false),
+  stock: intText("Stock"),
+  reorder_level: z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      if (blank(v)) return 0;
+      if (!/^\d{1,7}$/.test(v!.trim()))
         ctx.addIssue({
           code: "custom",
-          path: [SPEC_COLUMN[String(i.path[0])] ?? String(i.path[0])],
-          message: specMessage(String(i.path[0]), i.message),
+          message: "Reorder level must be a whole number of 0 or more",
         });
-      return z.NEVER;
-    }
-    return {
+      return Number(v);
+    }),
+  ...(Object.fromEntries(SPEC_COLUMN_NAMES.map((c) => [c, specCell(c).optional()])) as Record<
+    SpecColumnName,
+    z.ZodOptional<ReturnType<typeof specCell>>
+  >),
+});
+
+const sinkOf =
+  (ctx: z.RefinementCtx): IssueSink =>
+  (path, message) =>
+    ctx.addIssue({ code: "custom", path: [path], message });
+
+/** A new part from a flat row: every column counts (a missing one is blank), specs checked. */
+export const FlatPartSchema = PartFieldsSchema.transform((row, ctx) => {
+  const change = specChangeOf(row, sinkOf(ctx), true);
+  const specs = checkSpecs(row.category, mergeSpecs(row.category, {}, change));
+  if (!specs.ok) {
+    for (const i of specs.issues) sinkOf(ctx)(i.path, i.message);
+    return z.NEVER;
+  }
+  return {
+    sku: row.sku,
+    category: row.category,
+    brand: row.brand,
+    name: row.name,
+    priceMinor: row.price,
+    costMinor: row.cost,
+    stock: row.stock,
+    reorderLevel: row.reorder_level,
+    specs: specs.specs,
+  };
+});
+export type PartValues = z.output<typeof FlatPartSchema>;
+
+/**
+ * A change to a part: the `.partial()` of the part's fields, plus its id. Only the fields sent
+ * change; the spec columns sent are merged into the stored specs by the command, which knows the
+ * stored category and checks the result.
+ */
+export const PartUpdateSchema = PartFieldsSchema.partial()
+  .extend({ id: z.uuid("Unknown part") })
+  .transform((row, ctx) => {
+    const fields: Partial<Omit<PartValues, "specs">> = {
       sku: row.sku,
       category: row.category,
       brand: row.brand,
@@ -252,31 +349,19 @@ export const FlatPartSchema = z
       costMinor: row.cost,
       stock: row.stock,
       reorderLevel: row.reorder_level,
-      specs: specs.data as Record<string, unknown>,
     };
+    for (const k of Object.keys(fields) as (keyof typeof fields)[])
+      if (fields[k] === undefined) delete fields[k];
+    return { id: row.id, fields, specs: specChangeOf(row, sinkOf(ctx), false) };
   });
-export type PartValues = z.output<typeof FlatPartSchema>;
+export type PartUpdate = z.output<typeof PartUpdateSchema>;
+
+export const PartIdSchema = z.object({ id: z.uuid("Unknown part") });
 
 /** Spec field → the CSV column it comes from, so errors name the column the user sees. */
-const SPEC_COLUMN: Record<string, string> = {
-  ratedFlowCcPerMin: "flow_cc_min",
-  ratedPressureKpa: "rated_kpa",
-  minPulseWidthMs: "min_pulse_ms",
-  impedance: "impedance",
-  connector: "connector",
-  ethanolOk: "ethanol_ok",
-  curves: "pump_curve",
-  currentA: "current_a",
-  mounting: "mounting",
-  type: "regulator_type",
-  minPressureKpa: "min_kpa",
-  maxPressureKpa: "max_kpa",
-  dash: "an_dash",
-  insideDiameterMm: "inside_mm",
-  material: "material",
-  micron: "micron",
-  dropKpa: "drop_kpa",
-};
+const SPEC_COLUMN: Record<string, string> = Object.fromEntries(
+  Object.entries(SPEC_COLUMNS).map(([col, spec]) => [spec.key, col]),
+);
 const SPEC_HINT: Record<string, string> = {
   ratedFlowCcPerMin: "flow_cc_min needs the rated flow in cc/min (20 to 10000)",
   ratedPressureKpa: "rated_kpa needs the rating pressure in kPa (100 to 1000)",

@@ -172,7 +172,17 @@ export const ROUTES: Record<string, Cell> = {
   },
   "GET /api/v1/parts": { call: () => ({ path: "/api/v1/parts" }), expect: "401 ok ok ok 403 ok" },
   "POST /api/v1/parts": {
-    call: () => ({ path: "/api/v1/parts", body: {} }),
+    call: (f) => ({
+      path: "/api/v1/parts",
+      body: {
+        sku: `${f.doomedSku}-N`,
+        category: "fitting",
+        brand: "Matrixware",
+        name: "Matrix new part",
+        price: "1.00",
+        stock: "1",
+      },
+    }),
     expect: "401 ok 403 ok 403 ok",
   },
   "GET /api/v1/parts/[id]": {
@@ -343,6 +353,33 @@ export const ACTIONS: Record<string, ActionCell> = {
     page: (f) => `/customers/${f.customer}`,
     args: (f) => [prev, formOf({ id: f.customer })],
     expect: "401 ok ok ok 403 404",
+  },
+  "lib/parts/part-actions.ts#createPartAction": {
+    page: () => "/parts/new",
+    args: (f) => [
+      prev,
+      {
+        sku: `${f.doomedSku}-A`,
+        category: "fitting",
+        brand: "Matrixware",
+        name: "Matrix action part",
+        price: "1.00",
+        stock: "1",
+      },
+    ],
+    expect: "401 ok 403 ok 403 ok",
+  },
+  "lib/parts/part-actions.ts#updatePartAction": {
+    page: () => "/parts/new",
+    args: (f) => [prev, { id: f.doomedPart, name: "Access matrix part (action)" }],
+    expect: "401 ok 403 ok 403 404",
+    mayVanish: true,
+  },
+  "lib/parts/part-actions.ts#deletePartAction": {
+    page: () => "/parts/new",
+    args: (f) => [prev, { id: f.doomedPart }],
+    expect: "401 ok 403 ok 403 404",
+    mayVanish: true,
   },
   "app/(shop)/settings/actions.ts#updateSettingsAction": {
     page: () => "/settings",

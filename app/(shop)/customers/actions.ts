@@ -2,63 +2,44 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { z } from "zod";
 
-import { createCustomer, deleteCustomer, updateCustomer } from "@/db/queries/customers";
-import { getShopSettings } from "@/db/queries/shops";
 import { memberAction } from "@/lib/actions/member-action";
 import { PATHS } from "@/lib/cache-tags";
-import { NotFound } from "@/lib/domain/errors";
-import { invitePortalCustomer } from "@/lib/portal/invite";
-import { CustomerSchema, CustomerUpdateSchema } from "@/lib/validations/customers";
-
-export const createCustomerAction = memberAction(
-  "customers:write",
+import {
+  createCustomer,
+  deleteCustomer,
+  inviteToPortal,
+  updateCustomer,
+} from "@/lib/customers/customer-commands";
+import {
+  CustomerIdSchema,
   CustomerSchema,
-  async (data, m) => {
-    const c = await createCustomer(m.shopId, data);
-    revalidatePath(PATHS.customers);
-    return { ok: true, message: `Customer ${c.name} added`, values: { id: c.id } };
-  },
-);
-
-export const updateCustomerAction = memberAction(
-  "customers:write",
   CustomerUpdateSchema,
-  async ({ id, ...data }, m) => {
-    const c = await updateCustomer(m.shopId, id, data);
-    if (!c) throw new NotFound("That customer");
-    revalidatePath(PATHS.customers);
-    revalidatePath(PATHS.customer(id));
-    return { ok: true, message: "Saved" };
-  },
-);
+} from "@/lib/validations/customers";
 
-const DeleteSchema = z.object({ id: z.uuid("Unknown customer") });
-export const deleteCustomerAction = memberAction(
-  "customers:write",
-  DeleteSchema,
-  async ({ id }, m) => {
-    if (!(await deleteCustomer(m.shopId, id))) throw new NotFound("That customer");
-    revalidatePath(PATHS.customers);
-    redirect(PATHS.customers);
-  },
-);
+export const createCustomerAction = memberAction(CustomerSchema, async (m, input) => {
+  const c = await createCustomer(m, input);
+  revalidatePath(PATHS.customers);
+  return { ok: true, message: `Customer ${c.name} added`, data: { id: c.id } };
+});
 
-const InviteSchema = z.object({ id: z.uuid("Unknown customer") });
+/** The same command and partial semantics as `PATCH /api/v1/customers/:id`. */
+export const updateCustomerAction = memberAction(CustomerUpdateSchema, async (m, input) => {
+  await updateCustomer(m, input);
+  revalidatePath(PATHS.customers);
+  revalidatePath(PATHS.customer(input.id));
+  return { ok: true, message: "Saved" };
+});
+
+export const deleteCustomerAction = memberAction(CustomerIdSchema, async (m, input) => {
+  await deleteCustomer(m, input);
+  revalidatePath(PATHS.customers);
+  redirect(PATHS.customers);
+});
+
 /** Sends the customer a portal invitation by e-mail. */
-export const invitePortalAction = memberAction(
-  "customers:write",
-  InviteSchema,
-  async ({ id }, m) => {
-    const settings = await getShopSettings(m.shopId);
-    const { to } = await invitePortalCustomer(
-      m.shopId,
-      settings?.name ?? "Your shop",
-      m.user.id,
-      id,
-    );
-    revalidatePath(PATHS.customer(id));
-    return { ok: true, message: `Portal invitation sent to ${to}` };
-  },
-);
+export const invitePortalAction = memberAction(CustomerIdSchema, async (m, input) => {
+  const { to } = await inviteToPortal(m, input);
+  revalidatePath(PATHS.customer(input.id));
+  return { ok: true, message: `Portal invitation sent to ${to}` };
+});

@@ -48,7 +48,8 @@ export function CustomerForm({
       setError(k as keyof In, { message: msgs.join(" ") });
     if (state.ok && !customer) {
       reset();
-      if (state.values?.id) router.push(`/customers/${state.values.id}`);
+      const made = state.data as { id?: string } | undefined;
+      if (made?.id) router.push(`/customers/${made.id}`);
     }
   }, [state, customer, reset, setError, router]);
 

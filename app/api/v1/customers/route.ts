@@ -1,5 +1,6 @@
-import { createCustomer, listCustomers } from "@/db/queries/customers";
+import { listCustomers } from "@/db/queries/customers";
 import { requireMember } from "@/lib/auth/member";
+import { createCustomer } from "@/lib/customers/customer-commands";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { CustomerListQuery, CustomerSchema } from "@/lib/validations/customers";
@@ -11,7 +12,7 @@ export const GET = handle(async (req) => {
 });
 
 export const POST = handle(async (req) => {
-  const m = await requireMember("customers:write");
+  const m = await requireMember();
   const input = CustomerSchema.parse(await readJson(req));
-  return Response.json({ customer: await createCustomer(m.shopId, input) }, { status: 201 });
+  return Response.json({ customer: await createCustomer(m, input) }, { status: 201 });
 });

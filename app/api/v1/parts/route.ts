@@ -1,8 +1,8 @@
-import { createPart, listParts } from "@/db/queries/parts";
+import { listParts } from "@/db/queries/parts";
 import { requireMember } from "@/lib/auth/member";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
-import { HttpError } from "@/lib/http/http-error";
+import { createPart } from "@/lib/parts/part-commands";
 import { FlatPartSchema, PartListQuery } from "@/lib/validations/parts";
 
 /** GET /api/v1/parts?q=&category=&sort= — the shop's catalog. */
@@ -12,11 +12,9 @@ export const GET = handle(async (req) => {
   return Response.json({ parts: await listParts(m.shopId, q) });
 });
 
-/** POST /api/v1/parts — one part, as the flat fields of the catalog CSV (all strings). */
+/** POST /api/v1/parts — one part, as the flat fields of the catalog CSV (text). */
 export const POST = handle(async (req) => {
-  const m = await requireMember("parts:write");
-  const v = FlatPartSchema.parse(await readJson(req));
-  const part = await createPart(m.shopId, v);
-  if (!part) throw new HttpError(409, "duplicate_sku", `SKU ${v.sku} is already in the catalog`);
-  return Response.json({ part }, { status: 201 });
+  const m = await requireMember();
+  const input = FlatPartSchema.parse(await readJson(req));
+  return Response.json({ part: await createPart(m, input) }, { status: 201 });
 });

@@ -1,56 +1,47 @@
-import { existingSkus, importParts } from "@/db/queries/parts";
 import { requireMember } from "@/lib/auth/member";
-import { MAX_CSV_BYTES, parseCatalogCsv } from "@/lib/catalog/csv";
+import { MAX_CSV_BYTES } from "@/lib/catalog/csv";
 import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { importCatalog } from "@/lib/parts/part-commands";
 
 /**
- * POST /api/v1/parts/import[?dryRun=1] with the CSV as the body. Any bad row → 422 listing every
- * row error by line and column, and nothing is written; otherwise all rows in one transaction.
+ * POST /api/v1/parts/import[?dryRun=1] with the CSV as the body (a file upload, so it stays on
+ * the API). Any bad row → 422 listing every row error by line and column (`error.rows`, and the
+ * same as `error.issues` with `line.column` paths), and nothing is written; otherwise all rows
+ * in one transaction.
  */
 export const POST = handle(async (req) => {
-  const m = await requireMember("parts:write");
+  const m = await requireMember();
   const dryRun = new URL(req.url).searchParams.get("dryRun") === "1";
   const type = req.headers.get("content-type") ?? "";
   if (type && !/^(text\/(csv|plain)|application\/(vnd\.ms-excel|octet-stream))/i.test(type)) {
     return Response.json(
-      { error: { code: "unsupported_type", message: "Send the catalog as a CSV file (text/csv)" } },
+      {
+        error: {
+          code: "unsupported_type",
+          message: "Send the catalog as a CSV file (text/csv)",
+          issues: [],
+        },
+      },
       { status: 415 },
     );
   }
-  const parsed = parseCatalogCsv(await readText(req, MAX_CSV_BYTES, "catalog file"));
-  const known = await existingSkus(
-    m.shopId,
-    parsed.rows.map((r) => r.sku),
-  );
-  const preview = parsed.rows.map((r) => ({
-    line: r.line,
-    sku: r.sku,
-    name: r.name,
-    brand: r.brand,
-    category: r.category,
-    priceMinor: r.priceMinor,
-    stock: r.stock,
-    action: known.has(r.sku.toLowerCase()) ? "update" : "add",
-  }));
-  if (parsed.errors.length) {
+  const csv = await readText(req, MAX_CSV_BYTES, "catalog file");
+  const { errors, ...result } = await importCatalog(m, { csv, dryRun });
+  if (errors.length) {
     return Response.json(
       {
         error: {
           code: "invalid_rows",
-          message: `${parsed.errors.length} problem${parsed.errors.length > 1 ? "s" : ""} in the file; nothing was imported`,
-          rows: parsed.errors,
+          message: `${errors.length} problem${errors.length > 1 ? "s" : ""} in the file; nothing was imported`,
+          issues: errors.map((e) => ({ path: `${e.line}.${e.field}`, message: e.message })),
+          rows: errors,
         },
-        preview,
-        ignoredColumns: parsed.ignoredColumns,
+        preview: result.preview,
+        ignoredColumns: result.ignoredColumns,
       },
       { status: 422 },
     );
   }
-  if (dryRun) return Response.json({ preview, ignoredColumns: parsed.ignoredColumns });
-  const counts = await importParts(
-    m.shopId,
-    parsed.rows.map(({ line: _line, ...r }) => r),
-  );
-  return Response.json({ ...counts, preview, ignoredColumns: parsed.ignoredColumns });
+  return Response.json(result);
 });
