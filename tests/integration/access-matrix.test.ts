@@ -27,7 +27,8 @@ function walk(dir: string, out: string[] = []): string[] {
   }
   return out;
 }
-const files = walk("app");
+// Actions shared by components live in lib/<feature>/<feature>-actions.ts.
+const files = [...walk("app"), ...walk("lib")];
 const routeKeys = files
   .filter((f) => f.endsWith("/route.ts"))
   .flatMap((f) => {
