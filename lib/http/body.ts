@@ -78,3 +78,9 @@ async function readBytesLimited(req: Request, max: number, limitMsg: string): Pr
   }
   return Buffer.concat(chunks);
 }
+
+/** The request's media type (before any `;charset=`) is one of `allowed`, else 415 with `message`. */
+export function requireContentType(req: Request, allowed: readonly string[], message: string) {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  if (!allowed.includes(type)) throw new HttpError(415, "unsupported_type", message);
+}

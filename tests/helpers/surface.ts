@@ -318,19 +318,40 @@ export const ACTIONS: Record<string, ActionCell> = {
     args: (f) => [prev, formOf({ customerId: f.customer, title: "Matrix action build" })],
     expect: "401 ok ok 403 403 422",
   },
-  "app/(shop)/builds/[id]/actions.ts#saveBuildAction": {
+  "lib/builds/build-actions.ts#saveBuildAction": {
     page: (f) => `/builds/${f.build}`,
-    args: (f) => [f.build, { version: 1, title: "Matrix build", inputs: f.inputs }],
+    args: (f) => [prev, { id: f.build, version: 1, title: "Matrix build", inputs: f.inputs }],
     expect: "401 ok ok 403 403 404",
   },
-  "app/(shop)/builds/[id]/copy-actions.ts#copyBuildAction": {
+  "lib/builds/build-actions.ts#copyBuildAction": {
     page: (f) => `/builds/${f.build}`,
-    args: (f) => [f.build],
+    args: (f) => [prev, { id: f.build }],
     expect: "401 ok ok 403 403 404",
+  },
+  "lib/builds/build-actions.ts#chooseKitAction": {
+    page: (f) => `/builds/${f.build}/kit`,
+    args: (f) => [
+      prev,
+      { id: f.build, version: 1, parts: [{ role: "filter", partId: f.part, quantity: 1 }] },
+    ],
+    expect: "401 ok ok ok 403 404",
   },
   "app/(shop)/builds/[id]/revisions/[version]/actions.ts#restoreRevisionAction": {
     page: (f) => `/builds/${f.build}/revisions/1`,
-    args: (f) => [{ buildId: f.build, version: 1, currentVersion: 999999 }],
+    args: (f) => [prev, { buildId: f.build, version: 1, currentVersion: 999999 }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/dyno/dyno-actions.ts#analyseDatalogAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [
+      prev,
+      { id: f.datalog, mapping: { rpm: "rpm", duty: { column: "duty", kind: "duty_pct" } } },
+    ],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/dyno/dyno-actions.ts#verifyDatalogAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { id: f.datalog }],
     expect: "401 ok ok 403 403 404",
   },
   "app/(shop)/customers/actions.ts#createCustomerAction": {

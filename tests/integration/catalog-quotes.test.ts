@@ -345,10 +345,11 @@ describe("kit recommendation on a build", () => {
       .candidates.find((c: { fits: boolean }) => c.fits);
     const before = await fingerprint(["builds", "build_revisions"]);
     expect(
+      // A well-formed choice: the refusal is the role's (the command checks it after parsing).
       (
         await request(customer, "POST", `/api/v1/builds/${buildId}/kit`, {
           version: kit.json.buildVersion,
-          parts: [],
+          parts: [{ role: "injector", partId: best.part.id, quantity: best.quantity }],
         })
       ).status,
     ).toBe(403);

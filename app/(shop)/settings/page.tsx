@@ -10,7 +10,7 @@ import { can } from "@/lib/auth/permissions";
 import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
 import { minorToPlain } from "@/lib/catalog/money";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
-import { shopBsfc } from "@/lib/dyno/service";
+import { shopBsfc } from "@/lib/dyno/log-analysis";
 
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
