@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { notFound } from "next/navigation";
 
 import { getBuild } from "@/db/queries/builds";
 import { checkShareToken } from "@/db/queries/shares";
@@ -7,16 +8,19 @@ import { getShopSettings } from "@/db/queries/shops";
 export const metadata: Metadata = { title: "Shared spec sheet", robots: { index: false } };
 
 const REASONS = {
-  invalid: "This link is not valid.",
   expired: "This link has expired.",
   revoked: "This link was withdrawn by the shop.",
 };
 
-/** The landing page of a share link: the build's name and its spec sheet, or a clear refusal with no data. */
+/**
+ * The landing page of a share link: the build's name and its spec sheet, or a clear refusal
+ * with no data. A link that never existed (or was tampered with) is this route's not-found page.
+ */
 export default async function SharedSheetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const check = await checkShareToken(token);
   if (!check.ok) {
+    if (check.reason === "invalid") notFound();
     return (
       <main className="mx-auto max-w-xl p-8">
         <h1 className="font-display text-2xl font-semibold">Spec sheet not available</h1>

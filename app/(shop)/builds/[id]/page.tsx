@@ -12,14 +12,15 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import type { FuelSystemInput } from "@/lib/calc";
 import { shopBsfc } from "@/lib/dyno/service";
+import { idOrNotFound } from "@/lib/ids";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
 export const metadata: Metadata = { title: "Build sheet" };
 
 export default async function BuildPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("builds:read");
-  const { id } = await params;
-  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const [revisions, bsfcRows] = await Promise.all([
     listRevisions(m.shopId, id),

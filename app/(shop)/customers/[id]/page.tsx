@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/status";
 import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
+import { idOrNotFound } from "@/lib/ids";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
 import { CustomerForm } from "../customer-form";
@@ -13,8 +14,8 @@ import { PortalAccess } from "./portal-access";
 
 export default async function CustomerPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("customers:read");
-  const { id } = await params;
-  const c = /^[0-9a-f-]{36}$/i.test(id) ? await getCustomer(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const c = await getCustomer(m.shopId, id);
   if (!c) notFound();
   const { builds } = await listBuilds(m.shopId, { customerId: c.id, limit: 50 });
   return (

@@ -11,6 +11,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
+import { idOrNotFound } from "@/lib/ids";
 import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quote" };
@@ -23,8 +24,8 @@ const PAYMENT_LABELS = {
 
 export default async function QuotePage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("quotes:read");
-  const { id } = await params;
-  const q = /^[0-9a-f-]{36}$/i.test(id) ? await getQuote(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const q = await getQuote(m.shopId, id);
   if (!q) notFound();
   const canWrite = can(m.role, "quotes:write");
   const catalog = canWrite

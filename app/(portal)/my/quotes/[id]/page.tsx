@@ -12,6 +12,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
@@ -35,9 +36,9 @@ export default async function MyQuotePage({
   searchParams: Promise<{ payment?: string }>;
 }) {
   const m = await requirePageMember("portal:view");
-  const { id } = await params;
+  const id = idOrNotFound((await params).id);
   const note = PAYMENT_NOTES[(await searchParams).payment ?? ""];
-  const q = /^[0-9a-f-]{36}$/i.test(id) ? await getQuote(m.shopId, id, m.user.id) : null;
+  const q = await getQuote(m.shopId, id, m.user.id);
   if (!q) notFound();
   const qt = q.quote;
   const money = (v: number) => formatMoney(v, qt.currency);

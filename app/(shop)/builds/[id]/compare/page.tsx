@@ -8,6 +8,7 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { compareKeyFigures, diffInputs } from "@/lib/builds/diff";
 import type { FuelSystemResult } from "@/lib/calc";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
@@ -25,9 +26,8 @@ export default async function CompareRevisionsPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const m = await requirePageMember("builds:read");
-  const { id } = await params;
+  const id = idOrNotFound((await params).id);
   const sp = await searchParams;
-  if (!/^[0-9a-f-]{36}$/i.test(id)) notFound();
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const latest = row.build.version;

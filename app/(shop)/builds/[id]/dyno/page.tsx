@@ -8,6 +8,7 @@ import { getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
+import { idOrNotFound } from "@/lib/ids";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
 export const metadata: Metadata = { title: "Dyno verification" };
@@ -15,8 +16,8 @@ export const metadata: Metadata = { title: "Dyno verification" };
 /** Dyno logs of one build: upload, map columns, measured against predicted, mark verified. */
 export default async function DynoPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("datalogs:read");
-  const { id } = await params;
-  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const logs = await listDatalogs(m.shopId, id);
   return (

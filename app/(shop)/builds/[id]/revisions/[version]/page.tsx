@@ -9,6 +9,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { diffInputs } from "@/lib/builds/diff";
 import type { FuelSystemResult } from "@/lib/calc";
+import { idOrNotFound } from "@/lib/ids";
 import { STATUS_LABELS } from "@/lib/validations/builds";
 
 import { RestoreButton } from "./restore-button";
@@ -19,9 +20,10 @@ export default async function RevisionPage({
   params: Promise<{ id: string; version: string }>;
 }) {
   const m = await requirePageMember("builds:read");
-  const { id, version } = await params;
+  const { id: rawId, version } = await params;
+  const id = idOrNotFound(rawId);
   const v = Number(version);
-  if (!/^[0-9a-f-]{36}$/i.test(id) || !Number.isInteger(v) || v < 1) notFound();
+  if (!Number.isInteger(v) || v < 1) notFound();
   const [row, rev] = await Promise.all([getBuild(m.shopId, id), getRevision(m.shopId, id, v)]);
   if (!row || !rev) notFound();
   const latest = row.build.version === v;
