@@ -8,6 +8,7 @@ import { NotFoundError } from "@/lib/auth/errors";
 import { quoteLabel } from "@/lib/catalog/labels";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { formatDate } from "@/lib/format/dates";
 import { depositOf } from "@/lib/payments/deposit";
 import { QUOTE_STATUS_LABELS } from "@/lib/validations/quotes";
 
@@ -69,7 +70,7 @@ export async function quoteSheetData(
       ? {
           pct: String(depositBp / 100),
           amount: money(paid.amountMinor),
-          paid: paid.paidAt?.toISOString().slice(0, 10) ?? "",
+          paid: paid.paidAt ? formatDate(paid.paidAt) : "",
         }
       : showDeposit
         ? {

@@ -6,6 +6,7 @@ import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
 import { SafetyNote } from "@/components/tools/safety-note";
+import { LocalTime } from "@/components/ui/local-time";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
@@ -79,7 +80,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
               <span className="figure w-12 font-semibold">v{r.version}</span>
               <span className="w-20">{STATUS_LABELS[r.status]}</span>
               <span className="figure w-44 text-ink-600">
-                {r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+                <LocalTime value={r.createdAt} />
               </span>
               <span className="flex-1">{r.note ?? ""}</span>
               <Link

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
@@ -121,15 +122,14 @@ export default async function MyQuotePage({
       {paid.map((p) => (
         <p key={p.id} className="mt-4 text-sm text-ok-700" data-testid="deposit-paid">
           ✓ Deposit of {formatMoney(p.amountMinor, p.currency)} paid{" "}
-          {p.paidAt?.toISOString().replace("T", " ").slice(0, 16)} UTC.
+          {p.paidAt ? <LocalTime value={p.paidAt} /> : null}.
         </p>
       ))}
       {qt.status === "sent" ? (
         <QuoteDecision id={qt.id} />
       ) : qt.statusChangedAt ? (
         <p className="mt-4 text-sm text-ink-700" data-testid="decision">
-          {QUOTE_STATUS_LABELS[qt.status]} on{" "}
-          {qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC.
+          {QUOTE_STATUS_LABELS[qt.status]} on <LocalTime value={qt.statusChangedAt} />.
         </p>
       ) : null}
       <p className="mt-6 text-sm text-ink-600">

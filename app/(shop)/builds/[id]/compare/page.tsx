@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
+import { SelectField } from "@/components/ui/field";
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getBuild, getRevision, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
@@ -49,24 +50,14 @@ export default async function CompareRevisionsPage({
         )
       : [];
   const picker = (name: string, value: number, label: string) => (
-    <div>
-      <label htmlFor={`cmp-${name}`} className="block text-sm font-medium text-ink-700">
-        {label}
-      </label>
-      <select
-        id={`cmp-${name}`}
-        name={name}
-        defaultValue={value}
-        className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
-      >
-        {revisions.map((r) => (
-          <option key={r.version} value={r.version}>
-            Version {r.version}
-            {r.note ? ` — ${r.note}` : ""}
-          </option>
-        ))}
-      </select>
-    </div>
+    <SelectField label={label} id={`cmp-${name}`} name={name} defaultValue={value}>
+      {revisions.map((r) => (
+        <option key={r.version} value={r.version}>
+          Version {r.version}
+          {r.note ? ` — ${r.note}` : ""}
+        </option>
+      ))}
+    </SelectField>
   );
   return (
     <>

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { ResultsPanel } from "@/components/builds/results-panel";
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild, getRevision } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
@@ -55,8 +56,7 @@ export default async function RevisionPage({
         </div>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
-        Read-only. {STATUS_LABELS[rev.status]}, saved{" "}
-        {rev.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+        Read-only. {STATUS_LABELS[rev.status]}, saved <LocalTime value={rev.createdAt} />
         {rev.note ? ` — ${rev.note}` : ""}. Figures as computed then (library{" "}
         {rev.calcVersion ?? "?"}).
       </p>
