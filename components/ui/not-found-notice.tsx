@@ -23,7 +23,7 @@ export function NotFoundNotice({
     >
       <p className="text-sm font-semibold tracking-wide text-copper-700 uppercase">404</p>
       <h1 id="not-found-title" className="mt-1 text-2xl font-bold text-ink-900">
-        {thing} not found
+        {`${thing} not found`}
       </h1>
       <p className="mt-2 text-ink-700">
         {children ??
