@@ -23,29 +23,41 @@ afterAll(async () => {
   await sql.end();
 });
 
+// Next 16 renders a page's notFound() in the browser from the RSC payload inlined in the HTML
+// (the HTML itself is an empty error shell with the 404), so the texts are looked for there.
 // What a person may type into the address bar: not a UUID at all, the nil UUID (well-formed,
 // no such row) and 36 hex digits without dashes (the old pattern let these reach PostgreSQL).
 const TYPED = ["zzz", "00000000-0000-0000-0000-000000000000", "f".repeat(36)];
 
 const RESOURCES = [
-  { path: "/builds/:id", text: "Build not found", back: 'href="/builds"', table: "builds" },
-  { path: "/builds/:id/kit", text: "Build not found", back: 'href="/builds"', table: "builds" },
-  { path: "/builds/:id/dyno", text: "Build not found", back: 'href="/builds"', table: "builds" },
-  { path: "/builds/:id/compare", text: "Build not found", back: 'href="/builds"', table: "builds" },
+  { path: "/builds/:id", text: "Build not found", back: "Back to the builds", table: "builds" },
+  { path: "/builds/:id/kit", text: "Build not found", back: "Back to the builds", table: "builds" },
+  {
+    path: "/builds/:id/dyno",
+    text: "Build not found",
+    back: "Back to the builds",
+    table: "builds",
+  },
+  {
+    path: "/builds/:id/compare",
+    text: "Build not found",
+    back: "Back to the builds",
+    table: "builds",
+  },
   {
     path: "/builds/:id/revisions/1",
     text: "Revision not found",
-    back: 'href="/builds"',
+    back: "Back to the builds",
     table: "builds",
   },
   {
     path: "/customers/:id",
     text: "Customer not found",
-    back: 'href="/customers"',
+    back: "Back to the customers",
     table: "customers",
   },
-  { path: "/parts/:id", text: "Part not found", back: 'href="/parts"', table: "parts" },
-  { path: "/quotes/:id", text: "Quote not found", back: 'href="/quotes"', table: "quotes" },
+  { path: "/parts/:id", text: "Part not found", back: "Back to the catalog", table: "parts" },
+  { path: "/quotes/:id", text: "Quote not found", back: "Back to the quotes", table: "quotes" },
 ] as const;
 
 describe("typed-in ids that name nothing", () => {
@@ -82,7 +94,7 @@ describe("typed-in ids that name nothing", () => {
       const res = await request(customer, "GET", `/my/quotes/${id}`);
       expect(res.status).toBe(404);
       expect(res.text).toContain("Quote not found");
-      expect(res.text).toContain('href="/my"');
+      expect(res.text).toContain("Back to my builds and quotes");
     }
   });
 
