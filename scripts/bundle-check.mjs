@@ -8,7 +8,8 @@
 // Where the figures come from (Next 16, Turbopack): `build-manifest.json#rootMainFiles` are the
 // scripts every page loads (framework and runtime; `polyfillFiles` are `nomodule` and left out);
 // `server/app/**/page_client-reference-manifest.js` lists per page the `entryJSFiles` of each
-// segment of its tree (layouts, boundaries, the page), which the HTML loads up front.
+// segment of its tree; a page loads all of them but the not-found boundaries' (checked against
+// the script tags and the inlined RSC payload of served pages).
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -24,6 +25,10 @@ export const DRIZZLE_MARKERS = [
   "pgTable",
   "PgColumn",
 ];
+
+// A not-found boundary loads only when it shows. Error boundaries do not count as such: they are
+// client references in every page's payload, so the browser loads them while hydrating.
+const ON_DEMAND = /\/(not-found|forbidden|unauthorized)$/;
 
 /** "/(shop)/builds/[id]/page" → "/builds/[id]" */
 export function routeOf(entryName) {
@@ -72,7 +77,8 @@ export function analyse(distDir) {
     vm.runInNewContext(readFileSync(file, "utf8"), sandbox, { filename: file });
     for (const [entry, m] of Object.entries(sandbox.__RSC_MANIFEST ?? {})) {
       const files = new Set(root);
-      for (const list of Object.values(m.entryJSFiles ?? {})) for (const f of list) files.add(f);
+      for (const [segment, list] of Object.entries(m.entryJSFiles ?? {}))
+        if (!ON_DEMAND.test(segment)) for (const f of list) files.add(f);
       const own = [...files].filter((f) => !root.includes(f));
       pages.push({
         route: routeOf(entry),
