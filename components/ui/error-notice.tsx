@@ -1,6 +1,5 @@
 "use client";
 
-import Link from "next/link";
 import { useEffect } from "react";
 
 import { Button } from "./button";
@@ -59,9 +58,11 @@ export function ErrorNotice({
         <Button type="button" onClick={() => retry()}>
           Try again
         </Button>
-        <Link href={homeHref} className="text-sm font-medium text-copper-700 underline">
+        {/* A plain link on purpose: a full load starts clean, and next/link would be one more
+            copy of the router's link code in every page's error chunk. */}
+        <a href={homeHref} className="text-sm font-medium text-copper-700 underline">
           Back to the start
-        </Link>
+        </a>
       </div>
     </section>
   );
