@@ -59,4 +59,9 @@ export async function proxy(req: NextRequest) {
   return res;
 }
 
-export const config = { matcher: ["/((?!api|_next/static|_next/image|favicon.ico|fonts).*)"] };
+// Icons and the web app manifest are public files: no session, no database check, no redirect.
+export const config = {
+  matcher: [
+    "/((?!api|_next/static|_next/image|favicon\\.ico|icon\\.svg|icon-\\d+\\.png|apple-touch-icon\\.png|manifest\\.webmanifest|fonts).*)",
+  ],
+};

@@ -8,9 +8,20 @@ import "./globals.css";
 export const metadata: Metadata = {
   title: { default: "Fuelwright", template: "%s · Fuelwright" },
   description: "Fuel-system sizing, quotes and spec sheets for performance shops.",
+  icons: {
+    icon: [
+      { url: "/favicon.ico", sizes: "16x16 32x32 48x48" },
+      { url: "/icon.svg", type: "image/svg+xml" },
+    ],
+    apple: { url: "/apple-touch-icon.png", sizes: "180x180" },
+  },
 };
 
-export const viewport: Viewport = { width: "device-width", initialScale: 1 };
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+  themeColor: "#141a20",
+};
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   // Every page renders per request, so each carries its request's CSP nonce.

@@ -4,6 +4,7 @@ import { useEffect, useMemo, useState, useTransition } from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
 import { Button } from "@/components/ui/button";
+import { SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
@@ -298,30 +299,22 @@ export function BuildEditor(props: {
     options: [string, string][],
     onChange?: (v: string) => void,
   ) => (
-    <div key={name}>
-      <label htmlFor={idOf(name)} className="block text-sm font-medium text-ink-700">
-        {label}
-      </label>
-      <select
-        id={idOf(name)}
-        className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2"
-        {...register(
-          name as never,
-          onChange ? { onChange: (e) => onChange(e.target.value) } : undefined,
-        )}
-      >
-        {options.map(([v, l]) => (
-          <option key={v} value={v}>
-            {l}
-          </option>
-        ))}
-      </select>
-      {errors[name] ? (
-        <p role="alert" className="mt-1 text-sm text-danger-700">
-          ✕ {errors[name]}
-        </p>
-      ) : null}
-    </div>
+    <SelectField
+      key={name}
+      label={label}
+      id={idOf(name)}
+      error={errors[name]}
+      {...register(
+        name as never,
+        onChange ? { onChange: (e) => onChange(e.target.value) } : undefined,
+      )}
+    >
+      {options.map(([v, l]) => (
+        <option key={v} value={v}>
+          {l}
+        </option>
+      ))}
+    </SelectField>
   );
   const toggle = (key: Optional, label: string) => (
     <label className="flex items-center gap-2 text-sm">
@@ -339,32 +332,27 @@ export function BuildEditor(props: {
       (s) => idMm !== undefined && Math.abs(s.typicalHoseIdMm - idMm) < 0.05,
     );
     return (
-      <div>
-        <label htmlFor={`b-${side}-an`} className="block text-sm font-medium text-ink-700">
-          Hose size
-        </label>
-        <select
-          id={`b-${side}-an`}
-          value={match ? String(match.dash) : ""}
-          onChange={(e) => {
-            const s = AN_SIZES.find((x) => String(x.dash) === e.target.value);
-            if (s)
-              setValue(
-                `lines.${side}.insideDiameterMm` as never,
-                toShown("diameter", s.typicalHoseIdMm, units) as never,
-                { shouldDirty: true },
-              );
-          }}
-          className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2"
-        >
-          <option value="">Other (type the inside diameter)</option>
-          {AN_SIZES.map((s) => (
-            <option key={s.dash} value={s.dash}>
-              AN −{s.dash} (typical hose ID {s.typicalHoseIdMm} mm)
-            </option>
-          ))}
-        </select>
-      </div>
+      <SelectField
+        label="Hose size"
+        id={`b-${side}-an`}
+        value={match ? String(match.dash) : ""}
+        onChange={(e) => {
+          const s = AN_SIZES.find((x) => String(x.dash) === e.target.value);
+          if (s)
+            setValue(
+              `lines.${side}.insideDiameterMm` as never,
+              toShown("diameter", s.typicalHoseIdMm, units) as never,
+              { shouldDirty: true },
+            );
+        }}
+      >
+        <option value="">Other (type the inside diameter)</option>
+        {AN_SIZES.map((s) => (
+          <option key={s.dash} value={s.dash}>
+            AN −{s.dash} (typical hose ID {s.typicalHoseIdMm} mm)
+          </option>
+        ))}
+      </SelectField>
     );
   };
   const lineFields = (side: "feed" | "return") => [

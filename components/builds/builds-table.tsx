@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
 
+import { SelectField } from "@/components/ui/field";
 import { EmptyState, Signal } from "@/components/ui/status";
 import { BUILD_STATUSES, STATUS_LABELS, type BuildStatus } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
@@ -67,14 +68,12 @@ export function BuildsTable({
           placeholder="Customer, vehicle or title"
           className="rounded-md border border-ink-300 px-3 py-2"
         />
-        <label className="sr-only" htmlFor="bs">
-          Status
-        </label>
-        <select
+        <SelectField
+          bare
+          label="Status"
           id="bs"
           value={status}
           onChange={(e) => (setStatus(e.target.value as BuildStatus | ""), setCursors([]))}
-          className="rounded-md border border-ink-300 px-3 py-2"
         >
           <option value="">Any status</option>
           {BUILD_STATUSES.map((s) => (
@@ -82,15 +81,13 @@ export function BuildsTable({
               {STATUS_LABELS[s]}
             </option>
           ))}
-        </select>
-        <label className="sr-only" htmlFor="bt">
-          Tuner
-        </label>
-        <select
+        </SelectField>
+        <SelectField
+          bare
+          label="Tuner"
           id="bt"
           value={tuner}
           onChange={(e) => (setTuner(e.target.value), setCursors([]))}
-          className="rounded-md border border-ink-300 px-3 py-2"
         >
           <option value="">Any tuner</option>
           {tuners.map((t) => (
@@ -98,20 +95,18 @@ export function BuildsTable({
               {t.name}
             </option>
           ))}
-        </select>
-        <label className="sr-only" htmlFor="bo">
-          Sort
-        </label>
-        <select
+        </SelectField>
+        <SelectField
+          bare
+          label="Sort"
           id="bo"
           value={sort}
           onChange={(e) => (setSort(e.target.value as typeof sort), setCursors([]))}
-          className="rounded-md border border-ink-300 px-3 py-2"
         >
           <option value="updated">Recently changed</option>
           <option value="created">Newest</option>
           <option value="title">Title A–Z</option>
-        </select>
+        </SelectField>
         <span aria-live="polite" className="self-center text-sm text-ink-600">
           {isLoading ? "Loading…" : error ? `✕ ${error.message}` : ""}
         </span>

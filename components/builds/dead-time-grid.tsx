@@ -7,7 +7,7 @@ import {
   type UseFormSetValue,
 } from "react-hook-form";
 
-import { Button } from "@/components/ui/button";
+import { Button, LinkButton } from "@/components/ui/button";
 
 interface Table {
   voltages: (number | undefined)[];
@@ -89,15 +89,14 @@ export function DeadTimeGrid({
                     className={cell}
                     {...register(`injectors.deadTime.pressuresKpa.${j}`, n)}
                   />
-                  <button
-                    type="button"
-                    className="text-xs text-ink-500 underline"
+                  <LinkButton
+                    className="text-xs"
                     aria-label={`Remove pressure column ${j + 1}`}
                     onClick={() => dropCol(j)}
                     disabled={t.pressuresKpa.length < 2}
                   >
                     remove
-                  </button>
+                  </LinkButton>
                 </th>
               ))}
             </tr>
@@ -124,15 +123,14 @@ export function DeadTimeGrid({
                   </td>
                 ))}
                 <td>
-                  <button
-                    type="button"
-                    className="text-xs text-ink-500 underline"
+                  <LinkButton
+                    className="text-xs"
                     aria-label={`Remove voltage row ${i + 1}`}
                     onClick={() => dropRow(i)}
                     disabled={t.voltages.length < 2}
                   >
                     remove
-                  </button>
+                  </LinkButton>
                 </td>
               </tr>
             ))}

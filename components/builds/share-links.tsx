@@ -4,6 +4,7 @@ import { useState, useTransition } from "react";
 import useSWR from "swr";
 
 import { Button } from "@/components/ui/button";
+import { SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
 import { fetcher } from "@/lib/fetcher";
@@ -33,23 +34,18 @@ export function ShareLinks({ buildId }: { buildId: string }) {
         Share the spec sheet
       </h2>
       <div className="mt-2 flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor="share-days" className="block text-sm font-medium text-ink-700">
-            Link works for
-          </label>
-          <select
-            id="share-days"
-            value={days}
-            onChange={(e) => setDays(e.target.value)}
-            className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
-          >
-            {["1", "7", "14", "30", "90"].map((d) => (
-              <option key={d} value={d}>
-                {d} day{d === "1" ? "" : "s"}
-              </option>
-            ))}
-          </select>
-        </div>
+        <SelectField
+          label="Link works for"
+          id="share-days"
+          value={days}
+          onChange={(e) => setDays(e.target.value)}
+        >
+          {["1", "7", "14", "30", "90"].map((d) => (
+            <option key={d} value={d}>
+              {d} day{d === "1" ? "" : "s"}
+            </option>
+          ))}
+        </SelectField>
         <Button
           variant="secondary"
           disabled={pending}

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
 
+import { SelectField } from "@/components/ui/field";
 import { EmptyState } from "@/components/ui/status";
 import type { Part } from "@/db/schema/catalog";
 import { specSummary } from "@/lib/catalog/labels";
@@ -41,14 +42,12 @@ export function PartsTable({ currency, canEdit }: { currency: string; canEdit: b
           placeholder="SKU, name or brand"
           className="rounded-md border border-ink-300 px-3 py-2"
         />
-        <label className="sr-only" htmlFor="pc">
-          Category
-        </label>
-        <select
+        <SelectField
+          bare
+          label="Category"
           id="pc"
           value={category}
           onChange={(e) => setCategory(e.target.value)}
-          className="rounded-md border border-ink-300 px-3 py-2"
         >
           <option value="">All categories</option>
           {PART_CATEGORIES.map((c) => (
@@ -56,21 +55,19 @@ export function PartsTable({ currency, canEdit }: { currency: string; canEdit: b
               {CATEGORY_LABELS[c]}
             </option>
           ))}
-        </select>
-        <label className="sr-only" htmlFor="ps">
-          Sort
-        </label>
-        <select
+        </SelectField>
+        <SelectField
+          bare
+          label="Sort"
           id="ps"
           value={sort}
           onChange={(e) => setSort(e.target.value)}
-          className="rounded-md border border-ink-300 px-3 py-2"
         >
           <option value="name">Name</option>
           <option value="sku">SKU</option>
           <option value="price">Price, lowest first</option>
           <option value="stock">Free stock, lowest first</option>
-        </select>
+        </SelectField>
         <span aria-live="polite" className="self-center text-sm text-ink-600">
           {isLoading
             ? "Loading…"

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
+import { SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import {
@@ -348,24 +349,19 @@ function QuoteEditorForm({
       ) : null}
       {editable ? (
         <div className="flex flex-wrap items-end gap-3">
-          <div>
-            <label htmlFor="q-add-part" className="block text-sm font-medium text-ink-700">
-              Add a part
-            </label>
-            <select
-              id="q-add-part"
-              value={addPart}
-              onChange={(e) => setAddPart(e.target.value)}
-              className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
-            >
-              <option value="">Choose from the catalog…</option>
-              {props.catalog.map((p) => (
-                <option key={p.id} value={p.id}>
-                  {p.sku} — {p.label} ({p.free} free)
-                </option>
-              ))}
-            </select>
-          </div>
+          <SelectField
+            label="Add a part"
+            id="q-add-part"
+            value={addPart}
+            onChange={(e) => setAddPart(e.target.value)}
+          >
+            <option value="">Choose from the catalog…</option>
+            {props.catalog.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.sku} — {p.label} ({p.free} free)
+              </option>
+            ))}
+          </SelectField>
           <Button
             type="button"
             variant="secondary"

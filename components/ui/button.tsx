@@ -19,3 +19,21 @@ export function Button({
     />
   );
 }
+
+/**
+ * A button that reads as a link: an action in running text or a tight table cell ("remove",
+ * "Try again"). It still is a button — it acts on this page and never navigates.
+ */
+export function LinkButton({
+  className = "",
+  type = "button",
+  ...rest
+}: ButtonHTMLAttributes<HTMLButtonElement>) {
+  return (
+    <button
+      type={type}
+      className={`rounded-sm font-medium text-copper-700 underline underline-offset-2 hover:text-copper-600 disabled:cursor-not-allowed disabled:text-ink-400 disabled:no-underline ${className}`}
+      {...rest}
+    />
+  );
+}

@@ -1,12 +1,10 @@
-import type {
-  InputHTMLAttributes,
-  ReactNode,
-  SelectHTMLAttributes,
-  TextareaHTMLAttributes,
-} from "react";
+import type { ComponentProps, InputHTMLAttributes, ReactNode, TextareaHTMLAttributes } from "react";
 
 const control =
   "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30 aria-[invalid=true]:border-danger-600";
+
+const bareControl =
+  "block rounded-md border border-ink-300 bg-white px-3 py-2 text-ink-900 focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30";
 
 interface Common {
   label: string;
@@ -58,19 +56,25 @@ export function Field({
   );
 }
 
+/**
+ * A labelled select with its error under it. `bare` is the compact form for filter bars: the
+ * label is for screen readers only and the control takes its own width. A select that is no
+ * form field (a picker that fills other fields) may go without a `name`, given an `id`.
+ */
 export function SelectField({
   label,
   name,
   error,
   hint,
+  bare = false,
   children,
   ...rest
-}: Common & SelectHTMLAttributes<HTMLSelectElement>) {
+}: Omit<Common, "name"> & { name?: string; bare?: boolean } & ComponentProps<"select">) {
   const id = rest.id ?? `f-${name}`;
   const has = Boolean(error && error.length);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium text-ink-700">
+      <label htmlFor={id} className={bare ? "sr-only" : "block text-sm font-medium text-ink-700"}>
         {label}
       </label>
       <select
@@ -78,7 +82,7 @@ export function SelectField({
         name={name}
         aria-invalid={has}
         aria-describedby={has ? `${id}-err` : undefined}
-        className={control}
+        className={bare ? bareControl : control}
         {...rest}
       >
         {children}

@@ -8,6 +8,7 @@ import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { NotFound } from "@/lib/domain/errors";
 import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { formatDate } from "@/lib/format/dates";
 import { depositOf } from "@/lib/payments/deposit";
 
 import type { QuoteSheetData } from "./quote-sheet";
@@ -68,7 +69,7 @@ export async function quoteSheetData(
       ? {
           pct: String(depositBp / 100),
           amount: money(paid.amountMinor),
-          paid: paid.paidAt?.toISOString().slice(0, 10) ?? "",
+          paid: paid.paidAt ? formatDate(paid.paidAt) : "",
         }
       : showDeposit
         ? {

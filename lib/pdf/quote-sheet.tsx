@@ -1,5 +1,6 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 
+import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS } from "@/lib/safety";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
@@ -71,7 +72,7 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
           shop={d.shop}
           title={`Quote ${d.quote.label}`}
           lines={[
-            `${d.quote.status} · issued ${d.quote.createdAt.toISOString().slice(0, 10)}`,
+            `${d.quote.status} · issued ${formatDate(d.quote.createdAt)}`,
             `Valid until ${d.quote.validUntil}`,
           ]}
         />

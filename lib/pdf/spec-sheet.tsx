@@ -23,6 +23,7 @@ import {
   type UnitSystem,
 } from "@/lib/calc";
 import { type ChosenPart } from "@/lib/domain/builds";
+import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
@@ -114,7 +115,7 @@ function Verification({
       <Text style={s.h2}>Measured on the dyno</Text>
       <Text style={s.muted}>
         {pdfText(
-          `Verified ${v.verifiedAt.toISOString().slice(0, 10)} with the log ${v.fileName} (${a.samples} samples).`,
+          `Verified ${formatDate(v.verifiedAt)} with the log ${v.fileName} (${a.samples} samples).`,
         )}
       </Text>
       <View style={[s.row, { fontWeight: 700, marginTop: 3 }]}>
@@ -249,7 +250,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           shop={d.shop}
           title="Fuel system spec sheet"
           lines={[
-            `Revision ${d.build.version} · ${d.build.savedAt.toISOString().slice(0, 10)}`,
+            `Revision ${d.build.version} · ${formatDate(d.build.savedAt)}`,
             `Tuner: ${d.build.tunerName ?? "-"}`,
           ]}
         />

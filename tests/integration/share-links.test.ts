@@ -44,7 +44,7 @@ describe("share links", () => {
     const tampered = `/share/${token.slice(0, -1)}${token.endsWith("A") ? "B" : "A"}`;
     for (const bad of [tampered, "/share/nonsense", `/share/${"x".repeat(200)}.y`]) {
       const r = await request(null, "GET", bad);
-      expect(r.status).toBe(200);
+      expect(r.status).toBe(404);
       expect(r.text).toContain("This link is not valid");
       expect(r.text).not.toContain("Twin-turbo V8");
       expect((await request(null, "GET", `${bad}/pdf`)).status).toBe(404);

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useRef, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
+import { LocalTime } from "@/components/ui/local-time";
 import { FormStatus } from "@/components/ui/status";
 import { api } from "@/lib/api-client";
 
@@ -67,7 +68,8 @@ export function LogoUpload({
             data-testid="logo-preview"
           />
           <p className="text-sm text-ink-600">
-            {logo.width} × {logo.height} px, uploaded {logo.uploadedAt}
+            {logo.width} × {logo.height} px, uploaded{" "}
+            <LocalTime value={logo.uploadedAt} kind="date" />
           </p>
         </div>
       ) : (

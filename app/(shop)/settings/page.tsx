@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { logoFacts } from "@/db/queries/logos";
 import { listMembers, listPendingInvitations } from "@/db/queries/members";
@@ -76,7 +77,7 @@ export default async function SettingsPage() {
                     width: logo.width,
                     height: logo.height,
                     version: logo.sha256.slice(0, 12),
-                    uploadedAt: logo.uploadedAt.toISOString().slice(0, 10),
+                    uploadedAt: logo.uploadedAt.toISOString(),
                   }
                 : null
             }
@@ -116,7 +117,7 @@ export default async function SettingsPage() {
                   {invitations.map((i) => (
                     <li key={i.id}>
                       {i.email} — {isRole(i.role) ? ROLE_LABELS[i.role] : i.role}, until{" "}
-                      {i.expiresAt.toISOString().slice(0, 10)}
+                      <LocalTime value={i.expiresAt} kind="date" />
                     </li>
                   ))}
                 </ul>

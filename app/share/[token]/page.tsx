@@ -1,5 +1,7 @@
 import type { Metadata } from "next";
+import { notFound } from "next/navigation";
 
+import { LocalTime } from "@/components/ui/local-time";
 import { getBuild } from "@/db/queries/builds";
 import { checkShareToken } from "@/db/queries/shares";
 import { getShopSettings } from "@/db/queries/shops";
@@ -7,16 +9,19 @@ import { getShopSettings } from "@/db/queries/shops";
 export const metadata: Metadata = { title: "Shared spec sheet", robots: { index: false } };
 
 const REASONS = {
-  invalid: "This link is not valid.",
   expired: "This link has expired.",
   revoked: "This link was withdrawn by the shop.",
 };
 
-/** The landing page of a share link: the build's name and its spec sheet, or a clear refusal with no data. */
+/**
+ * The landing page of a share link: the build's name and its spec sheet, or a clear refusal
+ * with no data. A link that never existed (or was tampered with) is this route's not-found page.
+ */
 export default async function SharedSheetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const check = await checkShareToken(token);
   if (!check.ok) {
+    if (check.reason === "invalid") notFound();
     return (
       <main className="mx-auto max-w-xl p-8">
         <h1 className="font-display text-2xl font-semibold">Spec sheet not available</h1>
@@ -42,7 +47,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
         Download the spec sheet (PDF)
       </a>
       <p className="mt-2 text-sm text-ink-600">
-        This link works until {check.link.expiresAt.toISOString().slice(0, 10)}.
+        This link works until <LocalTime value={check.link.expiresAt} />.
       </p>
       <p className="mt-6 text-sm text-ink-600">
         Fuel burns: have the system fitted and checked by qualified people, following local codes.

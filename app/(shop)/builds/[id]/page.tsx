@@ -6,20 +6,23 @@ import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
 import { SafetyNote } from "@/components/tools/safety-note";
+import { LocalTime } from "@/components/ui/local-time";
 import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Build sheet" };
 
 export default async function BuildPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("builds:read");
-  const { id } = await params;
-  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const [revisions, bsfcRows] = await Promise.all([
     listRevisions(m.shopId, id),
@@ -78,7 +81,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
               <span className="figure w-12 font-semibold">v{r.version}</span>
               <span className="w-20">{STATUS_LABELS[r.status]}</span>
               <span className="figure w-44 text-ink-600">
-                {r.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+                <LocalTime value={r.createdAt} />
               </span>
               <span className="flex-1">{r.note ?? ""}</span>
               <Link

@@ -6,6 +6,7 @@ import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
 import { STATUS_LABELS } from "@/lib/domain/builds";
+import { idOrNotFound } from "@/lib/ids";
 
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";
@@ -13,8 +14,8 @@ import { PortalAccess } from "./portal-access";
 
 export default async function CustomerPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("customers:read");
-  const { id } = await params;
-  const c = /^[0-9a-f-]{36}$/i.test(id) ? await getCustomer(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const c = await getCustomer(m.shopId, id);
   if (!c) notFound();
   const { builds } = await listBuilds(m.shopId, { customerId: c.id, limit: 50 });
   return (

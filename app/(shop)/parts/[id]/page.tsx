@@ -5,14 +5,15 @@ import { PartForm } from "@/components/parts/part-form";
 import { PageHeader } from "@/components/ui/status";
 import { getPart } from "@/db/queries/parts";
 import { requirePageMember } from "@/lib/auth/member";
+import { idOrNotFound } from "@/lib/ids";
 import { flatOf } from "@/lib/validations/parts";
 
 export const metadata: Metadata = { title: "Part" };
 
 export default async function PartPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("parts:write");
-  const { id } = await params;
-  const p = /^[0-9a-f-]{36}$/i.test(id) ? await getPart(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const p = await getPart(m.shopId, id);
   if (!p) notFound();
   return (
     <>

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { QuoteEditor } from "@/components/quotes/quote-editor";
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listParts } from "@/db/queries/parts";
 import { listPayments } from "@/db/queries/payments";
@@ -11,6 +12,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Quote" };
 
@@ -22,8 +24,8 @@ const PAYMENT_LABELS = {
 
 export default async function QuotePage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("quotes:read");
-  const { id } = await params;
-  const q = /^[0-9a-f-]{36}$/i.test(id) ? await getQuote(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const q = await getQuote(m.shopId, id);
   if (!q) notFound();
   const canWrite = can(m.role, "quotes:write");
   const catalog = canWrite
@@ -67,9 +69,12 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
             </Link>
           </>
         ) : null}
-        {qt.statusChangedAt
-          ? ` · ${QUOTE_STATUS_LABELS[qt.status]} ${qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC`
-          : ""}
+        {qt.statusChangedAt ? (
+          <>
+            {` · ${QUOTE_STATUS_LABELS[qt.status]} `}
+            <LocalTime value={qt.statusChangedAt} />
+          </>
+        ) : null}
       </p>
       <QuoteEditor
         key={qt.id}
@@ -112,9 +117,17 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
               <li key={p.id}>
                 <span className="figure">{formatMoney(p.amountMinor, p.currency)}</span> —{" "}
                 {PAYMENT_LABELS[p.status]}
-                {p.paidAt
-                  ? ` ${p.paidAt.toISOString().replace("T", " ").slice(0, 16)} UTC`
-                  : ` (checkout opened ${p.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC)`}
+                {p.paidAt ? (
+                  <>
+                    {" "}
+                    <LocalTime value={p.paidAt} />
+                  </>
+                ) : (
+                  <>
+                    {" (checkout opened "}
+                    <LocalTime value={p.createdAt} />)
+                  </>
+                )}
               </li>
             ))}
           </ul>
@@ -133,10 +146,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           <ul className="mt-2 space-y-1 text-sm" data-testid="quote-messages">
             {q.messages.map((msg) => (
               <li key={msg.id}>
-                <span className="figure">
-                  {msg.sentAt.toISOString().replace("T", " ").slice(0, 16)} UTC
-                </span>{" "}
-                to {msg.to}: “{msg.subject}”
+                <LocalTime value={msg.sentAt} className="figure" /> to {msg.to}: “{msg.subject}”
               </li>
             ))}
           </ul>

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
@@ -12,6 +13,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 
 export const metadata: Metadata = { title: "My quote" };
@@ -34,9 +36,9 @@ export default async function MyQuotePage({
   searchParams: Promise<{ payment?: string }>;
 }) {
   const m = await requirePageMember("portal:view");
-  const { id } = await params;
+  const id = idOrNotFound((await params).id);
   const note = PAYMENT_NOTES[(await searchParams).payment ?? ""];
-  const q = /^[0-9a-f-]{36}$/i.test(id) ? await getQuote(m.shopId, id, m.user.id) : null;
+  const q = await getQuote(m.shopId, id, m.user.id);
   if (!q) notFound();
   const qt = q.quote;
   const money = (v: number) => formatMoney(v, qt.currency);
@@ -119,15 +121,14 @@ export default async function MyQuotePage({
       {paid.map((p) => (
         <p key={p.id} className="mt-4 text-sm text-ok-700" data-testid="deposit-paid">
           ✓ Deposit of {formatMoney(p.amountMinor, p.currency)} paid{" "}
-          {p.paidAt?.toISOString().replace("T", " ").slice(0, 16)} UTC.
+          {p.paidAt ? <LocalTime value={p.paidAt} /> : null}.
         </p>
       ))}
       {qt.status === "sent" ? (
         <QuoteDecision id={qt.id} />
       ) : qt.statusChangedAt ? (
         <p className="mt-4 text-sm text-ink-700" data-testid="decision">
-          {QUOTE_STATUS_LABELS[qt.status]} on{" "}
-          {qt.statusChangedAt.toISOString().replace("T", " ").slice(0, 16)} UTC.
+          {QUOTE_STATUS_LABELS[qt.status]} on <LocalTime value={qt.statusChangedAt} />.
         </p>
       ) : null}
       <p className="mt-6 text-sm text-ink-600">

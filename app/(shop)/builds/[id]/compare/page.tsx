@@ -2,12 +2,15 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
+import { SelectField } from "@/components/ui/field";
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getBuild, getRevision, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { compareKeyFigures, diffInputs } from "@/lib/builds/diff";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import type { FuelSystemResult } from "@/lib/calc";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
@@ -25,9 +28,8 @@ export default async function CompareRevisionsPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const m = await requirePageMember("builds:read");
-  const { id } = await params;
+  const id = idOrNotFound((await params).id);
   const sp = await searchParams;
-  if (!/^[0-9a-f-]{36}$/i.test(id)) notFound();
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const latest = row.build.version;
@@ -42,24 +44,14 @@ export default async function CompareRevisionsPage({
   const changes = a && b ? diffInputs(readStoredInputs(a), readStoredInputs(b), units) : [];
   const figures = a && b ? compareKeyFigures(a.result, b.result, units) : [];
   const picker = (name: string, value: number, label: string) => (
-    <div>
-      <label htmlFor={`cmp-${name}`} className="block text-sm font-medium text-ink-700">
-        {label}
-      </label>
-      <select
-        id={`cmp-${name}`}
-        name={name}
-        defaultValue={value}
-        className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
-      >
-        {revisions.map((r) => (
-          <option key={r.version} value={r.version}>
-            Version {r.version}
-            {r.note ? ` — ${r.note}` : ""}
-          </option>
-        ))}
-      </select>
-    </div>
+    <SelectField label={label} id={`cmp-${name}`} name={name} defaultValue={value}>
+      {revisions.map((r) => (
+        <option key={r.version} value={r.version}>
+          Version {r.version}
+          {r.note ? ` — ${r.note}` : ""}
+        </option>
+      ))}
+    </SelectField>
   );
   return (
     <>

@@ -9,14 +9,15 @@ import { listDatalogs } from "@/db/queries/datalogs";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { STATUS_LABELS } from "@/lib/domain/builds";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Dyno verification" };
 
 /** Dyno logs of one build: upload, map columns, measured against predicted, mark verified. */
 export default async function DynoPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("datalogs:read");
-  const { id } = await params;
-  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const logs = await listDatalogs(m.shopId, id);
   return (

@@ -9,13 +9,14 @@ import { getBuild } from "@/db/queries/builds";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
+import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Parts kit" };
 
 export default async function KitPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("parts:read");
-  const { id } = await params;
-  const row = /^[0-9a-f-]{36}$/i.test(id) ? await getBuild(m.shopId, id) : null;
+  const id = idOrNotFound((await params).id);
+  const row = await getBuild(m.shopId, id);
   if (!row) notFound();
   const s = await getShopSettings(m.shopId);
   return (

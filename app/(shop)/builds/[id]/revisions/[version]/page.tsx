@@ -2,6 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { ResultsPanel } from "@/components/builds/results-panel";
+import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild, getRevision } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
@@ -9,7 +10,9 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { diffInputs } from "@/lib/builds/diff";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import type { FuelSystemResult } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
+import { idOrNotFound } from "@/lib/ids";
 
 import { RestoreButton } from "./restore-button";
 
@@ -19,9 +22,10 @@ export default async function RevisionPage({
   params: Promise<{ id: string; version: string }>;
 }) {
   const m = await requirePageMember("builds:read");
-  const { id, version } = await params;
+  const { id: rawId, version } = await params;
+  const id = idOrNotFound(rawId);
   const v = Number(version);
-  if (!/^[0-9a-f-]{36}$/i.test(id) || !Number.isInteger(v) || v < 1) notFound();
+  if (!Number.isInteger(v) || v < 1) notFound();
   const [row, rev] = await Promise.all([getBuild(m.shopId, id), getRevision(m.shopId, id, v)]);
   if (!row || !rev) notFound();
   const latest = row.build.version === v;
@@ -53,8 +57,7 @@ export default async function RevisionPage({
         </div>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
-        Read-only. {STATUS_LABELS[rev.status]}, saved{" "}
-        {rev.createdAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+        Read-only. {STATUS_LABELS[rev.status]}, saved <LocalTime value={rev.createdAt} />
         {rev.note ? ` — ${rev.note}` : ""}. Figures as computed then (library{" "}
         {rev.calcVersion ?? "?"}).
       </p>

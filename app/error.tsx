@@ -1,0 +1,12 @@
+"use client";
+
+import { ErrorNotice } from "@/components/ui/error-notice";
+
+/** Errors of a route group's own layout (its session check, say): the notice without the frame. */
+export default function RootError({ error, retry }: { error: unknown; retry: () => void }) {
+  return (
+    <main className="px-4 py-10">
+      <ErrorNotice error={error} retry={retry} />
+    </main>
+  );
+}
