@@ -2,6 +2,7 @@ import { getSessionCookie } from "better-auth/cookies";
 import { NextResponse, type NextRequest } from "next/server";
 
 import { databaseAnswering, UNAVAILABLE_HTML } from "@/lib/http/db-health";
+import { crossSiteRefusal } from "@/lib/http/same-origin";
 import { pageCsp } from "@/lib/http/security";
 
 const PUBLIC = [
@@ -32,6 +33,16 @@ export async function proxy(req: NextRequest) {
         "content-security-policy": csp,
       },
     });
+  }
+  // Server actions are POSTs to page paths; one from another site is refused before it runs.
+  if (req.headers.has("next-action")) {
+    const refusal = crossSiteRefusal(req);
+    if (refusal) {
+      return NextResponse.json(
+        { error: { code: "cross_site", message: refusal, issues: [] } },
+        { status: 403 },
+      );
+    }
   }
   const { pathname } = req.nextUrl;
   if (

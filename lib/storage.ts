@@ -2,8 +2,8 @@ import "server-only";
 
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 
+import { Unavailable } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
-import { HttpError } from "@/lib/http/http-error";
 
 let client: S3Client | undefined;
 
@@ -24,10 +24,10 @@ async function storage<T>(call: () => Promise<T>): Promise<T> {
     return await call();
   } catch (e) {
     console.error("object storage:", (e as Error).message);
-    throw new HttpError(
-      503,
-      "storage_unavailable",
+    throw new Unavailable(
       "File storage is not answering; nothing was stored. Try again in a moment.",
+      "storage_unavailable",
+      "self",
     );
   }
 }

@@ -3,11 +3,12 @@
 import { useEffect, useMemo, useState, useTransition } from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
-import { saveBuildAction, type SaveBuildState } from "@/app/(shop)/builds/[id]/actions";
-import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
+import { initialActionState, type ActionState } from "@/lib/actions/state";
+import { saveBuildAction } from "@/lib/builds/build-actions";
+import type { BuildResult, CurrentBuildData } from "@/lib/builds/build-data";
 import { diffInputs, stableJson } from "@/lib/builds/diff";
 import {
   AN_SIZES,
@@ -174,10 +175,15 @@ export function BuildEditor(props: {
   readOnly: boolean;
   units: UnitSystem;
   shopBsfc?: ShopBsfcRow[];
+  /** Keeps the person's unit choice (the preferences action, passed in by the page). */
+  setUnitsAction: (prev: ActionState, form: FormData) => Promise<ActionState>;
 }) {
   const [version, setVersion] = useState(props.version);
   const [units, setUnits] = useState<UnitSystem>(props.units);
-  const [saved, setSaved] = useState<SaveBuildState | null>(null);
+  const [saved, setSaved] = useState<ActionState<BuildResult> | null>(null);
+  // On a stale version: the build as someone else saved it meanwhile.
+  const conflict =
+    saved && !saved.ok && saved.status === 409 ? (saved.current as CurrentBuildData) : null;
   // The canonical inputs, title and status as last saved: what "unsaved changes" compares against.
   const [baseline, setBaseline] = useState({
     inputs: props.inputs,
@@ -213,7 +219,7 @@ export function BuildEditor(props: {
     const out: Record<string, string> = {};
     if (!parsed.success) for (const i of parsed.error.issues) out[i.path.join(".")] ??= i.message;
     for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
-      out[k.replace(/^inputs\./, "")] ??= v;
+      if (v[0]) out[k.replace(/^inputs\./, "")] ??= v[0];
     return out;
   }, [parsed, saved]);
 
@@ -250,27 +256,29 @@ export function BuildEditor(props: {
     setUnits(next);
     const form = new FormData();
     form.set("units", next);
-    void setUnitsAction({ ok: true }, form);
+    void props.setUnitsAction(initialActionState, form);
   };
 
   const save = () =>
     start(async () => {
       const v = getValues();
-      const res = await saveBuildAction(props.buildId, {
+      const res = await saveBuildAction(initialActionState, {
+        id: props.buildId,
         version,
         title: v.title,
         status: v.status,
         inputs,
       });
-      setSaved(res);
-      if (res.ok) {
-        setVersion(res.version);
+      if (res.ok && res.data) {
+        const saved = res.data.build.version;
+        setSaved({ ...res, message: `Saved as version ${saved}` });
+        setVersion(saved);
         setBaseline({
-          inputs: parsed.success ? (parsed.data as FuelSystemInput) : inputs,
+          inputs: parsed.success ? parsed.data : inputs,
           title: v.title,
           status: v.status,
         });
-      }
+      } else setSaved(res);
     });
 
   const unitOf = (name: string, fallback: string) => {
@@ -372,8 +380,7 @@ export function BuildEditor(props: {
     num(`lines.${side}.filterDropKpa`, "Filter drop", "kPa"),
   ];
   const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
-  const conflictChanges =
-    saved && !saved.ok && saved.conflict ? diffInputs(inputs, saved.conflict.inputs, units) : [];
+  const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
@@ -574,13 +581,13 @@ export function BuildEditor(props: {
                 {dirty ? " · unsaved changes" : ""}
               </span>
               <FormStatus ok={saved?.ok} message={saved?.message} />
-              {saved && !saved.ok && saved.conflict ? (
+              {conflict ? (
                 <div className="w-full text-sm text-caution-700" data-testid="conflict">
                   <p>
-                    ▲ {saved.conflict.authorName ?? "Someone"} saved version{" "}
-                    {saved.conflict.version} (“{saved.conflict.title}”) at{" "}
-                    {saved.conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC. Your entries are
-                    still here; nothing was overwritten. Reload to take theirs, then re-apply yours.
+                    ▲ {conflict.updatedByName ?? "Someone"} saved version {conflict.version} (“
+                    {conflict.title}”) at {conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC.
+                    Your entries are still here; nothing was overwritten. Reload to take theirs,
+                    then re-apply yours.
                   </p>
                   {conflictChanges.length > 0 ? (
                     <table className="mt-2 w-full text-left text-ink-800">

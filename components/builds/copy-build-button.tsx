@@ -2,9 +2,10 @@
 
 import { useState, useTransition } from "react";
 
-import { copyBuildAction } from "@/app/(shop)/builds/[id]/copy-actions";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
+import { initialActionState } from "@/lib/actions/state";
+import { copyBuildAction } from "@/lib/builds/build-actions";
 
 export function CopyBuildButton({ buildId }: { buildId: string }) {
   const [pending, start] = useTransition();
@@ -14,7 +15,12 @@ export function CopyBuildButton({ buildId }: { buildId: string }) {
       <Button
         variant="secondary"
         disabled={pending}
-        onClick={() => start(async () => setMessage((await copyBuildAction(buildId)).message))}
+        onClick={() =>
+          start(async () =>
+            // On success the action opens the new build; only a refusal comes back.
+            setMessage((await copyBuildAction(initialActionState, { id: buildId })).message),
+          )
+        }
       >
         {pending ? "Copying…" : "Copy as next power step"}
       </Button>

@@ -5,8 +5,9 @@ import useSWR from "swr";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState } from "@/lib/actions/state";
 import { fetcher } from "@/lib/fetcher";
+import { createShareLinkAction, revokeShareLinkAction } from "@/lib/shares/share-actions";
 
 interface Link {
   id: string;
@@ -54,16 +55,15 @@ export function ShareLinks({ buildId }: { buildId: string }) {
           disabled={pending}
           onClick={() =>
             start(async () => {
-              const res = await api<{ url: string }>(
-                "POST",
-                `/api/v1/builds/${buildId}/share-links`,
-                { days: Number(days) },
-              );
-              if (res.ok) {
+              const res = await createShareLinkAction(initialActionState, {
+                buildId,
+                days: Number(days),
+              });
+              if (res.ok && res.data) {
                 setUrl(res.data.url);
                 setStatus({ ok: true, message: "Link made: copy it now, it is shown only once" });
                 await mutate();
-              } else setStatus({ ok: false, message: res.message });
+              } else setStatus({ ok: false, message: res.message ?? "The link was not made" });
             })
           }
         >
@@ -110,11 +110,11 @@ export function ShareLinks({ buildId }: { buildId: string }) {
                         "Withdraw this link? Anyone holding it loses access at once.",
                       ) &&
                       start(async () => {
-                        const res = await api("DELETE", `/api/v1/share-links/${l.id}`);
+                        const res = await revokeShareLinkAction(initialActionState, { id: l.id });
                         setStatus(
-                          res.ok || res.status === 204
+                          res.ok
                             ? { ok: true, message: "Link withdrawn" }
-                            : { ok: false, message: res.message },
+                            : { ok: false, message: res.message ?? "The link was not withdrawn" },
                         );
                         await mutate();
                       })

@@ -17,7 +17,8 @@ import useSWR from "swr";
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { FormStatus, Signal } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState } from "@/lib/actions/state";
+import { analyseDatalogAction, verifyDatalogAction } from "@/lib/dyno/dyno-actions";
 import { fetcher } from "@/lib/fetcher";
 
 const COPPER = "#b3592c";
@@ -288,32 +289,32 @@ function LogPanel({ id, canWrite }: { id: string; canWrite: boolean }) {
           ([, v]) => v !== undefined && (typeof v === "string" ? v : v.column),
         ),
       );
-      const r = await api<{ analysis: Analysis; series: Point[] }>(
-        "POST",
-        `/api/v1/datalogs/${id}/analysis`,
-        { mapping: clean },
-      );
-      if (r.ok) {
+      const r = await analyseDatalogAction(initialActionState, { id, mapping: clean });
+      if (r.ok && r.data) {
         setResult(r.data);
         setIssues({});
       } else {
+        // Field paths like `mapping.duty.column`: the issue goes to its role's column picker.
         setIssues(
           Object.fromEntries(
-            r.issues.map((i) => [i.path.replace(/^mapping\./, "").split(".")[0]!, i.message]),
+            Object.entries(r.fieldErrors ?? {}).map(([path, messages]) => [
+              path.replace(/^mapping\./, "").split(".")[0]!,
+              messages[0] ?? "",
+            ]),
           ),
         );
-        setMessage({ ok: false, message: r.message });
+        setMessage({ ok: false, message: r.message ?? "The pull was not analysed" });
       }
     });
   const verify = () => {
     if (!window.confirm("Mark the build verified with this log? It is saved as a new revision."))
       return;
     start(async () => {
-      const r = await api("POST", `/api/v1/datalogs/${id}/verify`);
+      const r = await verifyDatalogAction(initialActionState, { id });
       setMessage(
         r.ok
           ? { ok: true, message: "The build is verified with this log" }
-          : { ok: false, message: r.message },
+          : { ok: false, message: r.message ?? "The build was not verified" },
       );
       if (r.ok) router.refresh();
     });

@@ -6,7 +6,9 @@ import useSWR from "swr";
 
 import { Button } from "@/components/ui/button";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
+import { initialActionState } from "@/lib/actions/state";
 import { api } from "@/lib/api-client";
+import { chooseKitAction } from "@/lib/builds/build-actions";
 import { formatMoney } from "@/lib/catalog/money";
 import type { Candidate } from "@/lib/catalog/recommend";
 import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
@@ -80,12 +82,12 @@ export function KitPicker({
         const [partId, qty] = v.split(":");
         return [{ role: r.role, partId: partId!, quantity: Number(qty) }];
       });
-      const res = await api<{ build: { version: number } }>(
-        "POST",
-        `/api/v1/builds/${buildId}/kit`,
-        { version: data.buildVersion, parts },
-      );
-      if (res.ok) {
+      const res = await chooseKitAction(initialActionState, {
+        id: buildId,
+        version: data.buildVersion,
+        parts,
+      });
+      if (res.ok && res.data) {
         setStatus({
           ok: true,
           message: `Parts written into the build as version ${res.data.build.version}`,
@@ -93,7 +95,7 @@ export function KitPicker({
         await mutate();
         setPick({});
         router.refresh();
-      } else setStatus({ ok: false, message: res.message });
+      } else setStatus({ ok: false, message: res.message ?? "The parts were not written" });
     });
 
   const quote = () =>

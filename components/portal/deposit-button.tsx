@@ -4,7 +4,8 @@ import { useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState } from "@/lib/actions/state";
+import { startDepositAction } from "@/lib/quotes/quote-actions";
 
 /** Opens the payment provider's checkout for the deposit on an accepted quote. */
 export function DepositButton({ id, amount }: { id: string; amount: string }) {
@@ -13,9 +14,9 @@ export function DepositButton({ id, amount }: { id: string; amount: string }) {
   const pay = () =>
     start(async () => {
       setError(undefined);
-      const res = await api<{ url: string }>("POST", `/api/v1/quotes/${id}/deposit`);
-      if (res.ok) window.location.assign(res.data.url);
-      else setError(res.message);
+      const res = await startDepositAction(initialActionState, { id });
+      if (res.ok && res.data) window.location.assign(res.data.url);
+      else setError(res.message ?? "The checkout did not open; try again");
     });
   return (
     <div className="mt-6 rounded-lg border border-copper-100 bg-copper-50 p-4">

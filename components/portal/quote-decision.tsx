@@ -1,15 +1,14 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState } from "@/lib/actions/state";
+import { respondToQuoteAction } from "@/lib/quotes/quote-actions";
 
 /** Accept or decline buttons on the customer's own sent quote. */
 export function QuoteDecision({ id }: { id: string }) {
-  const router = useRouter();
   const [pending, start] = useTransition();
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const decide = (decision: "accept" | "decline") => {
@@ -22,13 +21,13 @@ export function QuoteDecision({ id }: { id: string }) {
     )
       return;
     start(async () => {
-      const res = await api("POST", `/api/v1/quotes/${id}/respond`, { decision });
+      // The action revalidates this page, which then shows the decision.
+      const res = await respondToQuoteAction(initialActionState, { id, decision });
       setStatus(
         res.ok
           ? { ok: true, message: decision === "accept" ? "Accepted — thank you" : "Declined" }
-          : { ok: false, message: res.message },
+          : { ok: false, message: res.message ?? "That did not work" },
       );
-      if (res.ok) router.refresh();
     });
   };
   return (

@@ -5,7 +5,7 @@ import { useMemo, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
-import { api } from "@/lib/api-client";
+import { initialActionState, type ActionState } from "@/lib/actions/state";
 import {
   formatMoney,
   formatScaled,
@@ -15,6 +15,12 @@ import {
 } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_NEXT, QUOTE_STATUS_LABELS, type QuoteStatus } from "@/lib/domain/quotes";
+import {
+  changeQuoteStatusAction,
+  editQuoteAction,
+  reviseQuoteAction,
+  sendQuoteAction,
+} from "@/lib/quotes/quote-actions";
 
 export interface EditorLine {
   kind: "part" | "labour" | "fee";
@@ -78,6 +84,13 @@ type EditorProps = {
   customerEmail: string | null;
 };
 type Outcome = { ok: boolean; message: string } | null;
+
+/** A refused action's message, with the first field's own message when it names fields. */
+function refusal(state: ActionState): string {
+  const first = Object.values(state.fieldErrors ?? {})[0]?.[0];
+  const message = state.message ?? "That did not work";
+  return first && first !== message ? `${message}: ${first}` : message;
+}
 
 /**
  * The quote editor. The form starts afresh from the saved quote whenever its version changes;
@@ -152,35 +165,30 @@ function QuoteEditorForm({
         unitPriceMinor: parsed[i]!.unitPriceMinor!,
         discountBp: parsed[i]!.discountBp ?? 0,
       }));
-      const res = await api("PATCH", `/api/v1/quotes/${props.id}`, {
+      const res = await editQuoteAction(initialActionState, {
+        id: props.id,
         version: props.version,
         validUntil,
         notes,
         lines,
       });
       setStatus(
-        res.ok
-          ? { ok: true, message: "Quote saved" }
-          : {
-              ok: false,
-              message: res.issues[0] ? `${res.message}: ${res.issues[0].message}` : res.message,
-            },
+        res.ok ? { ok: true, message: "Quote saved" } : { ok: false, message: refusal(res) },
       );
-      if (res.ok) router.refresh();
     });
-  const post = (path: string, body: unknown, done: string, label: string) =>
+  /** Runs a quote action; the page shows the result (the action revalidates it). */
+  const run = <T,>(
+    label: string,
+    done: string,
+    call: () => Promise<ActionState<T>>,
+    then?: (data: T) => void,
+  ) =>
     start(async () => {
       setBusy(label);
-      const res = await api<{ quote?: { id: string } }>(
-        "POST",
-        `/api/v1/quotes/${props.id}/${path}`,
-        body,
-      );
+      const res = await call();
       setBusy("");
-      setStatus(res.ok ? { ok: true, message: done } : { ok: false, message: res.message });
-      if (res.ok && path === "revise" && res.data.quote)
-        router.push(`/quotes/${res.data.quote.id}`);
-      else if (res.ok) router.refresh();
+      setStatus(res.ok ? { ok: true, message: done } : { ok: false, message: refusal(res) });
+      if (res.ok && then) then(res.data as T);
     });
 
   const dirty =
@@ -470,7 +478,11 @@ function QuoteEditorForm({
                     ? "Save first"
                     : undefined
               }
-              onClick={() => post("send", undefined, `Sent to ${props.customerEmail}`, "send")}
+              onClick={() =>
+                run("send", `Sent to ${props.customerEmail}`, () =>
+                  sendQuoteAction(initialActionState, { id: props.id }),
+                )
+              }
             >
               {busy === "send"
                 ? "Sending…"
@@ -492,11 +504,8 @@ function QuoteEditorForm({
                     !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)
                   )
                     return;
-                  post(
-                    "status",
-                    { status: s },
-                    `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`,
-                    s,
+                  run(s, `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`, () =>
+                    changeQuoteStatusAction(initialActionState, { id: props.id, status: s }),
                   );
                 }}
               >
@@ -510,7 +519,13 @@ function QuoteEditorForm({
               onClick={() =>
                 window.confirm(
                   "Make a new editable revision? This one is replaced and its stock released.",
-                ) && post("revise", undefined, "New revision made", "revise")
+                ) &&
+                run(
+                  "revise",
+                  "New revision made",
+                  () => reviseQuoteAction(initialActionState, { id: props.id }),
+                  (revision) => router.push(`/quotes/${revision.id}`),
+                )
               }
             >
               Revise quote

@@ -2,21 +2,11 @@ import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm"
 
 import { db } from "@/db";
 import { buildRevisions, builds, customers, member, user, type Build } from "@/db/schema";
-import type { FuelSystemResult } from "@/lib/calc";
+import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { type BuildStatus, type ChosenPart } from "@/lib/domain/builds";
-import { HttpError } from "@/lib/http/http-error";
+import { Conflict, NotFound } from "@/lib/domain/errors";
 
 import { escapeLike } from "./like";
-
-export class ConflictError extends HttpError {
-  constructor(readonly current: Build) {
-    super(
-      409,
-      "conflict",
-      `Someone saved this build meanwhile (now version ${current.version}); nothing was overwritten`,
-    );
-  }
-}
 
 export const BUILD_SORTS = ["updated", "created", "title"] as const;
 export type BuildSort = (typeof BUILD_SORTS)[number];
@@ -162,6 +152,26 @@ export async function listBuildsOfPortalUser(shopId: string, userId: string) {
     .orderBy(desc(builds.updatedAt));
 }
 
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** What a build's save writes; keys left out keep their stored value. */
+export interface BuildPatch {
+  title?: string;
+  /** An empty string clears it. */
+  vehicle?: string;
+  status?: BuildStatus;
+  note?: string;
+  /** Inputs, their format, the result and the library version go together. */
+  sized?: {
+    inputs: ParsedFuelSystemInput;
+    inputsSchemaVersion: number;
+    result: FuelSystemResult;
+    calcVersion: string;
+  };
+  parts?: ChosenPart[];
+}
+
+/** A new build with its revision 1. The customer must be the shop's (the command checks it). */
 export async function createBuild(
   shopId: string,
   userId: string,
@@ -169,18 +179,10 @@ export async function createBuild(
     customerId: string;
     title: string;
     vehicle?: string;
-    inputs: unknown;
-    result: FuelSystemResult | null;
-    calcVersion: string;
+    sized: NonNullable<BuildPatch["sized"]>;
   },
 ) {
   return db.transaction(async (tx) => {
-    const [c] = await tx
-      .select({ id: customers.id })
-      .from(customers)
-      .where(and(eq(customers.shopId, shopId), eq(customers.id, v.customerId)))
-      .limit(1);
-    if (!c) throw new HttpError(422, "invalid_input", "That customer is not in this shop");
     const [b] = await tx
       .insert(builds)
       .values({
@@ -188,9 +190,7 @@ export async function createBuild(
         customerId: v.customerId,
         title: v.title,
         vehicle: v.vehicle || null,
-        inputs: v.inputs,
-        result: v.result,
-        calcVersion: v.calcVersion,
+        ...v.sized,
         tunerId: userId,
         createdBy: userId,
         updatedBy: userId,
@@ -201,9 +201,7 @@ export async function createBuild(
       buildId: b!.id,
       version: 1,
       status: b!.status,
-      inputs: v.inputs,
-      result: v.result,
-      calcVersion: v.calcVersion,
+      ...v.sized,
       authorId: userId,
       note: "Created",
     });
@@ -211,27 +209,23 @@ export async function createBuild(
   });
 }
 
+/** The build as it is now, with the name of who saved it last (what a conflict shows). */
+export type CurrentBuild = Build & { updatedByName: string | null };
+
 /**
- * Saves a new revision if the build is still at `expectedVersion`; otherwise throws
- * ConflictError carrying the current build. The build and its revision are written together.
+ * Saves a new revision if the build is still at `expectedVersion`, writing only the keys of `v`
+ * that are present; otherwise throws Conflict carrying the current build (CurrentBuild). The build
+ * and its revision are written together, inside `tx` when the caller has one.
  */
 export async function saveBuild(
   shopId: string,
   id: string,
   userId: string,
   expectedVersion: number,
-  v: {
-    title?: string;
-    vehicle?: string;
-    status?: BuildStatus;
-    note?: string;
-    inputs: unknown;
-    result: FuelSystemResult;
-    calcVersion: string;
-    parts?: ChosenPart[];
-  },
-) {
-  return db.transaction(async (tx) => {
+  v: BuildPatch,
+  tx?: Tx,
+): Promise<Build> {
+  const run = async (tx: Tx) => {
     const [b] = await tx
       .update(builds)
       .set({
@@ -239,9 +233,7 @@ export async function saveBuild(
         ...(v.vehicle !== undefined ? { vehicle: v.vehicle || null } : {}),
         ...(v.status ? { status: v.status } : {}),
         ...(v.parts ? { parts: v.parts } : {}),
-        inputs: v.inputs,
-        result: v.result,
-        calcVersion: v.calcVersion,
+        ...v.sized,
         version: sql`${builds.version} + 1`,
         updatedBy: userId,
         updatedAt: new Date(),
@@ -250,27 +242,34 @@ export async function saveBuild(
       .returning();
     if (!b) {
       const [current] = await tx
-        .select()
+        .select({ build: builds, updatedByName: user.name })
         .from(builds)
+        .leftJoin(user, eq(user.id, builds.updatedBy))
         .where(and(eq(builds.shopId, shopId), eq(builds.id, id)))
         .limit(1);
-      if (!current) throw new HttpError(404, "not_found", "That build was not found");
-      throw new ConflictError(current);
+      if (!current) throw new NotFound("That build");
+      throw new Conflict<CurrentBuild>(
+        `Someone saved this build meanwhile (now version ${current.build.version}); nothing was overwritten`,
+        "conflict",
+        { ...current.build, updatedByName: current.updatedByName },
+      );
     }
     await tx.insert(buildRevisions).values({
       shopId,
       buildId: id,
       version: b.version,
       status: b.status,
-      inputs: v.inputs,
-      result: v.result,
-      calcVersion: v.calcVersion,
+      inputs: b.inputs,
+      inputsSchemaVersion: b.inputsSchemaVersion,
+      result: b.result,
+      calcVersion: b.calcVersion,
       parts: b.parts,
       authorId: userId,
       note: v.note || null,
     });
     return b;
-  });
+  };
+  return tx ? run(tx) : db.transaction(run);
 }
 
 export async function listRevisions(shopId: string, buildId: string) {

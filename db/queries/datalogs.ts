@@ -2,6 +2,9 @@ import { and, desc, eq, isNotNull, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import { builds, datalogMappings, datalogs } from "@/db/schema";
+import { NotFound } from "@/lib/domain/errors";
+
+import { saveBuild, type BuildPatch } from "./builds";
 
 export async function recordDatalog(v: typeof datalogs.$inferInsert) {
   const [row] = await db.insert(datalogs).values(v).returning();
@@ -58,11 +61,30 @@ export async function saveAnalysis(
   });
 }
 
-export async function markDatalogVerified(shopId: string, userId: string, id: string) {
-  await db
-    .update(datalogs)
-    .set({ verifiedAt: new Date(), verifiedBy: userId })
-    .where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
+/**
+ * "Mark verified" in one transaction: the build's save (a new revision, if still at
+ * `expectedVersion`) and the log's verified mark. Either both are written or neither.
+ */
+export async function saveBuildVerifiedByDatalog(
+  shopId: string,
+  userId: string,
+  datalogId: string,
+  buildId: string,
+  expectedVersion: number,
+  patch: BuildPatch,
+) {
+  return db.transaction(async (tx) => {
+    const build = await saveBuild(shopId, buildId, userId, expectedVersion, patch, tx);
+    const [marked] = await tx
+      .update(datalogs)
+      .set({ verifiedAt: new Date(), verifiedBy: userId })
+      .where(
+        and(eq(datalogs.shopId, shopId), eq(datalogs.id, datalogId), eq(datalogs.buildId, buildId)),
+      )
+      .returning({ id: datalogs.id });
+    if (!marked) throw new NotFound("That datalog");
+    return build;
+  });
 }
 
 /**

@@ -1,10 +1,10 @@
-import { and, asc, desc, eq, inArray, lt, ne, sql } from "drizzle-orm";
-import type { z } from "zod";
+import { and, asc, desc, eq, gt, inArray, lt, ne, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import {
   builds,
   customers,
+  invitation,
   parts,
   quoteLines,
   quoteMessages,
@@ -13,27 +13,38 @@ import {
   shopSettings,
 } from "@/db/schema";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { Conflict, NotFound } from "@/lib/domain/errors";
 import {
   QUOTE_EDITABLE,
   QUOTE_HOLDS_STOCK,
-  QUOTE_NEXT,
   QUOTE_STATUS_LABELS,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
-import { HttpError } from "@/lib/http/http-error";
-import { type QuoteLineSchema } from "@/lib/validations/quotes";
+import type { QuoteLineInput } from "@/lib/validations/quotes";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
-export type QuoteLineInput = z.output<typeof QuoteLineSchema>;
+export type { QuoteLineInput };
+export type QuoteRow = typeof quotes.$inferSelect;
 
-export class QuoteConflictError extends HttpError {
-  constructor(current: number) {
-    super(
-      409,
-      "conflict",
-      `Someone changed this quote meanwhile (now version ${current}); nothing was overwritten`,
-    );
-  }
+/** The quote as it is now: what a refused write hands back as `current`. */
+function changedMeanwhile(q: QuoteRow): Conflict<QuoteRow> {
+  return new Conflict(
+    `Someone changed this quote meanwhile (now version ${q.version}, ${QUOTE_STATUS_LABELS[q.status].toLowerCase()}); nothing was overwritten`,
+    "conflict",
+    q,
+  );
+}
+
+/** The quote's row, locked for the rest of the transaction; another shop's is "not found". */
+async function lockQuote(tx: Tx, shopId: string, id: string): Promise<QuoteRow> {
+  const [q] = await tx
+    .select()
+    .from(quotes)
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id)))
+    .for("update")
+    .limit(1);
+  if (!q) throw new NotFound("That quote");
+  return q;
 }
 
 /** The next number of a per-shop counter, inside the caller's transaction (row-locked: no gaps, no duplicates). */
@@ -67,11 +78,10 @@ async function writeLines(
         .select({ id: parts.id })
         .from(parts)
         .where(and(eq(parts.shopId, shopId), inArray(parts.id, partIds)));
+      // The command checked them; one deleted since is a clash, not a crash.
       if (found.length !== partIds.length)
-        throw new HttpError(
-          422,
-          "invalid_input",
-          "A line names a part that is not in this shop's catalog",
+        throw new Conflict(
+          "A part on this quote was removed from the catalog meanwhile; nothing was saved",
         );
     }
     await tx.insert(quoteLines).values(
@@ -100,8 +110,8 @@ async function writeLines(
 
 const addDays = (days: number) => new Date(Date.now() + days * 86400000).toISOString().slice(0, 10);
 
-/** A new draft quote with the next number of the shop. */
-export async function createQuote(
+/** A new draft quote with the next number of the shop (the command checked customer and parts). */
+export async function insertQuote(
   shopId: string,
   userId: string,
   v: {
@@ -118,7 +128,7 @@ export async function createQuote(
       .from(customers)
       .where(and(eq(customers.shopId, shopId), eq(customers.id, v.customerId)))
       .limit(1);
-    if (!c) throw new HttpError(422, "invalid_input", "That customer is not in this shop");
+    if (!c) throw new NotFound("That customer");
     const [s] = await tx
       .select()
       .from(shopSettings)
@@ -145,11 +155,11 @@ export async function createQuote(
   });
 }
 
+/** The shop's quotes, newest first (a customer's own, never drafts). Reads only: see expireQuotes. */
 export async function listQuotes(
   shopId: string,
   opts: { portalUserId?: string; status?: QuoteStatus; buildId?: string } = {},
 ) {
-  await expireQuotes(shopId);
   return db
     .select({
       id: quotes.id,
@@ -220,35 +230,27 @@ export async function getQuote(shopId: string, id: string, portalUserId?: string
   return { ...row, lines, messages };
 }
 
-/** Replaces lines, validity and notes while the quote is still open to edits (draft or sent). */
+/**
+ * Writes the fields given (an absent one is left as it is) if the quote is still at
+ * `expectedVersion` and open to edits; else Conflict with the quote as it is now.
+ */
 export async function updateQuote(
   shopId: string,
   id: string,
   expectedVersion: number,
-  v: { validUntil: string; notes?: string; lines: QuoteLineInput[] },
+  v: { validUntil?: string; notes?: string; lines?: QuoteLineInput[] },
 ) {
   return db.transaction(async (tx) => {
-    const [q] = await tx
-      .select()
-      .from(quotes)
-      .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id)))
-      .for("update")
-      .limit(1);
-    if (!q) throw new HttpError(404, "not_found", "That quote was not found");
-    if (!QUOTE_EDITABLE.includes(q.status))
-      throw new HttpError(
-        409,
-        "locked",
-        `A quote that is ${QUOTE_STATUS_LABELS[q.status].toLowerCase()} cannot be edited; make a new revision of it instead`,
-      );
-    if (q.version !== expectedVersion) throw new QuoteConflictError(q.version);
-    const totals = await writeLines(tx, shopId, id, v.lines, q.taxRateBp);
+    const q = await lockQuote(tx, shopId, id);
+    if (q.version !== expectedVersion || !QUOTE_EDITABLE.includes(q.status))
+      throw changedMeanwhile(q);
+    const totals = v.lines ? await writeLines(tx, shopId, id, v.lines, q.taxRateBp) : {};
     const [done] = await tx
       .update(quotes)
       .set({
         ...totals,
-        validUntil: v.validUntil,
-        notes: v.notes ?? null,
+        ...(v.validUntil === undefined ? {} : { validUntil: v.validUntil }),
+        ...(v.notes === undefined ? {} : { notes: v.notes }),
         version: q.version + 1,
         updatedAt: new Date(),
       })
@@ -258,15 +260,26 @@ export async function updateQuote(
   });
 }
 
-/** Holds (+1) or releases (−1) the stock of a quote's part lines. */
-async function moveReservation(tx: Tx, shopId: string, quoteId: string, sign: 1 | -1) {
+/** +1 when a move starts holding stock, −1 when it stops holding it, else 0. */
+function stockSign(from: QuoteStatus, to: QuoteStatus): 1 | -1 | 0 {
+  const held = QUOTE_HOLDS_STOCK.includes(from);
+  const holds = QUOTE_HOLDS_STOCK.includes(to);
+  return held === holds ? 0 : holds ? 1 : -1;
+}
+
+/**
+ * Holds (+1) or releases (−1) the stock of quotes' part lines, part by part in id order (so
+ * concurrent transactions lock parts in the same order).
+ */
+async function moveReservation(tx: Tx, shopId: string, quoteIds: string[], sign: 1 | -1) {
+  if (quoteIds.length === 0) return;
   const lines = await tx
     .select({ partId: quoteLines.partId, quantityMilli: quoteLines.quantityMilli })
     .from(quoteLines)
     .where(
       and(
         eq(quoteLines.shopId, shopId),
-        eq(quoteLines.quoteId, quoteId),
+        inArray(quoteLines.quoteId, quoteIds),
         eq(quoteLines.kind, "part"),
       ),
     );
@@ -282,84 +295,64 @@ async function moveReservation(tx: Tx, shopId: string, quoteId: string, sign: 1 
   }
 }
 
-/** Moves a quote along its workflow; accepting holds stock, declining or expiring an accepted quote releases it. */
+/** The quote's status change, with its stock held or released, inside the caller's transaction. */
+async function applyStatus(tx: Tx, q: QuoteRow, to: QuoteStatus, by: string | null) {
+  const sign = stockSign(q.status, to);
+  if (sign) await moveReservation(tx, q.shopId, [q.id], sign);
+  return writeStatus(tx, q, to, by);
+}
+
+/** The status columns alone (the caller moved the stock). */
+async function writeStatus(tx: Tx, q: QuoteRow, to: QuoteStatus, by: string | null) {
+  const [done] = await tx
+    .update(quotes)
+    .set({
+      status: to,
+      statusChangedAt: new Date(),
+      statusChangedBy: by,
+      version: q.version + 1,
+      updatedAt: new Date(),
+    })
+    .where(eq(quotes.id, q.id))
+    .returning();
+  return done!;
+}
+
+/**
+ * Moves a quote from `from` to `to` (the command checked the move is allowed): accepting holds
+ * stock, declining or expiring an accepted quote releases it. If the quote is no longer in
+ * `from`, nothing changes and Conflict carries it as it is now. With `portalUserId`, only that
+ * customer's own quote.
+ */
 export async function setQuoteStatus(
   shopId: string,
   id: string,
-  userId: string | null,
-  to: QuoteStatus,
-  opts: { portalUserId?: string } = {},
+  move: { from: QuoteStatus; to: QuoteStatus; by: string | null; portalUserId?: string },
 ) {
   return db.transaction(async (tx) => {
-    const [q] = await tx
-      .select()
-      .from(quotes)
-      .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id)))
-      .for("update")
-      .limit(1);
-    if (!q) throw new HttpError(404, "not_found", "That quote was not found");
-    if (opts.portalUserId) {
+    const q = await lockQuote(tx, shopId, id);
+    if (move.portalUserId) {
       const [c] = await tx
         .select({ userId: customers.userId })
         .from(customers)
         .where(eq(customers.id, q.customerId))
         .limit(1);
-      if (c?.userId !== opts.portalUserId)
-        throw new HttpError(404, "not_found", "That quote was not found");
+      if (c?.userId !== move.portalUserId) throw new NotFound("That quote");
     }
-    if (q.status === to) return q;
-    if (!QUOTE_NEXT[q.status].includes(to))
-      throw new HttpError(
-        422,
-        "invalid_transition",
-        `A quote cannot go from ${QUOTE_STATUS_LABELS[q.status]} to ${QUOTE_STATUS_LABELS[to]}`,
-      );
-    const held = QUOTE_HOLDS_STOCK.includes(q.status);
-    const holds = QUOTE_HOLDS_STOCK.includes(to);
-    if (!held && holds) await moveReservation(tx, shopId, id, 1);
-    if (held && !holds) await moveReservation(tx, shopId, id, -1);
-    const [done] = await tx
-      .update(quotes)
-      .set({
-        status: to,
-        statusChangedAt: new Date(),
-        statusChangedBy: userId,
-        version: q.version + 1,
-        updatedAt: new Date(),
-      })
-      .where(eq(quotes.id, id))
-      .returning();
-    return done!;
+    if (q.status !== move.from) throw changedMeanwhile(q);
+    return applyStatus(tx, q, move.to, move.by);
   });
 }
 
-/** A new editable revision of a locked quote (same number); the old one is replaced and its stock released. */
-export async function reviseQuote(shopId: string, id: string, userId: string) {
+/**
+ * A new editable revision of an accepted quote (same number, next revision); the old one is
+ * superseded and its stock released. Conflict if it is no longer accepted.
+ */
+export async function insertRevision(shopId: string, id: string, userId: string) {
   return db.transaction(async (tx) => {
-    const [q] = await tx
-      .select()
-      .from(quotes)
-      .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id)))
-      .for("update")
-      .limit(1);
-    if (!q) throw new HttpError(404, "not_found", "That quote was not found");
-    if (q.status !== "accepted")
-      throw new HttpError(
-        422,
-        "invalid_transition",
-        "Only an accepted quote is revised; edit a draft or sent quote directly",
-      );
-    await moveReservation(tx, shopId, id, -1);
-    await tx
-      .update(quotes)
-      .set({
-        status: "superseded",
-        statusChangedAt: new Date(),
-        statusChangedBy: userId,
-        version: q.version + 1,
-        updatedAt: new Date(),
-      })
-      .where(eq(quotes.id, id));
+    const q = await lockQuote(tx, shopId, id);
+    if (q.status !== "accepted") throw changedMeanwhile(q);
+    await applyStatus(tx, q, "superseded", userId);
     const [rev] = await tx
       .insert(quotes)
       .values({
@@ -392,14 +385,53 @@ export async function reviseQuote(shopId: string, id: string, userId: string) {
   });
 }
 
-/** Records a sent e-mail and moves a draft to sent, in one transaction. */
+/** The open portal invitation of this shop for this e-mail, if there is one. */
+export async function findPortalInvitation(shopId: string, email: string) {
+  const [open] = await db
+    .select({ id: invitation.id })
+    .from(invitation)
+    .where(
+      and(
+        eq(invitation.organizationId, shopId),
+        eq(invitation.email, email.trim().toLowerCase()),
+        eq(invitation.role, "customer"),
+        eq(invitation.status, "pending"),
+        gt(invitation.expiresAt, new Date()),
+      ),
+    )
+    .limit(1);
+  return open ?? null;
+}
+
+/** How long a portal invitation sent with a quote stays open. */
+const INVITATION_DAYS = 14;
+
+/**
+ * After the mail server took the e-mail: logs it, records the portal invitation it carried (if
+ * new) and moves a draft to sent, in one transaction.
+ */
 export async function recordQuoteSent(
   shopId: string,
   id: string,
   userId: string,
   msg: { to: string; subject: string; messageId: string | null },
+  newInvitation: { id: string; email: string } | null,
 ) {
   return db.transaction(async (tx) => {
+    const q = await lockQuote(tx, shopId, id);
+    if (newInvitation)
+      await tx
+        .insert(invitation)
+        .values({
+          id: newInvitation.id,
+          organizationId: shopId,
+          email: newInvitation.email.trim().toLowerCase(),
+          role: "customer",
+          status: "pending",
+          expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
+          inviterId: userId,
+        })
+        .onConflictDoNothing();
     await tx.insert(quoteMessages).values({
       shopId,
       quoteId: id,
@@ -408,38 +440,31 @@ export async function recordQuoteSent(
       messageId: msg.messageId,
       sentBy: userId,
     });
-    const [q] = await tx
-      .select()
-      .from(quotes)
-      .where(and(eq(quotes.shopId, shopId), eq(quotes.id, id)))
-      .for("update")
-      .limit(1);
-    if (q && q.status === "draft")
-      await tx
-        .update(quotes)
-        .set({
-          status: "sent",
-          statusChangedAt: new Date(),
-          statusChangedBy: userId,
-          version: q.version + 1,
-          updatedAt: new Date(),
-        })
-        .where(eq(quotes.id, id));
+    return q.status === "draft" ? applyStatus(tx, q, "sent", userId) : q;
   });
 }
 
-/** Sent or accepted quotes past their date expire (accepted ones release their stock). */
-export async function expireQuotes(shopId: string) {
-  const today = new Date().toISOString().slice(0, 10);
-  const due = await db
-    .select({ id: quotes.id })
-    .from(quotes)
-    .where(
-      and(
-        eq(quotes.shopId, shopId),
-        inArray(quotes.status, ["sent", "accepted"]),
-        lt(quotes.validUntil, today),
-      ),
-    );
-  for (const q of due) await setQuoteStatus(shopId, q.id, null, "expired").catch(() => undefined);
+/**
+ * Sent or accepted quotes past their date become expired (accepted ones release their stock),
+ * in one transaction. Rows another transaction holds are left to it. Returns the expired ids.
+ */
+export async function expireQuotes(shopId: string, today: string): Promise<string[]> {
+  return db.transaction(async (tx) => {
+    const due = await tx
+      .select()
+      .from(quotes)
+      .where(
+        and(
+          eq(quotes.shopId, shopId),
+          inArray(quotes.status, ["sent", "accepted"]),
+          lt(quotes.validUntil, today),
+        ),
+      )
+      .orderBy(asc(quotes.id))
+      .for("update", { skipLocked: true });
+    const held = due.filter((q) => stockSign(q.status, "expired") === -1).map((q) => q.id);
+    await moveReservation(tx, shopId, held, -1);
+    for (const q of due) await writeStatus(tx, q, "expired", null);
+    return due.map((q) => q.id);
+  });
 }

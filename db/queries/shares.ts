@@ -3,7 +3,8 @@ import { createHash, createHmac, randomBytes, timingSafeEqual } from "node:crypt
 import { and, desc, eq, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { shareLinks } from "@/db/schema";
+import { builds, shareLinks } from "@/db/schema";
+import { NotFound } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
 
 const sha256 = (s: string) => createHash("sha256").update(s).digest("hex");
@@ -14,10 +15,11 @@ const sign = (body: string) =>
     .slice(0, 22);
 
 /**
- * Token = <random 32 bytes>.<HMAC of it>: a tampered token fails the signature before any
- * database look-up; the database keeps only the SHA-256 of the whole token.
+ * A new link to one of the shop's builds (NotFound when the build is not the shop's), in one
+ * transaction. Token = <random 32 bytes>.<HMAC of it>: a tampered token fails the signature
+ * before any database look-up; the database keeps only the SHA-256 of the whole token.
  */
-export async function createShareLink(
+export async function insertShareLink(
   shopId: string,
   buildId: string,
   userId: string,
@@ -25,17 +27,25 @@ export async function createShareLink(
 ) {
   const body = randomBytes(32).toString("base64url");
   const token = `${body}.${sign(body)}`;
-  const [row] = await db
-    .insert(shareLinks)
-    .values({
-      shopId,
-      buildId,
-      tokenHash: sha256(token),
-      expiresAt: new Date(Date.now() + days * 86400000),
-      createdBy: userId,
-    })
-    .returning();
-  return { link: row!, token };
+  return db.transaction(async (tx) => {
+    const [build] = await tx
+      .select({ id: builds.id })
+      .from(builds)
+      .where(and(eq(builds.shopId, shopId), eq(builds.id, buildId)))
+      .limit(1);
+    if (!build) throw new NotFound("That build");
+    const [row] = await tx
+      .insert(shareLinks)
+      .values({
+        shopId,
+        buildId,
+        tokenHash: sha256(token),
+        expiresAt: new Date(Date.now() + days * 86400000),
+        createdBy: userId,
+      })
+      .returning();
+    return { link: row!, token };
+  });
 }
 
 export type ShareCheck =
@@ -74,11 +84,12 @@ export async function listShareLinks(shopId: string, buildId: string) {
     .orderBy(desc(shareLinks.createdAt));
 }
 
-export async function revokeShareLink(shopId: string, id: string) {
+/** Withdraws one of the shop's links (the first withdrawal's time is kept); NotFound if none. */
+export async function markShareLinkRevoked(shopId: string, id: string): Promise<void> {
   const rows = await db
     .update(shareLinks)
-    .set({ revokedAt: new Date() })
+    .set({ revokedAt: sql`coalesce(${shareLinks.revokedAt}, now())` })
     .where(and(eq(shareLinks.shopId, shopId), eq(shareLinks.id, id)))
     .returning({ id: shareLinks.id });
-  return rows.length > 0;
+  if (rows.length === 0) throw new NotFound("That link");
 }

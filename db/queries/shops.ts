@@ -1,10 +1,11 @@
 import { randomBytes, randomUUID } from "node:crypto";
 
-import { and, asc, desc, eq, gt, isNull, sql } from "drizzle-orm";
+import { and, eq, gt, isNull, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import { customers, invitation, member, organization, shopSettings, user } from "@/db/schema";
 import { DEFAULT_BSFC } from "@/lib/calc";
+import { NotFound } from "@/lib/domain/errors";
 
 /** Default settings of a new shop (BSFC rules of thumb of calc-spec §2, in g/kWh). */
 export const NEW_SHOP_SETTINGS = {
@@ -51,70 +52,25 @@ export async function getShopSettings(shopId: string) {
   return row ?? null;
 }
 
+/**
+ * Writes the shop's name and settings, only the keys given (one transaction). NotFound when
+ * the shop has no settings row.
+ */
 export async function updateShopSettings(
   shopId: string,
-  name: string,
-  values: Partial<typeof shopSettings.$inferInsert>,
+  name: string | undefined,
+  values: Partial<Omit<typeof shopSettings.$inferInsert, "shopId" | "updatedAt">>,
 ) {
   await db.transaction(async (tx) => {
-    await tx.update(organization).set({ name }).where(eq(organization.id, shopId));
-    await tx
+    if (name !== undefined)
+      await tx.update(organization).set({ name }).where(eq(organization.id, shopId));
+    const rows = await tx
       .update(shopSettings)
       .set({ ...values, updatedAt: new Date() })
-      .where(eq(shopSettings.shopId, shopId));
+      .where(eq(shopSettings.shopId, shopId))
+      .returning({ shopId: shopSettings.shopId });
+    if (rows.length === 0) throw new NotFound("The shop");
   });
-}
-
-export async function listMembers(shopId: string) {
-  return db
-    .select({
-      id: member.id,
-      role: member.role,
-      userId: member.userId,
-      name: user.name,
-      email: user.email,
-      createdAt: member.createdAt,
-    })
-    .from(member)
-    .innerJoin(user, eq(user.id, member.userId))
-    .where(eq(member.organizationId, shopId))
-    .orderBy(asc(member.createdAt));
-}
-
-export async function listPendingInvitations(shopId: string) {
-  return db
-    .select()
-    .from(invitation)
-    .where(and(eq(invitation.organizationId, shopId), eq(invitation.status, "pending")))
-    .orderBy(desc(invitation.createdAt));
-}
-
-export async function getMember(shopId: string, memberId: string) {
-  const [row] = await db
-    .select()
-    .from(member)
-    .where(and(eq(member.organizationId, shopId), eq(member.id, memberId)))
-    .limit(1);
-  return row ?? null;
-}
-
-export async function countOwners(shopId: string) {
-  const rows = await db
-    .select({ id: member.id })
-    .from(member)
-    .where(and(eq(member.organizationId, shopId), eq(member.role, "owner")));
-  return rows.length;
-}
-
-export async function setMemberRole(shopId: string, memberId: string, role: string) {
-  await db
-    .update(member)
-    .set({ role })
-    .where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
-}
-
-export async function removeMember(shopId: string, memberId: string) {
-  await db.delete(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
 }
 
 /** An invitation with its shop name, for the accept page (looked up by its unguessable id). */

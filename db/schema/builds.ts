@@ -11,6 +11,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { BUILD_STATUSES, type ChosenPart } from "@/lib/domain/builds";
 
 import { organization, user } from "./auth";
@@ -30,9 +31,13 @@ export const builds = pgTable(
     title: text("title").notNull(),
     vehicle: text("vehicle"),
     status: text("status", { enum: BUILD_STATUSES }).notNull().default("draft"),
-    inputs: jsonb("inputs").notNull(),
+    /**
+     * The validated inputs, written at lib/builds/stored-inputs.ts#INPUTS_SCHEMA_VERSION (noted in
+     * `inputs_schema_version`). Read them only through `readStoredInputs`, which upgrades older ones.
+     */
+    inputs: jsonb("inputs").$type<ParsedFuelSystemInput>().notNull(),
     inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
-    result: jsonb("result"),
+    result: jsonb("result").$type<FuelSystemResult>(),
     calcVersion: text("calc_version"),
     /** Parts chosen from the catalog: [{ role, partId, sku, name, quantity }]. */
     parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
@@ -71,8 +76,10 @@ export const buildRevisions = pgTable(
       .references(() => builds.id, { onDelete: "cascade" }),
     version: integer("version").notNull(),
     status: text("status", { enum: BUILD_STATUSES }).notNull(),
-    inputs: jsonb("inputs").notNull(),
-    result: jsonb("result"),
+    /** As on `builds`: read through `readStoredInputs`. */
+    inputs: jsonb("inputs").$type<ParsedFuelSystemInput>().notNull(),
+    inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
+    result: jsonb("result").$type<FuelSystemResult>(),
     calcVersion: text("calc_version"),
     parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
     note: text("note"),

@@ -5,7 +5,9 @@ import type { z } from "zod";
 
 import { requireMember, type Member } from "@/lib/auth/member";
 import type { Action } from "@/lib/auth/permissions";
+import { Invalid } from "@/lib/domain/errors";
 import { describeError, type FieldIssue } from "@/lib/http/error-map";
+import { controlCharacterIssues } from "@/lib/http/text";
 
 import type { ActionState } from "./state";
 
@@ -72,6 +74,8 @@ export function memberAction(...args: unknown[]) {
     const values = input instanceof FormData ? formValues(input) : undefined;
     try {
       const member = await requireMember(action);
+      const issues = controlCharacterIssues(values ?? input);
+      if (issues.length) throw new Invalid("Some fields carry control characters", issues);
       const data = schema.parse(values ?? input);
       const out = legacy ? await run(data, member, input) : await run(member, data);
       if (out && typeof out === "object" && "ok" in out) return out as ActionState;

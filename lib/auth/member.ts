@@ -1,13 +1,11 @@
 import "server-only";
 
-import { and, eq } from "drizzle-orm";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
 
-import { db } from "@/db";
-import { member, organization } from "@/db/schema";
-import { auth } from "@/lib/auth";
+import { sessionMembership } from "@/db/queries/members";
+import { auth } from "@/lib/auth/server";
 import { Forbidden, Unauthorized } from "@/lib/domain/errors";
 import { isRole, type Role } from "@/lib/domain/roles";
 
@@ -24,18 +22,7 @@ export interface Member {
 export const currentMember = cache(async (): Promise<Member | null> => {
   const session = await auth.api.getSession({ headers: await headers() });
   if (!session) return null;
-  const shopId = session.session.activeOrganizationId;
-  const rows = await db
-    .select({ role: member.role, shopId: member.organizationId, shopName: organization.name })
-    .from(member)
-    .innerJoin(organization, eq(organization.id, member.organizationId))
-    .where(
-      shopId
-        ? and(eq(member.userId, session.user.id), eq(member.organizationId, shopId))
-        : eq(member.userId, session.user.id),
-    )
-    .limit(1);
-  const m = rows[0];
+  const m = await sessionMembership(session.user.id, session.session.activeOrganizationId ?? null);
   if (!m || !isRole(m.role)) return null;
   return {
     user: { id: session.user.id, name: session.user.name, email: session.user.email },
@@ -45,7 +32,7 @@ export const currentMember = cache(async (): Promise<Member | null> => {
   };
 });
 
-/** For route handlers and server actions: the member, allowed to take `action`, or an HttpError. */
+/** For route handlers and server actions: the member, allowed to take `action`; else Unauthorized or Forbidden. */
 export async function requireMember(action?: Action): Promise<Member> {
   const m = await currentMember();
   if (!m) throw new Unauthorized();

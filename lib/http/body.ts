@@ -1,4 +1,7 @@
+import { Invalid } from "@/lib/domain/errors";
+
 import { HttpError } from "./http-error";
+import { controlCharacterIssues } from "./text";
 
 const MAX_BODY_BYTES = 256 * 1024;
 
@@ -9,11 +12,23 @@ export async function readJson(req: Request): Promise<unknown> {
     throw new HttpError(413, "too_large", `The body is larger than ${MAX_BODY_BYTES / 1024} KiB`);
   const text = await readLimited(req);
   if (!text.trim()) throw new HttpError(400, "empty_body", "Send a JSON body");
+  if (!isJsonType(req.headers.get("content-type")))
+    throw new HttpError(415, "not_json", "Send the body as JSON (Content-Type: application/json)");
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch {
     throw new HttpError(400, "bad_json", "The body is not valid JSON");
   }
+  const issues = controlCharacterIssues(value);
+  if (issues.length) throw new Invalid("Some fields carry control characters", issues);
+  return value;
+}
+
+/** application/json, or a `+json` type, with any parameters. */
+function isJsonType(contentType: string | null): boolean {
+  const type = contentType?.split(";")[0]?.trim().toLowerCase() ?? "";
+  return type === "application/json" || /^application\/[\w.-]+\+json$/.test(type);
 }
 
 /** Reads a text body (a CSV upload) up to `max` bytes; larger → 413, empty → 400. */
@@ -62,4 +77,10 @@ async function readBytesLimited(req: Request, max: number, limitMsg: string): Pr
     chunks.push(value);
   }
   return Buffer.concat(chunks);
+}
+
+/** The request's media type (before any `;charset=`) is one of `allowed`, else 415 with `message`. */
+export function requireContentType(req: Request, allowed: readonly string[], message: string) {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  if (!allowed.includes(type)) throw new HttpError(415, "unsupported_type", message);
 }

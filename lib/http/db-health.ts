@@ -1,8 +1,6 @@
 import "server-only";
 
-import { sql } from "drizzle-orm";
-
-import { db } from "@/db";
+import { pingDatabase } from "@/db/queries/health";
 
 const TTL_MS = 1000;
 /** While the database is away, ask again sooner, so pages come back as soon as it does. */
@@ -18,7 +16,7 @@ export async function databaseAnswering(): Promise<boolean> {
   if (now - last.at < (last.ok ? TTL_MS : DOWN_TTL_MS)) return last.ok;
   if (last.pending) return last.pending;
   const probe = Promise.race([
-    db.execute(sql`select 1`).then(
+    pingDatabase().then(
       () => true,
       () => false,
     ),

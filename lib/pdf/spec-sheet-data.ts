@@ -5,12 +5,8 @@ import { latestVerifiedDatalog } from "@/db/queries/datalogs";
 import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
-import {
-  CALC_VERSION,
-  FuelSystemInputSchema,
-  sizeParsedFuelSystem,
-  type FuelSystemResult,
-} from "@/lib/calc";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import { CALC_VERSION, sizeParsedFuelSystem } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
 
 import type { SpecSheetData } from "./spec-sheet";
@@ -30,8 +26,8 @@ export async function specSheetData(
     pdfLogo(shopId),
     rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null,
   ]);
-  const input = FuelSystemInputSchema.parse(rev.inputs);
-  const stored = rev.result as FuelSystemResult | null;
+  const input = readStoredInputs(rev);
+  const stored = rev.result;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
   // Staff see their own units; customers and share links the shop's.
   const units =

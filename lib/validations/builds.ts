@@ -13,13 +13,27 @@ export const BuildCreateSchema = z.object({
   inputs: FuelSystemInputSchema.optional(),
 });
 
-export const BuildSaveSchema = z.object({
+/**
+ * A save: any of the sheet's fields (one left out keeps its stored value; an empty vehicle clears
+ * it), the status to move to, a revision note, and the version the edit started from.
+ */
+export const BuildSaveSchema = BuildCreateSchema.omit({ customerId: true })
+  .partial()
+  .extend({
+    id: z.uuid("Unknown build"),
+    version: z.number({ error: "version is required" }).int().min(1),
+    status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
+    note: text("Note", 500).optional(),
+  });
+
+/** One build, named by its id (copy as the next power step). */
+export const BuildRefSchema = z.object({ id: z.uuid("Unknown build") });
+
+/** Restore an earlier revision as a new one, from the version the page showed as current. */
+export const RevisionRestoreSchema = z.object({
+  buildId: z.uuid("Unknown build"),
   version: z.number({ error: "version is required" }).int().min(1),
-  title: text("Title", 120).min(1, "Give the build a title").optional(),
-  vehicle: text("Vehicle", 200).optional(),
-  status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
-  note: text("Note", 500).optional(),
-  inputs: FuelSystemInputSchema,
+  currentVersion: z.number({ error: "currentVersion is required" }).int().min(1),
 });
 
 export const BuildListQuery = z.object({

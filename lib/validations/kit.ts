@@ -4,6 +4,7 @@ import { KIT_ROLES } from "@/lib/domain/builds";
 
 /** The parts chosen for a build, by role. */
 export const KitChoiceSchema = z.object({
+  id: z.uuid("Unknown build"),
   version: z.number({ error: "version is required" }).int().min(1),
   parts: z
     .array(

@@ -44,13 +44,46 @@ export const QuoteCreateSchema = z
     message: "Choose a build or a customer",
   });
 
-export const QuoteUpdateSchema = z.object({
-  version: z.number({ error: "version is required" }).int().min(1),
+/** What a person edits on a quote: validity, notes and lines. */
+export const QuoteFieldsSchema = z.object({
   validUntil: isoDate,
-  notes: z.string().trim().max(2000, "Notes are too long").optional(),
+  notes: z.string().trim().max(2000, "Notes are too long"),
   lines: z.array(QuoteLineSchema).max(200, "At most 200 lines"),
 });
 
+const quoteId = z.uuid({ error: "That quote was not found" });
+
+/**
+ * An edit: any of the quote's fields (an absent one is left as it is) and the `version` the
+ * edit started from.
+ */
+export const QuoteEditSchema = QuoteFieldsSchema.partial().extend({
+  id: quoteId,
+  version: z.number({ error: "version is required" }).int().min(1),
+});
+
+/** A command on one quote that needs nothing else (send, revise, deposit). */
+export const QuoteIdSchema = z.object({ id: quoteId });
+
 export const QuoteStatusSchema = z.object({
+  id: quoteId,
   status: z.enum(QUOTE_STATUSES, { error: "Unknown status" }),
 });
+
+/** The customer's answer to their own sent quote. */
+export const QuoteResponseSchema = z.object({
+  id: quoteId,
+  decision: z.enum(["accept", "decline"], { error: "Say accept or decline" }),
+});
+
+/** Where the checkout sends the customer back: the quote and the checkout session. */
+export const DepositReturnSchema = z.object({
+  id: quoteId,
+  session: z
+    .string({ error: "session is required" })
+    .regex(/^cs_[A-Za-z0-9_]{4,200}$/, "session is not a checkout session id"),
+});
+
+export type QuoteCreate = z.output<typeof QuoteCreateSchema>;
+export type QuoteEdit = z.output<typeof QuoteEditSchema>;
+export type QuoteLineInput = z.output<typeof QuoteLineSchema>;

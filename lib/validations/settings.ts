@@ -54,3 +54,8 @@ export const MemberRoleSchema = z.object({
   role: z.enum(ROLES, { error: "Choose a role" }),
 });
 export const MemberRemoveSchema = z.object({ memberId: z.string().min(1) });
+
+/** A person's own display and entry units. */
+export const UnitsSchema = z.object({
+  units: z.enum(["metric", "imperial"], { error: "Units must be metric or imperial" }),
+});

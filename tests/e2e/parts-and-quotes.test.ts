@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
+import { request, signIn } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
 
 let browser: Browser;
@@ -104,6 +105,40 @@ describe("parts counter", () => {
     await expect
       .poll(() => page.getByLabel("SKU", { exact: true }).getAttribute("aria-invalid"))
       .toBe("true");
+    await ctx.close();
+  });
+
+  it("the quote editor saves through its server action and says so when someone else saved first", async () => {
+    const api = await signIn("counter@demo.fuelwright.test");
+    const created = await request(api, "POST", "/api/v1/quotes", {
+      customerId: "00000000-0000-4000-8000-000000000001", // the portal customer (db/seed.ts)
+    });
+    expect(created.status).toBe(201);
+    const q = created.json.quote as { id: string; version: number };
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto(`/quotes/${q.id}`);
+    await page.getByRole("button", { name: "Add labour" }).click();
+    await page.getByLabel("Line 1 quantity").fill("2");
+    await page.getByRole("button", { name: "Save quote" }).click();
+    await expect.poll(() => page.getByText("Quote saved").count()).toBe(1);
+    // By hand: 2 h × 120.00 = 240.00; 8.25 % tax (demo shop) = 19.80; 259.80.
+    await expect.poll(() => page.getByTestId("quote-total").innerText()).toBe("$259.80");
+    const saved = await request(api, "GET", `/api/v1/quotes/${q.id}`);
+    expect(saved.json.quote).toMatchObject({ version: q.version + 1, totalMinor: 25980 });
+
+    // Someone else saves meanwhile: this editor's save is refused and nothing is overwritten.
+    const other = await request(api, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version + 1,
+      notes: "Saved elsewhere",
+    });
+    expect(other.status).toBe(200);
+    await page.getByLabel("Notes for the customer").fill("Saved here");
+    await page.getByRole("button", { name: "Save quote" }).click();
+    await expect.poll(() => page.getByText(/Someone changed this quote meanwhile/).count()).toBe(1);
+    const after = await request(api, "GET", `/api/v1/quotes/${q.id}`);
+    expect(after.json.quote).toMatchObject({ version: q.version + 2, notes: "Saved elsewhere" });
     await ctx.close();
   });
 });

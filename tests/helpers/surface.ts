@@ -1,5 +1,7 @@
 import { expect } from "vitest";
 
+import { DEFAULT_BSFC } from "@/lib/calc";
+
 import { formOf } from "./actions";
 import { sql } from "./db";
 import { BASE_URL, request, type Client } from "./http";
@@ -285,25 +287,71 @@ export interface ActionCell {
   mayVanish?: boolean;
 }
 const prev = { ok: false };
+const NO_MEMBER = "00000000-0000-4000-8000-00000000abcd";
+/** The demo shop's settings as its form sends them (db/seed.ts and the column defaults). */
+export const SEED_SETTINGS_FORM = {
+  shopName: "Ridgeback Fuel & Dyno",
+  currency: "USD",
+  taxRatePct: "8.25",
+  units: "imperial",
+  address: "14 Foundry Lane, Millbrook",
+  phone: "555-0100",
+  bsfcGasolineNa: String(DEFAULT_BSFC.gasolineNaGPerKwh),
+  bsfcGasolineBoosted: String(DEFAULT_BSFC.gasolineBoostedGPerKwh),
+  bsfcE85Na: String(DEFAULT_BSFC.e85NaGPerKwh),
+  bsfcE85Boosted: String(DEFAULT_BSFC.e85BoostedGPerKwh),
+  designDutyPct: "80",
+  dutyCautionPct: "80",
+  dutyDangerPct: "90",
+  minPumpMarginPct: "25",
+  maxLineDropKpa: "14",
+  lossManualPct: "12",
+  lossAutomaticPct: "17",
+  lossAwdPct: "22",
+  labourRate: "120",
+  depositPct: "30",
+  quoteValidDays: "30",
+};
 export const ACTIONS: Record<string, ActionCell> = {
   "app/(shop)/builds/new/actions.ts#createBuildAction": {
     page: () => "/builds/new",
     args: (f) => [prev, formOf({ customerId: f.customer, title: "Matrix action build" })],
     expect: "401 ok ok 403 403 422",
   },
-  "app/(shop)/builds/[id]/actions.ts#saveBuildAction": {
+  "lib/builds/build-actions.ts#saveBuildAction": {
     page: (f) => `/builds/${f.build}`,
-    args: (f) => [f.build, { version: 1, title: "Matrix build", inputs: f.inputs }],
+    args: (f) => [prev, { id: f.build, version: 1, title: "Matrix build", inputs: f.inputs }],
     expect: "401 ok ok 403 403 404",
   },
-  "app/(shop)/builds/[id]/copy-actions.ts#copyBuildAction": {
+  "lib/builds/build-actions.ts#copyBuildAction": {
     page: (f) => `/builds/${f.build}`,
-    args: (f) => [f.build],
+    args: (f) => [prev, { id: f.build }],
     expect: "401 ok ok 403 403 404",
+  },
+  "lib/builds/build-actions.ts#chooseKitAction": {
+    page: (f) => `/builds/${f.build}/kit`,
+    args: (f) => [
+      prev,
+      { id: f.build, version: 1, parts: [{ role: "filter", partId: f.part, quantity: 1 }] },
+    ],
+    expect: "401 ok ok ok 403 404",
   },
   "app/(shop)/builds/[id]/revisions/[version]/actions.ts#restoreRevisionAction": {
     page: (f) => `/builds/${f.build}/revisions/1`,
-    args: (f) => [{ buildId: f.build, version: 1, currentVersion: 999999 }],
+    args: (f) => [prev, { buildId: f.build, version: 1, currentVersion: 999999 }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/dyno/dyno-actions.ts#analyseDatalogAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [
+      prev,
+      { id: f.datalog, mapping: { rpm: "rpm", duty: { column: "duty", kind: "duty_pct" } } },
+    ],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/dyno/dyno-actions.ts#verifyDatalogAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { id: f.datalog }],
     expect: "401 ok ok 403 403 404",
   },
   "app/(shop)/customers/actions.ts#createCustomerAction": {
@@ -356,28 +404,42 @@ export const ACTIONS: Record<string, ActionCell> = {
   },
   "app/(shop)/settings/actions.ts#updateSettingsAction": {
     page: () => "/settings",
-    args: () => [prev, formOf({})],
+    // The demo shop's own settings (db/seed.ts): the owner's save changes nothing that matters.
+    args: () => [prev, formOf(SEED_SETTINGS_FORM)],
     expect: "401 ok 403 403 403 ok",
   },
   "app/(shop)/settings/actions.ts#inviteMemberAction": {
     page: () => "/settings",
-    args: () => [prev, formOf({})],
+    // Already a member of the demo shop: refused for its owner (a field error), nothing sent.
+    args: () => [prev, formOf({ email: "tuner@demo.fuelwright.test", role: "tuner" })],
     expect: "401 ok 403 403 403 ok",
   },
   "app/(shop)/settings/actions.ts#changeRoleAction": {
     page: () => "/settings",
-    args: () => [prev, formOf({})],
+    args: () => [prev, formOf({ memberId: NO_MEMBER, role: "tuner" })],
     expect: "401 ok 403 403 403 ok",
+    mayVanish: true,
   },
   "app/(shop)/settings/actions.ts#removeMemberAction": {
     page: () => "/settings",
-    args: () => [prev, formOf({})],
+    args: () => [prev, formOf({ memberId: NO_MEMBER })],
     expect: "401 ok 403 403 403 ok",
+    mayVanish: true,
   },
-  "app/(shop)/preferences/actions.ts#setUnitsAction": {
+  "lib/preferences/preference-actions.ts#setUnitsAction": {
     page: (f) => `/builds/${f.build}`,
     args: () => [prev, formOf({ units: "metric" })],
     expect: "401 ok ok ok 403 ok",
+  },
+  "lib/shares/share-actions.ts#createShareLinkAction": {
+    page: (f) => `/builds/${f.build}`,
+    args: (f) => [prev, { buildId: f.build, days: 1 }],
+    expect: "401 ok ok ok 403 404",
+  },
+  "lib/shares/share-actions.ts#revokeShareLinkAction": {
+    page: (f) => `/builds/${f.build}`,
+    args: (f) => [prev, { id: f.share }],
+    expect: "401 ok ok ok 403 404",
   },
   // Public by design: signing up and accepting an invitation check their own inputs.
   "app/(auth)/actions.ts#signUpAction": {

@@ -47,7 +47,8 @@ const routeKeys = files
         if (/^(GET|POST|PUT|PATCH|DELETE)$/.test(x.trim())) methods.add(x.trim());
     return [...methods].map((m) => `${m} ${path}`);
   });
-const actionKeys = files
+// Server actions live beside their route (app/) or, when shared components call them, in lib/.
+const actionKeys = [...files, ...walk("lib")]
   .filter(
     (f) => f.endsWith(".ts") && /^["']use server["']/.test(readFileSync(f, "utf8").trimStart()),
   )

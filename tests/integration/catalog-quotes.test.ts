@@ -167,11 +167,13 @@ describe("quotes", () => {
     ).toBe(200);
     expect(await reserved()).toBe(2);
     const locked = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
-      version: saved.json.quote.version + 2,
+      version: saved.json.quote.version + 1, // the version it has now: the state refuses, not the version
       validUntil: "2099-01-01",
       lines: [],
     });
-    expect(locked.status).toBe(409);
+    expect(locked.status).toBe(422);
+    expect(locked.json.error.code).toBe("invalid_transition");
+    expect(await reserved()).toBe(2);
     expect(
       (await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "declined" }))
         .status,
@@ -343,10 +345,11 @@ describe("kit recommendation on a build", () => {
       .candidates.find((c: { fits: boolean }) => c.fits);
     const before = await fingerprint(["builds", "build_revisions"]);
     expect(
+      // A well-formed choice: the refusal is the role's (the command checks it after parsing).
       (
         await request(customer, "POST", `/api/v1/builds/${buildId}/kit`, {
           version: kit.json.buildVersion,
-          parts: [],
+          parts: [{ role: "injector", partId: best.part.id, quantity: best.quantity }],
         })
       ).status,
     ).toBe(403);

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { actionManifest, callAction } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
 
@@ -76,6 +77,71 @@ describe("share links", () => {
     ).toBe(422);
     const [any] = await sql`select id from share_links limit 1`;
     expect((await request(outsider, "DELETE", `/api/v1/share-links/${any!.id}`)).status).toBe(404);
+    expect(await fingerprint(["share_links"])).toBe(before);
+  });
+});
+
+describe("share links through the screen's actions", () => {
+  const prev = { ok: false };
+  type Made = { link: { id: string; expiresAt: string }; url: string };
+  const act = async (who: Client, name: string, input: unknown) => {
+    const ref = actionManifest().find(
+      (r) => r.file === "lib/shares/share-actions.ts" && r.name === name,
+    );
+    expect(ref, `${name} is in the build's action manifest`).toBeTruthy();
+    const r = await callAction(who, { ...ref!, page: `/builds/${BUILD}` }, [prev, input]);
+    expect(r.http).toBeLessThan(500);
+    return r.state as { ok: boolean; status?: number; data?: Made };
+  };
+
+  it("make and withdraw give the same result as the API", async () => {
+    const api = await request(counter, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 });
+    const viaAction = await act(counter, "createShareLinkAction", { buildId: BUILD, days: 7 });
+    expect(api.status).toBe(201);
+    expect(viaAction.ok).toBe(true);
+    const made = viaAction.data!;
+    // The same shape: { link: { id, expiresAt }, url }, a week ahead both.
+    expect(Object.keys(made).sort()).toEqual(Object.keys(api.json).sort());
+    expect(Object.keys(made.link).sort()).toEqual(Object.keys(api.json.link).sort());
+    const week = Date.now() + 7 * 86_400_000;
+    for (const m of [made, api.json as Made]) {
+      expect(Math.abs(Date.parse(m.link.expiresAt) - week)).toBeLessThan(60_000);
+      expect(path(m.url)).toMatch(/^\/share\/[\w-]+\.[\w-]+$/);
+      const page = await request(null, "GET", path(m.url));
+      expect(page.text).toContain("Twin-turbo V8");
+    }
+    const rows =
+      await sql`select id, build_id, created_by is not null as by from share_links where id in ${sql([made.link.id, api.json.link.id])}`;
+    expect(rows).toHaveLength(2);
+    expect(rows.every((r) => r.build_id === BUILD && r.by)).toBe(true);
+
+    // Each withdrawn the other way round.
+    expect((await request(counter, "DELETE", `/api/v1/share-links/${made.link.id}`)).status).toBe(
+      204,
+    );
+    expect(await act(counter, "revokeShareLinkAction", { id: api.json.link.id })).toMatchObject({
+      ok: true,
+    });
+    for (const m of [made, api.json as Made])
+      expect((await request(null, "GET", path(m.url))).text).toContain("withdrawn by the shop");
+  });
+
+  it("refuse the same callers the API refuses, and change nothing", async () => {
+    const [any] = await sql`select id from share_links where build_id = ${BUILD} limit 1`;
+    const before = await fingerprint(["share_links"]);
+    for (const [who, status] of [
+      [customer, 403],
+      [outsider, 404],
+    ] as const) {
+      const api = await request(who, "POST", `/api/v1/builds/${BUILD}/share-links`, { days: 7 });
+      const viaAction = await act(who, "createShareLinkAction", { buildId: BUILD, days: 7 });
+      expect([api.status, viaAction.status]).toEqual([status, status]);
+      const apiDel = await request(who, "DELETE", `/api/v1/share-links/${any!.id}`);
+      const actDel = await act(who, "revokeShareLinkAction", { id: any!.id });
+      expect([apiDel.status, actDel.status]).toEqual([status, status]);
+    }
+    const tooLong = await act(counter, "createShareLinkAction", { buildId: BUILD, days: 365 });
+    expect(tooLong).toMatchObject({ ok: false, status: 422 });
     expect(await fingerprint(["share_links"])).toBe(before);
   });
 });

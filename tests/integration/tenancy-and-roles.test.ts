@@ -166,7 +166,14 @@ describe("customers API input", () => {
     expect(r.status).toBe(422);
     const paths = r.json.error.issues.map((i: { path: string }) => i.path);
     expect(paths).toEqual(expect.arrayContaining(["name", "email"]));
-    expect((await request(counter, "POST", "/api/v1/customers", "{not json")).status).toBe(400);
+    const json = { "content-type": "application/json" };
+    expect((await request(counter, "POST", "/api/v1/customers", "{not json", json)).status).toBe(
+      400,
+    );
+    // A cross-site form can only send text/plain: JSON must say it is JSON.
+    const plain = { "content-type": "text/plain" };
+    const asText = await request(counter, "POST", "/api/v1/customers", '{"name":"X"}', plain);
+    expect(asText.status).toBe(415);
     expect((await request(counter, "GET", "/api/v1/customers/not-a-uuid")).status).toBe(404);
     expect(await fingerprint(["customers"])).toBe(before);
   });

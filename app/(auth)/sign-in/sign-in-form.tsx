@@ -9,7 +9,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { SignInSchema } from "@/lib/validations/auth";
 
 type In = z.input<typeof SignInSchema>;

@@ -6,11 +6,13 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { expireDueQuotes } from "@/lib/quotes/quote-commands";
 
 export const metadata: Metadata = { title: "Quotes" };
 
 export default async function QuotesPage() {
   const m = await requirePageMember("quotes:read");
+  await expireDueQuotes(m); // its own write, before the list (which only reads)
   const quotes = await listQuotes(m.shopId);
   return (
     <>

@@ -3,13 +3,14 @@ import { notFound } from "next/navigation";
 
 import { PageHeader } from "@/components/ui/status";
 import { logoFacts } from "@/db/queries/logos";
-import { getShopSettings, listMembers, listPendingInvitations } from "@/db/queries/shops";
+import { listMembers, listPendingInvitations } from "@/db/queries/members";
+import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
 import { minorToPlain } from "@/lib/catalog/money";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
-import { shopBsfc } from "@/lib/dyno/service";
+import { shopBsfc } from "@/lib/dyno/log-analysis";
 
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";

@@ -1,12 +1,10 @@
-import { sql } from "drizzle-orm";
-
-import { db } from "@/db";
+import { pingDatabase } from "@/db/queries/health";
 import { handle } from "@/lib/http/handler";
 
 export const dynamic = "force-dynamic";
 
 /** Liveness with a database round trip: 200 or 503. */
 export const GET = handle(async () => {
-  await db.execute(sql`select 1`);
+  await pingDatabase();
   return Response.json({ ok: true });
 });

@@ -1,7 +1,8 @@
 import { headers } from "next/headers";
 
 import { findUserByEmail, getInvitation } from "@/db/queries/shops";
-import { auth } from "@/lib/auth";
+import { invitationProblem } from "@/lib/accounts/account-commands";
+import { auth } from "@/lib/auth/server";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 
 import { AcceptForm, AcceptSignedInButton } from "./accept-form";
@@ -13,13 +14,7 @@ export default async function AcceptInvitationPage({
 }) {
   const { id } = await params;
   const inv = await getInvitation(id);
-  const bad = !inv
-    ? "This invitation does not exist."
-    : inv.invitation.status !== "pending"
-      ? "This invitation has already been used or withdrawn."
-      : inv.invitation.expiresAt < new Date()
-        ? "This invitation has expired; ask the shop for a new one."
-        : null;
+  const bad = invitationProblem(inv);
   if (bad || !inv) {
     return (
       <>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
+import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
@@ -10,9 +11,9 @@ import { getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import type { FuelSystemInput } from "@/lib/calc";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import { STATUS_LABELS } from "@/lib/domain/builds";
-import { shopBsfc } from "@/lib/dyno/service";
+import { shopBsfc } from "@/lib/dyno/log-analysis";
 
 export const metadata: Metadata = { title: "Build sheet" };
 
@@ -60,10 +61,11 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         title={b.title}
         status={b.status}
         version={b.version}
-        inputs={b.inputs as FuelSystemInput}
+        inputs={readStoredInputs(b)}
         readOnly={!can(m.role, "builds:write")}
         units={await unitSystemOf(m.user.id, m.shopId)}
         shopBsfc={bsfcRows}
+        setUnitsAction={setUnitsAction}
       />
       <section
         aria-labelledby="revs"

@@ -3,18 +3,16 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 
-import { createBuild } from "@/db/queries/builds";
 import { memberAction } from "@/lib/actions/member-action";
-import { newBuildInputs } from "@/lib/builds/defaults";
-import { sizeForSave } from "@/lib/builds/service";
+import { createBuild } from "@/lib/builds/build-commands";
 import { BuildCreateSchema } from "@/lib/validations/builds";
 
+/** The new-build form: a build with the default inputs for the chosen customer, then opens it. */
 export const createBuildAction = memberAction(
-  "builds:write",
   BuildCreateSchema.omit({ inputs: true }),
-  async (data, m) => {
-    const b = await createBuild(m.shopId, m.user.id, { ...data, ...sizeForSave(newBuildInputs()) });
+  async (m, input) => {
+    const { build } = await createBuild(m, input);
     revalidatePath("/builds");
-    redirect(`/builds/${b.id}`);
+    redirect(`/builds/${build.id}`);
   },
 );

@@ -1,8 +1,7 @@
-import { createBuild, listBuilds } from "@/db/queries/builds";
+import { listBuilds } from "@/db/queries/builds";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
-import { newBuildInputs } from "@/lib/builds/defaults";
-import { sizeForSave } from "@/lib/builds/service";
+import { createBuild } from "@/lib/builds/build-commands";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { BuildCreateSchema, BuildListQuery } from "@/lib/validations/builds";
@@ -25,14 +24,7 @@ export const GET = handle(async (req) => {
 
 /** POST /api/v1/builds — a new build sheet for a customer (default inputs when none are sent). */
 export const POST = handle(async (req) => {
-  const m = await requireMember("builds:write");
-  const body = BuildCreateSchema.parse(await readJson(req));
-  const sized = sizeForSave(body.inputs ?? newBuildInputs());
-  const build = await createBuild(m.shopId, m.user.id, {
-    customerId: body.customerId,
-    title: body.title,
-    vehicle: body.vehicle,
-    ...sized,
-  });
-  return Response.json({ build }, { status: 201 });
+  const m = await requireMember();
+  const input = BuildCreateSchema.parse(await readJson(req));
+  return Response.json(await createBuild(m, input), { status: 201 });
 });

@@ -1,14 +1,15 @@
 import { listQuotes } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
-import { quoteFromBuild } from "@/lib/catalog/quote-service";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
+import { createQuote, expireDueQuotes } from "@/lib/quotes/quote-commands";
 import { QuoteCreateSchema } from "@/lib/validations/quotes";
 
-/** GET /api/v1/quotes — the shop's quotes (a customer's own only). */
+/** GET /api/v1/quotes — the shop's quotes (a customer's own only); due ones expire first. */
 export const GET = handle(async () => {
   const m = await requireMember("quotes:view");
+  await expireDueQuotes(m);
   return Response.json({
     quotes: await listQuotes(m.shopId, {
       portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined,
@@ -18,7 +19,7 @@ export const GET = handle(async () => {
 
 /** POST /api/v1/quotes — a draft from a build's chosen parts ({ buildId }) or for a customer. */
 export const POST = handle(async (req) => {
-  const m = await requireMember("quotes:write");
-  const body = QuoteCreateSchema.parse(await readJson(req));
-  return Response.json({ quote: await quoteFromBuild(m.shopId, m.user.id, body) }, { status: 201 });
+  const m = await requireMember();
+  const input = QuoteCreateSchema.parse(await readJson(req));
+  return Response.json({ quote: await createQuote(m, input) }, { status: 201 });
 });

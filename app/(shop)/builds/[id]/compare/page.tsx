@@ -7,7 +7,7 @@ import { getBuild, getRevision, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { compareKeyFigures, diffInputs } from "@/lib/builds/diff";
-import type { FuelSystemResult } from "@/lib/calc";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
@@ -39,15 +39,8 @@ export default async function CompareRevisionsPage({
     listRevisions(m.shopId, id),
     unitSystemOf(m.user.id, m.shopId),
   ]);
-  const changes = a && b ? diffInputs(a.inputs, b.inputs, units) : [];
-  const figures =
-    a && b
-      ? compareKeyFigures(
-          a.result as FuelSystemResult | null,
-          b.result as FuelSystemResult | null,
-          units,
-        )
-      : [];
+  const changes = a && b ? diffInputs(readStoredInputs(a), readStoredInputs(b), units) : [];
+  const figures = a && b ? compareKeyFigures(a.result, b.result, units) : [];
   const picker = (name: string, value: number, label: string) => (
     <div>
       <label htmlFor={`cmp-${name}`} className="block text-sm font-medium text-ink-700">

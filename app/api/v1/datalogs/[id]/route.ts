@@ -1,5 +1,5 @@
 import { requireMember } from "@/lib/auth/member";
-import { datalogView } from "@/lib/dyno/service";
+import { datalogView } from "@/lib/dyno/log-analysis";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 

@@ -1,11 +1,12 @@
-import { getQuote, updateQuote } from "@/db/queries/quotes";
+import { getQuote } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
-import { QuoteUpdateSchema } from "@/lib/validations/quotes";
+import { editQuote } from "@/lib/quotes/quote-commands";
+import { QuoteEditSchema } from "@/lib/validations/quotes";
 
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
@@ -18,10 +19,18 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
   return Response.json(q);
 });
 
-/** PATCH with the `version` the edit started from: lines, validity, notes (draft or sent only). */
+/**
+ * PATCH with the `version` the edit started from and any of lines, validity and notes (draft
+ * or sent only); a stale version → 409 with the quote as it is now in `current`.
+ */
 export const PATCH = handle<IdCtx>(async (req, ctx) => {
-  const m = await requireMember("quotes:write");
+  const m = await requireMember();
   const id = await uuidParam(ctx, "That quote");
-  const body = QuoteUpdateSchema.parse(await readJson(req));
-  return Response.json({ quote: await updateQuote(m.shopId, id, body.version, body) });
+  const input = QuoteEditSchema.parse({ ...asObject(await readJson(req)), id });
+  return Response.json({ quote: await editQuote(m, input) });
 });
+
+/** A JSON body that is not an object is parsed as an empty one (its fields are then missing). */
+function asObject(body: unknown): object {
+  return body && typeof body === "object" && !Array.isArray(body) ? body : {};
+}

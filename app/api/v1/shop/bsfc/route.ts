@@ -1,5 +1,5 @@
 import { requireMember } from "@/lib/auth/member";
-import { shopBsfc } from "@/lib/dyno/service";
+import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { handle } from "@/lib/http/handler";
 
 /** GET — the shop's measured BSFC by fuel class and aspiration, learnt from its verified builds. */

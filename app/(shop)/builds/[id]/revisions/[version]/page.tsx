@@ -8,7 +8,7 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { diffInputs } from "@/lib/builds/diff";
-import type { FuelSystemResult } from "@/lib/calc";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 
 import { RestoreButton } from "./restore-button";
@@ -62,7 +62,7 @@ export default async function RevisionPage({
         <section className="rounded-lg border border-ink-200 bg-white p-5">
           <h2 className="text-lg font-semibold">Inputs</h2>
           <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
-            {diffInputs({}, rev.inputs, units).map((c) => (
+            {diffInputs({}, readStoredInputs(rev), units).map((c) => (
               <div key={c.path} className="contents">
                 <dt className="text-ink-600">{c.label}</dt>
                 <dd className="figure">{c.after}</dd>
@@ -70,7 +70,7 @@ export default async function RevisionPage({
             ))}
           </dl>
         </section>
-        <ResultsPanel result={rev.result as FuelSystemResult | null} units={units} />
+        <ResultsPanel result={rev.result} units={units} />
       </div>
     </>
   );

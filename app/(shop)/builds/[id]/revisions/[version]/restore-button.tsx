@@ -4,6 +4,7 @@ import { useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
+import { initialActionState } from "@/lib/actions/state";
 
 import { restoreRevisionAction } from "./actions";
 
@@ -21,7 +22,9 @@ export function RestoreButton(props: { buildId: string; version: number; current
             )
           )
             return;
-          start(async () => setMessage((await restoreRevisionAction(props)).message));
+          start(async () =>
+            setMessage((await restoreRevisionAction(initialActionState, props)).message),
+          );
         }}
       >
         Restore as new revision

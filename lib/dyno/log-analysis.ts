@@ -1,26 +1,14 @@
 import "server-only";
 
-import { z, ZodError } from "zod";
-
-import { getBuild, saveBuild } from "@/db/queries/builds";
-import {
-  getDatalog,
-  markDatalogVerified,
-  rememberedMapping,
-  saveAnalysis,
-  verifiedBsfcPoints,
-} from "@/db/queries/datalogs";
+import { getDatalog, rememberedMapping, verifiedBsfcPoints } from "@/db/queries/datalogs";
+import type { DatalogRow } from "@/db/schema";
 import {
   analyzePull,
   ASPIRATIONS,
-  CALC_VERSION,
-  DatalogMappingSchema,
   defaultBsfc,
   dutyAcrossRpm,
   fuelBlend,
-  FuelSystemInputSchema,
   headerKey,
-  mappingProblems,
   parseDatalog,
   sampleDutyPct,
   samplesFromLog,
@@ -28,14 +16,19 @@ import {
   sizeParsedFuelSystem,
   suggestMapping,
   type Aspiration,
+  type Datalog,
+  type DatalogMapping,
+  type ParsedFuelSystemInput,
   type PullContext,
 } from "@/lib/calc";
-import { STATUS_LABELS, STATUS_NEXT } from "@/lib/domain/builds";
 import { NotFound } from "@/lib/domain/errors";
-import { HttpError } from "@/lib/http/http-error";
 import { getObject } from "@/lib/storage";
 
-async function load(shopId: string, id: string) {
+/** The log's row and its file, parsed again from object storage. */
+export async function loadDatalog(
+  shopId: string,
+  id: string,
+): Promise<{ d: DatalogRow; log: Datalog }> {
   const d = await getDatalog(shopId, id);
   if (!d) throw new NotFound("That datalog");
   const log = parseDatalog((await getObject(d.objectKey)).toString("utf8"));
@@ -44,7 +37,7 @@ async function load(shopId: string, id: string) {
 
 /** The log's facts with the mapping to start from: the shop's remembered one for this logger, else a guess. */
 export async function datalogView(shopId: string, id: string) {
-  const { d, log } = await load(shopId, id);
+  const { d, log } = await loadDatalog(shopId, id);
   const remembered = await rememberedMapping(shopId, headerKey(log.headers));
   const { objectKey: _k, ...datalog } = d;
   return {
@@ -56,25 +49,12 @@ export async function datalogView(shopId: string, id: string) {
   };
 }
 
-/** Analyses the log with a mapping against its build's injectors and targets; remembers the mapping. */
-export async function analyseDatalog(shopId: string, userId: string, id: string, body: unknown) {
-  const mapping = z
-    .object({ mapping: DatalogMappingSchema }, { error: "Send { mapping }" })
-    .parse(body).mapping;
-  const { d, log } = await load(shopId, id);
-  const problems = mappingProblems(mapping, log.headers);
-  if (problems.length)
-    throw new ZodError(
-      problems.map((p) => ({
-        code: "custom" as const,
-        path: ["mapping", ...p.path.split(".")],
-        message: p.message,
-        input: undefined,
-      })),
-    );
-  const row = await getBuild(shopId, d.buildId);
-  if (!row) throw new NotFound("That build");
-  const input = FuelSystemInputSchema.parse(row.build.inputs);
+/**
+ * A pull measured against the build's sizing: the analysis (peak duty, lambda error, fuel
+ * pressure, flow, BSFC) with the ethanol, target lambda and predicted peak duty it was judged on,
+ * and a thinned series of measured against predicted duty for the chart.
+ */
+export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedFuelSystemInput) {
   const result = sizeParsedFuelSystem(input);
   const samples = samplesFromLog(log, mapping);
   const ethIdx = mapping.ethanol ? log.headers.indexOf(mapping.ethanol.column) : -1;
@@ -122,41 +102,15 @@ export async function analyseDatalog(shopId: string, userId: string, id: string,
       lambdaTarget: targetLambda,
       fuelDiffKpa: s.fuelDiffKpa ?? null,
     }));
-  const stored = {
-    ...analysis,
-    ethanolPct,
-    targetLambda,
-    predictedPeakDutyPct: result.blend.rich.dutyPct,
+  return {
+    analysis: {
+      ...analysis,
+      ethanolPct,
+      targetLambda,
+      predictedPeakDutyPct: result.blend.rich.dutyPct,
+    },
+    series,
   };
-  await saveAnalysis(shopId, userId, id, headerKey(log.headers), mapping, stored);
-  return { analysis: stored, series };
-}
-
-/** "Mark verified": the build moves to verified, with this analysed log attached, as a new revision. */
-export async function verifyWithDatalog(shopId: string, userId: string, id: string) {
-  const d = await getDatalog(shopId, id);
-  if (!d) throw new NotFound("That datalog");
-  if (!d.analysis)
-    throw new HttpError(409, "not_analysed", "Analyse the log before marking the build verified");
-  const row = await getBuild(shopId, d.buildId);
-  if (!row) throw new NotFound("That build");
-  const b = row.build;
-  if (b.status !== "verified" && !STATUS_NEXT[b.status].includes("verified"))
-    throw new HttpError(
-      409,
-      "invalid_transition",
-      `Only a fitted build is verified; this one is ${STATUS_LABELS[b.status].toLowerCase()}`,
-    );
-  const input = FuelSystemInputSchema.parse(b.inputs);
-  const saved = await saveBuild(shopId, b.id, userId, b.version, {
-    status: "verified",
-    note: `Verified with dyno log ${d.fileName}`,
-    inputs: b.inputs,
-    result: sizeParsedFuelSystem(input),
-    calcVersion: CALC_VERSION,
-  });
-  await markDatalogVerified(shopId, userId, id);
-  return saved;
 }
 
 /** The shop's measured BSFC by fuel class and aspiration, from its verified builds. */

@@ -1,16 +1,14 @@
 import { betterAuth } from "better-auth";
-import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
 import { organization } from "better-auth/plugins";
 import { createAccessControl } from "better-auth/plugins/access";
 import { defaultStatements, ownerAc } from "better-auth/plugins/organization/access";
-import { and, asc, eq } from "drizzle-orm";
 
-import { db } from "@/db";
-import * as schema from "@/db/schema";
-import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
+import { authAdapter } from "@/db/auth-adapter";
+import { firstShopOf, hasPendingInvitation } from "@/db/queries/members";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
+import { INVITATION_DAYS, invitationMail } from "@/lib/members/invitation-mail";
 
 const env = serverEnv();
 const ac = createAccessControl(defaultStatements);
@@ -30,7 +28,7 @@ export const auth = betterAuth({
   baseURL: env.APP_URL,
   secret: env.BETTER_AUTH_SECRET,
   trustedOrigins: [`http://localhost:${port}`, `http://127.0.0.1:${port}`, env.APP_URL],
-  database: drizzleAdapter(db, { provider: "pg", schema }),
+  database: authAdapter,
   emailAndPassword: {
     enabled: true,
     requireEmailVerification: true,
@@ -50,14 +48,7 @@ export const auth = betterAuth({
     autoSignInAfterVerification: true,
     sendVerificationEmail: async ({ user, url }) => {
       // An invited person proves the address by the invitation link; no second e-mail.
-      const [pending] = await db
-        .select({ id: schema.invitation.id })
-        .from(schema.invitation)
-        .where(
-          and(eq(schema.invitation.email, user.email), eq(schema.invitation.status, "pending")),
-        )
-        .limit(1);
-      if (pending) return;
+      if (await hasPendingInvitation(user.email)) return;
       await sendMail({
         to: user.email,
         subject: "Confirm your e-mail for Fuelwright",
@@ -75,15 +66,9 @@ export const auth = betterAuth({
     session: {
       create: {
         // A new session starts in the member's first shop.
-        before: async (s) => {
-          const [m] = await db
-            .select({ organizationId: schema.member.organizationId })
-            .from(schema.member)
-            .where(eq(schema.member.userId, s.userId))
-            .orderBy(asc(schema.member.createdAt))
-            .limit(1);
-          return { data: { ...s, activeOrganizationId: m?.organizationId ?? null } };
-        },
+        before: async (s) => ({
+          data: { ...s, activeOrganizationId: await firstShopOf(s.userId) },
+        }),
       },
     },
   },
@@ -93,15 +78,18 @@ export const auth = betterAuth({
       roles,
       creatorRole: "owner",
       allowUserToCreateOrganization: false,
-      invitationExpiresIn: 7 * 24 * 60 * 60,
+      invitationExpiresIn: INVITATION_DAYS * 24 * 60 * 60,
+      // The same e-mail as the settings page's invitations (lib/members/member-commands.ts).
       sendInvitationEmail: async (data) => {
-        const url = `${env.APP_URL}/accept-invitation/${data.id}`;
-        const role = isRole(data.role) ? ROLE_LABELS[data.role] : data.role;
-        await sendMail({
-          to: data.email,
-          subject: `${data.organization.name} invites you to Fuelwright`,
-          text: `${data.inviter.user.name} invites you to join ${data.organization.name} on Fuelwright as ${role}.\n\nSet your password and join here (valid for 7 days):\n${url}\n`,
-        });
+        await sendMail(
+          invitationMail({
+            id: data.id,
+            email: data.email,
+            role: data.role,
+            shopName: data.organization.name,
+            inviterName: data.inviter.user.name,
+          }),
+        );
       },
     }),
     nextCookies(),
@@ -109,13 +97,3 @@ export const auth = betterAuth({
 });
 
 export type Session = typeof auth.$Infer.Session;
-
-/** Is this user a member of the shop? (Used by the session hook and the invitation flow.) */
-export async function membershipOf(userId: string, shopId: string) {
-  const [m] = await db
-    .select()
-    .from(schema.member)
-    .where(and(eq(schema.member.userId, userId), eq(schema.member.organizationId, shopId)))
-    .limit(1);
-  return m;
-}

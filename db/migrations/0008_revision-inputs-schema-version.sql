@@ -1,0 +1,1 @@
+ALTER TABLE "build_revisions" ADD COLUMN "inputs_schema_version" integer DEFAULT 1 NOT NULL;

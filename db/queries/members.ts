@@ -1,0 +1,156 @@
+import { and, asc, desc, eq, gt } from "drizzle-orm";
+
+import { db } from "@/db";
+import { invitation, member, organization, user } from "@/db/schema";
+import { Conflict, NotFound } from "@/lib/domain/errors";
+
+/**
+ * The membership a session acts with: the session's shop if it names one, else the person's
+ * first shop. Null when the person is not (or no longer) a member.
+ */
+export async function sessionMembership(userId: string, shopId: string | null) {
+  const [row] = await db
+    .select({ role: member.role, shopId: member.organizationId, shopName: organization.name })
+    .from(member)
+    .innerJoin(organization, eq(organization.id, member.organizationId))
+    .where(
+      shopId
+        ? and(eq(member.userId, userId), eq(member.organizationId, shopId))
+        : eq(member.userId, userId),
+    )
+    .orderBy(asc(member.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The shop a new session starts in: the person's first membership, or null. */
+export async function firstShopOf(userId: string): Promise<string | null> {
+  const [row] = await db
+    .select({ shopId: member.organizationId })
+    .from(member)
+    .where(eq(member.userId, userId))
+    .orderBy(asc(member.createdAt))
+    .limit(1);
+  return row?.shopId ?? null;
+}
+
+/** Is an invitation to this e-mail still pending in any shop? (Its link proves the address.) */
+export async function hasPendingInvitation(email: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: invitation.id })
+    .from(invitation)
+    .where(and(eq(invitation.email, email), eq(invitation.status, "pending")))
+    .limit(1);
+  return Boolean(row);
+}
+
+export async function listMembers(shopId: string) {
+  return db
+    .select({
+      id: member.id,
+      role: member.role,
+      userId: member.userId,
+      name: user.name,
+      email: user.email,
+      createdAt: member.createdAt,
+    })
+    .from(member)
+    .innerJoin(user, eq(user.id, member.userId))
+    .where(eq(member.organizationId, shopId))
+    .orderBy(asc(member.createdAt));
+}
+
+export async function listPendingInvitations(shopId: string) {
+  return db
+    .select()
+    .from(invitation)
+    .where(and(eq(invitation.organizationId, shopId), eq(invitation.status, "pending")))
+    .orderBy(desc(invitation.createdAt));
+}
+
+/** Is someone with this e-mail already a member of the shop? */
+export async function isMemberByEmail(shopId: string, email: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: member.id })
+    .from(member)
+    .innerJoin(user, eq(user.id, member.userId))
+    .where(and(eq(member.organizationId, shopId), eq(user.email, email)))
+    .limit(1);
+  return Boolean(row);
+}
+
+/** Is an invitation of the shop to this e-mail pending and not yet expired? */
+export async function hasOpenInvitation(shopId: string, email: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: invitation.id })
+    .from(invitation)
+    .where(
+      and(
+        eq(invitation.organizationId, shopId),
+        eq(invitation.email, email),
+        eq(invitation.status, "pending"),
+        gt(invitation.expiresAt, new Date()),
+      ),
+    )
+    .limit(1);
+  return Boolean(row);
+}
+
+/** Records an invitation (its id is the secret of the e-mailed link). */
+export async function insertInvitation(
+  shopId: string,
+  values: { id: string; email: string; role: string; inviterId: string; expiresAt: Date },
+) {
+  const [row] = await db
+    .insert(invitation)
+    .values({ ...values, organizationId: shopId, status: "pending" })
+    .returning({ id: invitation.id, email: invitation.email, expiresAt: invitation.expiresAt });
+  return row!;
+}
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * The shop's members, locked until the transaction ends, with the one asked for: two owners
+ * demoting each other at once cannot leave the shop without an owner.
+ */
+async function lockedMembers(tx: Tx, shopId: string, memberId: string) {
+  const rows = await tx
+    .select({ id: member.id, role: member.role })
+    .from(member)
+    .where(eq(member.organizationId, shopId))
+    .for("update");
+  const target = rows.find((r) => r.id === memberId);
+  if (!target) throw new NotFound("That member");
+  const owners = rows.filter((r) => r.role === "owner").length;
+  return { target, owners };
+}
+
+const LAST_OWNER = () => new Conflict("The shop needs at least one owner", "last_owner");
+
+/** Gives a member another role; the last owner stays an owner. False when nothing changed. */
+export async function setMemberRole(
+  shopId: string,
+  memberId: string,
+  role: string,
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const { target, owners } = await lockedMembers(tx, shopId, memberId);
+    if (target.role === role) return false;
+    if (target.role === "owner" && owners <= 1) throw LAST_OWNER();
+    await tx
+      .update(member)
+      .set({ role })
+      .where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
+    return true;
+  });
+}
+
+/** Removes a member from the shop; the last owner stays. */
+export async function removeMember(shopId: string, memberId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const { target, owners } = await lockedMembers(tx, shopId, memberId);
+    if (target.role === "owner" && owners <= 1) throw LAST_OWNER();
+    await tx.delete(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
+  });
+}

@@ -1,0 +1,107 @@
+import "server-only";
+
+import type { z } from "zod";
+
+import {
+  getBuild,
+  getRevision,
+  createBuild as insertBuild,
+  saveBuild as saveBuildRow,
+} from "@/db/queries/builds";
+import { getCustomer } from "@/db/queries/customers";
+import type { Member } from "@/lib/auth/member";
+import { authorize } from "@/lib/auth/permissions";
+import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
+import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
+import type {
+  BuildCreateSchema,
+  BuildRefSchema,
+  BuildSaveSchema,
+  RevisionRestoreSchema,
+} from "@/lib/validations/builds";
+
+import { buildData, saved, type BuildResult } from "./build-data";
+import { newBuildInputs } from "./defaults";
+import { readStoredInputs, sizeForSave } from "./stored-inputs";
+
+/** A new build sheet for one of the shop's customers, sized on the server (default inputs if none). */
+export async function createBuild(
+  m: Member,
+  input: z.output<typeof BuildCreateSchema>,
+): Promise<BuildResult> {
+  authorize(m, "builds:write");
+  if (!(await getCustomer(m.shopId, input.customerId)))
+    throw Invalid.field("customerId", "That customer is not in this shop");
+  const b = await insertBuild(m.shopId, m.user.id, {
+    customerId: input.customerId,
+    title: input.title,
+    vehicle: input.vehicle,
+    sized: sizeForSave(input.inputs ?? newBuildInputs()),
+  });
+  return { build: buildData(b) };
+}
+
+/**
+ * Saves the build sheet from the version the edit started from: only the fields sent change, the
+ * inputs are validated and sized again on the server, a status moves only along STATUS_NEXT.
+ * A stale version → Conflict (409) carrying the current build; nothing is overwritten.
+ */
+export async function saveBuild(
+  m: Member,
+  input: z.output<typeof BuildSaveSchema>,
+): Promise<BuildResult> {
+  authorize(m, "builds:write");
+  const row = await getBuild(m.shopId, input.id);
+  if (!row) throw new NotFound("That build");
+  checkTransition(row.build.status, input.status);
+  const { id, version, inputs, ...fields } = input;
+  return saved(
+    saveBuildRow(m.shopId, id, m.user.id, version, {
+      ...fields,
+      ...(inputs ? { sized: sizeForSave(inputs) } : {}),
+    }),
+  );
+}
+
+/** "Power step": a new build for the same car, starting from this build's inputs. */
+export async function copyBuild(
+  m: Member,
+  input: z.output<typeof BuildRefSchema>,
+): Promise<BuildResult> {
+  authorize(m, "builds:write");
+  const row = await getBuild(m.shopId, input.id);
+  if (!row) throw new NotFound("That build");
+  const b = await insertBuild(m.shopId, m.user.id, {
+    customerId: row.build.customerId,
+    title: `${row.build.title} — next step`.slice(0, 120),
+    vehicle: row.build.vehicle ?? undefined,
+    sized: sizeForSave(readStoredInputs(row.build)),
+  });
+  return { build: buildData(b) };
+}
+
+/** Restores an earlier revision's inputs and parts as a new revision, sized with today's library. */
+export async function restoreRevision(
+  m: Member,
+  input: z.output<typeof RevisionRestoreSchema>,
+): Promise<BuildResult> {
+  authorize(m, "builds:write");
+  const rev = await getRevision(m.shopId, input.buildId, input.version);
+  if (!rev) throw new NotFound("That revision");
+  return saved(
+    saveBuildRow(m.shopId, input.buildId, m.user.id, input.currentVersion, {
+      sized: sizeForSave(readStoredInputs(rev)),
+      parts: rev.parts,
+      note: `Restored from version ${input.version}`,
+    }),
+  );
+}
+
+/** Refuses a status move the workflow does not allow. */
+function checkTransition(from: BuildStatus, to: BuildStatus | undefined): void {
+  if (!to || to === from) return;
+  if (!STATUS_NEXT[from].includes(to))
+    throw new InvalidTransition(
+      `A build cannot go from ${STATUS_LABELS[from]} to ${STATUS_LABELS[to]}`,
+    );
+}

@@ -1,0 +1,70 @@
+import "server-only";
+
+import type { z } from "zod";
+
+import { getBuild, saveBuild } from "@/db/queries/builds";
+import { getPartsByIds } from "@/db/queries/parts";
+import type { Member } from "@/lib/auth/member";
+import { authorize } from "@/lib/auth/permissions";
+import { applyKit } from "@/lib/catalog/recommend";
+import type { ChosenPart, KitRole } from "@/lib/domain/builds";
+import { Invalid, NotFound } from "@/lib/domain/errors";
+import type { PartCategory } from "@/lib/domain/parts";
+import type { KitChoiceSchema } from "@/lib/validations/kit";
+
+import { saved, type BuildResult } from "./build-data";
+import { catalogPartOf } from "./kit-recommendation";
+import { readStoredInputs, sizeForSave } from "./stored-inputs";
+
+/** The catalog category a part must have to fill each kit role. */
+const CATEGORY_OF: Record<KitRole, PartCategory> = {
+  injector: "injector",
+  pump: "pump",
+  regulator: "regulator",
+  "feed-line": "line",
+  "return-line": "line",
+  filter: "filter",
+  sensor: "sensor",
+};
+
+/**
+ * Writes the chosen catalog parts into the build as a new revision: their data goes into the
+ * inputs (injector flow, pump curves, hose bores), the sizing runs on it, and the choice is kept
+ * in `builds.parts`. A stale version → Conflict with the current build.
+ */
+export async function chooseKit(
+  m: Member,
+  input: z.output<typeof KitChoiceSchema>,
+): Promise<BuildResult> {
+  authorize(m, "kit:choose");
+  const row = await getBuild(m.shopId, input.id);
+  if (!row) throw new NotFound("That build");
+  const found = new Map(
+    (await getPartsByIds(m.shopId, [...new Set(input.parts.map((c) => c.partId))])).map((p) => [
+      p.id,
+      p,
+    ]),
+  );
+  const chosen = input.parts.map((c, i) => {
+    const p = found.get(c.partId);
+    if (!p) throw Invalid.field(`parts.${i}.partId`, "A chosen part is not in this shop's catalog");
+    const wanted = CATEGORY_OF[c.role];
+    if (p.category !== wanted)
+      throw Invalid.field(`parts.${i}.role`, `${p.sku} is a ${p.category}, not a ${wanted}`);
+    return { role: c.role, part: catalogPartOf(p), quantity: c.quantity };
+  });
+  const parts: ChosenPart[] = chosen.map((c) => ({
+    role: c.role,
+    partId: c.part.id,
+    sku: c.part.sku,
+    name: `${c.part.brand} ${c.part.name}`,
+    quantity: c.quantity,
+  }));
+  return saved(
+    saveBuild(m.shopId, input.id, m.user.id, input.version, {
+      sized: sizeForSave(applyKit(readStoredInputs(row.build), chosen)),
+      parts,
+      note: `Parts chosen: ${parts.map((p) => p.sku).join(", ")}`,
+    }),
+  );
+}

@@ -1,0 +1,266 @@
+import "server-only";
+
+import { randomBytes } from "node:crypto";
+
+import { getBuild } from "@/db/queries/builds";
+import { getCustomer } from "@/db/queries/customers";
+import { getPartsByIds } from "@/db/queries/parts";
+import {
+  expireQuotes,
+  findPortalInvitation,
+  getQuote,
+  insertQuote,
+  insertRevision,
+  recordQuoteSent,
+  setQuoteStatus,
+  updateQuote,
+  type QuoteRow,
+} from "@/db/queries/quotes";
+import { getShopSettings } from "@/db/queries/shops";
+import type { Member } from "@/lib/auth/member";
+import { authorize } from "@/lib/auth/permissions";
+import {
+  Conflict,
+  Invalid,
+  InvalidTransition,
+  NotFound,
+  Unavailable,
+  type FieldIssue,
+} from "@/lib/domain/errors";
+import {
+  QUOTE_EDITABLE,
+  QUOTE_NEXT,
+  QUOTE_STATUS_LABELS,
+  type QuoteStatus,
+} from "@/lib/domain/quotes";
+import { serverEnv } from "@/lib/env";
+import { sendMail } from "@/lib/mail";
+import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
+
+import { quoteEmail } from "./quote-email";
+import { linesFromBuild } from "./quote-lines";
+
+/**
+ * Every write on a quote: one command each, called alike by the server actions
+ * (lib/quotes/quote-actions.ts), the JSON API (app/api/v1/quotes) and the pages. Each checks
+ * the member's role, then the quote's state, then writes in one transaction; refusals are
+ * domain errors (lib/domain/errors.ts).
+ */
+
+/** Labour hours a quote from a build starts with when none are given. */
+const DEFAULT_LABOUR_HOURS = 4;
+/** Labour rate (minor units per hour) when the shop has no settings row yet. */
+const DEFAULT_LABOUR_RATE_MINOR = 12000;
+
+const lower = (s: QuoteStatus) => QUOTE_STATUS_LABELS[s].toLowerCase();
+
+async function quoteOf(member: Member, id: string, own = false) {
+  const q = await getQuote(member.shopId, id, own ? member.user.id : undefined);
+  if (!q) throw new NotFound("That quote");
+  return q;
+}
+
+/** Part lines must name parts of the member's shop: each one that does not is a field error. */
+async function checkLineParts(shopId: string, lines: QuoteLineInput[]) {
+  const ids = [...new Set(lines.flatMap((l) => (l.partId ? [l.partId] : [])))];
+  if (ids.length === 0) return;
+  const found = new Set((await getPartsByIds(shopId, ids)).map((p) => p.id));
+  const issues: FieldIssue[] = lines.flatMap((l, i) =>
+    l.partId && !found.has(l.partId)
+      ? [{ path: `lines.${i}.partId`, message: "That part is not in this shop's catalog" }]
+      : [],
+  );
+  if (issues.length)
+    throw new Invalid("A line names a part that is not in this shop's catalog", issues);
+}
+
+/**
+ * A draft quote: from a build (its chosen parts at today's prices and a labour line, for the
+ * build's customer) or an empty one for a customer.
+ */
+export async function createQuote(member: Member, input: QuoteCreate): Promise<QuoteRow> {
+  authorize(member, "quotes:write");
+  const { shopId } = member;
+  if (input.buildId) {
+    const row = await getBuild(shopId, input.buildId);
+    if (!row) throw Invalid.field("buildId", "That build is not in this shop");
+    const [catalog, settings] = await Promise.all([
+      getPartsByIds(
+        shopId,
+        row.build.parts.map((p) => p.partId),
+      ),
+      getShopSettings(shopId),
+    ]);
+    const lines = linesFromBuild(row.build.parts, catalog, {
+      hours: input.labourHours ?? DEFAULT_LABOUR_HOURS,
+      rateMinor: settings?.settings.labourRateMinor ?? DEFAULT_LABOUR_RATE_MINOR,
+    });
+    return insertQuote(shopId, member.user.id, {
+      customerId: row.build.customerId,
+      buildId: row.build.id,
+      validUntil: input.validUntil,
+      lines,
+      notes: `For ${row.build.title}`,
+    });
+  }
+  const customer = await getCustomer(shopId, input.customerId!);
+  if (!customer) throw Invalid.field("customerId", "That customer is not in this shop");
+  return insertQuote(shopId, member.user.id, {
+    customerId: customer.id,
+    validUntil: input.validUntil,
+    lines: [],
+  });
+}
+
+/**
+ * Saves the fields given (lines, validity, notes; an absent one is left as it is) on a draft
+ * or sent quote, if it is still at the version the edit started from; else Conflict with the
+ * quote as it is now, and nothing is overwritten.
+ */
+export async function editQuote(member: Member, input: QuoteEdit): Promise<QuoteRow> {
+  authorize(member, "quotes:write");
+  const { id, version, ...fields } = input;
+  const q = await quoteOf(member, id);
+  const status = q.quote.status;
+  if (!QUOTE_EDITABLE.includes(status))
+    throw new InvalidTransition(
+      status === "accepted"
+        ? "An accepted quote cannot be edited; make a new revision of it instead"
+        : `A quote that is ${lower(status)} cannot be edited`,
+    );
+  if (fields.lines) await checkLineParts(member.shopId, fields.lines);
+  return updateQuote(member.shopId, id, version, fields);
+}
+
+/**
+ * E-mails a draft or sent quote to its customer (with a portal invitation when they have no
+ * sign-in yet), then — only once the mail server took it — logs the message, records the
+ * invitation and moves a draft to sent. A failed send writes nothing.
+ */
+export async function sendQuote(
+  member: Member,
+  input: { id: string },
+): Promise<{ to: string; subject: string; invited: boolean }> {
+  authorize(member, "quotes:write");
+  const { shopId } = member;
+  const q = await quoteOf(member, input.id);
+  if (q.quote.status !== "draft" && q.quote.status !== "sent")
+    throw new InvalidTransition("Only a draft or sent quote is e-mailed");
+  const to = q.customerEmail;
+  if (!to)
+    throw new Invalid(
+      `${q.customerName} has no e-mail address; add one on the customer's page`,
+      [],
+      "no_email",
+    );
+  if (q.lines.length === 0)
+    throw new Invalid("Add at least one line before sending the quote", [], "empty_quote");
+
+  const appUrl = serverEnv().APP_URL;
+  // A customer without a portal sign-in gets the invitation in this same e-mail: the open one
+  // if there is one, else a new one, recorded only once the e-mail is out.
+  const open = q.customerUserId ? null : await findPortalInvitation(shopId, to);
+  const invitationId = q.customerUserId
+    ? null
+    : (open?.id ?? randomBytes(24).toString("base64url"));
+  const { subject, text } = quoteEmail({
+    shopName: member.shopName,
+    customerName: q.customerName,
+    buildTitle: q.buildTitle,
+    quote: q.quote,
+    lines: q.lines,
+    link: `${appUrl}/my/quotes/${q.quote.id}`,
+    invite: invitationId ? `${appUrl}/accept-invitation/${invitationId}` : null,
+  });
+
+  let messageId: string | null;
+  try {
+    ({ messageId } = await sendMail({ to, subject, text }));
+  } catch (e) {
+    const why =
+      (e as { code?: string }).code === "ECONNREFUSED"
+        ? "the mail server is not answering"
+        : ((e as Error).message ?? "the mail server refused it");
+    throw new Unavailable(
+      `The quote was not sent: ${why}. It is unchanged; try again.`,
+      "mail_failed",
+      "upstream",
+    );
+  }
+  await recordQuoteSent(
+    shopId,
+    q.quote.id,
+    member.user.id,
+    { to, subject, messageId },
+    invitationId && !open ? { id: invitationId, email: to } : null,
+  );
+  return { to, subject, invited: Boolean(invitationId) };
+}
+
+/**
+ * Moves a quote one step along its workflow (QUOTE_NEXT): accepting holds its parts' stock,
+ * declining or expiring an accepted quote releases it. Asking for the status it has changes
+ * nothing.
+ */
+export async function changeQuoteStatus(
+  member: Member,
+  input: { id: string; status: QuoteStatus },
+): Promise<QuoteRow> {
+  authorize(member, "quotes:write");
+  const q = (await quoteOf(member, input.id)).quote;
+  if (q.status === input.status) return q;
+  if (!QUOTE_NEXT[q.status].includes(input.status))
+    throw new InvalidTransition(
+      `A quote cannot go from ${QUOTE_STATUS_LABELS[q.status]} to ${QUOTE_STATUS_LABELS[input.status]}`,
+    );
+  return setQuoteStatus(member.shopId, q.id, {
+    from: q.status,
+    to: input.status,
+    by: member.user.id,
+  });
+}
+
+/**
+ * A new editable revision of an accepted quote (same number, next revision, a draft); the old
+ * one is superseded and its stock released.
+ */
+export async function reviseQuote(member: Member, input: { id: string }): Promise<QuoteRow> {
+  authorize(member, "quotes:write");
+  const q = (await quoteOf(member, input.id)).quote;
+  if (q.status !== "accepted")
+    throw new InvalidTransition(
+      "Only an accepted quote is revised; edit a draft or sent quote directly",
+    );
+  return insertRevision(member.shopId, q.id, member.user.id);
+}
+
+/**
+ * The customer accepts or declines their own sent quote; the time and who are recorded. Any
+ * other quote is "not found" to them; one no longer open is a conflict.
+ */
+export async function respondToQuote(
+  member: Member,
+  input: { id: string; decision: "accept" | "decline" },
+): Promise<QuoteRow> {
+  authorize(member, "quotes:respond");
+  const q = (await quoteOf(member, input.id, true)).quote;
+  if (q.status !== "sent")
+    throw new Conflict("This quote is no longer open for a decision", "not_open");
+  return setQuoteStatus(member.shopId, q.id, {
+    from: "sent",
+    to: input.decision === "accept" ? "accepted" : "declined",
+    by: member.user.id,
+    portalUserId: member.user.id,
+  });
+}
+
+/**
+ * Sent or accepted quotes of the member's shop past their date become expired (accepted ones
+ * release their stock), in one transaction. Called before a list of quotes is shown, as its
+ * own write; the lists themselves only read.
+ */
+export async function expireDueQuotes(member: Member): Promise<{ expired: string[] }> {
+  authorize(member, "quotes:view");
+  const today = new Date().toISOString().slice(0, 10);
+  return { expired: await expireQuotes(member.shopId, today) };
+}

@@ -1,0 +1,62 @@
+import { describe, expect, it } from "vitest";
+
+import {
+  INPUTS_SCHEMA_VERSION,
+  readStoredInputs,
+  sizeForSave,
+  StoredInputsError,
+} from "@/lib/builds/stored-inputs";
+import { FuelSystemInputSchema } from "@/lib/calc";
+import { Unavailable } from "@/lib/domain/errors";
+
+import { boostedSix } from "../calc/fixtures";
+
+describe("readStoredInputs", () => {
+  it("reads format 1 with today's schema, defaults filled in", () => {
+    const got = readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: 1 });
+    expect(got).toEqual(FuelSystemInputSchema.parse(boostedSix));
+    // A default the stored inputs left out (lib/calc/schema.ts: intake air 30 °C).
+    expect(got.engine.intakeTempC).toBe(30);
+  });
+
+  it("reads back what a save writes, unchanged", () => {
+    const written = sizeForSave(boostedSix);
+    expect(written.inputsSchemaVersion).toBe(INPUTS_SCHEMA_VERSION);
+    expect(readStoredInputs(written)).toEqual(written.inputs);
+  });
+
+  it("refuses inputs written by a newer version of the product, saying so", () => {
+    const read = () =>
+      readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: INPUTS_SCHEMA_VERSION + 1 });
+    expect(read).toThrow(Unavailable);
+    expect(read).toThrow(
+      /newer version of Fuelwright \(inputs format 2; this server reads up to 1\)/,
+    );
+  });
+
+  it("refuses a format it never wrote", () => {
+    for (const v of [0, -1, 1.5, Number.NaN])
+      expect(() => readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: v })).toThrow(
+        StoredInputsError,
+      );
+  });
+
+  it("refuses stored inputs that do not parse at their format, with the cause kept", () => {
+    const broken = { ...boostedSix, injectors: { ...boostedSix.injectors, count: 0 } };
+    let err: unknown;
+    try {
+      readStoredInputs({ inputs: broken, inputsSchemaVersion: 1 });
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(StoredInputsError);
+    expect((err as Error).message).toBe("Stored inputs (format 1) do not parse");
+    expect(String((err as Error).cause)).toMatch(/Injector count/);
+  });
+
+  it("does not mutate the stored inputs", () => {
+    const stored = structuredClone(boostedSix);
+    readStoredInputs({ inputs: stored, inputsSchemaVersion: 1 });
+    expect(stored).toEqual(boostedSix);
+  });
+});
