@@ -26,6 +26,7 @@ import {
   type UnitSystem,
 } from "@/lib/calc";
 import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
+import { setUnitsAction } from "@/lib/preferences/preference-actions";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
@@ -175,8 +176,6 @@ export function BuildEditor(props: {
   readOnly: boolean;
   units: UnitSystem;
   shopBsfc?: ShopBsfcRow[];
-  /** Keeps the person's unit choice (the preferences action, passed in by the page). */
-  setUnitsAction: (prev: ActionState, form: FormData) => Promise<ActionState>;
 }) {
   const [version, setVersion] = useState(props.version);
   const [units, setUnits] = useState<UnitSystem>(props.units);
@@ -254,9 +253,7 @@ export function BuildEditor(props: {
     );
     reset({ ...shown, include: current.include });
     setUnits(next);
-    const form = new FormData();
-    form.set("units", next);
-    void props.setUnitsAction(initialActionState, form);
+    void setUnitsAction(initialActionState, { units: next });
   };
 
   const save = () =>

@@ -43,7 +43,7 @@ async function openInvitation(id: string): Promise<Invitation> {
   const inv = await getInvitation(id);
   const problem = invitationProblem(inv);
   if (!inv) throw new NotFound("That invitation");
-  if (problem) throw new InvalidTransition(problem, "invitation_closed");
+  if (problem) throw new InvalidTransition(problem, "invitation_closed", "invitationId");
   return inv;
 }
 

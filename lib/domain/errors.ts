@@ -58,11 +58,15 @@ export class Conflict<T = unknown> extends DomainError {
   }
 }
 
-/** The record's state does not allow this move now (a status step, an edit of a locked quote). */
+/**
+ * The record's state does not allow this move now (a status step, an edit of a locked quote).
+ * `path` names the field the move was asked through ("status" unless said otherwise).
+ */
 export class InvalidTransition extends DomainError {
   constructor(
     message: string,
     readonly code: string = "invalid_transition",
+    readonly path: string = "status",
   ) {
     super(message);
   }

@@ -63,7 +63,8 @@ export function describeError(err: unknown): ErrorDescription {
     if (err instanceof NotFound) return { ...base, status: 404 };
     if (err instanceof Conflict)
       return { ...base, status: 409, current: err.current, issues: err.issues };
-    if (err instanceof InvalidTransition) return { ...base, status: 422 };
+    if (err instanceof InvalidTransition)
+      return { ...base, status: 422, issues: [{ path: err.path, message: err.message }] };
     if (err instanceof Invalid) return { ...base, status: 422, issues: err.issues };
     if (err instanceof Unavailable) {
       return err.kind === "self"

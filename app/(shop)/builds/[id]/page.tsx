@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
@@ -65,7 +64,6 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         readOnly={!can(m.role, "builds:write")}
         units={await unitSystemOf(m.user.id, m.shopId)}
         shopBsfc={bsfcRows}
-        setUnitsAction={setUnitsAction}
       />
       <section
         aria-labelledby="revs"
