@@ -53,11 +53,7 @@ export async function deleteCustomer(member: Member, input: { id: string }): Pro
 }
 
 /** The link with which a customer without a sign-in sets a password and opens their portal. */
-export async function portalInviteLink(
-  shopId: string,
-  inviterId: string,
-  email: string,
-): Promise<string> {
+async function portalInviteLink(shopId: string, inviterId: string, email: string): Promise<string> {
   const inv = await ensurePortalInvitation(shopId, inviterId, email);
   return `${serverEnv().APP_URL}/accept-invitation/${inv.id}`;
 }

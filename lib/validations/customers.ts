@@ -1,15 +1,10 @@
 import { z } from "zod";
 
-/** The database refuses NUL characters in text. */
-const noNul = (s: string) => !s.includes("\u0000");
-const NUL_MESSAGE = "Remove the control characters";
-
 const optionalText = (max: number, label: string) =>
   z
     .string()
     .trim()
     .max(max, `${label} is too long (at most ${max} characters)`)
-    .refine(noNul, NUL_MESSAGE)
     .optional()
     .transform((v) => (v ? v : null));
 
@@ -18,8 +13,7 @@ export const CustomerSchema = z.object({
     .string()
     .trim()
     .min(1, "Enter the customer's name")
-    .max(120, "Name is too long (at most 120 characters)")
-    .refine(noNul, NUL_MESSAGE),
+    .max(120, "Name is too long (at most 120 characters)"),
   email: z
     .string()
     .trim()

@@ -132,18 +132,11 @@ const money = (label: string, required: boolean) =>
       return m;
     });
 
-/** Text without NUL characters (the database refuses them in text). */
-const noNul = (s: string) => !s.includes("\u0000");
-const NUL_MESSAGE = "Remove the control characters";
-
 /** A spec column as it arrives: text (a number or yes/no from a JSON client is taken as text). */
 const specCell = (col: string) =>
   z.preprocess(
     (v) => (typeof v === "number" || typeof v === "boolean" ? String(v) : v),
-    z
-      .string({ error: `${col} must be text or a number` })
-      .max(2000, `${col} is too long`)
-      .refine(noNul, NUL_MESSAGE),
+    z.string({ error: `${col} must be text or a number` }).max(2000, `${col} is too long`),
   );
 
 /** How a spec column becomes a spec key: its kind, and what a blank cell gives (else "not given"). */
@@ -273,8 +266,7 @@ const requiredText = (label: string, max: number) =>
     .string({ error: `${label} is required` })
     .trim()
     .min(1, `${label} is required`)
-    .max(max, `${label} is too long (at most ${max} characters)`)
-    .refine(noNul, NUL_MESSAGE);
+    .max(max, `${label} is too long (at most ${max} characters)`);
 
 /** A part's flat fields (the CSV's columns, the part form's fields), as text; blanks are "not given". */
 export const PartFieldsSchema = z.object({

@@ -2,6 +2,7 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { sql } from "../helpers/db";
 import { request, signIn } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
 
@@ -11,6 +12,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
+  await sql.end();
 });
 
 describe("parts counter", () => {
@@ -66,6 +68,43 @@ describe("parts counter", () => {
     await page.screenshot({ path: "test-results/screenshots/quote.png", fullPage: true });
     const mail = await waitForMail("customer@demo.fuelwright.test", new RegExp(label));
     expect(mail.text).toContain("/my/quotes/");
+    await ctx.close();
+  });
+
+  it("saving a part in the form keeps its dead-time table; a taken SKU is shown on the SKU field", async () => {
+    const tag = `E2F${Date.now().toString(36).toUpperCase()}`;
+    // Invented figures (inputs, not check values).
+    const specs = {
+      ratedFlowCcPerMin: 1000,
+      ratedPressureKpa: 300,
+      impedance: "high",
+      ethanolOk: true,
+      deadTime: { voltages: [12, 14], pressuresKpa: [300], deadTimeMs: [[1.1], [0.85]] },
+    };
+    const [part] =
+      await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs)
+        values ('demo-shop-ridgeback', ${`${tag}-1`}, 'injector', 'Testbrand', 'Form test injector', 9900, 5, ${sql.json(specs)})
+        returning id`;
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto(`/parts/${part!.id}`);
+    await page.getByLabel("Name", { exact: true }).fill("Form test injector, renamed");
+    await page.getByRole("button", { name: "Save part" }).click();
+    await page.waitForURL(/\/parts$/);
+    const [saved] = await sql`select name, specs from parts where id = ${part!.id}`;
+    expect(saved!.name).toBe("Form test injector, renamed");
+    expect(saved!.specs).toEqual(specs);
+
+    await page.goto(`/parts/${part!.id}`);
+    await page.getByLabel("SKU", { exact: true }).fill("HF-INJ-1000"); // a demo part's SKU (db/seed-catalog.ts)
+    await page.getByRole("button", { name: "Save part" }).click();
+    await expect
+      .poll(() => page.getByText("SKU HF-INJ-1000 is already in the catalog").count())
+      .toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByLabel("SKU", { exact: true }).getAttribute("aria-invalid"))
+      .toBe("true");
     await ctx.close();
   });
 
