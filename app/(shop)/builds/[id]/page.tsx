@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { setUnitsAction } from "@/app/(shop)/preferences/actions";
 import { BuildEditor } from "@/components/builds/build-editor";
 import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
@@ -14,6 +13,7 @@ import { can } from "@/lib/auth/permissions";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
+import { setUnitsAction } from "@/lib/preferences/preference-actions";
 
 export const metadata: Metadata = { title: "Build sheet" };
 
