@@ -426,6 +426,43 @@ export const ACTIONS: Record<string, ActionCell> = {
     expect: "401 ok 403 403 403 ok",
     mayVanish: true,
   },
+  // Quotes and deposits: the twins of the /api/v1/quotes rows. createQuoteAction is the kit
+  // picker's "Create quote from the chosen parts".
+  "lib/quotes/quote-actions.ts#createQuoteAction": {
+    page: (f) => `/builds/${f.build}/kit`,
+    args: (f) => [prev, { buildId: f.build }],
+    expect: "401 ok 403 ok 403 422",
+  },
+  "lib/quotes/quote-actions.ts#editQuoteAction": {
+    page: (f) => `/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote, version: 1, notes: "Matrix" }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/quotes/quote-actions.ts#changeQuoteStatusAction": {
+    page: (f) => `/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote, status: "expired" }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/quotes/quote-actions.ts#sendQuoteAction": {
+    page: (f) => `/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/quotes/quote-actions.ts#reviseQuoteAction": {
+    page: (f) => `/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/quotes/quote-actions.ts#respondToQuoteAction": {
+    page: (f) => `/my/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote, decision: "accept" }],
+    expect: "401 403 403 403 404 403",
+  },
+  "lib/quotes/quote-actions.ts#startDepositAction": {
+    page: (f) => `/my/quotes/${f.quote}`,
+    args: (f) => [prev, { id: f.quote }],
+    expect: "401 403 403 403 404 403",
+  },
   "lib/preferences/preference-actions.ts#setUnitsAction": {
     page: (f) => `/builds/${f.build}`,
     args: () => [prev, formOf({ units: "metric" })],
