@@ -5,7 +5,7 @@ import { useSyncExternalStore } from "react";
 import { formatDate, formatDateTime, type DateInput } from "@/lib/format/dates";
 
 const subscribe = () => () => {};
-const browserZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
+const browserZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
 const serverZone = () => null;
 
 /**
