@@ -4,7 +4,6 @@ import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 
 import { requireMember, type Member } from "@/lib/auth/member";
-import type { Action } from "@/lib/auth/permissions";
 import { Invalid } from "@/lib/domain/errors";
 import { describeError, type FieldIssue } from "@/lib/http/error-map";
 import { controlCharacterIssues } from "@/lib/http/text";
@@ -58,30 +57,19 @@ export function errorState(err: unknown, values?: Record<string, string>): Actio
 export function memberAction<S extends z.ZodType, T>(
   schema: S,
   run: (member: Member, data: z.output<S>) => Promise<ActionState<T> | T | void>,
-): (prev: ActionState, input: unknown) => Promise<ActionState<T>>;
-/** @deprecated Transitional form: checks `action` here; new code lets the command check it. */
-export function memberAction<S extends z.ZodType>(
-  action: Action,
-  schema: S,
-  run: (data: z.output<S>, member: Member, form: FormData) => Promise<ActionState | void>,
-): (prev: ActionState, input: FormData) => Promise<ActionState>;
-export function memberAction(...args: unknown[]) {
-  const legacy = typeof args[0] === "string";
-  const action = legacy ? (args[0] as Action) : undefined;
-  const schema = (legacy ? args[1] : args[0]) as z.ZodType;
-  const run = (legacy ? args[2] : args[1]) as (...a: unknown[]) => Promise<unknown>;
-  return async (_prev: ActionState, input: unknown): Promise<ActionState> => {
+) {
+  return async (_prev: ActionState, input: unknown): Promise<ActionState<T>> => {
     const values = input instanceof FormData ? formValues(input) : undefined;
     try {
-      const member = await requireMember(action);
+      const member = await requireMember();
       const issues = controlCharacterIssues(values ?? input);
       if (issues.length) throw new Invalid("Some fields carry control characters", issues);
       const data = schema.parse(values ?? input);
-      const out = legacy ? await run(data, member, input) : await run(member, data);
-      if (out && typeof out === "object" && "ok" in out) return out as ActionState;
-      return { ok: true, ...(out === undefined ? {} : { data: out }) };
+      const out = await run(member, data);
+      if (out && typeof out === "object" && "ok" in out) return out as ActionState<T>;
+      return { ok: true, ...(out === undefined ? {} : { data: out as T }) };
     } catch (e) {
-      return errorState(e, values);
+      return errorState(e, values) as ActionState<T>;
     }
   };
 }
