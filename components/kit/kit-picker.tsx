@@ -7,12 +7,12 @@ import useSWR from "swr";
 import { Button } from "@/components/ui/button";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import { api } from "@/lib/api-client";
 import { chooseKitAction } from "@/lib/builds/build-actions";
 import { formatMoney } from "@/lib/catalog/money";
 import type { Candidate } from "@/lib/catalog/recommend";
 import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
+import { createQuoteAction } from "@/lib/quotes/quote-actions";
 
 interface Kit {
   buildVersion: number;
@@ -100,9 +100,9 @@ export function KitPicker({
 
   const quote = () =>
     start(async () => {
-      const res = await api<{ quote: { id: string } }>("POST", "/api/v1/quotes", { buildId });
-      if (res.ok) router.push(`/quotes/${res.data.quote.id}`);
-      else setStatus({ ok: false, message: res.message });
+      const res = await createQuoteAction(initialActionState, { buildId });
+      if (res.ok && res.data) router.push(`/quotes/${res.data.id}`);
+      else setStatus({ ok: false, message: res.message ?? "The quote was not made" });
     });
 
   return (
