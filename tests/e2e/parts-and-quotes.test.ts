@@ -123,6 +123,10 @@ describe("parts counter", () => {
     await page.getByLabel("Line 1 quantity").fill("2");
     await page.getByRole("button", { name: "Save quote" }).click();
     await expect.poll(() => page.getByText("Quote saved").count()).toBe(1);
+    // The page shows the saved quote again: nothing left to save.
+    await expect
+      .poll(() => page.getByRole("button", { name: "Save quote" }).isDisabled())
+      .toBe(true);
     // By hand: 2 h × 120.00 = 240.00; 8.25 % tax (demo shop) = 19.80; 259.80.
     await expect.poll(() => page.getByTestId("quote-total").innerText()).toBe("$259.80");
     const saved = await request(api, "GET", `/api/v1/quotes/${q.id}`);

@@ -435,7 +435,10 @@ export const ACTIONS: Record<string, ActionCell> = {
   },
   "lib/quotes/quote-actions.ts#editQuoteAction": {
     page: (f) => `/quotes/${f.quote}`,
-    args: (f) => [prev, { id: f.quote, version: 1, notes: "Matrix" }],
+    args: (f) => [
+      prev,
+      { id: f.quote, version: 1, validUntil: "2099-01-31", notes: "Matrix", lines: [] },
+    ],
     expect: "401 ok 403 ok 403 404",
   },
   "lib/quotes/quote-actions.ts#changeQuoteStatusAction": {
