@@ -5,24 +5,18 @@ import type { z } from "zod";
 
 import { requireMember, type Member } from "@/lib/auth/member";
 import { Invalid } from "@/lib/domain/errors";
-import { describeError, type FieldIssue } from "@/lib/http/error-map";
+import { describeError } from "@/lib/http/error-map";
 import { controlCharacterIssues } from "@/lib/http/text";
 
-import type { ActionState } from "./state";
+import { fieldErrorsOf, type ActionState } from "./state";
 
 /** Form data as a plain object of strings (files and React's own fields dropped). */
 export function formValues(form: FormData): Record<string, string> {
-  const out: Record<string, string> = {};
+  // A Map, then own properties: a field named "__proto__" or "constructor" stays a field.
+  const out = new Map<string, string>();
   for (const [k, v] of form.entries())
-    if (typeof v === "string" && !k.startsWith("$ACTION")) out[k] = v;
-  return out;
-}
-
-/** Field issues as every field's messages, not only the first. */
-export function fieldErrorsOf(issues: FieldIssue[]): Record<string, string[]> {
-  const out: Record<string, string[]> = {};
-  for (const i of issues) (out[i.path === "(body)" ? "form" : i.path] ??= []).push(i.message);
-  return out;
+    if (typeof v === "string" && !k.startsWith("$ACTION")) out.set(k, v);
+  return Object.fromEntries(out);
 }
 
 /** The one mapper's answer for an action: a refused ActionState with the values kept. */

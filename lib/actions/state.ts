@@ -1,3 +1,5 @@
+import type { FieldIssue } from "@/lib/domain/errors";
+
 /** What every server action returns to its form or caller. Never carries secrets. */
 export interface ActionState<T = unknown> {
   ok: boolean;
@@ -17,3 +19,13 @@ export interface ActionState<T = unknown> {
 }
 
 export const initialActionState: ActionState = { ok: false };
+
+/** Field issues as every field's messages, not only the first. */
+export function fieldErrorsOf(issues: FieldIssue[]): Record<string, string[]> {
+  const out = new Map<string, string[]>();
+  for (const i of issues) {
+    const key = i.path === "(body)" ? "form" : i.path;
+    out.set(key, [...(out.get(key) ?? []), i.message]);
+  }
+  return Object.fromEntries(out);
+}

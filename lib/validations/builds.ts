@@ -3,6 +3,9 @@ import { z } from "zod";
 import { FuelSystemInputSchema } from "@/lib/calc";
 import { BUILD_STATUSES } from "@/lib/domain/builds";
 
+import { versionNumber } from "./column-bounds";
+import { searchText } from "./search";
+
 const text = (label: string, max: number) =>
   z.string().trim().max(max, `${label} is too long (at most ${max} characters)`);
 
@@ -21,7 +24,7 @@ export const BuildSaveSchema = BuildCreateSchema.omit({ customerId: true })
   .partial()
   .extend({
     id: z.uuid("Unknown build"),
-    version: z.number({ error: "version is required" }).int().min(1),
+    version: versionNumber(),
     status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
     note: text("Note", 500).optional(),
   });
@@ -32,12 +35,12 @@ export const BuildRefSchema = z.object({ id: z.uuid("Unknown build") });
 /** Restore an earlier revision as a new one, from the version the page showed as current. */
 export const RevisionRestoreSchema = z.object({
   buildId: z.uuid("Unknown build"),
-  version: z.number({ error: "version is required" }).int().min(1),
-  currentVersion: z.number({ error: "currentVersion is required" }).int().min(1),
+  version: versionNumber(),
+  currentVersion: versionNumber("currentVersion"),
 });
 
 export const BuildListQuery = z.object({
-  q: z.string().trim().max(100, "Search is too long").optional(),
+  q: searchText().optional(),
   status: z.enum(BUILD_STATUSES, { error: "Unknown status" }).optional(),
   tuner: z.string().trim().min(1).max(64, "Unknown tuner").optional(),
   sort: z

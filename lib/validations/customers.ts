@@ -1,5 +1,7 @@
 import { z } from "zod";
 
+import { searchText } from "./search";
+
 const optionalText = (max: number, label: string) =>
   z
     .string()
@@ -41,6 +43,6 @@ export type CustomerUpdate = z.output<typeof CustomerUpdateSchema>;
 export const CustomerIdSchema = z.object({ id: z.uuid("Unknown customer") });
 
 export const CustomerListQuery = z.object({
-  q: z.string().trim().max(100, "Search is too long").optional(),
+  q: searchText().optional(),
   limit: z.coerce.number().int().min(1).max(100).default(50),
 });

@@ -2,10 +2,12 @@ import { z } from "zod";
 
 import { KIT_ROLES } from "@/lib/domain/builds";
 
+import { versionNumber } from "./column-bounds";
+
 /** The parts chosen for a build, by role. */
 export const KitChoiceSchema = z.object({
   id: z.uuid("Unknown build"),
-  version: z.number({ error: "version is required" }).int().min(1),
+  version: versionNumber(),
   parts: z
     .array(
       z.object({

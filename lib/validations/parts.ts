@@ -6,6 +6,9 @@ import { minorToPlain, parseMoney } from "@/lib/catalog/money";
 import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
+import { INT4_MAX } from "./column-bounds";
+import { searchText } from "./search";
+
 /** The specification each category carries (canonical units, as lib/calc uses them). */
 export const SPEC_SCHEMAS = {
   injector: z.object({
@@ -127,6 +130,13 @@ const money = (label: string, required: boolean) =>
       const m = parseMoney(v!);
       if (m === null) {
         ctx.addIssue({ code: "custom", message: `${label} must be an amount like 349.00` });
+        return 0;
+      }
+      if (m > INT4_MAX) {
+        ctx.addIssue({
+          code: "custom",
+          message: `${label} must be at most ${minorToPlain(INT4_MAX)}`,
+        });
         return 0;
       }
       return m;
@@ -419,7 +429,7 @@ export function flatOf(
 }
 
 export const PartListQuery = z.object({
-  q: z.string().trim().max(100, "Search is too long").optional(),
+  q: searchText().optional(),
   category: z.enum(PART_CATEGORIES, { error: "Unknown category" }).optional(),
   sort: z
     .enum(["name", "sku", "price", "stock"], { error: "Sort by name, sku, price or stock" })

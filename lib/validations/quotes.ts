@@ -1,6 +1,10 @@
 import { z } from "zod";
 
+import { minorToPlain } from "@/lib/catalog/money";
+import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
+
+import { QUOTE_SUBTOTAL_MAX_MINOR, versionNumber } from "./column-bounds";
 
 const isoDate = z.iso.date({ error: "Give a date as YYYY-MM-DD" });
 
@@ -48,7 +52,17 @@ export const QuoteCreateSchema = z
 export const QuoteFieldsSchema = z.object({
   validUntil: isoDate,
   notes: z.string().trim().max(2000, "Notes are too long"),
-  lines: z.array(QuoteLineSchema).max(200, "At most 200 lines"),
+  lines: z
+    .array(QuoteLineSchema)
+    .max(200, "At most 200 lines")
+    .superRefine((lines, ctx) => {
+      const subtotal = quoteTotals(lines, 0).subtotalMinor;
+      if (subtotal > QUOTE_SUBTOTAL_MAX_MINOR)
+        ctx.addIssue({
+          code: "custom",
+          message: `The lines add up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
+        });
+    }),
 });
 
 const quoteId = z.uuid({ error: "That quote was not found" });
@@ -59,7 +73,7 @@ const quoteId = z.uuid({ error: "That quote was not found" });
  */
 export const QuoteEditSchema = QuoteFieldsSchema.partial().extend({
   id: quoteId,
-  version: z.number({ error: "version is required" }).int().min(1),
+  version: versionNumber(),
 });
 
 /** A command on one quote that needs nothing else (send, revise, deposit). */

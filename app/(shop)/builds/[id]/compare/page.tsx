@@ -11,12 +11,13 @@ import { compareKeyFigures, diffInputs } from "@/lib/builds/diff";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemResult } from "@/lib/calc";
 import { idOrNotFound } from "@/lib/ids";
+import { versionParam } from "@/lib/validations/column-bounds";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
 const versionOf = (v: string | string[] | undefined) => {
-  const n = Number(Array.isArray(v) ? v[0] : v);
-  return Number.isInteger(n) && n >= 1 ? n : null;
+  const parsed = versionParam().safeParse(Array.isArray(v) ? v[0] : v);
+  return parsed.success ? parsed.data : null;
 };
 
 /** Two revisions of one build side by side: what changed in the inputs and in the key figures. */

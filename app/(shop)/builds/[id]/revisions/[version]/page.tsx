@@ -13,6 +13,7 @@ import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemResult } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { idOrNotFound } from "@/lib/ids";
+import { versionParam } from "@/lib/validations/column-bounds";
 
 import { RestoreButton } from "./restore-button";
 
@@ -24,8 +25,9 @@ export default async function RevisionPage({
   const m = await requirePageMember("builds:read");
   const { id: rawId, version } = await params;
   const id = idOrNotFound(rawId);
-  const v = Number(version);
-  if (!Number.isInteger(v) || v < 1) notFound();
+  const parsed = versionParam().safeParse(version);
+  if (!parsed.success) notFound();
+  const v = parsed.data;
   const [row, rev] = await Promise.all([getBuild(m.shopId, id), getRevision(m.shopId, id, v)]);
   if (!row || !rev) notFound();
   const latest = row.build.version === v;

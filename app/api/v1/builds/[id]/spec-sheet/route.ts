@@ -7,14 +7,9 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
 import { pdfFileName, pdfResponse, specSheetData } from "@/lib/pdf/spec-sheet-data";
+import { versionParam } from "@/lib/validations/column-bounds";
 
-const Query = z.object({
-  version: z.coerce
-    .number({ error: "version must be a number" })
-    .int("version must be a whole number")
-    .min(1, "version starts at 1")
-    .optional(),
-});
+const Query = z.object({ version: versionParam().optional() });
 
 /** GET ?version=N — the build's spec sheet as PDF, from its latest (or the named) saved revision. */
 export const GET = handle<IdCtx>(async (req, ctx) => {

@@ -1,0 +1,29 @@
+import { z } from "zod";
+
+/**
+ * Bounds that match the database's column types, in one place: a number the schema accepts must
+ * fit the column that stores it (PostgreSQL `integer` is 32-bit signed).
+ */
+export const INT4_MAX = 2_147_483_647;
+
+/** A record's version (the optimistic-lock counter): a whole number from 1 that fits `integer`. */
+export const versionNumber = (name = "version") =>
+  z
+    .number({ error: `${name} is required` })
+    .int(`${name} must be a whole number`)
+    .min(1, `${name} starts at 1`)
+    .max(INT4_MAX, `${name} is too large`);
+
+/** The same, read from a query string (`?version=3`). */
+export const versionParam = (name = "version") =>
+  z.coerce
+    .number({ error: `${name} must be a number` })
+    .int(`${name} must be a whole number`)
+    .min(1, `${name} starts at 1`)
+    .max(INT4_MAX, `${name} is too large`);
+
+/**
+ * The largest quote subtotal (sum of line amounts, in cents) accepted: half the `integer` range,
+ * so that tax of up to 100 % on top still fits the total column.
+ */
+export const QUOTE_SUBTOTAL_MAX_MINOR = Math.floor(INT4_MAX / 2);

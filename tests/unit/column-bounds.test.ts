@@ -1,0 +1,67 @@
+import { describe, expect, it } from "vitest";
+
+import { fieldErrorsOf } from "@/lib/actions/state";
+import { INT4_MAX, versionNumber, versionParam } from "@/lib/validations/column-bounds";
+import { CustomerListQuery } from "@/lib/validations/customers";
+import { PartFieldsSchema } from "@/lib/validations/parts";
+import { QuoteFieldsSchema } from "@/lib/validations/quotes";
+
+// PostgreSQL's `integer` is a 4-byte signed whole number: −2 147 483 648 to +2 147 483 647
+// (PostgreSQL 15 documentation, §8.1.1 "Integer Types", table 8.2).
+describe("numbers the schemas accept fit the integer columns", () => {
+  it("INT4_MAX is PostgreSQL's integer maximum", () => expect(INT4_MAX).toBe(2 ** 31 - 1));
+
+  it("a version of 2^31 is refused, 2^31 − 1 accepted, in bodies and in query strings", () => {
+    expect(versionNumber().safeParse(2 ** 31).success).toBe(false);
+    expect(versionNumber().safeParse(2 ** 31 - 1).success).toBe(true);
+    expect(versionParam().safeParse("2147483648").success).toBe(false);
+    expect(versionParam().safeParse("7").data).toBe(7);
+  });
+
+  const part = (price: string) =>
+    PartFieldsSchema.safeParse({ sku: "X-1", category: "other", brand: "B", name: "N", price });
+
+  it("a part priced 21 474 836.48 or more is a field error on price; 21 474 836.47 is not", () => {
+    const big = part("21474836.48");
+    expect(big.success).toBe(false);
+    expect(big.error?.issues.map((i) => i.path.join("."))).toContain("price");
+    expect(part("21474836.47").error?.issues.map((i) => i.path.join(".")) ?? []).not.toContain(
+      "price",
+    );
+  });
+
+  const line = (quantityMilli: number, unitPriceMinor: number) => ({
+    kind: "part" as const,
+    description: "Injector",
+    quantityMilli,
+    unitPriceMinor,
+  });
+
+  it("quote lines whose sum cannot be stored are refused on lines, each line alone being valid", () => {
+    // 100 000 × 1 000 000.00: both within their own limits, the product is not.
+    const r = QuoteFieldsSchema.shape.lines.safeParse([line(100_000_000, 100_000_000)]);
+    expect(r.success).toBe(false);
+    expect(r.error?.issues[0]?.message).toMatch(/most one quote can hold/);
+    expect(QuoteFieldsSchema.shape.lines.safeParse([line(2_000, 34_900)]).success).toBe(true);
+  });
+});
+
+describe("text at the edge", () => {
+  it("a search with a NUL is refused by the list query (pages then show the unfiltered list)", () => {
+    expect(CustomerListQuery.safeParse({ q: "a\u0000b" }).success).toBe(false);
+    expect(CustomerListQuery.safeParse({ q: "555-0188" }).success).toBe(true);
+  });
+
+  it("field errors keyed by hostile names stay plain fields", () => {
+    const out = fieldErrorsOf([
+      { path: "constructor", message: "a" },
+      { path: "__proto__", message: "b" },
+      { path: "constructor", message: "c" },
+    ]);
+    expect(Object.getPrototypeOf(out)).toBe(Object.prototype);
+    expect(Object.entries(out)).toEqual([
+      ["constructor", ["a", "c"]],
+      ["__proto__", ["b"]],
+    ]);
+  });
+});
