@@ -133,7 +133,7 @@ describe("build sheets", () => {
     await editorReady(page);
     expect(await page.getByLabel("Target power (hp)").inputValue()).toBe("503"); // the preference is kept
     expect(await page.getByLabel("Voltage row 4 (V)").inputValue()).toBe("16");
-    await page.getByRole("link", { name: "Compare version 2 with version 1" }).click();
+    await page.getByRole("link", { name: "Changes in version 2 since version 1" }).click();
     await page.waitForURL(/compare\?from=1&to=2/);
     const changes = await page.getByTestId("input-changes").innerText();
     expect(changes).toContain("Feed line inside diameter");

@@ -95,7 +95,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
                 <Link
                   href={`/builds/${b.id}/compare?from=${r.version - 1}&to=${r.version}`}
                   className="text-copper-700 underline"
-                  aria-label={`Compare version ${r.version} with version ${r.version - 1}`}
+                  aria-label={`Changes in version ${r.version} since version ${r.version - 1}`}
                 >
                   Changes
                 </Link>
