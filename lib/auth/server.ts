@@ -7,6 +7,7 @@ import { defaultStatements, ownerAc } from "better-auth/plugins/organization/acc
 import { authAdapter } from "@/db/auth-adapter";
 import { firstShopOf, hasPendingInvitation } from "@/db/queries/members";
 import { serverEnv } from "@/lib/env";
+import { allowedOrigins } from "@/lib/http/same-origin";
 import { sendMail } from "@/lib/mail";
 import { INVITATION_DAYS, invitationMail } from "@/lib/members/invitation-mail";
 
@@ -20,14 +21,11 @@ const roles = {
   customer: ac.newRole({}),
 };
 
-const origin = new URL(env.APP_URL);
-const port = origin.port || "3000";
-
 export const auth = betterAuth({
   appName: "Fuelwright",
   baseURL: env.APP_URL,
   secret: env.BETTER_AUTH_SECRET,
-  trustedOrigins: [`http://localhost:${port}`, `http://127.0.0.1:${port}`, env.APP_URL],
+  trustedOrigins: [...allowedOrigins()],
   database: authAdapter,
   emailAndPassword: {
     enabled: true,

@@ -1,14 +1,13 @@
 import { serverEnv } from "@/lib/env";
 
-/** The origins the app is served from: APP_URL, and localhost / 127.0.0.1 on its port. */
+/**
+ * The origins the app is served from: APP_URL, and localhost / 127.0.0.1 on its port. The one
+ * list: better-auth trusts the same (lib/auth/server.ts).
+ */
 export function allowedOrigins(): Set<string> {
   const app = new URL(serverEnv().APP_URL);
-  const port = app.port ? `:${app.port}` : "";
-  return new Set([
-    app.origin,
-    `${app.protocol}//localhost${port}`,
-    `${app.protocol}//127.0.0.1${port}`,
-  ]);
+  const port = app.port || "3000";
+  return new Set([`http://localhost:${port}`, `http://127.0.0.1:${port}`, app.origin]);
 }
 
 const UNSAFE = new Set(["POST", "PUT", "PATCH", "DELETE"]);
