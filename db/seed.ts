@@ -110,8 +110,12 @@ const pump = (quantity: number, scale = 1) => ({
   ],
 });
 
-/** Invented demo builds across the statuses. */
-const BUILDS: {
+/**
+ * Invented demo builds across the statuses, each consistent with the status rules of
+ * lib/domain/builds.ts (checked by tests/unit/seed-consistency.test.ts): the quoted one has a
+ * sent quote, the fitted one an accepted quote; none is verified, as none has a dyno log.
+ */
+export const DEMO_BUILDS: {
   id: string;
   customerId: string;
   title: string;
@@ -124,7 +128,7 @@ const BUILDS: {
     customerId: CUSTOMERS[1]!.id,
     title: "Track day on pump gas",
     vehicle: "Harlan Vesta 2.0 NA four",
-    status: "verified",
+    status: "fitted",
     inputs: {
       engine: {
         cylinders: 4,
@@ -217,6 +221,66 @@ const BUILDS: {
   },
 ];
 
+/** The demo quotes: the fitted build's accepted, the quoted build's sent, the draft build's draft. */
+export function demoQuotes() {
+  const bySku = new Map(DEMO_PARTS.map((p) => [p.sku, p]));
+  const partLine = (sku: string, qty: number) => ({
+    kind: "part" as const,
+    partId: bySku.get(sku)!.id,
+    sku,
+    description: `${bySku.get(sku)!.brand} ${bySku.get(sku)!.name}`,
+    quantityMilli: qty * 1000,
+    unitPriceMinor: bySku.get(sku)!.priceMinor,
+    discountBp: 0,
+  });
+  const labour = (hours: number) => ({
+    kind: "labour" as const,
+    partId: null,
+    sku: null,
+    description: "Fuel system fitting and setup",
+    quantityMilli: hours * 1000,
+    unitPriceMinor: 12000,
+    discountBp: 0,
+  });
+  return [
+    {
+      id: "30000000-0000-4000-8000-000000000001",
+      number: 1,
+      build: DEMO_BUILDS[0]!,
+      status: "accepted" as const,
+      validUntil: "2099-12-31",
+      lines: [
+        partLine("HF-INJ-1000", 6),
+        partLine("KF-P400", 1),
+        partLine("TH-HOSE-8P", 5),
+        partLine("HF-ECS-1", 1),
+        { ...labour(5), discountBp: 1000 },
+      ],
+    },
+    {
+      id: "30000000-0000-4000-8000-000000000002",
+      number: 2,
+      build: DEMO_BUILDS[2]!,
+      status: "sent" as const,
+      validUntil: "2099-06-30",
+      lines: [
+        partLine("HF-INJ-2200", 8),
+        partLine("OM-IL500", 2),
+        partLine("KF-HAT-2", 1),
+        labour(8),
+      ],
+    },
+    {
+      id: "30000000-0000-4000-8000-000000000003",
+      number: 3,
+      build: DEMO_BUILDS[3]!,
+      status: "draft" as const,
+      validUntil: "2099-03-31",
+      lines: [partLine("HF-INJ-750", 6), partLine("SW-REG-BR6", 1), labour(3)],
+    },
+  ];
+}
+
 export async function seed(url: string) {
   const sql = postgres(url, { max: 1, onnotice: () => {} });
   const db = drizzle(sql, { schema });
@@ -272,7 +336,7 @@ export async function seed(url: string) {
           .insert(schema.customers)
           .values({ ...c, shopId: DEMO_SHOP_ID })
           .onConflictDoNothing();
-      for (const b of BUILDS) {
+      for (const b of DEMO_BUILDS) {
         const inputs = FuelSystemInputSchema.parse(b.inputs);
         const result = sizeParsedFuelSystem(inputs);
         const row = { shopId: DEMO_SHOP_ID, inputs, result, calcVersion: CALC_VERSION };
@@ -301,67 +365,21 @@ export async function seed(url: string) {
             note: "Demo build",
           });
       }
+      // Seeded before the status rules: the first demo build as verified with no dyno log. Left
+      // untouched (version 1), it becomes fitted, as seeded now.
+      const first = DEMO_BUILDS[0]!.id;
+      await tx.execute(
+        dsql`update builds b set status = 'fitted' where b.id = ${first} and b.version = 1 and b.status = 'verified' and not exists (select 1 from datalogs d where d.build_id = b.id and d.verified_at is not null)`,
+      );
+      await tx.execute(
+        dsql`update build_revisions r set status = 'fitted' where r.build_id = ${first} and r.version = 1 and r.status = 'verified' and (select status from builds where id = ${first}) = 'fitted'`,
+      );
       for (const p of DEMO_PARTS)
         await tx
           .insert(schema.parts)
           .values({ ...p, shopId: DEMO_SHOP_ID })
           .onConflictDoNothing();
-      const bySku = new Map(DEMO_PARTS.map((p) => [p.sku, p]));
-      const partLine = (sku: string, qty: number) => ({
-        kind: "part" as const,
-        partId: bySku.get(sku)!.id,
-        sku,
-        description: `${bySku.get(sku)!.brand} ${bySku.get(sku)!.name}`,
-        quantityMilli: qty * 1000,
-        unitPriceMinor: bySku.get(sku)!.priceMinor,
-        discountBp: 0,
-      });
-      const labour = (hours: number) => ({
-        kind: "labour" as const,
-        partId: null,
-        sku: null,
-        description: "Fuel system fitting and setup",
-        quantityMilli: hours * 1000,
-        unitPriceMinor: 12000,
-        discountBp: 0,
-      });
-      const QUOTES = [
-        {
-          id: "30000000-0000-4000-8000-000000000001",
-          number: 1,
-          build: BUILDS[0]!,
-          status: "accepted" as const,
-          validUntil: "2099-12-31",
-          lines: [
-            partLine("HF-INJ-1000", 6),
-            partLine("KF-P400", 1),
-            partLine("TH-HOSE-8P", 5),
-            partLine("HF-ECS-1", 1),
-            { ...labour(5), discountBp: 1000 },
-          ],
-        },
-        {
-          id: "30000000-0000-4000-8000-000000000002",
-          number: 2,
-          build: BUILDS[2]!,
-          status: "sent" as const,
-          validUntil: "2099-06-30",
-          lines: [
-            partLine("HF-INJ-2200", 8),
-            partLine("OM-IL500", 2),
-            partLine("KF-HAT-2", 1),
-            labour(8),
-          ],
-        },
-        {
-          id: "30000000-0000-4000-8000-000000000003",
-          number: 3,
-          build: BUILDS[3]!,
-          status: "draft" as const,
-          validUntil: "2099-03-31",
-          lines: [partLine("HF-INJ-750", 6), partLine("SW-REG-BR6", 1), labour(3)],
-        },
-      ];
+      const QUOTES = demoQuotes();
       for (const q of QUOTES) {
         const t = quoteTotals(q.lines, 825);
         const inserted = await tx

@@ -26,7 +26,12 @@ import {
   type ShopBsfcRow,
   type UnitSystem,
 } from "@/lib/calc";
-import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
+import {
+  STATUS_LABELS,
+  statusMoves,
+  type BuildStatus,
+  type BuildStatusFacts,
+} from "@/lib/domain/builds";
 import { setUnitsAction } from "@/lib/preferences/preference-actions";
 
 import { DeadTimeGrid } from "./dead-time-grid";
@@ -167,11 +172,76 @@ function NumberField({
   );
 }
 
+/**
+ * The status select: the saved status and only the moves allowed now (the same
+ * lib/domain/builds.ts#statusMoves the save command checks); each move not allowed yet is listed
+ * under it with what it needs, as text tied to the select.
+ */
+function StatusControl({
+  register,
+  status,
+  facts,
+  error,
+}: {
+  register: UseFormRegister<Values>;
+  status: BuildStatus;
+  facts: BuildStatusFacts;
+  error?: string;
+}) {
+  const moves = statusMoves(status, facts);
+  const blocked = moves.filter((m) => !m.allowed);
+  const describedBy = [error ? "b-status-err" : "", blocked.length ? "b-status-blocked" : ""]
+    .filter(Boolean)
+    .join(" ");
+  return (
+    <div className="max-w-md">
+      <label htmlFor="b-status" className="block text-sm font-medium text-ink-700">
+        Status
+      </label>
+      <select
+        id="b-status"
+        aria-invalid={Boolean(error)}
+        aria-describedby={describedBy || undefined}
+        className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:ring-2 focus:ring-copper-500/30 focus:outline-none aria-[invalid=true]:border-danger-600"
+        {...register("status")}
+      >
+        <option value={status}>{STATUS_LABELS[status]}</option>
+        {moves
+          .filter((m) => m.allowed)
+          .map((m) => (
+            <option key={m.to} value={m.to}>
+              {STATUS_LABELS[m.to]}
+            </option>
+          ))}
+      </select>
+      {error ? (
+        <p id="b-status-err" role="alert" className="mt-1 text-sm font-medium text-danger-700">
+          <span aria-hidden="true">✕ </span>
+          {error}
+        </p>
+      ) : null}
+      {blocked.length ? (
+        <ul
+          id="b-status-blocked"
+          className="mt-1 text-sm text-ink-600"
+          data-testid="status-blocked"
+        >
+          {blocked.map((m) => (
+            <li key={m.to}>Not yet: {m.reason}</li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
+
 /** The build sheet: inputs on one side, the live sizing beside them, recomputed in the browser. */
 export function BuildEditor(props: {
   buildId: string;
   title: string;
   status: BuildStatus;
+  /** What the status moves depend on (the build's quotes, its verified dyno log), read on the server. */
+  statusFacts: BuildStatusFacts;
   version: number;
   inputs: FuelSystemInput;
   readOnly: boolean;
@@ -390,10 +460,12 @@ export function BuildEditor(props: {
                 {...register("title")}
               />
             </div>
-            {select("status", "Status", [
-              [props.status, STATUS_LABELS[props.status]],
-              ...STATUS_NEXT[props.status].map((s) => [s, STATUS_LABELS[s]] as [string, string]),
-            ])}
+            <StatusControl
+              register={register}
+              status={baseline.status}
+              facts={props.statusFacts}
+              error={errors.status}
+            />
           </div>
         </fieldset>
         <div

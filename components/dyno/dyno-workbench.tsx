@@ -164,10 +164,16 @@ export function DynoWorkbench({
   buildId,
   logs,
   canUpload,
+  verifyRefusal,
 }: {
   buildId: string;
   logs: LogItem[];
   canUpload: boolean;
+  /**
+   * Why "Mark verified" is not offered for this build now (lib/domain/builds.ts#canVerifyWithLog,
+   * the dyno command's own rule), or null when it is.
+   */
+  verifyRefusal: string | null;
 }) {
   const router = useRouter();
   const [selected, setSelected] = useState<string | null>(logs[0]?.id ?? null);
@@ -252,7 +258,7 @@ export function DynoWorkbench({
         </div>
       </aside>
       {selected ? (
-        <LogPanel key={selected} id={selected} canWrite={canUpload} />
+        <LogPanel key={selected} id={selected} canWrite={canUpload} verifyRefusal={verifyRefusal} />
       ) : (
         <p className="text-ink-600">Upload a log to compare the measured pull with the sizing.</p>
       )}
@@ -260,7 +266,15 @@ export function DynoWorkbench({
   );
 }
 
-function LogPanel({ id, canWrite }: { id: string; canWrite: boolean }) {
+function LogPanel({
+  id,
+  canWrite,
+  verifyRefusal,
+}: {
+  id: string;
+  canWrite: boolean;
+  verifyRefusal: string | null;
+}) {
   const router = useRouter();
   const { data, error } = useSWR<View>(`/api/v1/datalogs/${id}`, fetcher);
   const [mapping, setMapping] = useState<Mapping | null>(null);
@@ -412,10 +426,15 @@ function LogPanel({ id, canWrite }: { id: string; canWrite: boolean }) {
           <Button onClick={analyse} disabled={pending || !canWrite}>
             {pending && !a ? "Analysing…" : "Analyse the pull"}
           </Button>
-          {a && canWrite ? (
+          {a && canWrite && !verifyRefusal ? (
             <Button variant="secondary" onClick={verify} disabled={pending}>
               Mark verified
             </Button>
+          ) : null}
+          {a && canWrite && verifyRefusal ? (
+            <p className="text-sm text-ink-700" data-testid="verify-refusal">
+              {verifyRefusal}
+            </p>
           ) : null}
           <FormStatus ok={message?.ok} message={message?.message} />
         </div>

@@ -15,7 +15,13 @@ import {
   parseScaled,
 } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
-import { QUOTE_NEXT, QUOTE_STATUS_LABELS, type QuoteStatus } from "@/lib/domain/quotes";
+import {
+  pastValidity,
+  QUOTE_STATUS_LABELS,
+  quoteLabel,
+  quoteMovesOn,
+  type QuoteStatus,
+} from "@/lib/domain/quotes";
 import {
   changeQuoteStatusAction,
   editQuoteAction,
@@ -67,14 +73,20 @@ const ACTION_LABELS: Partial<Record<QuoteStatus, string>> = {
   expired: "Mark expired",
   deposit_paid: "Record deposit paid",
   ordered: "Mark ordered",
-  draft: "Back to draft",
 };
 
-/** A quote's lines (editable while draft or sent), totals worked live in integer cents, workflow and e-mail. */
+/**
+ * A quote's lines (a draft edited in place; a sent one's edit saved as its next revision),
+ * totals worked live in integer cents, workflow and e-mail.
+ */
 type EditorProps = {
   id: string;
+  number: number;
+  revision: number;
   version: number;
   status: QuoteStatus;
+  /** YYYY-MM-DD (UTC) as the server sees it: the day validity is judged on. */
+  today: string;
   currency: string;
   taxRateBp: number;
   validUntil: string;
@@ -151,6 +163,11 @@ function QuoteEditorForm({
       ),
     [parsed, props.taxRateBp],
   );
+  const revises = props.status === "sent";
+  const label = (revision: number) => quoteLabel(props.number, revision);
+  const dated = { status: props.status, validUntil: props.validUntil };
+  const lapsed = pastValidity(dated, props.today);
+  const moves = quoteMovesOn(dated, props.today).filter((s) => s !== "sent");
   const money = (m: number) => formatMoney(m, props.currency);
   const setRow = (i: number, patch: Partial<Row>) =>
     setRows((rs) => rs.map((r, k) => (k === i ? { ...r, ...patch } : r)));
@@ -173,6 +190,12 @@ function QuoteEditorForm({
         notes,
         lines,
       });
+      if (res.ok && res.data && res.data.id !== props.id) {
+        // A sent quote's edit is its next revision: show that one (a draft to send).
+        setStatus({ ok: true, message: `Saved as ${label(res.data.revision)}, a draft` });
+        router.push(`/quotes/${res.data.id}`);
+        return;
+      }
       setStatus(
         res.ok ? { ok: true, message: "Quote saved" } : { ok: false, message: refusal(res) },
       );
@@ -199,6 +222,29 @@ function QuoteEditorForm({
 
   return (
     <div className="space-y-4">
+      {editable && revises ? (
+        <p
+          className="rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm text-ink-800"
+          data-testid="revision-notice"
+        >
+          This quote was sent to the customer, so it is not changed under them. Editing makes
+          revision {props.revision + 1} ({label(props.revision + 1)}), a draft; the customer sees it
+          after you send it. Saving replaces {label(props.revision)} at once: the customer&apos;s
+          link to it then says it was replaced, with nothing to accept.
+        </p>
+      ) : null}
+      {lapsed ? (
+        <p
+          className="rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm text-ink-800"
+          data-testid="lapsed-notice"
+        >
+          Valid until {props.validUntil}: past that day it can no longer be accepted, declined or
+          paid.{" "}
+          {revises
+            ? "Edit it to make a new revision with a new date, and send that."
+            : "Mark it expired, or revise it."}
+        </p>
+      ) : null}
       <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
         <table className="w-full text-left text-sm">
           <thead className="bg-ink-100 text-ink-700">
@@ -460,7 +506,11 @@ function QuoteEditorForm({
         <div className="flex flex-wrap items-center gap-3 border-t border-ink-200 pt-3">
           {editable ? (
             <Button onClick={save} disabled={pending || !allGood || !dirty}>
-              {pending && !busy ? "Saving…" : "Save quote"}
+              {pending && !busy
+                ? "Saving…"
+                : revises
+                  ? `Save as revision ${props.revision + 1}`
+                  : "Save quote"}
             </Button>
           ) : null}
           {editable ? (
@@ -487,27 +537,25 @@ function QuoteEditorForm({
                   : "Send to customer"}
             </Button>
           ) : null}
-          {QUOTE_NEXT[props.status]
-            .filter((s) => s !== "sent")
-            .map((s) => (
-              <Button
-                key={s}
-                variant={s === "declined" || s === "expired" ? "ghost" : "secondary"}
-                disabled={pending || dirty}
-                onClick={() => {
-                  if (
-                    (s === "declined" || s === "expired") &&
-                    !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)
-                  )
-                    return;
-                  run(s, `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`, () =>
-                    changeQuoteStatusAction(initialActionState, { id: props.id, status: s }),
-                  );
-                }}
-              >
-                {ACTION_LABELS[s] ?? s}
-              </Button>
-            ))}
+          {moves.map((s) => (
+            <Button
+              key={s}
+              variant={s === "declined" || s === "expired" ? "ghost" : "secondary"}
+              disabled={pending || dirty}
+              onClick={() => {
+                if (
+                  (s === "declined" || s === "expired") &&
+                  !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)
+                )
+                  return;
+                run(s, `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`, () =>
+                  changeQuoteStatusAction(initialActionState, { id: props.id, status: s }),
+                );
+              }}
+            >
+              {ACTION_LABELS[s] ?? s}
+            </Button>
+          ))}
           {props.status === "accepted" ? (
             <Button
               variant="secondary"

@@ -1,9 +1,18 @@
 import { and, asc, desc, eq, gt, inArray, like, lt, or, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { buildRevisions, builds, customers, member, user, type Build } from "@/db/schema";
+import {
+  buildRevisions,
+  builds,
+  customers,
+  datalogs,
+  member,
+  quotes,
+  user,
+  type Build,
+} from "@/db/schema";
 import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
-import { type BuildStatus, type ChosenPart } from "@/lib/domain/builds";
+import { type BuildStatus, type BuildStatusFacts, type ChosenPart } from "@/lib/domain/builds";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 import { escapeLike } from "./like";
@@ -152,7 +161,47 @@ export async function listBuildsOfPortalUser(shopId: string, userId: string) {
     .orderBy(desc(builds.updatedAt));
 }
 
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+export type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * What the build's status moves depend on (lib/domain/builds.ts#statusMoves): its quotes but
+ * superseded revisions, and whether a dyno log of it was marked verified after its last save as
+ * a draft. Inside `tx` the quotes are read FOR SHARE, so none changes before that save commits.
+ */
+export async function buildStatusFacts(
+  shopId: string,
+  buildId: string,
+  today: string,
+  tx?: Tx,
+): Promise<BuildStatusFacts> {
+  const q = tx ?? db;
+  const quoteRows = q
+    .select({ status: quotes.status, validUntil: quotes.validUntil })
+    .from(quotes)
+    .where(
+      and(
+        eq(quotes.shopId, shopId),
+        eq(quotes.buildId, buildId),
+        sql`${quotes.status} <> 'superseded'`,
+      ),
+    );
+  const lastDraft = sql`coalesce((select max(r.created_at) from ${buildRevisions} r where r.shop_id = ${shopId} and r.build_id = ${buildId} and r.status = 'draft'), '-infinity'::timestamptz)`;
+  const [quoteList, logs] = await Promise.all([
+    tx ? quoteRows.for("share") : quoteRows,
+    q
+      .select({ id: datalogs.id })
+      .from(datalogs)
+      .where(
+        and(
+          eq(datalogs.shopId, shopId),
+          eq(datalogs.buildId, buildId),
+          sql`${datalogs.verifiedAt} > ${lastDraft}`,
+        ),
+      )
+      .limit(1),
+  ]);
+  return { quotes: quoteList, verifiedLog: logs.length > 0, today };
+}
 
 /** What a build's save writes; keys left out keep their stored value. */
 export interface BuildPatch {
@@ -213,9 +262,16 @@ export async function createBuild(
 export type CurrentBuild = Build & { updatedByName: string | null };
 
 /**
+ * Checks a status move inside the save's transaction (the build's row locked): throws to refuse
+ * it, and then nothing is written.
+ */
+export type StatusCheck = (from: BuildStatus, tx: Tx) => Promise<void>;
+
+/**
  * Saves a new revision if the build is still at `expectedVersion`, writing only the keys of `v`
  * that are present; otherwise throws Conflict carrying the current build (CurrentBuild). The build
- * and its revision are written together, inside `tx` when the caller has one.
+ * and its revision are written together, inside `tx` when the caller has one. A status change
+ * is first put to `checkStatus`, in the same transaction.
  */
 export async function saveBuild(
   shopId: string,
@@ -224,8 +280,19 @@ export async function saveBuild(
   expectedVersion: number,
   v: BuildPatch,
   tx?: Tx,
+  checkStatus?: StatusCheck,
 ): Promise<Build> {
   const run = async (tx: Tx) => {
+    if (v.status && checkStatus) {
+      const [now] = await tx
+        .select({ status: builds.status, version: builds.version })
+        .from(builds)
+        .where(and(eq(builds.shopId, shopId), eq(builds.id, id)))
+        .for("update");
+      // A stale version is answered below as a conflict, before any rule.
+      if (now && now.version === expectedVersion && now.status !== v.status)
+        await checkStatus(now.status, tx);
+    }
     const [b] = await tx
       .update(builds)
       .set({

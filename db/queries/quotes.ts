@@ -345,14 +345,30 @@ export async function setQuoteStatus(
 }
 
 /**
- * A new editable revision of an accepted quote (same number, next revision); the old one is
- * superseded and its stock released. Conflict if it is no longer accepted.
+ * The next revision of a quote in one of `from` (same number, revision + 1, a draft), with the
+ * edit's fields where given and the quote's own otherwise; the quote becomes superseded (an
+ * accepted one's stock released), all in one transaction. Conflict, and nothing written, if the
+ * quote is no longer in one of `from` or, with `expectedVersion`, no longer at that version.
  */
-export async function insertRevision(shopId: string, id: string, userId: string) {
+export async function insertRevision(
+  shopId: string,
+  id: string,
+  userId: string,
+  opts: {
+    from: readonly QuoteStatus[];
+    expectedVersion?: number;
+    edit?: { validUntil?: string; notes?: string; lines?: QuoteLineInput[] };
+  },
+) {
   return db.transaction(async (tx) => {
     const q = await lockQuote(tx, shopId, id);
-    if (q.status !== "accepted") throw changedMeanwhile(q);
+    if (
+      !opts.from.includes(q.status) ||
+      (opts.expectedVersion !== undefined && q.version !== opts.expectedVersion)
+    )
+      throw changedMeanwhile(q);
     await applyStatus(tx, q, "superseded", userId);
+    const edit = opts.edit ?? {};
     const [rev] = await tx
       .insert(quotes)
       .values({
@@ -363,8 +379,8 @@ export async function insertRevision(shopId: string, id: string, userId: string)
         buildId: q.buildId,
         currency: q.currency,
         taxRateBp: q.taxRateBp,
-        validUntil: q.validUntil,
-        notes: q.notes,
+        validUntil: edit.validUntil ?? q.validUntil,
+        notes: edit.notes ?? q.notes,
         subtotalMinor: q.subtotalMinor,
         discountMinor: q.discountMinor,
         taxMinor: q.taxMinor,
@@ -372,6 +388,11 @@ export async function insertRevision(shopId: string, id: string, userId: string)
         createdBy: userId,
       })
       .returning();
+    if (edit.lines) {
+      const totals = await writeLines(tx, shopId, rev!.id, edit.lines, q.taxRateBp);
+      const [done] = await tx.update(quotes).set(totals).where(eq(quotes.id, rev!.id)).returning();
+      return done!;
+    }
     const lines = await tx
       .select()
       .from(quoteLines)
@@ -383,6 +404,22 @@ export async function insertRevision(shopId: string, id: string, userId: string)
         .values(lines.map(({ id: _id, quoteId: _q, ...l }) => ({ ...l, quoteId: rev!.id })));
     return rev!;
   });
+}
+
+/** The newest revision of a quote number in the shop: what a superseded revision points to. */
+export async function latestRevision(shopId: string, number: number) {
+  const [row] = await db
+    .select({
+      id: quotes.id,
+      revision: quotes.revision,
+      status: quotes.status,
+      validUntil: quotes.validUntil,
+    })
+    .from(quotes)
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
+    .orderBy(desc(quotes.revision))
+    .limit(1);
+  return row ?? null;
 }
 
 /** The open portal invitation of this shop for this e-mail, if there is one. */

@@ -3,16 +3,19 @@ import "server-only";
 import type { z } from "zod";
 
 import {
+  buildStatusFacts,
   getBuild,
   getRevision,
   createBuild as insertBuild,
   saveBuild as saveBuildRow,
+  type StatusCheck,
 } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
-import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
+import { refusedMove, type BuildStatus } from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
+import { isoDay } from "@/lib/domain/quotes";
 import type {
   BuildCreateSchema,
   BuildRefSchema,
@@ -43,8 +46,11 @@ export async function createBuild(
 
 /**
  * Saves the build sheet from the version the edit started from: only the fields sent change, the
- * inputs are validated and sized again on the server, a status moves only along STATUS_NEXT.
- * A stale version → Conflict (409) carrying the current build; nothing is overwritten.
+ * inputs are validated and sized again on the server, a status moves only along STATUS_NEXT and
+ * only when its precondition holds (lib/domain/builds.ts#statusMoves: the build's quotes, its
+ * verified dyno log), checked in the save's transaction — else 422 invalid_transition saying
+ * what is missing. A stale version → Conflict (409) carrying the current build; nothing is
+ * overwritten.
  */
 export async function saveBuild(
   m: Member,
@@ -53,13 +59,17 @@ export async function saveBuild(
   authorize(m, "builds:write");
   const row = await getBuild(m.shopId, input.id);
   if (!row) throw new NotFound("That build");
-  checkTransition(row.build.status, input.status);
   const { id, version, inputs, ...fields } = input;
   return saved(
-    saveBuildRow(m.shopId, id, m.user.id, version, {
-      ...fields,
-      ...(inputs ? { sized: sizeForSave(inputs) } : {}),
-    }),
+    saveBuildRow(
+      m.shopId,
+      id,
+      m.user.id,
+      version,
+      { ...fields, ...(inputs ? { sized: sizeForSave(inputs) } : {}) },
+      undefined,
+      input.status ? statusRule(m.shopId, id, input.status) : undefined,
+    ),
   );
 }
 
@@ -97,11 +107,10 @@ export async function restoreRevision(
   );
 }
 
-/** Refuses a status move the workflow does not allow. */
-function checkTransition(from: BuildStatus, to: BuildStatus | undefined): void {
-  if (!to || to === from) return;
-  if (!STATUS_NEXT[from].includes(to))
-    throw new InvalidTransition(
-      `A build cannot go from ${STATUS_LABELS[from]} to ${STATUS_LABELS[to]}`,
-    );
+/** Refuses a move to `to` that the workflow or its precondition does not allow now. */
+function statusRule(shopId: string, buildId: string, to: BuildStatus): StatusCheck {
+  return async (from, tx) => {
+    const why = refusedMove(from, to, await buildStatusFacts(shopId, buildId, isoDay(), tx));
+    if (why) throw new InvalidTransition(why);
+  };
 }

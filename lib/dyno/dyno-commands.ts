@@ -4,7 +4,7 @@ import { createHash, randomUUID } from "node:crypto";
 
 import type { z } from "zod";
 
-import { getBuild } from "@/db/queries/builds";
+import { buildStatusFacts, getBuild } from "@/db/queries/builds";
 import {
   getDatalog,
   recordDatalog,
@@ -16,8 +16,9 @@ import { authorize } from "@/lib/auth/permissions";
 import { saved, type BuildResult } from "@/lib/builds/build-data";
 import { readStoredInputs, sizeForSave } from "@/lib/builds/stored-inputs";
 import { DatalogError, headerKey, mappingProblems, parseDatalog } from "@/lib/calc";
-import { STATUS_LABELS, STATUS_NEXT } from "@/lib/domain/builds";
+import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
 import { Conflict, Invalid, NotFound } from "@/lib/domain/errors";
+import { isoDay } from "@/lib/domain/quotes";
 import { putObject } from "@/lib/storage";
 import type {
   DatalogAnalysisSchema,
@@ -106,7 +107,8 @@ export async function verifyBuildWithDatalog(
   const row = await getBuild(m.shopId, d.buildId);
   if (!row) throw new NotFound("That build");
   const b = row.build;
-  if (b.status !== "verified" && !STATUS_NEXT[b.status].includes("verified"))
+  // The same rule as the status control's (lib/domain/builds.ts): this log is the verified log.
+  if (!canVerifyWithLog(b.status, await buildStatusFacts(m.shopId, b.id, isoDay())))
     throw new Conflict(
       `Only a fitted build is verified; this one is ${STATUS_LABELS[b.status].toLowerCase()}`,
       "invalid_transition",

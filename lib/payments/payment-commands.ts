@@ -15,7 +15,7 @@ import { getShopSettings } from "@/db/queries/shops";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Conflict, Invalid, NotFound, Unavailable } from "@/lib/domain/errors";
-import { quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, pastValidity, quoteLabel } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
 
 import { depositOf } from "./deposit";
@@ -44,8 +44,8 @@ async function provider<T>(call: () => Promise<T>): Promise<T> {
 }
 
 /**
- * Opens (or reopens) a checkout for the deposit on the customer's own accepted quote and
- * returns the provider's page to send them to.
+ * Opens (or reopens) a checkout for the deposit on the customer's own accepted quote, while it
+ * is valid (judged now, whatever the stored status), and returns the provider's page.
  */
 export async function startDeposit(
   member: Member,
@@ -62,6 +62,11 @@ export async function startDeposit(
         ? "The deposit on this quote is already paid"
         : "Accept the quote before paying its deposit",
       "not_awaiting_deposit",
+    );
+  if (pastValidity(q.quote, isoDay()))
+    throw new Conflict(
+      `This quote was valid until ${q.quote.validUntil}; its deposit can no longer be paid. Ask the shop for a new one`,
+      "quote_expired",
     );
   const settings = await getShopSettings(shopId);
   const depositBp = settings?.settings.depositBp ?? DEFAULT_DEPOSIT_BP;

@@ -7,7 +7,7 @@ import { getShopSettings } from "@/db/queries/shops";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { NotFound } from "@/lib/domain/errors";
-import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatDate } from "@/lib/format/dates";
 import { depositOf } from "@/lib/payments/deposit";
 
@@ -31,8 +31,10 @@ export async function quoteSheetData(
   const t = quoteTotals(q.lines, qt.taxRateBp);
   const depositBp = settings?.settings.depositBp ?? 3000;
   const paid = payments.find((p) => p.status === "paid");
+  // As of today: past its date a sent or accepted quote prints as expired, asking no deposit.
+  const shown = quoteStatusOn(qt, isoDay());
   const showDeposit =
-    depositBp > 0 && ["sent", "accepted", "deposit_paid", "ordered"].includes(qt.status);
+    depositBp > 0 && ["sent", "accepted", "deposit_paid", "ordered"].includes(shown);
   return {
     shop: {
       name: settings?.name ?? "",
@@ -42,7 +44,7 @@ export async function quoteSheetData(
     },
     quote: {
       label: quoteLabel(qt.number, qt.revision),
-      status: QUOTE_STATUS_LABELS[qt.status],
+      status: QUOTE_STATUS_LABELS[shown],
       createdAt: qt.createdAt,
       validUntil: qt.validUntil,
       notes: qt.notes,

@@ -44,10 +44,14 @@ export const createQuoteAction = memberAction(QuoteCreateSchema, async (m, input
   return quote;
 });
 
-/** { id, version, validUntil?, notes?, lines? } → the saved quote; a stale version → 409 with `current`. */
+/**
+ * { id, version, validUntil?, notes?, lines? } → the saved quote (for a sent quote: its new
+ * revision, another id); a stale version → 409 with `current`.
+ */
 export const editQuoteAction = memberAction(QuoteEditSchema, async (m, input) => {
   const quote = await editQuote(m, input);
-  revalidateQuote(quote.id);
+  revalidateQuote(input.id);
+  if (quote.id !== input.id) revalidateQuote(quote.id);
   return quote;
 });
 

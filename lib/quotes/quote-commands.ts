@@ -28,9 +28,13 @@ import {
   type FieldIssue,
 } from "@/lib/domain/errors";
 import {
+  isoDay,
+  pastValidity,
   QUOTE_EDITABLE,
   QUOTE_NEXT,
+  QUOTE_REVISED_ON_EDIT,
   QUOTE_STATUS_LABELS,
+  quoteMovesOn,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
@@ -39,6 +43,8 @@ import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/q
 
 import { quoteEmail } from "./quote-email";
 import { linesFromBuild } from "./quote-lines";
+
+type QuoteFields = Omit<QuoteEdit, "id" | "version">;
 
 /**
  * Every write on a quote: one command each, called alike by the server actions
@@ -112,30 +118,63 @@ export async function createQuote(member: Member, input: QuoteCreate): Promise<Q
   });
 }
 
+/** The stored quote already says what the edit says (an absent field says nothing). */
+function unchanged(q: NonNullable<Awaited<ReturnType<typeof getQuote>>>, edit: QuoteFields) {
+  const line = (l: QuoteLineInput | (typeof q.lines)[number]) =>
+    JSON.stringify([
+      l.kind,
+      l.partId ?? null,
+      l.sku ?? null,
+      l.description,
+      l.quantityMilli,
+      l.unitPriceMinor,
+      l.discountBp,
+    ]);
+  return (
+    (edit.validUntil === undefined || edit.validUntil === q.quote.validUntil) &&
+    (edit.notes === undefined || edit.notes === (q.quote.notes ?? "")) &&
+    (edit.lines === undefined ||
+      (edit.lines.length === q.lines.length &&
+        edit.lines.every((l, i) => line(l) === line(q.lines[i]!))))
+  );
+}
+
 /**
- * Saves the fields given (lines, validity, notes; an absent one is left as it is) on a draft
- * or sent quote, if it is still at the version the edit started from; else Conflict with the
- * quote as it is now, and nothing is overwritten.
+ * Saves the fields given (lines, validity, notes; an absent one is left as it is) if the quote
+ * is still at the version the edit started from; else Conflict with the quote as it is now, and
+ * nothing is overwritten. A draft is edited in place. A sent quote is never changed under the
+ * customer: the edit becomes its next revision (same number, revision + 1, a draft to send
+ * again) and the sent one is superseded, in one transaction; the answer is the new revision.
+ * An edit that changes nothing writes nothing and answers with the quote as it is.
  */
 export async function editQuote(member: Member, input: QuoteEdit): Promise<QuoteRow> {
   authorize(member, "quotes:write");
   const { id, version, ...fields } = input;
   const q = await quoteOf(member, id);
   const status = q.quote.status;
-  if (!QUOTE_EDITABLE.includes(status))
+  const revise = QUOTE_REVISED_ON_EDIT.includes(status);
+  if (!QUOTE_EDITABLE.includes(status) && !revise)
     throw new InvalidTransition(
       status === "accepted"
         ? "An accepted quote cannot be edited; make a new revision of it instead"
         : `A quote that is ${lower(status)} cannot be edited`,
     );
   if (fields.lines) await checkLineParts(member.shopId, fields.lines);
-  return updateQuote(member.shopId, id, version, fields);
+  if (version === q.quote.version && unchanged(q, fields)) return q.quote;
+  return revise
+    ? insertRevision(member.shopId, id, member.user.id, {
+        from: QUOTE_REVISED_ON_EDIT,
+        expectedVersion: version,
+        edit: fields,
+      })
+    : updateQuote(member.shopId, id, version, fields);
 }
 
 /**
  * E-mails a draft or sent quote to its customer (with a portal invitation when they have no
  * sign-in yet), then — only once the mail server took it — logs the message, records the
- * invitation and moves a draft to sent. A failed send writes nothing.
+ * invitation and moves a draft to sent. A failed send writes nothing; a quote past its
+ * valid-until day is not sent.
  */
 export async function sendQuote(
   member: Member,
@@ -155,6 +194,14 @@ export async function sendQuote(
     );
   if (q.lines.length === 0)
     throw new Invalid("Add at least one line before sending the quote", [], "empty_quote");
+  // A quote sent past its date could not be accepted: nothing is sent that the customer cannot take up.
+  if (q.quote.validUntil < isoDay())
+    throw q.quote.status === "draft"
+      ? Invalid.field("validUntil", "Valid until is in the past; set a later date before sending")
+      : new InvalidTransition(
+          `This quote was valid until ${q.quote.validUntil}; edit it to make a new revision with a later date, and send that`,
+          "quote_expired",
+        );
 
   const appUrl = serverEnv().APP_URL;
   // A customer without a portal sign-in gets the invitation in this same e-mail: the open one
@@ -199,8 +246,9 @@ export async function sendQuote(
 
 /**
  * Moves a quote one step along its workflow (QUOTE_NEXT): accepting holds its parts' stock,
- * declining or expiring an accepted quote releases it. Asking for the status it has changes
- * nothing.
+ * declining or expiring an accepted quote releases it. Once past its valid-until day (judged
+ * now, whatever the stored status) it is no longer accepted, declined or paid (422
+ * quote_expired). Asking for the status it has changes nothing.
  */
 export async function changeQuoteStatus(
   member: Member,
@@ -212,6 +260,11 @@ export async function changeQuoteStatus(
   if (!QUOTE_NEXT[q.status].includes(input.status))
     throw new InvalidTransition(
       `A quote cannot go from ${QUOTE_STATUS_LABELS[q.status]} to ${QUOTE_STATUS_LABELS[input.status]}`,
+    );
+  if (!quoteMovesOn(q, isoDay()).includes(input.status))
+    throw new InvalidTransition(
+      `This quote was valid until ${q.validUntil}: it can no longer be accepted, declined or paid. Mark it expired, or ${q.status === "sent" ? "edit it to make a new revision to send" : "revise it"}.`,
+      "quote_expired",
     );
   return setQuoteStatus(member.shopId, q.id, {
     from: q.status,
@@ -229,14 +282,15 @@ export async function reviseQuote(member: Member, input: { id: string }): Promis
   const q = (await quoteOf(member, input.id)).quote;
   if (q.status !== "accepted")
     throw new InvalidTransition(
-      "Only an accepted quote is revised; edit a draft or sent quote directly",
+      "Only an accepted quote is revised this way; a draft is edited, and editing a sent quote makes its next revision",
     );
-  return insertRevision(member.shopId, q.id, member.user.id);
+  return insertRevision(member.shopId, q.id, member.user.id, { from: ["accepted"] });
 }
 
 /**
- * The customer accepts or declines their own sent quote; the time and who are recorded. Any
- * other quote is "not found" to them; one no longer open is a conflict.
+ * The customer accepts or declines their own sent quote while it is valid (its valid-until day
+ * judged now, whatever the stored status); the time and who are recorded. Any other quote is
+ * "not found" to them; one no longer open, replaced or past its date is a conflict (409).
  */
 export async function respondToQuote(
   member: Member,
@@ -244,8 +298,18 @@ export async function respondToQuote(
 ): Promise<QuoteRow> {
   authorize(member, "quotes:respond");
   const q = (await quoteOf(member, input.id, true)).quote;
+  if (q.status === "superseded")
+    throw new Conflict(
+      "This quote was replaced by a new revision; the shop sends it to you when it is ready",
+      "not_open",
+    );
   if (q.status !== "sent")
     throw new Conflict("This quote is no longer open for a decision", "not_open");
+  if (pastValidity(q, isoDay()))
+    throw new Conflict(
+      `This quote was valid until ${q.validUntil} and can no longer be accepted or declined; ask the shop for a new one`,
+      "quote_expired",
+    );
   return setQuoteStatus(member.shopId, q.id, {
     from: "sent",
     to: input.decision === "accept" ? "accepted" : "declined",

@@ -7,7 +7,7 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { STATUS_LABELS } from "@/lib/domain/builds";
-import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { expireDueQuotes } from "@/lib/quotes/quote-commands";
 
 export const metadata: Metadata = { title: "My builds" };
@@ -15,6 +15,7 @@ export const metadata: Metadata = { title: "My builds" };
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
   await expireDueQuotes(m); // its own write, before the list (which only reads)
+  const today = isoDay(); // a quote past its date shows as expired even if not yet written so
   const [builds, quotes] = await Promise.all([
     listBuildsOfPortalUser(m.shopId, m.user.id),
     listQuotes(m.shopId, { portalUserId: m.user.id }),
@@ -63,8 +64,8 @@ export default async function MyBuildsPage() {
                   Quote {quoteLabel(q.number, q.revision)}
                 </Link>
                 <p className="text-sm text-ink-600">
-                  {QUOTE_STATUS_LABELS[q.status]} · {formatMoney(q.totalMinor, q.currency)} · valid
-                  until {q.validUntil}
+                  {QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]} ·{" "}
+                  {formatMoney(q.totalMinor, q.currency)} · valid until {q.validUntil}
                 </p>
               </li>
             ))}

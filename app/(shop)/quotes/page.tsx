@@ -5,7 +5,7 @@ import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
-import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { expireDueQuotes } from "@/lib/quotes/quote-commands";
 
 export const metadata: Metadata = { title: "Quotes" };
@@ -13,6 +13,7 @@ export const metadata: Metadata = { title: "Quotes" };
 export default async function QuotesPage() {
   const m = await requirePageMember("quotes:read");
   await expireDueQuotes(m); // its own write, before the list (which only reads)
+  const today = isoDay(); // a quote past its date shows as expired even if not yet written so
   const quotes = await listQuotes(m.shopId);
   return (
     <>
@@ -56,7 +57,7 @@ export default async function QuotesPage() {
                   </td>
                   <td className="px-4 py-2">{q.customerName}</td>
                   <td className="px-4 py-2">{q.buildTitle ?? "—"}</td>
-                  <td className="px-4 py-2">{QUOTE_STATUS_LABELS[q.status]}</td>
+                  <td className="px-4 py-2">{QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}</td>
                   <td className="figure px-4 py-2">{q.validUntil}</td>
                   <td className="figure px-4 py-2 text-right">
                     {formatMoney(q.totalMinor, q.currency)}

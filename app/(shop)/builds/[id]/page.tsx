@@ -7,13 +7,14 @@ import { CopyBuildButton } from "@/components/builds/copy-build-button";
 import { ShareLinks } from "@/components/builds/share-links";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { LocalTime } from "@/components/ui/local-time";
-import { getBuild, listRevisions } from "@/db/queries/builds";
+import { buildStatusFacts, getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
+import { isoDay } from "@/lib/domain/quotes";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { idOrNotFound } from "@/lib/ids";
 
@@ -24,9 +25,10 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const [revisions, bsfcRows] = await Promise.all([
+  const [revisions, bsfcRows, statusFacts] = await Promise.all([
     listRevisions(m.shopId, id),
     shopBsfc(m.shopId),
+    buildStatusFacts(m.shopId, id, isoDay()),
   ]);
   const b = row.build;
   return (
@@ -62,6 +64,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         buildId={b.id}
         title={b.title}
         status={b.status}
+        statusFacts={statusFacts}
         version={b.version}
         inputs={readStoredInputs(b)}
         readOnly={!can(m.role, "builds:write")}

@@ -7,11 +7,11 @@ import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listParts } from "@/db/queries/parts";
 import { listPayments } from "@/db/queries/payments";
-import { getQuote } from "@/db/queries/quotes";
+import { getQuote, latestRevision } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
-import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Quote" };
@@ -38,7 +38,11 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
       }))
     : [];
   const qt = q.quote;
-  const payments = await listPayments(m.shopId, qt.id);
+  const today = isoDay();
+  const [payments, latest] = await Promise.all([
+    listPayments(m.shopId, qt.id),
+    qt.status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
+  ]);
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
@@ -53,7 +57,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
             className="rounded-full bg-ink-800 px-3 py-1 text-sm font-semibold text-white"
             data-testid="quote-status"
           >
-            {QUOTE_STATUS_LABELS[qt.status]}
+            {QUOTE_STATUS_LABELS[quoteStatusOn(qt, today)]}
           </span>
         </div>
       </PageHeader>
@@ -76,9 +80,27 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           </>
         ) : null}
       </p>
+      {qt.status === "draft" && qt.revision > 1 ? (
+        <p className="mb-4 text-sm text-ink-700" data-testid="revision-draft">
+          Revision {qt.revision} of {quoteLabel(qt.number, 1)}, a draft: the customer sees it once
+          you send it. Their link to the earlier revision says it was replaced.
+        </p>
+      ) : null}
+      {latest && latest.id !== qt.id ? (
+        <p className="mb-4 text-sm text-ink-700" data-testid="replaced-by">
+          Replaced by{" "}
+          <Link href={`/quotes/${latest.id}`} className="text-copper-700 underline">
+            {quoteLabel(qt.number, latest.revision)}
+          </Link>{" "}
+          ({QUOTE_STATUS_LABELS[quoteStatusOn(latest, today)].toLowerCase()}).
+        </p>
+      ) : null}
       <QuoteEditor
         key={qt.id}
         id={qt.id}
+        number={qt.number}
+        revision={qt.revision}
+        today={today}
         version={qt.version}
         status={qt.status}
         currency={qt.currency}

@@ -7,12 +7,12 @@ import { QuoteDecision } from "@/components/portal/quote-decision";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listPayments } from "@/db/queries/payments";
-import { getQuote } from "@/db/queries/quotes";
+import { getQuote, latestRevision } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
-import { QUOTE_STATUS_LABELS, quoteLabel } from "@/lib/domain/quotes";
+import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 
@@ -41,12 +41,18 @@ export default async function MyQuotePage({
   const q = await getQuote(m.shopId, id, m.user.id);
   if (!q) notFound();
   const qt = q.quote;
+  // As of today, whatever is stored: past its date a sent or accepted quote is expired.
+  const status = quoteStatusOn(qt, isoDay());
   const money = (v: number) => formatMoney(v, qt.currency);
   const t = quoteTotals(q.lines, qt.taxRateBp);
-  const [settings, paid] = await Promise.all([
+  const [settings, paid, latest] = await Promise.all([
     getShopSettings(m.shopId),
     listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid")),
+    status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
   ]);
+  // A replaced revision points only to a newer one the shop has sent (never to a draft).
+  const newer =
+    latest && latest.revision > qt.revision && latest.status !== "draft" ? latest : null;
   const deposit = depositOf(qt.totalMinor, settings?.settings.depositBp ?? 3000);
   return (
     <>
@@ -71,8 +77,34 @@ export default async function MyQuotePage({
           {note.text}
         </p>
       ) : null}
+      {status === "superseded" ? (
+        <p
+          role="status"
+          className="mb-4 rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm font-medium text-ink-800"
+          data-testid="replaced"
+        >
+          This quote was replaced by a new revision and can no longer be accepted.{" "}
+          {newer ? (
+            <Link href={`/my/quotes/${newer.id}`} className="text-copper-700 underline">
+              See {quoteLabel(qt.number, newer.revision)}
+            </Link>
+          ) : (
+            "The shop sends you the new one when it is ready."
+          )}
+        </p>
+      ) : null}
+      {status === "expired" ? (
+        <p
+          role="status"
+          className="mb-4 rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm font-medium text-ink-800"
+          data-testid="expired"
+        >
+          This quote was valid until {qt.validUntil} and can no longer be accepted. Ask the shop for
+          a new one.
+        </p>
+      ) : null}
       <p className="mb-4 text-ink-700">
-        <span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[qt.status]}</span> · valid until{" "}
+        <span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[status]}</span> · valid until{" "}
         {qt.validUntil}
         {q.buildTitle ? ` · ${q.buildTitle}` : ""}
       </p>
@@ -115,7 +147,7 @@ export default async function MyQuotePage({
         </tfoot>
       </table>
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
-      {qt.status === "accepted" && deposit > 0 ? (
+      {status === "accepted" && deposit > 0 ? (
         <DepositButton id={qt.id} amount={money(deposit)} />
       ) : null}
       {paid.map((p) => (
@@ -124,9 +156,9 @@ export default async function MyQuotePage({
           {p.paidAt ? <LocalTime value={p.paidAt} /> : null}.
         </p>
       ))}
-      {qt.status === "sent" ? (
+      {status === "sent" ? (
         <QuoteDecision id={qt.id} />
-      ) : qt.statusChangedAt ? (
+      ) : status === qt.status && qt.statusChangedAt ? (
         <p className="mt-4 text-sm text-ink-700" data-testid="decision">
           {QUOTE_STATUS_LABELS[qt.status]} on <LocalTime value={qt.statusChangedAt} />.
         </p>

@@ -4,11 +4,12 @@ import { notFound } from "next/navigation";
 
 import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
 import { PageHeader } from "@/components/ui/status";
-import { getBuild } from "@/db/queries/builds";
+import { buildStatusFacts, getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { STATUS_LABELS } from "@/lib/domain/builds";
+import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
+import { isoDay } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Dyno verification" };
@@ -19,7 +20,11 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const logs = await listDatalogs(m.shopId, id);
+  const [logs, facts] = await Promise.all([
+    listDatalogs(m.shopId, id),
+    buildStatusFacts(m.shopId, id, isoDay()),
+  ]);
+  const status = row.build.status;
   return (
     <>
       <PageHeader title={`Dyno verification — ${row.build.title}`}>
@@ -42,6 +47,11 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
       <DynoWorkbench
         buildId={id}
         canUpload={can(m.role, "datalogs:upload")}
+        verifyRefusal={
+          canVerifyWithLog(status, facts)
+            ? null
+            : `Mark verified is offered once the build is fitted; it is ${STATUS_LABELS[status].toLowerCase()}.`
+        }
         logs={logs.map((l) => ({
           id: l.id,
           fileName: l.fileName,

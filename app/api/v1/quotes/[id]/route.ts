@@ -20,8 +20,10 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
 });
 
 /**
- * PATCH with the `version` the edit started from and any of lines, validity and notes (draft
- * or sent only); a stale version → 409 with the quote as it is now in `current`.
+ * PATCH with the `version` the edit started from and any of lines, validity and notes: a draft
+ * is saved in place; a sent quote's edit is its next revision (answered in `quote`, with its own
+ * id) and the sent one is superseded. A stale version → 409 with the quote as it is now in
+ * `current`.
  */
 export const PATCH = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember();
