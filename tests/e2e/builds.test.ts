@@ -2,6 +2,8 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { sql } from "../helpers/db";
+import { BASE_URL, request, signIn } from "../helpers/http";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -9,6 +11,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
+  await sql.end();
 });
 
 /** The editor's fields are filled in by the form library once the page has hydrated. */
@@ -145,6 +148,75 @@ describe("build sheets", () => {
     await expect.poll(() => page.getByLabel("Inside diameter (mm)").inputValue()).toBe("11.1");
     await page.getByRole("radio", { name: /Imperial/ }).click(); // leave the demo tuner as found
     await expect.poll(() => page.getByLabel("Target power (hp)").count()).toBe(1);
+    await ctx.close();
+  });
+
+  it("the status control offers only the moves allowed now: no Verified on a draft build, nor Mark verified on its dyno screen", async () => {
+    const tag = Date.now().toString(36);
+    const tuner = await signIn("tuner@demo.fuelwright.test");
+    const [demo] =
+      await sql`select customer_id, inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId: demo!.customer_id,
+      title: `Status control ${tag}`,
+      inputs: demo!.inputs,
+    });
+    expect(made.status).toBe(201);
+    const id = made.json.build.id as string;
+    // A pull with rpm, duty and lambda (the first guess maps all three), uploaded to the draft build.
+    const rows = ["Engine RPM,Inj Duty,Lambda", "rpm,%,lambda"];
+    for (let i = 0; i <= 20; i++) rows.push(`${3000 + i * 200},${40 + i * 2},0.80`);
+    const up = await fetch(`${BASE_URL}/api/v1/builds/${id}/datalogs`, {
+      method: "POST",
+      body: rows.join("\n") + "\n",
+      headers: {
+        cookie: tuner.cookie,
+        origin: BASE_URL,
+        "x-forwarded-for": tuner.ip,
+        "content-type": "text/csv",
+        "x-file-name": `status-${tag}.csv`,
+      },
+    });
+    expect(up.status).toBe(201);
+
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    let dialogs = 0;
+    page.on("dialog", (d) => {
+      dialogs++;
+      void d.dismiss();
+    });
+    await signInAs(page, "tuner");
+    await page.goto(`/builds/${id}`);
+    await editorReady(page);
+    const status = page.locator("#b-status");
+    expect(await status.locator("option").allInnerTexts()).toEqual(["Draft", "Sized"]);
+
+    // Fitted without a verified log: Verified is not offered, and the reason is text tied to the select.
+    await sql`update builds set status = 'fitted' where id = ${id}`;
+    await page.reload();
+    await editorReady(page);
+    expect(await status.locator("option").allInnerTexts()).toEqual(["Fitted"]);
+    expect(await status.getAttribute("aria-describedby")).toContain("b-status-blocked");
+    expect(await page.locator("#b-status-blocked").innerText()).toMatch(
+      /Not yet: Verified needs a verified dyno log/,
+    );
+
+    // The dyno screen of the draft build: the pull is analysed, but "Mark verified" is not offered.
+    await sql`update builds set status = 'draft' where id = ${id}`;
+    await page.goto(`/builds/${id}/dyno`);
+    await expect.poll(() => page.getByLabel("Engine speed (rpm)").inputValue()).toBe("Engine RPM");
+    await page.getByRole("button", { name: "Analyse the pull" }).click();
+    await expect
+      .poll(() => page.getByText("80.0 % at 7000 rpm").count(), { timeout: 15000 })
+      .toBe(1);
+    expect(await page.getByRole("button", { name: "Mark verified" }).count()).toBe(0);
+    expect(await page.getByTestId("verify-refusal").innerText()).toBe(
+      "Mark verified is offered once the build is fitted; it is draft.",
+    );
+    expect(dialogs).toBe(0);
+    const [row] = await sql`select status, version from builds where id = ${id}`;
+    expect(row).toMatchObject({ status: "draft", version: 1 });
     await ctx.close();
   });
 

@@ -11,12 +11,13 @@ import { BASE_URL, request, signIn, type Client } from "../helpers/http";
  * the same refusal of a status move — and a command's writes land together or not at all.
  */
 
-let tuner: Client, outsider: Client;
+let tuner: Client, counter: Client, outsider: Client;
 let customerId: string;
 beforeAll(async () => {
   const other = await makeOtherShop();
-  [tuner, outsider] = await Promise.all([
+  [tuner, counter, outsider] = await Promise.all([
     signIn("tuner@demo.fuelwright.test"),
+    signIn("counter@demo.fuelwright.test"),
     signIn(other.email, other.password),
   ]);
   const [c] =
@@ -283,5 +284,111 @@ describe("verifying a build with a dyno log", () => {
     );
     expect(await fingerprint(["builds", "build_revisions", "datalogs"])).toBe(before2);
     expect(before).not.toBe(before2); // the analysis in between was written
+  });
+});
+
+describe("status moves need their precondition, checked by the save command", () => {
+  const TABLES = ["builds", "build_revisions", "quotes", "datalogs"];
+  const move = (id: string, version: number, status: string) =>
+    request(tuner, "PATCH", `/api/v1/builds/${id}`, { version, status });
+  /** Asserts the move is refused with 422 invalid_transition saying `why`, and writes nothing. */
+  async function refused(id: string, version: number, status: string, why: RegExp) {
+    const before = await fingerprint(TABLES);
+    const r = await move(id, version, status);
+    expect(r.status, `${status}: ${r.json?.error?.message}`).toBe(422);
+    expect(r.json.error.code).toBe("invalid_transition");
+    expect(r.json.error.message).toMatch(why);
+    expect(await fingerprint(TABLES)).toBe(before);
+  }
+  async function allowed(id: string, version: number, status: string) {
+    const r = await move(id, version, status);
+    expect(r.status, `${status}: ${r.json?.error?.message}`).toBe(200);
+    expect(r.json.build).toMatchObject({ status, version: version + 1 });
+  }
+  /** The build's quote (made by the counter from the build), set to `status` for the next step. */
+  async function quoteFor(buildId: string) {
+    const r = await request(counter, "POST", "/api/v1/quotes", { buildId });
+    expect(r.status).toBe(201);
+    const id = r.json.quote.id as string;
+    return {
+      id,
+      set: (status: string, validUntil = "2099-12-31") =>
+        sql`update quotes set status = ${status}, valid_until = ${validUntil} where id = ${id}`,
+    };
+  }
+
+  it("draft → sized → quoted → ordered → fitted → verified, each refused without its precondition and allowed with it", async () => {
+    const b = await newBuild(`Moves ${Date.now().toString(36)}`);
+    await allowed(b.id, 1, "sized");
+
+    // Quoted: a quote for this build, sent and within its date.
+    await refused(
+      b.id,
+      2,
+      "quoted",
+      /Quoted needs a quote for this build sent.*no quote for it yet/,
+    );
+    const q = await quoteFor(b.id);
+    await refused(b.id, 2, "quoted", /still a draft; send it first/);
+    const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+    await q.set("sent", yesterday); // past its date: as good as expired, whatever is stored
+    await refused(b.id, 2, "quoted", /declined or expired/);
+    await q.set("sent");
+    await allowed(b.id, 2, "quoted");
+
+    // Ordered: that quote accepted (or its deposit paid, or ordered).
+    await refused(b.id, 3, "ordered", /accepted by the customer.*sent and waiting/);
+    await q.set("accepted", yesterday);
+    await refused(b.id, 3, "ordered", /Ordered needs/);
+    await q.set("accepted");
+    await allowed(b.id, 3, "ordered");
+
+    // Fitted: the order still stands.
+    await q.set("declined");
+    await refused(b.id, 4, "fitted", /Fitted needs the order to stand/);
+    await q.set("deposit_paid");
+    await allowed(b.id, 4, "fitted");
+
+    // Verified: a dyno log of this build marked verified.
+    await refused(b.id, 5, "verified", /needs a verified dyno log/);
+    const [log] =
+      await sql`insert into datalogs (shop_id, build_id, object_key, file_name, size_bytes, sha256, headers, row_count, verified_at)
+        values ('demo-shop-ridgeback', ${b.id}, ${`test/${b.id}.csv`}, 'verified.csv', 1, 'x', '[]', 1, now()) returning id`;
+    expect(log).toBeTruthy();
+    await allowed(b.id, 5, "verified");
+
+    // Reworked: back to draft, and a log verified before the rework no longer verifies it.
+    await allowed(b.id, 6, "draft");
+    await sql`update builds set status = 'fitted' where id = ${b.id}`;
+    await refused(b.id, 7, "verified", /needs a verified dyno log/);
+  });
+
+  it("the editor's action refuses alike, with the reason on the status field", async () => {
+    const b = await newBuild(`Moves action ${Date.now().toString(36)}`);
+    await allowed(b.id, 1, "sized");
+    const before = await fingerprint(TABLES);
+    const s = await saveByAction({ id: b.id, version: 2, status: "quoted" });
+    expect(s).toMatchObject({ ok: false, status: 422, code: "invalid_transition" });
+    expect(s.message).toMatch(/Quoted needs a quote for this build sent/);
+    expect(s.fieldErrors?.status?.[0]).toBe(s.message);
+    expect(await fingerprint(TABLES)).toBe(before);
+  });
+
+  it("a stale version is still a conflict (409) before any rule", async () => {
+    const b = await newBuild(`Moves stale ${Date.now().toString(36)}`);
+    await allowed(b.id, 1, "sized");
+    const r = await move(b.id, 1, "quoted");
+    expect(r.status).toBe(409);
+    expect(r.json.error.code).toBe("conflict");
+  });
+
+  it("Mark verified on the dyno screen is refused for a draft build, and nothing changes", async () => {
+    const { build, log } = await analysedLog(`${Date.now().toString(36)}-d`);
+    await sql`update builds set status = 'draft' where id = ${build}`;
+    const before = await fingerprint(TABLES);
+    const r = await request(tuner, "POST", `/api/v1/datalogs/${log}/verify`);
+    expect(r.status).toBe(409);
+    expect(r.json.error.message).toBe("Only a fitted build is verified; this one is draft");
+    expect(await fingerprint(TABLES)).toBe(before);
   });
 });

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { actionManifest, callAction, type ActionRef, type ActionResult } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
+import { waitForMail } from "../helpers/mail";
 
 /**
  * The quote commands (lib/quotes/quote-commands.ts) through both of their doors: the JSON API
@@ -308,6 +309,250 @@ describe("listing quotes only reads; due quotes expire through their own command
       list!.json.quotes.map((q: { id: string; status: string }) => [q.id, q.status]),
     );
     expect(listed[accepted.id]).toBe("expired");
+    expect(await fingerprint(TABLES)).toBe(before);
+  });
+});
+
+describe("a sent quote is never edited in place", () => {
+  const TABLES = ["quotes", "quote_lines", "quote_messages", "parts", "invitation"];
+  const EMAIL = "customer@demo.fuelwright.test"; // the portal customer's address (db/seed.ts)
+  const label = (n: number, r: number) => `Q-${String(n).padStart(4, "0")}${r > 1 ? `-r${r}` : ""}`;
+
+  /** A quote with one labour line at `price`, e-mailed to the portal customer. */
+  async function sentQuote(price: number) {
+    const q = await draftQuote();
+    const saved = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      validUntil: "2099-05-31",
+      notes: "As sent",
+      lines: labour(price),
+    });
+    expect(saved.status).toBe(200);
+    const sent = await request(counter, "POST", `/api/v1/quotes/${q.id}/send`);
+    expect(sent.status).toBe(200);
+    const row = (await request(counter, "GET", `/api/v1/quotes/${q.id}`)).json.quote;
+    expect(row).toMatchObject({ status: "sent", revision: 1 });
+    return row as { id: string; version: number; number: number; totalMinor: number };
+  }
+
+  it("the edit becomes revision 2 (a draft), the sent one is superseded, and the customer's total stays what they were sent", async () => {
+    const q = await sentQuote(9000);
+    // By hand: 2.5 h × 90.00 = 225.00, less 10 % = 202.50; 8.25 % tax = 16.71 (half up); 219.21.
+    expect(q.totalMinor).toBe(21921);
+    const mail = await waitForMail(EMAIL, new RegExp(`quote ${label(q.number, 1)} for`));
+    expect(mail.text).toContain("Total $219.21");
+    const linesOf = async (id: string) =>
+      (
+        await sql`select description, quantity_milli, unit_price_minor, discount_bp from quote_lines where quote_id = ${id} order by position`
+      ).map((r) => ({ ...r }));
+    const sentLines = await linesOf(q.id);
+
+    const edit = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      lines: labour(12000),
+    });
+    expect(edit.status).toBe(200);
+    const rev = edit.json.quote;
+    // By hand: 2.5 h × 120.00 = 300.00, less 10 % = 270.00; 8.25 % tax = 22.28 (22.275 half up); 292.28.
+    expect(rev).toMatchObject({
+      number: q.number,
+      revision: 2,
+      status: "draft",
+      version: 1,
+      validUntil: "2099-05-31", // what the edit left out is the sent one's
+      notes: "As sent",
+      totalMinor: 29228,
+    });
+    expect(rev.id).not.toBe(q.id);
+    const [old] = await sql`select status, version, total_minor from quotes where id = ${q.id}`;
+    expect(old).toMatchObject({ status: "superseded", version: q.version + 1, total_minor: 21921 });
+    expect(await linesOf(q.id)).toEqual(sentLines);
+    expect((await linesOf(rev.id))[0]).toMatchObject({ unit_price_minor: 12000 });
+
+    // The customer's link to what they were sent: its total, said to be replaced, nothing to accept.
+    const portal = await request(customer, "GET", `/my/quotes/${q.id}`);
+    expect(portal.status).toBe(200);
+    expect(portal.text).toContain("This quote was replaced by a new revision");
+    expect(portal.text).toContain("$219.21");
+    expect(portal.text).not.toContain("$292.28");
+    expect(portal.text).not.toContain("Accept quote");
+    expect(portal.text).not.toContain(`/my/quotes/${rev.id}`); // the draft is not theirs to see yet
+    expect((await request(customer, "GET", `/my/quotes/${rev.id}`)).status).toBe(404);
+    const before = await fingerprint(TABLES);
+    const accept = await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, {
+      decision: "accept",
+    });
+    expect(accept.status).toBe(409);
+    expect(accept.json.error.message).toMatch(/replaced by a new revision/);
+    expect(await fingerprint(TABLES)).toBe(before);
+
+    // Sent, the revision is the customer's: its e-mail and its portal page say the same total.
+    expect((await request(counter, "POST", `/api/v1/quotes/${rev.id}/send`)).status).toBe(200);
+    const revMail = await waitForMail(EMAIL, new RegExp(`quote ${label(q.number, 2)} for`));
+    expect(revMail.text).toContain("Total $292.28");
+    expect(revMail.text).toContain(`/my/quotes/${rev.id}`);
+    const revPage = await request(customer, "GET", `/my/quotes/${rev.id}`);
+    expect(revPage.text).toContain("$292.28");
+    expect(revPage.text).toContain("Accept quote");
+    expect((await request(customer, "GET", `/my/quotes/${q.id}`)).text).toContain(
+      `/my/quotes/${rev.id}`,
+    );
+  });
+
+  it("through the editor's action too; a stale version or an edit that changes nothing writes nothing", async () => {
+    const q = await sentQuote(5000);
+    const before = await fingerprint(TABLES);
+    const same = stateOf(
+      await action("editQuoteAction", `/quotes/${q.id}`, counter, {
+        id: q.id,
+        version: q.version,
+        validUntil: "2099-05-31",
+        notes: "As sent",
+        lines: labour(5000),
+      }),
+    );
+    expect(same).toMatchObject({ ok: true, data: { id: q.id, status: "sent" } });
+    expect(await fingerprint(TABLES)).toBe(before);
+    const stale = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version - 1,
+      notes: "Stale",
+    });
+    expect(stale.status).toBe(409);
+    expect(stale.json.current).toMatchObject({ id: q.id, status: "sent" });
+    expect(await fingerprint(TABLES)).toBe(before);
+
+    const viaAction = stateOf(
+      await action("editQuoteAction", `/quotes/${q.id}`, counter, {
+        id: q.id,
+        version: q.version,
+        notes: "Changed",
+      }),
+    );
+    expect(viaAction).toMatchObject({
+      ok: true,
+      data: { number: q.number, revision: 2, status: "draft", notes: "Changed" },
+    });
+    expect(viaAction.data!.id).not.toBe(q.id);
+    expect((await sql`select status from quotes where id = ${q.id}`)[0]!.status).toBe("superseded");
+    // Only one revision: the superseded quote is no longer edited, by either door.
+    const again = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version + 1,
+      notes: "Again",
+    });
+    expect(again.status).toBe(422);
+    expect(
+      (
+        await sql`select count(*)::int as n from quotes where shop_id = ${SHOP} and number = ${q.number}`
+      )[0]!.n,
+    ).toBe(2);
+  });
+
+  it("a sent quote no longer goes back to draft", async () => {
+    const q = await sentQuote(4000);
+    const before = await fingerprint(TABLES);
+    const r = await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, { status: "draft" });
+    expect(r.status).toBe(422);
+    expect(r.json.error.code).toBe("invalid_transition");
+    expect(await fingerprint(TABLES)).toBe(before);
+  });
+});
+
+describe("a quote past its valid-until day is not accepted, declined or paid, whatever its stored status", () => {
+  const TABLES = ["quotes", "quote_lines", "quote_messages", "parts", "payments", "invitation"];
+  const yesterday = () => new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+
+  /** The portal customer's quote with one labour line, in `status`, valid until yesterday. */
+  async function lapsed(status: "sent" | "accepted") {
+    const q = await draftQuote();
+    const saved = await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      lines: labour(8000),
+    });
+    expect(saved.status).toBe(200);
+    // Stored as the expiry command has not seen it yet (nobody listed quotes since).
+    await sql`update quotes set status = ${status}, valid_until = ${yesterday()} where id = ${q.id}`;
+    return q;
+  }
+
+  it("the customer's acceptance (API and action) is refused with 409 quote_expired and changes no row; the portal shows it expired", async () => {
+    const q = await lapsed("sent");
+    const before = await fingerprint(TABLES);
+    const viaRoute = await request(customer, "POST", `/api/v1/quotes/${q.id}/respond`, {
+      decision: "accept",
+    });
+    expect(viaRoute.status).toBe(409);
+    expect(viaRoute.json.error.code).toBe("quote_expired");
+    expect(viaRoute.json.error.message).toContain(`valid until ${yesterday()}`);
+    const viaAction = stateOf(
+      await action("respondToQuoteAction", `/my/quotes/${q.id}`, customer, {
+        id: q.id,
+        decision: "decline",
+      }),
+    );
+    expect(viaAction).toMatchObject({ ok: false, status: 409, code: "quote_expired" });
+    expect(await fingerprint(TABLES)).toBe(before);
+
+    const page = await request(customer, "GET", `/my/quotes/${q.id}`);
+    expect(page.status).toBe(200);
+    expect(page.text).toContain("can no longer be accepted");
+    expect(page.text).toMatch(/data-testid="my-quote-status">Expired</);
+    expect(page.text).not.toContain("Accept quote");
+    expect(await fingerprint(TABLES)).toBe(before); // reading it wrote nothing
+    const [row] = await sql`select status from quotes where id = ${q.id}`;
+    expect(row!.status).toBe("sent");
+  });
+
+  it("the shop cannot mark it accepted, declined or its deposit paid (422), only expired; nor send it again", async () => {
+    const sent = await lapsed("sent");
+    const accepted = await lapsed("accepted");
+    const before = await fingerprint(TABLES);
+    for (const [id, status] of [
+      [sent.id, "accepted"],
+      [sent.id, "declined"],
+      [accepted.id, "deposit_paid"],
+      [accepted.id, "declined"],
+    ] as const) {
+      const r = await request(counter, "POST", `/api/v1/quotes/${id}/status`, { status });
+      expect(r.status, `${status}`).toBe(422);
+      expect(r.json.error.code).toBe("quote_expired");
+    }
+    const resend = await request(counter, "POST", `/api/v1/quotes/${sent.id}/send`);
+    expect(resend.status).toBe(422);
+    expect(resend.json.error.code).toBe("quote_expired");
+    expect(await fingerprint(TABLES)).toBe(before);
+    const expire = await request(counter, "POST", `/api/v1/quotes/${sent.id}/status`, {
+      status: "expired",
+    });
+    expect(expire.status).toBe(200);
+  });
+
+  it("the deposit on an accepted quote past its date is refused (API and action) and no checkout is opened", async () => {
+    const q = await lapsed("accepted");
+    const before = await fingerprint(TABLES);
+    const viaRoute = await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`);
+    expect(viaRoute.status).toBe(409);
+    expect(viaRoute.json.error.code).toBe("quote_expired");
+    const viaAction = stateOf(
+      await action("startDepositAction", `/my/quotes/${q.id}`, customer, { id: q.id }),
+    );
+    expect(viaAction).toMatchObject({ ok: false, status: 409, code: "quote_expired" });
+    expect(await fingerprint(TABLES)).toBe(before);
+    const page = await request(customer, "GET", `/my/quotes/${q.id}`);
+    expect(page.text).not.toContain("Pay deposit");
+    await sql`update quotes set status = 'expired' where id = ${q.id}`; // as the expiry command would
+  });
+
+  it("a draft with a past date is not sent: a field error on validUntil", async () => {
+    const q = await draftQuote();
+    await request(counter, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      lines: labour(1000),
+      validUntil: yesterday(),
+    });
+    const before = await fingerprint(TABLES);
+    const r = await request(counter, "POST", `/api/v1/quotes/${q.id}/send`);
+    expect(r.status).toBe(422);
+    expect(r.json.error.issues.map((i: { path: string }) => i.path)).toEqual(["validUntil"]);
     expect(await fingerprint(TABLES)).toBe(before);
   });
 });
