@@ -145,4 +145,52 @@ describe("parts counter", () => {
     expect(after.json.quote).toMatchObject({ version: q.version + 2, notes: "Saved elsewhere" });
     await ctx.close();
   });
+
+  it("editing a sent quote says beforehand that it makes the next revision, then opens that draft", async () => {
+    const api = await signIn("counter@demo.fuelwright.test");
+    const created = await request(api, "POST", "/api/v1/quotes", {
+      customerId: "00000000-0000-4000-8000-000000000001", // the portal customer (db/seed.ts)
+    });
+    const q = created.json.quote as { id: string; version: number; number: number };
+    const saved = await request(api, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      lines: [
+        {
+          kind: "labour",
+          description: "Fitting",
+          quantityMilli: 1000,
+          unitPriceMinor: 12000,
+          discountBp: 0,
+        },
+      ],
+    });
+    expect(saved.status).toBe(200);
+    expect((await request(api, "POST", `/api/v1/quotes/${q.id}/send`)).status).toBe(200);
+    const label = `Q-${String(q.number).padStart(4, "0")}`;
+
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto(`/quotes/${q.id}`);
+    await expect
+      .poll(() => page.getByTestId("revision-notice").innerText())
+      .toContain(
+        `Editing makes revision 2 (${label}-r2), a draft; the customer sees it after you send it.`,
+      );
+    await page.getByLabel("Line 1 quantity").fill("2");
+    await page.getByRole("button", { name: "Save as revision 2" }).click();
+    await page.waitForURL(
+      (u) => /\/quotes\/[0-9a-f-]{36}$/.test(u.pathname) && !u.pathname.endsWith(q.id),
+    );
+    await expect
+      .poll(() => page.getByRole("heading", { level: 1 }).innerText())
+      .toBe(`Quote ${label}-r2`);
+    await expect.poll(() => page.getByTestId("quote-status").innerText()).toBe("Draft");
+    // By hand: 2 h × 120.00 = 240.00; 8.25 % tax (demo shop) = 19.80; 259.80.
+    await expect.poll(() => page.getByTestId("quote-total").innerText()).toBe("$259.80");
+    const [old] = await sql`select status, total_minor from quotes where id = ${q.id}`;
+    // By hand: 1 h × 120.00 = 120.00; 8.25 % tax = 9.90; 129.90.
+    expect(old).toMatchObject({ status: "superseded", total_minor: 12990 });
+    await ctx.close();
+  });
 });
