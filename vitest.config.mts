@@ -4,6 +4,9 @@ import { defineConfig } from "vitest/config";
 
 const root = fileURLToPath(new URL(".", import.meta.url));
 const alias = { "@": root.replace(/\/$/, "") };
+// Integration tests call a few server modules directly (the clock's sweep); "server-only" is
+// Next's guard against client bundles and has nothing to guard in a test.
+const serverAlias = { ...alias, "server-only": `${root}tests/helpers/server-only.ts` };
 
 export default defineConfig({
   resolve: { alias },
@@ -14,7 +17,7 @@ export default defineConfig({
         test: { name: "unit", include: ["tests/calc/**/*.test.ts", "tests/unit/**/*.test.ts"] },
       },
       {
-        resolve: { alias },
+        resolve: { alias: serverAlias },
         test: {
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],

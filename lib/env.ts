@@ -25,6 +25,8 @@ const EnvSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
   /** "off" only in tests: better-auth's sign-in rate limit stays on everywhere else. */
   AUTH_RATE_LIMIT: z.enum(["on", "off"]).default("on"),
+  /** Minutes between sweeps of quotes past their date (instrumentation.ts); 0 turns it off (tests run it themselves). */
+  QUOTE_SWEEP_MINUTES: z.coerce.number().int().min(0).max(1440).default(5),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
 });
 

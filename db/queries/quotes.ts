@@ -483,24 +483,29 @@ export async function recordQuoteSent(
 
 /**
  * Sent or accepted quotes past their date become expired (accepted ones release their stock),
- * in one transaction. Rows another transaction holds are left to it. Returns the expired ids.
+ * in one transaction: one shop's, or every shop's when no shop is named (the clock's sweep).
+ * Rows another transaction holds are left to it. Returns the expired ids.
  */
-export async function expireQuotes(shopId: string, today: string): Promise<string[]> {
+export async function expireQuotes(today: string, shopId?: string): Promise<string[]> {
   return db.transaction(async (tx) => {
     const due = await tx
       .select()
       .from(quotes)
       .where(
         and(
-          eq(quotes.shopId, shopId),
+          shopId ? eq(quotes.shopId, shopId) : undefined,
           inArray(quotes.status, ["sent", "accepted"]),
           lt(quotes.validUntil, today),
         ),
       )
       .orderBy(asc(quotes.id))
       .for("update", { skipLocked: true });
-    const held = due.filter((q) => stockSign(q.status, "expired") === -1).map((q) => q.id);
-    await moveReservation(tx, shopId, held, -1);
+    const heldByShop = new Map<string, string[]>();
+    for (const q of due) {
+      if (stockSign(q.status, "expired") !== -1) continue;
+      heldByShop.set(q.shopId, [...(heldByShop.get(q.shopId) ?? []), q.id]);
+    }
+    for (const [shop, held] of heldByShop) await moveReservation(tx, shop, held, -1);
     for (const q of due) await writeStatus(tx, q, "expired", null);
     return due.map((q) => q.id);
   });

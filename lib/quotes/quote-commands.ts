@@ -319,12 +319,12 @@ export async function respondToQuote(
 }
 
 /**
- * Sent or accepted quotes of the member's shop past their date become expired (accepted ones
- * release their stock), in one transaction. Called before a list of quotes is shown, as its
- * own write; the lists themselves only read.
+ * The clock's sweep, not a member's command: sent or accepted quotes of every shop past their
+ * date become expired and accepted ones release their stock, in one transaction. Started by
+ * `instrumentation.ts` at boot and every few minutes; no request runs it, so reads never write.
+ * Until it runs, screens and the API show such a quote as expired (`quoteStatusOn`) and every
+ * answer to it is refused.
  */
-export async function expireDueQuotes(member: Member): Promise<{ expired: string[] }> {
-  authorize(member, "quotes:view");
-  const today = new Date().toISOString().slice(0, 10);
-  return { expired: await expireQuotes(member.shopId, today) };
+export async function sweepExpiredQuotes(now: Date = new Date()): Promise<{ expired: string[] }> {
+  return { expired: await expireQuotes(isoDay(now)) };
 }

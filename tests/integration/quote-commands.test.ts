@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { sweepExpiredQuotes } from "@/lib/quotes/quote-commands";
+
 import { actionManifest, callAction, type ActionRef, type ActionResult } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { request, signIn, type Client } from "../helpers/http";
@@ -8,7 +10,7 @@ import { waitForMail } from "../helpers/mail";
 /**
  * The quote commands (lib/quotes/quote-commands.ts) through both of their doors: the JSON API
  * and the server actions of lib/quotes/quote-actions.ts give the same answers; listing quotes
- * only reads, and due quotes expire through their own command; a refused e-mail writes nothing.
+ * only reads, and due quotes expire through the clock's sweep; a refused e-mail writes nothing.
  */
 
 const SHOP = "demo-shop-ridgeback";
@@ -217,7 +219,7 @@ describe("editing a quote: the route and the action give the same result", () =>
   });
 });
 
-describe("listing quotes only reads; due quotes expire through their own command", () => {
+describe("listing quotes only reads; due quotes expire through the clock's sweep", () => {
   const TABLES = [
     "quotes",
     "quote_lines",
@@ -236,7 +238,7 @@ describe("listing quotes only reads; due quotes expire through their own command
     ]);
 
   it("with nothing due, the API list, the quotes page and the portal write nothing", async () => {
-    await request(counter, "GET", "/api/v1/quotes"); // whatever was due is expired now
+    await sweepExpiredQuotes(); // whatever was due is expired now
     const before = await fingerprint(TABLES);
     const newest = async () =>
       (await sql`select max(updated_at) as max from quotes where shop_id = ${SHOP}`)[0]!.max;
@@ -247,7 +249,7 @@ describe("listing quotes only reads; due quotes expire through their own command
     expect(await newest()).toEqual(updatedBefore);
   });
 
-  it("a quote past its date expires once, before the list shows it; an accepted one releases its stock", async () => {
+  it("a quote past its date is listed as expired before the sweep; the sweep expires it once and an accepted one releases its stock", async () => {
     const [part] =
       await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs) values (${SHOP}, ${`${tag}-EXP`}, 'other', 'Testbrand', 'Expirable', 1000, 6, '{}') returning id`;
     const partLine = {
@@ -287,8 +289,23 @@ describe("listing quotes only reads; due quotes expire through their own command
       (await sql`select reserved from parts where id = ${part!.id}`)[0]!.reserved as number;
     expect(await reserved()).toBe(2);
 
-    const page = await request(counter, "GET", "/quotes");
-    expect(page.status).toBe(200);
+    // Before the sweep: listed as expired everywhere, and nothing written.
+    const unswept = await fingerprint(TABLES);
+    const [early, page] = await lists();
+    expect(page!.status).toBe(200);
+    const earlyStatus = Object.fromEntries(
+      early!.json.quotes.map((q: { id: string; status: string }) => [q.id, q.status]),
+    );
+    expect(earlyStatus[accepted.id]).toBe("expired");
+    expect(earlyStatus[sent.id]).toBe("expired");
+    expect(earlyStatus[current.id]).toBe("sent");
+    expect(await fingerprint(TABLES)).toBe(unswept);
+    expect(await reserved()).toBe(2);
+
+    const swept = await sweepExpiredQuotes();
+    expect(swept.expired).toEqual(expect.arrayContaining([accepted.id, sent.id]));
+    expect(swept.expired).not.toContain(draft.id);
+    expect(swept.expired).not.toContain(current.id);
     const rows =
       await sql`select id, status, version, status_changed_by from quotes where id in ${sql([accepted.id, sent.id, draft.id, current.id])}`;
     const byId = Object.fromEntries(rows.map((r) => [r.id, r]));
@@ -302,13 +319,14 @@ describe("listing quotes only reads; due quotes expire through their own command
     expect(byId[current.id]).toMatchObject({ status: "sent", version: current.version });
     expect(await reserved()).toBe(0);
 
-    // Listed as expired, and listing again changes nothing more.
+    // Listed as expired, and listing or sweeping again changes nothing more.
     const before = await fingerprint(TABLES);
     const [list] = await lists();
     const listed = Object.fromEntries(
       list!.json.quotes.map((q: { id: string; status: string }) => [q.id, q.status]),
     );
     expect(listed[accepted.id]).toBe("expired");
+    expect((await sweepExpiredQuotes()).expired).not.toContain(accepted.id);
     expect(await fingerprint(TABLES)).toBe(before);
   });
 });

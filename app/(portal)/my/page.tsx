@@ -8,14 +8,12 @@ import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
-import { expireDueQuotes } from "@/lib/quotes/quote-commands";
 
 export const metadata: Metadata = { title: "My builds" };
 
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
-  await expireDueQuotes(m); // its own write, before the list (which only reads)
-  const today = isoDay(); // a quote past its date shows as expired even if not yet written so
+  const today = isoDay(); // a quote past its date shows as expired before the sweep writes it
   const [builds, quotes] = await Promise.all([
     listBuildsOfPortalUser(m.shopId, m.user.id),
     listQuotes(m.shopId, { portalUserId: m.user.id }),

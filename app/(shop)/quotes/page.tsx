@@ -6,14 +6,12 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
-import { expireDueQuotes } from "@/lib/quotes/quote-commands";
 
 export const metadata: Metadata = { title: "Quotes" };
 
 export default async function QuotesPage() {
   const m = await requirePageMember("quotes:read");
-  await expireDueQuotes(m); // its own write, before the list (which only reads)
-  const today = isoDay(); // a quote past its date shows as expired even if not yet written so
+  const today = isoDay(); // a quote past its date shows as expired before the sweep writes it
   const quotes = await listQuotes(m.shopId);
   return (
     <>
