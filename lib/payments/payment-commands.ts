@@ -149,7 +149,7 @@ function claimOf(session: Stripe.Checkout.Session): CheckoutClaim {
 function warnRefused(outcome: string, sessionId: string, via: string) {
   if (outcome === "mismatch" || outcome === "unknown")
     console.warn(
-      `payments: ${via} for checkout ${sessionId} refused (${outcome === "mismatch" ? "the provider's record does not match the deposit the app opened" : "no such checkout"}); nothing recorded as paid`,
+      `payments: ${via} for checkout ${JSON.stringify(sessionId)} refused (${outcome === "mismatch" ? "the provider's record does not match the deposit the app opened" : "no such checkout"}); nothing recorded as paid`,
     );
 }
 
