@@ -86,6 +86,8 @@ describe("two app instances on one database", () => {
         await signInFrom([a, b][i % 2]!.url, "127.0.0.2", nobody(i), wrong, {
           "x-forwarded-for": `203.0.113.${i + 1}`,
           "x-real-ip": `198.51.100.${i + 1}`,
+          // The server's own header for the address: a client's value is replaced.
+          "x-fuelwright-client-address": `192.0.2.${i + 1}`,
         }),
       );
     expect(byAddress, byAddress.join()).toEqual([401, 401, 401, 429, 429]);
