@@ -10,6 +10,7 @@ ensure_node_modules
 ensure_postgres
 pg_start bench 54349
 pg_ensure_db 54349 fuelwright_bench
-export DATABASE_URL="postgres://fuelwright@127.0.0.1:54349/fuelwright_bench" BETTER_AUTH_SECRET="bench-secret-bench-secret-bench-secret-01"
+export DATABASE_URL="postgres://fuelwright@127.0.0.1:54349/fuelwright_bench"
+ensure_secret BETTER_AUTH_SECRET bench-auth-secret
 migrate_and_seed
 node node_modules/.bin/tsx tests/bench/builds.bench.ts

@@ -114,8 +114,25 @@ start_mail_sink() {
   start_node_service "mail sink" "$2" mail-sink.mjs SMTP_PORT="$1" INBOX_PORT="$2"
 }
 
-# start_payment_fake PORT WEBHOOK_URL — the local card-payment API (scripts/payment-fake.mjs)
-start_payment_fake() { start_node_service "payment fake" "$1" payment-fake.mjs PAYMENTS_PORT="$1" PAYMENTS_WEBHOOK_URL="$2"; }
+# ensure_secret VAR FILE [PREFIX]: VAR as the environment gives it, else the random secret kept in
+# .data/FILE (made once per checkout, readable by its owner only). Production refuses defaults.
+ensure_secret() {
+  local var="$1" file="$FW_ROOT/.data/$2" prefix="${3:-}"
+  [ -n "${!var:-}" ] && return 0
+  mkdir -p "$FW_ROOT/.data"
+  if [ ! -s "$file" ]; then
+    (umask 077 && node -e 'console.log(process.argv[1] + require("crypto").randomBytes(32).toString("hex"))' "$prefix" > "$file") || die "could not write $file"
+  fi
+  printf -v "$var" '%s' "$(cat "$file")"
+  export "${var?}"
+}
+
+# start_payment_fake PORT WEBHOOK_URL — the local card-payment API (scripts/payment-fake.mjs); it
+# signs its webhooks with $STRIPE_WEBHOOK_SECRET, which the app checks them with.
+start_payment_fake() {
+  [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "the payment fake needs STRIPE_WEBHOOK_SECRET (the app's webhook secret)"
+  start_node_service "payment fake" "$1" payment-fake.mjs PAYMENTS_PORT="$1" PAYMENTS_WEBHOOK_URL="$2"
+}
 
 # start_s3_fake PORT DIR — the local S3-compatible store for uploads (scripts/s3-fake.mjs)
 start_s3_fake() { mkdir -p "$2" && start_node_service "S3 fake" "$1" s3-fake.mjs S3_PORT="$1" S3_DIR="$2"; }

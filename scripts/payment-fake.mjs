@@ -5,7 +5,10 @@
  * a test checkout page at GET /pay/:id whose "Pay" button completes the session, sends a signed
  * `checkout.session.completed` webhook to WEBHOOK_URL and redirects to the session's success_url;
  * and, for tests: GET /__fake/events, POST /__fake/events/:id/deliver (send again),
- * POST /__fake/sessions/:id/complete (pay without the page). State is in memory.
+ * POST /__fake/sessions/:id/complete (pay without the page), POST /__fake/sessions/:id/tamper
+ * (a JSON body of fields the session then reports: amount_total, currency, payment_status, status,
+ * metadata, client_reference_id — what a checkout made or changed behind the app's back would
+ * say). State is in memory.
  * No real card is ever involved.
  */
 import { createHmac, randomBytes } from "node:crypto";
@@ -14,7 +17,12 @@ import http from "node:http";
 const port = Number(process.env.PAYMENTS_PORT ?? 12111);
 const webhookUrl =
   process.env.PAYMENTS_WEBHOOK_URL ?? "http://127.0.0.1:3000/api/webhooks/payments";
-const secret = process.env.STRIPE_WEBHOOK_SECRET ?? "whsec_fuelwright_local_fake";
+// The app's webhook secret (scripts/start.sh and test-env.vars make one per checkout).
+const secret = process.env.STRIPE_WEBHOOK_SECRET;
+if (!secret) {
+  console.error("payment fake: set STRIPE_WEBHOOK_SECRET to the app's webhook secret");
+  process.exit(1);
+}
 const publicUrl = process.env.PAYMENTS_PUBLIC_URL ?? `http://127.0.0.1:${port}`;
 const sessions = new Map();
 const events = new Map();
@@ -89,6 +97,15 @@ function createSession(p) {
   sessions.set(sid, s);
   return [200, s];
 }
+
+const TAMPERABLE = [
+  "amount_total",
+  "currency",
+  "payment_status",
+  "status",
+  "metadata",
+  "client_reference_id",
+];
 
 function publicSession(s) {
   const { line_items_description: _d, ...rest } = s;
@@ -228,6 +245,13 @@ const server = http.createServer(async (req, res) => {
       const deliverNow = url.searchParams.get("deliver") !== "0";
       const e = complete(s);
       return send(res, 200, { event: e, status: deliverNow ? await deliver(e) : null });
+    }
+    if (req.method === "POST" && (m = path.match(/^\/__fake\/sessions\/([\w]+)\/tamper$/))) {
+      const s = sessions.get(m[1]);
+      if (!s) return apiError(res, 404, "No such checkout.session");
+      const body = JSON.parse((await readBody(req)) || "{}");
+      for (const k of TAMPERABLE) if (k in body) s[k] = body[k];
+      return send(res, 200, publicSession(s));
     }
     if (req.method === "GET" && path === "/health") return send(res, 200, { ok: true });
     res.writeHead(404, { "content-type": "text/plain" });

@@ -24,10 +24,14 @@ if [ -z "${SMTP_URL:-}" ]; then
 else
   say "using SMTP_URL from the environment (no mail sink started)"
 fi
+# Secrets of this install, made once into .data/ (production refuses defaults and placeholders).
+ensure_secret BETTER_AUTH_SECRET auth-secret
 if [ -z "${STRIPE_SECRET_KEY:-}" ] && [ -z "${PAYMENTS_API_URL:-}" ]; then
+  ensure_secret STRIPE_WEBHOOK_SECRET payments-webhook-secret whsec_
   start_payment_fake 12111 "http://127.0.0.1:$PORT/api/webhooks/payments"
   export PAYMENTS_API_URL="http://127.0.0.1:12111"
 else
+  [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "set STRIPE_WEBHOOK_SECRET to the signing secret of the payment service's webhook endpoint"
   say "using the payment service from the environment (no payment fake started)"
 fi
 if [ -z "${S3_ENDPOINT:-}" ]; then
@@ -35,11 +39,6 @@ if [ -z "${S3_ENDPOINT:-}" ]; then
   export S3_ENDPOINT="http://127.0.0.1:4569"
 else
   say "using S3_ENDPOINT from the environment (no S3 fake started)"
-fi
-if [ -z "${BETTER_AUTH_SECRET:-}" ]; then
-  mkdir -p .data
-  [ -s .data/auth-secret ] || node -e "console.log(require('crypto').randomBytes(32).toString('hex'))" > .data/auth-secret
-  BETTER_AUTH_SECRET="$(cat .data/auth-secret)"; export BETTER_AUTH_SECRET
 fi
 export APP_URL="${APP_URL:-http://localhost:$PORT}"
 port_busy "$PORT" && die "the app cannot start: port $PORT is taken"

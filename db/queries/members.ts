@@ -23,6 +23,25 @@ export async function sessionMembership(userId: string, shopId: string | null) {
   return row ?? null;
 }
 
+/** A person's role in one shop, named by its id or its slug; null when not a member there. */
+export async function roleInShop(
+  userId: string,
+  shop: { id: string } | { slug: string },
+): Promise<string | null> {
+  const [row] = await db
+    .select({ role: member.role })
+    .from(member)
+    .innerJoin(organization, eq(organization.id, member.organizationId))
+    .where(
+      and(
+        eq(member.userId, userId),
+        "id" in shop ? eq(organization.id, shop.id) : eq(organization.slug, shop.slug),
+      ),
+    )
+    .limit(1);
+  return row?.role ?? null;
+}
+
 /** The shop a new session starts in: the person's first membership, or null. */
 export async function firstShopOf(userId: string): Promise<string | null> {
   const [row] = await db

@@ -25,30 +25,57 @@ export async function recordPendingPayment(v: {
   return row;
 }
 
+/** What the provider's own record of a paid checkout says it paid for. */
+export interface CheckoutClaim {
+  checkoutSessionId: string;
+  shopId: string;
+  quoteId: string;
+  amountMinor: number;
+  /** ISO 4217, upper case. */
+  currency: string;
+}
+
 /**
- * Records a completed checkout once: the payment row turns paid and an accepted quote moves to
- * "deposit paid". A second call for the same session (a redelivered or out-of-order event, or the
- * customer's return after the webhook) changes nothing and says so.
+ * Records a paid checkout once: the payment row turns paid and an accepted quote moves to
+ * "deposit paid". Only when the provider's record matches the checkout the app opened: the
+ * same shop and quote, the deposit amount the app computed for it and the quote's currency —
+ * else "mismatch" and nothing changes. A session the app never opened is "unknown". A second
+ * call for the same session (a redelivered or out-of-order event, or the customer's return after
+ * the webhook) changes nothing and says "already".
  */
 export async function markPaymentPaid(
   tx: Tx,
-  checkoutSessionId: string,
+  claim: CheckoutClaim,
   eventId: string,
-): Promise<"paid" | "already" | "unknown"> {
+): Promise<"paid" | "already" | "unknown" | "mismatch"> {
   const [p] = await tx
     .select()
     .from(payments)
-    .where(eq(payments.checkoutSessionId, checkoutSessionId))
+    .where(eq(payments.checkoutSessionId, claim.checkoutSessionId))
     .for("update")
     .limit(1);
   if (!p) return "unknown";
+  const [q] = await tx
+    .select()
+    .from(quotes)
+    .where(and(eq(quotes.id, p.quoteId), eq(quotes.shopId, p.shopId)))
+    .for("update")
+    .limit(1);
+  if (
+    !q ||
+    claim.shopId !== p.shopId ||
+    claim.quoteId !== p.quoteId ||
+    claim.amountMinor !== p.amountMinor ||
+    claim.currency !== p.currency.toUpperCase() ||
+    q.currency.toUpperCase() !== p.currency.toUpperCase()
+  )
+    return "mismatch";
   if (p.status === "paid") return "already";
   await tx
     .update(payments)
     .set({ status: "paid", paidAt: new Date(), paidEventId: eventId })
     .where(eq(payments.id, p.id));
-  const [q] = await tx.select().from(quotes).where(eq(quotes.id, p.quoteId)).for("update").limit(1);
-  if (q?.status === "accepted") {
+  if (q.status === "accepted") {
     await tx
       .update(quotes)
       .set({
@@ -86,6 +113,6 @@ export async function onceForEvent<T>(
   });
 }
 
-export async function confirmPayment(checkoutSessionId: string, eventId: string) {
-  return db.transaction((tx) => markPaymentPaid(tx, checkoutSessionId, eventId));
+export async function confirmPayment(claim: CheckoutClaim, eventId: string) {
+  return db.transaction((tx) => markPaymentPaid(tx, claim, eventId));
 }

@@ -1,5 +1,5 @@
 import { relations } from "drizzle-orm";
-import { boolean, index, pgTable, text, timestamp } from "drizzle-orm/pg-core";
+import { boolean, index, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 
 // Tables of better-auth (core + organization plugin), written from its documented schema.
 
@@ -117,6 +117,21 @@ export const invitation = pgTable(
     index("invitation_organization_id_idx").on(t.organizationId),
     index("invitation_email_idx").on(t.email),
   ],
+);
+
+/**
+ * The auth rate limits' counters, shared by every app instance (lib/auth/rate-limit-commands.ts):
+ * one row per key (`<address>|<path>` or `account:<e-mail>|<path>`), counting requests until
+ * `resets_at`. Rows long past it are pruned.
+ */
+export const rateLimits = pgTable(
+  "rate_limits",
+  {
+    key: text("key").primaryKey(),
+    count: integer("count").notNull(),
+    resetsAt: timestamp("resets_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [index("rate_limits_resets_at_idx").on(t.resetsAt)],
 );
 
 export const userRelations = relations(user, ({ many }) => ({

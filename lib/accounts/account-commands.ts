@@ -16,6 +16,7 @@ import {
   Invalid,
   InvalidTransition,
   NotFound,
+  RateLimited,
   Unauthorized,
 } from "@/lib/domain/errors";
 import type { AcceptInvitationSchema, SignUpSchema } from "@/lib/validations/auth";
@@ -50,6 +51,11 @@ async function openInvitation(id: string): Promise<Invitation> {
 /** better-auth's refusals as our errors (its other failures pass through unchanged). */
 function authRefusal(e: unknown, fallback: string): unknown {
   if (!(e instanceof APIError)) return e;
+  if (e.statusCode === 429)
+    return new RateLimited(
+      e.message || undefined,
+      Number(new Headers(e.headers as HeadersInit | undefined).get("retry-after")) || 10,
+    );
   const code = (e.body as { code?: string } | undefined)?.code ?? "";
   if (code.includes("USER_ALREADY_EXISTS"))
     return new Invalid(
@@ -60,7 +66,11 @@ function authRefusal(e: unknown, fallback: string): unknown {
   return new Invalid(e.message || fallback, [], "refused");
 }
 
-/** Sign-up: a new account and a new shop, with the new person as its owner (e-mail to confirm). */
+/**
+ * Sign-up: a new account and a new shop, with the new person as its owner (e-mail to confirm).
+ * better-auth's sign-up limit for the client's address applies here as on its HTTP endpoint
+ * (lib/auth/auth-hooks.ts): a refusal is RateLimited (429) and creates nothing.
+ */
 export async function signUp(
   input: z.output<typeof SignUpSchema>,
 ): Promise<{ email: string; shopId: string }> {

@@ -34,6 +34,12 @@ export const PERMISSIONS = {
   "quotes:pay": ["customer"],
   "shares:manage": ["owner", "tuner", "counter"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
+  /**
+   * better-auth's organization endpoints (/api/auth/organization/*): staff only — customers are
+   * not shop members there (lib/auth/auth-hooks.ts); what each staff role may do there is the
+   * plugin's access control in lib/auth/server.ts (only the owner manages).
+   */
+  "organization:use": ["owner", "tuner", "counter"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

@@ -7,9 +7,13 @@ import { defaultStatements, ownerAc } from "better-auth/plugins/organization/acc
 import { authAdapter } from "@/db/auth-adapter";
 import { firstShopOf, hasPendingInvitation } from "@/db/queries/members";
 import { serverEnv } from "@/lib/env";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-address";
 import { allowedOrigins } from "@/lib/http/same-origin";
 import { sendMail } from "@/lib/mail";
 import { INVITATION_DAYS, invitationMail } from "@/lib/members/invitation-mail";
+
+import { afterAuthHook, beforeAuthHook } from "./auth-hooks";
+import { rateLimitStorage } from "./rate-limit-commands";
 
 const env = serverEnv();
 const ac = createAccessControl(defaultStatements);
@@ -33,6 +37,8 @@ export const auth = betterAuth({
     minPasswordLength: 10,
     maxPasswordLength: 128,
     resetPasswordTokenExpiresIn: 60 * 60,
+    // A new password ends every session the old one opened.
+    revokeSessionsOnPasswordReset: true,
     sendResetPassword: async ({ user, url }) => {
       await sendMail({
         to: user.email,
@@ -58,8 +64,18 @@ export const auth = betterAuth({
     enabled: env.AUTH_RATE_LIMIT === "on",
     window: 10,
     max: 100,
-    customRules: { "/sign-in/email": { window: 10, max: 3 } },
+    // Sign-in and sign-up are limited in the hooks (lib/auth/auth-hooks.ts): by address and
+    // account, and for the sign-up page's server action as for the endpoint.
+    customRules: { "/sign-in/email": false, "/sign-up/email": false },
+    // In PostgreSQL: every instance counts against the same counters.
+    customStorage: rateLimitStorage,
   },
+  advanced: {
+    // The address the server noted from the socket (or the trusted proxy's header), never a
+    // header a client chose (lib/http/client-address.ts).
+    ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+  },
+  hooks: { before: beforeAuthHook, after: afterAuthHook },
   databaseHooks: {
     session: {
       create: {

@@ -87,6 +87,17 @@ export class Invalid extends DomainError {
   }
 }
 
+/** Too many attempts from this address or on this account; try again after `retryAfter` seconds. */
+export class RateLimited extends DomainError {
+  readonly code = "rate_limited";
+  constructor(
+    message = "Too many attempts. Wait a moment and try again.",
+    readonly retryAfter = 10,
+  ) {
+    super(message);
+  }
+}
+
 /** A service we depend on (mail, payments, storage) did not answer; nothing was changed. */
 export class Unavailable extends DomainError {
   constructor(

@@ -8,6 +8,7 @@ import {
   Invalid,
   InvalidTransition,
   NotFound,
+  RateLimited,
   Unauthorized,
   Unavailable,
   type FieldIssue,
@@ -66,6 +67,8 @@ export function describeError(err: unknown): ErrorDescription {
     if (err instanceof InvalidTransition)
       return { ...base, status: 422, issues: [{ path: err.path, message: err.message }] };
     if (err instanceof Invalid) return { ...base, status: 422, issues: err.issues };
+    if (err instanceof RateLimited)
+      return { ...base, status: 429, headers: { "Retry-After": String(err.retryAfter) } };
     if (err instanceof Unavailable) {
       return err.kind === "self"
         ? { ...base, status: 503, headers: RETRY }

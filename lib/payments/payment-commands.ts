@@ -9,6 +9,7 @@ import {
   markPaymentPaid,
   onceForEvent,
   recordPendingPayment,
+  type CheckoutClaim,
 } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
@@ -118,9 +119,48 @@ export async function startDeposit(
   return { url: session.url, amountMinor };
 }
 
+/** A checkout session id as the provider makes them; anything else is not worth asking about. */
+const SESSION_ID = /^cs_[A-Za-z0-9_]{1,200}$/;
+
+/**
+ * The provider's own record of a checkout, asked through the SDK (an event's copy is never
+ * trusted); null when the provider does not know the session. An outage is Unavailable (502), so
+ * the provider delivers the event again later.
+ */
+async function retrieveCheckout(id: string): Promise<Stripe.Checkout.Session | null> {
+  if (!SESSION_ID.test(id)) return null;
+  try {
+    return await payments().checkout.sessions.retrieve(id);
+  } catch (e) {
+    const err = e as { type?: string; statusCode?: number };
+    if (err.type === "StripeInvalidRequestError" && err.statusCode === 404) return null;
+    return provider(() => Promise.reject(e));
+  }
+}
+
+/** What a paid checkout says it paid for, as the app checks it against its own payment row. */
+function claimOf(session: Stripe.Checkout.Session): CheckoutClaim {
+  const quoteId = session.metadata?.quote_id ?? "";
+  return {
+    checkoutSessionId: session.id,
+    shopId: session.metadata?.shop_id ?? "",
+    // The quote named twice by the app when it opened the checkout: both must agree.
+    quoteId: session.client_reference_id === quoteId ? quoteId : "",
+    amountMinor: session.amount_total ?? -1,
+    currency: (session.currency ?? "").toUpperCase(),
+  };
+}
+
+function warnRefused(outcome: string, sessionId: string, via: string) {
+  if (outcome === "mismatch" || outcome === "unknown")
+    console.warn(
+      `payments: ${via} for checkout ${JSON.stringify(sessionId)} refused (${outcome === "mismatch" ? "the provider's record does not match the deposit the app opened" : "no such checkout"}); nothing recorded as paid`,
+    );
+}
+
 /**
  * The customer is back from checkout: ask the provider, and record the payment if it is paid
- * (once, whether or not the webhook came first).
+ * for this quote's deposit (once, whether or not the webhook came first).
  */
 export async function confirmDepositReturn(
   member: Member,
@@ -133,43 +173,53 @@ export async function confirmDepositReturn(
     (p) => p.checkoutSessionId === input.session,
   );
   if (!mine) throw new NotFound("That payment");
-  const session = await provider(() => payments().checkout.sessions.retrieve(input.session));
-  if (session.payment_status !== "paid") return "unpaid";
-  const r = await confirmPayment(session.id, `return:${session.id}`);
-  return r === "paid" ? "paid" : "already";
+  const session = await retrieveCheckout(input.session);
+  if (session?.payment_status !== "paid") return "unpaid";
+  const r = await confirmPayment(claimOf(session), `return:${session.id}`);
+  warnRefused(r, session.id, "the customer's return");
+  return r === "paid" ? "paid" : r === "already" ? "already" : "unpaid";
 }
 
-function sessionOf(event: Stripe.Event): Stripe.Checkout.Session | null {
-  return event.type.startsWith("checkout.session.")
-    ? (event.data.object as Stripe.Checkout.Session)
-    : null;
+const PAID_EVENTS = new Set([
+  "checkout.session.completed",
+  "checkout.session.async_payment_succeeded",
+]);
+
+/** The checkout an event points at: only its id is used (the provider is asked for the rest). */
+function sessionIdOf(event: Stripe.Event): string | null {
+  if (!event.type.startsWith("checkout.session.")) return null;
+  const id = (event.data?.object as { id?: unknown } | undefined)?.id;
+  return typeof id === "string" ? id : null;
 }
 
 /**
- * A verified provider event: each event id is handled once, in one transaction with its
- * effect; a completed checkout records one payment whatever order or number of times events
- * arrive.
+ * A provider event whose signature checked out: each event id is handled once, in one
+ * transaction with its effect. The event only points at a checkout; what happened is read from
+ * the provider's own record of it (retrieved through the SDK), and a completed checkout counts
+ * only when that record says paid, for the shop and quote the app opened it for, with the deposit
+ * amount and currency the app asked — so a forged or tampered event marks nothing paid. A
+ * completed checkout records one payment whatever order or number of times events arrive.
  */
 export async function recordPaymentEvent(event: Stripe.Event) {
-  const session = sessionOf(event);
+  const sessionId = sessionIdOf(event);
+  const acts = PAID_EVENTS.has(event.type) || event.type === "checkout.session.expired";
+  // Asked before the transaction: no network call holds a database connection.
+  const session = sessionId && acts ? await retrieveCheckout(sessionId) : null;
   const outcome = await onceForEvent(
-    { id: event.id, type: event.type, checkoutSessionId: session?.id ?? null },
+    { id: event.id, type: event.type, checkoutSessionId: sessionId },
     async (tx) => {
-      if (!session) return "ignored";
-      if (
-        event.type === "checkout.session.completed" ||
-        event.type === "checkout.session.async_payment_succeeded"
-      ) {
+      if (!sessionId || !acts) return "ignored";
+      if (!session) return "unknown";
+      if (PAID_EVENTS.has(event.type)) {
         return session.payment_status === "paid"
-          ? markPaymentPaid(tx, session.id, event.id)
+          ? markPaymentPaid(tx, claimOf(session), event.id)
           : "unpaid";
       }
-      if (event.type === "checkout.session.expired") {
-        await markPaymentExpired(tx, session.id);
-        return "expired";
-      }
-      return "ignored";
+      if (session.status !== "expired") return "ignored";
+      await markPaymentExpired(tx, session.id);
+      return "expired";
     },
   );
+  if (outcome && sessionId) warnRefused(outcome, sessionId, `event ${event.id}`);
   return { received: true, event: event.id, outcome: outcome ?? "duplicate" };
 }

@@ -1,6 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
 import { existsSync } from "node:fs";
+import { request as httpRequest } from "node:http";
 
 import postgres from "postgres";
 
@@ -128,6 +129,44 @@ export async function signInAt(
       .join("; "),
     setCookie: res.headers.getSetCookie(),
   };
+}
+
+/**
+ * A sign-in attempt sent from a chosen loopback address (any of 127.0.0.0/8 is this machine),
+ * so the app sees that address on the socket: the way to be several clients without any header.
+ */
+export function signInFrom(
+  url: string,
+  from: string,
+  email: string,
+  password: string,
+  headers: Record<string, string> = {},
+): Promise<number> {
+  const target = new URL("/api/auth/sign-in/email", url);
+  const body = JSON.stringify({ email, password });
+  return new Promise((resolve, reject) => {
+    const req = httpRequest(
+      {
+        host: target.hostname,
+        port: target.port,
+        path: target.pathname,
+        method: "POST",
+        localAddress: from,
+        headers: {
+          "content-type": "application/json",
+          "content-length": Buffer.byteLength(body),
+          origin: url,
+          ...headers,
+        },
+      },
+      (res) => {
+        res.resume();
+        res.on("end", () => resolve(res.statusCode ?? 0));
+      },
+    );
+    req.on("error", reject);
+    req.end(body);
+  });
 }
 
 export async function call(

@@ -8,13 +8,15 @@ import { inspectPdf } from "../helpers/pdf";
 import { solidPng } from "../helpers/png";
 
 const FAKE = process.env.PAYMENTS_FAKE_URL ?? "http://127.0.0.1:12121";
-const SECRET = process.env.STRIPE_WEBHOOK_SECRET ?? "whsec_fuelwright_test_secret";
+// The app's webhook secret (random per checkout: scripts/test-env.vars).
+const SECRET = process.env.STRIPE_WEBHOOK_SECRET!;
 const CUSTOMER_ID = "00000000-0000-4000-8000-000000000001"; // has the demo portal sign-in (db/seed.ts)
 const TABLES = ["payments", "payment_events", "quotes"];
 let counter: Client, customer: Client, owner: Client, outsider: Client;
+let other: Awaited<ReturnType<typeof makeOtherShop>>;
 
 beforeAll(async () => {
-  const other = await makeOtherShop();
+  other = await makeOtherShop();
   [counter, customer, owner, outsider] = await Promise.all([
     signIn("counter@demo.fuelwright.test"),
     signIn("customer@demo.fuelwright.test"),
@@ -69,6 +71,37 @@ function signedEvent(
   });
   return { id, payload, header: Stripe.webhooks.generateTestHeaderString({ payload, secret }) };
 }
+const fakePost = async (path: string, body?: unknown) => {
+  const r = await fetch(`${FAKE}${path}`, {
+    method: "POST",
+    ...(body === undefined
+      ? {}
+      : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+  });
+  expect(r.status, path).toBe(200);
+  return r.json();
+};
+
+/** An accepted quote with its deposit checkout opened by the customer (pending, not paid). */
+async function openCheckout(unitPriceMinor?: number) {
+  const q = await acceptedQuote(unitPriceMinor);
+  const start = await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`);
+  expect(start.status).toBe(200);
+  const sessionId = new URL(start.json.url).pathname.split("/").pop()!;
+  return { q, sessionId, amountMinor: start.json.amountMinor as number };
+}
+
+/** The quote still awaits its deposit: its payment pending, its status and version as they were. */
+async function nothingPaid(q: Record<string, any>) {
+  expect(
+    (await sql`select status from payments where quote_id = ${q.id}`).map((r) => r.status),
+  ).toEqual(["pending"]);
+  expect((await sql`select status, version from quotes where id = ${q.id}`)[0]).toMatchObject({
+    status: "accepted",
+    version: q.version,
+  });
+}
+
 const deliver = (e: { payload: string; header: string }) =>
   request(null, "POST", "/api/webhooks/payments", e.payload, {
     "content-type": "application/json",
@@ -156,40 +189,24 @@ describe("deposit payments", () => {
   });
 
   it("the same event twice, or a second event for the same checkout, records one payment", async () => {
-    const q = await acceptedQuote(12345);
-    const start = await request(customer, "POST", `/api/v1/quotes/${q.id}/deposit`);
-    const sessionId = new URL(start.json.url).pathname.split("/").pop()!;
-    const e = signedEvent("checkout.session.completed", {
-      id: sessionId,
-      payment_status: "paid",
-      status: "complete",
-    });
+    const { q, sessionId } = await openCheckout(12345);
+    // Paid at the provider; its own webhook held back, so the test sends the events.
+    await fakePost(`/__fake/sessions/${sessionId}/complete?deliver=0`);
+    const e = signedEvent("checkout.session.completed", { id: sessionId });
     const first = await deliver(e);
     expect(first.status).toBe(200);
     expect(first.json.outcome).toBe("paid");
     const again = await deliver(e);
     expect(again.status).toBe(200);
     expect(again.json.outcome).toBe("duplicate");
-    const other = await deliver(
-      signedEvent("checkout.session.completed", {
-        id: sessionId,
-        payment_status: "paid",
-        status: "complete",
-      }),
-    );
+    const other = await deliver(signedEvent("checkout.session.completed", { id: sessionId }));
     expect(other.json.outcome).toBe("already");
-    // A late "expired" for the paid checkout changes nothing.
-    expect(
-      (
-        await deliver(
-          signedEvent("checkout.session.expired", {
-            id: sessionId,
-            payment_status: "unpaid",
-            status: "expired",
-          }),
-        )
-      ).status,
-    ).toBe(200);
+    // A late "expired" for the paid checkout changes nothing (the provider says it is complete).
+    const expired = await deliver(
+      signedEvent("checkout.session.expired", { id: sessionId, status: "expired" }),
+    );
+    expect(expired.status).toBe(200);
+    expect(expired.json.outcome).toBe("ignored");
     const rows = await sql`select status from payments where quote_id = ${q.id}`;
     expect(rows.map((r) => r.status)).toEqual(["paid"]);
     const [after] = await sql`select status, version from quotes where id = ${q.id}`;
@@ -226,6 +243,153 @@ describe("deposit payments", () => {
     expect((await request(customer, "POST", `/api/v1/quotes/${draft.id}/deposit`)).status).toBe(
       409,
     );
+  });
+});
+
+describe("the payment webhook: nothing forged", () => {
+  it("a completed checkout is read from the provider, never from the event: an event claiming paid for a checkout the provider reports unpaid marks nothing", async () => {
+    const { q, sessionId } = await openCheckout();
+    const r = await deliver(
+      signedEvent("checkout.session.completed", {
+        id: sessionId,
+        payment_status: "paid",
+        status: "complete",
+        amount_total: 1,
+      }),
+    );
+    expect(r.status).toBe(200);
+    expect(r.json.outcome).toBe("unpaid");
+    await nothingPaid(q);
+    // The provider later reports it unpaid again after completion: still nothing.
+    await fakePost(`/__fake/sessions/${sessionId}/tamper`, { payment_status: "unpaid" });
+    const back = await request(
+      customer,
+      "GET",
+      `/api/v1/quotes/${q.id}/deposit?session=${sessionId}`,
+    );
+    expect(back.headers.get("location")).toContain("payment=pending");
+    await nothingPaid(q);
+  });
+
+  it("a validly signed event for a checkout the provider does not know marks nothing", async () => {
+    const { q } = await openCheckout();
+    const before = await fingerprint(["payments", "quotes"]);
+    for (const id of [
+      "cs_test_unknown_to_the_provider",
+      "cs_test_../../v1/charges",
+      "not-a-session",
+    ]) {
+      const r = await deliver(
+        signedEvent("checkout.session.completed", {
+          id,
+          payment_status: "paid",
+          status: "complete",
+          metadata: { shop_id: "demo-shop-ridgeback", quote_id: q.id },
+          client_reference_id: q.id,
+        }),
+      );
+      expect(r.status, id).toBe(200);
+      expect(r.json.outcome, id).toBe("unknown");
+    }
+    expect(await fingerprint(["payments", "quotes"])).toBe(before);
+    await nothingPaid(q);
+  });
+
+  it("a checkout whose amount or currency is not the deposit the app asked is refused, by the webhook and on the customer's return", async () => {
+    for (const tamper of [
+      (amount: number) => ({ amount_total: amount - 1 }),
+      (amount: number) => ({ amount_total: 1, payment_status: "paid" }),
+      () => ({ currency: "eur" }),
+      () => ({ currency: "" }),
+    ]) {
+      const { q, sessionId, amountMinor } = await openCheckout();
+      await fakePost(`/__fake/sessions/${sessionId}/tamper`, tamper(amountMinor));
+      // The provider's own completion, its webhook signed with the real secret.
+      const done = await fakePost(`/__fake/sessions/${sessionId}/complete`);
+      expect(done.status).toBe(200);
+      const seen = await sql`select id from payment_events where id = ${done.event.id}`;
+      expect(seen.length).toBe(1);
+      const back = await request(
+        customer,
+        "GET",
+        `/api/v1/quotes/${q.id}/deposit?session=${sessionId}`,
+      );
+      expect(back.headers.get("location")).toContain("payment=pending");
+      await nothingPaid(q);
+    }
+  });
+
+  it("a checkout that names another shop's quote, or another quote, pays for neither", async () => {
+    const theirCustomer = await request(outsider, "POST", "/api/v1/customers", {
+      name: "Their Customer",
+      email: `their-${Date.now()}@customer.fuelwright.test`,
+    });
+    expect(theirCustomer.status).toBe(201);
+    const theirs = (
+      await request(outsider, "POST", "/api/v1/quotes", {
+        customerId: theirCustomer.json.customer.id,
+      })
+    ).json.quote;
+    await sql`update quotes set status = 'accepted' where id = ${theirs.id}`;
+    const [theirsBefore] = await sql`select status, version from quotes where id = ${theirs.id}`;
+    const ours = await acceptedQuote();
+    for (const metadata of [
+      { shop_id: other.shopId, quote_id: theirs.id },
+      { shop_id: "demo-shop-ridgeback", quote_id: theirs.id },
+      { shop_id: "demo-shop-ridgeback", quote_id: ours.id },
+    ]) {
+      const { q, sessionId } = await openCheckout();
+      await fakePost(`/__fake/sessions/${sessionId}/tamper`, {
+        metadata,
+        client_reference_id: metadata.quote_id,
+      });
+      const done = await fakePost(`/__fake/sessions/${sessionId}/complete`);
+      expect(done.status).toBe(200);
+      await nothingPaid(q);
+    }
+    // The quote and the client reference must name the same quote.
+    const { q, sessionId } = await openCheckout();
+    await fakePost(`/__fake/sessions/${sessionId}/tamper`, { client_reference_id: ours.id });
+    await fakePost(`/__fake/sessions/${sessionId}/complete`);
+    await nothingPaid(q);
+    expect((await sql`select status, version from quotes where id = ${theirs.id}`)[0]).toEqual(
+      theirsBefore,
+    );
+    expect(
+      (await sql`select count(*)::int as n from payments where quote_id = ${theirs.id}`)[0]!.n,
+    ).toBe(0);
+    // `ours` never opened a checkout: no payment at all, and it still awaits its deposit.
+    expect(
+      (await sql`select count(*)::int as n from payments where quote_id = ${ours.id}`)[0]!.n,
+    ).toBe(0);
+    expect((await sql`select status, version from quotes where id = ${ours.id}`)[0]).toMatchObject({
+      status: "accepted",
+      version: ours.version,
+    });
+  });
+
+  it("the honest path: the provider's signed completion marks the deposit paid once, and a replay of it changes nothing", async () => {
+    const { q, sessionId } = await openCheckout(22222);
+    const done = await fakePost(`/__fake/sessions/${sessionId}/complete`);
+    expect(done.status).toBe(200);
+    const paid = async () =>
+      sql`select p.status, p.paid_event_id, q.status as quote_status, q.version from payments p join quotes q on q.id = p.quote_id where p.quote_id = ${q.id}`;
+    expect(await paid()).toEqual([
+      {
+        status: "paid",
+        paid_event_id: done.event.id,
+        quote_status: "deposit_paid",
+        version: q.version + 1,
+      },
+    ]);
+    const before = await fingerprint(["payments", "quotes"]);
+    const replay = await fakePost(`/__fake/events/${done.event.id}/deliver`);
+    expect(replay.status).toBe(200);
+    // The same body and a fresh signature, as an attacker who captured it would send it.
+    const captured = signedEvent("checkout.session.completed", { id: sessionId }, done.event.id);
+    const again = await deliver(captured);
+    expect(again.json.outcome).toBe("duplicate");
+    expect(await fingerprint(["payments", "quotes"])).toBe(before);
   });
 });
 

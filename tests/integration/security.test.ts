@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 
 import { makeOtherShop, sql } from "../helpers/db";
-import { BASE_URL, nextIp, signIn } from "../helpers/http";
+import { BASE_URL, nextIp, request, signIn } from "../helpers/http";
 import { firstLink, waitForMail } from "../helpers/mail";
 
 afterAll(async () => {
@@ -98,5 +98,37 @@ describe("sessions", () => {
     // The first new password is the one that holds.
     await expect(signIn(u.email, "a-brand-new-pass-1")).resolves.toBeTruthy();
     await expect(signIn(u.email, "another-new-pass-2")).rejects.toThrow();
+  });
+
+  it("a password reset ends every session opened before it", async () => {
+    const u = await makeOtherShop();
+    const [laptop, phone] = [await signIn(u.email, u.password), await signIn(u.email, u.password)];
+    for (const s of [laptop, phone])
+      expect((await request(s, "GET", "/api/v1/builds")).status).toBe(200);
+    const ip = nextIp();
+    const post = (path: string, body: unknown) =>
+      fetch(`${BASE_URL}/api/auth${path}`, {
+        method: "POST",
+        headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": ip },
+        body: JSON.stringify(body),
+      });
+    await post("/request-password-reset", { email: u.email, redirectTo: "/reset-password" });
+    const mail = await waitForMail(u.email, /Reset your Fuelwright password/);
+    const hop = await fetch(firstLink(mail.text), { redirect: "manual" });
+    const token = new URL(hop.headers.get("location")!, BASE_URL).searchParams.get("token")!;
+    expect((await post("/reset-password", { token, newPassword: "reset-pass-333" })).status).toBe(
+      200,
+    );
+    for (const s of [laptop, phone]) {
+      expect((await request(s, "GET", "/api/v1/builds")).status).toBe(401);
+      const session = await request(s, "GET", "/api/auth/get-session");
+      expect(session.json).toBeNull();
+    }
+    expect(
+      (await sql`select count(*)::int as n from session where user_id = ${u.userId}`)[0]!.n,
+    ).toBe(0);
+    // The new password opens a new session.
+    const fresh = await signIn(u.email, "reset-pass-333");
+    expect((await request(fresh, "GET", "/api/v1/builds")).status).toBe(200);
   });
 });

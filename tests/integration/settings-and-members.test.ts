@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { actionManifest, callAction, formOf, type ActionRef } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
-import { signIn, type Client } from "../helpers/http";
+import { request, signIn, type Client } from "../helpers/http";
 import { waitForMail } from "../helpers/mail";
 import { SEED_SETTINGS_FORM } from "../helpers/surface";
 
@@ -14,7 +14,7 @@ import { SEED_SETTINGS_FORM } from "../helpers/surface";
 
 const DEMO_SHOP = "demo-shop-ridgeback";
 const prev = { ok: false };
-let tuner: Client, counter: Client, customer: Client;
+let owner: Client, tuner: Client, counter: Client, customer: Client;
 let other: Awaited<ReturnType<typeof makeOtherShop>>, otherOwner: Client;
 
 type State = {
@@ -46,7 +46,8 @@ const remove = action("removeMemberAction");
 
 beforeAll(async () => {
   other = await makeOtherShop();
-  [tuner, counter, customer, otherOwner] = await Promise.all([
+  [owner, tuner, counter, customer, otherOwner] = await Promise.all([
+    signIn("owner@demo.fuelwright.test"),
     signIn("tuner@demo.fuelwright.test"),
     signIn("counter@demo.fuelwright.test"),
     signIn("customer@demo.fuelwright.test"),
@@ -213,5 +214,92 @@ describe("members", () => {
     expect(await sql`select 1 from member where id = ${second!.id}`).toHaveLength(0);
     // The only owner is back to one, and stays.
     expect(await remove(otherOwner, { memberId: self!.id })).toMatchObject({ status: 409 });
+  });
+});
+
+describe("better-auth's organization endpoints", () => {
+  const org = (who: Client, method: string, path: string, body?: unknown) =>
+    request(who, method, `/api/auth/organization/${path}`, body);
+  const TOUCHED = ["member", "invitation", "organization", "shop_settings"];
+
+  it("a portal customer is no shop member there: 403 on every one, and no member or invitation in any answer", async () => {
+    const people = (
+      await sql`select u.email from member m join "user" u on u.id = m.user_id where m.organization_id = ${DEMO_SHOP} and u.email <> 'customer@demo.fuelwright.test'`
+    ).map((r) => r.email as string);
+    expect(people.length).toBeGreaterThan(2);
+    const [{ slug }] =
+      (await sql`select slug from organization where id = ${DEMO_SHOP}`) as never as [
+        { slug: string },
+      ];
+    const [m] =
+      await sql`select id from member where organization_id = ${DEMO_SHOP} and role = 'tuner' limit 1`;
+    const before = await fingerprint(TOUCHED);
+    const calls: [string, string, unknown?][] = [
+      ["GET", "list-members"],
+      ["GET", `list-members?organizationId=${DEMO_SHOP}`],
+      ["GET", `list-members?organizationSlug=${slug}`],
+      ["GET", "get-full-organization"],
+      ["GET", `get-full-organization?organizationSlug=${slug}`],
+      ["GET", "list-invitations"],
+      ["GET", "get-active-member"],
+      ["GET", "get-active-member-role"],
+      ["GET", "list"],
+      ["POST", "set-active", { organizationId: DEMO_SHOP }],
+      ["POST", "invite-member", { email: "friend@customer.example.test", role: "customer" }],
+      ["POST", "update-member-role", { memberId: m!.id, role: "customer" }],
+      ["POST", "remove-member", { memberIdOrEmail: m!.id }],
+      ["POST", "leave", { organizationId: DEMO_SHOP }],
+    ];
+    for (const [method, path, body] of calls) {
+      const r = await org(customer, method, path, body);
+      expect(r.status, `${method} ${path}`).toBe(403);
+      for (const email of people) expect(r.text, `${method} ${path}`).not.toContain(email);
+    }
+    expect(await fingerprint(TOUCHED)).toBe(before);
+  });
+
+  it("staff still reach them: the owner and a tuner list the shop's members", async () => {
+    for (const who of [owner, tuner]) {
+      const r = await org(who, "GET", "list-members");
+      expect(r.status).toBe(200);
+      expect(r.json.members.map((x: { user: { email: string } }) => x.user.email)).toContain(
+        "owner@demo.fuelwright.test",
+      );
+    }
+    // Naming another shop where they are not staff: refused.
+    expect((await org(tuner, "GET", `list-members?organizationId=${other.shopId}`)).status).toBe(
+      403,
+    );
+  });
+
+  it("the owner inviting or re-roling with a role the app does not know gets 400, and nothing is stored", async () => {
+    const [self] = await sql`select id from member where user_id = ${other.userId}`;
+    const before = await fingerprint(TOUCHED);
+    for (const role of ["mechanic", "admin", "owner,admin", ["tuner", "superuser"], "", 7]) {
+      const email = `odd-role-${Date.now()}@example.test`;
+      const r = await org(otherOwner, "POST", "invite-member", { email, role });
+      expect(r.status, JSON.stringify(role)).toBe(400);
+      expect(r.json.message).toMatch(/Choose a role: owner, tuner, counter, customer/);
+      const up = await org(otherOwner, "POST", "update-member-role", { memberId: self!.id, role });
+      expect(up.status, JSON.stringify(role)).toBe(400);
+    }
+    expect(await fingerprint(TOUCHED)).toBe(before);
+    // A role the app knows goes through.
+    const email = `known-role-${Date.now()}@example.test`;
+    const ok = await org(otherOwner, "POST", "invite-member", { email, role: "tuner" });
+    expect(ok.status).toBe(200);
+    expect((await sql`select role from invitation where email = ${email}`)[0]).toEqual({
+      role: "tuner",
+    });
+  });
+
+  it("the shop's name changes only on the Settings page: the plugin's update is refused and nothing changes", async () => {
+    const before = await fingerprint(TOUCHED);
+    for (const data of [{ name: "Line\nbreak shop" }, { name: "A fine name" }, { slug: "taken" }]) {
+      const r = await org(otherOwner, "POST", "update", { data, organizationId: other.shopId });
+      expect(r.status, JSON.stringify(data)).toBe(403);
+      expect(r.json.message).toMatch(/Settings page/);
+    }
+    expect(await fingerprint(TOUCHED)).toBe(before);
   });
 });

@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
-import { call, freshDatabase, signInAt, sqlFor, startApp, type App } from "../helpers/system";
+import {
+  call,
+  freshDatabase,
+  signInAt,
+  signInFrom,
+  sqlFor,
+  startApp,
+  type App,
+} from "../helpers/system";
 
 /**
  * docs/architecture.md's claim, tested: app instances are stateless — sessions live in the
@@ -11,10 +19,12 @@ let sql: ReturnType<typeof sqlFor>;
 beforeAll(async () => {
   const url = freshDatabase();
   sql = sqlFor(url);
-  // Both instances answer for one public address, as they would behind a load balancer.
+  // Both instances answer for one public address, as they would behind a load balancer; the
+  // auth rate limits on, and no trusted proxy (the default): the client is the socket's peer.
+  const limits = { AUTH_RATE_LIMIT: "on", TRUSTED_PROXY_HEADER: "" };
   [a, b] = await Promise.all([
-    startApp(3201, { APP_URL: "http://127.0.0.1:3201" }),
-    startApp(3202, { APP_URL: "http://127.0.0.1:3201" }),
+    startApp(3201, { APP_URL: "http://127.0.0.1:3201", ...limits }),
+    startApp(3202, { APP_URL: "http://127.0.0.1:3201", ...limits }),
   ]);
 }, 120_000);
 afterAll(async () => {
@@ -64,6 +74,52 @@ describe("two app instances on one database", () => {
       401,
     );
   });
+
+  it("the sign-in limits hold across both instances, and no X-Forwarded-For value buys an attempt", async () => {
+    const wrong = "wrong-password-123";
+    const nobody = (i: number) => `nobody-${i}-${Date.now()}@limits.fuelwright.test`;
+    // One address (127.0.0.2 on the socket), alternating instances, a new forwarded address and
+    // a new account each time: three attempts in ten seconds, all told.
+    const byAddress: number[] = [];
+    for (let i = 0; i < 5; i++)
+      byAddress.push(
+        await signInFrom([a, b][i % 2]!.url, "127.0.0.2", nobody(i), wrong, {
+          "x-forwarded-for": `203.0.113.${i + 1}`,
+          "x-real-ip": `198.51.100.${i + 1}`,
+          // The server's own header for the address: a client's value is replaced.
+          "x-fuelwright-client-address": `192.0.2.${i + 1}`,
+        }),
+      );
+    expect(byAddress, byAddress.join()).toEqual([401, 401, 401, 429, 429]);
+    // Another address on the socket has its own allowance.
+    expect(await signInFrom(b.url, "127.0.0.3", nobody(9), wrong)).toBe(401);
+    // One account from six addresses across both instances: five failures a minute, all told.
+    const email = nobody(10);
+    const byAccount: number[] = [];
+    for (let i = 0; i < 6; i++)
+      byAccount.push(await signInFrom([a, b][i % 2]!.url, `127.0.0.${10 + i}`, email, wrong));
+    expect(byAccount, byAccount.join()).toEqual([401, 401, 401, 401, 401, 429]);
+    // The counters are rows of the one database, not memory of either instance.
+    const rows = await sql`select key, count from rate_limits where key in ${sql([
+      "127.0.0.2|/sign-in/email",
+      `account:${email}|/sign-in/email`,
+    ])} order by key`;
+    expect(rows).toEqual([
+      { key: "127.0.0.2|/sign-in/email", count: 5 },
+      { key: `account:${email}|/sign-in/email`, count: 6 },
+    ]);
+  });
+
+  it("an instance whose webhook or auth secret is left at a default refuses to start, saying which", async () => {
+    for (const [name, value] of [
+      ["STRIPE_WEBHOOK_SECRET", "whsec_fuelwright_local_fake"],
+      ["BETTER_AUTH_SECRET", "test-secret-test-secret-test-secret-0123"],
+    ] as const) {
+      await expect(startApp(3204, { [name]: value })).rejects.toThrow(
+        new RegExp(`exited: [\\s\\S]*${name} is a default or placeholder value`),
+      );
+    }
+  }, 90_000);
 
   it("with an https address the session cookie is Secure (and __Secure- prefixed), HttpOnly and SameSite", async () => {
     const c = await startApp(3203, { APP_URL: "https://fuelwright.example.test" });

@@ -20,6 +20,9 @@ describe("permissions table", () => {
     expect(can("customer", "customers:read")).toBe(false);
     expect(navFor("customer").map((i) => i.href)).toEqual(["/my"]);
   });
+  it("better-auth's organization endpoints are for staff: customers are not shop members there", () => {
+    for (const r of ROLES) expect(can(r, "organization:use")).toBe(r !== "customer");
+  });
   it("every role named in the table is a known role", () => {
     for (const roles of Object.values(PERMISSIONS))
       for (const r of roles) expect(ROLES).toContain(r);
