@@ -104,8 +104,8 @@ export function PartForm({
     setStatus({ ok: false, message: res.message ?? "Not saved" });
   };
 
-  // Every field the form holds is sent; a spec the form does not show (the dead-time table) is
-  // kept by the update, which changes only what it is given.
+  // Every field the form holds is sent, with the version it was loaded at; the update changes
+  // only what it is given and writes nothing when nothing differs.
   const submit = (from = version) =>
     start(async () => {
       const res = id

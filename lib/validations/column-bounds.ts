@@ -22,7 +22,12 @@ export const editVersion = (name = "version") =>
   z
     .preprocess(
       (v) => (typeof v === "string" ? (v.trim() === "" ? undefined : Number(v)) : v),
-      versionNumber(name).optional(),
+      z
+        .number({ error: `${name} must be a whole number` })
+        .int(`${name} must be a whole number`)
+        .min(1, `${name} starts at 1`)
+        .max(INT4_MAX, `${name} is too large`)
+        .optional(),
     )
     .optional();
 

@@ -3,13 +3,14 @@ import { z } from "zod";
 import { editVersion } from "./column-bounds";
 import { searchText } from "./search";
 
+/** Blank is none (null); line breaks as one `\n` (a browser posts a textarea's as `\r\n`). */
 const optionalText = (max: number, label: string) =>
   z
     .string()
     .trim()
     .max(max, `${label} is too long (at most ${max} characters)`)
     .optional()
-    .transform((v) => (v ? v : null));
+    .transform((v) => (v ? v.replace(/\r\n?/g, "\n") : null));
 
 export const CustomerSchema = z.object({
   name: z

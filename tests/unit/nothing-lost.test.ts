@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 
 import { catalogCsv, parseCatalogCsv } from "@/lib/catalog/csv";
 import { neutraliseCell, neutraliseCsvText, undoNeutralisedCell } from "@/lib/format/csv";
+import { editVersion } from "@/lib/validations/column-bounds";
 import {
   flatOf,
   formatDeadTime,
@@ -243,5 +244,18 @@ describe("catalog CSV carries every field of a part", () => {
     });
     expect(cleared.specs).toEqual({ covered: ["deadTime"], values: {} });
     expect(cleared.version).toBeUndefined();
+  });
+});
+
+describe("the version an edit form started from", () => {
+  it("is read from a form's text and from JSON; blank or absent is none; bad ones are field errors", () => {
+    const v = editVersion();
+    expect(v.parse("3")).toBe(3);
+    expect(v.parse(3)).toBe(3);
+    expect(v.parse("")).toBeUndefined();
+    expect(v.parse(undefined)).toBeUndefined();
+    for (const bad of ["abc", "0", "1.5", String(2 ** 31), -1, true])
+      expect(v.safeParse(bad).success, String(bad)).toBe(false);
+    expect(v.safeParse("abc").error?.issues[0]?.message).toBe("version must be a whole number");
   });
 });
