@@ -407,7 +407,7 @@ describe("stale edit forms: a second tab's save is a 409 and overwrites nothing"
   });
 });
 
-describe("catalog CSV: export → import → export is identical", () => {
+describe("CSV: the catalog export → import → export is identical; downloads are safe in a spreadsheet", () => {
   const exportCsv = async (c: Client) => {
     const r = await request(c, "GET", "/api/v1/parts/export");
     expect(r.status).toBe(200);
@@ -497,7 +497,7 @@ describe("catalog CSV: export → import → export is identical", () => {
     expect(await rows()).toEqual(was);
   });
 
-  it("a datalog download neutralises formula cells and keeps every other byte", async () => {
+  it("a datalog download neutralises formula cells and keeps every other byte; analysing it again writes nothing", async () => {
     const made = await request(tuner, "POST", "/api/v1/builds", {
       customerId,
       title: `${tag} dyno`,
@@ -510,7 +510,17 @@ describe("catalog CSV: export → import → export is identical", () => {
       "x-file-name": "formula.csv",
     });
     expect(up.status).toBe(201);
-    const file = await getBytes(tuner, `/api/v1/datalogs/${up.json.datalog.id}/file`);
+    const id = up.json.datalog.id as string;
+    // Analysing again with the same mapping writes nothing (the log, the remembered mapping).
+    const mapping = { rpm: "RPM", duty: { column: "Duty", kind: "duty_pct" } };
+    const analyse = () => request(tuner, "POST", `/api/v1/datalogs/${id}/analysis`, { mapping });
+    expect((await analyse()).status).toBe(200);
+    const analysed = [await rowText("datalogs", id), await fingerprint(["datalog_mappings"])];
+    expect((await analyse()).status).toBe(200);
+    expect([await rowText("datalogs", id), await fingerprint(["datalog_mappings"])]).toEqual(
+      analysed,
+    );
+    const file = await getBytes(tuner, `/api/v1/datalogs/${id}/file`);
     expect(file.status).toBe(200);
     expect(file.bytes.toString("utf8")).toBe(
       "RPM,Duty,Note\r\nrpm,%,\r\n3000,41.5,'=cmd|' /C calc'!A0\r\n3100,-2,\"'@SUM(1)\"\r\n",
