@@ -95,7 +95,12 @@ export function PartForm({
   );
 
   const refused = (res: ActionState) => {
-    if (res.status === 409 && res.current) setConflict(res.current as StoredPart);
+    if (res.status === 409 && res.current) {
+      // The conflict notice says it all, with what was saved meanwhile.
+      setConflict(res.current as StoredPart);
+      setStatus(null);
+      return;
+    }
     setErrors(
       Object.fromEntries(
         Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [path, msgs.join(" ")]),

@@ -107,7 +107,8 @@ export function CustomerForm({ customer }: { customer?: Stored }) {
         />
       </div>
       <TextAreaField label="Notes" error={formState.errors.notes?.message} {...register("notes")} />
-      <FormStatus ok={state.ok} message={state.message} />
+      {/* A conflict speaks for itself below (with what was saved meanwhile). */}
+      <FormStatus ok={state.ok} message={conflict ? undefined : state.message} />
       {conflict && conflict.version > version ? (
         <EditConflict
           what="this customer"
