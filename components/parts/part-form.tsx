@@ -4,12 +4,15 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
+import { EditConflict } from "@/components/ui/edit-conflict";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 import { createPartAction, deletePartAction, updatePartAction } from "@/lib/parts/part-actions";
-import type { FlatPart } from "@/lib/validations/parts";
+import { CSV_COLUMNS, flatOf, type FlatPart } from "@/lib/validations/parts";
+
+type StoredPart = Parameters<typeof flatOf>[0] & { version: number };
 
 /** The spec fields each category shows: [column, label, hint]. */
 const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
@@ -20,6 +23,11 @@ const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
     ["impedance", "Impedance (high or low)"],
     ["connector", "Connector"],
     ["ethanol_ok", "Rated for ethanol (yes/no)"],
+    [
+      "dead_time_ms",
+      "Dead time table",
+      "e.g. 12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72 (kPa:ms); blank clears it",
+    ],
   ],
   pump: [
     ["pump_curve", "Flow curve", "e.g. 13.5V 300:340 500:290 | 12V 300:300 (kPa:L/h)"],
@@ -52,10 +60,13 @@ const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
 
 export function PartForm({
   id,
+  version: loadedVersion,
   initial,
   canDelete,
 }: {
   id?: string;
+  /** The version the edit starts from (an existing part). */
+  version?: number;
   initial: FlatPart;
   canDelete: boolean;
 }) {
@@ -64,6 +75,9 @@ export function PartForm({
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
+  // A stale save: the part as saved meanwhile. What was typed stays in `values`.
+  const [conflict, setConflict] = useState<StoredPart | null>(null);
+  const [version, setVersion] = useState(loadedVersion);
   const category = (values.category || "injector") as PartCategory;
   const set = (k: keyof FlatPart) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     setValues((v) => ({ ...v, [k]: e.target.value }));
@@ -81,6 +95,12 @@ export function PartForm({
   );
 
   const refused = (res: ActionState) => {
+    if (res.status === 409 && res.current) {
+      // The conflict notice says it all, with what was saved meanwhile.
+      setConflict(res.current as StoredPart);
+      setStatus(null);
+      return;
+    }
     setErrors(
       Object.fromEntries(
         Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [path, msgs.join(" ")]),
@@ -89,15 +109,16 @@ export function PartForm({
     setStatus({ ok: false, message: res.message ?? "Not saved" });
   };
 
-  // Every field the form holds is sent; a spec the form does not show (the dead-time table) is
-  // kept by the update, which changes only what it is given.
-  const submit = () =>
+  // Every field the form holds is sent, with the version it was loaded at; the update changes
+  // only what it is given and writes nothing when nothing differs.
+  const submit = (from = version) =>
     start(async () => {
       const res = id
-        ? await updatePartAction(initialActionState, { ...values, category, id })
+        ? await updatePartAction(initialActionState, { ...values, category, id, version: from })
         : await createPartAction(initialActionState, { ...values, category });
       if (res.ok) {
         setErrors({});
+        setConflict(null);
         setStatus({ ok: true, message: "Saved" });
         router.push("/parts");
         router.refresh();
@@ -172,6 +193,23 @@ export function PartForm({
           </Button>
         ) : null}
         <FormStatus ok={status?.ok} message={status?.message} />
+        {conflict ? (
+          <EditConflict
+            what="this part"
+            version={conflict.version}
+            disabled={pending}
+            rows={CSV_COLUMNS.map((c) => ({
+              label: c,
+              yours: (values[c] ?? "").trim(),
+              theirs: flatOf(conflict)[c] ?? "",
+            }))}
+            onOverwrite={() => {
+              setVersion(conflict.version);
+              setConflict(null);
+              submit(conflict.version);
+            }}
+          />
+        ) : null}
       </div>
     </form>
   );

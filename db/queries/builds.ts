@@ -16,6 +16,7 @@ import { type BuildStatus, type BuildStatusFacts, type ChosenPart } from "@/lib/
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 import { escapeLike } from "./like";
+import { differs } from "./unchanged";
 
 export const BUILD_SORTS = ["updated", "created", "title"] as const;
 export type BuildSort = (typeof BUILD_SORTS)[number];
@@ -218,6 +219,11 @@ export interface BuildPatch {
     calcVersion: string;
   };
   parts?: ChosenPart[];
+  /**
+   * Write a revision even when no column changes (a build verified again with another log: the
+   * revision names that log). Otherwise a save that changes nothing writes nothing.
+   */
+  always?: boolean;
 }
 
 /** A new build with its revision 1. The customer must be the shop's (the command checks it). */
@@ -271,7 +277,9 @@ export type StatusCheck = (from: BuildStatus, tx: Tx) => Promise<void>;
  * Saves a new revision if the build is still at `expectedVersion`, writing only the keys of `v`
  * that are present; otherwise throws Conflict carrying the current build (CurrentBuild). The build
  * and its revision are written together, inside `tx` when the caller has one. A status change
- * is first put to `checkStatus`, in the same transaction.
+ * is first put to `checkStatus`, in the same transaction. When every value given equals the
+ * stored one, nothing is written (no version, no revision, no `updated_at`) and the build comes
+ * back as it is — unless `v.always`.
  */
 export async function saveBuild(
   shopId: string,
@@ -282,12 +290,20 @@ export async function saveBuild(
   tx?: Tx,
   checkStatus?: StatusCheck,
 ): Promise<Build> {
+  const changes = {
+    ...(v.title !== undefined ? { title: v.title } : {}),
+    ...(v.vehicle !== undefined ? { vehicle: v.vehicle || null } : {}),
+    ...(v.status ? { status: v.status } : {}),
+    ...(v.parts ? { parts: v.parts } : {}),
+    ...v.sized,
+  };
   const run = async (tx: Tx) => {
+    const mine = and(eq(builds.shopId, shopId), eq(builds.id, id));
     if (v.status && checkStatus) {
       const [now] = await tx
         .select({ status: builds.status, version: builds.version })
         .from(builds)
-        .where(and(eq(builds.shopId, shopId), eq(builds.id, id)))
+        .where(mine)
         .for("update");
       // A stale version is answered below as a conflict, before any rule.
       if (now && now.version === expectedVersion && now.status !== v.status)
@@ -296,18 +312,28 @@ export async function saveBuild(
     const [b] = await tx
       .update(builds)
       .set({
-        ...(v.title !== undefined ? { title: v.title } : {}),
-        ...(v.vehicle !== undefined ? { vehicle: v.vehicle || null } : {}),
-        ...(v.status ? { status: v.status } : {}),
-        ...(v.parts ? { parts: v.parts } : {}),
-        ...v.sized,
+        ...changes,
         version: sql`${builds.version} + 1`,
         updatedBy: userId,
         updatedAt: new Date(),
       })
-      .where(and(eq(builds.shopId, shopId), eq(builds.id, id), eq(builds.version, expectedVersion)))
+      .where(
+        and(
+          mine,
+          eq(builds.version, expectedVersion),
+          v.always ? undefined : differs(builds, changes),
+        ),
+      )
       .returning();
     if (!b) {
+      if (!v.always) {
+        const [same] = await tx
+          .select()
+          .from(builds)
+          .where(and(mine, eq(builds.version, expectedVersion)))
+          .limit(1);
+        if (same) return same;
+      }
       const [current] = await tx
         .select({ build: builds, updatedByName: user.name })
         .from(builds)

@@ -1,11 +1,12 @@
-import { and, asc, count, eq, ilike, or } from "drizzle-orm";
+import { and, asc, count, eq, ilike, or, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { builds, customers, quotes } from "@/db/schema";
+import { builds, customers, quotes, type Customer } from "@/db/schema";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 import type { CustomerInput } from "@/lib/validations/customers";
 
 import { escapeLike } from "./like";
+import { differs } from "./unchanged";
 
 /** A shop's customers, optionally searched by name, e-mail or phone. */
 export async function listCustomers(shopId: string, opts: { q?: string; limit?: number } = {}) {
@@ -42,16 +43,41 @@ export async function createCustomer(shopId: string, input: CustomerInput) {
   return row!;
 }
 
-/** Sets the fields given (an absent or `undefined` one keeps its value), within the shop only. */
-export async function updateCustomer(shopId: string, id: string, input: Partial<CustomerInput>) {
+/**
+ * Sets the fields given (an absent or `undefined` one keeps its value), within the shop only.
+ * With `expectedVersion`, only if the record is still at it; else Conflict carrying the record as
+ * it is now. Fields that already hold the values given are not written: the row stays exactly
+ * as it was (no new version, no new `updated_at`) and comes back as it is.
+ */
+export async function updateCustomer(
+  shopId: string,
+  id: string,
+  input: Partial<CustomerInput>,
+  expectedVersion?: number,
+) {
   const given = Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined));
+  const mine = and(eq(customers.shopId, shopId), eq(customers.id, id));
   const [row] = await db
     .update(customers)
-    .set({ ...given, updatedAt: new Date() })
-    .where(and(eq(customers.shopId, shopId), eq(customers.id, id)))
+    .set({ ...given, version: sql`${customers.version} + 1`, updatedAt: new Date() })
+    .where(
+      and(
+        mine,
+        expectedVersion === undefined ? undefined : eq(customers.version, expectedVersion),
+        differs(customers, given),
+      ),
+    )
     .returning();
-  if (!row) throw new NotFound("That customer");
-  return row;
+  if (row) return row;
+  const [current] = await db.select().from(customers).where(mine).limit(1);
+  if (!current) throw new NotFound("That customer");
+  if (expectedVersion !== undefined && current.version !== expectedVersion)
+    throw new Conflict<Customer>(
+      `Someone saved this customer meanwhile (now version ${current.version}); nothing was overwritten`,
+      "conflict",
+      current,
+    );
+  return current;
 }
 
 /** Is this (or what it wraps) a foreign-key violation: a row elsewhere still points here? */

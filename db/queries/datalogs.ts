@@ -5,6 +5,7 @@ import { builds, datalogMappings, datalogs } from "@/db/schema";
 import { NotFound } from "@/lib/domain/errors";
 
 import { saveBuild, type BuildPatch } from "./builds";
+import { differs, differsFromExcluded } from "./unchanged";
 
 export async function recordDatalog(v: typeof datalogs.$inferInsert) {
   const [row] = await db.insert(datalogs).values(v).returning();
@@ -37,7 +38,10 @@ export async function rememberedMapping(shopId: string, key: string) {
   return row ?? null;
 }
 
-/** Keeps the mapping for this logger's header set and the analysis on the log, together. */
+/**
+ * Keeps the mapping for this logger's header set and the analysis on the log, together; the same
+ * mapping and analysis again write nothing.
+ */
 export async function saveAnalysis(
   shopId: string,
   userId: string,
@@ -53,11 +57,18 @@ export async function saveAnalysis(
       .onConflictDoUpdate({
         target: [datalogMappings.shopId, datalogMappings.headerKey],
         set: { mapping, updatedBy: userId, updatedAt: new Date() },
+        setWhere: differsFromExcluded([datalogMappings.mapping]),
       });
     await tx
       .update(datalogs)
       .set({ mapping, analysis })
-      .where(and(eq(datalogs.shopId, shopId), eq(datalogs.id, id)));
+      .where(
+        and(
+          eq(datalogs.shopId, shopId),
+          eq(datalogs.id, id),
+          differs(datalogs, { mapping, analysis }),
+        ),
+      );
   });
 }
 

@@ -6,6 +6,8 @@ import { db } from "@/db";
 import { shopLogos } from "@/db/schema";
 import type { ImageInfo } from "@/lib/images/logo";
 
+import { differsFromExcluded } from "./unchanged";
+
 export async function getLogo(shopId: string) {
   const [row] = await db.select().from(shopLogos).where(eq(shopLogos.shopId, shopId)).limit(1);
   return row ?? null;
@@ -37,17 +39,25 @@ export async function setLogo(shopId: string, userId: string, bytes: Buffer, inf
     uploadedBy: userId,
     uploadedAt: new Date(),
   };
+  const facts = {
+    sha256: shopLogos.sha256,
+    width: shopLogos.width,
+    height: shopLogos.height,
+    contentType: shopLogos.contentType,
+  };
+  // The same image again changes nothing (not even who uploaded it, or when).
   const [row] = await db
     .insert(shopLogos)
     .values({ shopId, ...values })
-    .onConflictDoUpdate({ target: shopLogos.shopId, set: values })
-    .returning({
-      sha256: shopLogos.sha256,
-      width: shopLogos.width,
-      height: shopLogos.height,
-      contentType: shopLogos.contentType,
-    });
-  return row!;
+    .onConflictDoUpdate({
+      target: shopLogos.shopId,
+      set: values,
+      setWhere: differsFromExcluded([shopLogos.sha256, shopLogos.contentType]),
+    })
+    .returning(facts);
+  if (row) return row;
+  const [same] = await db.select(facts).from(shopLogos).where(eq(shopLogos.shopId, shopId));
+  return same!;
 }
 
 export async function deleteLogo(shopId: string) {

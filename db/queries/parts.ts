@@ -6,6 +6,7 @@ import { Conflict, NotFound } from "@/lib/domain/errors";
 import { type PartCategory } from "@/lib/domain/parts";
 
 import { escapeLike } from "./like";
+import { differs, differsFromExcluded } from "./unchanged";
 
 const SORTS = {
   name: [asc(parts.name)],
@@ -76,18 +77,6 @@ function isUniqueViolation(err: unknown): boolean {
   return false;
 }
 
-/** JSON with sorted keys: jsonb keeps no key order, so two specs compare by content. */
-function canonical(v: unknown): string {
-  if (Array.isArray(v)) return `[${v.map(canonical).join(",")}]`;
-  if (v && typeof v === "object" && !(v instanceof Date))
-    return `{${Object.keys(v)
-      .sort()
-      .filter((k) => (v as Record<string, unknown>)[k] !== undefined)
-      .map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`)
-      .join(",")}}`;
-  return JSON.stringify(v);
-}
-
 /** A new part; a SKU the shop has already is a Conflict on `sku`. */
 export async function createPart(shopId: string, v: PartColumns) {
   const [row] = await db
@@ -102,36 +91,38 @@ export async function createPart(shopId: string, v: PartColumns) {
 /**
  * Changes a part under a row lock, in one transaction: `change` sees the stored row and returns
  * the columns to write (a key it leaves out keeps its stored value; it may throw to refuse).
- * Nothing is written, and `updated_at` stays, when every given value equals the stored one.
+ * With `expectedVersion`, a part no longer at it is a Conflict carrying the part as it is now.
+ * Nothing is written — `version` and `updated_at` stay — when every given value equals the
+ * stored one; the answer is then the part as it is.
  */
 export async function updatePartWith(
   shopId: string,
   id: string,
+  expectedVersion: number | undefined,
   change: (stored: Part) => PartPatch,
 ) {
   let sku: string | undefined;
   try {
     return await db.transaction(async (tx) => {
-      const [stored] = await tx
-        .select()
-        .from(parts)
-        .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
-        .for("update")
-        .limit(1);
+      const mine = and(eq(parts.shopId, shopId), eq(parts.id, id));
+      const [stored] = await tx.select().from(parts).where(mine).for("update").limit(1);
       if (!stored) throw new NotFound("That part");
+      if (expectedVersion !== undefined && stored.version !== expectedVersion)
+        throw new Conflict<Part>(
+          `Someone saved this part meanwhile (now version ${stored.version}); nothing was overwritten`,
+          "conflict",
+          stored,
+        );
       const patch = Object.fromEntries(
-        Object.entries(change(stored)).filter(
-          ([k, v]) => v !== undefined && canonical(v) !== canonical(stored[k as keyof Part]),
-        ),
+        Object.entries(change(stored)).filter(([, v]) => v !== undefined),
       ) as PartPatch;
       sku = patch.sku;
-      if (Object.keys(patch).length === 0) return stored;
       const [row] = await tx
         .update(parts)
-        .set({ ...patch, updatedAt: new Date() })
-        .where(and(eq(parts.shopId, shopId), eq(parts.id, id)))
+        .set({ ...patch, version: sql`${parts.version} + 1`, updatedAt: new Date() })
+        .where(and(mine, differs(parts, patch)))
         .returning();
-      return row!;
+      return row ?? stored;
     });
   } catch (e) {
     if (isUniqueViolation(e)) throw skuTaken(sku);
@@ -189,6 +180,18 @@ export async function importPartsWith(
   });
 }
 
+/** The columns an import writes: a known SKU whose row already holds them is left alone. */
+const IMPORTED = [
+  parts.category,
+  parts.brand,
+  parts.name,
+  parts.priceMinor,
+  parts.costMinor,
+  parts.stock,
+  parts.reorderLevel,
+  parts.specs,
+];
+
 async function upsertParts(tx: Tx, shopId: string, rows: PartColumns[]) {
   let added = 0;
   let updated = 0;
@@ -208,13 +211,15 @@ async function upsertParts(tx: Tx, shopId: string, rows: PartColumns[]) {
           stock: sql`excluded.stock`,
           reorderLevel: sql`excluded.reorder_level`,
           specs: sql`excluded.specs`,
+          version: sql`${parts.version} + 1`,
           updatedAt: new Date(),
         },
+        setWhere: differsFromExcluded(IMPORTED),
       })
       .returning({ inserted: sql<boolean>`(xmax = 0)` });
     for (const r of res) r.inserted ? added++ : updated++;
   }
-  return { added, updated };
+  return { added, updated, unchanged: rows.length - added - updated };
 }
 
 export async function partsNewestFirst(shopId: string) {

@@ -1,8 +1,10 @@
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 
 import { db } from "@/db";
 import { shopSettings, user } from "@/db/schema";
 import type { UnitSystem } from "@/lib/calc";
+
+import { differs } from "./unchanged";
 
 /** The units this person sees: their own choice, else the shop's setting, else metric. */
 export async function unitSystemOf(userId: string, shopId: string): Promise<UnitSystem> {
@@ -20,11 +22,12 @@ export async function unitSystemOf(userId: string, shopId: string): Promise<Unit
   return s?.units ?? "metric";
 }
 
+/** The person's units; choosing the ones they have writes nothing. */
 export async function setUnitSystem(userId: string, units: UnitSystem) {
   await db
     .update(user)
     .set({ unitSystem: units, updatedAt: new Date() })
-    .where(eq(user.id, userId));
+    .where(and(eq(user.id, userId), differs(user, { unitSystem: units })));
 }
 
 /** A person's display name (for "saved by …"), or null. */

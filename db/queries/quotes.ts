@@ -230,9 +230,41 @@ export async function getQuote(shopId: string, id: string, portalUserId?: string
   return { ...row, lines, messages };
 }
 
+/** A line as it is compared: what a person edits, in the stored shape. */
+const lineKey = (l: {
+  kind: string;
+  partId?: string | null;
+  sku?: string | null;
+  description: string;
+  quantityMilli: number;
+  unitPriceMinor: number;
+  discountBp: number;
+}) =>
+  JSON.stringify([
+    l.kind,
+    l.partId ?? null,
+    l.sku ?? null,
+    l.description,
+    l.quantityMilli,
+    l.unitPriceMinor,
+    l.discountBp,
+  ]);
+
+/** Do the quote's stored lines (in order) differ from these? */
+async function linesDiffer(tx: Tx, shopId: string, quoteId: string, lines: QuoteLineInput[]) {
+  const stored = await tx
+    .select()
+    .from(quoteLines)
+    .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.quoteId, quoteId)))
+    .orderBy(asc(quoteLines.position));
+  return stored.length !== lines.length || stored.some((s, i) => lineKey(s) !== lineKey(lines[i]!));
+}
+
 /**
  * Writes the fields given (an absent one is left as it is) if the quote is still at
- * `expectedVersion` and open to edits; else Conflict with the quote as it is now.
+ * `expectedVersion` and open to edits; else Conflict with the quote as it is now. Empty notes
+ * are no notes (null). When the lines, validity and notes given equal the stored ones nothing is
+ * written — no new version, lines kept with their ids — and the quote comes back as it is.
  */
 export async function updateQuote(
   shopId: string,
@@ -244,13 +276,19 @@ export async function updateQuote(
     const q = await lockQuote(tx, shopId, id);
     if (q.version !== expectedVersion || !QUOTE_EDITABLE.includes(q.status))
       throw changedMeanwhile(q);
+    const notes = v.notes === undefined ? undefined : v.notes || null;
+    const changed =
+      (v.validUntil !== undefined && v.validUntil !== q.validUntil) ||
+      (notes !== undefined && notes !== q.notes) ||
+      (v.lines !== undefined && (await linesDiffer(tx, shopId, id, v.lines)));
+    if (!changed) return q;
     const totals = v.lines ? await writeLines(tx, shopId, id, v.lines, q.taxRateBp) : {};
     const [done] = await tx
       .update(quotes)
       .set({
         ...totals,
         ...(v.validUntil === undefined ? {} : { validUntil: v.validUntil }),
-        ...(v.notes === undefined ? {} : { notes: v.notes }),
+        ...(notes === undefined ? {} : { notes }),
         version: q.version + 1,
         updatedAt: new Date(),
       })

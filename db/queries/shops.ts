@@ -7,6 +7,8 @@ import { customers, invitation, member, organization, shopSettings, user } from 
 import { DEFAULT_BSFC } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
 
+import { differs } from "./unchanged";
+
 /** Default settings of a new shop (BSFC rules of thumb of calc-spec §2, in g/kWh). */
 export const NEW_SHOP_SETTINGS = {
   bsfcGasolineNa: DEFAULT_BSFC.gasolineNaGPerKwh,
@@ -53,8 +55,9 @@ export async function getShopSettings(shopId: string) {
 }
 
 /**
- * Writes the shop's name and settings, only the keys given (one transaction). NotFound when
- * the shop has no settings row.
+ * Writes the shop's name and settings, only the keys given (one transaction); values equal to
+ * the stored ones are not written, so a save that changes nothing leaves both rows (and
+ * `updated_at`) as they were. NotFound when the shop has no settings row.
  */
 export async function updateShopSettings(
   shopId: string,
@@ -62,14 +65,22 @@ export async function updateShopSettings(
   values: Partial<Omit<typeof shopSettings.$inferInsert, "shopId" | "updatedAt">>,
 ) {
   await db.transaction(async (tx) => {
+    const [stored] = await tx
+      .select({ shopId: shopSettings.shopId })
+      .from(shopSettings)
+      .where(eq(shopSettings.shopId, shopId))
+      .for("update")
+      .limit(1);
+    if (!stored) throw new NotFound("The shop");
     if (name !== undefined)
-      await tx.update(organization).set({ name }).where(eq(organization.id, shopId));
-    const rows = await tx
+      await tx
+        .update(organization)
+        .set({ name })
+        .where(and(eq(organization.id, shopId), differs(organization, { name })));
+    await tx
       .update(shopSettings)
       .set({ ...values, updatedAt: new Date() })
-      .where(eq(shopSettings.shopId, shopId))
-      .returning({ shopId: shopSettings.shopId });
-    if (rows.length === 0) throw new NotFound("The shop");
+      .where(and(eq(shopSettings.shopId, shopId), differs(shopSettings, values)));
   });
 }
 

@@ -39,6 +39,8 @@ export const parts = pgTable(
     reserved: integer("reserved").notNull().default(0),
     reorderLevel: integer("reorder_level").notNull().default(0),
     specs: jsonb("specs").notNull().default({}),
+    /** Goes up with each saved edit or import change (not with stock held by quotes). */
+    version: integer("version").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },

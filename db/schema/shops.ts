@@ -59,6 +59,8 @@ export const customers = pgTable(
     notes: text("notes"),
     /** The portal sign-in of this customer, once invited. */
     userId: text("user_id").references(() => user.id, { onDelete: "set null" }),
+    /** Goes up with each saved edit; an edit names the version it started from (stale → 409). */
+    version: integer("version").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -35,6 +35,21 @@ function toNumber(cell: string, decimalComma: boolean): number | null {
 }
 
 /**
+ * The separator of a log: whichever of comma, semicolon and tab splits its first line most.
+ *
+ * @example datalogDelimiter("rpm;afr\n3000;12,5\n") // ";"
+ */
+export function datalogDelimiter(text: string): Datalog["delimiter"] {
+  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  const counts = {
+    ",": firstLine.split(",").length,
+    ";": firstLine.split(";").length,
+    "\t": firstLine.split("\t").length,
+  };
+  return Object.entries(counts).sort((a, b) => b[1] - a[1])[0]![0] as Datalog["delimiter"];
+}
+
+/**
  * Reads an ECU or logger CSV: comma, semicolon or tab separated; decimal commas (with `;`);
  * a byte-order mark; a units row under the headers; blank lines. Throws DatalogError with a
  * plain message for what is not a datalog.
@@ -44,16 +59,8 @@ export function parseDatalog(text: string): Datalog {
   if (!body.trim()) throw new DatalogError("The file is empty");
   if (body.includes("\u0000"))
     throw new DatalogError("The file is not text: upload the CSV the logger exported");
-  const firstLine = body.slice(0, body.search(/\r?\n|$/));
-  const counts = {
-    ",": firstLine.split(",").length,
-    ";": firstLine.split(";").length,
-    "\t": firstLine.split("\t").length,
-  };
-  const delimiter = Object.entries(counts).sort(
-    (a, b) => b[1] - a[1],
-  )[0]![0] as Datalog["delimiter"];
-  if (counts[delimiter] > DATALOG_MAX_COLUMNS)
+  const delimiter = datalogDelimiter(body);
+  if (body.slice(0, body.search(/\r?\n|$/)).split(delimiter).length > DATALOG_MAX_COLUMNS)
     throw new DatalogError(`The log has more than ${DATALOG_MAX_COLUMNS} columns`);
   const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: "greedy" });
   const lines = parsed.data;

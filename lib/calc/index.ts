@@ -71,7 +71,7 @@ export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size"
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";
 export * from "./display";
-export { parseDatalog, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";
+export { parseDatalog, datalogDelimiter, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";
 export type { Datalog } from "./datalog";
 export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";
 export type { PullSample, PullContext, PullAnalysis } from "./dyno";

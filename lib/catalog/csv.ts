@@ -1,6 +1,7 @@
 import Papa from "papaparse";
 
 import type { Part } from "@/db/schema/catalog";
+import { neutraliseCell, undoNeutralisedCell } from "@/lib/format/csv";
 import {
   CSV_COLUMNS,
   flatOf,
@@ -87,7 +88,8 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
     if (cells.every((c) => c.trim() === "")) return;
     const flat: FlatPart = {};
     header.forEach((h, k) => {
-      if (known.has(h)) flat[h as keyof FlatPart] = cells[k] ?? "";
+      // The `'` an export put before a formula-like cell comes off again (lib/format/csv.ts).
+      if (known.has(h)) flat[h as keyof FlatPart] = undoNeutralisedCell(cells[k] ?? "");
     });
     const r = FlatPartSchema.safeParse(flat);
     if (!r.success) {
@@ -107,7 +109,10 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
   return { rows, errors, ignoredColumns, columns };
 }
 
-/** The catalog as CSV, with the same columns the import reads. */
+/**
+ * The catalog as CSV, with the same columns the import reads; a text cell a spreadsheet would
+ * run as a formula starts with `'` (the import takes it off), numbers are left as they are.
+ */
 export function catalogCsv(
   parts: Pick<
     Part,
@@ -124,6 +129,9 @@ export function catalogCsv(
 ): string {
   return Papa.unparse({
     fields: [...CSV_COLUMNS],
-    data: parts.map((p) => CSV_COLUMNS.map((c) => flatOf(p)[c] ?? "")),
+    data: parts.map((p) => {
+      const flat = flatOf(p);
+      return CSV_COLUMNS.map((c) => neutraliseCell(flat[c] ?? ""));
+    }),
   });
 }

@@ -25,11 +25,15 @@ export async function createCustomer(member: Member, input: CustomerInput): Prom
   return insertCustomer(member.shopId, input);
 }
 
-/** Changes only the fields sent (the edit form sends all of its own; the API may send one). */
+/**
+ * Changes only the fields sent (the edit form sends all of its own; the API may send one), from
+ * the version the edit started from when it names one (stale → Conflict with the record as it
+ * is now). Values equal to the stored ones change nothing; the answer is the record.
+ */
 export async function updateCustomer(member: Member, input: CustomerUpdate): Promise<Customer> {
   authorize(member, "customers:write");
-  const { id, ...fields } = input;
-  return patchCustomer(member.shopId, id, fields);
+  const { id, version, ...fields } = input;
+  return patchCustomer(member.shopId, id, fields, version);
 }
 
 const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;

@@ -117,6 +117,7 @@ export async function verifyBuildWithDatalog(
     saveBuildVerifiedByDatalog(m.shopId, m.user.id, d.id, b.id, b.version, {
       status: "verified",
       note: `Verified with dyno log ${d.fileName}`,
+      always: true,
       sized: sizeForSave(readStoredInputs(b)),
     }),
   );

@@ -36,12 +36,14 @@ export async function createPart(member: Member, input: PartValues): Promise<Par
 
 /**
  * Changes the fields sent and nothing else. Spec columns sent are merged into the stored specs
- * (a spec key no sent column speaks for, such as the dead-time table, is kept), and the merged
- * specs are checked as a whole; a category change starts the specs afresh from what was sent.
+ * (a spec key no sent column speaks for is kept: a form or file without `dead_time_ms` keeps the
+ * table), and the merged specs are checked as a whole; a category change starts the specs afresh
+ * from what was sent. With a `version`, only from that version (stale → Conflict with the part as
+ * it is now); values equal to the stored ones change nothing. The answer is the part.
  */
 export async function updatePart(member: Member, input: PartUpdate): Promise<Part> {
   authorize(member, "parts:write");
-  return updatePartWith(member.shopId, input.id, (stored) => {
+  return updatePartWith(member.shopId, input.id, input.version, (stored) => {
     const category = input.fields.category ?? stored.category;
     const fresh = category !== stored.category;
     const touchesSpecs = fresh || input.specs.covered.some((k) => SPEC_KEYS[category].includes(k));
@@ -76,6 +78,7 @@ export interface CatalogImport {
   /** After a real (not dry) run without errors. */
   added?: number;
   updated?: number;
+  unchanged?: number;
 }
 
 /** Column of the flat row → column of the part, for the columns a file may leave out. */
@@ -93,7 +96,8 @@ const FIELD_OF_COLUMN = {
 /**
  * Reads a catalog CSV and, unless `dryRun` or any row is bad, upserts every row by SKU in one
  * transaction. A SKU already in the catalog changes only in the columns the file has: a column
- * it lacks (cost, a spec, the dead-time table that no column carries) keeps its stored value.
+ * it lacks (cost, a spec, `dead_time_ms`) keeps its stored value; a row equal to the stored
+ * part writes nothing (`unchanged`).
  */
 export async function importCatalog(
   member: Member,

@@ -14,6 +14,23 @@ export const versionNumber = (name = "version") =>
     .min(1, `${name} starts at 1`)
     .max(INT4_MAX, `${name} is too large`);
 
+/**
+ * The version an edit form started from, optional (`PATCH` without it: the last write wins). A
+ * form's hidden field sends it as text, a JSON client as a number; both are read.
+ */
+export const editVersion = (name = "version") =>
+  z
+    .preprocess(
+      (v) => (typeof v === "string" ? (v.trim() === "" ? undefined : Number(v)) : v),
+      z
+        .number({ error: `${name} must be a whole number` })
+        .int(`${name} must be a whole number`)
+        .min(1, `${name} starts at 1`)
+        .max(INT4_MAX, `${name} is too large`)
+        .optional(),
+    )
+    .optional();
+
 /** The same, read from a query string (`?version=3`). */
 export const versionParam = (name = "version") =>
   z.coerce

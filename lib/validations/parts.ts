@@ -6,7 +6,7 @@ import { minorToPlain, parseMoney } from "@/lib/catalog/money";
 import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
-import { INT4_MAX } from "./column-bounds";
+import { editVersion, INT4_MAX } from "./column-bounds";
 import { searchText } from "./search";
 
 /** The specification each category carries (canonical units, as lib/calc uses them). */
@@ -73,6 +73,7 @@ export const CSV_COLUMNS = [
   "impedance",
   "connector",
   "ethanol_ok",
+  "dead_time_ms",
   "pump_curve",
   "current_a",
   "mounting",
@@ -95,6 +96,10 @@ const intText = (label: string) =>
     .regex(/^\d{1,7}$/, `${label} must be a whole number of 0 or more`)
     .transform(Number);
 
+/** A number written in a table cell; anything else (a blank included) is NaN, which the schema refuses. */
+const cellNumber = (t: string | undefined) =>
+  t !== undefined && /^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*$/.test(t) ? Number(t) : NaN;
+
 /** "13.5V 300:340 500:290 | 12V 300:300" → pump curves (pressure kPa : flow L/h at each voltage). */
 export function parsePumpCurve(text: string) {
   return text.split("|").map((seg) => {
@@ -104,12 +109,56 @@ export function parsePumpCurve(text: string) {
       .trim()
       .split(/\s+/)
       .map((p) => {
-        const [pk, fl] = p.split(":");
-        return { pressureKpa: Number(pk), flowLPerH: Number(fl) };
+        const [pk, fl, extra] = p.split(":");
+        return extra === undefined
+          ? { pressureKpa: cellNumber(pk), flowLPerH: cellNumber(fl) }
+          : { pressureKpa: NaN, flowLPerH: NaN };
       });
     return { voltage: Number(m[1]), points };
   });
 }
+/**
+ * "12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72" → an injector's dead-time table: one segment
+ * per voltage (rising), each with `pressure kPa : dead time ms` at the same pressures (rising).
+ * A cell that does not have that shape gives a table the schema refuses (with the hint below).
+ */
+export function parseDeadTime(text: string) {
+  const rows = text.split("|").map((seg) => {
+    const m = /^\s*(\d+(?:\.\d+)?)\s*V\s+(.+)$/i.exec(seg);
+    if (!m) return null;
+    const points = m[2]!
+      .trim()
+      .split(/\s+/)
+      .map((p) => {
+        const [pk, ms, extra] = p.split(":");
+        return extra === undefined ? [cellNumber(pk), cellNumber(ms)] : [NaN, NaN];
+      });
+    return { voltage: Number(m[1]), points };
+  });
+  const first = rows[0]?.points.map(([p]) => p!) ?? [];
+  const same = rows.every(
+    (r) => r && r.points.length === first.length && r.points.every(([p], i) => p === first[i]),
+  );
+  if (!same) return { voltages: [], pressuresKpa: [], deadTimeMs: [] };
+  return {
+    voltages: rows.map((r) => r!.voltage),
+    pressuresKpa: first,
+    deadTimeMs: rows.map((r) => r!.points.map(([, ms]) => ms!)),
+  };
+}
+export function formatDeadTime(t: {
+  voltages: number[];
+  pressuresKpa: number[];
+  deadTimeMs: number[][];
+}): string {
+  return t.voltages
+    .map(
+      (v, i) =>
+        `${v}V ${t.pressuresKpa.map((p, j) => `${p}:${t.deadTimeMs[i]?.[j] ?? ""}`).join(" ")}`,
+    )
+    .join(" | ");
+}
+
 export function formatPumpCurve(
   curves: { voltage: number; points: { pressureKpa: number; flowLPerH: number }[] }[],
 ): string {
@@ -143,16 +192,20 @@ const money = (label: string, required: boolean) =>
     });
 
 /** A spec column as it arrives: text (a number or yes/no from a JSON client is taken as text). */
-const specCell = (col: string) =>
+const specCell = (col: string, max: number) =>
   z.preprocess(
     (v) => (typeof v === "number" || typeof v === "boolean" ? String(v) : v),
-    z.string({ error: `${col} must be text or a number` }).max(2000, `${col} is too long`),
+    z
+      .string({ error: `${col} must be text or a number` })
+      .max(max, `${col} is too long (at most ${max} characters)`),
   );
+/** Room for the largest table the schema takes (8 curves of 40 points, 20 × 20 dead times). */
+const TABLE_CELL_MAX = 8000;
 
 /** How a spec column becomes a spec key: its kind, and what a blank cell gives (else "not given"). */
 interface SpecColumn {
   key: string;
-  kind: "number" | "text" | "yesno" | "curves";
+  kind: "number" | "text" | "yesno" | "curves" | "deadTime";
   blank?: unknown;
 }
 const SPEC_COLUMNS = {
@@ -162,6 +215,7 @@ const SPEC_COLUMNS = {
   impedance: { key: "impedance", kind: "text" },
   connector: { key: "connector", kind: "text" },
   ethanol_ok: { key: "ethanolOk", kind: "yesno" },
+  dead_time_ms: { key: "deadTime", kind: "deadTime" },
   pump_curve: { key: "curves", kind: "curves" },
   current_a: { key: "currentA", kind: "number" },
   mounting: { key: "mounting", kind: "text" },
@@ -185,7 +239,7 @@ export const SPEC_KEYS = Object.fromEntries(
 /**
  * What some flat columns say about a part's specs: the values of the keys they give, and every
  * key they speak for (`covered`; a blank cell with no default clears its key). A key no sent
- * column speaks for is left as stored — the dead-time table has no column at all.
+ * column speaks for is left as stored (a file or form without `dead_time_ms` keeps the table).
  */
 export interface SpecChange {
   values: Record<string, unknown>;
@@ -212,6 +266,7 @@ function specChangeOf(
     if (cell === "") v = spec.kind === "yesno" ? false : spec.blank;
     else if (spec.kind === "text") v = cell;
     else if (spec.kind === "curves") v = parsePumpCurve(cell);
+    else if (spec.kind === "deadTime") v = parseDeadTime(cell);
     else if (spec.kind === "yesno") {
       const t = cell.toLowerCase();
       if (["yes", "y", "true", "1"].includes(t)) v = true;
@@ -262,12 +317,17 @@ export function checkSpecs(
 ): { ok: true; specs: Record<string, unknown> } | { ok: false; issues: FieldIssue[] } {
   const r = (SPEC_SCHEMAS[category] as z.ZodType).safeParse(specs);
   if (r.success) return { ok: true, specs: r.data as Record<string, unknown> };
+  const issues = r.error.issues.map((i) => ({
+    path: SPEC_COLUMN[String(i.path[0])] ?? String(i.path[0] ?? "specs"),
+    message: specMessage(String(i.path[0]), i.message),
+  }));
+  // A table's several faults read as one hint, said once.
+  const seen = new Set<string>();
   return {
     ok: false,
-    issues: r.error.issues.map((i) => ({
-      path: SPEC_COLUMN[String(i.path[0])] ?? String(i.path[0] ?? "specs"),
-      message: specMessage(String(i.path[0]), i.message),
-    })),
+    issues: issues.filter(
+      (i) => !seen.has(`${i.path}\n${i.message}`) && seen.add(`${i.path}\n${i.message}`),
+    ),
   };
 }
 
@@ -301,10 +361,12 @@ export const PartFieldsSchema = z.object({
         });
       return Number(v);
     }),
-  ...(Object.fromEntries(SPEC_COLUMN_NAMES.map((c) => [c, specCell(c).optional()])) as Record<
-    SpecColumnName,
-    z.ZodOptional<ReturnType<typeof specCell>>
-  >),
+  ...(Object.fromEntries(
+    SPEC_COLUMN_NAMES.map((c) => {
+      const tabular = ["curves", "deadTime"].includes(SPEC_COLUMNS[c].kind);
+      return [c, specCell(c, tabular ? TABLE_CELL_MAX : 2000).optional()];
+    }),
+  ) as Record<SpecColumnName, z.ZodOptional<ReturnType<typeof specCell>>>),
 });
 
 const sinkOf =
@@ -335,12 +397,13 @@ export const FlatPartSchema = PartFieldsSchema.transform((row, ctx) => {
 export type PartValues = z.output<typeof FlatPartSchema>;
 
 /**
- * A change to a part: the `.partial()` of the part's fields, plus its id. Only the fields sent
- * change; the spec columns sent are merged into the stored specs by the command, which knows the
- * stored category and checks the result.
+ * A change to a part: the `.partial()` of the part's fields, plus its id and, optionally, the
+ * `version` the edit started from (the form always sends it; a stale one is 409). Only the fields
+ * sent change; the spec columns sent are merged into the stored specs by the command, which
+ * knows the stored category and checks the result.
  */
 export const PartUpdateSchema = PartFieldsSchema.partial()
-  .extend({ id: z.uuid("Unknown part") })
+  .extend({ id: z.uuid("Unknown part"), version: editVersion() })
   .transform((row, ctx) => {
     const fields: Partial<Omit<PartValues, "specs">> = {
       sku: row.sku,
@@ -354,7 +417,12 @@ export const PartUpdateSchema = PartFieldsSchema.partial()
     };
     for (const k of Object.keys(fields) as (keyof typeof fields)[])
       if (fields[k] === undefined) delete fields[k];
-    return { id: row.id, fields, specs: specChangeOf(row, sinkOf(ctx), false) };
+    return {
+      id: row.id,
+      version: row.version,
+      fields,
+      specs: specChangeOf(row, sinkOf(ctx), false),
+    };
   });
 export type PartUpdate = z.output<typeof PartUpdateSchema>;
 
@@ -369,6 +437,8 @@ const SPEC_HINT: Record<string, string> = {
   ratedPressureKpa: "rated_kpa needs the rating pressure in kPa (100 to 1000)",
   curves:
     "pump_curve needs curves like “13.5V 300:340 500:290” (kPa:L/h), at least two points each",
+  deadTime:
+    "dead_time_ms needs a table like “12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72” (kPa:ms): voltages rising, the same rising pressures for each, 0 to 10 ms",
   mounting: "mounting must be in-tank or inline",
   type: "regulator_type must be boost-referenced or fixed",
   minPressureKpa: "min_kpa needs the lowest setting in kPa",
@@ -380,6 +450,9 @@ const SPEC_HINT: Record<string, string> = {
 };
 const specMessage = (field: string, fallback: string) =>
   SPEC_HINT[field] ?? `${SPEC_COLUMN[field] ?? field}: ${fallback}`;
+
+const isDeadTime = (v: unknown): v is Parameters<typeof formatDeadTime>[0] =>
+  Boolean(v) && typeof v === "object" && Array.isArray((v as { voltages?: unknown }).voltages);
 
 /** A stored part → a flat row (CSV export, the edit form). */
 export function flatOf(
@@ -414,6 +487,7 @@ export function flatOf(
     impedance: str(s.impedance),
     connector: str(s.connector),
     ethanol_ok: yn(s.ethanolOk),
+    dead_time_ms: isDeadTime(s.deadTime) ? formatDeadTime(s.deadTime) : "",
     pump_curve: Array.isArray(s.curves) ? formatPumpCurve(s.curves as never) : "",
     current_a: str(s.currentA),
     mounting: str(s.mounting),

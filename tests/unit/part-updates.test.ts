@@ -98,7 +98,7 @@ describe("part updates are partial by construction", () => {
     }
   });
 
-  it("a spec key no column speaks for (the dead-time table) is kept; a blanked column clears its key", () => {
+  it("a spec key no sent column speaks for (the dead-time table) is kept; a blanked column clears its key", () => {
     const u = PartUpdateSchema.parse({ id: ID, connector: "", flow_cc_min: "1050" });
     expect(u.fields).toEqual({});
     expect(u.specs.covered.sort()).toEqual(["connector", "ratedFlowCcPerMin"]);
@@ -155,9 +155,10 @@ describe("part updates are partial by construction", () => {
     expect(bad).toMatchObject({ ok: false, issues: [{ path: "max_kpa" }] });
   });
 
-  it("a CSV header speaks only for its own columns: the dead-time table is never one of them", () => {
+  it("a CSV header speaks only for its own columns: a file without dead_time_ms keeps the table", () => {
     const all = specKeysOfColumns(CSV_COLUMNS);
-    expect(all).not.toContain("deadTime");
+    expect(all).toContain("deadTime");
+    expect(all).toContain("curves");
     const parsed = parseCatalogCsv(
       "sku,category,brand,name,price,stock,flow_cc_min\nT-INJ-1000,injector,Testbrand,Renamed,109.00,24,1100\n",
     );

@@ -23,12 +23,15 @@ export const createCustomerAction = memberAction(CustomerSchema, async (m, input
   return { ok: true, message: `Customer ${c.name} added`, data: { id: c.id } };
 });
 
-/** The same command and partial semantics as `PATCH /api/v1/customers/:id`. */
+/**
+ * The same command and partial semantics as `PATCH /api/v1/customers/:id`: the customer as
+ * saved (or as it was, when nothing changed); a stale version is a 409 state with `current`.
+ */
 export const updateCustomerAction = memberAction(CustomerUpdateSchema, async (m, input) => {
-  await updateCustomer(m, input);
+  const customer = await updateCustomer(m, input);
   revalidatePath(PATHS.customers);
   revalidatePath(PATHS.customer(input.id));
-  return { ok: true, message: "Saved" };
+  return { ok: true, message: "Saved", data: { customer } };
 });
 
 export const deleteCustomerAction = memberAction(CustomerIdSchema, async (m, input) => {

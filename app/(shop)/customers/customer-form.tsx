@@ -2,11 +2,13 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { startTransition, useActionState, useEffect } from "react";
+import { startTransition, useActionState, useEffect, useRef, useState } from "react";
+import { flushSync } from "react-dom";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 
 import { Button } from "@/components/ui/button";
+import { EditConflict } from "@/components/ui/edit-conflict";
 import { Field, TextAreaField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
@@ -16,24 +18,33 @@ import { createCustomerAction, updateCustomerAction } from "./actions";
 
 type In = z.input<typeof CustomerSchema>;
 type Out = z.output<typeof CustomerSchema>;
+type Stored = {
+  id: string;
+  version: number;
+  name: string;
+  email: string | null;
+  phone: string | null;
+  notes: string | null;
+};
+const LABELS = { name: "Name", email: "E-mail", phone: "Phone", notes: "Notes" } as const;
 
-export function CustomerForm({
-  customer,
-}: {
-  customer?: {
-    id: string;
-    name: string;
-    email: string | null;
-    phone: string | null;
-    notes: string | null;
-  };
-}) {
+export function CustomerForm({ customer }: { customer?: Stored }) {
   const router = useRouter();
   const [state, action, pending] = useActionState(
     customer ? updateCustomerAction : createCustomerAction,
     initialActionState,
   );
-  const { register, handleSubmit, formState, reset, setError } = useForm<In, unknown, Out>({
+  const formRef = useRef<HTMLFormElement>(null);
+  // The version the edit started from; "Save mine over theirs" moves it to the one now stored.
+  // Versions only rise, so the newer of that and the page's own is the base of the next save.
+  const [overVersion, setOverVersion] = useState(0);
+  const version = Math.max(overVersion, customer?.version ?? 0);
+  const conflict = !state.ok && state.status === 409 ? (state.current as Stored) : null;
+  const { register, handleSubmit, formState, reset, setError, getValues } = useForm<
+    In,
+    unknown,
+    Out
+  >({
     resolver: zodResolver(CustomerSchema),
     defaultValues: {
       name: customer?.name ?? "",
@@ -61,12 +72,18 @@ export function CustomerForm({
 
   return (
     <form
+      ref={formRef}
       onSubmit={onSubmit}
       noValidate
       className="space-y-4"
       aria-label={customer ? "Edit customer" : "Add customer"}
     >
-      {customer ? <input type="hidden" name="id" value={customer.id} /> : null}
+      {customer ? (
+        <>
+          <input type="hidden" name="id" value={customer.id} />
+          <input type="hidden" name="version" value={version} />
+        </>
+      ) : null}
       <Field
         label="Name"
         autoComplete="off"
@@ -90,7 +107,25 @@ export function CustomerForm({
         />
       </div>
       <TextAreaField label="Notes" error={formState.errors.notes?.message} {...register("notes")} />
-      <FormStatus ok={state.ok} message={state.message} />
+      {/* A conflict speaks for itself below (with what was saved meanwhile). */}
+      <FormStatus ok={state.ok} message={conflict ? undefined : state.message} />
+      {conflict && conflict.version > version ? (
+        <EditConflict
+          what="this customer"
+          version={conflict.version}
+          disabled={pending}
+          rows={(Object.keys(LABELS) as (keyof typeof LABELS)[]).map((k) => ({
+            label: LABELS[k],
+            yours: String(getValues(k) ?? "").trim(),
+            theirs: conflict[k] ?? "",
+          }))}
+          onOverwrite={() => {
+            // The hidden version field takes the stored version first, then the form is sent.
+            flushSync(() => setOverVersion(conflict.version));
+            formRef.current?.requestSubmit();
+          }}
+        />
+      ) : null}
       <Button type="submit" disabled={pending}>
         {pending ? "Saving…" : customer ? "Save changes" : "Add customer"}
       </Button>

@@ -21,7 +21,7 @@ export default async function PartPage({ params }: { params: Promise<{ id: strin
       <p className="mb-3 text-sm text-ink-700">
         {p.reserved} held by accepted quotes; {p.stock - p.reserved} free.
       </p>
-      <PartForm id={p.id} initial={flatOf(p)} canDelete />
+      <PartForm id={p.id} version={p.version} initial={flatOf(p)} canDelete />
     </>
   );
 }

@@ -1,0 +1,529 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
+import { initialActionState } from "@/lib/actions/state";
+import { flatOf } from "@/lib/validations/parts";
+
+import { actionManifest, callAction, formOf, type ActionRef } from "../helpers/actions";
+import { fingerprint, makeOtherShop, sql } from "../helpers/db";
+import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
+import { solidPng } from "../helpers/png";
+import { SEED_SETTINGS_FORM } from "../helpers/surface";
+
+/**
+ * Nothing lost, nothing changed: for every edit form (through its server action) and every
+ * PATCH route, loading a record and saving it unchanged leaves the stored row byte for byte the
+ * same (every column as PostgreSQL prints it, jsonb included) and makes no new version or
+ * revision; a stale form is a 409 that overwrites nothing; the catalog's CSV export → import →
+ * export is identical.
+ */
+const SHOP = "demo-shop-ridgeback";
+const tag = `RT${Date.now().toString(36).toUpperCase()}`;
+let owner: Client, tuner: Client, counter: Client, other: Client;
+let otherShop: Awaited<ReturnType<typeof makeOtherShop>>;
+let demoInputs: unknown;
+let customerId: string;
+
+interface State {
+  ok: boolean;
+  status?: number;
+  code?: string;
+  message?: string;
+  fieldErrors?: Record<string, string[]>;
+  data?: Record<string, unknown>;
+  current?: Record<string, unknown> & { version: number };
+}
+let manifest: ActionRef[];
+function ref(file: string, name: string, page: string): ActionRef {
+  const found = manifest.find((r) => r.file === file && r.name === name);
+  expect(found, `${file}#${name} in the build's action manifest`).toBeTruthy();
+  return { ...found!, page };
+}
+async function act(client: Client, r: ActionRef, input: unknown): Promise<State> {
+  const res = await callAction(client, r, [initialActionState, input]);
+  expect(res.http, `${r.name} answered`).toBeLessThan(500);
+  expect(res.state, `${r.name} answered with a state`).toBeTruthy();
+  return res.state as State;
+}
+
+/** Every column of one row as PostgreSQL prints it. */
+async function rowText(table: string, id: string, key = "id"): Promise<string> {
+  const [row] = await sql.unsafe(`select t::text as t from "${table}" t where "${key}" = $1`, [id]);
+  expect(row, `${table} ${id} exists`).toBeTruthy();
+  return row!.t as string;
+}
+/** A build's row and its revisions (how many, and the newest). */
+async function buildState(id: string) {
+  const [rev] =
+    await sql`select count(*)::int as n, max(version) as v from build_revisions where build_id = ${id}`;
+  return {
+    row: await rowText("builds", id),
+    revisions: rev!.n as number,
+    newest: rev!.v as number,
+  };
+}
+/** A quote's row and its lines (ids included), in order. */
+async function quoteState(id: string) {
+  const lines =
+    await sql`select l::text as t from quote_lines l where quote_id = ${id} order by position`;
+  return { row: await rowText("quotes", id), lines: lines.map((l) => l.t as string) };
+}
+
+const decode = (s: string) =>
+  s
+    .replaceAll("&quot;", '"')
+    .replaceAll("&#x27;", "'")
+    .replaceAll("&lt;", "<")
+    .replaceAll("&gt;", ">")
+    .replaceAll("&amp;", "&");
+/** The values a server-rendered form shows for these field names (inputs and selects). */
+function formValuesIn(html: string, names: string[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const tag of html.match(/<input\b[^>]*>/g) ?? []) {
+    const name = /\sname="([^"]*)"/.exec(tag)?.[1];
+    if (name && names.includes(name)) out[name] = decode(/\svalue="([^"]*)"/.exec(tag)?.[1] ?? "");
+  }
+  for (const m of html.matchAll(/<select\b[^>]*\sname="([^"]*)"[^>]*>([\s\S]*?)<\/select>/g)) {
+    const chosen = [...m[2]!.matchAll(/<option\b([^>]*)>/g)].find((o) =>
+      /\sselected(="")?/.test(o[1]!),
+    );
+    if (names.includes(m[1]!) && chosen)
+      out[m[1]!] = decode(/\svalue="([^"]*)"/.exec(chosen[1]!)?.[1] ?? "");
+  }
+  return out;
+}
+
+beforeAll(async () => {
+  otherShop = await makeOtherShop();
+  [owner, tuner, counter, other] = await Promise.all([
+    signIn("owner@demo.fuelwright.test"),
+    signIn("tuner@demo.fuelwright.test"),
+    signIn("counter@demo.fuelwright.test"),
+    signIn(otherShop.email, otherShop.password),
+  ]);
+  manifest = actionManifest();
+  const [demo] =
+    await sql`select customer_id, inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
+  demoInputs = demo!.inputs;
+  customerId = demo!.customer_id as string;
+});
+afterAll(async () => {
+  await sql.end();
+});
+
+describe("load → save unchanged → the stored row is byte for byte the same", () => {
+  it("builds, through the editor's action and PATCH: no new version, no revision", async () => {
+    for (const vehicle of ["Round-trip coupe", undefined]) {
+      const made = await request(tuner, "POST", "/api/v1/builds", {
+        customerId,
+        title: `${tag} build`,
+        ...(vehicle ? { vehicle } : {}),
+        inputs: demoInputs,
+      });
+      expect(made.status).toBe(201);
+      const id = made.json.build.id as string;
+      const before = await buildState(id);
+      const b = (await request(tuner, "GET", `/api/v1/builds/${id}`)).json.build;
+      const save = {
+        version: b.version,
+        title: b.title,
+        vehicle: b.vehicle ?? "",
+        status: b.status,
+        inputs: b.inputs,
+      };
+      const patched = await request(tuner, "PATCH", `/api/v1/builds/${id}`, save);
+      expect(patched.status).toBe(200);
+      expect(patched.json.build).toMatchObject({ id, version: b.version, title: b.title });
+      expect(await buildState(id)).toEqual(before);
+      const saveRef = ref("lib/builds/build-actions.ts", "saveBuildAction", `/builds/${id}`);
+      const state = await act(tuner, saveRef, { id, ...save });
+      expect(state).toMatchObject({ ok: true, data: { build: { id, version: b.version } } });
+      expect(await buildState(id)).toEqual(before);
+      // A real change still saves: a new version and its revision.
+      const renamed = await act(tuner, saveRef, {
+        id,
+        version: b.version,
+        title: `${tag} renamed`,
+      });
+      expect(renamed).toMatchObject({ ok: true, data: { build: { version: b.version + 1 } } });
+      expect((await buildState(id)).revisions).toBe(before.revisions + 1);
+    }
+  });
+
+  it("builds: choosing the kit the build already has makes no new revision", async () => {
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId,
+      title: `${tag} kit`,
+      inputs: demoInputs,
+    });
+    const id = made.json.build.id as string;
+    const [filter] =
+      await sql`select id from parts where shop_id = ${SHOP} and category = 'filter' order by sku limit 1`;
+    const parts = [{ role: "filter", partId: filter!.id, quantity: 1 }];
+    const first = await request(tuner, "POST", `/api/v1/builds/${id}/kit`, { version: 1, parts });
+    expect(first.status).toBe(200);
+    const version = first.json.build.version as number;
+    expect(version).toBe(2);
+    const before = await buildState(id);
+    const again = await request(tuner, "POST", `/api/v1/builds/${id}/kit`, { version, parts });
+    expect(again.status).toBe(200);
+    expect(again.json.build.version).toBe(version);
+    const kitRef = ref("lib/builds/build-actions.ts", "chooseKitAction", `/builds/${id}/kit`);
+    expect(await act(tuner, kitRef, { id, version, parts })).toMatchObject({ ok: true });
+    expect(await buildState(id)).toEqual(before);
+  });
+
+  it("customers, through the edit form's action and PATCH (a full record and a sparse one)", async () => {
+    const full = await request(counter, "POST", "/api/v1/customers", {
+      name: `${tag} Full Customer`,
+      email: `${tag.toLowerCase()}@example.test`,
+      phone: "555-0142",
+      notes: "Line one\nline two — ünïcode",
+    });
+    const sparse = await request(counter, "POST", "/api/v1/customers", {
+      name: `${tag} Sparse Customer`,
+    });
+    for (const made of [full, sparse]) {
+      expect(made.status).toBe(201);
+      const id = made.json.customer.id as string;
+      const before = await rowText("customers", id);
+      const c = (await request(counter, "GET", `/api/v1/customers/${id}`)).json.customer;
+      // What the edit form holds and posts (components: blanks for what is not there).
+      const form = {
+        id,
+        version: String(c.version),
+        name: c.name,
+        email: c.email ?? "",
+        phone: c.phone ?? "",
+        notes: c.notes ?? "",
+      };
+      const updRef = ref(
+        "app/(shop)/customers/actions.ts",
+        "updateCustomerAction",
+        `/customers/${id}`,
+      );
+      const state = await act(counter, updRef, formOf(form));
+      expect(state).toMatchObject({ ok: true, data: { customer: { id, version: c.version } } });
+      expect(await rowText("customers", id)).toBe(before);
+      const { id: _id, ...body } = form;
+      const patched = await request(counter, "PATCH", `/api/v1/customers/${id}`, {
+        ...body,
+        version: c.version,
+      });
+      expect(patched.status).toBe(200);
+      expect(patched.json.customer).toMatchObject({ id, version: c.version, name: c.name });
+      expect(await rowText("customers", id)).toBe(before);
+      // Without a version (older API clients) an unchanged save changes nothing either.
+      expect(
+        (await request(counter, "PATCH", `/api/v1/customers/${id}`, { name: c.name })).status,
+      ).toBe(200);
+      expect(await rowText("customers", id)).toBe(before);
+    }
+  });
+
+  it("parts, through the part form's action and PATCH (dead-time table, pump curves)", async () => {
+    const [injector, pump] = await sql`select id from parts where shop_id = ${SHOP} and (
+        (category = 'injector' and specs ? 'deadTime') or (category = 'pump' and specs ? 'curves'))
+      order by category, sku`;
+    const ids = [injector!.id as string, pump!.id as string];
+    const updRef = ref("lib/parts/part-actions.ts", "updatePartAction", "/parts/new");
+    for (const id of ids) {
+      const before = await rowText("parts", id);
+      const p = (await request(counter, "GET", `/api/v1/parts/${id}`)).json.part;
+      const form = { ...flatOf(p), category: p.category, id, version: p.version };
+      expect(form.dead_time_ms || form.pump_curve, "the form carries the table").toBeTruthy();
+      expect(await act(counter, updRef, form)).toMatchObject({ ok: true });
+      expect(await rowText("parts", id)).toBe(before);
+      const { id: _id, ...body } = form;
+      const patched = await request(counter, "PATCH", `/api/v1/parts/${id}`, body);
+      expect(patched.status).toBe(200);
+      expect(patched.json.part).toMatchObject({ id, version: p.version, specs: p.specs });
+      expect(await rowText("parts", id)).toBe(before);
+    }
+  });
+
+  it("draft quotes, through the editor's action and PATCH: the lines keep their ids", async () => {
+    const build = await request(tuner, "POST", "/api/v1/builds", {
+      customerId,
+      title: `${tag} quoted`,
+      inputs: demoInputs,
+    });
+    const fromBuild = await request(counter, "POST", "/api/v1/quotes", {
+      buildId: build.json.build.id,
+    });
+    const empty = await request(counter, "POST", "/api/v1/quotes", { customerId });
+    expect([fromBuild.status, empty.status]).toEqual([201, 201]);
+    const editRef = (id: string) =>
+      ref("lib/quotes/quote-actions.ts", "editQuoteAction", `/quotes/${id}`);
+    for (const id of [fromBuild.json.quote.id as string, empty.json.quote.id as string]) {
+      const before = await quoteState(id);
+      const q = (await request(counter, "GET", `/api/v1/quotes/${id}`)).json;
+      // What the quote editor sends for a quote nobody touched.
+      const edit = {
+        version: q.quote.version,
+        validUntil: q.quote.validUntil,
+        notes: q.quote.notes ?? "",
+        lines: q.lines.map((l: Record<string, unknown>) => ({
+          kind: l.kind,
+          partId: l.partId,
+          sku: l.sku,
+          description: l.description,
+          quantityMilli: l.quantityMilli,
+          unitPriceMinor: l.unitPriceMinor,
+          discountBp: l.discountBp,
+        })),
+      };
+      const patched = await request(counter, "PATCH", `/api/v1/quotes/${id}`, edit);
+      expect(patched.status).toBe(200);
+      expect(patched.json.quote).toMatchObject({ id, version: q.quote.version });
+      expect(await quoteState(id)).toEqual(before);
+      expect(await act(counter, editRef(id), { id, ...edit })).toMatchObject({ ok: true });
+      expect(await quoteState(id)).toEqual(before);
+    }
+  });
+
+  it("shop settings, through the settings form as the page fills it", async () => {
+    const page = await request(other, "GET", "/settings");
+    expect(page.status).toBe(200);
+    const form = formValuesIn(page.text, Object.keys(SEED_SETTINGS_FORM));
+    expect(Object.keys(form).sort()).toEqual(Object.keys(SEED_SETTINGS_FORM).sort());
+    const settingsRow = () => rowText("shop_settings", otherShop.shopId, "shop_id");
+    const orgRow = () => rowText("organization", otherShop.shopId);
+    // A BSFC with a fraction (the page once rounded it, so an unchanged save changed it).
+    await sql`update shop_settings set bsfc_e85_na = 426.5 where shop_id = ${otherShop.shopId}`;
+    const filled = formValuesIn(
+      (await request(other, "GET", "/settings")).text,
+      Object.keys(SEED_SETTINGS_FORM),
+    );
+    expect(filled.bsfcE85Na).toBe("426.5");
+    const before = [await settingsRow(), await orgRow()];
+    const saveRef = ref("app/(shop)/settings/actions.ts", "updateSettingsAction", "/settings");
+    expect(await act(other, saveRef, formOf(filled))).toMatchObject({ ok: true });
+    expect([await settingsRow(), await orgRow()]).toEqual(before);
+  });
+
+  it("a member's role, a person's units and the shop's logo: the same again writes nothing", async () => {
+    const [m] =
+      await sql`select m.id, m.role from member m join "user" u on u.id = m.user_id where m.organization_id = ${SHOP} and u.email = 'tuner@demo.fuelwright.test'`;
+    const before = await rowText("member", m!.id);
+    const roleRef = ref("app/(shop)/settings/actions.ts", "changeRoleAction", "/settings");
+    expect(await act(owner, roleRef, formOf({ memberId: m!.id, role: m!.role }))).toMatchObject({
+      ok: true,
+    });
+    expect(await rowText("member", m!.id)).toBe(before);
+
+    const unitsRef = ref("lib/preferences/preference-actions.ts", "setUnitsAction", "/builds");
+    expect(await act(other, unitsRef, formOf({ units: "metric" }))).toMatchObject({ ok: true });
+    const user = await rowText("user", otherShop.userId);
+    expect(await act(other, unitsRef, formOf({ units: "metric" }))).toMatchObject({ ok: true });
+    expect(await rowText("user", otherShop.userId)).toBe(user);
+
+    const png = solidPng(40, 20);
+    const put = () =>
+      fetch(`${BASE_URL}/api/v1/shop/logo`, {
+        method: "PUT",
+        body: new Uint8Array(png),
+        headers: {
+          cookie: other.cookie,
+          "x-forwarded-for": other.ip,
+          origin: BASE_URL,
+          "content-type": "image/png",
+        },
+      });
+    expect((await put()).status).toBeLessThan(300);
+    const logo = await rowText("shop_logos", otherShop.shopId, "shop_id");
+    const again = await put();
+    expect(again.status).toBeLessThan(300);
+    expect(await rowText("shop_logos", otherShop.shopId, "shop_id")).toBe(logo);
+  });
+});
+
+describe("stale edit forms: a second tab's save is a 409 and overwrites nothing", () => {
+  it("customers: the form and PATCH with the version they loaded; PATCH without one still saves", async () => {
+    const made = await request(counter, "POST", "/api/v1/customers", { name: `${tag} Two Tabs` });
+    const id = made.json.customer.id as string;
+    const v = made.json.customer.version as number;
+    const updRef = ref(
+      "app/(shop)/customers/actions.ts",
+      "updateCustomerAction",
+      `/customers/${id}`,
+    );
+    // Tab one saves a change: the next version.
+    const first = await act(
+      counter,
+      updRef,
+      formOf({ id, version: String(v), name: `${tag} Tab One` }),
+    );
+    expect(first).toMatchObject({ ok: true, data: { customer: { version: v + 1 } } });
+    const saved = await rowText("customers", id);
+    // Tab two, still at the version it loaded: refused with the customer as it is now.
+    const stale = await act(
+      counter,
+      updRef,
+      formOf({ id, version: String(v), name: `${tag} Tab Two` }),
+    );
+    expect(stale).toMatchObject({ ok: false, status: 409, code: "conflict" });
+    expect(stale.current).toMatchObject({ id, version: v + 1, name: `${tag} Tab One` });
+    const api = await request(counter, "PATCH", `/api/v1/customers/${id}`, {
+      version: v,
+      phone: "555-0000",
+    });
+    expect(api.status).toBe(409);
+    expect(api.json.current).toMatchObject({ version: v + 1, name: `${tag} Tab One` });
+    expect(await rowText("customers", id)).toBe(saved);
+    // "Save mine over theirs": from the version now stored.
+    expect(
+      await act(counter, updRef, formOf({ id, version: String(v + 1), name: `${tag} Tab Two` })),
+    ).toMatchObject({ ok: true, data: { customer: { version: v + 2, name: `${tag} Tab Two` } } });
+    // An API client that names no version: the last write wins.
+    const blind = await request(counter, "PATCH", `/api/v1/customers/${id}`, { phone: "555-0001" });
+    expect(blind.json.customer).toMatchObject({ version: v + 3, phone: "555-0001" });
+  });
+
+  it("parts: the form and PATCH with the version they loaded", async () => {
+    const sku = `${tag}-TABS`;
+    const made = await request(counter, "POST", "/api/v1/parts", {
+      sku,
+      category: "fitting",
+      brand: "Testbrand",
+      name: "Two tabs fitting",
+      price: "4.50",
+      stock: "3",
+    });
+    expect(made.status).toBe(201);
+    const id = made.json.part.id as string;
+    const v = made.json.part.version as number;
+    const updRef = ref("lib/parts/part-actions.ts", "updatePartAction", "/parts/new");
+    expect(await act(counter, updRef, { id, version: v, name: "Tab one" })).toMatchObject({
+      ok: true,
+    });
+    const saved = await rowText("parts", id);
+    const stale = await act(counter, updRef, { id, version: v, name: "Tab two" });
+    expect(stale).toMatchObject({ ok: false, status: 409, code: "conflict" });
+    expect(stale.current).toMatchObject({ id, version: v + 1, name: "Tab one" });
+    const api = await request(counter, "PATCH", `/api/v1/parts/${id}`, { version: v, stock: "9" });
+    expect(api.status).toBe(409);
+    expect(api.json.current).toMatchObject({ version: v + 1, stock: 3 });
+    expect(await rowText("parts", id)).toBe(saved);
+  });
+});
+
+describe("CSV: the catalog export → import → export is identical; downloads are safe in a spreadsheet", () => {
+  const exportCsv = async (c: Client) => {
+    const r = await request(c, "GET", "/api/v1/parts/export");
+    expect(r.status).toBe(200);
+    return r.text;
+  };
+  const importCsv = (c: Client, csv: string) =>
+    request(c, "POST", "/api/v1/parts/import", csv, { "content-type": "text/csv" });
+
+  it("the demo catalog (dead-time tables and pump curves): identical, and the import writes nothing", async () => {
+    const first = await exportCsv(counter);
+    expect(first.split("\r\n")[0]).toContain("dead_time_ms");
+    expect(first).toMatch(/,10V 300:1\.4 500:1\.6 \| 12V /);
+    expect(first).toMatch(/,13\.5V 300:\d+ 500:\d+ 700:\d+ \| 12V /);
+    const before = await fingerprint(["parts"]);
+    const r = await importCsv(counter, first);
+    expect(r.status).toBe(200);
+    expect(r.json).toMatchObject({ added: 0, updated: 0 });
+    expect(r.json.unchanged).toBeGreaterThan(10);
+    expect(await fingerprint(["parts"])).toBe(before);
+    expect(await exportCsv(counter)).toBe(first);
+  });
+
+  it("formula-like text is neutralised on the way out and given back on the way in", async () => {
+    const shop = otherShop.shopId;
+    const deadTime = {
+      voltages: [11, 13.5],
+      pressuresKpa: [250, 400],
+      deadTimeMs: [
+        [1.25, 1.375],
+        [0.8, 0.91],
+      ],
+    };
+    const curves = [
+      {
+        voltage: 13.5,
+        points: [
+          { pressureKpa: 300, flowLPerH: 255.5 },
+          { pressureKpa: 600, flowLPerH: 180 },
+        ],
+      },
+    ];
+    await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, cost_minor, stock, reorder_level, specs) values
+      (${shop}, 'X-INJ', 'injector', '@Brand', '=HYPERLINK("http://evil.example","Click")', 12345, 6000, 4, 1,
+        ${sql.json({ ratedFlowCcPerMin: 1200, ratedPressureKpa: 300, impedance: "high", connector: "-EV14", ethanolOk: true, deadTime })}),
+      (${shop}, 'X-PMP', 'pump', 'Plain', '+1 pump', 20000, 0, 2, 0,
+        ${sql.json({ curves, currentA: 12.5, mounting: "inline", ethanolOk: false })})`;
+    const first = await exportCsv(other);
+    expect(first).toContain(`'=HYPERLINK(""http://evil.example"",""Click"")`);
+    expect(first).toContain("'@Brand");
+    expect(first).toContain("'-EV14");
+    expect(first).toContain("'+1 pump");
+    expect(first).toContain("11V 250:1.25 400:1.375 | 13.5V 250:0.8 400:0.91");
+    expect(first).toContain("13.5V 300:255.5 600:180");
+    const rows = () =>
+      sql`select p::text as t from parts p where shop_id = ${shop} order by sku`.then((r) =>
+        r.map((x) => x.t as string),
+      );
+    const before = await rows();
+    const r = await importCsv(other, first);
+    expect(r.status).toBe(200);
+    expect(r.json).toMatchObject({ added: 0, updated: 0, unchanged: 2 });
+    expect(await rows()).toEqual(before);
+    expect(await exportCsv(other)).toBe(first);
+    const [stored] =
+      await sql`select name, brand from parts where shop_id = ${shop} and sku = 'X-INJ'`;
+    expect(stored).toEqual({ name: '=HYPERLINK("http://evil.example","Click")', brand: "@Brand" });
+
+    // A file without dead_time_ms and pump_curve changes a known SKU only in its own columns.
+    const slim =
+      "sku,category,brand,name,price,stock,flow_cc_min\nX-INJ,injector,@Brand,Renamed,123.45,4,1200\n";
+    expect((await importCsv(other, slim)).json).toMatchObject({ updated: 1 });
+    const [kept] =
+      await sql`select name, specs, version from parts where shop_id = ${shop} and sku = 'X-INJ'`;
+    expect(kept!.name).toBe("Renamed");
+    expect(kept!.specs.deadTime).toEqual(deadTime);
+    expect(kept!.version).toBe(2);
+
+    // A bad table cell is an error with its line and column; nothing is written.
+    const was = await rows();
+    const bad =
+      "sku,category,brand,name,price,stock,flow_cc_min,dead_time_ms\nX-INJ,injector,B,N,1,1,1200,12V 300:0.9 | 14V 500:0.7\n";
+    const refused = await importCsv(other, bad);
+    expect(refused.status).toBe(422);
+    expect(refused.json.error.rows).toEqual([
+      { line: 2, field: "dead_time_ms", message: expect.stringMatching(/kPa:ms/) },
+    ]);
+    expect(await rows()).toEqual(was);
+  });
+
+  it("a datalog download neutralises formula cells and keeps every other byte; analysing it again writes nothing", async () => {
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId,
+      title: `${tag} dyno`,
+      inputs: demoInputs,
+    });
+    const csv =
+      "RPM,Duty,Note\r\nrpm,%,\r\n3000,41.5,=cmd|' /C calc'!A0\r\n3100,-2,\"@SUM(1)\"\r\n";
+    const up = await request(tuner, "POST", `/api/v1/builds/${made.json.build.id}/datalogs`, csv, {
+      "content-type": "text/csv",
+      "x-file-name": "formula.csv",
+    });
+    expect(up.status).toBe(201);
+    const id = up.json.datalog.id as string;
+    // Analysing again with the same mapping writes nothing (the log, the remembered mapping).
+    const mapping = { rpm: "RPM", duty: { column: "Duty", kind: "duty_pct" } };
+    const analyse = () => request(tuner, "POST", `/api/v1/datalogs/${id}/analysis`, { mapping });
+    expect((await analyse()).status).toBe(200);
+    const analysed = [await rowText("datalogs", id), await fingerprint(["datalog_mappings"])];
+    expect((await analyse()).status).toBe(200);
+    expect([await rowText("datalogs", id), await fingerprint(["datalog_mappings"])]).toEqual(
+      analysed,
+    );
+    const file = await getBytes(tuner, `/api/v1/datalogs/${id}/file`);
+    expect(file.status).toBe(200);
+    expect(file.bytes.toString("utf8")).toBe(
+      "RPM,Duty,Note\r\nrpm,%,\r\n3000,41.5,'=cmd|' /C calc'!A0\r\n3100,-2,\"'@SUM(1)\"\r\n",
+    );
+  });
+});
