@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useRef, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
@@ -64,6 +64,7 @@ export function PartForm({
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
+  const formRef = useRef<HTMLFormElement>(null);
   const category = (values.category || "injector") as PartCategory;
   const set = (k: keyof FlatPart) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     setValues((v) => ({ ...v, [k]: e.target.value }));
@@ -87,6 +88,10 @@ export function PartForm({
       ),
     );
     setStatus({ ok: false, message: res.message ?? "Not saved" });
+    // Once the messages are drawn, go to the first highlighted field.
+    requestAnimationFrame(() =>
+      formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus(),
+    );
   };
 
   // Every field the form holds is sent; a spec the form does not show (the dead-time table) is
@@ -106,6 +111,7 @@ export function PartForm({
 
   return (
     <form
+      ref={formRef}
       noValidate
       className="max-w-3xl space-y-4"
       onSubmit={(e) => {

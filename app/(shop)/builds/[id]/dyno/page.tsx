@@ -6,6 +6,7 @@ import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { STATUS_LABELS } from "@/lib/domain/builds";
@@ -19,7 +20,10 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const logs = await listDatalogs(m.shopId, id);
+  const [logs, units] = await Promise.all([
+    listDatalogs(m.shopId, id),
+    unitSystemOf(m.user.id, m.shopId),
+  ]);
   return (
     <>
       <PageHeader title={`Dyno verification — ${row.build.title}`}>
@@ -42,6 +46,7 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
       <DynoWorkbench
         buildId={id}
         canUpload={can(m.role, "datalogs:upload")}
+        units={units}
         logs={logs.map((l) => ({
           id: l.id,
           fileName: l.fileName,
