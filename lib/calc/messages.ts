@@ -118,10 +118,14 @@ export function issueMessage(issue: IssueLike, system: UnitSystem): string {
     if (b?.min === undefined || b.max === undefined) return issue.message;
     const q = field.quantity;
     const spec = QUANTITIES[q][system];
-    const low = spec.prefix
-      ? formatValue(q, b.min, system, field.decimals)
-      : formatNumber(q, b.min, system, field.decimals);
-    const high = formatValue(q, b.max, system, field.decimals);
+    // Bounds read best without trailing zeros: "between 0 and 72.5 psi".
+    const trim = (t: string) => t.replace(/(\.\d*?)0+(?=\D*$)/, "$1").replace(/\.(?=\D*$)/, "");
+    const low = trim(
+      spec.prefix
+        ? formatValue(q, b.min, system, field.decimals)
+        : formatNumber(q, b.min, system, field.decimals),
+    );
+    const high = trim(formatValue(q, b.max, system, field.decimals));
     return `${field.label} must be between ${low} and ${high}`;
   }
   return issue.message;

@@ -266,6 +266,7 @@ const lineResult = (side: "feed" | "return"): Record<string, FieldSpec> => {
   const L = side === "feed" ? "Feed line" : "Return line";
   const p = `lines.${side}`;
   return {
+    [p]: { label: L },
     [`${p}.velocityMPerS`]: { label: `${L} velocity`, quantity: "velocity" },
     [`${p}.reynolds`]: { label: `${L} Reynolds number`, quantity: "reynolds" },
     [`${p}.regime`]: { label: `${L} flow`, options: FLOW_REGIME_LABELS },
