@@ -169,7 +169,7 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "pumps.*": { label: "Pump #" },
   "pumps.*.label": { label: "Pump # name", text: true },
   "pumps.*.quantity": {
-    label: "Pump # in parallel",
+    label: "Pump #: how many in parallel",
     short: "Pumps in parallel",
     quantity: "count",
   },

@@ -19,9 +19,12 @@ afterAll(async () => {
 const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|bar|°C)(?![\w/])/;
 const IMPERIAL_ONLY =
   /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F)(?![\w/])/;
-/** An internal field path or code where a label belongs: camelCase names, "›" paths, enum codes. */
+/**
+ * An internal field path or code where a label belongs: camelCase names (units such as kPa are not), "›" paths, and a code
+ * standing alone in a table cell (the words themselves appear in sentences).
+ */
 const INTERNAL =
-  /\b[a-z]+(?:[A-Z][a-z0-9]*)+\b|›|\b(turbo|supercharged|boost-referenced|rule-of-thumb|feed-line)\b/;
+  /\b[a-z]{2,}(?:[A-Z][a-z0-9]*)+\b|›|\b(turbo|supercharged)\b|(^|\t)(na|boost-referenced|fixed|wheel|crank|given|rule-of-thumb|injectors|pump|feed-line|ok|caution|danger|static)(\t|$)/;
 
 /** The unit switch names both systems on purpose; everything else on the page is read. */
 const UNIT_SWITCH = /(Metric \(kPa, kW, cc\/min\)|Imperial \(psi, hp, lb\/h\))/g;
@@ -112,7 +115,9 @@ describe("every figure in the reader's units", () => {
       pages.push(["revision 2", await mainText(page)]);
       await page.goto(`${url}/compare?from=1&to=2`);
       const figures = await page.getByTestId("figure-changes").innerText();
-      expect(figures).toMatch(/Injector duty at the highest ethanol.*worse/);
+      expect(figures).toMatch(
+        /Injector duty at the highest ethanol\s+[\d.]+ %\s+[\d.]+ %\s+▲\s+worse/,
+      );
       pages.push(["compare", await mainText(page)]);
       const pdf = await page.request.get(`/api/v1/builds/${id}/spec-sheet`);
       expect(pdf.status()).toBe(200);
