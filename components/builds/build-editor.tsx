@@ -499,11 +499,7 @@ export function BuildEditor(props: {
                   register={register as never}
                   setValue={setValue as never}
                   pressureUnit={unitOf("pressure", units)}
-                  error={
-                    errors["injectors.deadTime.deadTimeMs"] ??
-                    errors["injectors.deadTime.voltages"] ??
-                    errors["injectors.deadTime.pressuresKpa"]
-                  }
+                  errors={errors}
                   toNumber={toNumber}
                 />
               </div>
