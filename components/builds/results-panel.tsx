@@ -2,6 +2,7 @@
 
 import { Signal } from "@/components/ui/status";
 import {
+  AN_SIZES,
   DUTY_BAND_LABELS,
   formatNumber,
   formatResult,
@@ -89,6 +90,7 @@ export function ResultsPanel({
     );
   };
   const redline = r.injector.pulseWidthRedline;
+  const beyondLargest = `larger than ${formatValue("anDash", AN_SIZES[AN_SIZES.length - 1]!.dash, units)}`;
   const ceiling = split("powerCeiling.kw", r.powerCeiling.kw, units);
   const headroom = r.powerCeiling.headroomPct;
   return (
@@ -156,7 +158,7 @@ export function ResultsPanel({
             value={
               r.lines.recommendedFeedDash
                 ? formatResult("lines.recommendedFeedDash", r.lines.recommendedFeedDash, units)
-                : "larger than −12 AN"
+                : beyondLargest
             }
             unit=""
           />
@@ -165,7 +167,7 @@ export function ResultsPanel({
             value={
               r.lines.recommendedReturnDash
                 ? formatResult("lines.recommendedReturnDash", r.lines.recommendedReturnDash, units)
-                : "larger than −12 AN"
+                : beyondLargest
             }
             unit=""
           />

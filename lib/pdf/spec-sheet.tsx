@@ -12,6 +12,7 @@ import {
 } from "@react-pdf/renderer";
 
 import {
+  AN_SIZES,
   ASPIRATION_LABELS,
   BSFC_SOURCE_LABELS,
   dutyAcrossRpm,
@@ -244,7 +245,8 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
   const { input, result: r, units } = d;
   const q = (quantity: Quantity, v: number, decimals?: number) =>
     pdfText(formatValue(quantity, v, units, decimals)).replace("—", "-");
-  const dash = (d: number | null) => (d ? q("anDash", d) : "larger than -12 AN");
+  const dash = (d: number | null) =>
+    q("anDash", d ?? AN_SIZES[AN_SIZES.length - 1]!.dash).replace(/^/, d ? "" : "larger than ");
   const fig = (label: string, value: string) => (
     <View style={s.fig} key={label}>
       <Text style={s.muted}>{label}</Text>
