@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useMemo, useState, useTransition } from "react";
+import { useEffect, useMemo, useRef, useState, useTransition } from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
 import { Button } from "@/components/ui/button";
@@ -14,14 +14,17 @@ import { diffInputs, stableJson } from "@/lib/builds/diff";
 import {
   AN_SIZES,
   ASPIRATION_CLASS_LABELS,
-  converter,
   convertInputs,
+  entryUnitOf,
+  formatValue,
   FUEL_CLASS_LABELS,
   FuelSystemInputSchema,
-  quantityOf,
+  inputField,
+  issueMessages,
   shopBsfcFor,
   sizeParsedFuelSystem,
   toShown,
+  unitOf,
   type FuelSystemInput,
   type ShopBsfcRow,
   type UnitSystem,
@@ -33,6 +36,7 @@ import {
   type BuildStatusFacts,
 } from "@/lib/domain/builds";
 import { setUnitsAction } from "@/lib/preferences/preference-actions";
+import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
@@ -285,13 +289,31 @@ export function BuildEditor(props: {
     values.status !== baseline.status ||
     !parsed.success ||
     stableJson(parsed.data) !== baselineJson;
+  const titleCheck = useMemo(
+    () => BuildCreateSchema.shape.title.safeParse(values.title ?? ""),
+    [values.title],
+  );
+  // Field messages in the person's units, named by the registry's labels.
   const errors = useMemo(() => {
-    const out: Record<string, string> = {};
-    if (!parsed.success) for (const i of parsed.error.issues) out[i.path.join(".")] ??= i.message;
+    const out: Record<string, string> = parsed.success
+      ? {}
+      : issueMessages(parsed.error.issues, units);
+    if (!titleCheck.success) out.title = titleCheck.error.issues[0]!.message;
     for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
       if (v[0]) out[k.replace(/^inputs\./, "")] ??= v[0];
     return out;
-  }, [parsed, saved]);
+  }, [parsed, titleCheck, saved, units]);
+  const formRef = useRef<HTMLFormElement>(null);
+  /** Moves the focus to the first highlighted field, in the order of the sheet. */
+  const focusFirstInvalid = () =>
+    requestAnimationFrame(() =>
+      formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus(),
+    );
+  // A save the server refused for a field: highlight it, then go there.
+  useEffect(() => {
+    if (saved && !saved.ok && saved.fieldErrors && Object.keys(saved.fieldErrors).length)
+      focusFirstInvalid();
+  }, [saved]);
 
   // Unsaved changes are not lost by leaving the page by accident.
   useEffect(() => {
@@ -349,43 +371,40 @@ export function BuildEditor(props: {
       } else setSaved(res);
     });
 
-  const unitOf = (name: string, fallback: string) => {
-    const q = quantityOf(name);
-    return q ? converter(q, units).unit : fallback;
+  /** A number field: label and unit from the registry, in the person's units. */
+  const num = (name: string) => {
+    const f = inputField(name)!;
+    return (
+      <NumberField
+        key={name}
+        register={register}
+        name={name}
+        label={f.short ?? f.label}
+        unit={entryUnitOf(f.quantity!, units)}
+        error={errors[name]}
+      />
+    );
   };
-  const num = (name: string, label: string, unit: string) => (
-    <NumberField
-      key={name}
-      register={register}
-      name={name}
-      label={label}
-      unit={unitOf(name, unit)}
-      error={errors[name]}
-    />
-  );
-  const select = (
-    name: string,
-    label: string,
-    options: [string, string][],
-    onChange?: (v: string) => void,
-  ) => (
-    <SelectField
-      key={name}
-      label={label}
-      id={idOf(name)}
-      error={errors[name]}
-      {...register(
-        name as never,
-        onChange ? { onChange: (e) => onChange(e.target.value) } : undefined,
-      )}
-    >
-      {options.map(([v, l]) => (
-        <option key={v} value={v}>
-          {l}
-        </option>
-      ))}
-    </SelectField>
-  );
+  /** A select of a code field, its options labelled by the registry unless given. */
+  /** A select; a field of the sizing takes its label and its options' labels from the registry. */
+  const select = (name: string, given?: { label: string; options: [string, string][] }) => {
+    const f = inputField(name);
+    return (
+      <SelectField
+        key={name}
+        label={given?.label ?? f?.short ?? f?.label ?? name}
+        id={idOf(name)}
+        error={errors[name]}
+        {...register(name as never)}
+      >
+        {(given?.options ?? Object.entries(f?.options ?? {})).map(([v, l]) => (
+          <option key={v} value={v}>
+            {l}
+          </option>
+        ))}
+      </SelectField>
+    );
+  };
   const toggle = (key: Optional, label: string) => (
     <label className="flex items-center gap-2 text-sm">
       <input
@@ -419,7 +438,8 @@ export function BuildEditor(props: {
         <option value="">Other (type the inside diameter)</option>
         {AN_SIZES.map((s) => (
           <option key={s.dash} value={s.dash}>
-            AN −{s.dash} (typical hose ID {s.typicalHoseIdMm} mm)
+            {formatValue("anDash", s.dash, units)} (typical hose ID{" "}
+            {formatValue("diameter", s.typicalHoseIdMm, units)})
           </option>
         ))}
       </SelectField>
@@ -429,10 +449,10 @@ export function BuildEditor(props: {
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
     </div>,
-    num(`lines.${side}.insideDiameterMm`, "Inside diameter", "mm"),
-    num(`lines.${side}.lengthM`, "Length", "m"),
-    num(`lines.${side}.fittingsK`, "Fittings (sum of K)", "K"),
-    num(`lines.${side}.filterDropKpa`, "Filter drop", "kPa"),
+    num(`lines.${side}.insideDiameterMm`),
+    num(`lines.${side}.lengthM`),
+    num(`lines.${side}.fittingsK`),
+    num(`lines.${side}.filterDropKpa`),
   ];
   const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
@@ -440,12 +460,16 @@ export function BuildEditor(props: {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       <form
+        ref={formRef}
         aria-label="Build inputs"
         noValidate
         onSubmit={(e) => {
           e.preventDefault();
-          if (parsed.success) save();
-          else setSaved({ ok: false, message: "Check the highlighted fields" });
+          if (parsed.success && titleCheck.success) save();
+          else {
+            setSaved({ ok: false, message: "Check the highlighted fields" });
+            focusFirstInvalid();
+          }
         }}
       >
         <fieldset disabled={props.readOnly} className="space-y-4">
@@ -456,9 +480,16 @@ export function BuildEditor(props: {
               </label>
               <input
                 id="b-title"
-                className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold"
+                aria-invalid={Boolean(errors.title)}
+                aria-describedby={errors.title ? "b-title-err" : undefined}
+                className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600"
                 {...register("title")}
               />
+              {errors.title ? (
+                <p id="b-title-err" role="alert" className="mt-1 text-sm text-danger-700">
+                  ✕ {errors.title}
+                </p>
+              ) : null}
             </div>
             <StatusControl
               register={register}
@@ -488,30 +519,23 @@ export function BuildEditor(props: {
         </div>
         <fieldset disabled={props.readOnly} className="mt-4 space-y-4">
           <Section title="Engine">
-            {num("engine.cylinders", "Cylinders", "count")}
-            {num("engine.displacementL", "Displacement", "L")}
-            {select("engine.aspiration", "Aspiration", [
-              ["na", "Naturally aspirated"],
-              ["turbo", "Turbocharged"],
-              ["supercharged", "Supercharged"],
-            ])}
-            {num("engine.maxBoostKpa", "Boost", "kPa")}
-            {num("engine.redlineRpm", "Redline", "rpm")}
-            {num("engine.idleRpm", "Idle", "rpm")}
+            {num("engine.cylinders")}
+            {num("engine.displacementL")}
+            {select("engine.aspiration")}
+            {num("engine.maxBoostKpa")}
+            {num("engine.redlineRpm")}
+            {num("engine.idleRpm")}
           </Section>
           <Section title="Power goal">
-            {num("target.powerKw", "Target power", "kW")}
-            {select("target.measuredAt", "Measured at", [
-              ["wheel", "the wheels"],
-              ["crank", "the crank"],
-            ])}
-            {num("target.drivetrainLossPct", "Drivetrain loss", "%")}
+            {num("target.powerKw")}
+            {select("target.measuredAt")}
+            {num("target.drivetrainLossPct")}
           </Section>
           <Section title="Fuel and blend range">
-            {num("fuel.ethanolMinVolPct", "Lowest ethanol", "%")}
-            {num("fuel.ethanolMaxVolPct", "Highest ethanol", "%")}
-            {num("fuel.bsfcGPerKwh", "BSFC (blank: rule of thumb)", "g/kWh")}
-            {num("fuel.targetLambda", "Target lambda (blank: reference)", "λ")}
+            {num("fuel.ethanolMinVolPct")}
+            {num("fuel.ethanolMaxVolPct")}
+            {num("fuel.bsfcGPerKwh")}
+            {num("fuel.targetLambda")}
             <ShopBsfcOffer
               row={shopBsfcFor(
                 props.shopBsfc ?? [],
@@ -533,37 +557,30 @@ export function BuildEditor(props: {
               <div className="mb-1">{toggle("deadTime", "Use the injector's dead-time table")}</div>
             }
           >
-            {num("injectors.count", "Injectors", "count")}
-            {num("injectors.ratedFlowCcPerMin", "Rated flow", "cc/min")}
-            {num("injectors.ratedPressureKpa", "Rated at", "kPa")}
-            {num("injectors.minPulseWidthMs", "Minimum pulse width", "ms")}
+            {num("injectors.count")}
+            {num("injectors.ratedFlowCcPerMin")}
+            {num("injectors.ratedPressureKpa")}
+            {num("injectors.minPulseWidthMs")}
             {inc.deadTime ? (
               <div className="sm:col-span-2">
                 <DeadTimeGrid
                   control={control as never}
                   register={register as never}
                   setValue={setValue as never}
-                  pressureUnit={converter("pressure", units).unit}
-                  error={
-                    errors["injectors.deadTime.deadTimeMs"] ??
-                    errors["injectors.deadTime.voltages"] ??
-                    errors["injectors.deadTime.pressuresKpa"]
-                  }
+                  pressureUnit={unitOf("pressure", units)}
+                  errors={errors}
                   toNumber={toNumber}
                 />
               </div>
             ) : null}
           </Section>
           <Section title="Regulator">
-            {select("regulator.type", "Regulator", [
-              ["boost-referenced", "Boost-referenced (1:1)"],
-              ["fixed", "Fixed (not referenced)"],
-            ])}
-            {num("regulator.basePressureKpa", "Base pressure", "kPa")}
+            {select("regulator.type")}
+            {num("regulator.basePressureKpa")}
           </Section>
           <Section title="Pump">
-            {num("pumps.0.quantity", "Pumps in parallel", "count")}
-            {num("pumps.0.curves.0.voltage", "Curve tested at", "V")}
+            {num("pumps.0.quantity")}
+            {num("pumps.0.curves.0.voltage")}
             <div className="sm:col-span-2">
               <p className="text-sm font-medium text-ink-700">Flow curve</p>
               {errors["pumps.0.curves.0.points"] ? (
@@ -574,12 +591,8 @@ export function BuildEditor(props: {
               <div className="mt-1 space-y-2">
                 {points.fields.map((p, i) => (
                   <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    {num(
-                      `pumps.0.curves.0.points.${i}.pressureKpa`,
-                      `Point ${i + 1} pressure`,
-                      "kPa",
-                    )}
-                    {num(`pumps.0.curves.0.points.${i}.flowLPerH`, `Point ${i + 1} flow`, "L/h")}
+                    {num(`pumps.0.curves.0.points.${i}.pressureKpa`)}
+                    {num(`pumps.0.curves.0.points.${i}.flowLPerH`)}
                     <Button
                       type="button"
                       variant="ghost"
@@ -609,13 +622,13 @@ export function BuildEditor(props: {
               <div className="mb-1">{toggle("wiring", "Work out the voltage from the wiring")}</div>
             }
           >
-            {num("electrical.voltageAtPump", "Voltage at the pump", "V")}
+            {num("electrical.voltageAtPump")}
             {inc.wiring
               ? [
-                  num("electrical.wiring.sourceVoltage", "Supply voltage (charging)", "V"),
-                  num("electrical.wiring.gaugeAwg", "Wire gauge", "AWG"),
-                  num("electrical.wiring.roundTripLengthM", "Wire length, there and back", "m"),
-                  num("electrical.wiring.currentA", "Pump current", "A"),
+                  num("electrical.wiring.sourceVoltage"),
+                  num("electrical.wiring.gaugeAwg"),
+                  num("electrical.wiring.roundTripLengthM"),
+                  num("electrical.wiring.currentA"),
                 ]
               : null}
           </Section>
@@ -696,8 +709,7 @@ function ShopBsfcOffer({
   current?: number;
   onUse: (gPerKwh: number) => void;
 }) {
-  const c = converter("bsfc", units);
-  const fmt = (g: number) => `${c.to(g).toFixed(units === "metric" ? 0 : 2)} ${c.unit}`;
+  const fmt = (g: number) => formatValue("bsfc", g, units, units === "metric" ? 0 : 2);
   if (!row) {
     return (
       <p className="text-sm text-ink-600 sm:col-span-2" data-testid="shop-bsfc">

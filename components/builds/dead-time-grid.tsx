@@ -15,7 +15,8 @@ interface Table {
   deadTimeMs: (number | undefined)[][];
 }
 
-const cell = "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right";
+const cell =
+  "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600";
 
 /** The injector's dead time by battery voltage (rows) and differential pressure (columns). */
 export function DeadTimeGrid({
@@ -23,16 +24,20 @@ export function DeadTimeGrid({
   register,
   setValue,
   pressureUnit,
-  error,
+  errors,
   toNumber,
 }: {
   control: Control<any>;
   register: UseFormRegister<any>;
   setValue: UseFormSetValue<any>;
   pressureUnit: string;
-  error?: string;
+  /** The form's messages by field path: the table's are shown above it, their cells highlighted. */
+  errors: Record<string, string>;
   toNumber: (v: unknown) => number | undefined;
 }) {
+  const mine = Object.entries(errors).filter(([k]) => k.startsWith("injectors.deadTime"));
+  const error = mine[0]?.[1];
+  const bad = (path: string) => Boolean(errors[path]);
   const t = (useWatch({ control, name: "injectors.deadTime" }) as Table | undefined) ?? {
     voltages: [],
     pressuresKpa: [],
@@ -85,6 +90,7 @@ export function DeadTimeGrid({
                 <th key={j} scope="col" className="px-1">
                   <input
                     aria-label={`Pressure column ${j + 1} (${pressureUnit})`}
+                    aria-invalid={bad(`injectors.deadTime.pressuresKpa.${j}`)}
                     inputMode="decimal"
                     className={cell}
                     {...register(`injectors.deadTime.pressuresKpa.${j}`, n)}
@@ -107,6 +113,7 @@ export function DeadTimeGrid({
                 <th scope="row" className="px-1">
                   <input
                     aria-label={`Voltage row ${i + 1} (V)`}
+                    aria-invalid={bad(`injectors.deadTime.voltages.${i}`)}
                     inputMode="decimal"
                     className={cell}
                     {...register(`injectors.deadTime.voltages.${i}`, n)}
@@ -116,6 +123,7 @@ export function DeadTimeGrid({
                   <td key={j} className="px-1">
                     <input
                       aria-label={`Dead time at row ${i + 1}, column ${j + 1} (ms)`}
+                      aria-invalid={bad(`injectors.deadTime.deadTimeMs.${i}.${j}`)}
                       inputMode="decimal"
                       className={cell}
                       {...register(`injectors.deadTime.deadTimeMs.${i}.${j}`, n)}

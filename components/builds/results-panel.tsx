@@ -2,14 +2,20 @@
 
 import { Signal } from "@/components/ui/status";
 import {
-  converter,
-  toShown,
+  AN_SIZES,
+  DUTY_BAND_LABELS,
+  formatNumber,
+  formatResult,
+  formatTraceStep,
+  formatValue,
+  formatWarning,
+  LIMITED_BY_LABELS,
+  resultField,
+  SEVERITY_LABELS,
+  unitOf,
   type FuelSystemResult,
-  type Quantity,
   type UnitSystem,
 } from "@/lib/calc";
-
-const f = (n: number, d = 0) => (Number.isFinite(n) ? n.toFixed(d) : "—");
 
 function Figure({
   label,
@@ -32,6 +38,16 @@ function Figure({
   );
 }
 
+/** The number and the unit of a result figure apart, in the person's units (registry). */
+function split(path: string, value: number, units: UnitSystem, decimals?: number) {
+  const f = resultField(path);
+  const q = f?.quantity ?? "ratio";
+  return {
+    value: formatNumber(q, value, units, decimals ?? f?.decimals),
+    unit: unitOf(q, units),
+  };
+}
+
 export function ResultsPanel({
   result,
   error,
@@ -41,14 +57,6 @@ export function ResultsPanel({
   error?: string;
   units?: UnitSystem;
 }) {
-  /** A canonical figure in the person's units: [value, unit]. */
-  const q = (quantity: Quantity, v: number, d?: number): [string, string] => {
-    const c = converter(quantity, units);
-    return [
-      Number.isFinite(v) ? toShown(quantity, v, units).toFixed(d ?? c.decimals) : "—",
-      c.unit,
-    ];
-  };
   if (!result) {
     return (
       <div
@@ -62,102 +70,120 @@ export function ResultsPanel({
   }
   const r = result;
   const band = { ok: "ok", caution: "caution", danger: "danger", static: "danger" } as const;
+  const fig = (
+    label: string,
+    path: string,
+    value: number,
+    testId?: string,
+    decimals?: number,
+    unitNote = "",
+  ) => {
+    const s = split(path, value, units, decimals);
+    return (
+      <Figure
+        key={path}
+        label={label}
+        value={s.value}
+        unit={`${s.unit}${unitNote}`}
+        testId={testId}
+      />
+    );
+  };
+  const redline = r.injector.pulseWidthRedline;
+  const beyondLargest = `larger than ${formatValue("anDash", AN_SIZES[AN_SIZES.length - 1]!.dash, units)}`;
+  const ceiling = split("powerCeiling.kw", r.powerCeiling.kw, units);
+  const headroom = r.powerCeiling.headroomPct;
   return (
     <div aria-live="polite" className="space-y-4">
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Injectors</h2>
         <dl className="mt-3 grid grid-cols-2 gap-4 sm:grid-cols-3">
-          <Figure
-            label={`Duty at E${f(r.blend.rich.ethanolVolPct)}`}
-            value={f(r.blend.rich.dutyPct, 1)}
-            unit="%"
-            testId="duty-rich"
-          />
-          <Figure
-            label={`Duty at E${f(r.blend.lean.ethanolVolPct)}`}
-            value={f(r.blend.lean.dutyPct, 1)}
-            unit="%"
-          />
-          <Figure
-            label="Smallest rating"
-            value={q("injectorFlow", r.injector.requiredRatedFlowCcPerMin)[0]}
-            unit={q("injectorFlow", 0)[1]}
-          />
-          <Figure
-            label="Pulse at redline"
-            value={f(
-              r.injector.pulseWidthRedline.commandedMs ?? r.injector.pulseWidthRedline.effectiveMs,
-              2,
-            )}
-            unit={r.injector.pulseWidthRedline.commandedMs === null ? "ms open" : "ms"}
-          />
-          <Figure
-            label="Pulse at idle"
-            value={f(r.injector.pulseWidthIdle.effectiveMs, 2)}
-            unit="ms open"
-          />
-          <Figure
-            label="ΔP at full boost"
-            value={q("pressure", r.injector.differentialPressureKpa)[0]}
-            unit={q("pressure", 0)[1]}
-          />
+          {fig(
+            `Duty at ${formatValue("ethanol", r.blend.rich.ethanolVolPct, units)}`,
+            "blend.rich.dutyPct",
+            r.blend.rich.dutyPct,
+            "duty-rich",
+          )}
+          {fig(
+            `Duty at ${formatValue("ethanol", r.blend.lean.ethanolVolPct, units)}`,
+            "blend.lean.dutyPct",
+            r.blend.lean.dutyPct,
+          )}
+          {fig(
+            "Smallest rating",
+            "injector.requiredRatedFlowCcPerMin",
+            r.injector.requiredRatedFlowCcPerMin,
+          )}
+          {redline.commandedMs === null
+            ? fig(
+                "Pulse at redline",
+                "injector.pulseWidthRedline.effectiveMs",
+                redline.effectiveMs,
+                undefined,
+                undefined,
+                " open",
+              )
+            : fig(
+                "Pulse at redline",
+                "injector.pulseWidthRedline.commandedMs",
+                redline.commandedMs,
+              )}
+          {fig(
+            "Pulse at idle",
+            "injector.pulseWidthIdle.effectiveMs",
+            r.injector.pulseWidthIdle.effectiveMs,
+            undefined,
+            undefined,
+            " open",
+          )}
+          {fig(
+            "ΔP at full boost",
+            "injector.differentialPressureKpa",
+            r.injector.differentialPressureKpa,
+          )}
         </dl>
         <div className="mt-3">
-          <Signal level={band[r.injector.dutyBand]}>
-            {
-              {
-                ok: "Duty fine",
-                caution: "Duty high",
-                danger: "Duty too high",
-                static: "Injectors static",
-              }[r.injector.dutyBand]
-            }
-          </Signal>
+          <Signal level={band[r.injector.dutyBand]}>{DUTY_BAND_LABELS[r.injector.dutyBand]}</Signal>
         </div>
       </section>
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Pump and lines</h2>
         <dl className="mt-3 grid grid-cols-2 gap-4 sm:grid-cols-3">
-          <Figure
-            label="Demand"
-            value={q("volumeFlow", r.pump.demandLPerH)[0]}
-            unit={q("volumeFlow", 0)[1]}
-          />
-          <Figure
-            label="Supply"
-            value={q("volumeFlow", r.pump.supplyLPerH)[0]}
-            unit={q("volumeFlow", 0)[1]}
-          />
-          <Figure label="Margin" value={f(r.pump.marginPct)} unit="%" testId="pump-margin" />
-          <Figure
-            label="Rail pressure"
-            value={q("pressure", r.pump.railPressureKpa)[0]}
-            unit={q("pressure", 0)[1]}
-          />
+          {fig("Demand", "pump.demandLPerH", r.pump.demandLPerH)}
+          {fig("Supply", "pump.supplyLPerH", r.pump.supplyLPerH)}
+          {fig("Margin", "pump.marginPct", r.pump.marginPct, "pump-margin")}
+          {fig("Rail pressure", "pump.railPressureKpa", r.pump.railPressureKpa)}
           <Figure
             label="Feed line"
-            value={r.lines.recommendedFeedDash ? `−${r.lines.recommendedFeedDash}` : "> −12"}
-            unit="AN"
+            value={
+              r.lines.recommendedFeedDash
+                ? formatResult("lines.recommendedFeedDash", r.lines.recommendedFeedDash, units)
+                : beyondLargest
+            }
+            unit=""
           />
           <Figure
             label="Return line"
-            value={r.lines.recommendedReturnDash ? `−${r.lines.recommendedReturnDash}` : "> −12"}
-            unit="AN"
+            value={
+              r.lines.recommendedReturnDash
+                ? formatResult("lines.recommendedReturnDash", r.lines.recommendedReturnDash, units)
+                : beyondLargest
+            }
+            unit=""
           />
         </dl>
       </section>
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Power ceiling</h2>
         <p className="figure mt-2 text-3xl font-bold" data-testid="ceiling">
-          {q("power", r.powerCeiling.kw)[0]}{" "}
-          <span className="text-base font-normal">{q("power", 0)[1]} crank</span>
+          {ceiling.value} <span className="text-base font-normal">{ceiling.unit} crank</span>
         </p>
         <p className="text-sm text-ink-700">
-          Limited by the {r.powerCeiling.limitedBy};{" "}
-          {r.powerCeiling.headroomPct >= 0
-            ? `${f(r.powerCeiling.headroomPct)} % above`
-            : `▲ ${f(-r.powerCeiling.headroomPct)} % below`}{" "}
-          the {q("power", r.crankPowerKw).join(" ")} crank target.
+          Limited by {LIMITED_BY_LABELS[r.powerCeiling.limitedBy]};{" "}
+          {headroom >= 0
+            ? `${formatValue("percent", headroom, units, 0)} above`
+            : `▲ ${formatValue("percent", -headroom, units, 0)} below`}{" "}
+          the {formatResult("crankPowerKw", r.crankPowerKw, units)} crank target.
         </p>
       </section>
       <section aria-labelledby="warn" className="rounded-lg border border-ink-200 bg-white p-5">
@@ -166,36 +192,36 @@ export function ResultsPanel({
         </h2>
         {r.warnings.length === 0 ? <p className="mt-2 text-sm text-ok-700">✓ None.</p> : null}
         <ul className="mt-2 space-y-3" data-testid="warnings">
-          {r.warnings.map((w) => (
-            <li key={w.code} className="text-sm">
-              <Signal level={w.severity}>
-                {w.severity === "info" ? "Note" : w.severity === "caution" ? "Caution" : "Danger"}
-              </Signal>{" "}
-              <span>{w.message}</span>
-              {w.fix ? <p className="mt-1 pl-1 text-ink-600">→ {w.fix}</p> : null}
-            </li>
-          ))}
+          {r.warnings.map((raw) => {
+            const w = formatWarning(raw, units);
+            return (
+              <li key={w.code} className="text-sm">
+                <Signal level={w.severity}>{SEVERITY_LABELS[w.severity]}</Signal>{" "}
+                <span>{w.message}</span>
+                {w.fix ? <p className="mt-1 pl-1 text-ink-600">→ {w.fix}</p> : null}
+              </li>
+            );
+          })}
         </ul>
       </section>
       <details className="rounded-lg border border-ink-200 bg-white p-5">
         <summary className="cursor-pointer font-semibold">
           How these numbers were worked out
         </summary>
-        <ol className="mt-3 space-y-3 text-sm">
-          {r.trace.map((s) => (
-            <li key={s.id}>
-              <p className="font-medium">
-                {s.label} ={" "}
-                <span className="figure">
-                  {f(s.value, 2)} {s.unit}
-                </span>
-              </p>
-              <p className="text-ink-600">
-                {s.formula}:{" "}
-                {s.inputs.map((i) => `${i.label} ${f(i.value, 3)} ${i.unit}`).join(", ")}
-              </p>
-            </li>
-          ))}
+        <ol className="mt-3 space-y-3 text-sm" data-testid="working">
+          {r.trace.map((raw) => {
+            const s = formatTraceStep(raw, units);
+            return (
+              <li key={s.id}>
+                <p className="font-medium">
+                  {s.label} = <span className="figure">{s.value}</span>
+                </p>
+                <p className="text-ink-600">
+                  {s.formula}: {s.inputs.join(", ")}
+                </p>
+              </li>
+            );
+          })}
         </ol>
       </details>
     </div>

@@ -18,6 +18,15 @@ import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
+import {
+  formatValue,
+  formatWarning,
+  SEVERITY_LABELS,
+  toShown,
+  unitOf,
+  type UnitSystem,
+  type Warning,
+} from "@/lib/calc";
 import { analyseDatalogAction, verifyDatalogAction } from "@/lib/dyno/dyno-actions";
 import { fetcher } from "@/lib/fetcher";
 
@@ -53,12 +62,7 @@ interface Analysis {
   } | null;
   measuredFlow: { ccPerMin: number; gPerMin: number } | null;
   measuredBsfc: { gPerKwh: number; atRpm: number; powerKw: number } | null;
-  warnings: {
-    code: string;
-    severity: "info" | "caution" | "danger";
-    message: string;
-    fix?: string;
-  }[];
+  warnings: Warning[];
   targetLambda: number;
   predictedPeakDutyPct: number;
 }
@@ -165,6 +169,7 @@ export function DynoWorkbench({
   logs,
   canUpload,
   verifyRefusal,
+  units = "metric",
 }: {
   buildId: string;
   logs: LogItem[];
@@ -174,6 +179,8 @@ export function DynoWorkbench({
    * the dyno command's own rule), or null when it is.
    */
   verifyRefusal: string | null;
+  /** The person's unit system: figures and flags are shown in it. */
+  units?: UnitSystem;
 }) {
   const router = useRouter();
   const [selected, setSelected] = useState<string | null>(logs[0]?.id ?? null);
@@ -258,7 +265,13 @@ export function DynoWorkbench({
         </div>
       </aside>
       {selected ? (
-        <LogPanel key={selected} id={selected} canWrite={canUpload} verifyRefusal={verifyRefusal} />
+        <LogPanel
+          key={selected}
+          id={selected}
+          canWrite={canUpload}
+          verifyRefusal={verifyRefusal}
+          units={units}
+        />
       ) : (
         <p className="text-ink-600">Upload a log to compare the measured pull with the sizing.</p>
       )}
@@ -270,11 +283,15 @@ function LogPanel({
   id,
   canWrite,
   verifyRefusal,
+  units,
 }: {
   id: string;
   canWrite: boolean;
   verifyRefusal: string | null;
+  units: UnitSystem;
 }) {
+  const v = (q: Parameters<typeof formatValue>[0], x: number, d?: number) =>
+    formatValue(q, x, units, d);
   const router = useRouter();
   const { data, error } = useSWR<View>(`/api/v1/datalogs/${id}`, fetcher);
   const [mapping, setMapping] = useState<Mapping | null>(null);
@@ -446,16 +463,16 @@ function LogPanel({
               label="Peak duty, measured"
               value={
                 a.peakDuty
-                  ? `${a.peakDuty.pct.toFixed(1)} % at ${Math.round(a.peakDuty.rpm)} rpm`
+                  ? `${v("percent", a.peakDuty.pct)} at ${v("speed", a.peakDuty.rpm)}`
                   : "—"
               }
             />
-            <Figure label="Peak duty, predicted" value={`${a.predictedPeakDutyPct.toFixed(1)} %`} />
+            <Figure label="Peak duty, predicted" value={v("percent", a.predictedPeakDutyPct)} />
             <Figure
               label="Worst lambda error"
               value={
                 a.lambda
-                  ? `${a.lambda.worstError >= 0 ? "+" : ""}${a.lambda.worstError.toFixed(3)} at ${Math.round(a.lambda.worstAtRpm)} rpm (target ${a.targetLambda.toFixed(2)})`
+                  ? `${a.lambda.worstError >= 0 ? "+" : ""}${v("ratio", a.lambda.worstError, 3)} at ${v("speed", a.lambda.worstAtRpm)} (target ${v("lambda", a.targetLambda)})`
                   : "not logged"
               }
             />
@@ -463,7 +480,7 @@ function LogPanel({
               label="Fuel-pressure differential"
               value={
                 a.fuelPressure
-                  ? `${a.fuelPressure.lowBoostDiffKpa.toFixed(0)} → ${a.fuelPressure.fullBoostDiffKpa.toFixed(0)} kPa under boost`
+                  ? `${v("pressure", a.fuelPressure.lowBoostDiffKpa)} → ${v("pressure", a.fuelPressure.fullBoostDiffKpa)} under boost`
                   : "not logged"
               }
             />
@@ -471,7 +488,7 @@ function LogPanel({
               label="Fuel flow at peak duty"
               value={
                 a.measuredFlow
-                  ? `${a.measuredFlow.ccPerMin.toFixed(0)} cc/min (${a.measuredFlow.gPerMin.toFixed(0)} g/min)`
+                  ? `${v("volumeFlow", (a.measuredFlow.ccPerMin * 60) / 1000)} (${v("massFlow", a.measuredFlow.gPerMin)})`
                   : "—"
               }
             />
@@ -479,7 +496,7 @@ function LogPanel({
               label="Measured BSFC"
               value={
                 a.measuredBsfc
-                  ? `${a.measuredBsfc.gPerKwh.toFixed(0)} g/kWh at ${a.measuredBsfc.powerKw.toFixed(0)} kW`
+                  ? `${v("bsfc", a.measuredBsfc.gPerKwh)} at ${v("power", a.measuredBsfc.powerKw)}`
                   : "power not logged"
               }
             />
@@ -488,15 +505,18 @@ function LogPanel({
             {a.warnings.length === 0 ? (
               <Signal level="ok">No flags: the pull stayed inside the limits</Signal>
             ) : (
-              a.warnings.map((w) => (
-                <p key={w.code} className="text-sm">
-                  <Signal level={w.severity}>{w.severity}</Signal> {w.message}
-                  {w.fix ? ` ${w.fix}` : ""}
-                </p>
-              ))
+              a.warnings.map((raw) => {
+                const w = formatWarning(raw, units);
+                return (
+                  <p key={w.code} className="text-sm">
+                    <Signal level={w.severity}>{SEVERITY_LABELS[w.severity]}</Signal> {w.message}
+                    {w.fix ? ` ${w.fix}` : ""}
+                  </p>
+                );
+              })
             )}
           </section>
-          <PullChart points={result.series} />
+          <PullChart points={result.series} units={units} />
         </>
       ) : null}
     </div>
@@ -512,7 +532,11 @@ function Figure({ label, value }: { label: string; value: string }) {
   );
 }
 
-function PullChart({ points }: { points: Point[] }) {
+function PullChart({ points, units }: { points: Point[]; units: UnitSystem }) {
+  const shown = points.map((p) => ({
+    ...p,
+    fuelDiff: p.fuelDiffKpa === null ? null : toShown("pressure", p.fuelDiffKpa, units),
+  }));
   return (
     <figure className="rounded-lg border border-ink-200 bg-white p-4" data-testid="pull-chart">
       <figcaption className="mb-2 font-semibold">
@@ -520,7 +544,7 @@ function PullChart({ points }: { points: Point[] }) {
       </figcaption>
       <div className="h-72" role="img" aria-label="Chart of the pull against engine speed">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={points} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+          <LineChart data={shown} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
             <CartesianGrid stroke="#e6eaee" />
             <XAxis
               dataKey="rpm"
@@ -576,8 +600,8 @@ function PullChart({ points }: { points: Point[] }) {
             />
             <Line
               yAxisId="kpa"
-              dataKey="fuelDiffKpa"
-              name="fuel ΔP (kPa)"
+              dataKey="fuelDiff"
+              name={`fuel ΔP (${unitOf("pressure", units)})`}
               stroke={TEAL}
               dot={false}
               isAnimationActive={false}

@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
 import { chooseKitAction } from "@/lib/builds/build-actions";
+import { fillTemplate, type UnitSystem } from "@/lib/calc";
 import { formatMoney } from "@/lib/catalog/money";
 import type { Candidate } from "@/lib/catalog/recommend";
 import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
@@ -28,11 +29,14 @@ export function KitPicker({
   currency,
   canChoose,
   canQuote,
+  units = "metric",
 }: {
   buildId: string;
   currency: string;
   canChoose: boolean;
   canQuote: boolean;
+  /** The person's unit system: the reasons' figures are read in it. */
+  units?: UnitSystem;
 }) {
   const router = useRouter();
   const { data, error, isLoading, mutate } = useSWR<Kit>(`/api/v1/builds/${buildId}/kit`, fetcher);
@@ -156,7 +160,9 @@ export function KitPicker({
                     ) : (
                       <Signal level="danger">Does not fit</Signal>
                     )}
-                    <span className="block text-ink-700">{c.why.join("; ")}</span>
+                    <span className="block text-ink-700">
+                      {c.why.map((r) => fillTemplate(r.text, r.params, units)).join("; ")}
+                    </span>
                   </span>
                 </label>
               </li>

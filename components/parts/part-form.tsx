@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useRef, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { EditConflict } from "@/components/ui/edit-conflict";
@@ -78,6 +78,7 @@ export function PartForm({
   // A stale save: the part as saved meanwhile. What was typed stays in `values`.
   const [conflict, setConflict] = useState<StoredPart | null>(null);
   const [version, setVersion] = useState(loadedVersion);
+  const formRef = useRef<HTMLFormElement>(null);
   const category = (values.category || "injector") as PartCategory;
   const set = (k: keyof FlatPart) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     setValues((v) => ({ ...v, [k]: e.target.value }));
@@ -107,6 +108,10 @@ export function PartForm({
       ),
     );
     setStatus({ ok: false, message: res.message ?? "Not saved" });
+    // Once the messages are drawn, go to the first highlighted field.
+    requestAnimationFrame(() =>
+      formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus(),
+    );
   };
 
   // Every field the form holds is sent, with the version it was loaded at; the update changes
@@ -127,6 +132,7 @@ export function PartForm({
 
   return (
     <form
+      ref={formRef}
       noValidate
       className="max-w-3xl space-y-4"
       onSubmit={(e) => {

@@ -7,6 +7,7 @@ import useSWR from "swr";
 import { SelectField } from "@/components/ui/field";
 import { EmptyState } from "@/components/ui/status";
 import type { Part } from "@/db/schema/catalog";
+import type { UnitSystem } from "@/lib/calc";
 import { specSummary } from "@/lib/catalog/labels";
 import { formatMoney } from "@/lib/catalog/money";
 import { CATEGORY_LABELS, PART_CATEGORIES } from "@/lib/domain/parts";
@@ -15,7 +16,16 @@ import { fetcher } from "@/lib/fetcher";
 import { StockBadge } from "./stock-badge";
 
 /** The catalog table, searched, filtered and sorted through GET /api/v1/parts. */
-export function PartsTable({ currency, canEdit }: { currency: string; canEdit: boolean }) {
+export function PartsTable({
+  currency,
+  canEdit,
+  units = "metric",
+}: {
+  currency: string;
+  canEdit: boolean;
+  /** The person's unit system: the parts' figures are shown in it. */
+  units?: UnitSystem;
+}) {
   const [q, setQ] = useState("");
   const [category, setCategory] = useState("");
   const [sort, setSort] = useState("name");
@@ -129,7 +139,7 @@ export function PartsTable({ currency, canEdit }: { currency: string; canEdit: b
                   </td>
                   <td className="px-4 py-2">{CATEGORY_LABELS[p.category]}</td>
                   <td className="px-4 py-2 text-ink-700">
-                    {specSummary(p.category, p.specs as Record<string, unknown>)}
+                    {specSummary(p.category, p.specs as Record<string, unknown>, units)}
                   </td>
                   <td className="figure px-4 py-2 text-right">
                     {formatMoney(p.priceMinor, currency)}

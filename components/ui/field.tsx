@@ -1,7 +1,7 @@
 import type { ComponentProps, InputHTMLAttributes, ReactNode, TextareaHTMLAttributes } from "react";
 
 const control =
-  "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30 aria-[invalid=true]:border-danger-600";
+  "mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 text-base text-ink-900 shadow-sm focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30 aria-[invalid=true]:border-danger-600 aria-[invalid=true]:ring-2 aria-[invalid=true]:ring-danger-600/30";
 
 const bareControl =
   "block rounded-md border border-ink-300 bg-white px-3 py-2 text-ink-900 focus:border-copper-500 focus:outline-none focus:ring-2 focus:ring-copper-500/30";

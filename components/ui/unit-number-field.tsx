@@ -25,7 +25,7 @@ export function UnitNumberField({
         inputMode="decimal"
         aria-invalid={Boolean(error)}
         aria-describedby={error ? `${id}-err` : undefined}
-        className="figure mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 aria-[invalid=true]:border-danger-600"
+        className="figure mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 aria-[invalid=true]:border-danger-600 aria-[invalid=true]:ring-2 aria-[invalid=true]:ring-danger-600/30"
         {...input}
       />
       {error ? (

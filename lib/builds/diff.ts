@@ -1,4 +1,13 @@
-import { converter, quantityOf, toShown, type FuelSystemResult, type UnitSystem } from "@/lib/calc";
+import {
+  formatInput,
+  formatResult,
+  INPUT_FIELDS,
+  KEY_FIGURES,
+  labelOf,
+  resultField,
+  type FuelSystemResult,
+  type UnitSystem,
+} from "@/lib/calc";
 
 /** Every leaf of a JSON value by dotted path ("pumps.0.curves.0.voltage"). */
 export function flatten(
@@ -23,54 +32,6 @@ export function stableJson(value: unknown): string {
   );
 }
 
-const LABELS: Record<string, string> = {
-  "engine.cylinders": "Cylinders",
-  "engine.displacementL": "Displacement",
-  "engine.aspiration": "Aspiration",
-  "engine.redlineRpm": "Redline",
-  "engine.idleRpm": "Idle",
-  "engine.maxBoostKpa": "Boost",
-  "target.powerKw": "Target power",
-  "target.measuredAt": "Measured at",
-  "target.drivetrainLossPct": "Drivetrain loss",
-  "fuel.ethanolMinVolPct": "Lowest ethanol",
-  "fuel.ethanolMaxVolPct": "Highest ethanol",
-  "fuel.bsfcGPerKwh": "BSFC",
-  "fuel.targetLambda": "Target lambda",
-  "injectors.count": "Injectors",
-  "injectors.ratedFlowCcPerMin": "Injector rated flow",
-  "injectors.ratedPressureKpa": "Injector rated pressure",
-  "injectors.minPulseWidthMs": "Minimum pulse width",
-  "regulator.type": "Regulator",
-  "regulator.basePressureKpa": "Base pressure",
-  "electrical.voltageAtPump": "Voltage at the pump",
-  "electrical.wiring.sourceVoltage": "Wiring: supply voltage",
-  "electrical.wiring.gaugeAwg": "Wiring: gauge (AWG)",
-  "electrical.wiring.roundTripLengthM": "Wiring: length there and back",
-  "electrical.wiring.currentA": "Wiring: pump current",
-};
-const LINE_FIELDS: Record<string, string> = {
-  insideDiameterMm: "inside diameter",
-  lengthM: "length",
-  roughnessMm: "roughness",
-  fittingsK: "fittings K",
-  filterDropKpa: "filter drop",
-};
-const PUMP_FIELDS: Record<string, string> = { pressureKpa: "pressure", flowLPerH: "flow" };
-
-/** A readable name for an input path; unknown paths read as their path. */
-export function labelOf(path: string): string {
-  const line = /^lines\.(feed|return)\.(\w+)$/.exec(path);
-  if (line)
-    return `${line[1] === "feed" ? "Feed" : "Return"} line ${LINE_FIELDS[line[2]!] ?? line[2]}`;
-  const pt = /^pumps\.(\d+)\.curves\.(\d+)\.points\.(\d+)\.(\w+)$/.exec(path);
-  if (pt)
-    return `Pump ${Number(pt[1]) + 1} curve ${Number(pt[2]) + 1} point ${Number(pt[3]) + 1} ${PUMP_FIELDS[pt[4]!] ?? pt[4]}`;
-  return (
-    LABELS[path] ?? path.replace(/\.(\d+)/g, (_m, i) => ` ${Number(i) + 1}`).replace(/\./g, " › ")
-  );
-}
-
 export interface InputChange {
   path: string;
   label: string;
@@ -78,81 +39,64 @@ export interface InputChange {
   after: string;
 }
 
-function shown(
-  path: string,
-  v: string | number | boolean | null | undefined,
-  units: UnitSystem,
-): string {
-  if (v === undefined || v === null) return "—";
-  if (typeof v !== "number") return String(v);
-  const q = quantityOf(path);
-  return q ? `${toShown(q, v, units)} ${converter(q, units).unit}` : String(v);
+let inputOrder: Map<string, number> | null = null;
+/** Paths in the order of the build sheet (the registry's order), unknown ones last. */
+function byRegistryOrder(paths: string[]): string[] {
+  inputOrder ??= new Map(Object.keys(INPUT_FIELDS).map((k, i) => [k, i]));
+  const rank = (p: string) =>
+    inputOrder!.get(p.replace(/(^|\.)\d+(?=\.|$)/g, "$1*")) ?? Number.MAX_SAFE_INTEGER;
+  return [...paths].sort(
+    (a, b) => rank(a) - rank(b) || a.localeCompare(b, "en", { numeric: true }),
+  );
 }
 
-/** What changed from `a` to `b` in a build's inputs, in the person's units. */
+/** What changed from `a` to `b` in a build's inputs: labels, values in the person's units. */
 export function diffInputs(a: unknown, b: unknown, units: UnitSystem): InputChange[] {
   const fa = flatten(a);
   const fb = flatten(b);
-  const paths = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
+  const paths = byRegistryOrder([...new Set([...Object.keys(fa), ...Object.keys(fb)])]);
   return paths
     .filter((p) => fa[p] !== fb[p])
     .map((p) => ({
       path: p,
       label: labelOf(p),
-      before: shown(p, fa[p], units),
-      after: shown(p, fb[p], units),
+      before: formatInput(p, fa[p], units),
+      after: formatInput(p, fb[p], units),
     }));
 }
 
+export type Verdict = "better" | "worse" | "same" | "changed";
+
 export interface KeyFigure {
+  path: string;
   label: string;
   before: string;
   after: string;
   changed: boolean;
+  /** From the registry's direction for the figure; "changed" where neither way is better. */
+  verdict: Verdict;
 }
 
-/** The headline figures of two results side by side. */
+const pick = (r: FuelSystemResult | null, path: string): unknown =>
+  r ? path.split(".").reduce<unknown>((o, k) => (o as Record<string, unknown>)?.[k], r) : undefined;
+
+/** The headline figures of two results side by side, each marked better or worse. */
 export function compareKeyFigures(
   a: FuelSystemResult | null,
   b: FuelSystemResult | null,
   units: UnitSystem,
 ): KeyFigure[] {
-  const fig = (
-    r: FuelSystemResult | null,
-    pick: (r: FuelSystemResult) => number,
-    q?: Parameters<typeof toShown>[0],
-    unit = "",
-    d = 1,
-  ) => {
-    if (!r) return "—";
-    const v = pick(r);
-    if (!Number.isFinite(v)) return "—";
-    return q ? `${toShown(q, v, units)} ${converter(q, units).unit}` : `${v.toFixed(d)}${unit}`;
-  };
-  const rows: [
-    string,
-    (r: FuelSystemResult) => number,
-    Parameters<typeof toShown>[0] | undefined,
-    string,
-    number,
-  ][] = [
-    ["Duty at the richest blend", (r) => r.blend.rich.dutyPct, undefined, " %", 1],
-    [
-      "Smallest injector rating",
-      (r) => r.injector.requiredRatedFlowCcPerMin,
-      "injectorFlow",
-      "",
-      0,
-    ],
-    ["Pump demand", (r) => r.pump.demandLPerH, "volumeFlow", "", 0],
-    ["Pump supply", (r) => r.pump.supplyLPerH, "volumeFlow", "", 0],
-    ["Pump margin", (r) => r.pump.marginPct, undefined, " %", 0],
-    ["Rail pressure", (r) => r.pump.railPressureKpa, "pressure", "", 0],
-    ["Power ceiling (crank)", (r) => r.powerCeiling.kw, "power", "", 0],
-  ];
-  return rows.map(([label, pick, q, unit, d]) => {
-    const before = fig(a, pick, q, unit, d);
-    const after = fig(b, pick, q, unit, d);
-    return { label, before, after, changed: before !== after };
+  return KEY_FIGURES.map((path) => {
+    const f = resultField(path)!;
+    const va = pick(a, path);
+    const vb = pick(b, path);
+    const before = formatResult(path, va, units);
+    const after = formatResult(path, vb, units);
+    const changed = before !== after;
+    let verdict: Verdict = changed ? "changed" : "same";
+    if (changed && f.better && typeof va === "number" && typeof vb === "number") {
+      verdict = (f.better === "higher" ? vb > va : vb < va) ? "better" : "worse";
+    }
+    return { path, label: f.label, before, after, changed, verdict };
   });
 }

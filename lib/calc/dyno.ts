@@ -133,24 +133,37 @@ export function analyzePull(samples: PullSample[], c: PullContext): PullAnalysis
     warnings.push({
       code: "log-duty-danger",
       severity: "danger",
-      message: `Measured duty reached ${peak.pct.toFixed(1)} % at ${Math.round(peak.rpm)} rpm, above the ${c.dutyDangerPct} % limit.`,
+      message: "Measured duty reached {duty} at {rpm}, above the {limit} limit.",
       fix: "Fit larger injectors or raise the fuel pressure.",
+      params: {
+        duty: { value: peak.pct, quantity: "percent" },
+        rpm: { value: peak.rpm, quantity: "speed" },
+        limit: { value: c.dutyDangerPct, quantity: "percent", decimals: 0 },
+      },
     });
   }
   if (lambda && lambda.worstError > 0.05) {
     warnings.push({
       code: "log-lambda-lean",
       severity: "danger",
-      message: `Lambda ran ${lambda.worstError.toFixed(2)} leaner than the target at ${Math.round(lambda.worstAtRpm)} rpm.`,
+      message: "Lambda ran {error} leaner than the target at {rpm}.",
       fix: "Stop pulls until the fuelling is corrected; check duty, pressure and the fuel's ethanol content.",
+      params: {
+        error: { value: lambda.worstError, quantity: "ratio" },
+        rpm: { value: lambda.worstAtRpm, quantity: "speed" },
+      },
     });
   }
   if (fuelPressure && fuelPressure.dropPct > 5) {
     warnings.push({
       code: "log-fuel-pressure-falls",
       severity: fuelPressure.dropPct > 10 ? "danger" : "caution",
-      message: `The fuel-pressure differential fell ${fuelPressure.dropKpa.toFixed(0)} kPa (${fuelPressure.dropPct.toFixed(0)} %) under boost.`,
+      message: "The fuel-pressure differential fell {drop} ({dropPct}) under boost.",
       fix: "The pump or regulator is not keeping up: check voltage at the pump, the filter, and the pump's margin.",
+      params: {
+        drop: { value: fuelPressure.dropKpa, quantity: "pressure" },
+        dropPct: { value: fuelPressure.dropPct, quantity: "percent", decimals: 0 },
+      },
     });
   }
   return {

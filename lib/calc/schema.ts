@@ -165,6 +165,10 @@ export const PumpCurveSchema = z
     {
       path: ["points"],
       message: "Each pressure may appear once on a curve, at least 1 kPa from the next",
+      params: {
+        template: "Each pressure may appear once on a curve, at least {gap} from the next",
+        figures: { gap: { value: 1, quantity: "pressureDrop" } },
+      },
     },
   );
 
@@ -237,6 +241,14 @@ export const FuelSystemInputSchema = z
         code: "custom",
         path: ["regulator", "basePressureKpa"],
         message: `With a fixed regulator the base pressure must exceed the boost by at least 50 kPa (boost is ${s.engine.maxBoostKpa} kPa)`,
+        params: {
+          template:
+            "With a fixed regulator the base pressure must exceed the boost by at least {gap} (boost is {boost})",
+          figures: {
+            gap: { value: 50, quantity: "pressure" },
+            boost: { value: s.engine.maxBoostKpa, quantity: "pressure" },
+          },
+        },
       });
     }
   });

@@ -12,8 +12,10 @@ import {
 import { AN_SIZES, linePressureDrop, type LineDrop } from "./lines";
 import { defaultBsfc } from "./power";
 import { pumpMarginPct, pumpSupplyFunction } from "./pumps";
+import type { FigureParams } from "./quantities";
 import { FuelSystemInputSchema, type FuelSystemInput, type ParsedFuelSystemInput } from "./schema";
 import type { Severity, TraceStep, Warning } from "./types";
+import { INJECTOR_RATING_DENSITY_KG_PER_L } from "./units";
 import { wireVoltageDropV } from "./wire";
 
 /** Bumped whenever a formula or default changes, so saved results say what made them. */
@@ -114,6 +116,17 @@ const DEFAULT_LIMITS = {
   minPumpMarginPct: 25,
   maxLineDropKpa: 14,
 };
+/** Figures of a warning without numbers. */
+const NO_PARAMS: FigureParams = Object.freeze({}) as FigureParams;
+/** The rating fluid behind lb/h injector ratings: a constant only the imperial formulas need. */
+const RATING_FLUID = {
+  label: "rating fluid density",
+  value: INJECTOR_RATING_DENSITY_KG_PER_L,
+  quantity: "density",
+  only: "imperial",
+} as const;
+/** The largest hose size the recommendation tries. */
+const LARGEST_DASH = { value: AN_SIZES[AN_SIZES.length - 1]!.dash, quantity: "anDash" } as const;
 /** Line length assumed for a recommendation when the build gives none. */
 const ASSUMED_LINE_LENGTH_M = 5;
 
@@ -138,8 +151,13 @@ export function sizeFuelSystem(input: FuelSystemInput): FuelSystemResult {
 export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemResult {
   const t = new Tracer();
   const warnings: Warning[] = [];
-  const warn = (code: string, severity: Severity, message: string, fix?: string) =>
-    warnings.push({ code, severity, message, fix });
+  const warn = (
+    code: string,
+    severity: Severity,
+    message: string,
+    fix: string,
+    params: FigureParams = NO_PARAMS,
+  ) => warnings.push({ code, severity, message, fix, params });
   const { engine, target, fuel, injectors, regulator, pumps, electrical } = input;
   const l = input.limits;
   const limits = l
@@ -166,11 +184,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
           label: "Crank power",
           formula: "wheel power ÷ (1 − drivetrain loss)",
           inputs: [
-            { label: "wheel power", value: target.powerKw, unit: "kW" },
-            { label: "drivetrain loss", value: target.drivetrainLossPct, unit: "%" },
+            { label: "wheel power", value: target.powerKw, quantity: "power" },
+            { label: "drivetrain loss", value: target.drivetrainLossPct, quantity: "percent" },
           ],
           value: target.powerKw / (1 - target.drivetrainLossPct / 100),
-          unit: "kW",
+          quantity: "power",
         })
       : target.powerKw;
 
@@ -188,23 +206,23 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         ? "base pressure (the regulator follows boost 1:1)"
         : "base pressure − boost",
     inputs: [
-      { label: "base pressure", value: regulator.basePressureKpa, unit: "kPa" },
-      { label: "boost", value: engine.maxBoostKpa, unit: "kPa" },
+      { label: "base pressure", value: regulator.basePressureKpa, quantity: "pressure" },
+      { label: "boost", value: engine.maxBoostKpa, quantity: "pressure" },
     ],
     value: dpOp,
-    unit: "kPa",
+    quantity: "pressure",
   });
   const qOp = t.add({
     id: "injector-flow-op",
     label: "Injector flow at that pressure",
     formula: "rated flow × √(pressure across ÷ rated pressure)",
     inputs: [
-      { label: "rated flow", value: injectors.ratedFlowCcPerMin, unit: "cc/min" },
-      { label: "pressure across", value: dpOp, unit: "kPa" },
-      { label: "rated pressure", value: injectors.ratedPressureKpa, unit: "kPa" },
+      { label: "rated flow", value: injectors.ratedFlowCcPerMin, quantity: "injectorFlow" },
+      { label: "pressure across", value: dpOp, quantity: "pressure" },
+      { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
     ],
     value: injectors.ratedFlowCcPerMin * Math.sqrt(dpOp / injectors.ratedPressureKpa),
-    unit: "cc/min",
+    quantity: "injectorFlow",
   });
 
   // Voltage at the pump
@@ -217,13 +235,13 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       label: "Voltage at the pump",
       formula: "supply voltage − current × copper resistance of the wire (round trip)",
       inputs: [
-        { label: "supply voltage", value: electrical.wiring.sourceVoltage, unit: "V" },
-        { label: "current", value: electrical.wiring.currentA, unit: "A" },
-        { label: "gauge", value: electrical.wiring.gaugeAwg, unit: "AWG" },
-        { label: "length", value: electrical.wiring.roundTripLengthM, unit: "m" },
+        { label: "supply voltage", value: electrical.wiring.sourceVoltage, quantity: "voltage" },
+        { label: "current", value: electrical.wiring.currentA, quantity: "current" },
+        { label: "gauge", value: electrical.wiring.gaugeAwg, quantity: "wireGauge" },
+        { label: "length", value: electrical.wiring.roundTripLengthM, quantity: "length" },
       ],
       value: Math.max(0, electrical.wiring.sourceVoltage - wireDropV),
-      unit: "V",
+      quantity: "voltage",
     });
   }
 
@@ -236,7 +254,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     which: "lean" | "rich",
   ): { props: FuelBlend; end: BlendEnd } => {
     const b = fuelBlend(ethanolVolPct);
-    const tag = which === "lean" ? "lowest" : "highest";
+    const e = { ethanol: { value: ethanolVolPct, quantity: "ethanol" as const } };
     let bsfc: number;
     let bsfcSource: BlendEnd["bsfcSource"];
     if (fuel.bsfcGPerKwh !== undefined) {
@@ -252,81 +270,104 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       bsfcSource = "rule-of-thumb";
       bsfc = t.add({
         id: `bsfc-${which}`,
-        label: `BSFC at E${ethanolVolPct} (${tag} ethanol)`,
+        label:
+          which === "lean"
+            ? "BSFC at {ethanol} (lowest ethanol)"
+            : "BSFC at {ethanol} (highest ethanol)",
+        params: e,
         formula:
           "gasoline and E85 rules of thumb, linear in ethanol %, × reference lambda ÷ target lambda",
         inputs: [
-          { label: "at reference lambda", value: est.atReferenceGPerKwh, unit: "g/kWh" },
-          { label: "reference lambda", value: est.referenceLambda, unit: "λ" },
-          { label: "target lambda", value: fuel.targetLambda ?? est.referenceLambda, unit: "λ" },
+          { label: "at reference lambda", value: est.atReferenceGPerKwh, quantity: "bsfc" },
+          { label: "reference lambda", value: est.referenceLambda, quantity: "lambda" },
+          {
+            label: "target lambda",
+            value: fuel.targetLambda ?? est.referenceLambda,
+            quantity: "lambda",
+          },
         ],
         value: est.bsfcGPerKwh,
-        unit: "g/kWh",
+        quantity: "bsfc",
       });
     }
     const mdot = t.add({
       id: `fuel-mass-${which}`,
-      label: `Fuel needed at E${ethanolVolPct}`,
+      label: "Fuel needed at {ethanol}",
+      params: e,
       formula: "crank power × BSFC ÷ 60",
+      formulaImperial: "crank power × BSFC",
       inputs: [
-        { label: "crank power", value: crankPowerKw, unit: "kW" },
-        { label: "BSFC", value: bsfc, unit: "g/kWh" },
+        { label: "crank power", value: crankPowerKw, quantity: "power" },
+        { label: "BSFC", value: bsfc, quantity: "bsfc" },
       ],
       value: (crankPowerKw * bsfc) / 60,
-      unit: "g/min",
+      quantity: "massFlow",
     });
     const volLPerH = (mdot / b.densityKgPerL) * 0.06;
     const reqOp = t.add({
       id: `injector-required-${which}`,
-      label: `Flow each injector must give at E${ethanolVolPct}`,
+      label: "Flow each injector must give at {ethanol}",
+      params: e,
       formula: "fuel needed ÷ (density × injectors × design duty)",
+      formulaImperial:
+        "fuel needed × rating fluid density ÷ density ÷ (injectors × design duty), lb/h being rated with the rating fluid",
       inputs: [
-        { label: "fuel needed", value: mdot, unit: "g/min" },
-        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
-        { label: "injectors", value: n, unit: "" },
-        { label: "design duty", value: limits.designDutyPct, unit: "%" },
+        { label: "fuel needed", value: mdot, quantity: "massFlow" },
+        { label: "density", value: b.densityKgPerL, quantity: "density" },
+        { label: "injectors", value: n, quantity: "count" },
+        { label: "design duty", value: limits.designDutyPct, quantity: "percent", decimals: 0 },
+        RATING_FLUID,
       ],
       value: mdot / (b.densityKgPerL * n * design),
-      unit: "cc/min",
+      quantity: "injectorFlow",
     });
     const reqRated = t.add({
       id: `injector-rating-${which}`,
-      label: `Smallest injector rating at E${ethanolVolPct}`,
+      label: "Smallest injector rating at {ethanol}",
+      params: e,
       formula: "required flow × √(rated pressure ÷ pressure across)",
       inputs: [
-        { label: "required flow", value: reqOp, unit: "cc/min" },
-        { label: "rated pressure", value: injectors.ratedPressureKpa, unit: "kPa" },
-        { label: "pressure across", value: dpOp, unit: "kPa" },
+        { label: "required flow", value: reqOp, quantity: "injectorFlow" },
+        { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
+        { label: "pressure across", value: dpOp, quantity: "pressure" },
       ],
       value: reqOp * Math.sqrt(injectors.ratedPressureKpa / dpOp),
-      unit: "cc/min",
+      quantity: "injectorFlow",
     });
     const duty = t.add({
       id: `duty-${which}`,
-      label: `Injector duty at E${ethanolVolPct}`,
+      label: "Injector duty at {ethanol}",
+      params: e,
       formula: "fuel needed ÷ (density × injectors × injector flow) × 100",
+      formulaImperial:
+        "fuel needed × rating fluid density ÷ density ÷ (injectors × injector flow) × 100",
       inputs: [
-        { label: "fuel needed", value: mdot, unit: "g/min" },
-        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
-        { label: "injectors", value: n, unit: "" },
-        { label: "injector flow", value: qOp, unit: "cc/min" },
+        { label: "fuel needed", value: mdot, quantity: "massFlow" },
+        { label: "density", value: b.densityKgPerL, quantity: "density" },
+        { label: "injectors", value: n, quantity: "count" },
+        { label: "injector flow", value: qOp, quantity: "injectorFlow" },
+        RATING_FLUID,
       ],
       value: (100 * mdot) / (b.densityKgPerL * n * qOp),
-      unit: "%",
+      quantity: "percent",
     });
     const ceiling = t.add({
       id: `injector-ceiling-${which}`,
-      label: `Injector power ceiling at E${ethanolVolPct}`,
+      label: "Injector power ceiling at {ethanol}",
+      params: e,
       formula: "design duty × injectors × injector flow × density × 60 ÷ BSFC",
+      formulaImperial:
+        "design duty × injectors × injector flow × density ÷ rating fluid density ÷ BSFC",
       inputs: [
-        { label: "design duty", value: limits.designDutyPct, unit: "%" },
-        { label: "injectors", value: n, unit: "" },
-        { label: "injector flow", value: qOp, unit: "cc/min" },
-        { label: "density", value: b.densityKgPerL, unit: "kg/L" },
-        { label: "BSFC", value: bsfc, unit: "g/kWh" },
+        { label: "design duty", value: limits.designDutyPct, quantity: "percent", decimals: 0 },
+        { label: "injectors", value: n, quantity: "count" },
+        { label: "injector flow", value: qOp, quantity: "injectorFlow" },
+        { label: "density", value: b.densityKgPerL, quantity: "density" },
+        { label: "BSFC", value: bsfc, quantity: "bsfc" },
+        RATING_FLUID,
       ],
       value: (design * n * qOp * b.densityKgPerL * 60) / bsfc,
-      unit: "kW",
+      quantity: "power",
     });
     const effective = (duty / 100) * redlineCycle;
     const dt = dead(dpOp);
@@ -357,14 +398,18 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const { props: richProps, end: rich } = endOf(fuel.ethanolMaxVolPct, "rich");
   t.add({
     id: "pulse-redline",
-    label: `Effective pulse width at ${engine.redlineRpm} rpm (E${rich.ethanolVolPct})`,
-    formula: "duty × (120 000 ÷ rpm)",
+    label: "Effective pulse width at {rpm} ({ethanol})",
+    params: {
+      rpm: { value: engine.redlineRpm, quantity: "speed" },
+      ethanol: { value: rich.ethanolVolPct, quantity: "ethanol" },
+    },
+    formula: "duty × cycle, the cycle being 120 000 ÷ rpm",
     inputs: [
-      { label: "duty", value: rich.dutyPct, unit: "%" },
-      { label: "cycle", value: redlineCycle, unit: "ms" },
+      { label: "duty", value: rich.dutyPct, quantity: "percent" },
+      { label: "cycle", value: redlineCycle, quantity: "time" },
     ],
     value: rich.pulseWidthRedline.effectiveMs,
-    unit: "ms",
+    quantity: "time",
   });
 
   // Idle: the least fuel is needed at the lowest ethanol content.
@@ -386,17 +431,21 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const qIdle = injectors.ratedFlowCcPerMin * Math.sqrt(dpIdle / injectors.ratedPressureKpa);
   const idleEffective = t.add({
     id: "pulse-idle",
-    label: `Effective pulse width at idle (E${lean.ethanolVolPct}, λ 1)`,
-    formula: "fuel per injection ÷ density ÷ injector flow at idle pressure × 60 000",
+    label: "Effective pulse width at idle ({ethanol}, λ 1)",
+    params: { ethanol: { value: lean.ethanolVolPct, quantity: "ethanol" } },
+    formula: "fuel per injection ÷ (density × injector flow at idle pressure) × 60",
+    formulaImperial:
+      "fuel per injection ÷ (injector flow at idle pressure × density ÷ rating fluid density) × 7.937 (ms per mg at 1 lb/h)",
     inputs: [
-      { label: "air per cylinder", value: idleFuel.airMg, unit: "mg" },
-      { label: "fuel per injection", value: fuelPerInjectionMg, unit: "mg" },
-      { label: "density", value: leanProps.densityKgPerL, unit: "kg/L" },
-      { label: "pressure across at idle", value: dpIdle, unit: "kPa" },
-      { label: "injector flow at idle", value: qIdle, unit: "cc/min" },
+      { label: "air per cylinder", value: idleFuel.airMg, quantity: "mass" },
+      { label: "fuel per injection", value: fuelPerInjectionMg, quantity: "mass", decimals: 2 },
+      { label: "density", value: leanProps.densityKgPerL, quantity: "density" },
+      { label: "pressure across at idle", value: dpIdle, quantity: "pressure" },
+      { label: "injector flow at idle", value: qIdle, quantity: "injectorFlow" },
+      RATING_FLUID,
     ],
     value: (fuelPerInjectionMg / 1000 / leanProps.densityKgPerL / qIdle) * 60000,
-    unit: "ms",
+    quantity: "time",
   });
   const idleDead = dead(dpIdle);
 
@@ -463,60 +512,62 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         ? "base pressure + boost + filter and feed-line losses"
         : "base pressure + filter and feed-line losses",
     inputs: [
-      { label: "rail pressure", value: rail, unit: "kPa" },
-      { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, unit: "kPa" },
-      { label: "feed-line drop", value: feedDrop?.pressureDropKpa ?? 0, unit: "kPa" },
+      { label: "rail pressure", value: rail, quantity: "pressure" },
+      { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, quantity: "pressureDrop" },
+      { label: "feed-line drop", value: feedDrop?.pressureDropKpa ?? 0, quantity: "pressureDrop" },
     ],
     value: outlet,
-    unit: "kPa",
+    quantity: "pressure",
   });
   t.add({
     id: "pump-demand",
     label: `Fuel demand at E${rich.ethanolVolPct}`,
     formula: "fuel needed ÷ density × 0.06",
+    formulaImperial: "fuel needed ÷ density",
     inputs: [
-      { label: "fuel needed", value: rich.fuelMassFlowGPerMin, unit: "g/min" },
-      { label: "density", value: rich.densityKgPerL, unit: "kg/L" },
+      { label: "fuel needed", value: rich.fuelMassFlowGPerMin, quantity: "massFlow" },
+      { label: "density", value: rich.densityKgPerL, quantity: "density" },
     ],
     value: demand,
-    unit: "L/h",
+    quantity: "volumeFlow",
   });
   t.add({
     id: "pump-supply",
     label: "Pump supply",
     formula: "sum over pumps of quantity × flow on the curve at the outlet pressure and voltage",
     inputs: [
-      { label: "outlet pressure", value: outlet, unit: "kPa" },
-      { label: "voltage", value: voltageUsed, unit: "V" },
+      { label: "outlet pressure", value: outlet, quantity: "pressure" },
+      { label: "voltage", value: voltageUsed, quantity: "voltage" },
     ],
     value: supply.flowLPerH,
-    unit: "L/h",
+    quantity: "volumeFlow",
   });
   const margin = t.add({
     id: "pump-margin",
     label: "Pump margin",
     formula: "(supply ÷ demand − 1) × 100",
     inputs: [
-      { label: "supply", value: supply.flowLPerH, unit: "L/h" },
-      { label: "demand", value: demand, unit: "L/h" },
+      { label: "supply", value: supply.flowLPerH, quantity: "volumeFlow" },
+      { label: "demand", value: demand, quantity: "volumeFlow" },
     ],
     value: pumpMarginPct(supply.flowLPerH, demand),
-    unit: "%",
+    quantity: "percent",
   });
   const pumpCeiling = t.add({
     id: "pump-ceiling",
     label: "Pump power ceiling",
     formula: "supply ÷ (1 + minimum margin) × density × 1000 ÷ BSFC",
+    formulaImperial: "supply ÷ (1 + minimum margin) × density ÷ BSFC",
     inputs: [
-      { label: "supply", value: supply.flowLPerH, unit: "L/h" },
-      { label: "minimum margin", value: limits.minPumpMarginPct, unit: "%" },
-      { label: "density", value: rich.densityKgPerL, unit: "kg/L" },
-      { label: "BSFC", value: rich.bsfcGPerKwh, unit: "g/kWh" },
+      { label: "supply", value: supply.flowLPerH, quantity: "volumeFlow" },
+      { label: "minimum margin", value: limits.minPumpMarginPct, quantity: "percent", decimals: 0 },
+      { label: "density", value: rich.densityKgPerL, quantity: "density" },
+      { label: "BSFC", value: rich.bsfcGPerKwh, quantity: "bsfc" },
     ],
     value:
       ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * rich.densityKgPerL * 1000) /
       rich.bsfcGPerKwh,
-    unit: "kW",
+    quantity: "power",
   });
 
   // Idle: the return line carries almost the whole pump flow.
@@ -558,14 +609,14 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       label: "Feed-line pressure drop at full load",
       formula: "(friction factor × length ÷ diameter + fittings K) × density × velocity² ÷ 2",
       inputs: [
-        { label: "flow", value: feed.flowLPerH, unit: "L/h" },
-        { label: "inside diameter", value: feed.insideDiameterMm, unit: "mm" },
-        { label: "velocity", value: feed.velocityMPerS, unit: "m/s" },
-        { label: "Reynolds number", value: feed.reynolds, unit: "" },
-        { label: "friction factor", value: feed.frictionFactor, unit: "" },
+        { label: "flow", value: feed.flowLPerH, quantity: "volumeFlow" },
+        { label: "inside diameter", value: feed.insideDiameterMm, quantity: "diameter" },
+        { label: "velocity", value: feed.velocityMPerS, quantity: "velocity" },
+        { label: "Reynolds number", value: feed.reynolds, quantity: "reynolds" },
+        { label: "friction factor", value: feed.frictionFactor, quantity: "frictionFactor" },
       ],
       value: feed.pressureDropKpa,
-      unit: "kPa",
+      quantity: "pressureDrop",
     });
   }
   if (ret) {
@@ -574,13 +625,13 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       label: "Return-line pressure drop at idle",
       formula: "(friction factor × length ÷ diameter + fittings K) × density × velocity² ÷ 2",
       inputs: [
-        { label: "return flow at idle", value: ret.flowLPerH, unit: "L/h" },
-        { label: "inside diameter", value: ret.insideDiameterMm, unit: "mm" },
-        { label: "velocity", value: ret.velocityMPerS, unit: "m/s" },
-        { label: "friction factor", value: ret.frictionFactor, unit: "" },
+        { label: "return flow at idle", value: ret.flowLPerH, quantity: "volumeFlow" },
+        { label: "inside diameter", value: ret.insideDiameterMm, quantity: "diameter" },
+        { label: "velocity", value: ret.velocityMPerS, quantity: "velocity" },
+        { label: "friction factor", value: ret.frictionFactor, quantity: "frictionFactor" },
       ],
       value: ret.pressureDropKpa,
-      unit: "kPa",
+      quantity: "pressureDrop",
     });
   }
   const recommend = (
@@ -614,7 +665,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       : "pump"
     : "injectors";
 
-  // Warnings
+  // Warnings: templates with their figures as data, formatted at the edge in the reader's units.
   const dutyMax = Math.max(lean.dutyPct, rich.dutyPct);
   const dutyBand =
     dutyMax >= 100
@@ -625,43 +676,68 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
           ? "caution"
           : "ok";
   const needRating = Math.max(lean.requiredRatedFlowCcPerMin, rich.requiredRatedFlowCcPerMin);
-  const biggerInjector = `Fit injectors rated at least ${Math.ceil(needRating)} cc/min at ${injectors.ratedPressureKpa} kPa, add injectors, or raise the base pressure.`;
+  const biggerInjector =
+    "Fit injectors rated at least {needRating} at {ratedPressure}, add injectors, or raise the base pressure.";
+  const injectorFix = {
+    needRating: { value: Math.ceil(needRating), quantity: "injectorFlow" as const },
+    ratedPressure: { value: injectors.ratedPressureKpa, quantity: "pressure" as const },
+  };
+  const duty0 = { value: dutyMax, quantity: "percent" as const, decimals: 0 };
   if (dutyBand === "static") {
     warn(
       "injector-static",
       "danger",
-      `The injectors would need ${dutyMax.toFixed(0)} % duty at E${rich.ethanolVolPct}: they cannot deliver the fuel for this power.`,
+      "The injectors would need {duty} duty at {ethanol}: they cannot deliver the fuel for this power.",
       biggerInjector,
+      {
+        duty: duty0,
+        ethanol: { value: rich.ethanolVolPct, quantity: "ethanol" },
+        ...injectorFix,
+      },
     );
   } else if (dutyBand === "danger") {
     warn(
       "injector-duty-danger",
       "danger",
-      `Injector duty reaches ${dutyMax.toFixed(0)} %: almost no headroom for a richer blend, hot fuel or voltage sag.`,
+      "Injector duty reaches {duty}: almost no headroom for a richer blend, hot fuel or voltage sag.",
       biggerInjector,
+      { duty: duty0, ...injectorFix },
     );
   } else if (dutyBand === "caution") {
     warn(
       "injector-duty-caution",
       "caution",
-      `Injector duty reaches ${dutyMax.toFixed(0)} %, above the ${limits.dutyCautionPct} % comfort level.`,
+      "Injector duty reaches {duty}, above the {caution} comfort level.",
       biggerInjector,
+      {
+        duty: duty0,
+        caution: { value: limits.dutyCautionPct, quantity: "percent", decimals: 0 },
+        ...injectorFix,
+      },
     );
   }
   if (regulator.type === "fixed" && engine.maxBoostKpa > 0) {
     warn(
       "fixed-regulator-boost",
       "caution",
-      `With a fixed regulator the pressure across the injectors falls from ${regulator.basePressureKpa} to ${dpOp.toFixed(0)} kPa at full boost, and injector flow falls with it.`,
+      "With a fixed regulator the pressure across the injectors falls from {base} to {dp} at full boost, and injector flow falls with it.",
       "Use a boost-referenced regulator, or size the injectors for the pressure at full boost (done here).",
+      {
+        base: { value: regulator.basePressureKpa, quantity: "pressure" },
+        dp: { value: dpOp, quantity: "pressure" },
+      },
     );
   }
   if (injectors.minPulseWidthMs !== undefined && idleEffective < injectors.minPulseWidthMs) {
     warn(
       "idle-pulse-short",
       "caution",
-      `At idle the injectors would open for ${idleEffective.toFixed(2)} ms, below their ${injectors.minPulseWidthMs} ms minimum: expect a rough, uneven idle.`,
+      "At idle the injectors would open for {pulse}, below their {min} minimum: expect a rough, uneven idle.",
       "Choose smaller injectors, lower the base pressure, or raise idle speed or airflow.",
+      {
+        pulse: { value: idleEffective, quantity: "time" },
+        min: { value: injectors.minPulseWidthMs, quantity: "time" },
+      },
     );
   }
   if (!injectors.deadTime) {
@@ -682,63 +758,91 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       "Extend the dead-time table to the operating voltage and pressure.",
     );
   }
+  const pumpAt = {
+    supply: { value: supply.flowLPerH, quantity: "volumeFlow" as const },
+    outlet: { value: outlet, quantity: "pressure" as const },
+    voltage: { value: voltageUsed, quantity: "voltage" as const },
+    demand: { value: demand, quantity: "volumeFlow" as const },
+  };
   if (supply.flowLPerH < demand) {
     warn(
       "pump-short",
       "danger",
-      `The pumps deliver ${supply.flowLPerH.toFixed(0)} L/h at ${outlet.toFixed(0)} kPa and ${voltageUsed.toFixed(1)} V, less than the ${demand.toFixed(0)} L/h the engine needs: the rail pressure will collapse at full load.`,
+      "The pumps deliver {supply} at {outlet} and {voltage}, less than the {demand} the engine needs: the rail pressure will collapse at full load.",
       "Add a pump or fit a larger one, raise the voltage at the pump, or lower the target power.",
+      pumpAt,
     );
   } else if (margin < limits.minPumpMarginPct) {
     warn(
       "pump-margin-low",
       "caution",
-      `Pump margin is ${margin.toFixed(0)} %, below the ${limits.minPumpMarginPct} % minimum.`,
+      "Pump margin is {margin}, below the {min} minimum.",
       "Fit a larger pump or a second one, or improve the pump's wiring.",
+      {
+        margin: { value: margin, quantity: "percent", decimals: 0 },
+        min: { value: limits.minPumpMarginPct, quantity: "percent", decimals: 0 },
+      },
     );
   }
   if (supply.pressureOutOfRange) {
     warn(
       "pump-curve-pressure-range",
       "caution",
-      `The pump curve has no data at ${outlet.toFixed(0)} kPa; its end segment was extended, so the supply figure is an estimate.`,
+      "The pump curve has no data at {outlet}; its end segment was extended, so the supply figure is an estimate.",
       "Enter curve points that cover the working pressure.",
+      { outlet: pumpAt.outlet },
     );
   }
   if (supply.voltageOutOfRange) {
     warn(
       "pump-curve-voltage-range",
       "caution",
-      `The pump curves do not cover ${voltageUsed.toFixed(1)} V; the nearest tested voltages were extended.`,
+      "The pump curves do not cover {voltage}; the nearest tested voltages were extended.",
       "Enter a curve at (or around) the real voltage at the pump.",
+      { voltage: pumpAt.voltage },
     );
   }
   if (electrical.wiring && wireDropV !== null && wireDropV > 0.5) {
     warn(
       "pump-wire-drop",
       "caution",
-      `The pump wiring loses ${wireDropV.toFixed(2)} V at ${electrical.wiring.currentA} A.`,
+      "The pump wiring loses {drop} at {current}.",
       "Use heavier wire, a shorter run or a relay close to the pump.",
+      {
+        drop: { value: wireDropV, quantity: "voltage", decimals: 2 },
+        current: { value: electrical.wiring.currentA, quantity: "current" },
+      },
     );
   }
+  const maxDrop = { value: limits.maxLineDropKpa, quantity: "pressureDrop" as const };
   if (feed && !feed.withinLimit) {
     warn(
       "feed-line-drop",
       "caution",
-      `The feed line loses ${feed.pressureDropKpa.toFixed(1)} kPa at ${feed.flowLPerH.toFixed(0)} L/h, above the ${limits.maxLineDropKpa} kPa limit.`,
+      "The feed line loses {drop} at {flow}, above the {limit} limit.",
       recommendedFeedDash
-        ? `Use −${recommendedFeedDash} AN or larger.`
-        : "Use a larger line than −12 AN or split the feed.",
+        ? "Use {dash} or larger."
+        : "Use a larger line than {largest} or split the feed.",
+      {
+        drop: { value: feed.pressureDropKpa, quantity: "pressureDrop" },
+        flow: { value: feed.flowLPerH, quantity: "volumeFlow" },
+        limit: maxDrop,
+        dash: { value: recommendedFeedDash ?? 0, quantity: "anDash" },
+        largest: LARGEST_DASH,
+      },
     );
   }
   if (ret && !ret.withinLimit) {
     warn(
       "return-line-drop",
       "caution",
-      `At idle the return line carries ${ret.flowLPerH.toFixed(0)} L/h and loses ${ret.pressureDropKpa.toFixed(1)} kPa: rail pressure will sit high at idle and the fuel will heat.`,
-      recommendedReturnDash
-        ? `Use −${recommendedReturnDash} AN or larger for the return.`
-        : "Use a larger return line.",
+      "At idle the return line carries {flow} and loses {drop}: rail pressure will sit high at idle and the fuel will heat.",
+      recommendedReturnDash ? "Use {dash} or larger for the return." : "Use a larger return line.",
+      {
+        flow: { value: ret.flowLPerH, quantity: "volumeFlow" },
+        drop: { value: ret.pressureDropKpa, quantity: "pressureDrop" },
+        dash: { value: recommendedReturnDash ?? 0, quantity: "anDash" },
+      },
     );
   }
   if (
@@ -757,8 +861,17 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     warn(
       "ceiling-below-target",
       "danger",
-      `The system tops out at ${ceilingKw.toFixed(0)} kW crank, below the ${crankPowerKw.toFixed(0)} kW target (limited by the ${limitedBy}).`,
+      limitedBy === "injectors"
+        ? "The system tops out at {ceiling} crank, below the {target} target (limited by the injectors)."
+        : limitedBy === "pump"
+          ? "The system tops out at {ceiling} crank, below the {target} target (limited by the pump)."
+          : "The system tops out at {ceiling} crank, below the {target} target (limited by the feed line).",
       pumpLimited ? "Add pump capacity." : biggerInjector,
+      {
+        ceiling: { value: ceilingKw, quantity: "power" },
+        target: { value: crankPowerKw, quantity: "power" },
+        ...injectorFix,
+      },
     );
   }
   if (lean.bsfcSource === "rule-of-thumb") {
@@ -773,8 +886,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     warn(
       "blend-range-flex",
       "info",
-      `The blend can run from E${fuel.ethanolMinVolPct} to E${fuel.ethanolMaxVolPct}: the tune needs an ethanol content sensor to follow it.`,
+      "The blend can run from {lowest} to {highest}: the tune needs an ethanol content sensor to follow it.",
       "Fit an ethanol content sensor and a flex-fuel tune.",
+      {
+        lowest: { value: fuel.ethanolMinVolPct, quantity: "ethanol" },
+        highest: { value: fuel.ethanolMaxVolPct, quantity: "ethanol" },
+      },
     );
   }
 

@@ -1,7 +1,12 @@
 import {
+  fillTemplate,
+  REGULATOR_LABELS,
   sizeParsedFuelSystem,
+  type Figure,
+  type FigureParams,
   type FuelSystemResult,
   type ParsedFuelSystemInput,
+  type UnitSystem,
 } from "@/lib/calc";
 import { type KitRole } from "@/lib/domain/builds";
 import { type PartCategory } from "@/lib/domain/parts";
@@ -26,7 +31,8 @@ export interface Candidate {
   fits: boolean;
   /** Lower is better: fit first, then price, then stock. */
   score: number;
-  why: string[];
+  /** Why it fits or not: templates with their figures, read with `reasonText` in the reader's units. */
+  why: Reason[];
   /** The figure the part was judged on (duty %, margin %, drop kPa). */
   figure: number | null;
 }
@@ -35,13 +41,26 @@ export interface Recommendation {
   roles: { role: KitRole; label: string; needed: boolean; candidates: Candidate[] }[];
 }
 
+/** One reason of a verdict: a template whose `{name}` places are figures (lib/calc quantities). */
+export interface Reason {
+  text: string;
+  params?: FigureParams;
+}
+/** A reason as a person reads it, in their unit system. */
+export const reasonText = (r: Reason, units: UnitSystem): string =>
+  fillTemplate(r.text, r.params, units);
+const R = (text: string, params?: FigureParams): Reason => (params ? { text, params } : { text });
+const pct = (value: number): Figure => ({ value, quantity: "percent", decimals: 0 });
+const E = (value: number): Figure => ({ value, quantity: "ethanol" });
+const count = (value: number): Figure => ({ value, quantity: "count" });
+
 const available = (p: CatalogPart) => p.stock - p.reserved;
-const stockNote = (p: CatalogPart, qty: number) =>
+const stockNote = (p: CatalogPart, qty: number): Reason =>
   available(p) >= qty
-    ? `${available(p)} in stock`
+    ? R("{n} in stock", { n: count(available(p)) })
     : available(p) > 0
-      ? `only ${available(p)} in stock (needs ${qty})`
-      : "not in stock";
+      ? R("only {n} in stock (needs {qty})", { n: count(available(p)), qty: count(qty) })
+      : R("not in stock");
 /** Price and stock break ties between parts that fit equally well. */
 const tieBreak = (p: CatalogPart, qty: number) =>
   (p.priceMinor * qty) / 1e7 + (available(p) >= qty ? 0 : 0.5);
@@ -87,34 +106,38 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   const of = (c: PartCategory) => parts.filter((p) => p.category === c);
   const ethanolWhy = (p: CatalogPart) =>
     ethanol && !(p.specs as { ethanolOk?: boolean }).ethanolOk
-      ? `not rated for E${input.fuel.ethanolMaxVolPct}`
+      ? R("not rated for {e}", { e: E(input.fuel.ethanolMaxVolPct) })
       : null;
 
   // Injectors: enough flow at the build's ΔP for the design duty at the richest blend, and a
   // pulse width at idle not below the injector's minimum.
   const injectors: Candidate[] = of("injector").map((p) => {
     const r = sizeParsedFuelSystem(withInjector(input, p));
-    const why: string[] = [];
+    const why: Reason[] = [];
     let fits = true;
     const duty = r.blend.rich.dutyPct;
+    const dutyFigures = {
+      duty: pct(duty),
+      e: E(input.fuel.ethanolMaxVolPct),
+      design: pct(limits.designDutyPct),
+    };
     if (duty > limits.designDutyPct) {
       fits = false;
-      why.push(
-        `duty ${duty.toFixed(0)} % at E${input.fuel.ethanolMaxVolPct} is over the ${limits.designDutyPct} % design duty`,
-      );
-    } else
-      why.push(
-        `duty ${duty.toFixed(0)} % at E${input.fuel.ethanolMaxVolPct} (design ${limits.designDutyPct} %)`,
-      );
+      why.push(R("duty {duty} at {e} is over the {design} design duty", dutyFigures));
+    } else why.push(R("duty {duty} at {e} (design {design})", dutyFigures));
     const idle = r.injector.pulseWidthIdle.effectiveMs;
     const minPw = (p.specs as { minPulseWidthMs?: number }).minPulseWidthMs;
+    const idleFigures = (min: number) => ({
+      idle: { value: idle, quantity: "time" as const },
+      min: { value: min, quantity: "time" as const },
+    });
     if (minPw !== undefined && idle < minPw) {
       fits = false;
       why.push(
-        `too big for idle: ${idle.toFixed(2)} ms open at idle, below its ${minPw} ms minimum`,
+        R("too big for idle: {idle} open at idle, below its {min} minimum", idleFigures(minPw)),
       );
     } else if (minPw !== undefined)
-      why.push(`idle pulse ${idle.toFixed(2)} ms (minimum ${minPw} ms)`);
+      why.push(R("idle pulse {idle} (minimum {min})", idleFigures(minPw)));
     const eth = ethanolWhy(p);
     if (eth) {
       fits = false;
@@ -147,7 +170,15 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
       const r: FuelSystemResult = sizeParsedFuelSystem(withPump(input, p, quantity));
       const margin = r.pump.marginPct;
       const why = [
-        `${quantity === 1 ? "one pump" : "two in parallel"}: ${margin.toFixed(0)} % margin at ${r.pump.outletPressureKpa.toFixed(0)} kPa and ${r.pump.voltageUsed.toFixed(1)} V (needs ${limits.minPumpMarginPct} %)`,
+        R(
+          `${quantity === 1 ? "one pump" : "two in parallel"}: {margin} margin at {outlet} and {voltage} (needs {min})`,
+          {
+            margin: pct(margin),
+            outlet: { value: r.pump.outletPressureKpa, quantity: "pressure" },
+            voltage: { value: r.pump.voltageUsed, quantity: "voltage" },
+            min: pct(limits.minPumpMarginPct),
+          },
+        ),
       ];
       let fits = margin >= limits.minPumpMarginPct;
       if (quantity === 1) singleFits = fits;
@@ -176,17 +207,24 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   // Regulator: the build's kind, with the base pressure inside its range.
   const regulators: Candidate[] = of("regulator").map((p) => {
     const s = p.specs as { type: string; minPressureKpa: number; maxPressureKpa: number };
-    const why: string[] = [];
+    const why: Reason[] = [];
     let fits = true;
+    const kind = (t: string) =>
+      REGULATOR_LABELS[t as keyof typeof REGULATOR_LABELS]?.toLowerCase() ?? t;
     if (s.type !== input.regulator.type) {
       fits = false;
-      why.push(`${s.type} regulator; the build is ${input.regulator.type}`);
+      why.push(R(`${kind(s.type)} regulator; the build's is ${kind(input.regulator.type)}`));
     }
     const bp = input.regulator.basePressureKpa;
+    const range = {
+      min: { value: s.minPressureKpa, quantity: "pressure" as const },
+      max: { value: s.maxPressureKpa, quantity: "pressure" as const },
+      bp: { value: bp, quantity: "pressure" as const },
+    };
     if (bp < s.minPressureKpa || bp > s.maxPressureKpa) {
       fits = false;
-      why.push(`adjusts ${s.minPressureKpa}–${s.maxPressureKpa} kPa; the build needs ${bp} kPa`);
-    } else why.push(`adjusts ${s.minPressureKpa}–${s.maxPressureKpa} kPa, covers ${bp} kPa`);
+      why.push(R("adjusts {min} to {max}; the build needs {bp}", range));
+    } else why.push(R("adjusts {min} to {max}, covers {bp}", range));
     why.push(stockNote(p, 1));
     return {
       role: "regulator",
@@ -217,7 +255,16 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
       const l = side === "feed" ? r.lines.feed : r.lines.return;
       const drop = l?.pressureDropKpa ?? 0;
       const why = [
-        `−${s.dash} AN: ${drop.toFixed(1)} kPa over ${seg.lengthM} m at ${(l?.flowLPerH ?? 0).toFixed(0)} L/h ${side === "feed" ? "(full power)" : "(idle return)"}; limit ${limits.maxLineDropKpa} kPa`,
+        R(
+          `{dash}: {drop} over {length} at {flow} ${side === "feed" ? "(full power)" : "(idle return)"}; limit {limit}`,
+          {
+            dash: { value: s.dash, quantity: "anDash" },
+            drop: { value: drop, quantity: "pressureDrop" },
+            length: { value: seg.lengthM, quantity: "length" },
+            flow: { value: l?.flowLPerH ?? 0, quantity: "volumeFlow" },
+            limit: { value: limits.maxLineDropKpa, quantity: "pressureDrop" },
+          },
+        ),
       ];
       let fits = drop <= limits.maxLineDropKpa;
       const eth = ethanolWhy(p);
@@ -247,12 +294,24 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   );
   const filters: Candidate[] = of("filter").map((p) => {
     const s = p.specs as { micron: number; dropKpa: number; dash?: number };
-    const why = [`${s.micron} µm, ${s.dropKpa} kPa drop`];
+    const why = [
+      R(`${s.micron} µm, {drop} drop`, { drop: { value: s.dropKpa, quantity: "pressureDrop" } }),
+    ];
     let fits = s.dropKpa <= limits.maxLineDropKpa / 2;
-    if (!fits) why.push(`drop over half the ${limits.maxLineDropKpa} kPa line budget`);
+    if (!fits)
+      why.push(
+        R("drop over half the {limit} line budget", {
+          limit: { value: limits.maxLineDropKpa, quantity: "pressureDrop" },
+        }),
+      );
     if (s.dash !== undefined && Number.isFinite(feedDash) && s.dash < feedDash) {
       fits = false;
-      why.push(`−${s.dash} ports, smaller than the −${feedDash} feed`);
+      why.push(
+        R("{ports} ports, smaller than the {feed} feed", {
+          ports: { value: s.dash, quantity: "anDash" },
+          feed: { value: feedDash, quantity: "anDash" },
+        }),
+      );
     }
     const eth = ethanolWhy(p);
     if (eth) {
@@ -280,8 +339,11 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     score: (varies ? 0 : 1000) + tieBreak(p, 1),
     why: [
       varies
-        ? `the blend varies E${input.fuel.ethanolMinVolPct}–E${input.fuel.ethanolMaxVolPct}: the ECU needs the ethanol content`
-        : "the blend is fixed: no sensor needed",
+        ? R("the blend varies {low} to {high}: the ECU needs the ethanol content", {
+            low: E(input.fuel.ethanolMinVolPct),
+            high: E(input.fuel.ethanolMaxVolPct),
+          })
+        : R("the blend is fixed: no sensor needed"),
       stockNote(p, 1),
     ],
     figure: null,

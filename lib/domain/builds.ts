@@ -22,6 +22,15 @@ export const KIT_ROLES = [
   "sensor",
 ] as const;
 export type KitRole = (typeof KIT_ROLES)[number];
+export const KIT_ROLE_LABELS: Record<KitRole, string> = {
+  injector: "injectors",
+  pump: "fuel pump",
+  regulator: "regulator",
+  "feed-line": "feed line",
+  "return-line": "return line",
+  filter: "filter",
+  sensor: "ethanol content sensor",
+};
 /** A catalog part chosen for a build, with the figures it was chosen on. */
 export interface ChosenPart {
   role: KitRole;

@@ -29,11 +29,12 @@ export async function specSheetData(
   const input = readStoredInputs(rev);
   const stored = rev.result;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
-  // Staff see their own units; customers and share links the shop's.
-  const units =
-    opts.viewerId && !opts.portalUserId
-      ? await unitSystemOf(opts.viewerId, shopId)
-      : (settings?.settings.units ?? "metric");
+  // Staff and customers in the portal read their own units where they set them, else the
+  // shop's; a share link (no one signed in) the shop's.
+  const reader = opts.portalUserId ?? opts.viewerId;
+  const units = reader
+    ? await unitSystemOf(reader, shopId)
+    : (settings?.settings.units ?? "metric");
   return {
     shop: {
       name: settings?.name ?? "",

@@ -12,17 +12,26 @@ import {
 } from "@react-pdf/renderer";
 
 import {
-  converter,
+  AN_SIZES,
+  ASPIRATION_LABELS,
+  BSFC_SOURCE_LABELS,
   dutyAcrossRpm,
+  formatTraceStep,
+  formatValue,
+  formatWarning,
+  LIMITED_BY_LABELS,
   pumpSupplyCurve,
+  REGULATOR_LABELS,
+  SEVERITY_LABELS,
   toShown,
+  unitOf,
   type FuelSystemResult,
   type ParsedFuelSystemInput,
   type PullAnalysis,
   type Quantity,
   type UnitSystem,
 } from "@/lib/calc";
-import { type ChosenPart } from "@/lib/domain/builds";
+import { KIT_ROLE_LABELS, type ChosenPart } from "@/lib/domain/builds";
 import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
@@ -67,20 +76,22 @@ function Verification({
   v,
   r,
   q,
-  n,
+  units,
 }: {
   v: NonNullable<SpecSheetData["verification"]>;
   r: FuelSystemResult;
-  q: (quantity: Quantity, x: number) => string;
-  n: (x: number, dp?: number) => string;
+  q: (quantity: Quantity, x: number, decimals?: number) => string;
+  units: UnitSystem;
 }) {
   const a = v.analysis;
   const cell = { width: "33%" } as const;
   const rows: [string, string, string][] = [
     [
       "Peak injector duty",
-      `${n(a.predictedPeakDutyPct, 1)} % at redline`,
-      a.peakDuty ? `${n(a.peakDuty.pct, 1)} % at ${n(a.peakDuty.rpm)} rpm` : "not logged",
+      `${q("percent", a.predictedPeakDutyPct)} at redline`,
+      a.peakDuty
+        ? `${q("percent", a.peakDuty.pct)} at ${q("speed", a.peakDuty.rpm)}`
+        : "not logged",
     ],
     [
       "Fuel flow at peak duty",
@@ -89,16 +100,16 @@ function Verification({
     ],
     [
       "BSFC",
-      `${n(r.blend.rich.bsfcGPerKwh)} g/kWh`,
+      q("bsfc", r.blend.rich.bsfcGPerKwh),
       a.measuredBsfc
-        ? `${n(a.measuredBsfc.gPerKwh)} g/kWh at ${q("power", a.measuredBsfc.powerKw)}`
+        ? `${q("bsfc", a.measuredBsfc.gPerKwh)} at ${q("power", a.measuredBsfc.powerKw)}`
         : "power not logged",
     ],
     [
       "Lambda under load",
-      `target ${n(a.targetLambda, 2)}`,
+      `target ${q("lambda", a.targetLambda)}`,
       a.lambda
-        ? `mean error ${n(a.lambda.meanAbsError, 3)}, worst ${a.lambda.worstError >= 0 ? "+" : ""}${n(a.lambda.worstError, 3)} at ${n(a.lambda.worstAtRpm)} rpm`
+        ? `mean error ${q("ratio", a.lambda.meanAbsError, 3)}, worst ${a.lambda.worstError >= 0 ? "+" : ""}${q("ratio", a.lambda.worstError, 3)} at ${q("speed", a.lambda.worstAtRpm)}`
         : "not logged",
     ],
     [
@@ -108,7 +119,11 @@ function Verification({
         ? `${q("pressure", a.fuelPressure.lowBoostDiffKpa)} falling to ${q("pressure", a.fuelPressure.fullBoostDiffKpa)} at full boost`
         : "not logged",
     ],
-    ["Ethanol content", `E${n(r.blend.rich.ethanolVolPct)} (rich end)`, `E${n(a.ethanolPct)}`],
+    [
+      "Ethanol content",
+      `${q("ethanol", r.blend.rich.ethanolVolPct)} (rich end)`,
+      q("ethanol", a.ethanolPct),
+    ],
   ];
   return (
     <View wrap={false}>
@@ -130,14 +145,17 @@ function Verification({
           <Text style={cell}>{pdfText(measured)}</Text>
         </View>
       ))}
-      {a.warnings.map((w) => (
-        <Text key={w.code}>
-          <Text style={{ fontWeight: 700 }}>
-            {w.severity === "danger" ? "DANGER" : "Caution"} (log):{" "}
+      {a.warnings.map((raw) => {
+        const w = formatWarning(raw, units);
+        return (
+          <Text key={w.code}>
+            <Text style={{ fontWeight: 700 }}>
+              {w.severity === "danger" ? "DANGER" : SEVERITY_LABELS[w.severity]} (log):{" "}
+            </Text>
+            {pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}
           </Text>
-          {pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}
-        </Text>
-      ))}
+        );
+      })}
     </View>
   );
 }
@@ -225,9 +243,10 @@ function Chart({
 
 function SpecSheet({ d }: { d: SpecSheetData }) {
   const { input, result: r, units } = d;
-  const q = (quantity: Quantity, v: number) =>
-    `${Number.isFinite(v) ? toShown(quantity, v, units) : "-"} ${converter(quantity, units).unit}`;
-  const n = (v: number, dp = 0) => (Number.isFinite(v) ? v.toFixed(dp) : "-");
+  const q = (quantity: Quantity, v: number, decimals?: number) =>
+    pdfText(formatValue(quantity, v, units, decimals)).replace("—", "-");
+  const dash = (d: number | null) =>
+    q("anDash", d ?? AN_SIZES[AN_SIZES.length - 1]!.dash).replace(/^/, d ? "" : "larger than ");
   const fig = (label: string, value: string) => (
     <View style={s.fig} key={label}>
       <Text style={s.muted}>{label}</Text>
@@ -267,27 +286,29 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
               {q("power", input.target.powerKw)} at the{" "}
               {input.target.measuredAt === "wheel" ? "wheels" : "crank"}
               {input.target.measuredAt === "wheel"
-                ? ` (${input.target.drivetrainLossPct} % drivetrain loss, ${q("power", r.crankPowerKw)} crank)`
+                ? ` (${q("percent", input.target.drivetrainLossPct, 0)} drivetrain loss, ${q("power", r.crankPowerKw)} crank)`
                 : ""}
             </Text>
             <Text>
-              {input.engine.cylinders} cylinders, {input.engine.displacementL} L,{" "}
+              {q("count", input.engine.cylinders)} cylinders,{" "}
+              {q("displacement", input.engine.displacementL)},{" "}
               {input.engine.aspiration === "na"
-                ? "naturally aspirated"
-                : `${input.engine.aspiration}, ${q("pressure", input.engine.maxBoostKpa)} boost`}
-              ; redline {input.engine.redlineRpm} rpm
+                ? ASPIRATION_LABELS.na.toLowerCase()
+                : `${ASPIRATION_LABELS[input.engine.aspiration].toLowerCase()}, ${q("pressure", input.engine.maxBoostKpa)} boost`}
+              ; redline {q("speed", input.engine.redlineRpm)}
             </Text>
           </View>
           <View style={s.col}>
             <Text style={s.h2}>Fuel and blend range</Text>
             <Text>
-              E{input.fuel.ethanolMinVolPct} to E{input.fuel.ethanolMaxVolPct}; BSFC{" "}
-              {n(r.blend.rich.bsfcGPerKwh)} g/kWh at the rich end (
-              {r.blend.rich.bsfcSource === "given" ? "given" : "rule of thumb"}), stoichiometric AFR{" "}
-              {n(r.blend.rich.stoichAfr, 1)}
+              {q("ethanol", input.fuel.ethanolMinVolPct)} to{" "}
+              {q("ethanol", input.fuel.ethanolMaxVolPct)}; BSFC{" "}
+              {q("bsfc", r.blend.rich.bsfcGPerKwh)} at the rich end (
+              {BSFC_SOURCE_LABELS[r.blend.rich.bsfcSource]}), stoichiometric AFR{" "}
+              {q("afr", r.blend.rich.stoichAfr)}
             </Text>
             <Text>
-              Regulator: {input.regulator.type === "fixed" ? "fixed" : "boost-referenced"}, base{" "}
+              Regulator: {REGULATOR_LABELS[input.regulator.type].toLowerCase()}, base{" "}
               {q("pressure", input.regulator.basePressureKpa)}
             </Text>
           </View>
@@ -297,50 +318,53 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         <View style={[s.row, { flexWrap: "wrap", gap: 0 }]}>
           {fig("Fuel required (rich end)", q("volumeFlow", r.fuelVolumeFlowLPerH))}
           {fig(
-            `Injector duty at E${input.fuel.ethanolMaxVolPct}`,
-            `${n(r.blend.rich.dutyPct, 1)} %`,
+            `Injector duty at ${q("ethanol", input.fuel.ethanolMaxVolPct)}`,
+            q("percent", r.blend.rich.dutyPct),
           )}
           {fig(
-            `Injector duty at E${input.fuel.ethanolMinVolPct}`,
-            `${n(r.blend.lean.dutyPct, 1)} %`,
+            `Injector duty at ${q("ethanol", input.fuel.ethanolMinVolPct)}`,
+            q("percent", r.blend.lean.dutyPct),
           )}
           {fig("Smallest injector rating", q("injectorFlow", r.injector.requiredRatedFlowCcPerMin))}
           {fig(
             "Pulse width at redline",
-            `${n(r.injector.pulseWidthRedline.commandedMs ?? r.injector.pulseWidthRedline.effectiveMs, 2)} ms`,
+            q(
+              "time",
+              r.injector.pulseWidthRedline.commandedMs ?? r.injector.pulseWidthRedline.effectiveMs,
+            ),
           )}
-          {fig("Pulse width at idle (open)", `${n(r.injector.pulseWidthIdle.effectiveMs, 2)} ms`)}
+          {fig("Pulse width at idle (open)", q("time", r.injector.pulseWidthIdle.effectiveMs))}
           {fig(
             "Pump supply / demand",
             `${q("volumeFlow", r.pump.supplyLPerH)} / ${q("volumeFlow", r.pump.demandLPerH)}`,
           )}
-          {fig("Pump margin", `${n(r.pump.marginPct)} %`)}
+          {fig("Pump margin", q("percent", r.pump.marginPct, 0))}
           {fig("Rail pressure at full boost", q("pressure", r.pump.railPressureKpa))}
           {fig(
             "Feed / return line",
-            `${r.lines.recommendedFeedDash ? `-${r.lines.recommendedFeedDash}` : "> -12"} / ${r.lines.recommendedReturnDash ? `-${r.lines.recommendedReturnDash}` : "> -12"} AN`,
+            `${dash(r.lines.recommendedFeedDash)} / ${dash(r.lines.recommendedReturnDash)}`,
           )}
           {fig("Power ceiling (crank)", q("power", r.powerCeiling.kw))}
           {fig(
             "Limited by",
-            `the ${r.powerCeiling.limitedBy} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${n(r.powerCeiling.headroomPct)} %)`,
+            `${LIMITED_BY_LABELS[r.powerCeiling.limitedBy]} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${q("percent", r.powerCeiling.headroomPct, 0)})`,
           )}
         </View>
 
         <View style={[s.row, { marginTop: 6 }]}>
           <Chart
             title="Injector duty across engine speed"
-            xLabel="rpm"
-            yLabel="duty %"
+            xLabel={unitOf("speed", units)}
+            yLabel={`duty ${unitOf("percent", units)}`}
             refY={r.limits.dutyDangerPct}
             series={[
               {
-                name: `E${input.fuel.ethanolMaxVolPct}`,
+                name: q("ethanol", input.fuel.ethanolMaxVolPct),
                 color: COPPER,
                 points: rpm.map((p) => [p.rpm, p.dutyPctRich]),
               },
               {
-                name: `E${input.fuel.ethanolMinVolPct}`,
+                name: q("ethanol", input.fuel.ethanolMinVolPct),
                 color: MUTED,
                 points: rpm.map((p) => [p.rpm, p.dutyPctLean]),
               },
@@ -348,8 +372,8 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           />
           <Chart
             title="Pump supply against demand"
-            xLabel={`pressure (${converter("pressure", units).unit})`}
-            yLabel={`flow (${converter("volumeFlow", units).unit})`}
+            xLabel={`pressure (${unitOf("pressure", units)})`}
+            yLabel={`flow (${unitOf("volumeFlow", units)})`}
             series={[
               {
                 name: "supply",
@@ -365,7 +389,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           />
         </View>
 
-        {d.verification ? <Verification v={d.verification} r={r} q={q} n={n} /> : null}
+        {d.verification ? <Verification v={d.verification} r={r} q={q} units={units} /> : null}
 
         <Text style={s.h2}>Chosen parts</Text>
         {d.parts.length === 0 ? (
@@ -373,7 +397,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         ) : (
           d.parts.map((p) => (
             <Text key={p.role + p.partId}>
-              {p.quantity} × {p.name} ({p.sku}) — {p.role.replace("-", " ")}
+              {q("count", p.quantity)} × {p.name} ({p.sku}) — {KIT_ROLE_LABELS[p.role]}
             </Text>
           ))
         )}
@@ -382,15 +406,17 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         {r.warnings.length === 0 ? (
           <Text>None.</Text>
         ) : (
-          r.warnings.map((w) => (
-            <Text key={w.code}>
-              <Text style={{ fontWeight: 700 }}>
-                {w.severity === "danger" ? "DANGER" : w.severity === "caution" ? "Caution" : "Note"}
-                :{" "}
+          r.warnings.map((raw) => {
+            const w = formatWarning(raw, units);
+            return (
+              <Text key={w.code}>
+                <Text style={{ fontWeight: 700 }}>
+                  {w.severity === "danger" ? "DANGER" : SEVERITY_LABELS[w.severity]}:{" "}
+                </Text>
+                {pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}
               </Text>
-              {pdfText(`${w.message}${w.fix ? ` Fix: ${w.fix}` : ""}`)}
-            </Text>
-          ))
+            );
+          })
         )}
 
         <View style={s.caution} wrap={false}>
@@ -404,16 +430,15 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           How these numbers were worked out
         </Text>
         <View style={{ fontSize: 7 }}>
-          {r.trace.map((t) => (
-            <Text key={t.id}>
-              <Text style={{ fontWeight: 700 }}>
-                {pdfText(`${t.label} = ${n(t.value, 2)} ${t.unit}`)}
+          {r.trace.map((raw) => {
+            const t = formatTraceStep(raw, units);
+            return (
+              <Text key={t.id}>
+                <Text style={{ fontWeight: 700 }}>{pdfText(`${t.label} = ${t.value}`)}</Text>
+                {pdfText(`: ${t.formula}; ${t.inputs.join(", ")}`)}
               </Text>
-              {pdfText(
-                `: ${t.formula}; ${t.inputs.map((i) => `${i.label} ${n(i.value, 3)} ${i.unit}`).join(", ")}`,
-              )}
-            </Text>
-          ))}
+            );
+          })}
         </View>
         <Text
           style={[s.muted, { position: "absolute", bottom: 16, left: 32, right: 32, fontSize: 7 }]}

@@ -5,6 +5,7 @@ import {
   CalcInputError,
   dutyAcrossEthanol,
   dutyAcrossRpm,
+  formatWarning,
   fuelBlend,
   FuelSystemInputSchema,
   pumpSupplyCurve,
@@ -129,7 +130,18 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
     expect(at(93).warnings.find((w) => w.code === "injector-duty-danger")?.severity).toBe("danger");
     const stat = at(120);
     expect(stat.injector.dutyBand).toBe("static");
-    expect(stat.warnings.find((w) => w.code === "injector-static")?.fix).toMatch(/cc\/min/);
+    const w = stat.warnings.find((x) => x.code === "injector-static")!;
+    // The rating to fit is a figure of the warning, formatted in the reader's units.
+    expect(w.params.needRating).toEqual({
+      value: Math.ceil(stat.injector.requiredRatedFlowCcPerMin),
+      quantity: "injectorFlow",
+    });
+    expect(formatWarning(w, "metric").fix).toMatch(/at least \d+ cc\/min at 300 kPa/);
+    // 300 kPa = 43.5 psi (NIST SP 811 B.8: 1 psi = 6.894757 kPa).
+    expect(formatWarning(w, "imperial").fix).toMatch(/at least \d+\.\d lb\/h at 43\.5 psi/);
+    expect(formatWarning(w, "imperial").message).toMatch(
+      /^The injectors would need \d+ % duty at E85/,
+    );
   });
 
   it("warns when the pumps cannot keep up", () => {

@@ -319,6 +319,8 @@ describe("the shop learns its own BSFC from verified builds", () => {
     const flat = inspectPdf(pdf.bytes).text.replace(/\s+/g, " ");
     expect(flat).toContain("Measured on the dyno");
     expect(flat).toMatch(/Peak injector duty [\d.]+ % at redline 80\.0 % at 7000 rpm/);
-    expect(flat).toContain("500 g/kWh at");
+    // In the reader's units (the counter's, else the shop's): 500 g/kWh = 0.822 lb/(hp·h), as
+    // 1 lb/(hp·h) = 608.28 g/kWh (calc-spec §2).
+    expect(flat).toMatch(/500 g\/kWh at|0\.822 lb\/hp\/h at/);
   });
 });

@@ -27,7 +27,8 @@ describe("display units", () => {
   it("finds the quantity of array fields", () => {
     expect(quantityOf("pumps.0.curves.1.points.3.flowLPerH")).toBe("volumeFlow");
     expect(quantityOf("injectors.deadTime.pressuresKpa.2")).toBe("pressure");
-    expect(quantityOf("injectors.count")).toBeUndefined();
+    expect(quantityOf("injectors.count")).toBe("count");
+    expect(quantityOf("pumps.0.label")).toBeUndefined();
   });
 
   it("a round trip through imperial gives back the exact canonical values when nothing was typed", () => {
@@ -68,8 +69,12 @@ describe("build diffs", () => {
       injectors: { ...boostedSix.injectors, count: 8 },
     };
     const ch = diffInputs(boostedSix, after, "metric");
-    expect(ch.map((c) => c.label).sort()).toEqual(["Injectors", "Target power"]);
+    expect(ch.map((c) => c.label)).toEqual(["Target power", "Injector count"]); // in the sheet's order
     expect(ch.find((c) => c.label === "Target power")).toMatchObject({ after: "500 kW" });
+    // Counts are whole numbers, without a unit.
+    expect(ch.find((c) => c.label === "Injector count")).toMatchObject({ before: "6", after: "8" });
+    // 500 kW / 0.7456999 kW/hp = 670.5 hp (NIST SP 811 B.8), to the nearest hp.
+    expect(diffInputs(boostedSix, after, "imperial")[0]).toMatchObject({ after: "671 hp" });
     expect(diffInputs(boostedSix, boostedSix, "imperial")).toEqual([]);
   });
 
@@ -82,9 +87,17 @@ describe("build diffs", () => {
     };
     const r2 = { ...r, blend: { rich: { dutyPct: 92 } } };
     const figs = compareKeyFigures(r as never, r2 as never, "metric");
-    expect(figs.filter((f) => f.changed).map((f) => f.label)).toEqual([
-      "Duty at the richest blend",
+    expect(figs.filter((f) => f.changed).map((f) => [f.label, f.verdict])).toEqual([
+      ["Injector duty at the highest ethanol", "worse"], // higher duty: less headroom
     ]);
+    const r3 = { ...r, pump: { ...r.pump, supplyLPerH: 450, marginPct: 50 } };
+    const better = compareKeyFigures(r as never, r3 as never, "imperial").filter((f) => f.changed);
+    expect(better.map((f) => [f.label, f.verdict])).toEqual([
+      ["Pump supply", "better"],
+      ["Pump margin", "better"],
+    ]);
+    // 400 L/h = 105.7 US gal/h (1 US gal = 3.785411784 L, NIST SP 811 B.8).
+    expect(better[0]).toMatchObject({ before: "105.7 gal/h", after: "118.9 gal/h" });
     expect(compareKeyFigures(null, r as never, "metric")[0]).toMatchObject({
       before: "—",
       changed: true,

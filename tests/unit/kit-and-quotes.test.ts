@@ -3,7 +3,13 @@ import { describe, expect, it } from "vitest";
 import { FuelSystemInputSchema, sizeParsedFuelSystem } from "@/lib/calc";
 import { minorToPlain, mulDivRound, parseMoney } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
-import { applyKit, recommendKit, type CatalogPart } from "@/lib/catalog/recommend";
+import {
+  applyKit,
+  reasonText,
+  recommendKit,
+  type CatalogPart,
+  type Reason,
+} from "@/lib/catalog/recommend";
 
 import { boostedSix, naFour } from "../calc/fixtures";
 
@@ -71,23 +77,23 @@ describe("kit recommendation", () => {
   const strongPump = part("pump", { curves: curve(520), mounting: "in-tank", ethanolOk: true });
   const rec = recommendKit(input, [small, right, bigger, huge, gasOnly, weakPump, strongPump]);
   const role = (r: string) => rec.roles.find((x) => x.role === r)!.candidates;
+  const read = (why: Reason[], units: "metric" | "imperial" = "metric") =>
+    why.map((w) => reasonText(w, units)).join(" ");
 
   it("ranks the smallest injector that meets the design duty first", () => {
     const inj = role("injector");
     expect(inj[0]!.part.id).toBe(right.id);
     expect(inj.find((c) => c.part.id === small.id)!.fits).toBe(false);
-    expect(inj.find((c) => c.part.id === small.id)!.why.join(" ")).toMatch(
-      /over the 80 % design duty/,
-    );
+    expect(read(inj.find((c) => c.part.id === small.id)!.why)).toMatch(/over the 80 % design duty/);
   });
 
   it("refuses an injector too big for idle and one not rated for ethanol", () => {
     const h = role("injector").find((c) => c.part.id === huge.id)!;
     expect(h.fits).toBe(false);
-    expect(h.why.join(" ")).toMatch(/too big for idle/);
+    expect(read(h.why)).toMatch(/too big for idle/);
     const g = role("injector").find((c) => c.part.id === gasOnly.id)!;
     expect(g.fits).toBe(false);
-    expect(g.why.join(" ")).toMatch(/not rated for E85/);
+    expect(read(g.why)).toMatch(/not rated for E85/);
   });
 
   it("picks two pumps when one lacks margin", () => {
@@ -99,6 +105,10 @@ describe("kit recommendation", () => {
     // The strong pump alone fits, so no pair of it is offered and it ranks before the weak pair.
     expect(pumps.filter((c) => c.part.id === strongPump.id).map((c) => c.quantity)).toEqual([1]);
     expect(pumps[0]!.part.id).toBe(strongPump.id);
+    // The verdict's figures are data, read in either system.
+    expect(read(weakOne.why, "metric")).toMatch(/margin at \d+ kPa and [\d.]+ V/);
+    expect(read(weakOne.why, "imperial")).toMatch(/margin at [\d.]+ psi and [\d.]+ V/);
+    expect(read(weakOne.why, "imperial")).not.toMatch(/kPa|L\/h/);
   });
 
   it("applying the chosen parts sizes the build on their data", () => {

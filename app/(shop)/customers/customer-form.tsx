@@ -55,8 +55,10 @@ export function CustomerForm({ customer }: { customer?: Stored }) {
   });
 
   useEffect(() => {
-    for (const [k, msgs] of Object.entries(state.fieldErrors ?? {}))
-      setError(k as keyof In, { message: msgs.join(" ") });
+    // The server's field messages, highlighted; the first one gets the focus.
+    Object.entries(state.fieldErrors ?? {}).forEach(([k, msgs], i) =>
+      setError(k as keyof In, { message: msgs.join(" ") }, { shouldFocus: i === 0 }),
+    );
     if (state.ok && !customer) {
       reset();
       const made = state.data as { id?: string } | undefined;

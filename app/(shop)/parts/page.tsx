@@ -3,6 +3,7 @@ import Link from "next/link";
 
 import { PartsTable } from "@/components/parts/parts-table";
 import { PageHeader } from "@/components/ui/status";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
@@ -14,7 +15,10 @@ const link =
 
 export default async function PartsPage() {
   const m = await requirePageMember("parts:read");
-  const s = await getShopSettings(m.shopId);
+  const [s, units] = await Promise.all([
+    getShopSettings(m.shopId),
+    unitSystemOf(m.user.id, m.shopId),
+  ]);
   const canEdit = can(m.role, "parts:write");
   return (
     <>
@@ -38,7 +42,7 @@ export default async function PartsPage() {
           ) : null}
         </div>
       </PageHeader>
-      <PartsTable currency={s?.settings.currency ?? "USD"} canEdit={canEdit} />
+      <PartsTable currency={s?.settings.currency ?? "USD"} canEdit={canEdit} units={units} />
     </>
   );
 }

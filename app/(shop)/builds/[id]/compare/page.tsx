@@ -123,17 +123,25 @@ export default async function CompareRevisionsPage({
                   <th scope="col">Version {from}</th>
                   <th scope="col">Version {to}</th>
                   <th scope="col">
-                    <span className="sr-only">Changed</span>
+                    <span className="sr-only">Better or worse</span>
                   </th>
                 </tr>
               </thead>
               <tbody>
                 {figures.map((f) => (
-                  <tr key={f.label} className="border-t border-ink-100">
+                  <tr key={f.path} className="border-t border-ink-100" data-verdict={f.verdict}>
                     <td className="py-1">{f.label}</td>
                     <td className="figure">{f.before}</td>
                     <td className="figure font-semibold">{f.after}</td>
-                    <td>{f.changed ? <Signal level="info">changed</Signal> : null}</td>
+                    <td>
+                      {f.verdict === "better" ? (
+                        <Signal level="ok">better</Signal>
+                      ) : f.verdict === "worse" ? (
+                        <Signal level="caution">worse</Signal>
+                      ) : f.verdict === "changed" ? (
+                        <Signal level="info">changed</Signal>
+                      ) : null}
+                    </td>
                   </tr>
                 ))}
               </tbody>

@@ -6,6 +6,7 @@ import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
 import { PageHeader } from "@/components/ui/status";
 import { buildStatusFacts, getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
@@ -20,9 +21,10 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const [logs, facts] = await Promise.all([
+  const [logs, facts, units] = await Promise.all([
     listDatalogs(m.shopId, id),
     buildStatusFacts(m.shopId, id, isoDay()),
+    unitSystemOf(m.user.id, m.shopId),
   ]);
   const status = row.build.status;
   return (
@@ -52,6 +54,7 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
             ? null
             : `Mark verified is offered once the build is fitted; it is ${STATUS_LABELS[status].toLowerCase()}.`
         }
+        units={units}
         logs={logs.map((l) => ({
           id: l.id,
           fileName: l.fileName,

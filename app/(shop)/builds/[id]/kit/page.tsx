@@ -6,6 +6,7 @@ import { KitPicker } from "@/components/kit/kit-picker";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild } from "@/db/queries/builds";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
@@ -18,7 +19,10 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const s = await getShopSettings(m.shopId);
+  const [s, units] = await Promise.all([
+    getShopSettings(m.shopId),
+    unitSystemOf(m.user.id, m.shopId),
+  ]);
   return (
     <>
       <PageHeader title={`Parts kit — ${row.build.title}`}>
@@ -35,6 +39,7 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
         currency={s?.settings.currency ?? "USD"}
         canChoose={can(m.role, "kit:choose")}
         canQuote={can(m.role, "quotes:write")}
+        units={units}
       />
       <SafetyNote />
     </>

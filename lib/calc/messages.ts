@@ -1,0 +1,142 @@
+import {
+  fillTemplate,
+  formatNumber,
+  formatValue,
+  QUANTITIES,
+  type FigureParams,
+} from "./quantities";
+import { inputBounds, inputField } from "./registry";
+import type { Severity, TraceStep, Warning } from "./types";
+import type { UnitSystem } from "./units";
+
+/**
+ * Warnings, working steps and validation messages as a person reads them: the figures they
+ * carry as data, formatted at the edge in the reader's unit system through the registry.
+ */
+
+export const SEVERITY_LABELS: Record<Severity, string> = {
+  info: "Note",
+  caution: "Caution",
+  danger: "Danger",
+};
+
+/** A warning's text: its message and what to change, with the figures in the reader's units. */
+export function formatWarning(
+  w: Warning,
+  system: UnitSystem,
+): { code: string; severity: Severity; message: string; fix: string | null } {
+  // Results saved before warnings carried their figures hold the finished text.
+  const params = (w as Partial<Warning>).params;
+  return {
+    code: w.code,
+    severity: w.severity,
+    message: params ? fillTemplate(w.message, params, system) : w.message,
+    fix: w.fix ? (params ? fillTemplate(w.fix, params, system) : w.fix) : null,
+  };
+}
+
+export interface FormattedStep {
+  id: string;
+  label: string;
+  /** The result with its unit ("65.5 lb/h"). */
+  value: string;
+  formula: string;
+  /** The numbers put in, each with its unit: "crank power 503 hp". */
+  inputs: string[];
+}
+
+interface LegacyStep {
+  id: string;
+  label: string;
+  formula: string;
+  inputs: { label: string; value: number; unit: string }[];
+  value: number;
+  unit: string;
+}
+
+const legacyNumber = (v: number, d: number) =>
+  Number.isFinite(v) ? (Number.isInteger(v) ? String(v) : v.toFixed(d)) : "—";
+
+/** One working step in the reader's units, ready to print. */
+export function formatTraceStep(step: TraceStep, system: UnitSystem): FormattedStep {
+  if (!("quantity" in step)) {
+    // Saved before steps carried quantities: the numbers as they were, in their units.
+    const old = step as unknown as LegacyStep;
+    const u = (unit: string) => (unit ? ` ${unit}` : "");
+    return {
+      id: old.id,
+      label: old.label,
+      value: `${legacyNumber(old.value, 2)}${u(old.unit)}`,
+      formula: old.formula,
+      inputs: old.inputs.map((i) => `${i.label} ${legacyNumber(i.value, 3)}${u(i.unit)}`),
+    };
+  }
+  return {
+    id: step.id,
+    label: fillTemplate(step.label, step.params, system),
+    value: formatValue(step.quantity, step.value, system, step.decimals),
+    formula: system === "imperial" && step.formulaImperial ? step.formulaImperial : step.formula,
+    inputs: step.inputs
+      .filter((i) => !i.only || i.only === system)
+      .map((i) => `${i.label} ${formatValue(i.quantity, i.value, system, i.decimals)}`),
+  };
+}
+
+/** What of a zod issue the messages read. */
+export interface IssueLike {
+  code: string;
+  path: readonly PropertyKey[];
+  message: string;
+  origin?: string;
+  params?: unknown;
+}
+
+/** Figures of a custom validation issue: `params: { template, figures }` set by the schema. */
+interface TemplateParams {
+  template: string;
+  figures: FigureParams;
+}
+const isTemplateParams = (p: unknown): p is TemplateParams =>
+  !!p &&
+  typeof p === "object" &&
+  typeof (p as TemplateParams).template === "string" &&
+  typeof (p as TemplateParams).figures === "object";
+
+/**
+ * A sizing schema's validation issue as its reader should see it: the field by its label and
+ * bounds in their units ("Boost must be between 0 and 72.5 psi"). Issues the registry cannot
+ * say better keep the schema's own message.
+ */
+export function issueMessage(issue: IssueLike, system: UnitSystem): string {
+  if (issue.code === "custom" && isTemplateParams(issue.params))
+    return fillTemplate(issue.params.template, issue.params.figures, system);
+  const path = issue.path.map(String).join(".");
+  const field = inputField(path);
+  if (!field?.quantity) return issue.message;
+  if ((issue.code === "too_small" || issue.code === "too_big") && issue.origin === "number") {
+    const b = inputBounds(path);
+    if (b?.min === undefined || b.max === undefined) return issue.message;
+    const q = field.quantity;
+    const spec = QUANTITIES[q][system];
+    // Bounds read best without trailing zeros: "between 0 and 72.5 psi".
+    const trim = (t: string) => t.replace(/(\.\d*?)0+(?=\D*$)/, "$1").replace(/\.(?=\D*$)/, "");
+    const low = trim(
+      spec.prefix
+        ? formatValue(q, b.min, system, field.decimals)
+        : formatNumber(q, b.min, system, field.decimals),
+    );
+    const high = trim(formatValue(q, b.max, system, field.decimals));
+    return `${field.label} must be between ${low} and ${high}`;
+  }
+  return issue.message;
+}
+
+/** Field messages by path ("engine.maxBoostKpa" → message), the first issue of each path. */
+export function issueMessages(
+  issues: readonly IssueLike[],
+  system: UnitSystem,
+): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const i of issues) out[i.path.map(String).join(".")] ??= issueMessage(i, system);
+  return out;
+}
