@@ -10,7 +10,7 @@ import { UnitNumberField } from "@/components/ui/unit-number-field";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import { saveBuildAction } from "@/lib/builds/build-actions";
 import type { BuildResult, CurrentBuildData } from "@/lib/builds/build-data";
-import { diffInputs, stableJson } from "@/lib/builds/diff";
+import { diffInputs, stableJson, type InputChange } from "@/lib/builds/diff";
 import {
   AN_SIZES,
   ASPIRATION_CLASS_LABELS,
@@ -28,10 +28,17 @@ import {
 } from "@/lib/calc";
 import { STATUS_LABELS, STATUS_NEXT, type BuildStatus } from "@/lib/domain/builds";
 import { setUnitsAction } from "@/lib/preferences/preference-actions";
+import {
+  DEFAULT_DRIVE_TYPE,
+  effectiveInputs,
+  type DriveType,
+  type SizingSettings,
+} from "@/lib/sizing/effective-inputs";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
 import { SizingCharts } from "./sizing-charts";
+import { SizingSettingsNote } from "./sizing-settings-note";
 
 /** The optional parts of a build, switched on and off in the form. */
 const OPTIONAL = ["feed", "return", "wiring", "deadTime"] as const;
@@ -74,6 +81,7 @@ const toNumber = (v: unknown) =>
       ? v
       : Number(String(v).replace(",", "."));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
+const driveTypeOf = (v: Values): DriveType => v.target?.driveType ?? DEFAULT_DRIVE_TYPE;
 
 /** Form values (shown units, optional parts kept while switched off) → the canonical inputs. */
 function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput): FuelSystemInput {
@@ -177,8 +185,26 @@ export function BuildEditor(props: {
   readOnly: boolean;
   units: UnitSystem;
   shopBsfc?: ShopBsfcRow[];
+  /** The shop's settings of today: what a save sizes with, so the live results use them too. */
+  sizingSettings: SizingSettings;
+  /**
+   * Where the saved version was sized under other settings than today's: what today's would
+   * change in what is sized (empty or left out: nothing).
+   */
+  settingsChanges?: InputChange[];
 }) {
   const [version, setVersion] = useState(props.version);
+  // The drive select always shows one; a build that names none is sized as manual anyway.
+  const initialInputs = useMemo(
+    (): FuelSystemInput => ({
+      ...props.inputs,
+      target: {
+        ...props.inputs.target,
+        driveType: props.inputs.target.driveType ?? DEFAULT_DRIVE_TYPE,
+      },
+    }),
+    [props.inputs],
+  );
   const [units, setUnits] = useState<UnitSystem>(props.units);
   const [saved, setSaved] = useState<ActionState<BuildResult> | null>(null);
   // On a stale version: the build as someone else saved it meanwhile.
@@ -186,13 +212,13 @@ export function BuildEditor(props: {
     saved && !saved.ok && saved.status === 409 ? (saved.current as CurrentBuildData) : null;
   // The canonical inputs, title and status as last saved: what "unsaved changes" compares against.
   const [baseline, setBaseline] = useState({
-    inputs: props.inputs,
+    inputs: initialInputs,
     title: props.title,
     status: props.status,
   });
   const [pending, start] = useTransition();
   const { register, control, reset, getValues, setValue } = useForm<Values>({
-    defaultValues: valuesOf(props.inputs, props.units, props.title, props.status),
+    defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
   const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
@@ -201,10 +227,18 @@ export function BuildEditor(props: {
     () => inputsOf(values, units, baseline.inputs),
     [values, units, baseline.inputs],
   );
+  // The build's own inputs (what a save sends) and, with the shop's settings, what is sized.
   const parsed = useMemo(() => FuelSystemInputSchema.safeParse(inputs), [inputs]);
+  const effective = useMemo(
+    () =>
+      parsed.success
+        ? FuelSystemInputSchema.safeParse(effectiveInputs(props.sizingSettings, parsed.data))
+        : null,
+    [parsed, props.sizingSettings],
+  );
   const result = useMemo(
-    () => (parsed.success ? sizeParsedFuelSystem(parsed.data) : null),
-    [parsed],
+    () => (effective?.success ? sizeParsedFuelSystem(effective.data) : null),
+    [effective],
   );
   const baselineJson = useMemo(
     () => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs),
@@ -218,10 +252,14 @@ export function BuildEditor(props: {
   const errors = useMemo(() => {
     const out: Record<string, string> = {};
     if (!parsed.success) for (const i of parsed.error.issues) out[i.path.join(".")] ??= i.message;
+    // A value the build states that clashes with a shop setting (a caution level above the
+    // shop's danger level) shows where it was typed.
+    if (effective && !effective.success)
+      for (const i of effective.error.issues) out[i.path.join(".")] ??= i.message;
     for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
       if (v[0]) out[k.replace(/^inputs\./, "")] ??= v[0];
     return out;
-  }, [parsed, saved]);
+  }, [parsed, effective, saved]);
 
   // Unsaved changes are not lost by leaving the page by accident.
   useEffect(() => {
@@ -256,6 +294,26 @@ export function BuildEditor(props: {
     setUnits(next);
     void setUnitsAction(initialActionState, { units: next });
   };
+
+  // "Re-size with today's settings": the saved inputs saved again, through the normal save.
+  const [resized, setResized] = useState(false);
+  const resize = () =>
+    start(async () => {
+      const res = await saveBuildAction(initialActionState, {
+        id: props.buildId,
+        version,
+        inputs: baseline.inputs,
+        note: "Re-sized with today's shop settings",
+      });
+      if (res.ok && res.data) {
+        setVersion(res.data.build.version);
+        setResized(true);
+        setSaved({
+          ...res,
+          message: `Re-sized with today's shop settings as version ${res.data.build.version}`,
+        });
+      } else setSaved(res);
+    });
 
   const save = () =>
     start(async () => {
@@ -367,14 +425,49 @@ export function BuildEditor(props: {
   const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
+  const changes = resized ? [] : (props.settingsChanges ?? []);
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      {changes.length > 0 ? (
+        <div
+          role="status"
+          data-testid="settings-changed"
+          className="rounded-lg border border-caution-600 bg-caution-50 p-4 text-sm text-ink-800 lg:col-span-2"
+        >
+          <p className="font-semibold">
+            ▲ Version {version} was sized with the shop&apos;s settings of the time.
+          </p>
+          <p className="mt-1">
+            Today&apos;s settings change what is sized; the figures on this page use today&apos;s,
+            the saved version and its spec sheet keep the old ones:
+          </p>
+          <ul className="mt-1 list-inside list-disc">
+            {changes.map((c) => (
+              <li key={c.path}>
+                {c.label}: <span className="figure">{c.before}</span> →{" "}
+                <span className="figure">{c.after}</span>
+              </li>
+            ))}
+          </ul>
+          {!props.readOnly ? (
+            <Button
+              type="button"
+              variant="secondary"
+              className="mt-2"
+              disabled={pending}
+              onClick={resize}
+            >
+              Re-size with today&apos;s settings
+            </Button>
+          ) : null}
+        </div>
+      ) : null}
       <form
         aria-label="Build inputs"
         noValidate
         onSubmit={(e) => {
           e.preventDefault();
-          if (parsed.success) save();
+          if (parsed.success && effective?.success) save();
           else setSaved({ ok: false, message: "Check the highlighted fields" });
         }}
       >
@@ -433,7 +526,21 @@ export function BuildEditor(props: {
               ["wheel", "the wheels"],
               ["crank", "the crank"],
             ])}
-            {num("target.drivetrainLossPct", "Drivetrain loss", "%")}
+            {select("target.driveType", "Drive", [
+              ["manual", "Manual gearbox"],
+              ["automatic", "Automatic gearbox"],
+              ["awd", "All-wheel drive"],
+            ])}
+            <div>
+              {num("target.drivetrainLossPct", "Drivetrain loss", "%")}
+              {values.target?.drivetrainLossPct === undefined ||
+              String(values.target?.drivetrainLossPct) === "" ? (
+                <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
+                  Blank: the shop&apos;s{" "}
+                  {props.sizingSettings.drivetrainLossPct[driveTypeOf(values)]} % for this drive.
+                </p>
+              ) : null}
+            </div>
           </Section>
           <Section title="Fuel and blend range">
             {num("fuel.ethanolMinVolPct", "Lowest ethanol", "%")}
@@ -602,10 +709,13 @@ export function BuildEditor(props: {
       </form>
       <div>
         <ResultsPanel result={result} units={units} />
-        {result && parsed.success ? (
-          <div className="mt-4">
-            <SizingCharts input={parsed.data} result={result} units={units} />
-          </div>
+        {result && effective?.success ? (
+          <>
+            <SizingSettingsNote input={effective.data} result={result} units={units} />
+            <div className="mt-4">
+              <SizingCharts input={effective.data} result={result} units={units} />
+            </div>
+          </>
         ) : null}
       </div>
     </div>

@@ -5,6 +5,7 @@ import { buildRevisions, builds, customers, member, user, type Build } from "@/d
 import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { type BuildStatus, type ChosenPart } from "@/lib/domain/builds";
 import { Conflict, NotFound } from "@/lib/domain/errors";
+import type { SizingSettings } from "@/lib/sizing/effective-inputs";
 
 import { escapeLike } from "./like";
 
@@ -167,6 +168,8 @@ export interface BuildPatch {
     inputsSchemaVersion: number;
     result: FuelSystemResult;
     calcVersion: string;
+    /** The shop settings it was sized with. */
+    sizingSettings: SizingSettings;
   };
   parts?: ChosenPart[];
 }
@@ -263,6 +266,7 @@ export async function saveBuild(
       inputsSchemaVersion: b.inputsSchemaVersion,
       result: b.result,
       calcVersion: b.calcVersion,
+      sizingSettings: b.sizingSettings,
       parts: b.parts,
       authorId: userId,
       note: v.note || null,

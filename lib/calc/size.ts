@@ -107,13 +107,16 @@ export interface FuelSystemResult {
   trace: TraceStep[];
 }
 
-const DEFAULT_LIMITS = {
+/** The library's limits where neither the build nor the shop gives one (calc-spec §3–§5, common practice). */
+export const DEFAULT_LIMITS = {
   designDutyPct: 80,
   dutyCautionPct: 80,
   dutyDangerPct: 90,
   minPumpMarginPct: 25,
   maxLineDropKpa: 14,
-};
+} as const;
+/** The library's drivetrain loss where neither the build nor the shop gives one (common practice, no source). */
+export const DEFAULT_DRIVETRAIN_LOSS_PCT = 15;
 /** Line length assumed for a recommendation when the build gives none. */
 const ASSUMED_LINE_LENGTH_M = 5;
 
@@ -142,23 +145,20 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     warnings.push({ code, severity, message, fix });
   const { engine, target, fuel, injectors, regulator, pumps, electrical } = input;
   const l = input.limits;
-  const limits = l
-    ? {
-        designDutyPct: l.designDutyPct,
-        dutyCautionPct: l.dutyCautionPct,
-        dutyDangerPct: l.dutyDangerPct,
-        minPumpMarginPct: l.minPumpMarginPct,
-        maxLineDropKpa: l.maxLineDropKpa,
-      }
-    : { ...DEFAULT_LIMITS };
+  const limits = {
+    designDutyPct: l?.designDutyPct ?? DEFAULT_LIMITS.designDutyPct,
+    dutyCautionPct: l?.dutyCautionPct ?? DEFAULT_LIMITS.dutyCautionPct,
+    dutyDangerPct: l?.dutyDangerPct ?? DEFAULT_LIMITS.dutyDangerPct,
+    minPumpMarginPct: l?.minPumpMarginPct ?? DEFAULT_LIMITS.minPumpMarginPct,
+    maxLineDropKpa: l?.maxLineDropKpa ?? DEFAULT_LIMITS.maxLineDropKpa,
+  };
+  const lossPct = target.drivetrainLossPct ?? DEFAULT_DRIVETRAIN_LOSS_PCT;
   const design = limits.designDutyPct / 100;
   const n = injectors.count;
 
   // Power
   const wheelPowerKw =
-    target.measuredAt === "wheel"
-      ? target.powerKw
-      : target.powerKw * (1 - target.drivetrainLossPct / 100);
+    target.measuredAt === "wheel" ? target.powerKw : target.powerKw * (1 - lossPct / 100);
   const crankPowerKw =
     target.measuredAt === "wheel"
       ? t.add({
@@ -167,9 +167,9 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
           formula: "wheel power ÷ (1 − drivetrain loss)",
           inputs: [
             { label: "wheel power", value: target.powerKw, unit: "kW" },
-            { label: "drivetrain loss", value: target.drivetrainLossPct, unit: "%" },
+            { label: "drivetrain loss", value: lossPct, unit: "%" },
           ],
-          value: target.powerKw / (1 - target.drivetrainLossPct / 100),
+          value: target.powerKw / (1 - lossPct / 100),
           unit: "kW",
         })
       : target.powerKw;
@@ -235,7 +235,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     ethanolVolPct: number,
     which: "lean" | "rich",
   ): { props: FuelBlend; end: BlendEnd } => {
-    const b = fuelBlend(ethanolVolPct);
+    const b = fuelBlend(ethanolVolPct, fuel.properties);
     const tag = which === "lean" ? "lowest" : "highest";
     let bsfc: number;
     let bsfcSource: BlendEnd["bsfcSource"];

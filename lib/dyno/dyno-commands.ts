@@ -14,7 +14,12 @@ import {
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { saved, type BuildResult } from "@/lib/builds/build-data";
-import { readStoredInputs, sizeForSave } from "@/lib/builds/stored-inputs";
+import {
+  readStoredInputs,
+  sizeForSave,
+  storedEffectiveInputs,
+  storedSizingSettings,
+} from "@/lib/builds/stored-inputs";
 import { DatalogError, headerKey, mappingProblems, parseDatalog } from "@/lib/calc";
 import { STATUS_LABELS, STATUS_NEXT } from "@/lib/domain/builds";
 import { Conflict, Invalid, NotFound } from "@/lib/domain/errors";
@@ -77,7 +82,7 @@ export async function analyseDatalog(m: Member, input: z.output<typeof DatalogAn
     );
   const row = await getBuild(m.shopId, d.buildId);
   if (!row) throw new NotFound("That build");
-  const out = analyseLog(log, input.mapping, readStoredInputs(row.build));
+  const out = analyseLog(log, input.mapping, storedEffectiveInputs(row.build));
   await saveAnalysis(
     m.shopId,
     m.user.id,
@@ -115,7 +120,8 @@ export async function verifyBuildWithDatalog(
     saveBuildVerifiedByDatalog(m.shopId, m.user.id, d.id, b.id, b.version, {
       status: "verified",
       note: `Verified with dyno log ${d.fileName}`,
-      sized: sizeForSave(readStoredInputs(b)),
+      // Verification moves the status: the figures stay those the log was compared with.
+      sized: sizeForSave(storedSizingSettings(b), readStoredInputs(b)),
     }),
   );
 }

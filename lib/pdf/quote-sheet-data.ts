@@ -30,6 +30,7 @@ export async function quoteSheetData(
   const money = (v: number) => formatMoney(v, qt.currency);
   const t = quoteTotals(q.lines, qt.taxRateBp);
   const depositBp = settings?.settings.depositBp ?? 3000;
+  const timeZone = settings?.settings.timeZone ?? "UTC";
   const paid = payments.find((p) => p.status === "paid");
   const showDeposit =
     depositBp > 0 && ["sent", "accepted", "deposit_paid", "ordered"].includes(qt.status);
@@ -69,7 +70,7 @@ export async function quoteSheetData(
       ? {
           pct: String(depositBp / 100),
           amount: money(paid.amountMinor),
-          paid: paid.paidAt ? formatDate(paid.paidAt) : "",
+          paid: paid.paidAt ? formatDate(paid.paidAt, { timeZone }) : "",
         }
       : showDeposit
         ? {
@@ -78,6 +79,8 @@ export async function quoteSheetData(
             paid: null,
           }
         : null,
+    paper: settings?.settings.paperSize ?? "a4",
+    timeZone,
   };
 }
 

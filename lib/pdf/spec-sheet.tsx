@@ -23,6 +23,7 @@ import {
   type UnitSystem,
 } from "@/lib/calc";
 import { type ChosenPart } from "@/lib/domain/builds";
+import { PDF_PAGE_SIZE, type PaperSize } from "@/lib/domain/documents";
 import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
@@ -50,6 +51,9 @@ export interface SpecSheetData {
   result: FuelSystemResult;
   parts: ChosenPart[];
   units: UnitSystem;
+  /** The shop's paper and time zone (every date printed is a day in that zone). */
+  paper: PaperSize;
+  timeZone: string;
   /** On a verified revision: the dyno log it was verified with, and what that log measured. */
   verification?: {
     fileName: string;
@@ -68,11 +72,13 @@ function Verification({
   r,
   q,
   n,
+  timeZone,
 }: {
   v: NonNullable<SpecSheetData["verification"]>;
   r: FuelSystemResult;
   q: (quantity: Quantity, x: number) => string;
   n: (x: number, dp?: number) => string;
+  timeZone: string;
 }) {
   const a = v.analysis;
   const cell = { width: "33%" } as const;
@@ -115,7 +121,7 @@ function Verification({
       <Text style={s.h2}>Measured on the dyno</Text>
       <Text style={s.muted}>
         {pdfText(
-          `Verified ${formatDate(v.verifiedAt)} with the log ${v.fileName} (${a.samples} samples).`,
+          `Verified ${formatDate(v.verifiedAt, { timeZone })} with the log ${v.fileName} (${a.samples} samples).`,
         )}
       </Text>
       <View style={[s.row, { fontWeight: 700, marginTop: 3 }]}>
@@ -223,6 +229,8 @@ function Chart({
   );
 }
 
+const DRIVE_LABELS = { manual: "manual", automatic: "automatic", awd: "all-wheel-drive" } as const;
+
 function SpecSheet({ d }: { d: SpecSheetData }) {
   const { input, result: r, units } = d;
   const q = (quantity: Quantity, v: number) =>
@@ -245,12 +253,12 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
       subject="Fuel system spec sheet"
       creator="Fuelwright"
     >
-      <Page size="A4" style={s.page}>
+      <Page size={PDF_PAGE_SIZE[d.paper]} style={s.page}>
         <Letterhead
           shop={d.shop}
           title="Fuel system spec sheet"
           lines={[
-            `Revision ${d.build.version} · ${formatDate(d.build.savedAt)}`,
+            `Revision ${d.build.version} · ${formatDate(d.build.savedAt, { timeZone: d.timeZone })}`,
             `Tuner: ${d.build.tunerName ?? "-"}`,
           ]}
         />
@@ -292,6 +300,11 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
             </Text>
           </View>
         </View>
+        <Text style={[s.muted, { marginTop: 3 }]}>
+          {pdfText(
+            `Sized for ${n(r.limits.designDutyPct)} % injector duty (caution above ${n(r.limits.dutyCautionPct)} %, danger above ${n(r.limits.dutyDangerPct)} %), a pump margin of at least ${n(r.limits.minPumpMarginPct)} % and line drops of at most ${q("pressure", r.limits.maxLineDropKpa)}; ${DRIVE_LABELS[input.target.driveType ?? "manual"]} drivetrain.`,
+          )}
+        </Text>
 
         <Text style={s.h2}>Key figures</Text>
         <View style={[s.row, { flexWrap: "wrap", gap: 0 }]}>
@@ -365,7 +378,9 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           />
         </View>
 
-        {d.verification ? <Verification v={d.verification} r={r} q={q} n={n} /> : null}
+        {d.verification ? (
+          <Verification v={d.verification} r={r} q={q} n={n} timeZone={d.timeZone} />
+        ) : null}
 
         <Text style={s.h2}>Chosen parts</Text>
         {d.parts.length === 0 ? (

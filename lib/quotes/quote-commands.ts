@@ -34,6 +34,7 @@ import {
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
+import { calendarDay } from "@/lib/format/dates";
 import { sendMail } from "@/lib/mail";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 
@@ -261,6 +262,7 @@ export async function respondToQuote(
  */
 export async function expireDueQuotes(member: Member): Promise<{ expired: string[] }> {
   authorize(member, "quotes:view");
-  const today = new Date().toISOString().slice(0, 10);
-  return { expired: await expireQuotes(member.shopId, today) };
+  // "Valid until" is a day in the shop's zone: a quote lasts to the end of that day there.
+  const zone = (await getShopSettings(member.shopId))?.settings.timeZone ?? "UTC";
+  return { expired: await expireQuotes(member.shopId, calendarDay(new Date(), zone)) };
 }
