@@ -526,7 +526,7 @@ export function BuildEditor(props: {
               ["wheel", "the wheels"],
               ["crank", "the crank"],
             ])}
-            {select("target.driveType", "Drive", [
+            {select("target.driveType", "Drive type", [
               ["manual", "Manual gearbox"],
               ["automatic", "Automatic gearbox"],
               ["awd", "All-wheel drive"],

@@ -33,7 +33,7 @@ const LABELS: Record<string, string> = {
   "target.powerKw": "Target power",
   "target.measuredAt": "Measured at",
   "target.drivetrainLossPct": "Drivetrain loss",
-  "target.driveType": "Drive",
+  "target.driveType": "Drive type",
   "limits.designDutyPct": "Design duty",
   "limits.dutyCautionPct": "Duty caution level",
   "limits.dutyDangerPct": "Duty danger level",

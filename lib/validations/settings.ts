@@ -96,11 +96,17 @@ export const ShopSettingsSchema = ShopSettingsFields.refine(
  */
 export const ShopSettingsPatchSchema = ShopSettingsFields.partial()
   .loose()
-  .superRefine((v, ctx) => {
-    for (const k of Object.keys(v))
-      if (!Object.hasOwn(ShopSettingsFields.shape, k))
-        ctx.addIssue({ code: "custom", path: [k], message: `${k} is not a shop setting` });
-  });
+  .superRefine(
+    (v, ctx) => {
+      for (const k of Object.keys(v))
+        if (!Object.hasOwn(ShopSettingsFields.shape, k))
+          ctx.addIssue({ code: "custom", path: [k], message: `${k} is not a shop setting` });
+    },
+    // Named beside the other fields' errors, not only once they are right.
+    {
+      when: (p) => typeof p.value === "object" && p.value !== null && !Array.isArray(p.value),
+    },
+  );
 
 export const InviteSchema = z.object({
   email: z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address")),
