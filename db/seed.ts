@@ -8,6 +8,7 @@ import { sql as dsql, eq } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 
+import { INPUTS_SCHEMA_VERSION } from "../lib/builds/stored-inputs";
 import {
   CALC_VERSION,
   FuelSystemInputSchema,
@@ -16,6 +17,7 @@ import {
 } from "../lib/calc";
 import { DEFAULT_BSFC } from "../lib/calc/power";
 import { quoteTotals } from "../lib/catalog/quote-totals";
+import { parsedEffectiveInputs, sizingSettingsOf } from "../lib/sizing/effective-inputs";
 import * as schema from "./schema";
 import { DEMO_PARTS } from "./seed-catalog";
 
@@ -336,10 +338,23 @@ export async function seed(url: string) {
           .insert(schema.customers)
           .values({ ...c, shopId: DEMO_SHOP_ID })
           .onConflictDoNothing();
+      // Sized like every save: the build's own inputs with the demo shop's settings.
+      const [demoSettings] = await tx
+        .select()
+        .from(schema.shopSettings)
+        .where(eq(schema.shopSettings.shopId, DEMO_SHOP_ID));
+      const sizingSettings = sizingSettingsOf(demoSettings!);
       for (const b of DEMO_BUILDS) {
         const inputs = FuelSystemInputSchema.parse(b.inputs);
-        const result = sizeParsedFuelSystem(inputs);
-        const row = { shopId: DEMO_SHOP_ID, inputs, result, calcVersion: CALC_VERSION };
+        const result = sizeParsedFuelSystem(parsedEffectiveInputs(sizingSettings, inputs));
+        const row = {
+          shopId: DEMO_SHOP_ID,
+          inputs,
+          inputsSchemaVersion: INPUTS_SCHEMA_VERSION,
+          result,
+          calcVersion: CALC_VERSION,
+          sizingSettings,
+        };
         const inserted = await tx
           .insert(schema.builds)
           .values({

@@ -10,7 +10,7 @@ import { UnitNumberField } from "@/components/ui/unit-number-field";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import { saveBuildAction } from "@/lib/builds/build-actions";
 import type { BuildResult, CurrentBuildData } from "@/lib/builds/build-data";
-import { diffInputs, stableJson } from "@/lib/builds/diff";
+import { diffInputs, stableJson, type InputChange } from "@/lib/builds/diff";
 import {
   AN_SIZES,
   ASPIRATION_CLASS_LABELS,
@@ -36,11 +36,18 @@ import {
   type BuildStatusFacts,
 } from "@/lib/domain/builds";
 import { setUnitsAction } from "@/lib/preferences/preference-actions";
+import {
+  DEFAULT_DRIVE_TYPE,
+  effectiveInputs,
+  type DriveType,
+  type SizingSettings,
+} from "@/lib/sizing/effective-inputs";
 import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
 import { SizingCharts } from "./sizing-charts";
+import { SizingSettingsNote } from "./sizing-settings-note";
 
 /** The optional parts of a build, switched on and off in the form. */
 const OPTIONAL = ["feed", "return", "wiring", "deadTime"] as const;
@@ -83,6 +90,7 @@ const toNumber = (v: unknown) =>
       ? v
       : Number(String(v).replace(",", "."));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
+const driveTypeOf = (v: Values): DriveType => v.target?.driveType ?? DEFAULT_DRIVE_TYPE;
 
 /** Form values (shown units, optional parts kept while switched off) → the canonical inputs. */
 function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput): FuelSystemInput {
@@ -251,8 +259,26 @@ export function BuildEditor(props: {
   readOnly: boolean;
   units: UnitSystem;
   shopBsfc?: ShopBsfcRow[];
+  /** The shop's settings of today: what a save sizes with, so the live results use them too. */
+  sizingSettings: SizingSettings;
+  /**
+   * Where the saved version was sized under other settings than today's: what today's would
+   * change in what is sized (empty or left out: nothing).
+   */
+  settingsChanges?: InputChange[];
 }) {
   const [version, setVersion] = useState(props.version);
+  // The drive select always shows one; a build that names none is sized as manual anyway.
+  const initialInputs = useMemo(
+    (): FuelSystemInput => ({
+      ...props.inputs,
+      target: {
+        ...props.inputs.target,
+        driveType: props.inputs.target.driveType ?? DEFAULT_DRIVE_TYPE,
+      },
+    }),
+    [props.inputs],
+  );
   const [units, setUnits] = useState<UnitSystem>(props.units);
   const [saved, setSaved] = useState<ActionState<BuildResult> | null>(null);
   // On a stale version: the build as someone else saved it meanwhile.
@@ -260,13 +286,13 @@ export function BuildEditor(props: {
     saved && !saved.ok && saved.status === 409 ? (saved.current as CurrentBuildData) : null;
   // The canonical inputs, title and status as last saved: what "unsaved changes" compares against.
   const [baseline, setBaseline] = useState({
-    inputs: props.inputs,
+    inputs: initialInputs,
     title: props.title,
     status: props.status,
   });
   const [pending, start] = useTransition();
   const { register, control, reset, getValues, setValue } = useForm<Values>({
-    defaultValues: valuesOf(props.inputs, props.units, props.title, props.status),
+    defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
   const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
@@ -275,10 +301,18 @@ export function BuildEditor(props: {
     () => inputsOf(values, units, baseline.inputs),
     [values, units, baseline.inputs],
   );
+  // The build's own inputs (what a save sends) and, with the shop's settings, what is sized.
   const parsed = useMemo(() => FuelSystemInputSchema.safeParse(inputs), [inputs]);
+  const effective = useMemo(
+    () =>
+      parsed.success
+        ? FuelSystemInputSchema.safeParse(effectiveInputs(props.sizingSettings, parsed.data))
+        : null,
+    [parsed, props.sizingSettings],
+  );
   const result = useMemo(
-    () => (parsed.success ? sizeParsedFuelSystem(parsed.data) : null),
-    [parsed],
+    () => (effective?.success ? sizeParsedFuelSystem(effective.data) : null),
+    [effective],
   );
   const baselineJson = useMemo(
     () => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs),
@@ -298,11 +332,16 @@ export function BuildEditor(props: {
     const out: Record<string, string> = parsed.success
       ? {}
       : issueMessages(parsed.error.issues, units);
+    // A value the build states that clashes with a shop setting (a caution level above the
+    // shop's danger level) shows where it was typed.
+    if (effective && !effective.success)
+      for (const [k, v] of Object.entries(issueMessages(effective.error.issues, units)))
+        out[k] ??= v;
     if (!titleCheck.success) out.title = titleCheck.error.issues[0]!.message;
     for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
       if (v[0]) out[k.replace(/^inputs\./, "")] ??= v[0];
     return out;
-  }, [parsed, titleCheck, saved, units]);
+  }, [parsed, effective, titleCheck, saved, units]);
   const formRef = useRef<HTMLFormElement>(null);
   /** Moves the focus to the first highlighted field, in the order of the sheet. */
   const focusFirstInvalid = () =>
@@ -348,6 +387,26 @@ export function BuildEditor(props: {
     setUnits(next);
     void setUnitsAction(initialActionState, { units: next });
   };
+
+  // "Re-size with today's settings": the saved inputs saved again, through the normal save.
+  const [resized, setResized] = useState(false);
+  const resize = () =>
+    start(async () => {
+      const res = await saveBuildAction(initialActionState, {
+        id: props.buildId,
+        version,
+        inputs: baseline.inputs,
+        note: "Re-sized with today's shop settings",
+      });
+      if (res.ok && res.data) {
+        setVersion(res.data.build.version);
+        setResized(true);
+        setSaved({
+          ...res,
+          message: `Re-sized with today's shop settings as version ${res.data.build.version}`,
+        });
+      } else setSaved(res);
+    });
 
   const save = () =>
     start(async () => {
@@ -457,15 +516,50 @@ export function BuildEditor(props: {
   const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
+  const changes = resized ? [] : (props.settingsChanges ?? []);
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      {changes.length > 0 ? (
+        <div
+          role="status"
+          data-testid="settings-changed"
+          className="rounded-lg border border-caution-600 bg-caution-50 p-4 text-sm text-ink-800 lg:col-span-2"
+        >
+          <p className="font-semibold">
+            ▲ Version {version} was sized with the shop&apos;s settings of the time.
+          </p>
+          <p className="mt-1">
+            Today&apos;s settings change what is sized; the figures on this page use today&apos;s,
+            the saved version and its spec sheet keep the old ones:
+          </p>
+          <ul className="mt-1 list-inside list-disc">
+            {changes.map((c) => (
+              <li key={c.path}>
+                {c.label}: <span className="figure">{c.before}</span> →{" "}
+                <span className="figure">{c.after}</span>
+              </li>
+            ))}
+          </ul>
+          {!props.readOnly ? (
+            <Button
+              type="button"
+              variant="secondary"
+              className="mt-2"
+              disabled={pending}
+              onClick={resize}
+            >
+              Re-size with today&apos;s settings
+            </Button>
+          ) : null}
+        </div>
+      ) : null}
       <form
         ref={formRef}
         aria-label="Build inputs"
         noValidate
         onSubmit={(e) => {
           e.preventDefault();
-          if (parsed.success && titleCheck.success) save();
+          if (parsed.success && effective?.success && titleCheck.success) save();
           else {
             setSaved({ ok: false, message: "Check the highlighted fields" });
             focusFirstInvalid();
@@ -529,7 +623,23 @@ export function BuildEditor(props: {
           <Section title="Power goal">
             {num("target.powerKw")}
             {select("target.measuredAt")}
-            {num("target.drivetrainLossPct")}
+            {select("target.driveType")}
+            <div>
+              {num("target.drivetrainLossPct")}
+              {values.target?.drivetrainLossPct === undefined ||
+              String(values.target?.drivetrainLossPct) === "" ? (
+                <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
+                  Blank: the shop&apos;s{" "}
+                  {formatValue(
+                    "percent",
+                    props.sizingSettings.drivetrainLossPct[driveTypeOf(values)],
+                    units,
+                    0,
+                  )}{" "}
+                  for this drive.
+                </p>
+              ) : null}
+            </div>
           </Section>
           <Section title="Fuel and blend range">
             {num("fuel.ethanolMinVolPct")}
@@ -687,10 +797,13 @@ export function BuildEditor(props: {
       </form>
       <div>
         <ResultsPanel result={result} units={units} />
-        {result && parsed.success ? (
-          <div className="mt-4">
-            <SizingCharts input={parsed.data} result={result} units={units} />
-          </div>
+        {result && effective?.success ? (
+          <>
+            <SizingSettingsNote input={effective.data} result={result} units={units} />
+            <div className="mt-4">
+              <SizingCharts input={effective.data} result={result} units={units} />
+            </div>
+          </>
         ) : null}
       </div>
     </div>

@@ -14,6 +14,7 @@ import {
 import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { type BuildStatus, type BuildStatusFacts, type ChosenPart } from "@/lib/domain/builds";
 import { Conflict, NotFound } from "@/lib/domain/errors";
+import type { SizingSettings } from "@/lib/sizing/effective-inputs";
 
 import { escapeLike } from "./like";
 import { differs } from "./unchanged";
@@ -217,6 +218,8 @@ export interface BuildPatch {
     inputsSchemaVersion: number;
     result: FuelSystemResult;
     calcVersion: string;
+    /** The shop settings it was sized with. */
+    sizingSettings: SizingSettings;
   };
   parts?: ChosenPart[];
   /**
@@ -356,6 +359,7 @@ export async function saveBuild(
       inputsSchemaVersion: b.inputsSchemaVersion,
       result: b.result,
       calcVersion: b.calcVersion,
+      sizingSettings: b.sizingSettings,
       parts: b.parts,
       authorId: userId,
       note: v.note || null,

@@ -20,6 +20,7 @@ import {
   QUOTE_STATUS_LABELS,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
+import { calendarDay } from "@/lib/format/dates";
 import type { QuoteLineInput } from "@/lib/validations/quotes";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
@@ -108,8 +109,6 @@ async function writeLines(
   };
 }
 
-const addDays = (days: number) => new Date(Date.now() + days * 86400000).toISOString().slice(0, 10);
-
 /** A new draft quote with the next number of the shop (the command checked customer and parts). */
 export async function insertQuote(
   shopId: string,
@@ -144,7 +143,8 @@ export async function insertQuote(
         buildId: v.buildId ?? null,
         currency: s?.currency ?? "USD",
         taxRateBp: s?.taxRateBp ?? 0,
-        validUntil: v.validUntil ?? addDays(s?.quoteValidDays ?? 30),
+        // Days counted from today in the shop's zone: the day its customer reads on the quote.
+        validUntil: v.validUntil ?? calendarDay(new Date(), s?.timeZone, s?.quoteValidDays ?? 30),
         notes: v.notes ?? null,
         createdBy: userId,
       })

@@ -13,6 +13,7 @@ import {
 
 import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { BUILD_STATUSES, type ChosenPart } from "@/lib/domain/builds";
+import type { SizingSettings } from "@/lib/sizing/effective-inputs";
 
 import { organization, user } from "./auth";
 import { customers } from "./shops";
@@ -39,6 +40,11 @@ export const builds = pgTable(
     inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
     result: jsonb("result").$type<FuelSystemResult>(),
     calcVersion: text("calc_version"),
+    /**
+     * The shop settings the result was sized with (lib/sizing/effective-inputs#SizingSettings);
+     * null: sized before shop settings reached the sizing, i.e. with the library's defaults.
+     */
+    sizingSettings: jsonb("sizing_settings").$type<SizingSettings>(),
     /** Parts chosen from the catalog: [{ role, partId, sku, name, quantity }]. */
     parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
     /** Optimistic concurrency: every save must name the version it started from. */
@@ -81,6 +87,8 @@ export const buildRevisions = pgTable(
     inputsSchemaVersion: integer("inputs_schema_version").notNull().default(1),
     result: jsonb("result").$type<FuelSystemResult>(),
     calcVersion: text("calc_version"),
+    /** As on `builds`: read through `storedSizingSettings`; never changes once written. */
+    sizingSettings: jsonb("sizing_settings").$type<SizingSettings>(),
     parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
     note: text("note"),
     authorId: text("author_id").references(() => user.id, { onDelete: "set null" }),

@@ -10,6 +10,8 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import { PAPER_SIZES } from "@/lib/domain/documents";
+
 import { organization, user } from "./auth";
 
 /** A shop's defaults. One row per shop (organization). BSFC in g/kWh, pressures in kPa. */
@@ -43,6 +45,15 @@ export const shopSettings = pgTable("shop_settings", {
   lossManualPct: real("loss_manual_pct").notNull().default(12),
   lossAutomaticPct: real("loss_automatic_pct").notNull().default(17),
   lossAwdPct: real("loss_awd_pct").notNull().default(22),
+  /** Fuel component properties the shop measures or buys to (null: the library's, lib/calc/constants). */
+  gasolineDensityKgPerL: real("gasoline_density_kg_per_l"),
+  gasolineStoichAfr: real("gasoline_stoich_afr"),
+  ethanolDensityKgPerL: real("ethanol_density_kg_per_l"),
+  ethanolStoichAfr: real("ethanol_stoich_afr"),
+  /** Paper of every PDF the shop makes. */
+  paperSize: text("paper_size", { enum: PAPER_SIZES }).notNull().default("letter"),
+  /** IANA zone of every date a person reads in the shop's documents and e-mails. */
+  timeZone: text("time_zone").notNull().default("UTC"),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

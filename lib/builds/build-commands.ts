@@ -16,6 +16,7 @@ import { authorize } from "@/lib/auth/permissions";
 import { refusedMove, type BuildStatus } from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
 import { isoDay } from "@/lib/domain/quotes";
+import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import type {
   BuildCreateSchema,
   BuildRefSchema,
@@ -39,18 +40,19 @@ export async function createBuild(
     customerId: input.customerId,
     title: input.title,
     vehicle: input.vehicle,
-    sized: sizeForSave(input.inputs ?? newBuildInputs()),
+    sized: sizeForSave(await shopSizingSettings(m.shopId), input.inputs ?? newBuildInputs()),
   });
   return { build: buildData(b) };
 }
 
 /**
  * Saves the build sheet from the version the edit started from: only the fields sent change, the
- * inputs are validated and sized again on the server, a status moves only along STATUS_NEXT and
- * only when its precondition holds (lib/domain/builds.ts#statusMoves: the build's quotes, its
- * verified dyno log), checked in the save's transaction — else 422 invalid_transition saying
- * what is missing. A stale version → Conflict (409) carrying the current build; nothing is
- * overwritten.
+ * inputs are validated and sized again on the server with the shop's settings of today (so
+ * sending the stored inputs back re-sizes a build made under older settings), a status moves
+ * only along STATUS_NEXT and only when its precondition holds (lib/domain/builds.ts#statusMoves:
+ * the build's quotes, its verified dyno log), checked in the save's transaction — else 422
+ * invalid_transition saying what is missing. A stale version → Conflict (409) carrying the
+ * current build; nothing is overwritten.
  */
 export async function saveBuild(
   m: Member,
@@ -66,7 +68,10 @@ export async function saveBuild(
       id,
       m.user.id,
       version,
-      { ...fields, ...(inputs ? { sized: sizeForSave(inputs) } : {}) },
+      {
+        ...fields,
+        ...(inputs ? { sized: sizeForSave(await shopSizingSettings(m.shopId), inputs) } : {}),
+      },
       undefined,
       input.status ? statusRule(m.shopId, id, input.status) : undefined,
     ),
@@ -85,12 +90,15 @@ export async function copyBuild(
     customerId: row.build.customerId,
     title: `${row.build.title} — next step`.slice(0, 120),
     vehicle: row.build.vehicle ?? undefined,
-    sized: sizeForSave(readStoredInputs(row.build)),
+    sized: sizeForSave(await shopSizingSettings(m.shopId), readStoredInputs(row.build)),
   });
   return { build: buildData(b) };
 }
 
-/** Restores an earlier revision's inputs and parts as a new revision, sized with today's library. */
+/**
+ * Restores an earlier revision's inputs and parts as a new revision, sized with today's library
+ * and today's shop settings (the revision itself keeps the figures it was saved with).
+ */
 export async function restoreRevision(
   m: Member,
   input: z.output<typeof RevisionRestoreSchema>,
@@ -100,7 +108,7 @@ export async function restoreRevision(
   if (!rev) throw new NotFound("That revision");
   return saved(
     saveBuildRow(m.shopId, input.buildId, m.user.id, input.currentVersion, {
-      sized: sizeForSave(readStoredInputs(rev)),
+      sized: sizeForSave(await shopSizingSettings(m.shopId), readStoredInputs(rev)),
       parts: rev.parts,
       note: `Restored from version ${input.version}`,
     }),

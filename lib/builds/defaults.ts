@@ -2,7 +2,8 @@ import { DEFAULT_E85_RANGE, type FuelSystemInput } from "@/lib/calc";
 
 /**
  * Starting inputs of a new build sheet: a boosted six on pump E85 (ASTM D5798 range), with an
- * invented pump curve as a placeholder until parts are chosen from the catalog.
+ * invented pump curve as a placeholder until parts are chosen from the catalog. Limits, BSFC
+ * rules of thumb, drivetrain loss and fuel properties are left to the shop's settings.
  */
 export function newBuildInputs(): FuelSystemInput {
   return {
@@ -14,7 +15,8 @@ export function newBuildInputs(): FuelSystemInput {
       idleRpm: 850,
       maxBoostKpa: 150,
     },
-    target: { powerKw: 375, measuredAt: "wheel", drivetrainLossPct: 15 },
+    // No drivetrain loss of its own: the shop's loss for a manual gearbox applies.
+    target: { powerKw: 375, measuredAt: "wheel", driveType: "manual" },
     fuel: {
       ethanolMinVolPct: DEFAULT_E85_RANGE.ethanolMinVolPct,
       ethanolMaxVolPct: DEFAULT_E85_RANGE.ethanolMaxVolPct,

@@ -10,6 +10,7 @@ import { applyKit } from "@/lib/catalog/recommend";
 import type { ChosenPart, KitRole } from "@/lib/domain/builds";
 import { Invalid, NotFound } from "@/lib/domain/errors";
 import type { PartCategory } from "@/lib/domain/parts";
+import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import type { KitChoiceSchema } from "@/lib/validations/kit";
 
 import { saved, type BuildResult } from "./build-data";
@@ -62,7 +63,10 @@ export async function chooseKit(
   }));
   return saved(
     saveBuild(m.shopId, input.id, m.user.id, input.version, {
-      sized: sizeForSave(applyKit(readStoredInputs(row.build), chosen)),
+      sized: sizeForSave(
+        await shopSizingSettings(m.shopId),
+        applyKit(readStoredInputs(row.build), chosen),
+      ),
       parts,
       note: `Parts chosen: ${parts.map((p) => p.sku).join(", ")}`,
     }),

@@ -5,6 +5,8 @@ import { listParts } from "@/db/queries/parts";
 import type { Part } from "@/db/schema";
 import { recommendKit, type CatalogPart } from "@/lib/catalog/recommend";
 import { NotFound } from "@/lib/domain/errors";
+import { parsedEffectiveInputs } from "@/lib/sizing/effective-inputs";
+import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 
 import { readStoredInputs } from "./stored-inputs";
 
@@ -28,6 +30,10 @@ export async function kitForBuild(shopId: string, buildId: string) {
   const catalog = (await listParts(shopId, { limit: 2000 })).map(catalogPartOf);
   return {
     build: row.build,
-    recommendation: recommendKit(readStoredInputs(row.build), catalog),
+    // Judged as a choice would be saved: the build's inputs with today's shop settings.
+    recommendation: recommendKit(
+      parsedEffectiveInputs(await shopSizingSettings(shopId), readStoredInputs(row.build)),
+      catalog,
+    ),
   };
 }

@@ -7,21 +7,32 @@ import {
   type ParsedFuelSystemInput,
 } from "@/lib/calc";
 import { Unavailable } from "@/lib/domain/errors";
+import {
+  parsedEffectiveInputs,
+  readSizingSettings,
+  type SizingSettings,
+} from "@/lib/sizing/effective-inputs";
 
 /**
  * The format of the sizing inputs kept on builds and revisions (`inputs_schema_version`). Raise it
  * when FuelSystemInputSchema changes so that stored inputs no longer parse, and add the step from
  * the previous version to UPGRADES.
  */
-export const INPUTS_SCHEMA_VERSION = 1;
+export const INPUTS_SCHEMA_VERSION = 2;
 
 /**
- * One step per stored format: turns inputs kept at that version into today's inputs. Version 1 is
- * today's schema. A later format adds `2: (raw) => FuelSystemInputSchema.parse(upgrade1to2(raw))`
+ * One step per stored format: turns inputs kept at that version into today's inputs. Version 2 is
+ * today's schema. A later format adds `3: (raw) => FuelSystemInputSchema.parse(upgrade2to3(raw))`
  * and so on, so every stored version reaches today's shape.
+ *
+ * Version 1 always stated a drivetrain loss and, with `limits`, every limit (the schema filled in
+ * defaults); version 2 leaves out what the build does not state, so the shop's settings apply
+ * (lib/sizing/effective-inputs), and adds the drive type and fuel properties. Version 1 inputs
+ * read as they are: what they stated stays stated, so an old build's figures do not move.
  */
 const UPGRADES: Record<number, (raw: unknown) => ParsedFuelSystemInput> = {
   1: (raw) => FuelSystemInputSchema.parse(raw),
+  2: (raw) => FuelSystemInputSchema.parse(raw),
 };
 
 /** Inputs kept by this version of the product could not be read: a data problem, never the caller's. */
@@ -57,19 +68,47 @@ export function readStoredInputs(row: {
 
 /** What a save writes: the inputs validated, at today's format, and sized again on the server. */
 export interface SizedInputs {
+  /** The build's own inputs (what it states; the shop's settings fill the rest when sized). */
   inputs: ParsedFuelSystemInput;
   inputsSchemaVersion: number;
   result: FuelSystemResult;
   calcVersion: string;
+  /** The shop settings it was sized with, kept beside the result so history never moves. */
+  sizingSettings: SizingSettings;
 }
 
-/** Validates and sizes inputs on the server — the same library the browser ran. */
-export function sizeForSave(inputs: FuelSystemInput): SizedInputs {
+/**
+ * Validates and sizes inputs on the server with the given shop settings — the same library and
+ * the same `effectiveInputs` the browser ran.
+ */
+export function sizeForSave(settings: SizingSettings, inputs: FuelSystemInput): SizedInputs {
   const parsed = FuelSystemInputSchema.parse(inputs);
   return {
     inputs: parsed,
     inputsSchemaVersion: INPUTS_SCHEMA_VERSION,
-    result: sizeParsedFuelSystem(parsed),
+    result: sizeParsedFuelSystem(parsedEffectiveInputs(settings, parsed)),
     calcVersion: CALC_VERSION,
+    sizingSettings: settings,
   };
+}
+
+/** The settings a build or revision was sized with (none stored: the library's defaults). */
+export function storedSizingSettings(row: { sizingSettings: unknown }): SizingSettings {
+  try {
+    return readSizingSettings(row.sizingSettings);
+  } catch (e) {
+    throw new StoredInputsError("Stored sizing settings do not parse", { cause: e });
+  }
+}
+
+/**
+ * What a build or revision was sized with: its own inputs with the settings kept beside them —
+ * the inputs to size it again exactly as it was (spec sheet, dyno comparison, verification).
+ */
+export function storedEffectiveInputs(row: {
+  inputs: unknown;
+  inputsSchemaVersion: number;
+  sizingSettings: unknown;
+}): ParsedFuelSystemInput {
+  return parsedEffectiveInputs(storedSizingSettings(row), readStoredInputs(row));
 }

@@ -47,7 +47,7 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
   const count = Math.max(2, Math.min(101, Math.floor(points)));
   for (let i = 0; i < count; i++) {
     const e = (100 * i) / (count - 1);
-    const b = fuelBlend(e);
+    const b = fuelBlend(e, input.fuel.properties);
     const bsfc =
       input.fuel.bsfcGPerKwh ??
       defaultBsfc({

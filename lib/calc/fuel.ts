@@ -79,6 +79,16 @@ export interface FuelProperties {
   ethanol?: Partial<FuelComponent>;
 }
 
+/** The component with the overrides that are given (a key present but undefined keeps the default). */
+function withDefined(base: FuelComponent, over: Partial<FuelComponent>): FuelComponent {
+  const out = { ...base };
+  for (const k of Object.keys(over) as (keyof FuelComponent)[]) {
+    const v = over[k];
+    if (v !== undefined) out[k] = v;
+  }
+  return out;
+}
+
 /**
  * Properties of a gasoline–ethanol blend named by its ethanol content by volume (E10 = 10).
  * Density is volume-weighted; stoich AFR and heating value are mass-weighted; viscosity uses
@@ -88,8 +98,8 @@ export interface FuelProperties {
  */
 export function fuelBlend(ethanolVolPct: number, properties: FuelProperties = {}): FuelBlend {
   requireRange("ethanolVolPct", ethanolVolPct, 0, 100, "Ethanol content");
-  const g = properties.gasoline ? { ...GASOLINE, ...properties.gasoline } : GASOLINE;
-  const e = properties.ethanol ? { ...ETHANOL, ...properties.ethanol } : ETHANOL;
+  const g = properties.gasoline ? withDefined(GASOLINE, properties.gasoline) : GASOLINE;
+  const e = properties.ethanol ? withDefined(ETHANOL, properties.ethanol) : ETHANOL;
   const v = ethanolVolPct / 100;
   const ethanolMass = v * e.densityKgPerL;
   const gasolineMass = (1 - v) * g.densityKgPerL;

@@ -66,7 +66,13 @@ export type { LineSegment, LineDrop } from "./lines";
 export { awgDiameterMm, copperResistanceOhmPerM, wireVoltageDropV } from "./wire";
 export * from "./units";
 export * from "./schema";
-export { sizeFuelSystem, sizeParsedFuelSystem, CALC_VERSION } from "./size";
+export {
+  sizeFuelSystem,
+  sizeParsedFuelSystem,
+  CALC_VERSION,
+  DEFAULT_LIMITS,
+  DEFAULT_DRIVETRAIN_LOSS_PCT,
+} from "./size";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";

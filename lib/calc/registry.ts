@@ -42,6 +42,11 @@ export const REGULATOR_LABELS: Record<(typeof REGULATOR_TYPES)[number], string> 
   fixed: "Fixed (not referenced)",
 };
 export const MEASURED_AT_LABELS = { wheel: "At the wheels", crank: "At the crank" } as const;
+export const DRIVE_TYPE_LABELS = {
+  manual: "Manual gearbox",
+  automatic: "Automatic gearbox",
+  awd: "All-wheel drive",
+} as const;
 export const DUTY_BAND_LABELS = {
   ok: "Duty fine",
   caution: "Duty high",
@@ -108,6 +113,7 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     options: MEASURED_AT_LABELS,
   },
   "target.drivetrainLossPct": { label: "Drivetrain loss", quantity: "percent", decimals: 0 },
+  "target.driveType": { label: "Drive type", options: DRIVE_TYPE_LABELS },
   fuel: { label: "Fuel" },
   "fuel.ethanolMinVolPct": {
     label: "Lowest ethanol content",
@@ -125,6 +131,13 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     short: "Target lambda (blank: reference)",
     quantity: "lambda",
   },
+  "fuel.properties": { label: "Fuel properties" },
+  "fuel.properties.gasoline": { label: "Gasoline properties" },
+  "fuel.properties.gasoline.densityKgPerL": { label: "Gasoline density", quantity: "density" },
+  "fuel.properties.gasoline.stoichAfr": { label: "Gasoline stoichiometric AFR", quantity: "afr" },
+  "fuel.properties.ethanol": { label: "Ethanol properties" },
+  "fuel.properties.ethanol.densityKgPerL": { label: "Ethanol density", quantity: "density" },
+  "fuel.properties.ethanol.stoichAfr": { label: "Ethanol stoichiometric AFR", quantity: "afr" },
   "fuel.bsfcDefaults": { label: "BSFC defaults" },
   "fuel.bsfcDefaults.gasolineNaGPerKwh": { label: "BSFC default, gasoline NA", quantity: "bsfc" },
   "fuel.bsfcDefaults.gasolineBoostedGPerKwh": {

@@ -19,6 +19,8 @@ const int = (label: string, min: number, max: number) =>
   num(label, min, max).int(`${label} must be a whole number`);
 
 export const ASPIRATIONS = ["na", "turbo", "supercharged"] as const;
+/** How the power reaches the wheels; a shop keeps a drivetrain loss for each. */
+export const DRIVE_TYPES = ["manual", "automatic", "awd"] as const;
 export const REGULATOR_TYPES = ["boost-referenced", "fixed"] as const;
 
 export const EngineSchema = z
@@ -58,7 +60,11 @@ export const TargetSchema = z.object(
     measuredAt: z.enum(["wheel", "crank"], {
       error: "Say whether the power is at the wheels or the crank",
     }),
-    drivetrainLossPct: num("Drivetrain loss", 0, 50, "%").default(15),
+    /** Left out: the shop's loss for the drive type (lib/sizing/effective-inputs), else the library's 15 %. */
+    drivetrainLossPct: num("Drivetrain loss", 0, 50, "%").optional(),
+    driveType: z
+      .enum(DRIVE_TYPES, { error: "Drive type must be manual, automatic or awd" })
+      .optional(),
   },
   { error: "Give the power goal: power and where it is measured" },
 );
@@ -72,6 +78,22 @@ export const BsfcDefaultsSchema = z.object({
   referenceLambdaBoosted: num("Reference lambda boosted", 0.6, 1.3),
 });
 
+/** One fuel component's properties where the library's defaults (lib/calc/constants, fuel.ts) do not fit. */
+const ComponentPropertiesSchema = (
+  name: string,
+  density: [number, number],
+  afr: [number, number],
+) =>
+  z.object({
+    densityKgPerL: num(`${name} density`, density[0], density[1], "kg/L").optional(),
+    stoichAfr: num(`${name} stoichiometric AFR`, afr[0], afr[1]).optional(),
+  });
+
+export const FuelPropertiesSchema = z.object({
+  gasoline: ComponentPropertiesSchema("Gasoline", [0.68, 0.8], [13, 15.5]).optional(),
+  ethanol: ComponentPropertiesSchema("Ethanol", [0.75, 0.83], [8, 10]).optional(),
+});
+
 export const FuelSchema = z
   .object(
     {
@@ -80,6 +102,7 @@ export const FuelSchema = z
       bsfcGPerKwh: num("BSFC", 150, 1200, "g/kWh").optional(),
       targetLambda: num("Target lambda", 0.6, 1.3).optional(),
       bsfcDefaults: BsfcDefaultsSchema.optional(),
+      properties: FuelPropertiesSchema.optional(),
     },
     { error: "Give the fuel: the lowest and highest ethanol content" },
   )
@@ -203,18 +226,25 @@ export const LineSchema = z.object({
 
 export const LinesSchema = z.object({ feed: LineSchema.optional(), return: LineSchema.optional() });
 
+/** Each limit left out is the shop's (lib/sizing/effective-inputs), else the library's DEFAULT_LIMITS. */
 export const LimitsSchema = z
   .object({
-    designDutyPct: num("Design duty", 50, 95, "%").default(80),
-    dutyCautionPct: num("Duty caution level", 50, 100, "%").default(80),
-    dutyDangerPct: num("Duty danger level", 50, 100, "%").default(90),
-    minPumpMarginPct: num("Minimum pump margin", 0, 200, "%").default(25),
-    maxLineDropKpa: num("Line drop limit", 1, 100, "kPa").default(14),
+    designDutyPct: num("Design duty", 50, 95, "%").optional(),
+    dutyCautionPct: num("Duty caution level", 50, 100, "%").optional(),
+    dutyDangerPct: num("Duty danger level", 50, 100, "%").optional(),
+    minPumpMarginPct: num("Minimum pump margin", 0, 200, "%").optional(),
+    maxLineDropKpa: num("Line drop limit", 1, 100, "kPa").optional(),
   })
-  .refine((l) => l.dutyCautionPct <= l.dutyDangerPct, {
-    path: ["dutyDangerPct"],
-    message: "The danger level must not be below the caution level",
-  });
+  .refine(
+    (l) =>
+      l.dutyCautionPct === undefined ||
+      l.dutyDangerPct === undefined ||
+      l.dutyCautionPct <= l.dutyDangerPct,
+    {
+      path: ["dutyDangerPct"],
+      message: "The danger level must not be below the caution level",
+    },
+  );
 
 export const FuelSystemInputSchema = z
   .object(

@@ -109,7 +109,8 @@ export interface FuelSystemResult {
   trace: TraceStep[];
 }
 
-const DEFAULT_LIMITS = {
+/** The library's limits where neither the build nor the shop gives one (calc-spec §3–§5, common practice). */
+export const DEFAULT_LIMITS = {
   designDutyPct: 80,
   dutyCautionPct: 80,
   dutyDangerPct: 90,
@@ -127,6 +128,8 @@ const RATING_FLUID = {
 } as const;
 /** The largest hose size the recommendation tries. */
 const LARGEST_DASH = { value: AN_SIZES[AN_SIZES.length - 1]!.dash, quantity: "anDash" } as const;
+/** The library's drivetrain loss where neither the build nor the shop gives one (common practice, no source). */
+export const DEFAULT_DRIVETRAIN_LOSS_PCT = 15;
 /** Line length assumed for a recommendation when the build gives none. */
 const ASSUMED_LINE_LENGTH_M = 5;
 
@@ -160,23 +163,20 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   ) => warnings.push({ code, severity, message, fix, params });
   const { engine, target, fuel, injectors, regulator, pumps, electrical } = input;
   const l = input.limits;
-  const limits = l
-    ? {
-        designDutyPct: l.designDutyPct,
-        dutyCautionPct: l.dutyCautionPct,
-        dutyDangerPct: l.dutyDangerPct,
-        minPumpMarginPct: l.minPumpMarginPct,
-        maxLineDropKpa: l.maxLineDropKpa,
-      }
-    : { ...DEFAULT_LIMITS };
+  const limits = {
+    designDutyPct: l?.designDutyPct ?? DEFAULT_LIMITS.designDutyPct,
+    dutyCautionPct: l?.dutyCautionPct ?? DEFAULT_LIMITS.dutyCautionPct,
+    dutyDangerPct: l?.dutyDangerPct ?? DEFAULT_LIMITS.dutyDangerPct,
+    minPumpMarginPct: l?.minPumpMarginPct ?? DEFAULT_LIMITS.minPumpMarginPct,
+    maxLineDropKpa: l?.maxLineDropKpa ?? DEFAULT_LIMITS.maxLineDropKpa,
+  };
+  const lossPct = target.drivetrainLossPct ?? DEFAULT_DRIVETRAIN_LOSS_PCT;
   const design = limits.designDutyPct / 100;
   const n = injectors.count;
 
   // Power
   const wheelPowerKw =
-    target.measuredAt === "wheel"
-      ? target.powerKw
-      : target.powerKw * (1 - target.drivetrainLossPct / 100);
+    target.measuredAt === "wheel" ? target.powerKw : target.powerKw * (1 - lossPct / 100);
   const crankPowerKw =
     target.measuredAt === "wheel"
       ? t.add({
@@ -185,9 +185,9 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
           formula: "wheel power ÷ (1 − drivetrain loss)",
           inputs: [
             { label: "wheel power", value: target.powerKw, quantity: "power" },
-            { label: "drivetrain loss", value: target.drivetrainLossPct, quantity: "percent" },
+            { label: "drivetrain loss", value: lossPct, quantity: "percent" },
           ],
-          value: target.powerKw / (1 - target.drivetrainLossPct / 100),
+          value: target.powerKw / (1 - lossPct / 100),
           quantity: "power",
         })
       : target.powerKw;
@@ -253,7 +253,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     ethanolVolPct: number,
     which: "lean" | "rich",
   ): { props: FuelBlend; end: BlendEnd } => {
-    const b = fuelBlend(ethanolVolPct);
+    const b = fuelBlend(ethanolVolPct, fuel.properties);
     const e = { ethanol: { value: ethanolVolPct, quantity: "ethanol" as const } };
     let bsfc: number;
     let bsfcSource: BlendEnd["bsfcSource"];

@@ -14,7 +14,12 @@ import {
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { saved, type BuildResult } from "@/lib/builds/build-data";
-import { readStoredInputs, sizeForSave } from "@/lib/builds/stored-inputs";
+import {
+  readStoredInputs,
+  sizeForSave,
+  storedEffectiveInputs,
+  storedSizingSettings,
+} from "@/lib/builds/stored-inputs";
 import { DatalogError, headerKey, mappingProblems, parseDatalog } from "@/lib/calc";
 import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
 import { Conflict, Invalid, NotFound } from "@/lib/domain/errors";
@@ -78,7 +83,7 @@ export async function analyseDatalog(m: Member, input: z.output<typeof DatalogAn
     );
   const row = await getBuild(m.shopId, d.buildId);
   if (!row) throw new NotFound("That build");
-  const out = analyseLog(log, input.mapping, readStoredInputs(row.build));
+  const out = analyseLog(log, input.mapping, storedEffectiveInputs(row.build));
   await saveAnalysis(
     m.shopId,
     m.user.id,
@@ -118,7 +123,8 @@ export async function verifyBuildWithDatalog(
       status: "verified",
       note: `Verified with dyno log ${d.fileName}`,
       always: true,
-      sized: sizeForSave(readStoredInputs(b)),
+      // Verification moves the status: the figures stay those the log was compared with.
+      sized: sizeForSave(storedSizingSettings(b), readStoredInputs(b)),
     }),
   );
 }

@@ -50,7 +50,8 @@ export async function datalogView(shopId: string, id: string) {
 }
 
 /**
- * A pull measured against the build's sizing: the analysis (peak duty, lambda error, fuel
+ * A pull measured against the build's sizing (`input`: the effective inputs the build was sized
+ * with, lib/builds/stored-inputs#storedEffectiveInputs): the analysis (peak duty, lambda error, fuel
  * pressure, flow, BSFC) with the ethanol, target lambda and predicted peak duty it was judged on,
  * and a thinned series of measured against predicted duty for the chart.
  */
@@ -78,7 +79,7 @@ export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedF
     injectorCount: input.injectors.count,
     ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
     ratedPressureKpa: input.injectors.ratedPressureKpa,
-    densityKgPerL: fuelBlend(ethanolPct).densityKgPerL,
+    densityKgPerL: fuelBlend(ethanolPct, input.fuel.properties).densityKgPerL,
     targetLambda,
     dutyDangerPct: result.limits.dutyDangerPct,
   };

@@ -57,3 +57,32 @@ export function formatDate(value: DateInput, { timeZone = "UTC" }: DateFormatOpt
 export function formatDateTime(value: DateInput, { timeZone = "UTC" }: DateFormatOptions = {}) {
   return formatter("datetime", timeZone).format(toDate(value));
 }
+
+/**
+ * A calendar day kept without a time ("2026-05-14", a quote's "valid until"), as a person reads
+ * it. It names the same day in every zone, so it is never shifted.
+ *
+ * @example formatCalendarDate("2026-05-14") // "14 May 2026"
+ */
+export function formatCalendarDate(isoDay: string) {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(isoDay)) throw new RangeError(`Not a calendar day: ${isoDay}`);
+  return formatter("date", "UTC").format(toDate(`${isoDay}T00:00:00Z`));
+}
+
+/**
+ * The calendar day an instant falls on in a time zone, as "YYYY-MM-DD"; `addDays` later.
+ *
+ * @example calendarDay("2026-03-04T23:30:00Z", "Europe/Berlin") // "2026-03-05"
+ * @example calendarDay("2026-03-04T23:30:00Z", "Europe/Berlin", 30) // "2026-04-04"
+ */
+export function calendarDay(value: DateInput, timeZone = "UTC", addDays = 0) {
+  const parts = new Intl.DateTimeFormat("en-CA", {
+    timeZone,
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+  }).formatToParts(toDate(value));
+  const get = (t: string) => Number(parts.find((p) => p.type === t)!.value);
+  const day = new Date(Date.UTC(get("year"), get("month") - 1, get("day") + addDays));
+  return day.toISOString().slice(0, 10);
+}

@@ -30,6 +30,7 @@ export async function quoteSheetData(
   const money = (v: number) => formatMoney(v, qt.currency);
   const t = quoteTotals(q.lines, qt.taxRateBp);
   const depositBp = settings?.settings.depositBp ?? 3000;
+  const timeZone = settings?.settings.timeZone ?? "UTC";
   const paid = payments.find((p) => p.status === "paid");
   // As of today: past its date a sent or accepted quote prints as expired, asking no deposit.
   const shown = quoteStatusOn(qt, isoDay());
@@ -71,7 +72,7 @@ export async function quoteSheetData(
       ? {
           pct: String(depositBp / 100),
           amount: money(paid.amountMinor),
-          paid: paid.paidAt ? formatDate(paid.paidAt) : "",
+          paid: paid.paidAt ? formatDate(paid.paidAt, { timeZone }) : "",
         }
       : showDeposit
         ? {
@@ -80,6 +81,8 @@ export async function quoteSheetData(
             paid: null,
           }
         : null,
+    paper: settings?.settings.paperSize ?? "a4",
+    timeZone,
   };
 }
 

@@ -1,6 +1,7 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
 
-import { formatDate } from "@/lib/format/dates";
+import { PDF_PAGE_SIZE, type PaperSize } from "@/lib/domain/documents";
+import { formatCalendarDate, formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS } from "@/lib/safety";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
@@ -49,6 +50,9 @@ export interface QuoteSheetData {
     total: string;
   };
   deposit: { pct: string; amount: string; paid: string | null } | null;
+  /** The shop's paper and time zone (the issue date is the day in that zone). */
+  paper: PaperSize;
+  timeZone: string;
 }
 
 const COLS = [
@@ -67,13 +71,13 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
       subject="Fuel system quote"
       creator="Fuelwright"
     >
-      <Page size="A4" style={s.page}>
+      <Page size={PDF_PAGE_SIZE[d.paper]} style={s.page}>
         <Letterhead
           shop={d.shop}
           title={`Quote ${d.quote.label}`}
           lines={[
-            `${d.quote.status} · issued ${formatDate(d.quote.createdAt)}`,
-            `Valid until ${d.quote.validUntil}`,
+            `${d.quote.status} · issued ${formatDate(d.quote.createdAt, { timeZone: d.timeZone })}`,
+            `Valid until ${formatCalendarDate(d.quote.validUntil)}`,
           ]}
         />
         <View style={[s.row, { marginTop: 8 }]}>

@@ -5,7 +5,7 @@ import { latestVerifiedDatalog } from "@/db/queries/datalogs";
 import { pdfLogo } from "@/db/queries/logos";
 import { unitSystemOf, userName } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
-import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import { storedEffectiveInputs } from "@/lib/builds/stored-inputs";
 import { CALC_VERSION, sizeParsedFuelSystem } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
 
@@ -26,7 +26,8 @@ export async function specSheetData(
     pdfLogo(shopId),
     rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null,
   ]);
-  const input = readStoredInputs(rev);
+  // The revision's own inputs with the shop settings it was sized with: its figures never move.
+  const input = storedEffectiveInputs(rev);
   const stored = rev.result;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
   // Staff and customers in the portal read their own units where they set them, else the
@@ -54,6 +55,8 @@ export async function specSheetData(
     result,
     parts: rev.parts,
     units,
+    paper: settings?.settings.paperSize ?? "a4",
+    timeZone: settings?.settings.timeZone ?? "UTC",
     verification:
       log?.analysis && log.verifiedAt
         ? {

@@ -15,6 +15,8 @@ import {
   AN_SIZES,
   ASPIRATION_LABELS,
   BSFC_SOURCE_LABELS,
+  DEFAULT_DRIVETRAIN_LOSS_PCT,
+  DRIVE_TYPE_LABELS,
   dutyAcrossRpm,
   formatTraceStep,
   formatValue,
@@ -32,6 +34,7 @@ import {
   type UnitSystem,
 } from "@/lib/calc";
 import { KIT_ROLE_LABELS, type ChosenPart } from "@/lib/domain/builds";
+import { PDF_PAGE_SIZE, type PaperSize } from "@/lib/domain/documents";
 import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 
@@ -59,6 +62,9 @@ export interface SpecSheetData {
   result: FuelSystemResult;
   parts: ChosenPart[];
   units: UnitSystem;
+  /** The shop's paper and time zone (every date printed is a day in that zone). */
+  paper: PaperSize;
+  timeZone: string;
   /** On a verified revision: the dyno log it was verified with, and what that log measured. */
   verification?: {
     fileName: string;
@@ -77,11 +83,13 @@ function Verification({
   r,
   q,
   units,
+  timeZone,
 }: {
   v: NonNullable<SpecSheetData["verification"]>;
   r: FuelSystemResult;
   q: (quantity: Quantity, x: number, decimals?: number) => string;
   units: UnitSystem;
+  timeZone: string;
 }) {
   const a = v.analysis;
   const cell = { width: "33%" } as const;
@@ -130,7 +138,7 @@ function Verification({
       <Text style={s.h2}>Measured on the dyno</Text>
       <Text style={s.muted}>
         {pdfText(
-          `Verified ${formatDate(v.verifiedAt)} with the log ${v.fileName} (${a.samples} samples).`,
+          `Verified ${formatDate(v.verifiedAt, { timeZone })} with the log ${v.fileName} (${a.samples} samples).`,
         )}
       </Text>
       <View style={[s.row, { fontWeight: 700, marginTop: 3 }]}>
@@ -264,12 +272,12 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
       subject="Fuel system spec sheet"
       creator="Fuelwright"
     >
-      <Page size="A4" style={s.page}>
+      <Page size={PDF_PAGE_SIZE[d.paper]} style={s.page}>
         <Letterhead
           shop={d.shop}
           title="Fuel system spec sheet"
           lines={[
-            `Revision ${d.build.version} · ${formatDate(d.build.savedAt)}`,
+            `Revision ${d.build.version} · ${formatDate(d.build.savedAt, { timeZone: d.timeZone })}`,
             `Tuner: ${d.build.tunerName ?? "-"}`,
           ]}
         />
@@ -286,7 +294,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
               {q("power", input.target.powerKw)} at the{" "}
               {input.target.measuredAt === "wheel" ? "wheels" : "crank"}
               {input.target.measuredAt === "wheel"
-                ? ` (${q("percent", input.target.drivetrainLossPct, 0)} drivetrain loss, ${q("power", r.crankPowerKw)} crank)`
+                ? ` (${q("percent", input.target.drivetrainLossPct ?? DEFAULT_DRIVETRAIN_LOSS_PCT, 0)} drivetrain loss, ${q("power", r.crankPowerKw)} crank)`
                 : ""}
             </Text>
             <Text>
@@ -313,6 +321,11 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
             </Text>
           </View>
         </View>
+        <Text style={[s.muted, { marginTop: 3 }]}>
+          {pdfText(
+            `Sized for ${q("percent", r.limits.designDutyPct)} injector duty (caution above ${q("percent", r.limits.dutyCautionPct)}, danger above ${q("percent", r.limits.dutyDangerPct)}), a pump margin of at least ${q("percent", r.limits.minPumpMarginPct)} and line drops of at most ${q("pressure", r.limits.maxLineDropKpa)}; drive: ${DRIVE_TYPE_LABELS[input.target.driveType ?? "manual"].toLowerCase()}.`,
+          )}
+        </Text>
 
         <Text style={s.h2}>Key figures</Text>
         <View style={[s.row, { flexWrap: "wrap", gap: 0 }]}>
@@ -389,7 +402,9 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           />
         </View>
 
-        {d.verification ? <Verification v={d.verification} r={r} q={q} units={units} /> : null}
+        {d.verification ? (
+          <Verification v={d.verification} r={r} q={q} units={units} timeZone={d.timeZone} />
+        ) : null}
 
         <Text style={s.h2}>Chosen parts</Text>
         {d.parts.length === 0 ? (

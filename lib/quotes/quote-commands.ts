@@ -38,6 +38,7 @@ import {
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
+import { calendarDay } from "@/lib/format/dates";
 import { sendMail } from "@/lib/mail";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 

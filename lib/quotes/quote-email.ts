@@ -1,5 +1,6 @@
 import { formatMoney } from "@/lib/catalog/money";
 import { quoteLabel } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 
 /** What the quote e-mail tells: the quote, its lines and totals, and where to answer it. */
 export interface QuoteEmailData {
@@ -36,7 +37,7 @@ export function quoteEmail(d: QuoteEmailData): { subject: string; text: string }
   const text = [
     `Hello ${d.customerName},`,
     "",
-    `Here is quote ${label}${d.buildTitle ? ` for ${d.buildTitle}` : ""}, valid until ${q.validUntil}.`,
+    `Here is quote ${label}${d.buildTitle ? ` for ${d.buildTitle}` : ""}, valid until ${formatCalendarDate(q.validUntil)}.`,
     "",
     ...d.lines.map(
       (l) =>

@@ -1,29 +1,85 @@
 import type { z } from "zod";
 
 import { deleteLogo, setLogo } from "@/db/queries/logos";
-import { updateShopSettings } from "@/db/queries/shops";
+import { getShopSettings, updateShopSettings } from "@/db/queries/shops";
+import type { ShopSettings } from "@/db/schema";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
-import { NotFound } from "@/lib/domain/errors";
+import { Invalid, NotFound } from "@/lib/domain/errors";
 import type { ImageInfo } from "@/lib/images/logo";
-import type { ShopSettingsSchema } from "@/lib/validations/settings";
+import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
+import { DUTY_ORDER_MESSAGE, type ShopSettingsSchema } from "@/lib/validations/settings";
 
 export type ShopSettingsInput = z.output<typeof ShopSettingsSchema>;
+export type ShopSettingsPatch = Partial<ShopSettingsInput>;
 
-/** The shop's name and defaults, as the owner saves them; money and rates kept as integers. */
-export async function saveShopSettings(member: Member, input: ShopSettingsInput): Promise<void> {
+/** The shop's settings as the form and the API show them (any staff member reads them). */
+export async function readShopSettings(member: Member): Promise<ShopSettingsView> {
+  authorize(member, "settings:read");
+  const s = await getShopSettings(member.shopId);
+  if (!s) throw new NotFound("The shop's settings");
+  return shopSettingsView(s.name, s.settings);
+}
+
+/**
+ * The shop's name and defaults as the owner saves them — every field from the form, any of them
+ * from the API; a setting not sent keeps its value. Money and rates are kept as integers. The
+ * rules across fields are checked on the settings as they will be.
+ */
+export async function saveShopSettings(
+  member: Member,
+  input: ShopSettingsPatch,
+): Promise<ShopSettingsView> {
   authorize(member, "settings:update");
-  const { shopName, taxRatePct, labourRate, depositPct, address, phone, ...rest } = input;
+  const current = await getShopSettings(member.shopId);
+  if (!current) throw new NotFound("The shop's settings");
+  const caution = input.dutyCautionPct ?? current.settings.dutyCautionPct;
+  const danger = input.dutyDangerPct ?? current.settings.dutyDangerPct;
+  if (caution > danger)
+    throw Invalid.field(
+      input.dutyDangerPct !== undefined ? "dutyDangerPct" : "dutyCautionPct",
+      DUTY_ORDER_MESSAGE,
+    );
+  const { shopName, taxRatePct, labourRate, depositPct, address, phone } = input;
+  const picked = Object.fromEntries(
+    COLUMNS_BY_NAME.flatMap((k) => (input[k] === undefined ? [] : [[k, input[k]]])),
+  );
   await updateShopSettings(member.shopId, shopName, {
-    ...rest,
-    taxRateBp: Math.round(taxRatePct * 100),
-    labourRateMinor: Math.round(labourRate * 100),
-    depositBp: Math.round(depositPct * 100),
+    ...picked,
+    ...(taxRatePct === undefined ? {} : { taxRateBp: Math.round(taxRatePct * 100) }),
+    ...(labourRate === undefined ? {} : { labourRateMinor: Math.round(labourRate * 100) }),
+    ...(depositPct === undefined ? {} : { depositBp: Math.round(depositPct * 100) }),
     // Sent empty clears the line; not sent leaves it as it is.
     ...(address === undefined ? {} : { address: address || null }),
     ...(phone === undefined ? {} : { phone: phone || null }),
   });
+  return readShopSettings(member);
 }
+
+/** Settings stored under the name the form uses. */
+const COLUMNS_BY_NAME = [
+  "currency",
+  "units",
+  "paperSize",
+  "timeZone",
+  "bsfcGasolineNa",
+  "bsfcGasolineBoosted",
+  "bsfcE85Na",
+  "bsfcE85Boosted",
+  "designDutyPct",
+  "dutyCautionPct",
+  "dutyDangerPct",
+  "minPumpMarginPct",
+  "maxLineDropKpa",
+  "lossManualPct",
+  "lossAutomaticPct",
+  "lossAwdPct",
+  "gasolineDensityKgPerL",
+  "gasolineStoichAfr",
+  "ethanolDensityKgPerL",
+  "ethanolStoichAfr",
+  "quoteValidDays",
+] as const satisfies readonly (keyof ShopSettingsInput & keyof ShopSettings)[];
 
 /** Uploads or replaces the shop's logo (bytes already judged by lib/images/logo). */
 export async function setShopLogo(member: Member, input: { bytes: Buffer; info: ImageInfo }) {

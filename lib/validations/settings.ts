@@ -1,48 +1,112 @@
 import { z } from "zod";
 
+import { canonicalTimeZone, PAPER_SIZES } from "@/lib/domain/documents";
 import { ROLES } from "@/lib/domain/roles";
 
-const n = (label: string, min: number, max: number) =>
-  z.coerce
-    .number({ error: `${label} must be a number` })
-    .min(min, `${label} must be between ${min} and ${max}`)
-    .max(max, `${label} must be between ${min} and ${max}`);
+/** A number from a form field (text) or a JSON body (number); a blank field is no number. */
+const asNumber = (v: unknown) =>
+  typeof v === "string" && v.trim() !== "" ? Number(v.trim().replace(",", ".")) : v;
 
-/** Shop defaults as the settings form sends them (BSFC in g/kWh, pressure in kPa). */
-export const ShopSettingsSchema = z
-  .object({
-    shopName: z.string().trim().min(2, "Enter the shop's name").max(120),
-    currency: z
-      .string()
-      .trim()
-      .toUpperCase()
-      .regex(/^[A-Z]{3}$/, "Use a three-letter currency code such as USD"),
-    taxRatePct: n("Tax rate", 0, 30),
-    units: z.enum(["metric", "imperial"], { error: "Choose metric or imperial" }),
-    address: z.string().trim().max(300).optional(),
-    phone: z.string().trim().max(40).optional(),
-    bsfcGasolineNa: n("BSFC gasoline NA", 150, 1200),
-    bsfcGasolineBoosted: n("BSFC gasoline boosted", 150, 1200),
-    bsfcE85Na: n("BSFC E85 NA", 150, 1200),
-    bsfcE85Boosted: n("BSFC E85 boosted", 150, 1200),
-    designDutyPct: n("Design duty", 50, 95),
-    dutyCautionPct: n("Caution duty", 50, 100),
-    dutyDangerPct: n("Danger duty", 50, 100),
-    minPumpMarginPct: n("Minimum pump margin", 0, 200),
-    maxLineDropKpa: n("Line drop limit", 1, 100),
-    lossManualPct: n("Manual drivetrain loss", 0, 50),
-    lossAutomaticPct: n("Automatic drivetrain loss", 0, 50),
-    lossAwdPct: n("AWD drivetrain loss", 0, 50),
-    labourRate: n("Labour rate", 0, 100_000),
-    depositPct: n("Deposit", 0, 100),
-    quoteValidDays: n("Quote validity", 1, 365).pipe(
-      z.number().int("Quote validity is a whole number of days"),
-    ),
-  })
-  .refine((s) => s.dutyCautionPct <= s.dutyDangerPct, {
-    path: ["dutyDangerPct"],
-    message: "Danger duty must not be below caution duty",
-  });
+const n = (label: string, min: number, max: number) =>
+  z.preprocess(
+    asNumber,
+    z
+      .number({ error: `${label} must be a number` })
+      .min(min, `${label} must be between ${min} and ${max}`)
+      .max(max, `${label} must be between ${min} and ${max}`),
+  );
+
+/** A setting that may be left to the library: blank (or null) clears it, left out keeps it. */
+const nOrLibrary = (label: string, min: number, max: number) =>
+  z.preprocess(
+    (v) => (v === "" || (typeof v === "string" && v.trim() === "") ? null : asNumber(v)),
+    z
+      .number({ error: `${label} must be a number, or blank for the library's value` })
+      .min(min, `${label} must be between ${min} and ${max}`)
+      .max(max, `${label} must be between ${min} and ${max}`)
+      .nullable()
+      .optional(),
+  );
+
+/**
+ * Every shop setting, by the name the settings form and `/api/v1/shop/settings` use (BSFC in
+ * g/kWh, pressure in kPa, money in major units, rates in %). The form sends all of them; the API
+ * any of them (ShopSettingsPatchSchema).
+ */
+export const ShopSettingsFields = z.object({
+  shopName: z.string().trim().min(2, "Enter the shop's name").max(120),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Use a three-letter currency code such as USD"),
+  taxRatePct: n("Tax rate", 0, 30),
+  units: z.enum(["metric", "imperial"], { error: "Choose metric or imperial" }),
+  address: z.string().trim().max(300).optional(),
+  phone: z.string().trim().max(40).optional(),
+  paperSize: z.enum(PAPER_SIZES, { error: "Choose Letter or A4 paper" }),
+  timeZone: z
+    .string({ error: "Give the shop's time zone" })
+    .trim()
+    .transform((v, ctx) => {
+      const zone = canonicalTimeZone(v);
+      if (zone) return zone;
+      ctx.addIssue({
+        code: "custom",
+        message: "Use a time zone name such as America/Chicago, Europe/Berlin or UTC",
+      });
+      return z.NEVER;
+    }),
+  bsfcGasolineNa: n("BSFC gasoline NA", 150, 1200),
+  bsfcGasolineBoosted: n("BSFC gasoline boosted", 150, 1200),
+  bsfcE85Na: n("BSFC E85 NA", 150, 1200),
+  bsfcE85Boosted: n("BSFC E85 boosted", 150, 1200),
+  designDutyPct: n("Design duty", 50, 95),
+  dutyCautionPct: n("Caution duty", 50, 100),
+  dutyDangerPct: n("Danger duty", 50, 100),
+  minPumpMarginPct: n("Minimum pump margin", 0, 200),
+  maxLineDropKpa: n("Line drop limit", 1, 100),
+  lossManualPct: n("Manual drivetrain loss", 0, 50),
+  lossAutomaticPct: n("Automatic drivetrain loss", 0, 50),
+  lossAwdPct: n("AWD drivetrain loss", 0, 50),
+  // The same ranges as a build's own fuel properties (lib/calc/schema.ts#FuelPropertiesSchema).
+  gasolineDensityKgPerL: nOrLibrary("Gasoline density", 0.68, 0.8),
+  gasolineStoichAfr: nOrLibrary("Gasoline stoichiometric AFR", 13, 15.5),
+  ethanolDensityKgPerL: nOrLibrary("Ethanol density", 0.75, 0.83),
+  ethanolStoichAfr: nOrLibrary("Ethanol stoichiometric AFR", 8, 10),
+  labourRate: n("Labour rate", 0, 100_000),
+  depositPct: n("Deposit", 0, 100),
+  quoteValidDays: n("Quote validity", 1, 365).pipe(
+    z.number().int("Quote validity is a whole number of days"),
+  ),
+});
+
+export const DUTY_ORDER_MESSAGE = "Danger duty must not be below caution duty";
+
+/** Shop defaults as the settings form sends them: every field. */
+export const ShopSettingsSchema = ShopSettingsFields.refine(
+  (s) => s.dutyCautionPct <= s.dutyDangerPct,
+  { path: ["dutyDangerPct"], message: DUTY_ORDER_MESSAGE },
+);
+
+/**
+ * A change through the API: any of the settings by the form's names, the others kept; a name
+ * that is no setting is a field error. Rules across fields (caution below danger) are checked
+ * by the command on the settings as they will be.
+ */
+export const ShopSettingsPatchSchema = ShopSettingsFields.partial()
+  .loose()
+  .superRefine(
+    (v, ctx) => {
+      for (const k of Object.keys(v))
+        if (!Object.hasOwn(ShopSettingsFields.shape, k))
+          ctx.addIssue({ code: "custom", path: [k], message: `${k} is not a shop setting` });
+    },
+    // Named beside the other fields' errors, not only once they are right.
+    {
+      when: (p) => typeof p.value === "object" && p.value !== null && !Array.isArray(p.value),
+    },
+  );
 
 export const InviteSchema = z.object({
   email: z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address")),

@@ -21,6 +21,8 @@ const data: SpecSheetData = {
   result: sizeParsedFuelSystem(input),
   parts: [{ role: "injector", partId: "p", sku: "B-1", name: "Bench injector", quantity: 6 }],
   units: "imperial",
+  paper: "letter",
+  timeZone: "America/Chicago",
 };
 const q = (xs: number[], p: number) =>
   [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))]!;

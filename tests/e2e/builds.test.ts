@@ -72,7 +72,7 @@ describe("build sheets", () => {
     // The other person's change is shown beside ours.
     await expect
       .poll(() => p2.getByTestId("conflict").innerText())
-      .toMatch(/Drivetrain loss\s+15 %\s+12 %/);
+      .toMatch(/Drivetrain loss\s+—\s+12 %/);
 
     // Restore version 1 (count 6) as a new revision 4.
     await page.goto(`${url}/revisions/1`);

@@ -264,6 +264,15 @@ export const ROUTES: Record<string, Cell> = {
     call: () => ({ path: "/api/v1/shop/bsfc" }),
     expect: "401 ok ok ok 403 ok",
   },
+  "GET /api/v1/shop/settings": {
+    call: () => ({ path: "/api/v1/shop/settings" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "PATCH /api/v1/shop/settings": {
+    // The demo shop's own phone (db/seed.ts): the owner's change changes nothing that matters.
+    call: () => ({ path: "/api/v1/shop/settings", body: { phone: "555-0100" } }),
+    expect: "401 ok 403 403 403 ok",
+  },
   "GET /api/v1/shop/logo": {
     call: () => ({ path: "/api/v1/shop/logo" }),
     expect: "401 ok ok ok ok ok",
@@ -294,6 +303,8 @@ export const SEED_SETTINGS_FORM = {
   currency: "USD",
   taxRatePct: "8.25",
   units: "imperial",
+  paperSize: "letter",
+  timeZone: "UTC",
   address: "14 Foundry Lane, Millbrook",
   phone: "555-0100",
   bsfcGasolineNa: String(DEFAULT_BSFC.gasolineNaGPerKwh),

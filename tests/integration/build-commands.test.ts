@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { INPUTS_SCHEMA_VERSION } from "@/lib/builds/stored-inputs";
+
 import { boostedSix } from "../calc/fixtures";
 import { actionManifest, callAction, type ActionRef } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
@@ -161,9 +163,11 @@ describe("saving a build: the API and the editor's action answer alike", () => {
     expect(r.json.build.result).toEqual(made.json.build.result);
     // The revision keeps the inputs it was saved with.
     const [rev] =
-      await sql`select inputs, inputs_schema_version from build_revisions where build_id = ${id} and version = 2`;
+      await sql`select inputs, inputs_schema_version, sizing_settings from build_revisions where build_id = ${id} and version = 2`;
     expect(rev!.inputs).toEqual(made.json.build.inputs);
-    expect(rev!.inputs_schema_version).toBe(1);
+    expect(rev!.inputs_schema_version).toBe(INPUTS_SCHEMA_VERSION);
+    // ... and the shop settings it was sized with.
+    expect(rev!.sizing_settings).toEqual(made.json.build.sizingSettings);
   });
 
   it("another shop's customer is a field error on customerId, and nothing is created", async () => {

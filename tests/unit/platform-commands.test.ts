@@ -10,6 +10,7 @@ import type { Role } from "@/lib/domain/roles";
  */
 const q = vi.hoisted(() => ({
   updateShopSettings: vi.fn(),
+  getShopSettings: vi.fn(),
   setLogo: vi.fn(),
   deleteLogo: vi.fn(),
   isMemberByEmail: vi.fn(),
@@ -22,7 +23,10 @@ const q = vi.hoisted(() => ({
   setUnitSystem: vi.fn(),
   sendMail: vi.fn(),
 }));
-vi.mock("@/db/queries/shops", () => ({ updateShopSettings: q.updateShopSettings }));
+vi.mock("@/db/queries/shops", () => ({
+  updateShopSettings: q.updateShopSettings,
+  getShopSettings: q.getShopSettings,
+}));
 vi.mock("@/db/queries/logos", () => ({ setLogo: q.setLogo, deleteLogo: q.deleteLogo }));
 vi.mock("@/db/queries/members", () => ({
   isMemberByEmail: q.isMemberByEmail,
@@ -129,7 +133,30 @@ describe("share links and units", () => {
   });
 });
 
+/** The stored row the command reads before and after its write (db/schema/shops.ts defaults). */
+const STORED = {
+  name: "Test Shop",
+  settings: {
+    ...SETTINGS,
+    shopId: "shop-1",
+    taxRateBp: 1900,
+    labourRateMinor: 12050,
+    depositBp: 3000,
+    address: null,
+    phone: null,
+    gasolineDensityKgPerL: null,
+    gasolineStoichAfr: null,
+    ethanolDensityKgPerL: null,
+    ethanolStoichAfr: null,
+    paperSize: "a4",
+    timeZone: "Europe/Berlin",
+    updatedAt: new Date("2026-12-01T00:00:00Z"),
+  },
+};
+
 describe("settings", () => {
+  beforeEach(() => q.getShopSettings.mockResolvedValue(STORED));
+
   it("the owner's save keeps money and rates as integers and leaves an unsent phone alone", async () => {
     await saveShopSettings(as("owner"), SETTINGS);
     const [shopId, name, values] = q.updateShopSettings.mock.calls[0]!;
@@ -139,6 +166,19 @@ describe("settings", () => {
     expect(values).toMatchObject({ address: null });
     expect(values).not.toHaveProperty("phone");
     expect(values).not.toHaveProperty("taxRatePct");
+  });
+
+  it("a change of some settings writes only those; a caution level above the stored danger level is refused", async () => {
+    await saveShopSettings(as("owner"), { designDutyPct: 75, timeZone: "America/Chicago" });
+    const [, name, values] = q.updateShopSettings.mock.calls[0]!;
+    expect(name).toBeUndefined();
+    expect(values).toEqual({ designDutyPct: 75, timeZone: "America/Chicago" });
+    const err = await saveShopSettings(as("owner"), { dutyCautionPct: 95 }).catch((e) => e);
+    expect(err).toBeInstanceOf(Invalid);
+    expect((err as Invalid).issues).toEqual([
+      { path: "dutyCautionPct", message: "Danger duty must not be below caution duty" },
+    ]);
+    expect(q.updateShopSettings).toHaveBeenCalledTimes(1);
   });
 });
 

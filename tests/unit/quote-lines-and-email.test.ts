@@ -71,7 +71,7 @@ describe("the quote e-mail", () => {
   it("names the quote with its revision and states the total; a signed-up customer gets the portal link", () => {
     const { subject, text } = quoteEmail(data);
     expect(subject).toBe("Test Shop: quote Q-0007-r2 for your fuel system");
-    expect(text).toContain("Here is quote Q-0007-r2 for Turbo six, valid until 2099-01-31.");
+    expect(text).toContain("Here is quote Q-0007-r2 for Turbo six, valid until 31 Jan 2099.");
     // 1.5 h × 120.00 = 180.00; + 8.25 % = 14.85 → 194.85 (by hand).
     expect(text).toContain("1.5 × Fitting — $180.00");
     expect(text).toContain("Total $194.85");

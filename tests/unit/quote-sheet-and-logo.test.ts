@@ -48,6 +48,8 @@ const quote = (extra: Partial<QuoteSheetData> = {}): QuoteSheetData => ({
     total: "$1,104.15",
   },
   deposit: { pct: "30", amount: "$331.25", paid: null },
+  paper: "a4",
+  timeZone: "UTC",
   ...extra,
 });
 
@@ -107,6 +109,8 @@ describe("quote PDF", () => {
       result: sizeParsedFuelSystem(input),
       parts: [],
       units: "metric",
+      paper: "a4",
+      timeZone: "UTC",
     });
     expect(inspectPdf(sheet).images).toBe(1);
   });

@@ -29,6 +29,8 @@ const sheet = (inputs: unknown, extra: Partial<SpecSheetData> = {}): SpecSheetDa
     result: sizeParsedFuelSystem(input),
     parts: [],
     units: "metric",
+    paper: "a4",
+    timeZone: "UTC",
     ...extra,
   };
 };

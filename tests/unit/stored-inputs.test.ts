@@ -8,11 +8,12 @@ import {
 } from "@/lib/builds/stored-inputs";
 import { FuelSystemInputSchema } from "@/lib/calc";
 import { Unavailable } from "@/lib/domain/errors";
+import { LIBRARY_SIZING_SETTINGS } from "@/lib/sizing/effective-inputs";
 
 import { boostedSix } from "../calc/fixtures";
 
 describe("readStoredInputs", () => {
-  it("reads format 1 with today's schema, defaults filled in", () => {
+  it("reads format 1 with today's schema, defaults filled in (what it stated stays stated)", () => {
     const got = readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: 1 });
     expect(got).toEqual(FuelSystemInputSchema.parse(boostedSix));
     // A default the stored inputs left out (lib/calc/schema.ts: intake air 30 °C).
@@ -20,9 +21,10 @@ describe("readStoredInputs", () => {
   });
 
   it("reads back what a save writes, unchanged", () => {
-    const written = sizeForSave(boostedSix);
+    const written = sizeForSave(LIBRARY_SIZING_SETTINGS, boostedSix);
     expect(written.inputsSchemaVersion).toBe(INPUTS_SCHEMA_VERSION);
     expect(readStoredInputs(written)).toEqual(written.inputs);
+    expect(written.sizingSettings).toEqual(LIBRARY_SIZING_SETTINGS);
   });
 
   it("refuses inputs written by a newer version of the product, saying so", () => {
@@ -30,7 +32,7 @@ describe("readStoredInputs", () => {
       readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: INPUTS_SCHEMA_VERSION + 1 });
     expect(read).toThrow(Unavailable);
     expect(read).toThrow(
-      /newer version of Fuelwright \(inputs format 2; this server reads up to 1\)/,
+      /newer version of Fuelwright \(inputs format 3; this server reads up to 2\)/,
     );
   });
 

@@ -12,12 +12,21 @@ import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
 import { minorToPlain } from "@/lib/catalog/money";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
+import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
 
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
 import { SettingsForm } from "./settings-form";
 
 export const metadata: Metadata = { title: "Settings" };
+
+/** The settings as the form's text fields hold them (blank: no value, the library's for fuel). */
+function formValues(v: ShopSettingsView): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [k, x] of Object.entries(v)) out[k] = x === null || x === undefined ? "" : String(x);
+  out.labourRate = minorToPlain(Math.round(v.labourRate * 100));
+  return out;
+}
 
 export default async function SettingsPage() {
   const m = await requirePageMember("settings:read");
@@ -46,29 +55,7 @@ export default async function SettingsPage() {
           ) : null}
           <SettingsForm
             readOnly={!can(m.role, "settings:update")}
-            initial={{
-              shopName: s.name,
-              currency: s.settings.currency,
-              taxRatePct: String(s.settings.taxRateBp / 100),
-              units: s.settings.units,
-              address: s.settings.address ?? "",
-              phone: s.settings.phone ?? "",
-              bsfcGasolineNa: String(s.settings.bsfcGasolineNa),
-              bsfcGasolineBoosted: String(s.settings.bsfcGasolineBoosted),
-              bsfcE85Na: String(s.settings.bsfcE85Na),
-              bsfcE85Boosted: String(s.settings.bsfcE85Boosted),
-              designDutyPct: String(s.settings.designDutyPct),
-              dutyCautionPct: String(s.settings.dutyCautionPct),
-              dutyDangerPct: String(s.settings.dutyDangerPct),
-              minPumpMarginPct: String(s.settings.minPumpMarginPct),
-              maxLineDropKpa: String(s.settings.maxLineDropKpa),
-              lossManualPct: String(s.settings.lossManualPct),
-              lossAutomaticPct: String(s.settings.lossAutomaticPct),
-              lossAwdPct: String(s.settings.lossAwdPct),
-              labourRate: minorToPlain(s.settings.labourRateMinor),
-              depositPct: String(s.settings.depositBp / 100),
-              quoteValidDays: String(s.settings.quoteValidDays),
-            }}
+            initial={formValues(shopSettingsView(s.name, s.settings))}
           />
           <LogoUpload
             logo={

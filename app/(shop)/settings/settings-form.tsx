@@ -6,8 +6,44 @@ import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
+import { ETHANOL, GASOLINE } from "@/lib/calc";
+import { PAPER_SIZE_LABELS, PAPER_SIZES } from "@/lib/domain/documents";
 
 import { updateSettingsAction } from "./actions";
+
+/** Suggestions for the time-zone field (any IANA name is taken). */
+const TIME_ZONES = [
+  "UTC",
+  "America/New_York",
+  "America/Chicago",
+  "America/Denver",
+  "America/Phoenix",
+  "America/Los_Angeles",
+  "America/Anchorage",
+  "Pacific/Honolulu",
+  "America/Toronto",
+  "America/Vancouver",
+  "America/Mexico_City",
+  "America/Sao_Paulo",
+  "Europe/London",
+  "Europe/Dublin",
+  "Europe/Lisbon",
+  "Europe/Paris",
+  "Europe/Berlin",
+  "Europe/Madrid",
+  "Europe/Rome",
+  "Europe/Stockholm",
+  "Europe/Warsaw",
+  "Europe/Helsinki",
+  "Africa/Johannesburg",
+  "Asia/Dubai",
+  "Asia/Kolkata",
+  "Asia/Singapore",
+  "Asia/Tokyo",
+  "Australia/Perth",
+  "Australia/Sydney",
+  "Pacific/Auckland",
+];
 
 export function SettingsForm({
   initial,
@@ -29,6 +65,18 @@ export function SettingsForm({
       error={e[name]}
     />
   );
+  const lib = (name: string, label: string, unit: string, library: number, dp: number) => (
+    <Field
+      key={name}
+      label={`${label} (${unit})`}
+      name={name}
+      inputMode="decimal"
+      defaultValue={v[name]}
+      error={e[name]}
+      placeholder={library.toFixed(dp)}
+      hint={`Library: ${library.toFixed(dp)}`}
+    />
+  );
   return (
     <form action={action} noValidate className="mt-4" aria-label="Shop defaults">
       <fieldset disabled={readOnly} className="space-y-6">
@@ -48,6 +96,32 @@ export function SettingsForm({
             <option value="imperial">Imperial (hp, psi, lb/h, gal)</option>
             <option value="metric">Metric (kW, kPa, cc/min, L)</option>
           </SelectField>
+          <SelectField
+            label="Paper for PDFs"
+            name="paperSize"
+            defaultValue={v.paperSize}
+            error={e.paperSize}
+          >
+            {PAPER_SIZES.map((p) => (
+              <option key={p} value={p}>
+                {PAPER_SIZE_LABELS[p]}
+              </option>
+            ))}
+          </SelectField>
+          <Field
+            label="Time zone"
+            name="timeZone"
+            defaultValue={v.timeZone}
+            error={e.timeZone}
+            hint="For dates on quotes, spec sheets and e-mails, e.g. America/Chicago or Europe/Berlin."
+            list="time-zones"
+            autoComplete="off"
+          />
+          <datalist id="time-zones">
+            {TIME_ZONES.map((z) => (
+              <option key={z} value={z} />
+            ))}
+          </datalist>
         </div>
         <fieldset className="grid gap-4 sm:grid-cols-2">
           <legend className="mb-2 font-semibold">BSFC rules of thumb</legend>
@@ -69,6 +143,16 @@ export function SettingsForm({
           {num("lossManualPct", "Manual", "%")}
           {num("lossAutomaticPct", "Automatic", "%")}
           {num("lossAwdPct", "AWD", "%")}
+        </fieldset>
+        <fieldset className="grid gap-4 sm:grid-cols-2">
+          <legend className="mb-2 font-semibold">Fuel properties</legend>
+          <p className="text-sm text-ink-600 sm:col-span-2">
+            Blank: the calculation library&apos;s value. A build may state its own.
+          </p>
+          {lib("gasolineDensityKgPerL", "Gasoline density", "kg/L", GASOLINE.densityKgPerL, 3)}
+          {lib("gasolineStoichAfr", "Gasoline stoichiometric AFR", "AFR", GASOLINE.stoichAfr, 2)}
+          {lib("ethanolDensityKgPerL", "Ethanol density", "kg/L", ETHANOL.densityKgPerL, 3)}
+          {lib("ethanolStoichAfr", "Ethanol stoichiometric AFR", "AFR", ETHANOL.stoichAfr, 2)}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 font-semibold">Quotes</legend>

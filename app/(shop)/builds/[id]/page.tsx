@@ -11,12 +11,15 @@ import { buildStatusFacts, getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import { diffInputs } from "@/lib/builds/diff";
+import { readStoredInputs, storedSizingSettings } from "@/lib/builds/stored-inputs";
 import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { isoDay } from "@/lib/domain/quotes";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { idOrNotFound } from "@/lib/ids";
+import { effectiveInputs } from "@/lib/sizing/effective-inputs";
+import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 
 export const metadata: Metadata = { title: "Build sheet" };
 
@@ -25,12 +28,21 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const id = idOrNotFound((await params).id);
   const row = await getBuild(m.shopId, id);
   if (!row) notFound();
-  const [revisions, bsfcRows, statusFacts] = await Promise.all([
+  const [revisions, bsfcRows, statusFacts, today, units] = await Promise.all([
     listRevisions(m.shopId, id),
     shopBsfc(m.shopId),
     buildStatusFacts(m.shopId, id, isoDay()),
+    shopSizingSettings(m.shopId),
+    unitSystemOf(m.user.id, m.shopId),
   ]);
   const b = row.build;
+  const inputs = readStoredInputs(b);
+  // What today's settings would change in what is sized (nothing: the build is up to date).
+  const settingsChanges = diffInputs(
+    effectiveInputs(storedSizingSettings(b), inputs),
+    effectiveInputs(today, inputs),
+    units,
+  );
   return (
     <>
       <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
@@ -66,10 +78,12 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         status={b.status}
         statusFacts={statusFacts}
         version={b.version}
-        inputs={readStoredInputs(b)}
+        inputs={inputs}
         readOnly={!can(m.role, "builds:write")}
-        units={await unitSystemOf(m.user.id, m.shopId)}
+        units={units}
         shopBsfc={bsfcRows}
+        sizingSettings={today}
+        settingsChanges={settingsChanges}
       />
       <section
         aria-labelledby="revs"

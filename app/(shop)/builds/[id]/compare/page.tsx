@@ -8,7 +8,7 @@ import { getBuild, getRevision, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { compareKeyFigures, diffInputs } from "@/lib/builds/diff";
-import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import { storedEffectiveInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemResult } from "@/lib/calc";
 import { idOrNotFound } from "@/lib/ids";
 import { versionParam } from "@/lib/validations/column-bounds";
@@ -42,7 +42,10 @@ export default async function CompareRevisionsPage({
     listRevisions(m.shopId, id),
     unitSystemOf(m.user.id, m.shopId),
   ]);
-  const changes = a && b ? diffInputs(readStoredInputs(a), readStoredInputs(b), units) : [];
+  // What was sized, each with the shop settings it was sized with: a re-size under new
+  // settings shows those settings as the change.
+  const changes =
+    a && b ? diffInputs(storedEffectiveInputs(a), storedEffectiveInputs(b), units) : [];
   const figures = a && b ? compareKeyFigures(a.result, b.result, units) : [];
   const picker = (name: string, value: number, label: string) => (
     <SelectField label={label} id={`cmp-${name}`} name={name} defaultValue={value}>

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { ResultsPanel } from "@/components/builds/results-panel";
+import { SizingSettingsNote } from "@/components/builds/sizing-settings-note";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { getBuild, getRevision } from "@/db/queries/builds";
@@ -9,7 +10,7 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { diffInputs } from "@/lib/builds/diff";
-import { readStoredInputs } from "@/lib/builds/stored-inputs";
+import { readStoredInputs, storedEffectiveInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemResult } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { idOrNotFound } from "@/lib/ids";
@@ -75,7 +76,16 @@ export default async function RevisionPage({
             ))}
           </dl>
         </section>
-        <ResultsPanel result={rev.result} units={units} />
+        <div>
+          <ResultsPanel result={rev.result} units={units} />
+          {rev.result ? (
+            <SizingSettingsNote
+              input={storedEffectiveInputs(rev)}
+              result={rev.result}
+              units={units}
+            />
+          ) : null}
+        </div>
       </div>
     </>
   );
