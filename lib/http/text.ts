@@ -12,11 +12,17 @@ export function controlCharacterIssue(text: string, path: string): FieldIssue | 
 
 /** Every string inside a parsed JSON value or form that carries a control character. */
 export function controlCharacterIssues(value: unknown): FieldIssue[] {
-  // An explicit stack, not recursion: a hostile body may nest thousands of levels deep.
+  // An explicit stack, not recursion: a hostile body may nest thousands of levels deep. Each
+  // object once: a server action's arguments may refer to themselves.
   const issues: FieldIssue[] = [];
+  const seen = new WeakSet<object>();
   const stack: [unknown, string][] = [[value, ""]];
   while (stack.length) {
     const [v, path] = stack.pop()!;
+    if (v && typeof v === "object") {
+      if (seen.has(v)) continue;
+      seen.add(v);
+    }
     if (typeof v === "string") {
       const issue = controlCharacterIssue(v, path || "(body)");
       if (issue) issues.push(issue);
