@@ -178,6 +178,18 @@ describe("JSON bodies", () => {
       ["a", "b.1"],
     );
   });
+  it("refuse half a character (a lone surrogate), which jsonb cannot store; whole emoji pass", async () => {
+    const err = await readJson(
+      req("POST", { "content-type": "application/json" }, '{"title":"x\\ud800","notes":"😀"}'),
+    ).catch((e) => e);
+    const d = describeError(err);
+    expect(d.status).toBe(422);
+    expect(d.issues.map((i) => i.path)).toEqual(["title"]);
+    expect(d.issues[0]!.message).toMatch(/half of a character/);
+    expect(
+      controlCharacterIssues({ a: "\udfffx", b: "𝕏😀", c: ["\ud83d"] }).map((i) => i.path),
+    ).toEqual(["a", "c.0"]);
+  });
   it("survive a body nested thousands of levels deep", () => {
     const deep = JSON.parse("[".repeat(20000) + '"\\u0000"' + "]".repeat(20000));
     expect(controlCharacterIssues(deep)).toHaveLength(1);
