@@ -37,7 +37,7 @@ export const DATE_MIN = "1900-01-01";
 export const DATE_MAX = "9999-12-31";
 export const calendarDate = () =>
   z.iso
-    .date({ error: "Give a date as YYYY-MM-DD" })
+    .date({ error: "Give a date as YYYY-MM-DD", abort: true })
     .refine(
       (d) => d >= DATE_MIN && d <= DATE_MAX,
       `Give a date between ${DATE_MIN} and ${DATE_MAX}`,
