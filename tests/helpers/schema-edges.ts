@@ -388,9 +388,9 @@ export function casesFor(
 ): Case[] {
   const root = jsonSchemaOf(schema);
   const fields = r.shuffle(leaves(root).filter((l) => l.path.length > 0 && !skip(l.path)));
-  const pools = fields.map((l) => ({
+  const pools = fields.map((l, i) => ({
     leaf: l,
-    values: interleaved(r.shuffle(edgesOf(l.node, getAt(base, l.path), r)), r),
+    values: interleaved(r.shuffle(edgesOf(l.node, getAt(base, l.path), r)), r, i),
   }));
   const out: Case[] = [];
   for (let round = 0; out.length < count && pools.some((p) => p.values.length > round); round++)
@@ -402,11 +402,34 @@ export function casesFor(
   return out;
 }
 
-/** One value of each kind of edge before a second of any (so a few cases still cover the kinds). */
-function interleaved(values: [unknown, string][], r: Rng): [unknown, string][] {
+/**
+ * The kinds of edge most likely to reach storage wrongly: first for every field (each field
+ * starting at another one, so a schema of many fields still sees them all).
+ */
+const FIRST = [
+  "control character",
+  "lone surrogate",
+  "one too long",
+  "just above the maximum",
+  "longest, in emoji",
+  "int4 max + 1",
+  "just below the minimum",
+  "longest, right-to-left",
+  "past maximum as text",
+  "number as text",
+];
+
+/** One value of each kind of edge before a second of any, the likeliest kinds first. */
+function interleaved(values: [unknown, string][], r: Rng, offset: number): [unknown, string][] {
   const groups = new Map<string, [unknown, string][]>();
   for (const v of values) groups.set(v[1], [...(groups.get(v[1]) ?? []), v]);
-  const order = r.shuffle([...groups.values()]);
+  const first = [...FIRST.slice(offset % FIRST.length), ...FIRST.slice(0, offset % FIRST.length)]
+    .filter((k) => groups.has(k))
+    .map((k) => groups.get(k)!);
+  const rest = r.shuffle(
+    [...groups.entries()].filter(([k]) => !FIRST.includes(k)).map(([, g]) => g),
+  );
+  const order = [...first, ...rest];
   const out: [unknown, string][] = [];
   for (let i = 0; out.length < values.length; i++) for (const g of order) if (g[i]) out.push(g[i]!);
   return out;
