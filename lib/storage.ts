@@ -2,7 +2,7 @@ import "server-only";
 
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 
-import { Unavailable } from "@/lib/domain/errors";
+import { NotFound, Unavailable } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
 
 let client: S3Client | undefined;
@@ -19,10 +19,15 @@ function s3(): S3Client {
   return client;
 }
 
+/**
+ * Runs a storage call: an object that is not there (S3's NoSuchKey, or a 404) is "not found";
+ * any other failure is the storage being away (503, nothing stored).
+ */
 async function storage<T>(call: () => Promise<T>): Promise<T> {
   try {
     return await call();
   } catch (e) {
+    if (isMissingObject(e)) throw new NotFound("The stored file");
     console.error("object storage:", (e as Error).message);
     throw new Unavailable(
       "File storage is not answering; nothing was stored. Try again in a moment.",
@@ -50,4 +55,12 @@ export async function getObject(key: string): Promise<Buffer> {
     const r = await s3().send(new GetObjectCommand({ Bucket: serverEnv().S3_BUCKET, Key: key }));
     return Buffer.from(await r.Body!.transformToByteArray());
   });
+}
+
+/** The SDK's answer for an object that is not in the bucket. */
+function isMissingObject(e: unknown): boolean {
+  const err = e as { name?: unknown; Code?: unknown; $metadata?: { httpStatusCode?: unknown } };
+  return (
+    err?.name === "NoSuchKey" || err?.Code === "NoSuchKey" || err?.$metadata?.httpStatusCode === 404
+  );
 }

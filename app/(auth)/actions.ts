@@ -66,7 +66,12 @@ export async function acceptInvitationAction(
 /** Someone already signed in accepts an invitation sent to their own address. */
 export async function acceptAsSignedInAction(invitationId: unknown): Promise<ActionState> {
   try {
-    const id = z.string().min(1).max(100).safeParse(invitationId);
+    // An invitation's id is letters, digits, - and _ (better-auth's, or a UUID): anything else
+    // (a NUL reached PostgreSQL: 500) is no invitation.
+    const id = z
+      .string()
+      .regex(/^[\w-]{1,100}$/)
+      .safeParse(invitationId);
     if (!id.success) throw new NotFound("That invitation");
     await acceptInvitationSignedIn({ invitationId: id.data });
   } catch (e) {

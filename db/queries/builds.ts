@@ -28,6 +28,12 @@ const SORT_COLUMNS = {
   title: { col: builds.title, desc: false },
 } as const;
 
+/** An instant PostgreSQL's timestamptz takes as JavaScript writes it: years 1 to 9999. */
+function storableInstant(d: Date): boolean {
+  const year = d.getUTCFullYear();
+  return !Number.isNaN(d.getTime()) && year >= 1 && year <= 9999;
+}
+
 /** Opaque keyset cursor: base64url of [sort key of the last row, its id]. */
 const encodeCursor = (key: string, id: string) =>
   Buffer.from(JSON.stringify([key, id])).toString("base64url");
@@ -74,7 +80,8 @@ export async function listBuilds(shopId: string, opts: BuildListOptions) {
   if (after) {
     const [rawKey, id] = after;
     const key = sort.col === builds.title ? rawKey : new Date(rawKey);
-    if (!(key instanceof Date) || !Number.isNaN(key.getTime())) {
+    // A cursor naming no instant PostgreSQL can hold (year 0, year 275760) starts from the top.
+    if (!(key instanceof Date) || storableInstant(key)) {
       const beyond = sort.desc ? lt(sort.col, key as never) : gt(sort.col, key as never);
       conds.push(
         or(

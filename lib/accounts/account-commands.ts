@@ -73,7 +73,7 @@ function authRefusal(e: unknown, fallback: string): unknown {
  */
 export async function signUp(
   input: z.output<typeof SignUpSchema>,
-): Promise<{ email: string; shopId: string }> {
+): Promise<{ email: string; shopId: string | null }> {
   const { name, email, password, shopName } = input;
   let userId: string;
   try {
@@ -85,6 +85,10 @@ export async function signUp(
   } catch (e) {
     throw authRefusal(e, "Sign-up was refused");
   }
+  // An address that already has an account gets better-auth's look-alike answer (a made-up
+  // user, nothing stored), so that signing up never tells who has an account: no shop either,
+  // and the same "check your e-mail" as for a new one (was a 500: the made-up user has no row).
+  if ((await findUserByEmail(email))?.id !== userId) return { email, shopId: null };
   return { email, shopId: await createShopWithOwner(userId, shopName) };
 }
 

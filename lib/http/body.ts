@@ -26,7 +26,7 @@ export async function readJson(req: Request): Promise<unknown> {
 }
 
 /** application/json, or a `+json` type, with any parameters. */
-function isJsonType(contentType: string | null): boolean {
+export function isJsonType(contentType: string | null): boolean {
   const type = contentType?.split(";")[0]?.trim().toLowerCase() ?? "";
   return type === "application/json" || /^application\/[\w.-]+\+json$/.test(type);
 }
@@ -77,10 +77,4 @@ async function readBytesLimited(req: Request, max: number, limitMsg: string): Pr
     chunks.push(value);
   }
   return Buffer.concat(chunks);
-}
-
-/** The request's media type (before any `;charset=`) is one of `allowed`, else 415 with `message`. */
-export function requireContentType(req: Request, allowed: readonly string[], message: string) {
-  const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
-  if (!allowed.includes(type)) throw new HttpError(415, "unsupported_type", message);
 }

@@ -3,7 +3,7 @@ import { z } from "zod";
 import { FuelSystemInputSchema } from "@/lib/calc";
 import { BUILD_STATUSES } from "@/lib/domain/builds";
 
-import { versionNumber } from "./column-bounds";
+import { versionNumber, versionParam } from "./column-bounds";
 import { searchText } from "./search";
 
 const text = (label: string, max: number) =>
@@ -49,3 +49,6 @@ export const BuildListQuery = z.object({
   cursor: z.string().max(400).optional(),
   limit: z.coerce.number().int().min(1).max(100).default(25),
 });
+
+/** `GET /api/v1/builds/:id/spec-sheet?version=N`: the revision to print (the latest without one). */
+export const SpecSheetQuery = z.object({ version: versionParam().optional() });

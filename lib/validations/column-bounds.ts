@@ -44,3 +44,18 @@ export const versionParam = (name = "version") =>
  * so that tax of up to 100 % on top still fits the total column.
  */
 export const QUOTE_SUBTOTAL_MAX_MINOR = Math.floor(INT4_MAX / 2);
+
+/**
+ * The calendar dates the app stores (PostgreSQL `date`): `YYYY-MM-DD`, a day that exists, in
+ * the years 1900 to 9999. PostgreSQL has no year 0, and a five-digit year is no date a person
+ * means.
+ */
+export const DATE_MIN = "1900-01-01";
+export const DATE_MAX = "9999-12-31";
+export const calendarDate = () =>
+  z.iso
+    .date({ error: "Give a date as YYYY-MM-DD", abort: true })
+    .refine(
+      (d) => d >= DATE_MIN && d <= DATE_MAX,
+      `Give a date between ${DATE_MIN} and ${DATE_MAX}`,
+    );

@@ -4,9 +4,9 @@ import { minorToPlain } from "@/lib/catalog/money";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
-import { QUOTE_SUBTOTAL_MAX_MINOR, versionNumber } from "./column-bounds";
+import { calendarDate, QUOTE_SUBTOTAL_MAX_MINOR, versionNumber } from "./column-bounds";
 
-const isoDate = z.iso.date({ error: "Give a date as YYYY-MM-DD" });
+const isoDate = calendarDate();
 
 export const QuoteLineSchema = z.object({
   kind: z.enum(QUOTE_LINE_KINDS, { error: "A line is a part, labour or a fee" }),

@@ -57,6 +57,14 @@ export interface ActionResult {
   state: { ok: boolean; status?: number; message?: string } | null;
   /** The action ended in a redirect (a success for create-and-go actions). */
   redirect: string | null;
+  /** The response's body as sent (a flight stream, or the edge's JSON refusal). */
+  text: string;
+}
+
+/** Headers to change on the call (null leaves one out) and a body to send instead of the encoded arguments. */
+export interface CallOptions {
+  headers?: Record<string, string | null>;
+  body?: BodyInit;
 }
 
 /** Calls a server action over HTTP the way the browser does. */
@@ -64,23 +72,29 @@ export async function callAction(
   client: Client | null,
   ref: ActionRef,
   args: unknown[],
+  options: CallOptions = {},
 ): Promise<ActionResult> {
-  let body: string | FormData;
+  let body: BodyInit;
   try {
-    body = await encodeReply(args);
+    body = options.body ?? (await encodeReply(args));
   } catch {
-    return { http: 0, state: null, redirect: null };
+    return { http: 0, state: null, redirect: null, text: "" };
+  }
+  const headers: Record<string, string> = {
+    accept: "text/x-component",
+    "next-action": ref.id,
+    origin: BASE_URL,
+    ...(typeof body === "string" ? { "content-type": "text/plain;charset=UTF-8" } : {}),
+    ...(client ? { cookie: client.cookie, "x-forwarded-for": client.ip } : {}),
+  };
+  for (const [k, v] of Object.entries(options.headers ?? {})) {
+    if (v === null) delete headers[k];
+    else headers[k] = v;
   }
   const res = await fetch(`${BASE_URL}${ref.page}`, {
     method: "POST",
     redirect: "manual",
-    headers: {
-      accept: "text/x-component",
-      "next-action": ref.id,
-      origin: BASE_URL,
-      ...(typeof body === "string" ? { "content-type": "text/plain;charset=UTF-8" } : {}),
-      ...(client ? { cookie: client.cookie, "x-forwarded-for": client.ip } : {}),
-    },
+    headers,
     body,
   });
   const text = await res.text();
@@ -96,6 +110,7 @@ export async function callAction(
   }
   return {
     http: res.status,
+    text,
     state,
     redirect:
       res.headers.get("x-action-redirect") ??

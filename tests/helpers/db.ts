@@ -33,3 +33,37 @@ export async function fingerprint(tables: string[]): Promise<string> {
   }
   return parts.join("|");
 }
+
+/**
+ * The app's tables: every table of the public schema but those that reads and sign-ins write
+ * by design (sessions, better-auth's verification tokens, rate-limit counters).
+ */
+export async function appTables(): Promise<string[]> {
+  const rows = await sql<{ name: string }[]>`
+    select table_name as name from information_schema.tables
+    where table_schema = 'public' and table_type = 'BASE TABLE'
+    order by table_name`;
+  return rows
+    .map((r) => r.name)
+    .filter((n) => !["session", "verification"].includes(n) && !/rate/i.test(n));
+}
+
+/**
+ * One fingerprint per table, read in one query: what a refusal must not change. The row count
+ * and the sum of a 64-bit hash of each row's text (no sort, so cheap enough to take after every
+ * request); any changed, added or removed row changes it.
+ */
+export async function tableHashes(tables: string[]): Promise<Record<string, string>> {
+  const cols = tables
+    .map(
+      (t) =>
+        `(select count(*) || ':' || coalesce(sum(hashtextextended(x::text, 16)), 0) from "${t}" x) as "${t}"`,
+    )
+    .join(", ");
+  const [row] = await sql.unsafe(`select ${cols}`);
+  return row as Record<string, string>;
+}
+
+/** The tables whose hashes differ. */
+export const changedTables = (a: Record<string, string>, b: Record<string, string>) =>
+  Object.keys(a).filter((t) => a[t] !== b[t]);

@@ -1,7 +1,14 @@
 import { describe, expect, it } from "vitest";
 
 import { fieldErrorsOf } from "@/lib/actions/state";
-import { INT4_MAX, versionNumber, versionParam } from "@/lib/validations/column-bounds";
+import {
+  calendarDate,
+  DATE_MAX,
+  DATE_MIN,
+  INT4_MAX,
+  versionNumber,
+  versionParam,
+} from "@/lib/validations/column-bounds";
 import { CustomerListQuery } from "@/lib/validations/customers";
 import { PartFieldsSchema } from "@/lib/validations/parts";
 import { QuoteFieldsSchema } from "@/lib/validations/quotes";
@@ -63,5 +70,22 @@ describe("text at the edge", () => {
       ["constructor", ["a", "c"]],
       ["__proto__", ["b"]],
     ]);
+  });
+});
+
+// PostgreSQL's date runs from 4713 BC to 5874897 AD and has no year 0 (PostgreSQL 16
+// documentation, §8.5 "Date/Time Types", table 8.9); the app keeps to 1900–9999 (common
+// practice, no source: four-digit years a person means).
+describe("dates the schemas accept fit the date columns", () => {
+  it("year 0, five-digit years, days that do not exist and dates before 1900 are one field error each", () => {
+    for (const d of ["0000-01-01", "0000-00-00", "10000-01-01", "2023-02-29", "1899-12-31", ""]) {
+      const r = calendarDate().safeParse(d);
+      expect(r.success, d).toBe(false);
+      expect(r.error?.issues, d).toHaveLength(1);
+    }
+  });
+  it("the first and last days taken, and a leap day", () => {
+    for (const d of [DATE_MIN, DATE_MAX, "2024-02-29"])
+      expect(calendarDate().safeParse(d).success, d).toBe(true);
   });
 });

@@ -9,7 +9,13 @@ export const GET = handle<{ params: Promise<{ token: string }> }>(async (_req, c
   const check = await checkShareToken((await ctx.params).token);
   if (!check.ok)
     return Response.json(
-      { error: { code: `link_${check.reason}`, message: "This link is not valid any more" } },
+      {
+        error: {
+          code: `link_${check.reason}`,
+          message: "This link is not valid any more",
+          issues: [],
+        },
+      },
       { status: 404 },
     );
   const data = await specSheetData(check.link.shopId, check.link.buildId, {});

@@ -1,34 +1,13 @@
-import { z } from "zod";
-
 import { requireMember } from "@/lib/auth/member";
-import {
-  BlendMixSchema,
-  ethanolFromFlexSensorHz,
-  fillSplit,
-  FillSplitSchema,
-  FlexSensorSchema,
-  mixFuels,
-  volumeToAdd,
-  VolumeToAddSchema,
-} from "@/lib/calc";
+import { ethanolFromFlexSensorHz, fillSplit, mixFuels, volumeToAdd } from "@/lib/calc";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
-
-const BlendRequest = z.discriminatedUnion(
-  "kind",
-  [
-    z.object({ kind: z.literal("mix"), ...BlendMixSchema.shape }),
-    z.object({ kind: z.literal("volume-to-add"), ...VolumeToAddSchema.shape }),
-    z.object({ kind: z.literal("fill-split"), ...FillSplitSchema.shape }),
-    z.object({ kind: z.literal("flex-sensor"), ...FlexSensorSchema.shape }),
-  ],
-  { error: "kind must be mix, volume-to-add, fill-split or flex-sensor" },
-);
+import { BlendRequestSchema } from "@/lib/validations/calc";
 
 /** POST /api/v1/calc/blend — the blend mixer's solvers, chosen by `kind`. */
 export const POST = handle(async (req) => {
   await requireMember("calc:use");
-  const body = BlendRequest.parse(await readJson(req));
+  const body = BlendRequestSchema.parse(await readJson(req));
   switch (body.kind) {
     case "mix":
       return Response.json({ result: mixFuels(body.parts) });

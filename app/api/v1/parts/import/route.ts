@@ -4,6 +4,13 @@ import { readText } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { importCatalog } from "@/lib/parts/part-commands";
 
+const CSV_UPLOAD = {
+  accepts: {
+    types: ["text/csv", "text/plain", "application/vnd.ms-excel", "application/octet-stream"],
+    message: "Send the catalog as a CSV file (text/csv)",
+  },
+};
+
 /**
  * POST /api/v1/parts/import[?dryRun=1] with the CSV as the body (a file upload, so it stays on
  * the API). Any bad row → 422 listing every row error by line and column (`error.rows`, and the
@@ -13,19 +20,6 @@ import { importCatalog } from "@/lib/parts/part-commands";
 export const POST = handle(async (req) => {
   const m = await requireMember();
   const dryRun = new URL(req.url).searchParams.get("dryRun") === "1";
-  const type = req.headers.get("content-type") ?? "";
-  if (type && !/^(text\/(csv|plain)|application\/(vnd\.ms-excel|octet-stream))/i.test(type)) {
-    return Response.json(
-      {
-        error: {
-          code: "unsupported_type",
-          message: "Send the catalog as a CSV file (text/csv)",
-          issues: [],
-        },
-      },
-      { status: 415 },
-    );
-  }
   const csv = await readText(req, MAX_CSV_BYTES, "catalog file");
   const { errors, ...result } = await importCatalog(m, { csv, dryRun });
   if (errors.length) {
@@ -44,4 +38,4 @@ export const POST = handle(async (req) => {
     );
   }
   return Response.json(result);
-});
+}, CSV_UPLOAD);

@@ -20,12 +20,19 @@ export const GET = handle(async () => {
   });
 });
 
+const IMAGE_UPLOAD = {
+  accepts: {
+    types: ["image/png", "image/jpeg", "application/octet-stream"],
+    message: "Upload the logo as a PNG or JPEG image",
+  },
+};
+
 /** PUT (the image's bytes as the body) — upload or replace the logo: PNG or JPEG, at most 1 MB. */
 export const PUT = handle(async (req) => {
   // Refused before a megabyte is read; the command checks the role again.
   const m = await requireMember("settings:update");
   return Response.json({ logo: await setShopLogo(m, await readLogo(req)) });
-});
+}, IMAGE_UPLOAD);
 
 /** DELETE — remove the logo. */
 export const DELETE = handle(async () => {

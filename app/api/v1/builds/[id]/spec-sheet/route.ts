@@ -1,5 +1,3 @@
-import { z } from "zod";
-
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { handle } from "@/lib/http/handler";
@@ -7,15 +5,13 @@ import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
 import { pdfFileName, pdfResponse, specSheetData } from "@/lib/pdf/spec-sheet-data";
-import { versionParam } from "@/lib/validations/column-bounds";
-
-const Query = z.object({ version: versionParam().optional() });
+import { SpecSheetQuery } from "@/lib/validations/builds";
 
 /** GET ?version=N — the build's spec sheet as PDF, from its latest (or the named) saved revision. */
 export const GET = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember("builds:view");
   const id = await uuidParam(ctx, "That build");
-  const { version } = Query.parse(Object.fromEntries(new URL(req.url).searchParams));
+  const { version } = SpecSheetQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
   const data = await specSheetData(m.shopId, id, {
     version,
     portalUserId: ownRecordsOnly(m.role) ? m.user.id : undefined,
