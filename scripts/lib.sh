@@ -69,8 +69,13 @@ pg_start() {
     pg_as_owner "$bin/initdb" -D "$dir" -U fuelwright --auth=trust -E UTF8 --locale=C.UTF-8 >"$log" 2>&1 || die "PostgreSQL could not initialise $dir: $(tail -n 1 "$log")"
   fi
   if pg_as_owner "$bin/pg_ctl" -D "$dir" status >/dev/null 2>&1; then
-    say "PostgreSQL '$name' already running on port $port"
-    return 0
+    # Line 4 of postmaster.pid is the port it listens on: another port offset left it running.
+    if [ "$(sed -n 4p "$dir/postmaster.pid" 2>/dev/null)" = "$port" ]; then
+      say "PostgreSQL '$name' already running on port $port"
+      return 0
+    fi
+    say "PostgreSQL '$name' runs on another port: restarting it on $port"
+    pg_as_owner "$bin/pg_ctl" -D "$dir" -m fast -w stop >/dev/null 2>&1 || die "PostgreSQL '$name' could not be stopped"
   fi
   port_busy "$port" && die "PostgreSQL cannot start: port $port on 127.0.0.1 is taken by another program"
   touch "$log"; is_root && chown postgres:postgres "$log"
