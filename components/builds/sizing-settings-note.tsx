@@ -1,16 +1,16 @@
 import {
-  converter,
-  toShown,
+  BSFC_SOURCE_LABELS,
+  DRIVE_TYPE_LABELS,
+  formatValue,
   type FuelSystemResult,
   type ParsedFuelSystemInput,
   type UnitSystem,
 } from "@/lib/calc";
 
-const DRIVE = { manual: "manual", automatic: "automatic", awd: "all-wheel drive" } as const;
-
 /**
  * The settings behind the figures beside it: limits, drivetrain loss and fuel properties as the
- * sizing used them (the build's own where it states them, else the shop's, else the library's).
+ * sizing used them (the build's own where it states them, else the shop's, else the library's),
+ * each in the reader's units through the registry.
  */
 export function SizingSettingsNote({
   input,
@@ -22,20 +22,22 @@ export function SizingSettingsNote({
   units: UnitSystem;
 }) {
   const l = result.limits;
-  const p = converter("pressure", units);
+  const pct = (x: number) => formatValue("percent", x, units, 0);
   const rich = result.blend.rich;
   const props = input.fuel.properties;
+  const blend = formatValue("ethanol", rich.ethanolVolPct, units);
+  const loss = input.target.drivetrainLossPct;
   return (
     <p className="mt-3 text-sm text-ink-600" data-testid="sizing-settings">
-      Sized for {l.designDutyPct} % injector duty (caution above {l.dutyCautionPct} %, danger above{" "}
-      {l.dutyDangerPct} %), a pump margin of at least {l.minPumpMarginPct} % and line drops of at
-      most {toShown("pressure", l.maxLineDropKpa, units)} {p.unit};{" "}
+      Sized for {pct(l.designDutyPct)} injector duty (caution above {pct(l.dutyCautionPct)}, danger
+      above {pct(l.dutyDangerPct)}), a pump margin of at least {pct(l.minPumpMarginPct)} and line
+      drops of at most {formatValue("pressure", l.maxLineDropKpa, units)};{" "}
       {input.target.measuredAt === "wheel"
-        ? `${input.target.drivetrainLossPct ?? "—"} % drivetrain loss (${DRIVE[input.target.driveType ?? "manual"]}); `
+        ? `${loss === undefined ? "—" : pct(loss)} drivetrain loss (${DRIVE_TYPE_LABELS[input.target.driveType ?? "manual"].toLowerCase()}); `
         : ""}
-      BSFC {toShown("bsfc", rich.bsfcGPerKwh, units)} {converter("bsfc", units).unit} at E
-      {rich.ethanolVolPct} ({rich.bsfcSource === "given" ? "given" : "rule of thumb"}); E
-      {rich.ethanolVolPct} density {rich.densityKgPerL.toFixed(3)} kg/L
+      BSFC {formatValue("bsfc", rich.bsfcGPerKwh, units)} at {blend} (
+      {BSFC_SOURCE_LABELS[rich.bsfcSource]}); {blend} density{" "}
+      {formatValue("density", rich.densityKgPerL, units)}
       {props?.gasoline || props?.ethanol ? " (the shop's fuel properties)" : ""}.
     </p>
   );

@@ -323,7 +323,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         </View>
         <Text style={[s.muted, { marginTop: 3 }]}>
           {pdfText(
-            `Sized for ${q("percent", r.limits.designDutyPct)} injector duty (caution above ${q("percent", r.limits.dutyCautionPct)}, danger above ${q("percent", r.limits.dutyDangerPct)}), a pump margin of at least ${q("percent", r.limits.minPumpMarginPct)} and line drops of at most ${q("pressure", r.limits.maxLineDropKpa)}; drive: ${DRIVE_TYPE_LABELS[input.target.driveType ?? "manual"].toLowerCase()}.`,
+            `Sized for ${q("percent", r.limits.designDutyPct, 0)} injector duty (caution above ${q("percent", r.limits.dutyCautionPct, 0)}, danger above ${q("percent", r.limits.dutyDangerPct, 0)}), a pump margin of at least ${q("percent", r.limits.minPumpMarginPct, 0)} and line drops of at most ${q("pressure", r.limits.maxLineDropKpa)}; ${DRIVE_TYPE_LABELS[input.target.driveType ?? "manual"].toLowerCase()}.`,
           )}
         </Text>
 

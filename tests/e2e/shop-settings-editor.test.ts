@@ -84,7 +84,7 @@ describe("the live editor uses the shop's settings", () => {
     expect(await note()).toContain(
       "Sized for 75 % injector duty (caution above 75 %, danger above 88 %), a pump margin of at least 40 % and line drops of at most 10 kPa",
     );
-    expect(await note()).toContain("18 % drivetrain loss (automatic)");
+    expect(await note()).toContain("18 % drivetrain loss (automatic gearbox)");
     // Gasoline 0.74 and ethanol 0.785 kg/L by volume at E85 (calc-spec §1): 0.15·0.74 + 0.85·0.785.
     expect(await note()).toContain(`density ${(0.15 * 0.74 + 0.85 * 0.785).toFixed(3)} kg/L`);
     expect(await page.getByTestId("loss-from-shop").innerText()).toContain("the shop's 18 %");
@@ -119,8 +119,8 @@ describe("the live editor uses the shop's settings", () => {
     const notice = page.getByTestId("settings-changed");
     await expect.poll(() => notice.count()).toBe(1);
     const text = await notice.innerText();
-    expect(text).toMatch(/Design duty: 80 → 75/);
-    expect(text).toMatch(/Drivetrain loss: 17 → 18/);
+    expect(text).toMatch(/Design duty: 80 % → 75 %/);
+    expect(text).toMatch(/Drivetrain loss: 17 % → 18 %/);
     // The live figures already use today's settings: the same as the build made after.
     expect(await duty(page)).toContain(newer.result.blend.rich.dutyPct.toFixed(1));
     await page.getByRole("button", { name: "Re-size with today's settings" }).click();

@@ -41,6 +41,7 @@ import {
   InviteSchema,
   MemberRemoveSchema,
   MemberRoleSchema,
+  ShopSettingsPatchSchema,
   ShopSettingsSchema,
   UnitsSchema,
 } from "@/lib/validations/settings";
@@ -159,6 +160,7 @@ const BODY: Record<
   "PATCH /api/v1/quotes/[id]": { schema: QuoteEditSchema, skip: isId },
   "POST /api/v1/quotes/[id]/status": { schema: QuoteStatusSchema, skip: isId },
   "POST /api/v1/quotes/[id]/respond": { schema: QuoteResponseSchema, skip: isId },
+  "PATCH /api/v1/shop/settings": { schema: ShopSettingsPatchSchema },
   // better-auth's own endpoint: its body as the reset form sends it.
   "POST /api/auth/[...all]": {
     schema: z.object({ email: z.email().max(200), redirectTo: z.string().max(200) }),

@@ -347,7 +347,7 @@ describe("shop settings reach every figure", () => {
     const sheet = await pdfText(`/api/v1/builds/${b.id}/spec-sheet`);
     expect(sheet.pageSizes).toEqual(Array(sheet.pages).fill("595x842"));
     expect(sheet.flat).toContain(
-      "Sized for 75 % injector duty (caution above 75 %, danger above 88 %), a pump margin of at least 40 % and line drops of at most 10 kPa; automatic drivetrain.",
+      "Sized for 75 % injector duty (caution above 75 %, danger above 88 %), a pump margin of at least 40 % and line drops of at most 10 kPa; automatic gearbox.",
     );
     expect(sheet.flat).toContain(
       `Revision 1 · ${formatDate(b.createdAt, { timeZone: "Pacific/Auckland" })}`,

@@ -39,6 +39,8 @@ describe("lost updates", () => {
         Array.from({ length: 6 }, (_, i) =>
           api("PATCH", `/api/v1/builds/${BUILD}`, {
             version: cur.json.build.version,
+            // Each editor changes the title: a save that changes nothing writes nothing.
+            title: `round ${round} editor ${i}`,
             note: `round ${round} editor ${i}`,
             inputs: cur.json.build.inputs,
           }).then((r) => ({ r, note: `round ${round} editor ${i}` })),
@@ -63,7 +65,12 @@ describe("lost updates", () => {
     let kills = 0;
     for (let i = 0; i < 45; i++) {
       const note = `kill loop save ${i}`;
-      const pending = api("PATCH", `/api/v1/builds/${BUILD}`, { version, note, inputs }).then(
+      const pending = api("PATCH", `/api/v1/builds/${BUILD}`, {
+        version,
+        title: note,
+        note,
+        inputs,
+      }).then(
         (r) => r,
         () => null, // the connection died with the process: not acknowledged
       );
