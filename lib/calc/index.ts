@@ -33,6 +33,7 @@ export type {
 export {
   crankPowerFromWheel,
   fuelMassFlowGPerMin,
+  bsfcAtBlend,
   defaultBsfc,
   DEFAULT_BSFC,
   G_PER_KWH_PER_LB_PER_HP_H,
@@ -50,7 +51,13 @@ export {
   gaugeFromAbsKpa,
 } from "./injectors";
 export type { RegulatorType, DeadTimeTable } from "./injectors";
-export { pumpFlowLPerH, pumpsSupplyLPerH, pumpSupplyFunction, pumpMarginPct } from "./pumps";
+export {
+  pumpFlowLPerH,
+  pumpsSupplyLPerH,
+  pumpSupplyFunction,
+  pumpMarginPct,
+  validatePumpCurve,
+} from "./pumps";
 export type { Pump, PumpCurve, PumpFlow } from "./pumps";
 export {
   linePressureDrop,
