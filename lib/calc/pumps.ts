@@ -174,5 +174,6 @@ export function pumpsSupplyLPerH(
 export function pumpMarginPct(supplyLPerH: number, demandLPerH: number): number {
   requireRange("supplyLPerH", supplyLPerH, 0, 1e6, "Pump supply");
   requireRange("demandLPerH", demandLPerH, 0, 1e6, "Fuel demand");
-  return demandLPerH > 0 ? (supplyLPerH / demandLPerH - 1) * 100 : 0;
+  // No demand: no margin to speak of. A vanishing one (under a millilitre an hour) is no demand.
+  return demandLPerH > 1e-3 ? (supplyLPerH / demandLPerH - 1) * 100 : 0;
 }

@@ -110,6 +110,7 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "engine.idleManifoldKpaAbs": { label: "Idle manifold pressure", quantity: "pressureAbs" },
   "engine.idleVolumetricEfficiency": { label: "Idle volumetric efficiency", quantity: "ratio" },
   "engine.intakeTempC": { label: "Intake air temperature", quantity: "temperature" },
+  "engine.ambientKpaAbs": { label: "Ambient (barometric) pressure", quantity: "pressureAbs" },
   target: { label: "Power goal" },
   "target.powerKw": { label: "Target power", quantity: "power" },
   "target.measuredAt": {

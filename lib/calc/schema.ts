@@ -35,6 +35,8 @@ export const EngineSchema = z
       idleManifoldKpaAbs: num("Idle manifold pressure", 15, 101, "kPa absolute").default(35),
       idleVolumetricEfficiency: num("Idle volumetric efficiency", 0.2, 1.2).default(0.8),
       intakeTempC: num("Intake air temperature", -30, 90, "°C").default(30),
+      /** Barometric pressure: gauge pressures and a fixed regulator work against it (calc-spec §3). */
+      ambientKpaAbs: num("Ambient pressure", 50, 110, "kPa absolute").default(101.325),
     },
     { error: "Give the engine: cylinders, displacement, aspiration and redline" },
   )
@@ -44,6 +46,12 @@ export const EngineSchema = z
         code: "custom",
         path: ["idleRpm"],
         message: "Idle speed must be below the redline",
+      });
+    if (e.idleManifoldKpaAbs >= e.ambientKpaAbs)
+      ctx.addIssue({
+        code: "custom",
+        path: ["idleManifoldKpaAbs"],
+        message: "Idle manifold pressure must be below the ambient pressure",
       });
     if (e.aspiration === "na" && e.maxBoostKpa > 0)
       ctx.addIssue({

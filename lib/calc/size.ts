@@ -450,7 +450,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   });
 
   // Idle: the least fuel is needed at the lowest ethanol content.
-  const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs);
+  const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs, engine.ambientKpaAbs);
   const dpIdle = injectorDifferentialPressureKpa({
     type: regulator.type,
     basePressureKpa: regulator.basePressureKpa,
