@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md (all sections).
 /**
  * Fuelwright's calculation library: pure functions, no I/O. The browser, the server actions,
  * the PDF renderer and the JSON API all call this one implementation.

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §5.
 import { requirePositive, requireRange } from "./_lib/input-error";
 
 /** Laminar below this Reynolds number; fully turbulent above the upper one. */

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §6.
 import { z } from "zod";
 
 import { ATMOSPHERE_KPA, KPA_PER_BAR, KPA_PER_PSI, KW_PER_HP } from "./constants";

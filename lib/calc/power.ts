@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §2.
 import { requirePositive, requireRange } from "./_lib/input-error";
 import { fuelBlend, type FuelProperties } from "./fuel";
 

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §0, §9.
 import {
   celsiusFromFahrenheit,
   fahrenheitFromCelsius,

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §9.
 import { z } from "zod";
 
 import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";

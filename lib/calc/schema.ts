@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §8 (defaults: §3.5, §3.7).
 import { z } from "zod";
 
 /**

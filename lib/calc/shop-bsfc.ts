@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §2.4.
 import type { Aspiration } from "./power";
 
 /**

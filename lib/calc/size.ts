@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7 (and §2–§5 for each stage).
 import { CalcInputError } from "./_lib/input-error";
 import { Tracer } from "./_lib/trace";
 import { fuelBlend, type FuelBlend } from "./fuel";
