@@ -1,4 +1,5 @@
 import {
+  BSFC_SOURCE_LABELS,
   converter,
   toShown,
   type FuelSystemResult,
@@ -34,8 +35,8 @@ export function SizingSettingsNote({
         ? `${input.target.drivetrainLossPct ?? "—"} % drivetrain loss (${DRIVE[input.target.driveType ?? "manual"]}); `
         : ""}
       BSFC {toShown("bsfc", rich.bsfcGPerKwh, units)} {converter("bsfc", units).unit} at E
-      {rich.ethanolVolPct} ({rich.bsfcSource === "given" ? "given" : "rule of thumb"}); E
-      {rich.ethanolVolPct} density {rich.densityKgPerL.toFixed(3)} kg/L
+      {rich.ethanolVolPct} ({BSFC_SOURCE_LABELS[rich.bsfcSource]}); E{rich.ethanolVolPct} density{" "}
+      {rich.densityKgPerL.toFixed(3)} kg/L
       {props?.gasoline || props?.ethanol ? " (the shop's fuel properties)" : ""}.
     </p>
   );
