@@ -28,8 +28,8 @@ export function injectorFlowAtPressure(q: {
   ratedPressureKpa: number;
   differentialPressureKpa: number;
 }): number {
-  requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e5, "Rated flow");
-  requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Rated pressure");
+  requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e9, "Rated flow");
+  requireRange("ratedPressureKpa", q.ratedPressureKpa, 1, 1e4, "Rated pressure");
   requireRange(
     "differentialPressureKpa",
     q.differentialPressureKpa,
@@ -92,9 +92,9 @@ export function injectorDutyPct(q: {
   flowAtOperatingCcPerMin: number;
 }): number {
   requireRange("fuelMassFlowGPerMin", q.fuelMassFlowGPerMin, 0, 1e7, "Fuel mass flow");
-  requirePositive("densityKgPerL", q.densityKgPerL, 2, "Fuel density");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
   requireCount("injectorCount", q.injectorCount);
-  requirePositive("flowAtOperatingCcPerMin", q.flowAtOperatingCcPerMin, 1e5, "Injector flow");
+  requireRange("flowAtOperatingCcPerMin", q.flowAtOperatingCcPerMin, 0.01, 1e5, "Injector flow");
   return (
     (100 * q.fuelMassFlowGPerMin) / (q.densityKgPerL * q.injectorCount * q.flowAtOperatingCcPerMin)
   );
@@ -112,9 +112,9 @@ export function requiredInjectorFlowCcPerMin(q: {
   designDutyPct: number;
 }): number {
   requireRange("fuelMassFlowGPerMin", q.fuelMassFlowGPerMin, 0, 1e7, "Fuel mass flow");
-  requirePositive("densityKgPerL", q.densityKgPerL, 2, "Fuel density");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
   requireCount("injectorCount", q.injectorCount);
-  requirePositive("designDutyPct", q.designDutyPct, 100, "Design duty");
+  requireRange("designDutyPct", q.designDutyPct, 1, 100, "Design duty");
   return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
 }
 

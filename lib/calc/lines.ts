@@ -29,7 +29,8 @@ export function swameeJainFrictionFactor(re: number, relativeRoughness: number):
  * 1/√f = −2·log10(ε/(3.7D) + 2.51/(Re·√f)).
  */
 export function colebrookFrictionFactor(re: number, relativeRoughness: number): number {
-  requireRange("reynolds", re, 1, 1e9, "Reynolds number");
+  // Colebrook is a turbulent-flow law: below the laminar limit it has no meaning.
+  requireRange("reynolds", re, RE_LAMINAR, 1e9, "Reynolds number (turbulent flow)");
   requireRoughness(relativeRoughness);
   let x = 1 / Math.sqrt(swameeJainFrictionFactor(re, relativeRoughness));
   for (let i = 0; i < 50; i++) {

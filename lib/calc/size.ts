@@ -8,10 +8,13 @@ import {
   gaugeFromAbsKpa,
   idleFuelPerCylinderMg,
   injectorDifferentialPressureKpa,
+  injectorDutyPct,
+  injectorFlowAtPressure,
   railPressureKpa,
+  requiredInjectorFlowCcPerMin,
 } from "./injectors";
 import { AN_SIZES, linePressureDrop, type LineDrop } from "./lines";
-import { bsfcAtBlend, defaultBsfc } from "./power";
+import { bsfcAtBlend, crankPowerFromWheel, defaultBsfc, fuelMassFlowGPerMin } from "./power";
 import { pumpMarginPct, pumpSupplyFunction } from "./pumps";
 import type { FigureParams } from "./quantities";
 import { FuelSystemInputSchema, type FuelSystemInput, type ParsedFuelSystemInput } from "./schema";
@@ -191,7 +194,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
             { label: "wheel power", value: target.powerKw, quantity: "power" },
             { label: "drivetrain loss", value: lossPct, quantity: "percent" },
           ],
-          value: target.powerKw / (1 - lossPct / 100),
+          value: crankPowerFromWheel({ wheelPowerKw: target.powerKw, drivetrainLossPct: lossPct }),
           quantity: "power",
         })
       : target.powerKw;
@@ -225,7 +228,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       { label: "pressure across", value: dpOp, quantity: "pressure" },
       { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
     ],
-    value: injectors.ratedFlowCcPerMin * Math.sqrt(dpOp / injectors.ratedPressureKpa),
+    value: injectorFlowAtPressure({
+      ratedFlowCcPerMin: injectors.ratedFlowCcPerMin,
+      ratedPressureKpa: injectors.ratedPressureKpa,
+      differentialPressureKpa: dpOp,
+    }),
     quantity: "injectorFlow",
   });
 
@@ -334,7 +341,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "crank power", value: crankPowerKw, quantity: "power" },
         { label: "BSFC", value: bsfc, quantity: "bsfc" },
       ],
-      value: (crankPowerKw * bsfc) / 60,
+      value: fuelMassFlowGPerMin({ powerKw: crankPowerKw, bsfcGPerKwh: bsfc }),
       quantity: "massFlow",
     });
     const volLPerH = (mdot / b.densityKgPerL) * 0.06;
@@ -352,7 +359,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "design duty", value: limits.designDutyPct, quantity: "percent", decimals: 0 },
         RATING_FLUID,
       ],
-      value: mdot / (b.densityKgPerL * n * design),
+      value: requiredInjectorFlowCcPerMin({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: n,
+        designDutyPct: limits.designDutyPct,
+      }),
       quantity: "injectorFlow",
     });
     const reqRated = t.add({
@@ -365,7 +377,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
         { label: "pressure across", value: dpOp, quantity: "pressure" },
       ],
-      value: reqOp * Math.sqrt(injectors.ratedPressureKpa / dpOp),
+      // The orifice law run backwards: the rating that gives reqOp at dpOp.
+      value: injectorFlowAtPressure({
+        ratedFlowCcPerMin: reqOp,
+        ratedPressureKpa: dpOp,
+        differentialPressureKpa: injectors.ratedPressureKpa,
+      }),
       quantity: "injectorFlow",
     });
     const duty = t.add({
@@ -382,7 +399,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "injector flow", value: qOp, quantity: "injectorFlow" },
         RATING_FLUID,
       ],
-      value: (100 * mdot) / (b.densityKgPerL * n * qOp),
+      value: injectorDutyPct({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: n,
+        flowAtOperatingCcPerMin: qOp,
+      }),
       quantity: "percent",
     });
     const ceiling = t.add({
@@ -466,7 +488,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     stoichAfr: leanProps.stoichAfr,
   });
   const fuelPerInjectionMg = (idleFuel.fuelMg * engine.cylinders) / n;
-  const qIdle = injectors.ratedFlowCcPerMin * Math.sqrt(dpIdle / injectors.ratedPressureKpa);
+  const qIdle = injectorFlowAtPressure({
+    ratedFlowCcPerMin: injectors.ratedFlowCcPerMin,
+    ratedPressureKpa: injectors.ratedPressureKpa,
+    differentialPressureKpa: dpIdle,
+  });
   const idleEffective = t.add({
     id: "pulse-idle",
     label: "Effective pulse width at idle ({ethanol}, λ 1)",
