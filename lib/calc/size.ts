@@ -13,7 +13,7 @@ import {
   railPressureKpa,
   requiredInjectorFlowCcPerMin,
 } from "./injectors";
-import { AN_SIZES, linePressureDrop, type LineDrop } from "./lines";
+import { AN_SIZES, linePressureDrop, type LineDrop, type LineSegment } from "./lines";
 import { bsfcAtBlend, crankPowerFromWheel, defaultBsfc, fuelMassFlowGPerMin } from "./power";
 import { pumpMarginPct, pumpSupplyFunction } from "./pumps";
 import type { FigureParams } from "./quantities";
@@ -529,44 +529,9 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   });
   const supplyAt = pumpSupplyFunction(pumps);
   const base = rail + (feedLine?.filterDropKpa ?? 0);
-  let outlet = base;
-  let feedDrop: LineDrop | null = null;
-  if (feedLine) {
-    // The outlet pressure p solves g(p) = p − base − drop(supply(p)) = 0; g rises with p and
-    // the root lies between base and base + drop(supply(base)). Illinois false position.
-    const g = (p: number) =>
-      p -
-      base -
-      linePressureDrop(feedLine, fluid(supplyAt(p, voltageUsed).flowLPerH)).pressureDropKpa;
-    let lo = base;
-    let glo = g(lo);
-    let hi = base - glo;
-    let ghi = g(hi);
-    outlet = hi;
-    if (glo < 0 && ghi > 0 && hi - lo > 1e-6) {
-      let side = 0;
-      for (let i = 0; i < 60; i++) {
-        const guess = (lo * ghi - hi * glo) / (ghi - glo);
-        const p = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
-        const gp = g(p);
-        outlet = p;
-        if (Math.abs(gp) < 0.01) break;
-        if (gp < 0) {
-          lo = p;
-          glo = gp;
-          if (side === -1) ghi /= 2;
-          side = -1;
-        } else {
-          hi = p;
-          ghi = gp;
-          if (side === 1) glo /= 2;
-          side = 1;
-        }
-      }
-    } else if (glo >= 0 || !(hi - lo > 1e-6)) outlet = lo;
-    if (!Number.isFinite(outlet)) outlet = base;
-    feedDrop = linePressureDrop(feedLine, fluid(supplyAt(outlet, voltageUsed).flowLPerH));
-  }
+  const { outlet, feedDrop } = pumpOperatingPoint(base, feedLine, (p) =>
+    fluid(supplyAt(p, voltageUsed).flowLPerH),
+  );
   const supply = supplyAt(outlet, voltageUsed);
   t.add({
     id: "pump-outlet",
@@ -1049,4 +1014,50 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     warnings,
     trace: t.steps,
   };
+}
+
+/**
+ * Stage "pump operating point" (docs/calculations.md §4.1): the outlet pressure p solves
+ * g(p) = p − base − drop(supply(p)) = 0, base being rail + filter. g rises with p and the root
+ * lies between base and base + drop(supply(base)). Illinois false position.
+ */
+function pumpOperatingPoint(
+  base: number,
+  feedLine: LineSegment | undefined,
+  fluidAt: (pressureKpa: number) => {
+    flowLPerH: number;
+    densityKgPerL: number;
+    viscosityMPaS: number;
+  },
+): { outlet: number; feedDrop: LineDrop | null } {
+  if (!feedLine) return { outlet: base, feedDrop: null };
+  const g = (p: number) => p - base - linePressureDrop(feedLine, fluidAt(p)).pressureDropKpa;
+  let lo = base;
+  let glo = g(lo);
+  let hi = base - glo;
+  let ghi = g(hi);
+  let outlet = hi;
+  if (glo < 0 && ghi > 0 && hi - lo > 1e-6) {
+    let side = 0;
+    for (let i = 0; i < 60; i++) {
+      const guess = (lo * ghi - hi * glo) / (ghi - glo);
+      const p = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
+      const gp = g(p);
+      outlet = p;
+      if (Math.abs(gp) < 0.01) break;
+      if (gp < 0) {
+        lo = p;
+        glo = gp;
+        if (side === -1) ghi /= 2;
+        side = -1;
+      } else {
+        hi = p;
+        ghi = gp;
+        if (side === 1) glo /= 2;
+        side = 1;
+      }
+    }
+  } else if (glo >= 0 || !(hi - lo > 1e-6)) outlet = lo;
+  if (!Number.isFinite(outlet)) outlet = base;
+  return { outlet, feedDrop: linePressureDrop(feedLine, fluidAt(outlet)) };
 }
