@@ -14,7 +14,8 @@ describe("docs/calculations.md is the library's reference", () => {
   it.each(modules)("%s points to its section near its top", (f) => {
     const head = readFileSync(join(dir, f), "utf8").split("\n").slice(0, 20).join("\n");
     const m =
-      /docs\/calculations\.md (§\d+)/.exec(head) ?? /docs\/calculations\.md \(all sections\)/.exec(head);
+      /docs\/calculations\.md (§\d+)/.exec(head) ??
+      /docs\/calculations\.md \(all sections\)/.exec(head);
     expect(m).not.toBeNull();
     if (m && m[1]) expect(doc).toContain(`## ${m[1]} `);
   });
