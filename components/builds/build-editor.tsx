@@ -645,6 +645,7 @@ export function BuildEditor(props: {
             {num("fuel.ethanolMinVolPct")}
             {num("fuel.ethanolMaxVolPct")}
             {num("fuel.bsfcGPerKwh")}
+            {num("fuel.bsfcEthanolVolPct")}
             {num("fuel.targetLambda")}
             <ShopBsfcOffer
               row={shopBsfcFor(
@@ -654,11 +655,15 @@ export function BuildEditor(props: {
               )}
               units={units}
               current={inputs.fuel?.bsfcGPerKwh}
-              onUse={(g) =>
+              onUse={(g, ethanolVolPct) => {
                 setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, {
                   shouldDirty: true,
-                })
-              }
+                });
+                // The measured figure belongs to the fuel it was measured on (calc-spec §2).
+                setValue("fuel.bsfcEthanolVolPct" as never, ethanolVolPct as never, {
+                  shouldDirty: true,
+                });
+              }}
             />
           </Section>
           <Section
@@ -733,6 +738,7 @@ export function BuildEditor(props: {
             }
           >
             {num("electrical.voltageAtPump")}
+            {num("electrical.injectorVoltage")}
             {inc.wiring
               ? [
                   num("electrical.wiring.sourceVoltage"),
@@ -820,7 +826,7 @@ function ShopBsfcOffer({
   row: ShopBsfcRow | null;
   units: UnitSystem;
   current?: number;
-  onUse: (gPerKwh: number) => void;
+  onUse: (gPerKwh: number, ethanolVolPct: number) => void;
 }) {
   const fmt = (g: number) => formatValue("bsfc", g, units, units === "metric" ? 0 : 2);
   if (!row) {
@@ -846,7 +852,11 @@ function ShopBsfcOffer({
         {inUse ? (
           <span className="text-ok-700">✓ Using this shop&apos;s measured BSFC</span>
         ) : (
-          <Button type="button" variant="ghost" onClick={() => onUse(mean)}>
+          <Button
+            type="button"
+            variant="ghost"
+            onClick={() => onUse(mean, Math.round(row.meanEthanolVolPct ?? 0))}
+          >
             {`Use this shop's measured BSFC (${row.builds} ${row.builds === 1 ? "build" : "builds"})`}
           </Button>
         )}

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7.
 import { fuelBlend } from "./fuel";
 import { injectorDifferentialPressureKpa, railPressureKpa } from "./injectors";
 import { defaultBsfc } from "./power";

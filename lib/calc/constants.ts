@@ -1,15 +1,28 @@
 /**
- * Physical constants and default fuel-component properties. Exact conversion factors are from
- * NIST SP 811 (appendix B); fuel properties are the defaults of the calculation spec, which a
- * shop may override.
+ * Physical constants and default fuel-component properties: the one module of conversion
+ * factors, every conversion in the library uses these. Exact factors are from NIST SP 811
+ * (2008), appendix B.8; fuel properties are the defaults of the calculation spec, which a shop
+ * may override. docs/calculations.md §0.
  */
 
 /** 1 lb = 0.45359237 kg exactly (NIST SP 811). */
 export const KG_PER_LB = 0.45359237;
 /** 1 US gallon = 3.785411784 L exactly (NIST SP 811). */
 export const L_PER_US_GAL = 3.785411784;
-/** 1 psi = 6.894757293168 kPa (NIST SP 811). */
-export const KPA_PER_PSI = 6.894757293168;
+/** 1 in = 25.4 mm exactly (NIST SP 811). */
+export const MM_PER_IN = 25.4;
+/** 1 ft = 0.3048 m exactly (NIST SP 811). */
+export const M_PER_FT = 0.3048;
+/** Standard acceleration of gravity, 9.80665 m/s² exactly (NIST SP 811; CGPM 1901). */
+export const STANDARD_GRAVITY_M_PER_S2 = 9.80665;
+/** 1 psi = 1 lbf/in² = 0.45359237 × 9.80665 N / (0.0254 m)² = 6.894 757 293 168 kPa (NIST SP 811, exact). */
+export const KPA_PER_PSI =
+  (KG_PER_LB * STANDARD_GRAVITY_M_PER_S2) / ((MM_PER_IN / 1000) * (MM_PER_IN / 1000)) / 1000;
+/** 1 bar = 100 kPa exactly (NIST SP 811). */
+export const KPA_PER_BAR = 100;
+/** °F ↔ °C: t/°C = (t/°F − 32) / 1.8 exactly (NIST SP 811 B.8). */
+export const celsiusFromFahrenheit = (f: number): number => (f - 32) / 1.8;
+export const fahrenheitFromCelsius = (c: number): number => c * 1.8 + 32;
 /** 1 hp (550 ft·lbf/s) = 0.74569987158227 kW (NIST SP 811). */
 export const KW_PER_HP = 0.74569987158227022;
 /** 1 metric horsepower (PS) = 0.73549875 kW (NIST SP 811). */

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §6.
 import Papa from "papaparse";
 
 /** A datalog as columns of numbers: one header per column, optional units row, NaN-free. */

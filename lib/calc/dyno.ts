@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §6.
 import { cycleTimeMs, injectorFlowAtPressure } from "./injectors";
 import type { Warning } from "./types";
 

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §1.
 import { CalcInputError, requireRange } from "./_lib/input-error";
 import {
   ATOMIC_MASS,

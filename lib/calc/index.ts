@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md (all sections).
 /**
  * Fuelwright's calculation library: pure functions, no I/O. The browser, the server actions,
  * the PDF renderer and the JSON API all call this one implementation.
@@ -33,6 +34,7 @@ export type {
 export {
   crankPowerFromWheel,
   fuelMassFlowGPerMin,
+  bsfcAtBlend,
   defaultBsfc,
   DEFAULT_BSFC,
   G_PER_KWH_PER_LB_PER_HP_H,
@@ -50,7 +52,13 @@ export {
   gaugeFromAbsKpa,
 } from "./injectors";
 export type { RegulatorType, DeadTimeTable } from "./injectors";
-export { pumpFlowLPerH, pumpsSupplyLPerH, pumpSupplyFunction, pumpMarginPct } from "./pumps";
+export {
+  pumpFlowLPerH,
+  pumpsSupplyLPerH,
+  pumpSupplyFunction,
+  pumpMarginPct,
+  validatePumpCurve,
+} from "./pumps";
 export type { Pump, PumpCurve, PumpFlow } from "./pumps";
 export {
   linePressureDrop,

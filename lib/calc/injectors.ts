@@ -2,6 +2,22 @@ import { CalcInputError, requirePositive, requireRange } from "./_lib/input-erro
 import { clamp, interpolateLinear } from "./_lib/interpolate";
 import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
 
+/*
+ * Injectors: orifice law, pressure across the injector, duty, pulse widths, dead time, idle.
+ * docs/calculations.md §3.
+ */
+
+const regulatorQuery = (q: {
+  type: RegulatorType;
+  basePressureKpa: number;
+  manifoldKpa: number;
+}) => {
+  if (q.type !== "boost-referenced" && q.type !== "fixed")
+    throw new CalcInputError("type", "Regulator must be boost-referenced or fixed");
+  requirePositive("basePressureKpa", q.basePressureKpa, 1e4, "Base pressure");
+  requireRange("manifoldKpa", q.manifoldKpa, -ATMOSPHERE_KPA, 1e4, "Manifold pressure (gauge)");
+};
+
 /**
  * Flow of an injector at another differential pressure, by the orifice law
  * Q₂ = Q₁·√(ΔP₂/ΔP₁).
@@ -12,8 +28,8 @@ export function injectorFlowAtPressure(q: {
   ratedPressureKpa: number;
   differentialPressureKpa: number;
 }): number {
-  requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e5, "Rated flow");
-  requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Rated pressure");
+  requirePositive("ratedFlowCcPerMin", q.ratedFlowCcPerMin, 1e9, "Rated flow");
+  requireRange("ratedPressureKpa", q.ratedPressureKpa, 1, 1e4, "Rated pressure");
   requireRange(
     "differentialPressureKpa",
     q.differentialPressureKpa,
@@ -37,7 +53,14 @@ export function injectorDifferentialPressureKpa(q: {
   basePressureKpa: number;
   manifoldKpa: number;
 }): number {
-  return q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
+  regulatorQuery(q);
+  const dp = q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
+  if (dp <= 0)
+    throw new CalcInputError(
+      "basePressureKpa",
+      `A fixed regulator set to ${q.basePressureKpa} kPa leaves no pressure across the injectors at ${q.manifoldKpa} kPa boost: the base pressure must exceed the boost`,
+    );
+  return dp;
 }
 
 /**
@@ -50,7 +73,12 @@ export function railPressureKpa(q: {
   basePressureKpa: number;
   manifoldKpa: number;
 }): number {
-  return q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
+  regulatorQuery(q);
+  const rail =
+    q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
+  // A base pressure below the manifold vacuum cannot pull the rail below atmosphere: the
+  // regulator closes and the rail sits at (about) 0 kPa gauge. Never a negative pressure.
+  return rail < 0 ? 0 : rail;
 }
 
 /**
@@ -63,6 +91,10 @@ export function injectorDutyPct(q: {
   injectorCount: number;
   flowAtOperatingCcPerMin: number;
 }): number {
+  requireRange("fuelMassFlowGPerMin", q.fuelMassFlowGPerMin, 0, 1e7, "Fuel mass flow");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requireCount("injectorCount", q.injectorCount);
+  requireRange("flowAtOperatingCcPerMin", q.flowAtOperatingCcPerMin, 0.01, 1e5, "Injector flow");
   return (
     (100 * q.fuelMassFlowGPerMin) / (q.densityKgPerL * q.injectorCount * q.flowAtOperatingCcPerMin)
   );
@@ -79,12 +111,16 @@ export function requiredInjectorFlowCcPerMin(q: {
   injectorCount: number;
   designDutyPct: number;
 }): number {
+  requireRange("fuelMassFlowGPerMin", q.fuelMassFlowGPerMin, 0, 1e7, "Fuel mass flow");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requireCount("injectorCount", q.injectorCount);
+  requireRange("designDutyPct", q.designDutyPct, 1, 100, "Design duty");
   return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
 }
 
 /** Length of one four-stroke cycle in ms: 120 000 / rpm. @example cycleTimeMs(6000) // 20 */
 export function cycleTimeMs(rpm: number): number {
-  requirePositive("rpm", rpm, 30000, "Engine speed");
+  requireRange("rpm", rpm, 1, 30000, "Engine speed");
   return 120000 / rpm;
 }
 
@@ -107,6 +143,10 @@ export function deadTimeMs(
   pressureKpa: number,
 ): { value: number; outOfRange: boolean } {
   const { voltages, pressuresKpa, deadTimeMs: grid } = table;
+  requireRange("voltage", voltage, 0, 60, "Injector voltage");
+  requireRange("pressureKpa", pressureKpa, 0, 1e4, "Pressure across the injector");
+  if (!Array.isArray(voltages) || !Array.isArray(pressuresKpa) || !Array.isArray(grid))
+    throw new CalcInputError("deadTime", "A dead-time table needs voltages, pressures and values");
   if (
     voltages.length === 0 ||
     pressuresKpa.length === 0 ||
@@ -118,6 +158,20 @@ export function deadTimeMs(
       "The dead-time table needs one row per voltage and one value per pressure",
     );
   }
+  const rising = (xs: number[], field: string, label: string) =>
+    xs.forEach((x, i) => {
+      requireRange(`deadTime.${field}.${i}`, x, 0, 1e4, label);
+      if (i > 0 && !(x > xs[i - 1]!))
+        throw new CalcInputError(
+          `deadTime.${field}.${i}`,
+          `${label}s must rise from one column to the next, each once`,
+        );
+    });
+  rising(voltages, "voltages", "Dead-time voltage");
+  rising(pressuresKpa, "pressuresKpa", "Dead-time pressure");
+  grid.forEach((row, i) =>
+    row.forEach((x, j) => requireRange(`deadTime.deadTimeMs.${i}.${j}`, x, 0, 100, "Dead time")),
+  );
   const v = clamp(voltage, voltages[0]!, voltages[voltages.length - 1]!);
   const p = clamp(pressureKpa, pressuresKpa[0]!, pressuresKpa[pressuresKpa.length - 1]!);
   const outOfRange = v !== voltage || p !== pressureKpa;
@@ -141,6 +195,12 @@ export interface IdleFuelQuery {
  * @example idleFuelPerCylinderMg({ displacementL: 2, cylinders: 4, volumetricEfficiency: 0.8, manifoldKpaAbs: 35, intakeTempC: 30, stoichAfr: 14.7 }) // { airMg: 161.0, fuelMg: 10.95 }
  */
 export function idleFuelPerCylinderMg(q: IdleFuelQuery): { airMg: number; fuelMg: number } {
+  requirePositive("displacementL", q.displacementL, 100, "Displacement");
+  requireCount("cylinders", q.cylinders);
+  requirePositive("volumetricEfficiency", q.volumetricEfficiency, 2, "Volumetric efficiency");
+  requirePositive("manifoldKpaAbs", q.manifoldKpaAbs, 1e3, "Manifold pressure (absolute)");
+  requireRange("intakeTempC", q.intakeTempC, -100, 300, "Intake air temperature");
+  requirePositive("stoichAfr", q.stoichAfr, 30, "Stoichiometric AFR");
   const cylinderVolumeM3 = q.displacementL / 1000 / q.cylinders;
   const airKg =
     (cylinderVolumeM3 * q.volumetricEfficiency * q.manifoldKpaAbs * 1000) /
@@ -149,5 +209,19 @@ export function idleFuelPerCylinderMg(q: IdleFuelQuery): { airMg: number; fuelMg
   return { airMg, fuelMg: airMg / q.stoichAfr };
 }
 
-/** Manifold pressure in kPa gauge from an absolute reading at standard atmosphere. */
-export const gaugeFromAbsKpa = (absKpa: number): number => absKpa - ATMOSPHERE_KPA;
+/**
+ * Manifold pressure in kPa gauge from an absolute reading, against the ambient (barometric)
+ * pressure — the standard atmosphere unless given. docs/calculations.md §3.7.
+ * @example gaugeFromAbsKpa(35, 95) // -60
+ */
+export function gaugeFromAbsKpa(absKpa: number, ambientKpaAbs: number = ATMOSPHERE_KPA): number {
+  requireRange("absKpa", absKpa, 0, 1e4, "Absolute pressure");
+  requirePositive("ambientKpaAbs", ambientKpaAbs, 200, "Ambient pressure");
+  return absKpa - ambientKpaAbs;
+}
+
+function requireCount(field: string, n: number): number {
+  requirePositive(field, n, 1000, field === "cylinders" ? "Cylinders" : "Injector count");
+  if (!Number.isInteger(n)) throw new CalcInputError(field, `${field} must be a whole number`);
+  return n;
+}

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §5.
 import { requirePositive, requireRange } from "./_lib/input-error";
 
 /** Laminar below this Reynolds number; fully turbulent above the upper one. */
@@ -5,7 +6,11 @@ export const RE_LAMINAR = 2300;
 export const RE_TURBULENT = 4000;
 
 /** Laminar friction factor f = 64/Re. @example laminarFrictionFactor(1000) // 0.064 */
-export const laminarFrictionFactor = (re: number): number => 64 / re;
+export const laminarFrictionFactor = (re: number): number =>
+  64 / requireRange("reynolds", re, 1e-6, 1e9, "Reynolds number");
+
+const requireRoughness = (rel: number) =>
+  requireRange("relativeRoughness", rel, 0, 0.5, "Relative roughness");
 
 /**
  * Swamee–Jain explicit approximation of Colebrook:
@@ -13,6 +18,8 @@ export const laminarFrictionFactor = (re: number): number => 64 / re;
  * @example swameeJainFrictionFactor(1e5, 0) // 0.0182
  */
 export function swameeJainFrictionFactor(re: number, relativeRoughness: number): number {
+  requireRange("reynolds", re, 1, 1e9, "Reynolds number");
+  requireRoughness(relativeRoughness);
   const l = Math.log10(relativeRoughness / 3.7 + 5.74 / Math.pow(re, 0.9));
   return 0.25 / (l * l);
 }
@@ -22,6 +29,9 @@ export function swameeJainFrictionFactor(re: number, relativeRoughness: number):
  * 1/√f = −2·log10(ε/(3.7D) + 2.51/(Re·√f)).
  */
 export function colebrookFrictionFactor(re: number, relativeRoughness: number): number {
+  // Colebrook is a turbulent-flow law: below the laminar limit it has no meaning.
+  requireRange("reynolds", re, RE_LAMINAR, 1e9, "Reynolds number (turbulent flow)");
+  requireRoughness(relativeRoughness);
   let x = 1 / Math.sqrt(swameeJainFrictionFactor(re, relativeRoughness));
   for (let i = 0; i < 50; i++) {
     const next = -2 * Math.log10(relativeRoughness / 3.7 + (2.51 * x) / re);
@@ -36,8 +46,10 @@ export function colebrookFrictionFactor(re: number, relativeRoughness: number): 
  * in the transition band (2300–4000) linear between the two, so the figure never jumps.
  */
 export function frictionFactor(re: number, relativeRoughness: number): number {
+  requireRange("reynolds", re, 0, 1e9, "Reynolds number");
+  requireRoughness(relativeRoughness);
   // No flow (or a vanishing one): no friction to speak of, and 64/Re would overflow.
-  if (!(re > 1e-9)) return 0;
+  if (!(re > 1e-6)) return 0;
   if (re < RE_LAMINAR) return laminarFrictionFactor(re);
   if (re > RE_TURBULENT) return swameeJainFrictionFactor(re, relativeRoughness);
   const t = (re - RE_LAMINAR) / (RE_TURBULENT - RE_LAMINAR);
@@ -78,16 +90,24 @@ export function linePressureDrop(
   const D =
     requirePositive("insideDiameterMm", line.insideDiameterMm, 100, "Inside diameter") / 1000;
   const L = requireRange("lengthM", line.lengthM, 0, 100, "Line length");
-  const rho = fluid.densityKgPerL * 1000;
-  const mu = fluid.viscosityMPaS / 1000;
-  const q = fluid.flowLPerH / 1000 / 3600;
+  const roughness = requireRange(
+    "roughnessMm",
+    line.roughnessMm ?? DEFAULT_HOSE_ROUGHNESS_MM,
+    0,
+    5,
+    "Roughness",
+  );
+  const fittingsK = requireRange("fittingsK", line.fittingsK ?? 0, 0, 1000, "Fittings K");
+  const rho = requirePositive("densityKgPerL", fluid.densityKgPerL, 25, "Density") * 1000;
+  const mu = requirePositive("viscosityMPaS", fluid.viscosityMPaS, 1e6, "Viscosity") / 1000;
+  const q = requireRange("flowLPerH", fluid.flowLPerH, 0, 1e6, "Flow") / 1000 / 3600;
   const area = (Math.PI * D * D) / 4;
   const v = q / area;
   const re = (rho * v * D) / mu;
-  const rel = (line.roughnessMm ?? DEFAULT_HOSE_ROUGHNESS_MM) / 1000 / D;
+  const rel = Math.min(0.5, roughness / 1000 / D);
   const f = frictionFactor(re, rel);
   const dynamic = (rho * v * v) / 2;
-  const dropPa = (f * (L / D) + (line.fittingsK ?? 0)) * dynamic;
+  const dropPa = (f * (L / D) + fittingsK) * dynamic;
   return {
     velocityMPerS: v,
     reynolds: re,

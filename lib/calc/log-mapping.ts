@@ -1,13 +1,13 @@
+// Reference: docs/calculations.md §6.
 import { z } from "zod";
 
+import { ATMOSPHERE_KPA, KPA_PER_BAR, KPA_PER_PSI, KW_PER_HP } from "./constants";
 import type { Datalog } from "./datalog";
 import type { PullSample } from "./dyno";
 
-/** NIST SP 811 (2008), appendix B.8: 1 psi = 6.894 757 kPa; 1 bar = 100 kPa; 1 hp = 0.745 699 9 kW. */
-const KPA_PER = { kPa: 1, bar: 100, psi: 6.894757 } as const;
-const KW_PER = { kW: 1, hp: 0.7456999 } as const;
-/** ISO 2533 standard atmosphere, kPa: absolute MAP minus this is boost (gauge). */
-const ATMOSPHERE_KPA = 101.325;
+/** The library's one set of NIST SP 811 factors (./constants); absolute MAP minus the standard atmosphere is boost. */
+const KPA_PER = { kPa: 1, bar: KPA_PER_BAR, psi: KPA_PER_PSI } as const;
+const KW_PER = { kW: 1, hp: KW_PER_HP } as const;
 
 const col = z.string({ error: "Choose a column" }).min(1, "Choose a column");
 const pressureUnit = z.enum(["kPa", "bar", "psi"], { error: "Choose kPa, bar or psi" });

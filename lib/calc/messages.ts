@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7.3.
 import {
   fillTemplate,
   formatNumber,

@@ -1,4 +1,6 @@
+// Reference: docs/calculations.md §2.
 import { requirePositive, requireRange } from "./_lib/input-error";
+import { fuelBlend, type FuelProperties } from "./fuel";
 
 /** g/kWh in one lb/(hp·h): 453.59237 g / 0.74569987 kWh = 608.277 (Heywood ch. 2; NIST SP 811 factors). */
 export const G_PER_KWH_PER_LB_PER_HP_H = 453.59237 / 0.74569987158227022;
@@ -88,4 +90,39 @@ export function defaultBsfc(q: {
     referenceLambda,
     atReferenceGPerKwh: atRef,
   };
+}
+
+/**
+ * A BSFC given (typed or measured) at one ethanol content, carried to another (calc-spec §2,
+ * docs/calculations.md §2.3): scaled by the rule-of-thumb ratio between the two contents, and
+ * never so that the fuel *volume* per kWh falls as the ethanol content rises (the ratio is at
+ * least the density ratio going richer, at most it going leaner).
+ * @example bsfcAtBlend({ bsfcGPerKwh: 365, fromEthanolVolPct: 0, toEthanolVolPct: 85, aspiration: "turbo" }).bsfcGPerKwh // 486.6 (0.60 → 0.80 lb/(hp·h))
+ */
+export function bsfcAtBlend(q: {
+  bsfcGPerKwh: number;
+  fromEthanolVolPct: number;
+  toEthanolVolPct: number;
+  aspiration: Aspiration;
+  defaults?: BsfcDefaults;
+  properties?: FuelProperties;
+}): { bsfcGPerKwh: number; ratio: number } {
+  requirePositive("bsfcGPerKwh", q.bsfcGPerKwh, 2000, "BSFC");
+  const from = defaultBsfc({
+    ethanolVolPct: q.fromEthanolVolPct,
+    aspiration: q.aspiration,
+    defaults: q.defaults,
+  });
+  const to = defaultBsfc({
+    ethanolVolPct: q.toEthanolVolPct,
+    aspiration: q.aspiration,
+    defaults: q.defaults,
+  });
+  const rule = to.atReferenceGPerKwh / from.atReferenceGPerKwh;
+  const density =
+    fuelBlend(q.toEthanolVolPct, q.properties).densityKgPerL /
+    fuelBlend(q.fromEthanolVolPct, q.properties).densityKgPerL;
+  const ratio =
+    q.toEthanolVolPct > q.fromEthanolVolPct ? Math.max(rule, density) : Math.min(rule, density);
+  return { bsfcGPerKwh: q.bsfcGPerKwh * ratio, ratio };
 }

@@ -1,4 +1,12 @@
-import { KG_PER_LB, L_PER_US_GAL } from "./constants";
+// Reference: docs/calculations.md §0, §9.
+import {
+  celsiusFromFahrenheit,
+  fahrenheitFromCelsius,
+  KG_PER_LB,
+  L_PER_US_GAL,
+  M_PER_FT,
+  MM_PER_IN,
+} from "./constants";
 import {
   bsfcFromGPerKwh,
   bsfcToGPerKwh,
@@ -111,8 +119,6 @@ const metric = (unit: string, decimals: number, more: Partial<UnitFormat> = {}):
 });
 
 const IMP = UNIT_SYSTEMS.imperial;
-const MM_PER_IN = 25.4; // exact, NIST SP 811 B.8
-const M_PER_FT = 0.3048; // exact, NIST SP 811 B.8
 /** kg/L → lb/US gal: 3.785411784 / 0.45359237 (both exact, NIST SP 811 B.8). */
 const LB_PER_GAL_PER_KG_PER_L = L_PER_US_GAL / KG_PER_LB;
 
@@ -212,8 +218,8 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     imperial: {
       unit: "°F",
       decimals: 0,
-      to: (x) => (x * 9) / 5 + 32,
-      from: (x) => ((x - 32) * 5) / 9,
+      to: fahrenheitFromCelsius,
+      from: celsiusFromFahrenheit,
     },
   },
   density: {

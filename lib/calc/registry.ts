@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §9.
 import { z } from "zod";
 
 import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";
@@ -58,7 +59,12 @@ export const LIMITED_BY_LABELS = {
   pump: "the pump",
   "feed-line": "the feed line",
 } as const;
-export const BSFC_SOURCE_LABELS = { given: "given", "rule-of-thumb": "rule of thumb" } as const;
+export const BSFC_SOURCE_LABELS = {
+  given: "given",
+  scaled: "given, scaled to this blend",
+  "rule-of-thumb": "rule of thumb",
+} as const;
+export const BLEND_END_LABELS = { lean: "lowest ethanol", rich: "highest ethanol" } as const;
 export const FLOW_REGIME_LABELS = {
   laminar: "laminar",
   transitional: "transitional",
@@ -105,6 +111,7 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "engine.idleManifoldKpaAbs": { label: "Idle manifold pressure", quantity: "pressureAbs" },
   "engine.idleVolumetricEfficiency": { label: "Idle volumetric efficiency", quantity: "ratio" },
   "engine.intakeTempC": { label: "Intake air temperature", quantity: "temperature" },
+  "engine.ambientKpaAbs": { label: "Ambient (barometric) pressure", quantity: "pressureAbs" },
   target: { label: "Power goal" },
   "target.powerKw": { label: "Target power", quantity: "power" },
   "target.measuredAt": {
@@ -126,6 +133,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     quantity: "ethanol",
   },
   "fuel.bsfcGPerKwh": { label: "BSFC", short: "BSFC (blank: rule of thumb)", quantity: "bsfc" },
+  "fuel.bsfcEthanolVolPct": {
+    label: "Ethanol content the BSFC was taken at",
+    short: "BSFC taken at (blank: lowest ethanol)",
+    quantity: "ethanol",
+  },
   "fuel.targetLambda": {
     label: "Target lambda",
     short: "Target lambda (blank: reference)",
@@ -207,6 +219,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   },
   electrical: { label: "Electrical" },
   "electrical.voltageAtPump": { label: "Voltage at the pump", quantity: "voltage" },
+  "electrical.injectorVoltage": {
+    label: "Voltage at the injectors (battery, charging)",
+    short: "Voltage at the injectors",
+    quantity: "voltage",
+  },
   "electrical.wiring": { label: "Pump wiring" },
   "electrical.wiring.sourceVoltage": {
     label: "Wiring: supply voltage",
@@ -304,10 +321,14 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   calcVersion: { label: "Calculation library version", text: true },
   wheelPowerKw: { label: "Wheel power", quantity: "power" },
   crankPowerKw: { label: "Crank power", quantity: "power" },
-  fuelMassFlowGPerMin: { label: "Fuel needed (richest blend)", quantity: "massFlow" },
-  fuelVolumeFlowLPerH: { label: "Fuel volume needed (richest blend)", quantity: "volumeFlow" },
+  fuelMassFlowGPerMin: { label: "Fuel needed (worse end of the blend)", quantity: "massFlow" },
+  fuelVolumeFlowLPerH: {
+    label: "Fuel volume needed (worse end of the blend)",
+    quantity: "volumeFlow",
+  },
   ...blendEnd("lean"),
   ...blendEnd("rich"),
+  "blend.worstEnd": { label: "Worse end of the blend", options: BLEND_END_LABELS },
   "injector.count": { label: "Injectors", quantity: "count" },
   "injector.differentialPressureKpa": {
     label: "Pressure across the injectors at full boost",
@@ -326,7 +347,7 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     quantity: "injectorFlow",
   },
   "injector.dutyPct": {
-    label: "Duty at the richest blend",
+    label: "Duty at the worse end of the blend",
     quantity: "percent",
     better: "lower",
   },
@@ -352,6 +373,7 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     decimals: 2,
   },
   "pump.voltageUsed": { label: "Voltage at the pump", quantity: "voltage" },
+  "injector.voltage": { label: "Voltage at the injectors", quantity: "voltage" },
   "pump.wireDropV": {
     label: "Pump wiring drop",
     quantity: "voltage",
@@ -360,7 +382,7 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   },
   "pump.railPressureKpa": { label: "Rail pressure", quantity: "pressure" },
   "pump.outletPressureKpa": { label: "Pressure the pump works against", quantity: "pressure" },
-  "pump.demandLPerH": { label: "Pump demand", quantity: "volumeFlow" },
+  "pump.demandLPerH": { label: "Pump demand (worse end of the blend)", quantity: "volumeFlow" },
   "pump.supplyLPerH": { label: "Pump supply", quantity: "volumeFlow", better: "higher" },
   "pump.marginPct": { label: "Pump margin", quantity: "percent", decimals: 0, better: "higher" },
   "pump.returnFlowLPerH": { label: "Return flow at full load", quantity: "volumeFlow" },

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §8 (defaults: §3.5, §3.7).
 import { z } from "zod";
 
 /**
@@ -35,6 +36,8 @@ export const EngineSchema = z
       idleManifoldKpaAbs: num("Idle manifold pressure", 15, 101, "kPa absolute").default(35),
       idleVolumetricEfficiency: num("Idle volumetric efficiency", 0.2, 1.2).default(0.8),
       intakeTempC: num("Intake air temperature", -30, 90, "°C").default(30),
+      /** Barometric pressure: gauge pressures and a fixed regulator work against it (calc-spec §3). */
+      ambientKpaAbs: num("Ambient pressure", 50, 110, "kPa absolute").default(101.325),
     },
     { error: "Give the engine: cylinders, displacement, aspiration and redline" },
   )
@@ -44,6 +47,12 @@ export const EngineSchema = z
         code: "custom",
         path: ["idleRpm"],
         message: "Idle speed must be below the redline",
+      });
+    if (e.idleManifoldKpaAbs >= e.ambientKpaAbs)
+      ctx.addIssue({
+        code: "custom",
+        path: ["idleManifoldKpaAbs"],
+        message: "Idle manifold pressure must be below the ambient pressure",
       });
     if (e.aspiration === "na" && e.maxBoostKpa > 0)
       ctx.addIssue({
@@ -100,6 +109,8 @@ export const FuelSchema = z
       ethanolMinVolPct: num("Lowest ethanol content", 0, 100, "%"),
       ethanolMaxVolPct: num("Highest ethanol content", 0, 100, "%"),
       bsfcGPerKwh: num("BSFC", 150, 1200, "g/kWh").optional(),
+      /** Ethanol content the given BSFC was taken at; left out: the lowest of the range. */
+      bsfcEthanolVolPct: num("Ethanol content of the given BSFC", 0, 100, "%").optional(),
       targetLambda: num("Target lambda", 0.6, 1.3).optional(),
       bsfcDefaults: BsfcDefaultsSchema.optional(),
       properties: FuelPropertiesSchema.optional(),
@@ -193,7 +204,26 @@ export const PumpCurveSchema = z
         figures: { gap: { value: 1, quantity: "pressureDrop" } },
       },
     },
-  );
+  )
+  .superRefine((c, ctx) => {
+    // A pump's flow falls as its pressure rises: a point that flows more than one at a lower
+    // pressure is a typing mistake, refused at that point.
+    const order = c.points
+      .map((_, i) => i)
+      .sort((a, b) => c.points[a]!.pressureKpa - c.points[b]!.pressureKpa);
+    for (let k = 1; k < order.length; k++) {
+      const a = c.points[order[k - 1]!]!;
+      const b = c.points[order[k]!]!;
+      if (b.pressureKpa > a.pressureKpa && b.flowLPerH > a.flowLPerH) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["points", order[k]!, "flowLPerH"],
+          message: `Point ${order[k]! + 1} flows more than point ${order[k - 1]! + 1} at a lower pressure: a pump's flow falls as pressure rises`,
+        });
+        return;
+      }
+    }
+  });
 
 export const PumpSchema = z.object({
   label: z.string().max(120).optional(),
@@ -211,6 +241,11 @@ export const WiringSchema = z.object({
 export const ElectricalSchema = z.object(
   {
     voltageAtPump: num("Voltage at the pump", 6, 20, "V"),
+    /**
+     * Battery/charging voltage the ECU and the injectors see (running engine): the injectors'
+     * dead time is looked up at it, not at the voltage left at the pump after its wiring.
+     */
+    injectorVoltage: num("Voltage at the injectors", 6, 20, "V").default(14),
     wiring: WiringSchema.optional(),
   },
   { error: "Give the voltage at the pump" },

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §2.4.
 import type { Aspiration } from "./power";
 
 /**
@@ -46,6 +47,8 @@ export interface ShopBsfcRow {
   /** Verified builds behind the figure. */
   builds: number;
   meanGPerKwh: number;
+  /** Mean ethanol content of those builds: the fuel the figure belongs to (calc-spec §2). */
+  meanEthanolVolPct: number;
   minGPerKwh: number;
   maxGPerKwh: number;
 }
@@ -66,13 +69,17 @@ export function shopBsfcTable(points: readonly BsfcPoint[]): ShopBsfcRow[] {
     if (!Number.isFinite(p.ethanolVolPct) || p.ethanolVolPct < 0 || p.ethanolVolPct > 100) continue;
     perBuild.set(p.buildId, p);
   }
-  const groups = new Map<string, { fuel: FuelClass; aspiration: AspirationClass; xs: number[] }>();
+  const groups = new Map<
+    string,
+    { fuel: FuelClass; aspiration: AspirationClass; xs: number[]; es: number[] }
+  >();
   for (const p of perBuild.values()) {
     const fuel = fuelClassOf(p.ethanolVolPct);
     const aspiration = aspirationClassOf(p.aspiration);
     const key = `${fuel}/${aspiration}`;
-    const g = groups.get(key) ?? { fuel, aspiration, xs: [] };
+    const g = groups.get(key) ?? { fuel, aspiration, xs: [], es: [] };
     g.xs.push(p.gPerKwh);
+    g.es.push(p.ethanolVolPct);
     groups.set(key, g);
   }
   const order: FuelClass[] = ["gasoline", "mid-blend", "e85"];
@@ -82,6 +89,7 @@ export function shopBsfcTable(points: readonly BsfcPoint[]): ShopBsfcRow[] {
       aspiration: g.aspiration,
       builds: g.xs.length,
       meanGPerKwh: g.xs.reduce((a, b) => a + b, 0) / g.xs.length,
+      meanEthanolVolPct: g.es.reduce((a, b) => a + b, 0) / g.es.length,
       minGPerKwh: Math.min(...g.xs),
       maxGPerKwh: Math.max(...g.xs),
     }))

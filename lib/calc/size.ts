@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7 (and §2–§5 for each stage).
 import { CalcInputError } from "./_lib/input-error";
 import { Tracer } from "./_lib/trace";
 import { fuelBlend, type FuelBlend } from "./fuel";
@@ -7,10 +8,13 @@ import {
   gaugeFromAbsKpa,
   idleFuelPerCylinderMg,
   injectorDifferentialPressureKpa,
+  injectorDutyPct,
+  injectorFlowAtPressure,
   railPressureKpa,
+  requiredInjectorFlowCcPerMin,
 } from "./injectors";
-import { AN_SIZES, linePressureDrop, type LineDrop } from "./lines";
-import { defaultBsfc } from "./power";
+import { AN_SIZES, linePressureDrop, type LineDrop, type LineSegment } from "./lines";
+import { bsfcAtBlend, crankPowerFromWheel, defaultBsfc, fuelMassFlowGPerMin } from "./power";
 import { pumpMarginPct, pumpSupplyFunction } from "./pumps";
 import type { FigureParams } from "./quantities";
 import { FuelSystemInputSchema, type FuelSystemInput, type ParsedFuelSystemInput } from "./schema";
@@ -19,14 +23,14 @@ import { INJECTOR_RATING_DENSITY_KG_PER_L } from "./units";
 import { wireVoltageDropV } from "./wire";
 
 /** Bumped whenever a formula or default changes, so saved results say what made them. */
-export const CALC_VERSION = "1.0.0";
+export const CALC_VERSION = "1.1.0";
 
 export interface BlendEnd {
   ethanolVolPct: number;
   densityKgPerL: number;
   stoichAfr: number;
   bsfcGPerKwh: number;
-  bsfcSource: "given" | "rule-of-thumb";
+  bsfcSource: "given" | "scaled" | "rule-of-thumb";
   fuelMassFlowGPerMin: number;
   fuelVolumeFlowLPerH: number;
   requiredFlowAtOperatingCcPerMin: number;
@@ -55,17 +59,20 @@ export interface FuelSystemResult {
   calcVersion: string;
   wheelPowerKw: number;
   crankPowerKw: number;
-  /** At the richest (highest-ethanol) end of the blend range. */
+  /** At the worse end of the blend range (`blend.worstEnd`): the one needing more fuel volume. */
   fuelMassFlowGPerMin: number;
   fuelVolumeFlowLPerH: number;
-  blend: { lean: BlendEnd; rich: BlendEnd };
+  /** Each end of the blend range, and which is the worse (duty and demand are taken there). */
+  blend: { lean: BlendEnd; rich: BlendEnd; worstEnd: "lean" | "rich" };
   injector: {
     count: number;
+    /** Battery/charging voltage the dead time was looked up at. */
+    voltage: number;
     differentialPressureKpa: number;
     flowAtOperatingCcPerMin: number;
     requiredFlowAtOperatingCcPerMin: number;
     requiredRatedFlowCcPerMin: number;
-    /** At the richest blend; the lean end is in `blend.lean.dutyPct`. */
+    /** At the worse end (`blend.worstEnd`); each end's is in `blend.lean` / `blend.rich`. */
     dutyPct: number;
     dutyBand: "ok" | "caution" | "danger" | "static";
     powerCeilingKw: number;
@@ -187,7 +194,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
             { label: "wheel power", value: target.powerKw, quantity: "power" },
             { label: "drivetrain loss", value: lossPct, quantity: "percent" },
           ],
-          value: target.powerKw / (1 - lossPct / 100),
+          value: crankPowerFromWheel({ wheelPowerKw: target.powerKw, drivetrainLossPct: lossPct }),
           quantity: "power",
         })
       : target.powerKw;
@@ -221,7 +228,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       { label: "pressure across", value: dpOp, quantity: "pressure" },
       { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
     ],
-    value: injectors.ratedFlowCcPerMin * Math.sqrt(dpOp / injectors.ratedPressureKpa),
+    value: injectorFlowAtPressure({
+      ratedFlowCcPerMin: injectors.ratedFlowCcPerMin,
+      ratedPressureKpa: injectors.ratedPressureKpa,
+      differentialPressureKpa: dpOp,
+    }),
     quantity: "injectorFlow",
   });
 
@@ -245,8 +256,10 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     });
   }
 
+  // Dead time at the voltage the injectors see (calc-spec §3), not the pump's.
+  const injectorVoltage = electrical.injectorVoltage;
   const dead = (dp: number): number | null =>
-    injectors.deadTime ? deadTimeMs(injectors.deadTime, voltageUsed, dp).value : null;
+    injectors.deadTime ? deadTimeMs(injectors.deadTime, injectorVoltage, dp).value : null;
   const redlineCycle = cycleTimeMs(engine.redlineRpm);
 
   const endOf = (
@@ -258,8 +271,36 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     let bsfc: number;
     let bsfcSource: BlendEnd["bsfcSource"];
     if (fuel.bsfcGPerKwh !== undefined) {
-      bsfc = fuel.bsfcGPerKwh;
-      bsfcSource = "given";
+      // A given BSFC belongs to the fuel it was taken at (calc-spec §2); the other end of the
+      // range gets it scaled by the rule-of-thumb ratio between the two contents.
+      const at = fuel.bsfcEthanolVolPct ?? fuel.ethanolMinVolPct;
+      if (at === ethanolVolPct) {
+        bsfc = fuel.bsfcGPerKwh;
+        bsfcSource = "given";
+      } else {
+        const scaled = bsfcAtBlend({
+          bsfcGPerKwh: fuel.bsfcGPerKwh,
+          fromEthanolVolPct: at,
+          toEthanolVolPct: ethanolVolPct,
+          aspiration: engine.aspiration,
+          defaults: fuel.bsfcDefaults,
+          properties: fuel.properties,
+        });
+        bsfcSource = "scaled";
+        bsfc = t.add({
+          id: `bsfc-${which}`,
+          label: "BSFC at {ethanol}, from the given BSFC at {given}",
+          params: { ...e, given: { value: at, quantity: "ethanol" } },
+          formula:
+            "given BSFC × rule-of-thumb BSFC at this content ÷ rule-of-thumb BSFC at the given content (never less fuel volume per kWh at more ethanol)",
+          inputs: [
+            { label: "given BSFC", value: fuel.bsfcGPerKwh, quantity: "bsfc" },
+            { label: "ratio", value: scaled.ratio, quantity: "ratio" },
+          ],
+          value: scaled.bsfcGPerKwh,
+          quantity: "bsfc",
+        });
+      }
     } else {
       const est = defaultBsfc({
         ethanolVolPct,
@@ -300,7 +341,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "crank power", value: crankPowerKw, quantity: "power" },
         { label: "BSFC", value: bsfc, quantity: "bsfc" },
       ],
-      value: (crankPowerKw * bsfc) / 60,
+      value: fuelMassFlowGPerMin({ powerKw: crankPowerKw, bsfcGPerKwh: bsfc }),
       quantity: "massFlow",
     });
     const volLPerH = (mdot / b.densityKgPerL) * 0.06;
@@ -318,7 +359,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "design duty", value: limits.designDutyPct, quantity: "percent", decimals: 0 },
         RATING_FLUID,
       ],
-      value: mdot / (b.densityKgPerL * n * design),
+      value: requiredInjectorFlowCcPerMin({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: n,
+        designDutyPct: limits.designDutyPct,
+      }),
       quantity: "injectorFlow",
     });
     const reqRated = t.add({
@@ -331,7 +377,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
         { label: "pressure across", value: dpOp, quantity: "pressure" },
       ],
-      value: reqOp * Math.sqrt(injectors.ratedPressureKpa / dpOp),
+      // The orifice law run backwards: the rating that gives reqOp at dpOp.
+      value: injectorFlowAtPressure({
+        ratedFlowCcPerMin: reqOp,
+        ratedPressureKpa: dpOp,
+        differentialPressureKpa: injectors.ratedPressureKpa,
+      }),
       quantity: "injectorFlow",
     });
     const duty = t.add({
@@ -348,7 +399,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         { label: "injector flow", value: qOp, quantity: "injectorFlow" },
         RATING_FLUID,
       ],
-      value: (100 * mdot) / (b.densityKgPerL * n * qOp),
+      value: injectorDutyPct({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: n,
+        flowAtOperatingCcPerMin: qOp,
+      }),
       quantity: "percent",
     });
     const ceiling = t.add({
@@ -396,24 +452,28 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
 
   const { props: leanProps, end: lean } = endOf(fuel.ethanolMinVolPct, "lean");
   const { props: richProps, end: rich } = endOf(fuel.ethanolMaxVolPct, "rich");
+  // The worse end needs more fuel volume per injector-minute: duty and pump demand both go with
+  // ṁ ÷ ρ, so one end is the worst for both (calc-spec §7). A tie is the rich end.
+  const worstEnd: "lean" | "rich" = lean.dutyPct > rich.dutyPct ? "lean" : "rich";
+  const worst = worstEnd === "lean" ? lean : rich;
   t.add({
     id: "pulse-redline",
     label: "Effective pulse width at {rpm} ({ethanol})",
     params: {
       rpm: { value: engine.redlineRpm, quantity: "speed" },
-      ethanol: { value: rich.ethanolVolPct, quantity: "ethanol" },
+      ethanol: { value: worst.ethanolVolPct, quantity: "ethanol" },
     },
     formula: "duty × cycle, the cycle being 120 000 ÷ rpm",
     inputs: [
-      { label: "duty", value: rich.dutyPct, quantity: "percent" },
+      { label: "duty", value: worst.dutyPct, quantity: "percent" },
       { label: "cycle", value: redlineCycle, quantity: "time" },
     ],
-    value: rich.pulseWidthRedline.effectiveMs,
+    value: worst.pulseWidthRedline.effectiveMs,
     quantity: "time",
   });
 
   // Idle: the least fuel is needed at the lowest ethanol content.
-  const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs);
+  const idleManifoldGauge = gaugeFromAbsKpa(engine.idleManifoldKpaAbs, engine.ambientKpaAbs);
   const dpIdle = injectorDifferentialPressureKpa({
     type: regulator.type,
     basePressureKpa: regulator.basePressureKpa,
@@ -428,7 +488,11 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     stoichAfr: leanProps.stoichAfr,
   });
   const fuelPerInjectionMg = (idleFuel.fuelMg * engine.cylinders) / n;
-  const qIdle = injectors.ratedFlowCcPerMin * Math.sqrt(dpIdle / injectors.ratedPressureKpa);
+  const qIdle = injectorFlowAtPressure({
+    ratedFlowCcPerMin: injectors.ratedFlowCcPerMin,
+    ratedPressureKpa: injectors.ratedPressureKpa,
+    differentialPressureKpa: dpIdle,
+  });
   const idleEffective = t.add({
     id: "pulse-idle",
     label: "Effective pulse width at idle ({ethanol}, λ 1)",
@@ -455,7 +519,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     basePressureKpa: regulator.basePressureKpa,
     manifoldKpa: engine.maxBoostKpa,
   });
-  const demand = rich.fuelVolumeFlowLPerH;
+  const demand = worst.fuelVolumeFlowLPerH;
   const feedLine = input.lines?.feed;
   const returnLine = input.lines?.return;
   const fluid = (flowLPerH: number) => ({
@@ -465,44 +529,9 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   });
   const supplyAt = pumpSupplyFunction(pumps);
   const base = rail + (feedLine?.filterDropKpa ?? 0);
-  let outlet = base;
-  let feedDrop: LineDrop | null = null;
-  if (feedLine) {
-    // The outlet pressure p solves g(p) = p − base − drop(supply(p)) = 0; g rises with p and
-    // the root lies between base and base + drop(supply(base)). Illinois false position.
-    const g = (p: number) =>
-      p -
-      base -
-      linePressureDrop(feedLine, fluid(supplyAt(p, voltageUsed).flowLPerH)).pressureDropKpa;
-    let lo = base;
-    let glo = g(lo);
-    let hi = base - glo;
-    let ghi = g(hi);
-    outlet = hi;
-    if (glo < 0 && ghi > 0 && hi - lo > 1e-6) {
-      let side = 0;
-      for (let i = 0; i < 60; i++) {
-        const guess = (lo * ghi - hi * glo) / (ghi - glo);
-        const p = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
-        const gp = g(p);
-        outlet = p;
-        if (Math.abs(gp) < 0.01) break;
-        if (gp < 0) {
-          lo = p;
-          glo = gp;
-          if (side === -1) ghi /= 2;
-          side = -1;
-        } else {
-          hi = p;
-          ghi = gp;
-          if (side === 1) glo /= 2;
-          side = 1;
-        }
-      }
-    } else if (glo >= 0 || !(hi - lo > 1e-6)) outlet = lo;
-    if (!Number.isFinite(outlet)) outlet = base;
-    feedDrop = linePressureDrop(feedLine, fluid(supplyAt(outlet, voltageUsed).flowLPerH));
-  }
+  const { outlet, feedDrop } = pumpOperatingPoint(base, feedLine, (p) =>
+    fluid(supplyAt(p, voltageUsed).flowLPerH),
+  );
   const supply = supplyAt(outlet, voltageUsed);
   t.add({
     id: "pump-outlet",
@@ -521,12 +550,13 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   });
   t.add({
     id: "pump-demand",
-    label: `Fuel demand at E${rich.ethanolVolPct}`,
+    label: "Fuel demand at {ethanol} (the worse end)",
+    params: { ethanol: { value: worst.ethanolVolPct, quantity: "ethanol" } },
     formula: "fuel needed ÷ density × 0.06",
     formulaImperial: "fuel needed ÷ density",
     inputs: [
-      { label: "fuel needed", value: rich.fuelMassFlowGPerMin, quantity: "massFlow" },
-      { label: "density", value: rich.densityKgPerL, quantity: "density" },
+      { label: "fuel needed", value: worst.fuelMassFlowGPerMin, quantity: "massFlow" },
+      { label: "density", value: worst.densityKgPerL, quantity: "density" },
     ],
     value: demand,
     quantity: "volumeFlow",
@@ -561,12 +591,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     inputs: [
       { label: "supply", value: supply.flowLPerH, quantity: "volumeFlow" },
       { label: "minimum margin", value: limits.minPumpMarginPct, quantity: "percent", decimals: 0 },
-      { label: "density", value: rich.densityKgPerL, quantity: "density" },
-      { label: "BSFC", value: rich.bsfcGPerKwh, quantity: "bsfc" },
+      { label: "density", value: worst.densityKgPerL, quantity: "density" },
+      { label: "BSFC", value: worst.bsfcGPerKwh, quantity: "bsfc" },
     ],
     value:
-      ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * rich.densityKgPerL * 1000) /
-      rich.bsfcGPerKwh,
+      ((supply.flowLPerH / (1 + limits.minPumpMarginPct / 100)) * worst.densityKgPerL * 1000) /
+      worst.bsfcGPerKwh,
     quantity: "power",
   });
 
@@ -691,7 +721,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       biggerInjector,
       {
         duty: duty0,
-        ethanol: { value: rich.ethanolVolPct, quantity: "ethanol" },
+        ethanol: { value: worst.ethanolVolPct, quantity: "ethanol" },
         ...injectorFix,
       },
     );
@@ -728,14 +758,22 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       },
     );
   }
-  if (injectors.minPulseWidthMs !== undefined && idleEffective < injectors.minPulseWidthMs) {
+  // The minimum reliable pulse is a commanded (electrical) pulse: compare the commanded idle
+  // pulse where the dead time is known, else the opening time, and say which (calc-spec §3).
+  const idleCommanded = idleDead === null ? null : idleEffective + idleDead;
+  if (
+    injectors.minPulseWidthMs !== undefined &&
+    (idleCommanded ?? idleEffective) < injectors.minPulseWidthMs
+  ) {
     warn(
       "idle-pulse-short",
       "caution",
-      "At idle the injectors would open for {pulse}, below their {min} minimum: expect a rough, uneven idle.",
+      idleCommanded === null
+        ? "At idle the injectors would open for {pulse} (opening time; no dead-time table, so the commanded pulse is unknown and a little longer), below their {min} minimum: expect a rough, uneven idle."
+        : "At idle the commanded pulse would be {pulse} (opening time plus dead time), below the injectors' {min} minimum: expect a rough, uneven idle.",
       "Choose smaller injectors, lower the base pressure, or raise idle speed or airflow.",
       {
-        pulse: { value: idleEffective, quantity: "time" },
+        pulse: { value: idleCommanded ?? idleEffective, quantity: "time" },
         min: { value: injectors.minPulseWidthMs, quantity: "time" },
       },
     );
@@ -748,8 +786,8 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       "Enter the injector's dead-time table (from its data sheet) or pick it from the catalog.",
     );
   } else if (
-    deadTimeMs(injectors.deadTime, voltageUsed, dpOp).outOfRange ||
-    deadTimeMs(injectors.deadTime, voltageUsed, dpIdle).outOfRange
+    deadTimeMs(injectors.deadTime, injectorVoltage, dpOp).outOfRange ||
+    deadTimeMs(injectors.deadTime, injectorVoltage, dpIdle).outOfRange
   ) {
     warn(
       "dead-time-outside-table",
@@ -793,11 +831,23 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       { outlet: pumpAt.outlet },
     );
   }
+  if (idleSupply.pressureBelowCurve) {
+    warn(
+      "pump-curve-idle-range",
+      "caution",
+      "At idle the rail sits at {idleRail}, below the first point of the pump curve: the idle supply of {idleSupply} (and the return flow the return line is sized for) is read off the curve's end segment, an estimate.",
+      "Enter a curve point at or below the idle rail pressure.",
+      {
+        idleRail: { value: idleRail, quantity: "pressure" },
+        idleSupply: { value: idleSupply.flowLPerH, quantity: "volumeFlow" },
+      },
+    );
+  }
   if (supply.voltageOutOfRange) {
     warn(
       "pump-curve-voltage-range",
       "caution",
-      "The pump curves do not cover {voltage}; the nearest tested voltages were extended.",
+      "The pump curves do not cover {voltage}: below the lowest tested voltage the flow is derated in proportion to the voltage, above the highest it is held at that curve.",
       "Enter a curve at (or around) the real voltage at the pump.",
       { voltage: pumpAt.voltage },
     );
@@ -857,19 +907,30 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       "A return-style system must always return some fuel; add pump capacity.",
     );
   }
-  if (ceilingKw < crankPowerKw) {
+  // One figure, one severity (calc-spec §7): a ceiling below the target is the limiting
+  // figure's own finding (duty band, pump margin, line drop), already warned at that figure's
+  // severity. Only a limiter within the shop's bands (a duty above the design duty yet below
+  // the caution level) leaves the ceiling to say it, as a note.
+  const limiterWarned =
+    limitedBy === "injectors"
+      ? dutyBand !== "ok"
+      : limitedBy === "pump"
+        ? supply.flowLPerH < demand || margin < limits.minPumpMarginPct
+        : feed !== null && !feed.withinLimit;
+  if (ceilingKw < crankPowerKw && !limiterWarned) {
     warn(
       "ceiling-below-target",
-      "danger",
+      "info",
       limitedBy === "injectors"
-        ? "The system tops out at {ceiling} crank, below the {target} target (limited by the injectors)."
+        ? "At the {design} design duty the system tops out at {ceiling} crank, below the {target} target (limited by the injectors); the duty itself is within the comfort level."
         : limitedBy === "pump"
-          ? "The system tops out at {ceiling} crank, below the {target} target (limited by the pump)."
-          : "The system tops out at {ceiling} crank, below the {target} target (limited by the feed line).",
+          ? "At the {design} design duty the system tops out at {ceiling} crank, below the {target} target (limited by the pump)."
+          : "At the {design} design duty the system tops out at {ceiling} crank, below the {target} target (limited by the feed line).",
       pumpLimited ? "Add pump capacity." : biggerInjector,
       {
         ceiling: { value: ceilingKw, quantity: "power" },
         target: { value: crankPowerKw, quantity: "power" },
+        design: { value: limits.designDutyPct, quantity: "percent", decimals: 0 },
         ...injectorFix,
       },
     );
@@ -899,11 +960,12 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     calcVersion: CALC_VERSION,
     wheelPowerKw,
     crankPowerKw,
-    fuelMassFlowGPerMin: rich.fuelMassFlowGPerMin,
-    fuelVolumeFlowLPerH: rich.fuelVolumeFlowLPerH,
-    blend: { lean, rich },
+    fuelMassFlowGPerMin: worst.fuelMassFlowGPerMin,
+    fuelVolumeFlowLPerH: worst.fuelVolumeFlowLPerH,
+    blend: { lean, rich, worstEnd },
     injector: {
       count: n,
+      voltage: injectorVoltage,
       differentialPressureKpa: dpOp,
       flowAtOperatingCcPerMin: qOp,
       requiredFlowAtOperatingCcPerMin: Math.max(
@@ -911,16 +973,16 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         rich.requiredFlowAtOperatingCcPerMin,
       ),
       requiredRatedFlowCcPerMin: needRating,
-      dutyPct: rich.dutyPct,
+      dutyPct: worst.dutyPct,
       dutyBand,
       powerCeilingKw: injCeiling,
-      pulseWidthRedline: rich.pulseWidthRedline,
+      pulseWidthRedline: worst.pulseWidthRedline,
       pulseWidthIdle: {
         rpm: engine.idleRpm,
         cycleMs: cycleTimeMs(engine.idleRpm),
         effectiveMs: idleEffective,
         deadTimeMs: idleDead,
-        commandedMs: idleDead === null ? null : idleEffective + idleDead,
+        commandedMs: idleCommanded,
         differentialPressureKpa: dpIdle,
         minPulseWidthMs: injectors.minPulseWidthMs ?? null,
         fuelPerInjectionMg,
@@ -952,4 +1014,50 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     warnings,
     trace: t.steps,
   };
+}
+
+/**
+ * Stage "pump operating point" (docs/calculations.md §4.1): the outlet pressure p solves
+ * g(p) = p − base − drop(supply(p)) = 0, base being rail + filter. g rises with p and the root
+ * lies between base and base + drop(supply(base)). Illinois false position.
+ */
+function pumpOperatingPoint(
+  base: number,
+  feedLine: LineSegment | undefined,
+  fluidAt: (pressureKpa: number) => {
+    flowLPerH: number;
+    densityKgPerL: number;
+    viscosityMPaS: number;
+  },
+): { outlet: number; feedDrop: LineDrop | null } {
+  if (!feedLine) return { outlet: base, feedDrop: null };
+  const g = (p: number) => p - base - linePressureDrop(feedLine, fluidAt(p)).pressureDropKpa;
+  let lo = base;
+  let glo = g(lo);
+  let hi = base - glo;
+  let ghi = g(hi);
+  let outlet = hi;
+  if (glo < 0 && ghi > 0 && hi - lo > 1e-6) {
+    let side = 0;
+    for (let i = 0; i < 60; i++) {
+      const guess = (lo * ghi - hi * glo) / (ghi - glo);
+      const p = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
+      const gp = g(p);
+      outlet = p;
+      if (Math.abs(gp) < 0.01) break;
+      if (gp < 0) {
+        lo = p;
+        glo = gp;
+        if (side === -1) ghi /= 2;
+        side = -1;
+      } else {
+        hi = p;
+        ghi = gp;
+        if (side === 1) glo /= 2;
+        side = 1;
+      }
+    }
+  } else if (glo >= 0 || !(hi - lo > 1e-6)) outlet = lo;
+  if (!Number.isFinite(outlet)) outlet = base;
+  return { outlet, feedDrop: linePressureDrop(feedLine, fluidAt(outlet)) };
 }

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7.
 import type { FigureParams, Quantity } from "./quantities";
 import type { UnitSystem } from "./units";
 

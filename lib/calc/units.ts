@@ -1,13 +1,17 @@
-import convert from "convert-units";
-
 import { requirePositive } from "./_lib/input-error";
-import { KG_PER_LB, KW_PER_HP, KW_PER_PS } from "./constants";
+import {
+  KG_PER_LB,
+  KPA_PER_BAR,
+  KPA_PER_PSI,
+  KW_PER_HP,
+  KW_PER_PS,
+  L_PER_US_GAL,
+} from "./constants";
 import { G_PER_KWH_PER_LB_PER_HP_H } from "./power";
 
 /**
- * Unit conversions at the edges. Pressure, volume flow and volume go through `convert-units`;
- * the few it lacks (horsepower, mass flow, lb/h ↔ cc/min at a density, BSFC) are here, from
- * NIST SP 811's exact factors.
+ * Unit conversions at the edges, all from the NIST SP 811 exact factors of ./constants (the
+ * tests cross-check them with `convert-units`). docs/calculations.md §0.
  */
 
 export type PressureUnit = "kPa" | "psi" | "bar";
@@ -18,28 +22,35 @@ export type VolumeUnit = "l" | "gal";
 export type BsfcUnit = "g/kWh" | "lb/hp/h";
 export type UnitSystem = "metric" | "imperial";
 
+const KPA_PER_UNIT: Record<PressureUnit, number> = { kPa: 1, psi: KPA_PER_PSI, bar: KPA_PER_BAR };
 export function pressureToKpa(value: number, unit: PressureUnit): number {
-  return unit === "kPa" ? value : convert(value).from(unit).to("kPa");
+  return unit === "kPa" ? value : value * KPA_PER_UNIT[unit];
 }
 export function pressureFromKpa(kpa: number, unit: PressureUnit): number {
-  return unit === "kPa" ? kpa : convert(kpa).from("kPa").to(unit);
+  return unit === "kPa" ? kpa : kpa / KPA_PER_UNIT[unit];
 }
 
 const KW_PER: Record<PowerUnit, number> = { kW: 1, hp: KW_PER_HP, PS: KW_PER_PS };
 export const powerToKw = (value: number, unit: PowerUnit): number => value * KW_PER[unit];
 export const powerFromKw = (kw: number, unit: PowerUnit): number => kw / KW_PER[unit];
 
+const L_PER_H_PER_UNIT: Record<VolumeFlowUnit, number> = {
+  "l/h": 1,
+  "gal/h": L_PER_US_GAL,
+  "l/min": 60,
+  "gal/min": 60 * L_PER_US_GAL,
+};
 export function volumeFlowToLPerH(value: number, unit: VolumeFlowUnit): number {
-  return unit === "l/h" ? value : convert(value).from(unit).to("l/h");
+  return unit === "l/h" ? value : value * L_PER_H_PER_UNIT[unit];
 }
 export function volumeFlowFromLPerH(lph: number, unit: VolumeFlowUnit): number {
-  return unit === "l/h" ? lph : convert(lph).from("l/h").to(unit);
+  return unit === "l/h" ? lph : lph / L_PER_H_PER_UNIT[unit];
 }
 export function volumeToL(value: number, unit: VolumeUnit): number {
-  return unit === "l" ? value : convert(value).from(unit).to("l");
+  return unit === "l" ? value : value * L_PER_US_GAL;
 }
 export function volumeFromL(l: number, unit: VolumeUnit): number {
-  return unit === "l" ? l : convert(l).from("l").to(unit);
+  return unit === "l" ? l : l / L_PER_US_GAL;
 }
 
 /** Mass flow: 1 lb/h = 453.59237 g / 60 min = 7.5598728 g/min (exact). */

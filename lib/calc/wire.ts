@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §4.3.
 import { requirePositive, requireRange } from "./_lib/input-error";
 import { COPPER_RESISTIVITY_OHM_M } from "./constants";
 

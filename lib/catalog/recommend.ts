@@ -115,17 +115,21 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     const r = sizeParsedFuelSystem(withInjector(input, p));
     const why: Reason[] = [];
     let fits = true;
-    const duty = r.blend.rich.dutyPct;
+    // Duty at the worse end of the blend (calc-spec §7).
+    const duty = r.injector.dutyPct;
     const dutyFigures = {
       duty: pct(duty),
-      e: E(input.fuel.ethanolMaxVolPct),
+      e: E(r.blend[r.blend.worstEnd].ethanolVolPct),
       design: pct(limits.designDutyPct),
     };
     if (duty > limits.designDutyPct) {
       fits = false;
       why.push(R("duty {duty} at {e} is over the {design} design duty", dutyFigures));
     } else why.push(R("duty {duty} at {e} (design {design})", dutyFigures));
-    const idle = r.injector.pulseWidthIdle.effectiveMs;
+    // A minimum pulse width is a commanded pulse (calc-spec §3): compare the commanded idle pulse
+    // (opening time + dead time) where the dead time is known, else the opening time.
+    const commanded = r.injector.pulseWidthIdle.commandedMs;
+    const idle = commanded ?? r.injector.pulseWidthIdle.effectiveMs;
     const minPw = (p.specs as { minPulseWidthMs?: number }).minPulseWidthMs;
     const idleFigures = (min: number) => ({
       idle: { value: idle, quantity: "time" as const },
@@ -134,10 +138,22 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     if (minPw !== undefined && idle < minPw) {
       fits = false;
       why.push(
-        R("too big for idle: {idle} open at idle, below its {min} minimum", idleFigures(minPw)),
+        R(
+          commanded === null
+            ? "too big for idle: {idle} open at idle (no dead time known), below its {min} minimum"
+            : "too big for idle: {idle} commanded at idle, below its {min} minimum",
+          idleFigures(minPw),
+        ),
       );
     } else if (minPw !== undefined)
-      why.push(R("idle pulse {idle} (minimum {min})", idleFigures(minPw)));
+      why.push(
+        R(
+          commanded === null
+            ? "idle opening time {idle} (minimum {min}; no dead time known)"
+            : "idle commanded pulse {idle} (minimum {min})",
+          idleFigures(minPw),
+        ),
+      );
     const eth = ethanolWhy(p);
     if (eth) {
       fits = false;

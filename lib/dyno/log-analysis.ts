@@ -108,7 +108,7 @@ export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedF
       ...analysis,
       ethanolPct,
       targetLambda,
-      predictedPeakDutyPct: result.blend.rich.dutyPct,
+      predictedPeakDutyPct: result.injector.dutyPct,
     },
     series,
   };

@@ -329,7 +329,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
 
         <Text style={s.h2}>Key figures</Text>
         <View style={[s.row, { flexWrap: "wrap", gap: 0 }]}>
-          {fig("Fuel required (rich end)", q("volumeFlow", r.fuelVolumeFlowLPerH))}
+          {fig("Fuel required (worse end)", q("volumeFlow", r.fuelVolumeFlowLPerH))}
           {fig(
             `Injector duty at ${q("ethanol", input.fuel.ethanolMaxVolPct)}`,
             q("percent", r.blend.rich.dutyPct),

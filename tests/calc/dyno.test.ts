@@ -166,13 +166,16 @@ describe("column mapping", () => {
     const m = DatalogMappingSchema.parse(suggestMapping(log));
     const [s] = samplesFromLog(log, m);
     // NIST SP 811 B.8: 29.4 psi = 202.70 kPa abs; − 101.325 (ISO 2533) = 101.38 kPa boost.
-    expect(s!.boostKpa).toBeCloseTo(29.4 * 6.894757 - 101.325, 6);
+    expect(s!.boostKpa).toBeCloseTo(29.4 * 6.894757293168361 - 101.325, 6);
     // 72.5 psi rail = 499.87 kPa; differential = rail − boost = 398.5 kPa (by hand).
-    expect(s!.fuelDiffKpa).toBeCloseTo(72.5 * 6.894757 - (29.4 * 6.894757 - 101.325), 6);
+    expect(s!.fuelDiffKpa).toBeCloseTo(
+      72.5 * 6.894757293168361 - (29.4 * 6.894757293168361 - 101.325),
+      6,
+    );
     // AFR 11.76 on the gasoline 14.7 scale = lambda 0.80 (common practice, no source).
     expect(s!.lambda).toBeCloseTo(0.8, 9);
-    // NIST SP 811 B.8: 1 hp (550 ft·lbf/s) = 745.6999 W.
-    expect(s!.powerKw).toBeCloseTo(400 * 0.7456999, 6);
+    // NIST SP 811 B.8: 1 hp (550 ft·lbf/s) = 745.699 871 582 270 22 W.
+    expect(s!.powerKw).toBeCloseTo(400 * 0.74569987158227022, 6);
   });
 
   it("the same header set in another order is the same logger; unknown columns are named", () => {

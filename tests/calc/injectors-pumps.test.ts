@@ -190,6 +190,7 @@ describe("pumps", () => {
     expect(pumpFlowLPerH(pump, 450, 13)).toEqual({
       flowLPerH: 280,
       pressureOutOfRange: false,
+      pressureBelowCurve: false,
       voltageOutOfRange: false,
     });
   });

@@ -59,9 +59,28 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
     const pw = r.injector.pulseWidthRedline;
     expect(pw.cycleMs).toBeCloseTo(120000 / 7000, 12);
     expect(pw.effectiveMs).toBeCloseTo((r.injector.dutyPct / 100) * pw.cycleMs, 12);
-    // 13 V, 400 kPa in the fixture's table: rows at 12 V → 1.2, at 14 V → 0.975; mid → 1.0875.
-    expect(pw.deadTimeMs).toBeCloseTo(1.0875, 12);
-    expect(pw.commandedMs).toBeCloseTo(pw.effectiveMs + 1.0875, 12);
+    // At the injectors' voltage (schema default 14 V, not the pump's 13 V), 400 kPa in the
+    // fixture's table: the 14 V row → 0.975 ms (docs/calculations.md §3.5; by hand).
+    expect(r.injector.voltage).toBe(14);
+    expect(pw.deadTimeMs).toBeCloseTo(0.975, 12);
+    expect(pw.commandedMs).toBeCloseTo(pw.effectiveMs + 0.975, 12);
+    // At 13 V at the injectors: rows at 12 V → 1.2, at 14 V → 0.975; midway → 1.0875 (by hand).
+    const at13 = sizeFuelSystem(withInput((i) => (i.electrical.injectorVoltage = 13)));
+    expect(at13.injector.pulseWidthRedline.deadTimeMs).toBeCloseTo(1.0875, 12);
+    // Pump wiring lowers the pump's voltage, never the injectors' dead time.
+    const wired = sizeFuelSystem(
+      withInput(
+        (i) =>
+          (i.electrical.wiring = {
+            sourceVoltage: 14,
+            gaugeAwg: 14,
+            roundTripLengthM: 10,
+            currentA: 15,
+          }),
+      ),
+    );
+    expect(wired.pump.voltageUsed).toBeLessThan(14);
+    expect(wired.injector.pulseWidthRedline.deadTimeMs).toBeCloseTo(0.975, 12);
   });
 
   it("works the pump against rail + boost + losses", () => {
@@ -166,8 +185,23 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
   });
 
   it("takes a given BSFC over the rules of thumb", () => {
+    // Taken (by default) at the lowest ethanol of the range, E70; E85 scaled by the rules of
+    // thumb' ratio, boosted 0.60 → 0.80 lb/(hp·h) linear in ethanol % (calc-spec §2, common
+    // practice, no source): (0.6 + 0.2·85/85) ÷ (0.6 + 0.2·70/85).
     const given = sizeFuelSystem(withInput((i) => (i.fuel.bsfcGPerKwh = 400)));
-    expect(given.blend.rich.bsfcGPerKwh).toBe(400);
+    expect(given.blend.lean.bsfcGPerKwh).toBe(400);
+    expect(given.blend.lean.bsfcSource).toBe("given");
+    expect(given.blend.rich.bsfcSource).toBe("scaled");
+    expect(given.blend.rich.bsfcGPerKwh).toBeCloseTo((400 * 0.8) / (0.6 + (0.2 * 70) / 85), 9);
+    // Given at E85: E85 keeps it, E70 is scaled down by the same ratio.
+    const atRich = sizeFuelSystem(
+      withInput((i) => {
+        i.fuel.bsfcGPerKwh = 400;
+        i.fuel.bsfcEthanolVolPct = 85;
+      }),
+    );
+    expect(atRich.blend.rich.bsfcGPerKwh).toBe(400);
+    expect(atRich.blend.lean.bsfcGPerKwh).toBeCloseTo((400 * (0.6 + (0.2 * 70) / 85)) / 0.8, 9);
     expect(given.warnings.map((w) => w.code)).not.toContain("bsfc-rule-of-thumb");
   });
 
@@ -294,10 +328,20 @@ describe("sizeFuelSystem properties", () => {
   });
 
   it("never returns NaN or Infinity for any input the schema accepts", () => {
-    const curvePoint = fc.record({
-      pressureKpa: fc.double({ min: 0, max: 1500, noNaN: true }),
-      flowLPerH: fc.double({ min: 0, max: 3000, noNaN: true }),
-    });
+    // Curves whose flow falls as pressure rises (the schema refuses the others, point named).
+    const curvePoints = fc
+      .uniqueArray(
+        fc.record({
+          pressureKpa: fc.double({ min: 0, max: 1500, noNaN: true }),
+          flowLPerH: fc.double({ min: 0, max: 3000, noNaN: true }),
+        }),
+        { minLength: 2, maxLength: 6, selector: (p) => Math.round(p.pressureKpa) },
+      )
+      .map((pts) => {
+        const ps = pts.map((p) => p.pressureKpa).sort((a, b) => a - b);
+        const fs = pts.map((p) => p.flowLPerH).sort((a, b) => b - a);
+        return ps.map((pressureKpa, i) => ({ pressureKpa, flowLPerH: fs[i]! }));
+      });
     const input = fc.record({
       engine: fc.record({
         cylinders: fc.integer({ min: 1, max: 16 }),
@@ -333,11 +377,7 @@ describe("sizeFuelSystem properties", () => {
           curves: fc.array(
             fc.record({
               voltage: fc.double({ min: 6, max: 20, noNaN: true }),
-              points: fc.uniqueArray(curvePoint, {
-                minLength: 2,
-                maxLength: 6,
-                selector: (p) => Math.round(p.pressureKpa),
-              }),
+              points: curvePoints,
             }),
             { minLength: 1, maxLength: 3 },
           ),

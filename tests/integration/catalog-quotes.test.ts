@@ -375,7 +375,7 @@ describe("kit recommendation on a build", () => {
     expect(chose.json.build.inputs.injectors.ratedFlowCcPerMin).toBe(
       best.part.specs.ratedFlowCcPerMin,
     );
-    expect(chose.json.build.result.blend.rich.dutyPct).toBeCloseTo(best.figure, 6);
+    expect(chose.json.build.result.injector.dutyPct).toBeCloseTo(best.figure, 6);
     expect(chose.json.build.parts.map((p: { role: string }) => p.role)).toEqual([
       "injector",
       "pump",

@@ -210,9 +210,11 @@ describe("each shop setting moves the figure it should", () => {
     ).toBeCloseTo(520, 9);
     const na = withShop((s) => (s.bsfc.gasolineNaGPerKwh = 400));
     expect(na.blend.rich.bsfcGPerKwh).toBeCloseTo(lib.blend.rich.bsfcGPerKwh, 9);
-    // A typed BSFC (or the shop's measured one the tuner chose) beats the rule of thumb.
+    // A typed BSFC (or the shop's measured one the tuner chose) beats the rule of thumb, at the
+    // ethanol content it was taken at (calc-spec §2).
     const typed = bare();
     typed.fuel.bsfcGPerKwh = 480;
+    typed.fuel.bsfcEthanolVolPct = typed.fuel.ethanolMaxVolPct;
     expect(size(shop, typed).blend.rich.bsfcGPerKwh).toBe(480);
   });
 

@@ -42,6 +42,57 @@ const curve = (flowAt300: number) => [
   },
 ];
 
+describe("kit idle check: the commanded pulse against the minimum (docs/calculations.md §3.6)", () => {
+  it("a 4.4 L V8 idling at 750 rpm fits a 1300 cc/min injector whose dead time is known", () => {
+    const v8 = FuelSystemInputSchema.parse({
+      ...boostedSix,
+      engine: {
+        cylinders: 8,
+        displacementL: 4.4,
+        aspiration: "turbo",
+        redlineRpm: 7000,
+        idleRpm: 750,
+        maxBoostKpa: 150,
+      },
+      injectors: { ...boostedSix.injectors, count: 8 },
+    });
+    // Data-sheet-like table (invented input): ≈ 0.95 ms at 14 V, 400 kPa; minimum commanded 1.0 ms.
+    const deadTime = {
+      voltages: [12, 14],
+      pressuresKpa: [300, 500],
+      deadTimeMs: [
+        [1.1, 1.3],
+        [0.9, 1.05],
+      ],
+    };
+    const withTable = part("injector", {
+      ratedFlowCcPerMin: 1300,
+      ratedPressureKpa: 300,
+      minPulseWidthMs: 1.0,
+      deadTime,
+      ethanolOk: true,
+    });
+    const noTable = part("injector", {
+      ratedFlowCcPerMin: 1300,
+      ratedPressureKpa: 300,
+      minPulseWidthMs: 1.0,
+      ethanolOk: true,
+    });
+    const rec = recommendKit(v8, [withTable, noTable]);
+    const cands = rec.roles.find((x) => x.role === "injector")!.candidates;
+    const text = (id: string) =>
+      cands
+        .find((c) => c.part.id === id)!
+        .why.map((w) => reasonText(w, "metric"))
+        .join("; ");
+    // Opening time at idle is under 1 ms; plus the dead time it is well over (by hand, §3.7).
+    expect(text(withTable.id)).toContain("idle commanded pulse");
+    expect(text(withTable.id)).not.toContain("too big for idle");
+    expect(text(noTable.id)).toContain("too big for idle");
+    expect(text(noTable.id)).toContain("no dead time known");
+  });
+});
+
 describe("kit recommendation", () => {
   const input = FuelSystemInputSchema.parse(boostedSix);
   const small = part("injector", {

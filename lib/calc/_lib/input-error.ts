@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §8.
 /** Thrown when a library function is called with input it cannot work with. */
 export class CalcInputError extends Error {
   readonly field: string;

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §3.5, §4.2.
 /** Result of a piecewise-linear look-up: the value and whether the query lay outside the data. */
 export interface Lookup {
   value: number;

@@ -1,3 +1,4 @@
+// Reference: docs/calculations.md §7.
 import type { TraceStep } from "../types";
 
 /** Collects the worked steps of a calculation, in order. */

@@ -31,8 +31,9 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
         </Link>
       </PageHeader>
       <p className="mb-4 text-sm text-ink-700">
-        Each part is sized with this build&apos;s inputs: injectors at the richest blend, pumps at
-        rail plus boost and the build&apos;s voltage, lines against the shop&apos;s drop limit.
+        Each part is sized with this build&apos;s inputs: injectors at the worse end of the blend,
+        pumps at rail plus boost and the build&apos;s voltage, lines against the shop&apos;s drop
+        limit.
       </p>
       <KitPicker
         buildId={id}
