@@ -101,7 +101,7 @@ describe("dyno verification", () => {
     });
     await offer.click();
     await expect
-      .poll(() => page.getByLabel(/^BSFC/).inputValue())
+      .poll(() => page.getByLabel(/^BSFC \(blank/).inputValue())
       .toBe(String(Math.round(learnt.meanGPerKwh)));
     await expect.poll(() => page.getByText("✓ Using this shop's measured BSFC").count()).toBe(1);
     await ctx.close();
