@@ -59,6 +59,8 @@ const actionKeys = [...files, ...walk("lib")]
   );
 
 let fx: Fx;
+const WALK_TIMEOUT_MS = 240_000;
+
 const clients = {} as Record<Who, Client | null>;
 
 // Everything but sessions and rate-limit counters, which sign-ins and reads touch by design.
@@ -135,61 +137,70 @@ describe("access matrix", () => {
     ).toEqual([]);
   });
 
-  it("route handlers: each caller gets the expected outcome; every refusal changes nothing", async () => {
-    for (const [key, cell] of Object.entries(ROUTES)) {
-      const method = key.split(" ")[0]!;
-      const expected = cell.expect.split(" ");
-      expect(expected, key).toHaveLength(WHO.length);
-      for (const [i, who] of WHO.entries()) {
-        const { path, body, raw } = cell.call(fx);
-        const denied = expected[i] !== "ok";
-        const before = denied ? await fingerprint(TABLES) : "";
-        const res = raw
-          ? await request(clients[who], method, path, raw.body as string, {
-              "content-type": raw.type,
-            })
-          : await request(clients[who], method, path, body);
-        judge(key, who, expected[i]!, res.status, Boolean(cell.mayVanish));
-        if (denied) {
-          expect(res.headers.get("content-type"), `${key} as ${who}: a JSON refusal`).toMatch(
-            /application\/json/,
-          );
-          expect(
-            await fingerprint(TABLES),
-            `${key} as ${who}: a refusal changed the database`,
-          ).toBe(before);
+  // A walk of the whole surface: ~20 s on an idle CI machine, several times that on a busy one.
+  it(
+    "route handlers: each caller gets the expected outcome; every refusal changes nothing",
+    async () => {
+      for (const [key, cell] of Object.entries(ROUTES)) {
+        const method = key.split(" ")[0]!;
+        const expected = cell.expect.split(" ");
+        expect(expected, key).toHaveLength(WHO.length);
+        for (const [i, who] of WHO.entries()) {
+          const { path, body, raw } = cell.call(fx);
+          const denied = expected[i] !== "ok";
+          const before = denied ? await fingerprint(TABLES) : "";
+          const res = raw
+            ? await request(clients[who], method, path, raw.body as string, {
+                "content-type": raw.type,
+              })
+            : await request(clients[who], method, path, body);
+          judge(key, who, expected[i]!, res.status, Boolean(cell.mayVanish));
+          if (denied) {
+            expect(res.headers.get("content-type"), `${key} as ${who}: a JSON refusal`).toMatch(
+              /application\/json/,
+            );
+            expect(
+              await fingerprint(TABLES),
+              `${key} as ${who}: a refusal changed the database`,
+            ).toBe(before);
+          }
         }
       }
-    }
-  });
+    },
+    WALK_TIMEOUT_MS,
+  );
 
-  it("server actions: each caller gets the expected outcome; every refusal changes nothing", async () => {
-    const manifest = actionManifest();
-    for (const [key, cell] of Object.entries(ACTIONS)) {
-      const [file, name] = key.split("#") as [string, string];
-      const found = manifest.find((r) => r.file === file && r.name === name);
-      expect(found, `${key} is in the build's action manifest`).toBeTruthy();
-      const ref: ActionRef = { ...found!, page: cell.page(fx) };
-      const expected = cell.expect.split(" ");
-      for (const [i, who] of WHO.entries()) {
-        const denied = expected[i] !== "ok";
-        const before = denied ? await fingerprint(TABLES) : "";
-        const r = await callAction(clients[who], ref, cell.args(fx));
-        expect(r.http, `${key} as ${who}: the action answered`).toBeLessThan(500);
-        // A redirect is success; otherwise the state's status says how it ended.
-        // The proxy sends a caller with no session to sign-in before any action runs.
-        const status = r.redirect
-          ? /\/sign-in\b/.test(r.redirect)
-            ? 401
-            : 200
-          : (r.state?.status ?? 200);
-        judge(key, who, expected[i]!, status, Boolean(cell.mayVanish));
-        if (denied)
-          expect(
-            await fingerprint(TABLES),
-            `${key} as ${who}: a refusal changed the database`,
-          ).toBe(before);
+  it(
+    "server actions: each caller gets the expected outcome; every refusal changes nothing",
+    async () => {
+      const manifest = actionManifest();
+      for (const [key, cell] of Object.entries(ACTIONS)) {
+        const [file, name] = key.split("#") as [string, string];
+        const found = manifest.find((r) => r.file === file && r.name === name);
+        expect(found, `${key} is in the build's action manifest`).toBeTruthy();
+        const ref: ActionRef = { ...found!, page: cell.page(fx) };
+        const expected = cell.expect.split(" ");
+        for (const [i, who] of WHO.entries()) {
+          const denied = expected[i] !== "ok";
+          const before = denied ? await fingerprint(TABLES) : "";
+          const r = await callAction(clients[who], ref, cell.args(fx));
+          expect(r.http, `${key} as ${who}: the action answered`).toBeLessThan(500);
+          // A redirect is success; otherwise the state's status says how it ended.
+          // The proxy sends a caller with no session to sign-in before any action runs.
+          const status = r.redirect
+            ? /\/sign-in\b/.test(r.redirect)
+              ? 401
+              : 200
+            : (r.state?.status ?? 200);
+          judge(key, who, expected[i]!, status, Boolean(cell.mayVanish));
+          if (denied)
+            expect(
+              await fingerprint(TABLES),
+              `${key} as ${who}: a refusal changed the database`,
+            ).toBe(before);
+        }
       }
-    }
-  });
+    },
+    WALK_TIMEOUT_MS,
+  );
 });
