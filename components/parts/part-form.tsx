@@ -163,7 +163,11 @@ export function PartForm({
         {field("cost", "Cost")}
         {field("stock", "In stock")}
         {field("reorder_level", "Reorder at")}
-        {field("lead_time_days", "Lead time (days)", "From ordering to the shelf; blank: not known")}
+        {field(
+          "lead_time_days",
+          "Lead time (days)",
+          "From ordering to the shelf; blank: not known",
+        )}
         {field(
           "restock_on",
           "Expected restock",

@@ -55,7 +55,7 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 /** A part's own columns, as a command writes them. */
 export type PartColumns = Pick<
   typeof parts.$inferInsert,
-    | "sku"
+  | "sku"
   | "category"
   | "brand"
   | "name"

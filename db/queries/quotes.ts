@@ -581,3 +581,21 @@ export async function expireQuotes(today: string, shopId?: string): Promise<stri
     return due.map((q) => q.id);
   });
 }
+
+/** Units of each part held by a build's quotes (accepted, deposit paid, ordered), by part id. */
+export async function heldForBuild(shopId: string, buildId: string): Promise<Map<string, number>> {
+  const rows = await db
+    .select({ partId: quoteLines.partId, held: sql<number>`sum(${quoteLines.heldQty})::int` })
+    .from(quoteLines)
+    .innerJoin(quotes, eq(quotes.id, quoteLines.quoteId))
+    .where(
+      and(
+        eq(quoteLines.shopId, shopId),
+        eq(quotes.shopId, shopId),
+        eq(quotes.buildId, buildId),
+        gt(quoteLines.heldQty, 0),
+      ),
+    )
+    .groupBy(quoteLines.partId);
+  return new Map(rows.flatMap((r) => (r.partId ? [[r.partId, Number(r.held)]] : [])));
+}

@@ -141,7 +141,5 @@ export function holdSummary(
   const first = held.length
     ? `The shop will hold ${held.join(", ")} for you`
     : "Nothing on this quote is in stock now";
-  return later.length
-    ? `${first}; back-ordered: ${later.join(", ")}.`
-    : `${first}.`;
+  return later.length ? `${first}; back-ordered: ${later.join(", ")}.` : `${first}.`;
 }
