@@ -141,6 +141,15 @@ describe("two quotes, one free unit", () => {
     expect(portal).toContain(
       `Nothing on this quote is in stock now; back-ordered: 1 × Testbrand ${part.name} (expected by ${day}).`,
     );
+    // The JSON API says the same, per line.
+    const api = await request(counter, "GET", `/api/v1/quotes/${second}`);
+    expect(api.json.stock).toMatchObject({
+      holding: false,
+      promises: [
+        { wanted: 1, held: 0, backOrdered: 1, expectedOn: calendarDay(new Date(), zone, 10) },
+        null,
+      ],
+    });
     // The counter sees the same on the quote page.
     const desk = await pageText(counter, `/quotes/${second}`);
     expect(desk).toContain("Parts if accepted now");
