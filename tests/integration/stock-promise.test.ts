@@ -327,8 +327,27 @@ describe("the kit's ranking does not move after 'Use these parts'", () => {
     const free = (k: Kit) => k.roles.map((r) => r.candidates.map((c) => c.stock.free));
     expect(free(held)).toEqual(free(first));
 
-    // An edit of the inputs is a new basis: the kit then ranks what the tuner saved.
-    const [row] = await sql`select kit_basis from builds where id = ${id}`;
-    expect(row!.kit_basis).not.toBeNull();
+    // A save that leaves the inputs as they are keeps the basis; one that changes them clears it
+    // (the kit then ranks what the tuner saved).
+    const basis = async () =>
+      (await sql`select kit_basis from builds where id = ${id}`)[0]!.kit_basis;
+    expect(await basis()).not.toBeNull();
+    const cur = (await request(tuner, "GET", `/api/v1/builds/${id}`)).json.build;
+    const same = await request(tuner, "PATCH", `/api/v1/builds/${id}`, {
+      version: cur.version,
+      title: `${tag} kit renamed`,
+      inputs: cur.inputs,
+    });
+    expect(same.status).toBe(200);
+    expect(await basis()).not.toBeNull();
+    const edited = await request(tuner, "PATCH", `/api/v1/builds/${id}`, {
+      version: same.json.build.version,
+      inputs: {
+        ...cur.inputs,
+        engine: { ...cur.inputs.engine, idleRpm: cur.inputs.engine.idleRpm + 50 },
+      },
+    });
+    expect(edited.status).toBe(200);
+    expect(await basis()).toBeNull();
   });
 });
