@@ -14,6 +14,8 @@ export interface SeedPart {
   costMinor: number;
   stock: number;
   reorderLevel: number;
+  /** Days from ordering to the shelf (the demo's invented supplier times); absent: not known. */
+  leadTimeDays?: number;
   specs: Record<string, unknown>;
 }
 
@@ -34,6 +36,7 @@ const injector = (flow: number, price: number, stock: number, minPw: number) =>
     priceMinor: price,
     stock,
     reorderLevel: 8,
+    leadTimeDays: 14,
     specs: {
       ratedFlowCcPerMin: flow,
       ratedPressureKpa: 300,
@@ -70,6 +73,7 @@ const pump = (
     priceMinor: price,
     stock,
     reorderLevel: 2,
+    leadTimeDays: mounting === "in-tank" ? 10 : 21,
     specs: {
       curves: [13.5, 12].map((v) => ({
         voltage: v,

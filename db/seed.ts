@@ -419,19 +419,36 @@ export async function seed(url: string) {
           .onConflictDoNothing()
           .returning({ id: schema.quotes.id });
         if (!inserted.length) continue;
-        await tx
-          .insert(schema.quoteLines)
-          .values(
-            q.lines.map((l, i) => ({ ...l, shopId: DEMO_SHOP_ID, quoteId: q.id, position: i + 1 })),
-          );
-        if (q.status === "accepted") {
-          for (const l of q.lines)
-            if (l.partId)
+        // An accepted demo quote holds what is free of its parts (as accepting does), per line.
+        const held: number[] = [];
+        for (const l of q.lines) {
+          let h = 0;
+          if (q.status === "accepted" && l.partId) {
+            const [p] = await tx
+              .select({ stock: schema.parts.stock, reserved: schema.parts.reserved })
+              .from(schema.parts)
+              .where(eq(schema.parts.id, l.partId))
+              .for("update");
+            h = p
+              ? Math.min(Math.ceil(l.quantityMilli / 1000), Math.max(0, p.stock - p.reserved))
+              : 0;
+            if (h)
               await tx
                 .update(schema.parts)
-                .set({ reserved: dsql`${schema.parts.reserved} + ${l.quantityMilli / 1000}` })
+                .set({ reserved: dsql`${schema.parts.reserved} + ${h}` })
                 .where(eq(schema.parts.id, l.partId));
+          }
+          held.push(h);
         }
+        await tx.insert(schema.quoteLines).values(
+          q.lines.map((l, i) => ({
+            ...l,
+            shopId: DEMO_SHOP_ID,
+            quoteId: q.id,
+            position: i + 1,
+            heldQty: held[i]!,
+          })),
+        );
       }
       await tx
         .insert(schema.shopCounters)

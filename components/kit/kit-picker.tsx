@@ -10,7 +10,7 @@ import { initialActionState } from "@/lib/actions/state";
 import { chooseKitAction } from "@/lib/builds/build-actions";
 import { fillTemplate, type UnitSystem } from "@/lib/calc";
 import { formatMoney } from "@/lib/catalog/money";
-import type { Candidate } from "@/lib/catalog/recommend";
+import { fitLabels, type Candidate } from "@/lib/catalog/recommend";
 import { type ChosenPart, type KitRole } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
 import { createQuoteAction } from "@/lib/quotes/quote-actions";
@@ -111,65 +111,72 @@ export function KitPicker({
 
   return (
     <div className="space-y-4">
-      {data.roles.map((r) => (
-        <fieldset
-          key={r.role}
-          className="rounded-lg border border-ink-200 bg-white p-4"
-          disabled={!canChoose}
-        >
-          <legend className="px-1 font-display text-lg font-semibold">
-            {r.label}
-            {!r.needed ? " (not needed)" : ""}
-          </legend>
-          {r.candidates.length === 0 ? (
-            <p className="text-sm text-ink-600">No {r.label.toLowerCase()} in the catalog.</p>
-          ) : null}
-          <ul className="space-y-2">
-            <li>
-              <label className="flex items-center gap-2 text-sm">
-                <input
-                  type="radio"
-                  name={r.role}
-                  checked={!pick[r.role]}
-                  onChange={() => setPick((p) => ({ ...p, [r.role]: undefined }))}
-                />{" "}
-                None
-              </label>
-            </li>
-            {r.candidates.slice(0, 6).map((c, i) => (
-              <li key={key(c)}>
-                <label className="flex items-start gap-2 text-sm">
+      {data.roles.map((r) => {
+        const labels = fitLabels(r.candidates);
+        return (
+          <fieldset
+            key={r.role}
+            className="rounded-lg border border-ink-200 bg-white p-4"
+            disabled={!canChoose}
+          >
+            <legend className="px-1 font-display text-lg font-semibold">
+              {r.label}
+              {!r.needed ? " (not needed)" : ""}
+            </legend>
+            {r.candidates.length === 0 ? (
+              <p className="text-sm text-ink-600">No {r.label.toLowerCase()} in the catalog.</p>
+            ) : null}
+            <ul className="space-y-2">
+              <li>
+                <label className="flex items-center gap-2 text-sm">
                   <input
                     type="radio"
-                    className="mt-1"
                     name={r.role}
-                    checked={pick[r.role] === key(c)}
-                    onChange={() => setPick((p) => ({ ...p, [r.role]: key(c) }))}
-                    aria-label={`${r.label}: ${c.quantity} × ${c.part.sku}`}
-                  />
-                  <span>
-                    <span className="font-medium">
-                      {c.quantity > 1 ? `${c.quantity} × ` : ""}
-                      {c.part.brand} {c.part.name}
-                    </span>{" "}
-                    <span className="figure text-ink-600">
-                      {c.part.sku} · {formatMoney(c.part.priceMinor, currency)}
-                    </span>{" "}
-                    {c.fits ? (
-                      <Signal level="ok">{i === 0 ? "Best fit" : "Fits"}</Signal>
-                    ) : (
-                      <Signal level="danger">Does not fit</Signal>
-                    )}
-                    <span className="block text-ink-700">
-                      {c.why.map((r) => fillTemplate(r.text, r.params, units)).join("; ")}
-                    </span>
-                  </span>
+                    checked={!pick[r.role]}
+                    onChange={() => setPick((p) => ({ ...p, [r.role]: undefined }))}
+                  />{" "}
+                  None
                 </label>
               </li>
-            ))}
-          </ul>
-        </fieldset>
-      ))}
+              {r.candidates.slice(0, 6).map((c, i) => (
+                <li key={key(c)}>
+                  <label className="flex items-start gap-2 text-sm">
+                    <input
+                      type="radio"
+                      className="mt-1"
+                      name={r.role}
+                      checked={pick[r.role] === key(c)}
+                      onChange={() => setPick((p) => ({ ...p, [r.role]: key(c) }))}
+                      aria-label={`${r.label}: ${c.quantity} × ${c.part.sku}`}
+                    />
+                    <span>
+                      <span className="font-medium">
+                        {c.quantity > 1 ? `${c.quantity} × ` : ""}
+                        {c.part.brand} {c.part.name}
+                      </span>{" "}
+                      <span className="figure text-ink-600">
+                        {c.part.sku} · {formatMoney(c.part.priceMinor, currency)}
+                      </span>{" "}
+                      <span data-testid="kit-verdict">
+                        <Signal
+                          level={
+                            !c.fits ? "danger" : c.stock.free < c.stock.needed ? "caution" : "ok"
+                          }
+                        >
+                          {labels[i]}
+                        </Signal>
+                      </span>
+                      <span className="block text-ink-700">
+                        {c.why.map((r) => fillTemplate(r.text, r.params, units)).join("; ")}
+                      </span>
+                    </span>
+                  </label>
+                </li>
+              ))}
+            </ul>
+          </fieldset>
+        );
+      })}
       <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-ink-200 bg-ink-50 py-3">
         <span className="figure font-semibold">Parts {formatMoney(total, currency)}</span>
         {canChoose ? (

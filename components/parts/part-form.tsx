@@ -163,6 +163,16 @@ export function PartForm({
         {field("cost", "Cost")}
         {field("stock", "In stock")}
         {field("reorder_level", "Reorder at")}
+        {field(
+          "lead_time_days",
+          "Lead time (days)",
+          "From ordering to the shelf; blank: not known",
+        )}
+        {field(
+          "restock_on",
+          "Expected restock",
+          "YYYY-MM-DD, a supplier's promised day; blank: none",
+        )}
       </fieldset>
       {SPEC_FIELDS[category].length ? (
         <fieldset className="grid gap-3 rounded-lg border border-ink-200 bg-white p-4 sm:grid-cols-2">

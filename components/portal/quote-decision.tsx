@@ -7,15 +7,18 @@ import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
 import { respondToQuoteAction } from "@/lib/quotes/quote-actions";
 
-/** Accept or decline buttons on the customer's own sent quote. */
-export function QuoteDecision({ id }: { id: string }) {
+/**
+ * Accept or decline buttons on the customer's own sent quote; accepting asks first, saying what
+ * the shop will hold and what is back-ordered (`holds`, lib/catalog/stock.ts#holdSummary).
+ */
+export function QuoteDecision({ id, holds }: { id: string; holds: string | null }) {
   const [pending, start] = useTransition();
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const decide = (decision: "accept" | "decline") => {
     if (
       !window.confirm(
         decision === "accept"
-          ? "Accept this quote? The shop will hold the parts for you."
+          ? `Accept this quote?${holds ? ` ${holds}` : ""}`
           : "Decline this quote?",
       )
     )

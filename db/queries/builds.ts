@@ -230,6 +230,11 @@ export interface BuildPatch {
   };
   parts?: ChosenPart[];
   /**
+   * The kit's basis (builds.kit_basis) to keep with this save. Left out: a save whose inputs
+   * differ from the stored ones clears it (the new inputs are then what the kit ranks against).
+   */
+  kitBasis?: { inputs: unknown; inputsSchemaVersion: number } | null;
+  /**
    * Write a revision even when no column changes (a build verified again with another log: the
    * revision names that log). Otherwise a save that changes nothing writes nothing.
    */
@@ -323,6 +328,13 @@ export async function saveBuild(
       .update(builds)
       .set({
         ...changes,
+        ...(v.kitBasis !== undefined
+          ? { kitBasis: v.kitBasis }
+          : v.sized
+            ? {
+                kitBasis: sql`case when ${builds.inputs} is distinct from ${JSON.stringify(v.sized.inputs)}::jsonb then null else ${builds.kitBasis} end`,
+              }
+            : {}),
         version: sql`${builds.version} + 1`,
         updatedBy: userId,
         updatedAt: new Date(),

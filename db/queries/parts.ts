@@ -55,7 +55,16 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 /** A part's own columns, as a command writes them. */
 export type PartColumns = Pick<
   typeof parts.$inferInsert,
-  "sku" | "category" | "brand" | "name" | "priceMinor" | "costMinor" | "stock" | "reorderLevel"
+  | "sku"
+  | "category"
+  | "brand"
+  | "name"
+  | "priceMinor"
+  | "costMinor"
+  | "stock"
+  | "reorderLevel"
+  | "leadTimeDays"
+  | "restockOn"
 > & { specs: Record<string, unknown> };
 
 /** The columns to change: only the keys present are written. */
@@ -189,6 +198,8 @@ const IMPORTED = [
   parts.costMinor,
   parts.stock,
   parts.reorderLevel,
+  parts.leadTimeDays,
+  parts.restockOn,
   parts.specs,
 ];
 
@@ -210,6 +221,8 @@ async function upsertParts(tx: Tx, shopId: string, rows: PartColumns[]) {
           costMinor: sql`excluded.cost_minor`,
           stock: sql`excluded.stock`,
           reorderLevel: sql`excluded.reorder_level`,
+          leadTimeDays: sql`excluded.lead_time_days`,
+          restockOn: sql`excluded.restock_on`,
           specs: sql`excluded.specs`,
           version: sql`${parts.version} + 1`,
           updatedAt: new Date(),

@@ -13,6 +13,7 @@ import {
   shopSettings,
 } from "@/db/schema";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { allocate, freeOf } from "@/lib/catalog/stock";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 import {
   QUOTE_EDITABLE,
@@ -306,13 +307,23 @@ function stockSign(from: QuoteStatus, to: QuoteStatus): 1 | -1 | 0 {
 }
 
 /**
- * Holds (+1) or releases (−1) the stock of quotes' part lines, part by part in id order (so
- * concurrent transactions lock parts in the same order).
+ * Holds what is free for the quotes' part lines (`sign` +1) or releases exactly what they hold
+ * (−1). Holding locks the parts' rows in id order (concurrent transactions lock them in the same
+ * order, and the second waits for the first and then sees its holds), gives each line at most the
+ * free units left (`lib/catalog/stock.ts#allocate`, in line order) and records them per line
+ * (`held_qty`); the rest is back-ordered. Releasing gives back each line's `held_qty` and sets it
+ * to 0. `reserved` therefore never exceeds the stock a hold saw.
  */
 async function moveReservation(tx: Tx, shopId: string, quoteIds: string[], sign: 1 | -1) {
   if (quoteIds.length === 0) return;
   const lines = await tx
-    .select({ partId: quoteLines.partId, quantityMilli: quoteLines.quantityMilli })
+    .select({
+      id: quoteLines.id,
+      kind: quoteLines.kind,
+      partId: quoteLines.partId,
+      quantityMilli: quoteLines.quantityMilli,
+      heldQty: quoteLines.heldQty,
+    })
     .from(quoteLines)
     .where(
       and(
@@ -320,16 +331,36 @@ async function moveReservation(tx: Tx, shopId: string, quoteIds: string[], sign:
         inArray(quoteLines.quoteId, quoteIds),
         eq(quoteLines.kind, "part"),
       ),
-    );
+    )
+    .orderBy(asc(quoteLines.quoteId), asc(quoteLines.position));
+  const partIds = [...new Set(lines.flatMap((l) => (l.partId ? [l.partId] : [])))].sort();
+  if (partIds.length === 0) return;
+  const locked = await tx
+    .select({ id: parts.id, stock: parts.stock, reserved: parts.reserved })
+    .from(parts)
+    .where(and(eq(parts.shopId, shopId), inArray(parts.id, partIds)))
+    .orderBy(asc(parts.id))
+    .for("update");
+  const held =
+    sign === 1
+      ? allocate(lines, new Map(locked.map((p) => [p.id, freeOf(p)])))
+      : lines.map((l) => l.heldQty);
   const byPart = new Map<string, number>();
-  for (const l of lines)
-    if (l.partId)
-      byPart.set(l.partId, (byPart.get(l.partId) ?? 0) + Math.ceil(l.quantityMilli / 1000));
-  for (const [partId, qty] of [...byPart].sort(([a], [b]) => a.localeCompare(b))) {
+  lines.forEach((l, i) => {
+    if (l.partId && held[i]) byPart.set(l.partId, (byPart.get(l.partId) ?? 0) + held[i]!);
+  });
+  for (const p of locked) {
+    const qty = byPart.get(p.id);
+    if (!qty) continue;
     await tx
       .update(parts)
       .set({ reserved: sql`greatest(0, ${parts.reserved} + ${sign * qty})` })
-      .where(and(eq(parts.shopId, shopId), eq(parts.id, partId)));
+      .where(and(eq(parts.shopId, shopId), eq(parts.id, p.id)));
+  }
+  for (const [i, l] of lines.entries()) {
+    const next = sign === 1 ? held[i]! : 0;
+    if (next !== l.heldQty)
+      await tx.update(quoteLines).set({ heldQty: next }).where(eq(quoteLines.id, l.id));
   }
 }
 
@@ -439,7 +470,9 @@ export async function insertRevision(
     if (lines.length)
       await tx
         .insert(quoteLines)
-        .values(lines.map(({ id: _id, quoteId: _q, ...l }) => ({ ...l, quoteId: rev!.id })));
+        .values(
+          lines.map(({ id: _id, quoteId: _q, ...l }) => ({ ...l, heldQty: 0, quoteId: rev!.id })),
+        );
     return rev!;
   });
 }
@@ -547,4 +580,22 @@ export async function expireQuotes(today: string, shopId?: string): Promise<stri
     for (const q of due) await writeStatus(tx, q, "expired", null);
     return due.map((q) => q.id);
   });
+}
+
+/** Units of each part held by a build's quotes (accepted, deposit paid, ordered), by part id. */
+export async function heldForBuild(shopId: string, buildId: string): Promise<Map<string, number>> {
+  const rows = await db
+    .select({ partId: quoteLines.partId, held: sql<number>`sum(${quoteLines.heldQty})::int` })
+    .from(quoteLines)
+    .innerJoin(quotes, eq(quotes.id, quoteLines.quoteId))
+    .where(
+      and(
+        eq(quoteLines.shopId, shopId),
+        eq(quotes.shopId, shopId),
+        eq(quotes.buildId, buildId),
+        gt(quoteLines.heldQty, 0),
+      ),
+    )
+    .groupBy(quoteLines.partId);
+  return new Map(rows.flatMap((r) => (r.partId ? [[r.partId, Number(r.held)]] : [])));
 }

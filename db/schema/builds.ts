@@ -47,6 +47,13 @@ export const builds = pgTable(
     sizingSettings: jsonb("sizing_settings").$type<SizingSettings>(),
     /** Parts chosen from the catalog: [{ role, partId, sku, name, quantity }]. */
     parts: jsonb("parts").$type<ChosenPart[]>().notNull().default([]),
+    /**
+     * The inputs as they stood before the kit wrote chosen parts into them (with their format
+     * version): what the kit ranks against, so its ranking does not move after "Use these parts".
+     * Set by the first kit choice, kept by later ones; a save that changes the inputs otherwise
+     * clears it (those inputs are then the basis). Null: rank against `inputs`.
+     */
+    kitBasis: jsonb("kit_basis").$type<{ inputs: unknown; inputsSchemaVersion: number }>(),
     /** Optimistic concurrency: every save must name the version it started from. */
     version: integer("version").notNull().default(1),
     /** Lower-cased title, vehicle and customer name, for the trigram search of the builds table. */

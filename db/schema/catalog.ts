@@ -38,6 +38,10 @@ export const parts = pgTable(
     /** Held by accepted quotes; available = stock − reserved. */
     reserved: integer("reserved").notNull().default(0),
     reorderLevel: integer("reorder_level").notNull().default(0),
+    /** Days from ordering to having it on the shelf; null: not known. */
+    leadTimeDays: integer("lead_time_days"),
+    /** The day a restock is expected (a supplier's promise); null: none announced. */
+    restockOn: date("restock_on", { mode: "string" }),
     specs: jsonb("specs").notNull().default({}),
     /** Goes up with each saved edit or import change (not with stock held by quotes). */
     version: integer("version").notNull().default(1),
@@ -125,6 +129,12 @@ export const quoteLines = pgTable(
     unitPriceMinor: integer("unit_price_minor").notNull(),
     /** Line discount in basis points (1000 = 10 %). */
     discountBp: integer("discount_bp").notNull().default(0),
+    /**
+     * Units of the part held for this line while the quote holds stock (accepted, deposit paid,
+     * ordered): at most what was free when it was accepted; the rest is back-ordered. Leaving
+     * those states releases exactly this many and sets it back to 0.
+     */
+    heldQty: integer("held_qty").notNull().default(0),
   },
   (t) => [
     index("quote_lines_quote_idx").on(t.quoteId, t.position),

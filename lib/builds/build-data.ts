@@ -2,8 +2,11 @@ import type { CurrentBuild } from "@/db/queries/builds";
 import type { Build } from "@/db/schema";
 import { Conflict } from "@/lib/domain/errors";
 
-/** A build as commands return it: plain data (times as ISO strings), the same to JSON and actions. */
-export type BuildData = Omit<Build, "createdAt" | "updatedAt"> & {
+/**
+ * A build as commands return it: plain data (times as ISO strings), the same to JSON and actions.
+ * The kit's basis (`kitBasis`, inputs kept for the kit's ranking) stays on the server.
+ */
+export type BuildData = Omit<Build, "createdAt" | "updatedAt" | "kitBasis"> & {
   createdAt: string;
   updatedAt: string;
 };
@@ -16,7 +19,7 @@ export interface BuildResult {
   build: BuildData;
 }
 
-export function buildData(b: Build): BuildData {
+export function buildData({ kitBasis: _basis, ...b }: Build): BuildData {
   return { ...b, createdAt: b.createdAt.toISOString(), updatedAt: b.updatedAt.toISOString() };
 }
 

@@ -31,7 +31,8 @@ const CATEGORY_OF: Record<KitRole, PartCategory> = {
 /**
  * Writes the chosen catalog parts into the build as a new revision: their data goes into the
  * inputs (injector flow, pump curves, hose bores), the sizing runs on it, and the choice is kept
- * in `builds.parts`. A stale version → Conflict with the current build.
+ * in `builds.parts`; the inputs from before the first choice are kept as the kit's basis, so
+ * the ranking does not move. A stale version → Conflict with the current build.
  */
 export async function chooseKit(
   m: Member,
@@ -68,6 +69,11 @@ export async function chooseKit(
         applyKit(readStoredInputs(row.build), chosen),
       ),
       parts,
+      // What the kit ranks against stays the inputs from before the first choice (kitForBuild).
+      kitBasis: row.build.kitBasis ?? {
+        inputs: row.build.inputs,
+        inputsSchemaVersion: row.build.inputsSchemaVersion,
+      },
       note: `Parts chosen: ${parts.map((p) => p.sku).join(", ")}`,
     }),
   );

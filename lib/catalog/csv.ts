@@ -124,6 +124,8 @@ export function catalogCsv(
     | "costMinor"
     | "stock"
     | "reorderLevel"
+    | "leadTimeDays"
+    | "restockOn"
     | "specs"
   >[],
 ): string {

@@ -10,6 +10,7 @@ import {
 } from "@/lib/calc";
 import { type KitRole } from "@/lib/domain/builds";
 import { type PartCategory } from "@/lib/domain/parts";
+import { formatCalendarDate } from "@/lib/format/dates";
 
 /** A catalog part as the recommender needs it. */
 export interface CatalogPart {
@@ -20,7 +21,13 @@ export interface CatalogPart {
   category: PartCategory;
   priceMinor: number;
   stock: number;
+  /**
+   * Held by accepted quotes — for a build's kit, less what this build's own quotes hold, so the
+   * ranking does not move when the chosen parts are quoted and accepted.
+   */
   reserved: number;
+  /** When units not on the shelf are expected ("YYYY-MM-DD"); null or absent: not known. */
+  expectedOn?: string | null;
   specs: Record<string, unknown>;
 }
 
@@ -35,7 +42,12 @@ export interface Candidate {
   why: Reason[];
   /** The figure the part was judged on (duty %, margin %, drop kPa). */
   figure: number | null;
+  /** Free units against the units the candidate needs, and when the missing ones are expected. */
+  stock: { free: number; needed: number; expectedOn: string | null };
 }
+
+/** A candidate before its stock facts are attached. */
+type Draft = Omit<Candidate, "stock">;
 
 export interface Recommendation {
   roles: { role: KitRole; label: string; needed: boolean; candidates: Candidate[] }[];
@@ -64,6 +76,34 @@ const stockNote = (p: CatalogPart, qty: number): Reason =>
 /** Price and stock break ties between parts that fit equally well. */
 const tieBreak = (p: CatalogPart, qty: number) =>
   (p.priceMinor * qty) / 1e7 + (available(p) >= qty ? 0 : 0.5);
+
+/**
+ * The verdict a candidate shows, saying plainly when a part that fits is not (all) on the shelf:
+ * "Best fit", "Best fit — out of stock, expected by 12 Mar 2026", "Fits — only 2 of 6 in stock,
+ * the rest expected by …", "Does not fit". `best`: the first candidate that fits.
+ */
+export function fitLabel(c: Candidate, best: boolean): string {
+  if (!c.fits) return "Does not fit";
+  const { free, needed, expectedOn } = c.stock;
+  const date = expectedOn ? formatCalendarDate(expectedOn) : null;
+  const head = best ? "Best fit" : "Fits";
+  if (free >= needed) return head;
+  if (free === 0)
+    return `${head} — out of stock, ${date ? `expected by ${date}` : "no restock date yet"}`;
+  return `${head} — only ${free} of ${needed} in stock, the rest ${date ? `expected by ${date}` : "with no restock date yet"}`;
+}
+
+/**
+ * Labels for a role's candidates in their (ranked) order: `fitLabel`, and when the best fit is
+ * short of stock, the first fitting part that is in stock reads "Best in stock".
+ */
+export function fitLabels(candidates: Candidate[]): string[] {
+  const short = (c: Candidate) => c.stock.free < c.stock.needed;
+  const best = candidates.findIndex((c) => c.fits);
+  const inStock =
+    best >= 0 && short(candidates[best]!) ? candidates.findIndex((c) => c.fits && !short(c)) : -1;
+  return candidates.map((c, i) => (i === inStock ? "Best in stock" : fitLabel(c, i === best)));
+}
 
 /** Gasoline blends above E15 need parts rated for ethanol (common practice, no source). */
 const needsEthanolRating = (input: ParsedFuelSystemInput) => input.fuel.ethanolMaxVolPct > 15;
@@ -111,7 +151,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
 
   // Injectors: enough flow at the build's ΔP for the design duty at the richest blend, and a
   // pulse width at idle not below the injector's minimum.
-  const injectors: Candidate[] = of("injector").map((p) => {
+  const injectors: Draft[] = of("injector").map((p) => {
     const r = sizeParsedFuelSystem(withInjector(input, p));
     const why: Reason[] = [];
     let fits = true;
@@ -177,7 +217,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   });
 
   // Pumps: one, or two of the same when one lacks margin at rail + boost and the build's voltage.
-  const pumps: Candidate[] = [];
+  const pumps: Draft[] = [];
   for (const p of of("pump")) {
     const eth = ethanolWhy(p);
     let singleFits = false;
@@ -221,7 +261,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   }
 
   // Regulator: the build's kind, with the base pressure inside its range.
-  const regulators: Candidate[] = of("regulator").map((p) => {
+  const regulators: Draft[] = of("regulator").map((p) => {
     const s = p.specs as { type: string; minPressureKpa: number; maxPressureKpa: number };
     const why: Reason[] = [];
     let fits = true;
@@ -256,7 +296,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   // Lines: the feed's drop at full demand and the return's at idle flow under the shop's limit.
   const lineLength = (side: "feed" | "return") =>
     input.lines?.[side]?.lengthM ?? base.lines.assumedLengthM ?? 5;
-  const lineCandidates = (side: "feed" | "return"): Candidate[] =>
+  const lineCandidates = (side: "feed" | "return"): Draft[] =>
     of("line").map((p) => {
       const s = p.specs as { dash: number; insideDiameterMm: number };
       const current = input.lines?.[side];
@@ -308,7 +348,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
       .map((c) => (c.part.specs as { dash: number }).dash),
     Infinity,
   );
-  const filters: Candidate[] = of("filter").map((p) => {
+  const filters: Draft[] = of("filter").map((p) => {
     const s = p.specs as { micron: number; dropKpa: number; dash?: number };
     const why = [
       R(`${s.micron} µm, {drop} drop`, { drop: { value: s.dropKpa, quantity: "pressureDrop" } }),
@@ -347,7 +387,7 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   });
 
   const varies = input.fuel.ethanolMinVolPct !== input.fuel.ethanolMaxVolPct;
-  const sensors: Candidate[] = of("sensor").map((p) => ({
+  const sensors: Draft[] = of("sensor").map((p) => ({
     role: "sensor",
     part: p,
     quantity: 1,
@@ -365,7 +405,18 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     figure: null,
   }));
 
-  const sorted = (xs: Candidate[]) => xs.sort((a, b) => a.score - b.score);
+  const sorted = (xs: Omit<Candidate, "stock">[]): Candidate[] =>
+    xs
+      .map((c) => ({
+        ...c,
+        stock: {
+          free: Math.max(0, available(c.part)),
+          needed: c.quantity,
+          expectedOn: available(c.part) >= c.quantity ? null : (c.part.expectedOn ?? null),
+        },
+      }))
+      // Ties (equal scores) keep a fixed order, whatever order the catalog came in.
+      .sort((a, b) => a.score - b.score || a.part.sku.localeCompare(b.part.sku));
   return {
     roles: [
       { role: "injector", label: "Injectors", needed: true, candidates: sorted(injectors) },

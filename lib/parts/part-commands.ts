@@ -91,6 +91,8 @@ const FIELD_OF_COLUMN = {
   cost: "costMinor",
   stock: "stock",
   reorder_level: "reorderLevel",
+  lead_time_days: "leadTimeDays",
+  restock_on: "restockOn",
 } as const satisfies Record<string, keyof PartColumns>;
 
 /**
@@ -141,6 +143,8 @@ export async function importCatalog(
           costMinor: was.costMinor,
           stock: was.stock,
           reorderLevel: was.reorderLevel,
+          leadTimeDays: was.leadTimeDays,
+          restockOn: was.restockOn,
           specs: was.specs as Record<string, unknown>,
         };
         for (const f of fileFields) Object.assign(merged, { [f]: row[f] });

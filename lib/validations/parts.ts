@@ -6,7 +6,7 @@ import { minorToPlain, parseMoney } from "@/lib/catalog/money";
 import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
-import { editVersion, INT4_MAX } from "./column-bounds";
+import { calendarDate, editVersion, INT4_MAX } from "./column-bounds";
 import { searchText } from "./search";
 
 /** The specification each category carries (canonical units, as lib/calc uses them). */
@@ -67,6 +67,8 @@ export const CSV_COLUMNS = [
   "cost",
   "stock",
   "reorder_level",
+  "lead_time_days",
+  "restock_on",
   "flow_cc_min",
   "rated_kpa",
   "min_pulse_ms",
@@ -331,6 +333,9 @@ export function checkSpecs(
   };
 }
 
+/** The longest lead time a part may state: ten years of days. */
+export const LEAD_TIME_MAX_DAYS = 3650;
+
 const requiredText = (label: string, max: number) =>
   z
     .string({ error: `${label} is required` })
@@ -360,6 +365,36 @@ export const PartFieldsSchema = z.object({
           message: "Reorder level must be a whole number of 0 or more",
         });
       return Number(v);
+    }),
+  lead_time_days: z
+    .string()
+    .optional()
+    .transform((v, ctx): number | null => {
+      if (blank(v)) return null;
+      const t = v!.trim();
+      if (!/^\d{1,4}$/.test(t) || Number(t) > LEAD_TIME_MAX_DAYS) {
+        ctx.addIssue({
+          code: "custom",
+          message: `Lead time must be a whole number of days, 0 to ${LEAD_TIME_MAX_DAYS}`,
+        });
+        return null;
+      }
+      return Number(t);
+    }),
+  restock_on: z
+    .string()
+    .optional()
+    .transform((v, ctx): string | null => {
+      if (blank(v)) return null;
+      const r = calendarDate().safeParse(v!.trim());
+      if (!r.success) {
+        ctx.addIssue({
+          code: "custom",
+          message: `Expected restock: ${r.error.issues[0]?.message ?? "give a date as YYYY-MM-DD"}`,
+        });
+        return null;
+      }
+      return r.data;
     }),
   ...(Object.fromEntries(
     SPEC_COLUMN_NAMES.map((c) => {
@@ -391,6 +426,8 @@ export const FlatPartSchema = PartFieldsSchema.transform((row, ctx) => {
     costMinor: row.cost,
     stock: row.stock,
     reorderLevel: row.reorder_level,
+    leadTimeDays: row.lead_time_days,
+    restockOn: row.restock_on,
     specs: specs.specs,
   };
 });
@@ -414,6 +451,8 @@ export const PartUpdateSchema = PartFieldsSchema.partial()
       costMinor: row.cost,
       stock: row.stock,
       reorderLevel: row.reorder_level,
+      leadTimeDays: row.lead_time_days,
+      restockOn: row.restock_on,
     };
     for (const k of Object.keys(fields) as (keyof typeof fields)[])
       if (fields[k] === undefined) delete fields[k];
@@ -466,6 +505,8 @@ export function flatOf(
     | "costMinor"
     | "stock"
     | "reorderLevel"
+    | "leadTimeDays"
+    | "restockOn"
     | "specs"
   >,
 ): FlatPart {
@@ -481,6 +522,8 @@ export function flatOf(
     cost: minorToPlain(p.costMinor),
     stock: String(p.stock),
     reorder_level: String(p.reorderLevel),
+    lead_time_days: p.leadTimeDays === null ? "" : String(p.leadTimeDays),
+    restock_on: p.restockOn ?? "",
     flow_cc_min: str(s.ratedFlowCcPerMin),
     rated_kpa: str(s.ratedPressureKpa),
     min_pulse_ms: str(s.minPulseWidthMs),

@@ -225,12 +225,16 @@ describe("load → save unchanged → the stored row is byte for byte the same",
         (category = 'injector' and specs ? 'deadTime') or (category = 'pump' and specs ? 'curves'))
       order by category, sku`;
     const ids = [injector!.id as string, pump!.id as string];
+    // An expected restock day and a lead time are fields of the form too.
+    await sql`update parts set restock_on = '2031-03-01', lead_time_days = 12 where id = ${ids[1]!}`;
     const updRef = ref("lib/parts/part-actions.ts", "updatePartAction", "/parts/new");
     for (const id of ids) {
       const before = await rowText("parts", id);
       const p = (await request(counter, "GET", `/api/v1/parts/${id}`)).json.part;
       const form = { ...flatOf(p), category: p.category, id, version: p.version };
       expect(form.dead_time_ms || form.pump_curve, "the form carries the table").toBeTruthy();
+      if (id === ids[1])
+        expect([form.lead_time_days, form.restock_on]).toEqual(["12", "2031-03-01"]);
       expect(await act(counter, updRef, form)).toMatchObject({ ok: true });
       expect(await rowText("parts", id)).toBe(before);
       const { id: _id, ...body } = form;
@@ -449,10 +453,10 @@ describe("CSV: the catalog export → import → export is identical; downloads 
         ],
       },
     ];
-    await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, cost_minor, stock, reorder_level, specs) values
-      (${shop}, 'X-INJ', 'injector', '@Brand', '=HYPERLINK("http://evil.example","Click")', 12345, 6000, 4, 1,
+    await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, cost_minor, stock, reorder_level, lead_time_days, restock_on, specs) values
+      (${shop}, 'X-INJ', 'injector', '@Brand', '=HYPERLINK("http://evil.example","Click")', 12345, 6000, 4, 1, null, null,
         ${sql.json({ ratedFlowCcPerMin: 1200, ratedPressureKpa: 300, impedance: "high", connector: "-EV14", ethanolOk: true, deadTime })}),
-      (${shop}, 'X-PMP', 'pump', 'Plain', '+1 pump', 20000, 0, 2, 0,
+      (${shop}, 'X-PMP', 'pump', 'Plain', '+1 pump', 20000, 0, 2, 0, 21, '2031-02-28',
         ${sql.json({ curves, currentA: 12.5, mounting: "inline", ethanolOk: false })})`;
     const first = await exportCsv(other);
     expect(first).toContain(`'=HYPERLINK(""http://evil.example"",""Click"")`);
@@ -461,6 +465,9 @@ describe("CSV: the catalog export → import → export is identical; downloads 
     expect(first).toContain("'+1 pump");
     expect(first).toContain("11V 250:1.25 400:1.375 | 13.5V 250:0.8 400:0.91");
     expect(first).toContain("13.5V 300:255.5 600:180");
+    // Lead time and expected restock travel with the part (blank: not known).
+    expect(first).toMatch(/\nX-PMP,pump,Plain,'\+1 pump,200\.00,0\.00,2,0,21,2031-02-28,/);
+    expect(first).toMatch(/\nX-INJ,injector,'@Brand,.*,123\.45,60\.00,4,1,,,/);
     const rows = () =>
       sql`select p::text as t from parts p where shop_id = ${shop} order by sku`.then((r) =>
         r.map((x) => x.t as string),

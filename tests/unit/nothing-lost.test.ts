@@ -23,7 +23,14 @@ const deadTime = {
     [0.78, 0.85, 0.9],
   ],
 };
-const base = { priceMinor: 10950, costMinor: 6790, stock: 12, reorderLevel: 3 };
+const base = {
+  priceMinor: 10950,
+  costMinor: 6790,
+  stock: 12,
+  reorderLevel: 3,
+  leadTimeDays: null as number | null,
+  restockOn: null as string | null,
+};
 const PARTS = [
   {
     ...base,
@@ -43,6 +50,8 @@ const PARTS = [
   },
   {
     ...base,
+    leadTimeDays: 21,
+    restockOn: "2026-09-15",
     sku: "RT-PMP",
     category: "pump" as const,
     brand: "@Testbrand",
@@ -72,6 +81,7 @@ const PARTS = [
   },
   {
     ...base,
+    leadTimeDays: 0,
     sku: "RT-LINE",
     category: "line" as const,
     brand: "+Plus",
@@ -188,6 +198,11 @@ describe("catalog CSV carries every field of a part", () => {
     const back = importedParts(first);
     expect(back.map((p) => p.specs)).toEqual(PARTS.map((p) => p.specs));
     expect(back.map((p) => p.name)).toEqual(PARTS.map((p) => p.name));
+    // Lead time and expected restock: a number, 0 and "not known" (blank) all come back as they were.
+    expect(back.map((p) => [p.leadTimeDays, p.restockOn])).toEqual(
+      PARTS.map((p) => [p.leadTimeDays, p.restockOn]),
+    );
+    expect(first.split("\r\n")[0]).toMatch(/,reorder_level,lead_time_days,restock_on,/);
     expect(catalogCsv(back)).toBe(first);
   });
 

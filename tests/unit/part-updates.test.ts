@@ -30,6 +30,8 @@ const injector = {
   costMinor: 6758,
   stock: 24,
   reorderLevel: 8,
+  leadTimeDays: 14 as number | null,
+  restockOn: "2026-10-01" as string | null,
   specs: {
     ratedFlowCcPerMin: 1000,
     ratedPressureKpa: 300,
@@ -49,6 +51,8 @@ const pump = {
   costMinor: 11718,
   stock: 7,
   reorderLevel: 2,
+  leadTimeDays: null as number | null,
+  restockOn: null as string | null,
   specs: {
     curves: [
       {
@@ -91,6 +95,8 @@ describe("part updates are partial by construction", () => {
         costMinor: p.costMinor,
         stock: p.stock,
         reorderLevel: p.reorderLevel,
+        leadTimeDays: p.leadTimeDays,
+        restockOn: p.restockOn,
       });
       const merged = mergeSpecs(p.category, p.specs, u.specs);
       expect(merged).toEqual(p.specs);

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { QuoteEditor } from "@/components/quotes/quote-editor";
+import { StockPromise } from "@/components/quotes/stock-promise";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listParts } from "@/db/queries/parts";
@@ -13,6 +14,7 @@ import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
+import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
 export const metadata: Metadata = { title: "Quote" };
 
@@ -39,9 +41,11 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
     : [];
   const qt = q.quote;
   const today = isoDay();
-  const [payments, latest] = await Promise.all([
+  const shown = quoteStatusOn(qt, today);
+  const [payments, latest, stock] = await Promise.all([
     listPayments(m.shopId, qt.id),
     qt.status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
+    STOCK_SHOWN.includes(shown) ? quoteStock(m.shopId, qt.status, q.lines) : null,
   ]);
   return (
     <>
@@ -120,6 +124,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         canWrite={canWrite}
         customerEmail={q.customerEmail}
       />
+      {stock ? <StockPromise lines={q.lines} {...stock} audience="counter" /> : null}
       <section
         aria-labelledby="q-pay"
         className="mt-6 rounded-lg border border-ink-200 bg-white p-5"

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
+import { StockPromise } from "@/components/quotes/stock-promise";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { listPayments } from "@/db/queries/payments";
@@ -15,6 +16,7 @@ import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
+import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
 export const metadata: Metadata = { title: "My quote" };
 
@@ -45,10 +47,11 @@ export default async function MyQuotePage({
   const status = quoteStatusOn(qt, isoDay());
   const money = (v: number) => formatMoney(v, qt.currency);
   const t = quoteTotals(q.lines, qt.taxRateBp);
-  const [settings, paid, latest] = await Promise.all([
+  const [settings, paid, latest, stock] = await Promise.all([
     getShopSettings(m.shopId),
     listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid")),
     status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
+    STOCK_SHOWN.includes(status) ? quoteStock(m.shopId, qt.status, q.lines) : null,
   ]);
   // A replaced revision points only to a newer one the shop has sent (never to a draft).
   const newer =
@@ -147,6 +150,7 @@ export default async function MyQuotePage({
         </tfoot>
       </table>
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
+      {stock ? <StockPromise lines={q.lines} {...stock} audience="customer" /> : null}
       {status === "accepted" && deposit > 0 ? (
         <DepositButton id={qt.id} amount={money(deposit)} />
       ) : null}
@@ -157,7 +161,7 @@ export default async function MyQuotePage({
         </p>
       ))}
       {status === "sent" ? (
-        <QuoteDecision id={qt.id} />
+        <QuoteDecision id={qt.id} holds={stock?.summary ?? null} />
       ) : status === qt.status && qt.statusChangedAt ? (
         <p className="mt-4 text-sm text-ink-700" data-testid="decision">
           {QUOTE_STATUS_LABELS[qt.status]} on <LocalTime value={qt.statusChangedAt} />.

@@ -33,7 +33,8 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
       <p className="mb-4 text-sm text-ink-700">
         Each part is sized with this build&apos;s inputs: injectors at the worse end of the blend,
         pumps at rail plus boost and the build&apos;s voltage, lines against the shop&apos;s drop
-        limit.
+        limit. Parts rank by fit, not by stock: one that is not all on the shelf says so, with the
+        day it is expected, and the ranking stays the same after you use the parts.
       </p>
       <KitPicker
         buildId={id}

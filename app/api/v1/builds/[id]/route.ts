@@ -2,6 +2,7 @@ import { getBuild } from "@/db/queries/builds";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { saveBuild } from "@/lib/builds/build-commands";
+import { buildData } from "@/lib/builds/build-data";
 import { NotFound } from "@/lib/domain/errors";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
@@ -19,7 +20,7 @@ export const GET = handle<Ctx>(async (_req, ctx) => {
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
   if (!row) throw new NotFound("That build");
-  return Response.json({ build: row.build, customerName: row.customerName });
+  return Response.json({ build: buildData(row.build), customerName: row.customerName });
 });
 
 /**

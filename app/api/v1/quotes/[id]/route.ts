@@ -2,12 +2,19 @@ import { getQuote } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { NotFound } from "@/lib/domain/errors";
+import { isoDay, quoteStatusOn } from "@/lib/domain/quotes";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { editQuote } from "@/lib/quotes/quote-commands";
+import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 import { QuoteEditSchema } from "@/lib/validations/quotes";
 
+/**
+ * GET — the quote with its lines and messages, and `stock`: per line what accepting it now would
+ * hold and what is back-ordered until when (a quote that holds stock: what it holds); null for a
+ * quote past offering (declined, expired, replaced).
+ */
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
   const q = await getQuote(
@@ -16,7 +23,10 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
   if (!q) throw new NotFound("That quote");
-  return Response.json(q);
+  const stock = STOCK_SHOWN.includes(quoteStatusOn(q.quote, isoDay()))
+    ? await quoteStock(m.shopId, q.quote.status, q.lines)
+    : null;
+  return Response.json({ ...q, stock });
 });
 
 /**
