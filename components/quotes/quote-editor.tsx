@@ -14,7 +14,6 @@ import {
   parseMoney,
   parseScaled,
 } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   pastValidity,
   QUOTE_STATUS_LABELS,
@@ -28,6 +27,7 @@ import {
   reviseQuoteAction,
   sendQuoteAction,
 } from "@/lib/quotes/quote-actions";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 export interface EditorLine {
   kind: "part" | "labour" | "fee";
@@ -151,17 +151,21 @@ function QuoteEditorForm({
   }));
   const allGood =
     bad.every((b) => !b.qty && !b.price && !b.discount) && rows.every((r) => r.description.trim());
-  const totals = useMemo(
+  // The same presentation as the PDF, the portal and the e-mail (a line being typed counts as 0).
+  const shown = useMemo(
     () =>
-      quoteTotals(
-        parsed.map((p) => ({
+      presentQuote(
+        { currency: props.currency, taxRateBp: props.taxRateBp },
+        parsed.map((p, i) => ({
+          kind: rows[i]!.kind,
+          sku: rows[i]!.sku,
+          description: rows[i]!.description,
           quantityMilli: p.quantityMilli ?? 0,
           unitPriceMinor: p.unitPriceMinor ?? 0,
-          discountBp: p.discountBp ?? 0,
+          discountBp: Math.min(p.discountBp ?? 0, 10000),
         })),
-        props.taxRateBp,
       ),
-    [parsed, props.taxRateBp],
+    [parsed, rows, props.currency, props.taxRateBp],
   );
   const revises = props.status === "sent";
   const label = (revision: number) => quoteLabel(props.number, revision);
@@ -262,7 +266,7 @@ function QuoteEditorForm({
                 Discount %
               </th>
               <th scope="col" className="w-32 px-3 py-2 text-right">
-                Amount
+                Line total
               </th>
               {editable ? (
                 <th scope="col" className="px-3 py-2">
@@ -322,24 +326,33 @@ function QuoteEditorForm({
                       onChange={(e) => setRow(i, { price: e.target.value })}
                     />
                   ) : (
-                    money(parsed[i]!.unitPriceMinor ?? 0)
+                    <span className="figure">{shown.lines[i]!.unitPrice}</span>
                   )}
                 </td>
                 <td className="px-3 py-2 text-right">
                   {editable ? (
-                    <input
-                      aria-label={`Line ${i + 1} discount`}
-                      aria-invalid={bad[i]!.discount}
-                      inputMode="decimal"
-                      className={cell}
-                      value={r.discount}
-                      onChange={(e) => setRow(i, { discount: e.target.value })}
-                    />
+                    <>
+                      <input
+                        aria-label={`Line ${i + 1} discount`}
+                        aria-invalid={bad[i]!.discount}
+                        inputMode="decimal"
+                        className={cell}
+                        value={r.discount}
+                        onChange={(e) => setRow(i, { discount: e.target.value })}
+                      />
+                      {shown.lines[i]!.discountAmount ? (
+                        <span className="figure block text-xs text-ink-600">
+                          {shown.lines[i]!.discountAmount}
+                        </span>
+                      ) : null}
+                    </>
                   ) : (
-                    r.discount
+                    <span className="figure">{shown.lines[i]!.discount}</span>
                   )}
                 </td>
-                <td className="figure px-3 py-2 text-right">{money(totals.lines[i]!.netMinor)}</td>
+                <td className="figure px-3 py-2 text-right" data-testid="line-total">
+                  {shown.lines[i]!.lineTotal}
+                </td>
                 {editable ? (
                   <td className="px-3 py-2">
                     <Button
@@ -360,28 +373,29 @@ function QuoteEditorForm({
               <td colSpan={4} className="px-3 py-1">
                 Subtotal
               </td>
-              <td className="figure px-3 py-1">{money(totals.subtotalMinor)}</td>
+              <td className="figure px-3 py-1" data-testid="quote-subtotal">
+                {shown.subtotal}
+              </td>
             </tr>
-            {totals.discountMinor ? (
+            {shown.discountNote ? (
               <tr>
-                <td colSpan={4} className="px-3 py-1">
-                  Discounts
+                <td colSpan={5} className="px-3 py-1 text-xs text-ink-600">
+                  {shown.discountNote}
                 </td>
-                <td className="figure px-3 py-1">−{money(totals.discountMinor)}</td>
               </tr>
             ) : null}
             <tr>
               <td colSpan={4} className="px-3 py-1">
-                Tax {formatScaled(props.taxRateBp, 2)} %
+                {shown.taxLabel}
               </td>
-              <td className="figure px-3 py-1">{money(totals.taxMinor)}</td>
+              <td className="figure px-3 py-1">{shown.tax}</td>
             </tr>
             <tr className="font-semibold">
               <td colSpan={4} className="px-3 py-1">
                 Total
               </td>
               <td className="figure px-3 py-1" data-testid="quote-total">
-                {money(totals.totalMinor)}
+                {shown.total}
               </td>
             </tr>
           </tfoot>

@@ -38,12 +38,17 @@ import {
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
-import { calendarDay } from "@/lib/format/dates";
 import { sendMail } from "@/lib/mail";
+import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
+import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
+import { cachedPdf } from "@/lib/pdf/render-cache";
+import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
+import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 
 import { quoteEmail } from "./quote-email";
 import { linesFromBuild } from "./quote-lines";
+import { presentQuote } from "./quote-presentation";
 
 type QuoteFields = Omit<QuoteEdit, "id" | "version">;
 
@@ -172,6 +177,42 @@ export async function editQuote(member: Member, input: QuoteEdit): Promise<Quote
 }
 
 /**
+ * The files a sent quote carries: its PDF as the customer will read it (sent, with the deposit
+ * asked) and, where the quote is for a build, the build's spec sheet (its latest revision, in
+ * the customer's units where they set them). Rendered through the same cache as the downloads.
+ */
+async function quoteAttachments(
+  shopId: string,
+  quote: QuoteRow,
+  customerUserId: string | null,
+): Promise<{ filename: string; content: Buffer; contentType: string }[]> {
+  const sheet = await quoteSheetData(shopId, quote.id, undefined, { asSent: true });
+  const files = [
+    {
+      filename: quotePdfName(sheet.quote.label),
+      content: await cachedPdf("quote-sheet", sheet, renderQuoteSheet),
+      contentType: "application/pdf",
+    },
+  ];
+  const build = quote.buildId
+    ? await specSheetData(shopId, quote.buildId, { viewerId: customerUserId ?? undefined }).catch(
+        (e: unknown) => {
+          // A build deleted since the quote was made has no sheet to send; the quote still goes.
+          if (e instanceof NotFound) return null;
+          throw e;
+        },
+      )
+    : null;
+  if (build)
+    files.push({
+      filename: pdfFileName(build.build.title, build.build.version),
+      content: await cachedPdf("spec-sheet", build, renderSpecSheet),
+      contentType: "application/pdf",
+    });
+  return files;
+}
+
+/**
  * E-mails a draft or sent quote to its customer (with a portal invitation when they have no
  * sign-in yet), then — only once the mail server took it — logs the message, records the
  * invitation and moves a draft to sent. A failed send writes nothing; a quote past its
@@ -211,19 +252,21 @@ export async function sendQuote(
   const invitationId = q.customerUserId
     ? null
     : (open?.id ?? randomBytes(24).toString("base64url"));
+  const attachments = await quoteAttachments(shopId, q.quote, q.customerUserId);
   const { subject, text } = quoteEmail({
     shopName: member.shopName,
     customerName: q.customerName,
     buildTitle: q.buildTitle,
     quote: q.quote,
-    lines: q.lines,
+    presented: presentQuote(q.quote, q.lines),
     link: `${appUrl}/my/quotes/${q.quote.id}`,
     invite: invitationId ? `${appUrl}/accept-invitation/${invitationId}` : null,
+    attachments: attachments.map((a) => a.filename),
   });
 
   let messageId: string | null;
   try {
-    ({ messageId } = await sendMail({ to, subject, text }));
+    ({ messageId } = await sendMail({ to, subject, text, attachments }));
   } catch (e) {
     const why =
       (e as { code?: string }).code === "ECONNREFUSED"

@@ -56,7 +56,7 @@ export const QuoteFieldsSchema = z.object({
     .array(QuoteLineSchema)
     .max(200, "At most 200 lines")
     .superRefine((lines, ctx) => {
-      const subtotal = quoteTotals(lines, 0).subtotalMinor;
+      const subtotal = quoteTotals(lines, 0).grossMinor;
       if (subtotal > QUOTE_SUBTOTAL_MAX_MINOR)
         ctx.addIssue({
           code: "custom",
