@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
-import { SelectField } from "@/components/ui/field";
+import { SearchCombobox } from "@/components/ui/search-combobox";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import {
@@ -27,6 +27,7 @@ import {
   reviseQuoteAction,
   sendQuoteAction,
 } from "@/lib/quotes/quote-actions";
+import { LABOUR_DESCRIPTION } from "@/lib/quotes/quote-lines";
 import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 export interface EditorLine {
@@ -47,13 +48,19 @@ interface Row {
   price: string;
   discount: string;
 }
-interface CatalogOption {
+/** What the part search answers (GET /api/v1/parts), as far as a line needs it. */
+interface CatalogPart {
   id: string;
   sku: string;
-  label: string;
+  brand: string;
+  name: string;
   priceMinor: number;
-  free: number;
+  stock: number;
+  reserved: number;
 }
+
+const freeText = (free: number) =>
+  free > 0 ? `${free} free` : free < 0 ? `${-free} short` : "none free";
 
 const toRow = (l: EditorLine): Row => ({
   kind: l.kind,
@@ -92,7 +99,8 @@ type EditorProps = {
   validUntil: string;
   notes: string;
   lines: EditorLine[];
-  catalog: CatalogOption[];
+  /** The shop's labour rate (minor units an hour): what "Add labour" charges. */
+  labourRateMinor: number;
   canWrite: boolean;
   customerEmail: string | null;
 };
@@ -131,7 +139,6 @@ function QuoteEditorForm({
   const [rows, setRows] = useState<Row[]>(props.lines.map(toRow));
   const [validUntil, setValidUntil] = useState(props.validUntil);
   const [notes, setNotes] = useState(props.notes);
-  const [addPart, setAddPart] = useState("");
   const [pending, start] = useTransition();
   const [busy, setBusy] = useState("");
 
@@ -219,6 +226,32 @@ function QuoteEditorForm({
       if (res.ok && then) then(res.data as T);
     });
 
+  // Labour is one line at the shop's rate: when the quote has it (a kit's quote does), the
+  // button takes the counter to its hours instead of adding it again.
+  const labourAt = rows.findIndex((r) => r.kind === "labour");
+  const addLabour = () => {
+    if (labourAt >= 0) {
+      document.getElementById(`q-line-${labourAt}-qty`)?.focus();
+      setStatus({
+        ok: true,
+        message: `Labour is already on line ${labourAt + 1}; change its hours there`,
+      });
+      return;
+    }
+    setRows((rs) => [
+      ...rs,
+      {
+        kind: "labour",
+        partId: null,
+        sku: null,
+        description: LABOUR_DESCRIPTION,
+        qty: "1",
+        price: minorToPlain(props.labourRateMinor),
+        discount: "0",
+      },
+    ]);
+  };
+
   const dirty =
     JSON.stringify(rows) !== JSON.stringify(props.lines.map(toRow)) ||
     validUntil !== props.validUntil ||
@@ -304,6 +337,7 @@ function QuoteEditorForm({
                 <td className="px-3 py-2 text-right">
                   {editable ? (
                     <input
+                      id={`q-line-${i}-qty`}
                       aria-label={`Line ${i + 1} quantity`}
                       aria-invalid={bad[i]!.qty}
                       inputMode="decimal"
@@ -409,62 +443,36 @@ function QuoteEditorForm({
       ) : null}
       {editable ? (
         <div className="flex flex-wrap items-end gap-3">
-          <SelectField
+          <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
             label="Add a part"
-            id="q-add-part"
-            value={addPart}
-            onChange={(e) => setAddPart(e.target.value)}
-          >
-            <option value="">Choose from the catalog…</option>
-            {props.catalog.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.sku} — {p.label} ({p.free} free)
-              </option>
-            ))}
-          </SelectField>
-          <Button
-            type="button"
-            variant="secondary"
-            disabled={!addPart}
-            onClick={() => {
-              const p = props.catalog.find((x) => x.id === addPart);
-              if (p)
-                setRows((rs) => [
-                  ...rs,
-                  {
-                    kind: "part",
-                    partId: p.id,
-                    sku: p.sku,
-                    description: p.label,
-                    qty: "1",
-                    price: minorToPlain(p.priceMinor),
-                    discount: "0",
-                  },
-                ]);
-              setAddPart("");
-            }}
-          >
-            Add part
-          </Button>
-          <Button
-            type="button"
-            variant="secondary"
-            onClick={() =>
+            placeholder="Type a SKU, name or brand"
+            url={(q) => `/api/v1/parts?${new URLSearchParams({ q, sort: "name", limit: "8" })}`}
+            options={(r) =>
+              r.parts.map((p) => ({
+                id: p.id,
+                label: `${p.sku} — ${p.brand} ${p.name}`,
+                detail: `${money(p.priceMinor)} · ${freeText(p.stock - p.reserved)}`,
+                value: p,
+              }))
+            }
+            empty="No part matches; try another SKU, name or brand"
+            onPick={(p) =>
               setRows((rs) => [
                 ...rs,
                 {
-                  kind: "labour",
-                  partId: null,
-                  sku: null,
-                  description: "Labour",
+                  kind: "part",
+                  partId: p.id,
+                  sku: p.sku,
+                  description: `${p.brand} ${p.name}`,
                   qty: "1",
-                  price: "120.00",
+                  price: minorToPlain(p.priceMinor),
                   discount: "0",
                 },
               ])
             }
-          >
-            Add labour
+          />
+          <Button type="button" variant="secondary" onClick={addLabour}>
+            {labourAt >= 0 ? "Labour hours" : "Add labour"}
           </Button>
           <Button
             type="button"

@@ -1,6 +1,6 @@
+import { formatValue } from "@/lib/calc/quantities";
 import { formatMoney, formatScaled } from "@/lib/catalog/money";
 import { quoteTotals, type TotalsLine } from "@/lib/catalog/quote-totals";
-import { formatValue } from "@/lib/calc/quantities";
 
 /**
  * How a quote reads, wherever it is read: the shop's quote page, the quote PDF, the customer's
