@@ -34,6 +34,7 @@ import {
   QuoteCreateSchema,
   QuoteEditSchema,
   QuoteIdSchema,
+  QuoteListQuery,
   QuoteResponseSchema,
   QuoteStatusSchema,
 } from "@/lib/validations/quotes";
