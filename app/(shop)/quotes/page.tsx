@@ -86,7 +86,7 @@ export default async function QuotesPage({
             <tbody>
               {quotes.map((q) => (
                 <tr key={q.id} className="border-t border-ink-100">
-                  <td className="figure px-4 py-2">
+                  <td className="figure px-4 py-2 whitespace-nowrap">
                     <Link href={`/quotes/${q.id}`} className="text-copper-700 underline">
                       {quoteLabel(q.number, q.revision)}
                     </Link>
@@ -105,8 +105,8 @@ export default async function QuotesPage({
                     )}
                   </td>
                   <td className="px-4 py-2">{QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}</td>
-                  <td className="figure px-4 py-2">{q.validUntil}</td>
-                  <td className="figure px-4 py-2 text-right">
+                  <td className="figure px-4 py-2 whitespace-nowrap">{q.validUntil}</td>
+                  <td className="figure px-4 py-2 text-right whitespace-nowrap">
                     {formatMoney(q.totalMinor, q.currency)}
                   </td>
                 </tr>
