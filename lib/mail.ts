@@ -10,6 +10,8 @@ export async function sendMail(msg: {
   subject: string;
   text: string;
   html?: string;
+  /** Files sent with the message (a quote PDF, a spec sheet). */
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
 }): Promise<{ messageId: string | null }> {
   const env = serverEnv();
   transport ??= nodemailer.createTransport(

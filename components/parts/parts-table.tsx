@@ -1,11 +1,11 @@
 "use client";
 
 import Link from "next/link";
-import { useState } from "react";
 import useSWR from "swr";
 
 import { SelectField } from "@/components/ui/field";
 import { EmptyState } from "@/components/ui/status";
+import { useUrlFilters } from "@/components/ui/url-filters";
 import type { Part } from "@/db/schema/catalog";
 import type { UnitSystem } from "@/lib/calc";
 import { specSummary } from "@/lib/catalog/labels";
@@ -26,9 +26,9 @@ export function PartsTable({
   /** The person's unit system: the parts' figures are shown in it. */
   units?: UnitSystem;
 }) {
-  const [q, setQ] = useState("");
-  const [category, setCategory] = useState("");
-  const [sort, setSort] = useState("name");
+  // Kept in the URL (?q=&category=&sort=): a filtered catalog reloads, bookmarks and shares.
+  const { values, set } = useUrlFilters({ q: "", category: "", sort: "name" });
+  const { q, category, sort } = values;
   const params = new URLSearchParams({
     sort,
     ...(q ? { q } : {}),
@@ -48,7 +48,7 @@ export function PartsTable({
           id="pq"
           type="search"
           value={q}
-          onChange={(e) => setQ(e.target.value)}
+          onChange={(e) => set("q", e.target.value, true)}
           placeholder="SKU, name or brand"
           className="rounded-md border border-ink-300 px-3 py-2"
         />
@@ -57,7 +57,7 @@ export function PartsTable({
           label="Category"
           id="pc"
           value={category}
-          onChange={(e) => setCategory(e.target.value)}
+          onChange={(e) => set("category", e.target.value)}
         >
           <option value="">All categories</option>
           {PART_CATEGORIES.map((c) => (
@@ -71,7 +71,7 @@ export function PartsTable({
           label="Sort"
           id="ps"
           value={sort}
-          onChange={(e) => setSort(e.target.value)}
+          onChange={(e) => set("sort", e.target.value)}
         >
           <option value="name">Name</option>
           <option value="sku">SKU</option>

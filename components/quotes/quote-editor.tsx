@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
-import { SelectField } from "@/components/ui/field";
+import { SearchCombobox } from "@/components/ui/search-combobox";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import {
@@ -14,7 +14,6 @@ import {
   parseMoney,
   parseScaled,
 } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   pastValidity,
   QUOTE_STATUS_LABELS,
@@ -28,6 +27,8 @@ import {
   reviseQuoteAction,
   sendQuoteAction,
 } from "@/lib/quotes/quote-actions";
+import { LABOUR_DESCRIPTION } from "@/lib/quotes/quote-lines";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 export interface EditorLine {
   kind: "part" | "labour" | "fee";
@@ -47,13 +48,19 @@ interface Row {
   price: string;
   discount: string;
 }
-interface CatalogOption {
+/** What the part search answers (GET /api/v1/parts), as far as a line needs it. */
+interface CatalogPart {
   id: string;
   sku: string;
-  label: string;
+  brand: string;
+  name: string;
   priceMinor: number;
-  free: number;
+  stock: number;
+  reserved: number;
 }
+
+const freeText = (free: number) =>
+  free > 0 ? `${free} free` : free < 0 ? `${-free} short` : "none free";
 
 const toRow = (l: EditorLine): Row => ({
   kind: l.kind,
@@ -92,7 +99,8 @@ type EditorProps = {
   validUntil: string;
   notes: string;
   lines: EditorLine[];
-  catalog: CatalogOption[];
+  /** The shop's labour rate (minor units an hour): what "Add labour" charges. */
+  labourRateMinor: number;
   canWrite: boolean;
   customerEmail: string | null;
 };
@@ -131,7 +139,6 @@ function QuoteEditorForm({
   const [rows, setRows] = useState<Row[]>(props.lines.map(toRow));
   const [validUntil, setValidUntil] = useState(props.validUntil);
   const [notes, setNotes] = useState(props.notes);
-  const [addPart, setAddPart] = useState("");
   const [pending, start] = useTransition();
   const [busy, setBusy] = useState("");
 
@@ -151,17 +158,21 @@ function QuoteEditorForm({
   }));
   const allGood =
     bad.every((b) => !b.qty && !b.price && !b.discount) && rows.every((r) => r.description.trim());
-  const totals = useMemo(
+  // The same presentation as the PDF, the portal and the e-mail (a line being typed counts as 0).
+  const shown = useMemo(
     () =>
-      quoteTotals(
-        parsed.map((p) => ({
+      presentQuote(
+        { currency: props.currency, taxRateBp: props.taxRateBp },
+        parsed.map((p, i) => ({
+          kind: rows[i]!.kind,
+          sku: rows[i]!.sku,
+          description: rows[i]!.description,
           quantityMilli: p.quantityMilli ?? 0,
           unitPriceMinor: p.unitPriceMinor ?? 0,
-          discountBp: p.discountBp ?? 0,
+          discountBp: Math.min(p.discountBp ?? 0, 10000),
         })),
-        props.taxRateBp,
       ),
-    [parsed, props.taxRateBp],
+    [parsed, rows, props.currency, props.taxRateBp],
   );
   const revises = props.status === "sent";
   const label = (revision: number) => quoteLabel(props.number, revision);
@@ -215,6 +226,32 @@ function QuoteEditorForm({
       if (res.ok && then) then(res.data as T);
     });
 
+  // Labour is one line at the shop's rate: when the quote has it (a kit's quote does), the
+  // button takes the counter to its hours instead of adding it again.
+  const labourAt = rows.findIndex((r) => r.kind === "labour");
+  const addLabour = () => {
+    if (labourAt >= 0) {
+      document.getElementById(`q-line-${labourAt}-qty`)?.focus();
+      setStatus({
+        ok: true,
+        message: `Labour is already on line ${labourAt + 1}; change its hours there`,
+      });
+      return;
+    }
+    setRows((rs) => [
+      ...rs,
+      {
+        kind: "labour",
+        partId: null,
+        sku: null,
+        description: LABOUR_DESCRIPTION,
+        qty: "1",
+        price: minorToPlain(props.labourRateMinor),
+        discount: "0",
+      },
+    ]);
+  };
+
   const dirty =
     JSON.stringify(rows) !== JSON.stringify(props.lines.map(toRow)) ||
     validUntil !== props.validUntil ||
@@ -262,7 +299,7 @@ function QuoteEditorForm({
                 Discount %
               </th>
               <th scope="col" className="w-32 px-3 py-2 text-right">
-                Amount
+                Line total
               </th>
               {editable ? (
                 <th scope="col" className="px-3 py-2">
@@ -300,6 +337,7 @@ function QuoteEditorForm({
                 <td className="px-3 py-2 text-right">
                   {editable ? (
                     <input
+                      id={`q-line-${i}-qty`}
                       aria-label={`Line ${i + 1} quantity`}
                       aria-invalid={bad[i]!.qty}
                       inputMode="decimal"
@@ -322,24 +360,33 @@ function QuoteEditorForm({
                       onChange={(e) => setRow(i, { price: e.target.value })}
                     />
                   ) : (
-                    money(parsed[i]!.unitPriceMinor ?? 0)
+                    <span className="figure">{shown.lines[i]!.unitPrice}</span>
                   )}
                 </td>
                 <td className="px-3 py-2 text-right">
                   {editable ? (
-                    <input
-                      aria-label={`Line ${i + 1} discount`}
-                      aria-invalid={bad[i]!.discount}
-                      inputMode="decimal"
-                      className={cell}
-                      value={r.discount}
-                      onChange={(e) => setRow(i, { discount: e.target.value })}
-                    />
+                    <>
+                      <input
+                        aria-label={`Line ${i + 1} discount`}
+                        aria-invalid={bad[i]!.discount}
+                        inputMode="decimal"
+                        className={cell}
+                        value={r.discount}
+                        onChange={(e) => setRow(i, { discount: e.target.value })}
+                      />
+                      {shown.lines[i]!.discountAmount ? (
+                        <span className="figure block text-xs text-ink-600">
+                          {shown.lines[i]!.discountAmount}
+                        </span>
+                      ) : null}
+                    </>
                   ) : (
-                    r.discount
+                    <span className="figure">{shown.lines[i]!.discount}</span>
                   )}
                 </td>
-                <td className="figure px-3 py-2 text-right">{money(totals.lines[i]!.netMinor)}</td>
+                <td className="figure px-3 py-2 text-right" data-testid="line-total">
+                  {shown.lines[i]!.lineTotal}
+                </td>
                 {editable ? (
                   <td className="px-3 py-2">
                     <Button
@@ -360,28 +407,29 @@ function QuoteEditorForm({
               <td colSpan={4} className="px-3 py-1">
                 Subtotal
               </td>
-              <td className="figure px-3 py-1">{money(totals.subtotalMinor)}</td>
+              <td className="figure px-3 py-1" data-testid="quote-subtotal">
+                {shown.subtotal}
+              </td>
             </tr>
-            {totals.discountMinor ? (
+            {shown.discountNote ? (
               <tr>
-                <td colSpan={4} className="px-3 py-1">
-                  Discounts
+                <td colSpan={5} className="px-3 py-1 text-xs text-ink-600">
+                  {shown.discountNote}
                 </td>
-                <td className="figure px-3 py-1">−{money(totals.discountMinor)}</td>
               </tr>
             ) : null}
             <tr>
               <td colSpan={4} className="px-3 py-1">
-                Tax {formatScaled(props.taxRateBp, 2)} %
+                {shown.taxLabel}
               </td>
-              <td className="figure px-3 py-1">{money(totals.taxMinor)}</td>
+              <td className="figure px-3 py-1">{shown.tax}</td>
             </tr>
             <tr className="font-semibold">
               <td colSpan={4} className="px-3 py-1">
                 Total
               </td>
               <td className="figure px-3 py-1" data-testid="quote-total">
-                {money(totals.totalMinor)}
+                {shown.total}
               </td>
             </tr>
           </tfoot>
@@ -395,62 +443,36 @@ function QuoteEditorForm({
       ) : null}
       {editable ? (
         <div className="flex flex-wrap items-end gap-3">
-          <SelectField
+          <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
             label="Add a part"
-            id="q-add-part"
-            value={addPart}
-            onChange={(e) => setAddPart(e.target.value)}
-          >
-            <option value="">Choose from the catalog…</option>
-            {props.catalog.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.sku} — {p.label} ({p.free} free)
-              </option>
-            ))}
-          </SelectField>
-          <Button
-            type="button"
-            variant="secondary"
-            disabled={!addPart}
-            onClick={() => {
-              const p = props.catalog.find((x) => x.id === addPart);
-              if (p)
-                setRows((rs) => [
-                  ...rs,
-                  {
-                    kind: "part",
-                    partId: p.id,
-                    sku: p.sku,
-                    description: p.label,
-                    qty: "1",
-                    price: minorToPlain(p.priceMinor),
-                    discount: "0",
-                  },
-                ]);
-              setAddPart("");
-            }}
-          >
-            Add part
-          </Button>
-          <Button
-            type="button"
-            variant="secondary"
-            onClick={() =>
+            placeholder="Type a SKU, name or brand"
+            url={(q) => `/api/v1/parts?${new URLSearchParams({ q, sort: "name", limit: "8" })}`}
+            options={(r) =>
+              r.parts.map((p) => ({
+                id: p.id,
+                label: `${p.sku} — ${p.brand} ${p.name}`,
+                detail: `${money(p.priceMinor)} · ${freeText(p.stock - p.reserved)}`,
+                value: p,
+              }))
+            }
+            empty="No part matches; try another SKU, name or brand"
+            onPick={(p) =>
               setRows((rs) => [
                 ...rs,
                 {
-                  kind: "labour",
-                  partId: null,
-                  sku: null,
-                  description: "Labour",
+                  kind: "part",
+                  partId: p.id,
+                  sku: p.sku,
+                  description: `${p.brand} ${p.name}`,
                   qty: "1",
-                  price: "120.00",
+                  price: minorToPlain(p.priceMinor),
                   discount: "0",
                 },
               ])
             }
-          >
-            Add labour
+          />
+          <Button type="button" variant="secondary" onClick={addLabour}>
+            {labourAt >= 0 ? "Labour hours" : "Add labour"}
           </Button>
           <Button
             type="button"

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gt, inArray, lt, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, gte, inArray, lt, ne, or, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import {
@@ -16,13 +16,17 @@ import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { allocate, freeOf } from "@/lib/catalog/stock";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 import {
+  isoDay,
   QUOTE_EDITABLE,
   QUOTE_HOLDS_STOCK,
+  QUOTE_LAPSES,
   QUOTE_STATUS_LABELS,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { calendarDay } from "@/lib/format/dates";
-import type { QuoteLineInput } from "@/lib/validations/quotes";
+import { parseQuoteNumber, type QuoteLineInput } from "@/lib/validations/quotes";
+
+import { escapeLike } from "./like";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 export type { QuoteLineInput };
@@ -156,10 +160,60 @@ export async function insertQuote(
   });
 }
 
-/** The shop's quotes, newest first (a customer's own, never drafts). Reads only: see expireQuotes. */
+/**
+ * The status filter as of `today` (as `quoteStatusOn` reads it): "expired" also finds a sent or
+ * accepted quote past its date, and "sent"/"accepted" leave those out.
+ */
+function statusOn(status: QuoteStatus, today: string) {
+  if (status === "expired")
+    return or(
+      eq(quotes.status, "expired"),
+      and(inArray(quotes.status, [...QUOTE_LAPSES]), lt(quotes.validUntil, today)),
+    );
+  if (QUOTE_LAPSES.includes(status))
+    return and(eq(quotes.status, status), gte(quotes.validUntil, today));
+  return eq(quotes.status, status);
+}
+
+/** A search of the list: the quote's number, its customer's name, its build's title or vehicle. */
+function searchOf(q: string) {
+  const n = parseQuoteNumber(q);
+  const like = `%${escapeLike(q.toLowerCase())}%`;
+  return or(
+    n
+      ? and(
+          eq(quotes.number, n.number),
+          n.revision === undefined ? undefined : eq(quotes.revision, n.revision),
+        )
+      : undefined,
+    sql`lower(${customers.name}) like ${like}`,
+    sql`lower(coalesce(${builds.title}, '')) like ${like}`,
+    sql`lower(coalesce(${builds.vehicle}, '')) like ${like}`,
+  );
+}
+
+const LIST_ORDER = {
+  newest: [desc(quotes.number), desc(quotes.revision)],
+  oldest: [asc(quotes.number), asc(quotes.revision)],
+  total: [desc(quotes.totalMinor), desc(quotes.number), desc(quotes.revision)],
+  valid: [asc(quotes.validUntil), desc(quotes.number), desc(quotes.revision)],
+  customer: [asc(sql`lower(${customers.name})`), desc(quotes.number), desc(quotes.revision)],
+} as const;
+
+/**
+ * The shop's quotes (a customer's own, never drafts), searched, filtered by status as of
+ * `today` and sorted; newest first by default. Reads only: see expireQuotes.
+ */
 export async function listQuotes(
   shopId: string,
-  opts: { portalUserId?: string; status?: QuoteStatus; buildId?: string } = {},
+  opts: {
+    portalUserId?: string;
+    status?: QuoteStatus;
+    buildId?: string;
+    q?: string;
+    sort?: keyof typeof LIST_ORDER;
+    today?: string;
+  } = {},
 ) {
   return db
     .select({
@@ -171,9 +225,11 @@ export async function listQuotes(
       currency: quotes.currency,
       validUntil: quotes.validUntil,
       updatedAt: quotes.updatedAt,
+      customerId: quotes.customerId,
       customerName: customers.name,
       buildId: quotes.buildId,
       buildTitle: builds.title,
+      buildVehicle: builds.vehicle,
     })
     .from(quotes)
     .innerJoin(customers, eq(customers.id, quotes.customerId))
@@ -184,11 +240,12 @@ export async function listQuotes(
         opts.portalUserId
           ? and(eq(customers.userId, opts.portalUserId), ne(quotes.status, "draft"))
           : undefined,
-        opts.status ? eq(quotes.status, opts.status) : undefined,
+        opts.status ? statusOn(opts.status, opts.today ?? isoDay()) : undefined,
         opts.buildId ? eq(quotes.buildId, opts.buildId) : undefined,
+        opts.q ? searchOf(opts.q) : undefined,
       ),
     )
-    .orderBy(desc(quotes.number), desc(quotes.revision))
+    .orderBy(...LIST_ORDER[opts.sort ?? "newest"])
     .limit(500);
 }
 
@@ -491,6 +548,31 @@ export async function latestRevision(shopId: string, number: number) {
     .orderBy(desc(quotes.revision))
     .limit(1);
   return row ?? null;
+}
+
+/**
+ * One revision of a quote number with its lines (in order): the revision before a new one,
+ * which is what the customer was sent. Null when the shop has no such revision.
+ */
+export async function getRevisionLines(shopId: string, number: number, revision: number) {
+  const [q] = await db
+    .select({
+      id: quotes.id,
+      revision: quotes.revision,
+      status: quotes.status,
+      currency: quotes.currency,
+      taxRateBp: quotes.taxRateBp,
+    })
+    .from(quotes)
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number), eq(quotes.revision, revision)))
+    .limit(1);
+  if (!q) return null;
+  const lines = await db
+    .select()
+    .from(quoteLines)
+    .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.quoteId, q.id)))
+    .orderBy(asc(quoteLines.position));
+  return { ...q, lines };
 }
 
 /** The open portal invitation of this shop for this e-mail, if there is one. */

@@ -4,20 +4,24 @@ import { pdfLogo } from "@/db/queries/logos";
 import { listPayments } from "@/db/queries/payments";
 import { getQuote } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
-import { formatMoney, formatScaled } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { formatMoney } from "@/lib/catalog/money";
 import { NotFound } from "@/lib/domain/errors";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatDate } from "@/lib/format/dates";
 import { depositOf } from "@/lib/payments/deposit";
+import { formatRateBp, presentQuote } from "@/lib/quotes/quote-presentation";
 
 import type { QuoteSheetData } from "./quote-sheet";
 
-/** Everything a quote PDF prints; with `portalUserId`, only that customer's own quote. */
+/**
+ * Everything a quote PDF prints; with `portalUserId`, only that customer's own quote. With
+ * `asSent`, a draft prints as the customer receives it once sent (the e-mail's attachment).
+ */
 export async function quoteSheetData(
   shopId: string,
   id: string,
   portalUserId?: string,
+  opts: { asSent?: boolean } = {},
 ): Promise<QuoteSheetData> {
   const q = await getQuote(shopId, id, portalUserId);
   if (!q) throw new NotFound("That quote");
@@ -28,12 +32,13 @@ export async function quoteSheetData(
   ]);
   const qt = q.quote;
   const money = (v: number) => formatMoney(v, qt.currency);
-  const t = quoteTotals(q.lines, qt.taxRateBp);
+  const presented = presentQuote(qt, q.lines);
   const depositBp = settings?.settings.depositBp ?? 3000;
   const timeZone = settings?.settings.timeZone ?? "UTC";
   const paid = payments.find((p) => p.status === "paid");
   // As of today: past its date a sent or accepted quote prints as expired, asking no deposit.
-  const shown = quoteStatusOn(qt, isoDay());
+  const stored = opts.asSent && qt.status === "draft" ? { ...qt, status: "sent" as const } : qt;
+  const shown = quoteStatusOn(stored, isoDay());
   const showDeposit =
     depositBp > 0 && ["sent", "accepted", "deposit_paid", "ordered"].includes(shown);
   return {
@@ -53,30 +58,16 @@ export async function quoteSheetData(
     },
     customer: { name: q.customerName, email: q.customerEmail },
     buildTitle: q.buildTitle,
-    lines: q.lines.map((l, i) => ({
-      sku: l.sku,
-      description: l.description,
-      quantity: formatScaled(l.quantityMilli, 3),
-      unitPrice: money(l.unitPriceMinor),
-      discount: l.discountBp ? `${l.discountBp / 100} %` : null,
-      net: money(t.lines[i]!.netMinor),
-    })),
-    totals: {
-      subtotal: money(qt.subtotalMinor),
-      discount: qt.discountMinor ? money(qt.discountMinor) : null,
-      taxRatePct: String(qt.taxRateBp / 100),
-      tax: money(qt.taxMinor),
-      total: money(qt.totalMinor),
-    },
+    presented,
     deposit: paid
       ? {
-          pct: String(depositBp / 100),
+          rate: formatRateBp(depositBp),
           amount: money(paid.amountMinor),
           paid: paid.paidAt ? formatDate(paid.paidAt, { timeZone }) : "",
         }
       : showDeposit
         ? {
-            pct: String(depositBp / 100),
+            rate: formatRateBp(depositBp),
             amount: money(depositOf(qt.totalMinor, depositBp)),
             paid: null,
           }

@@ -2,6 +2,7 @@ import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-p
 
 import { PDF_PAGE_SIZE, type PaperSize } from "@/lib/domain/documents";
 import { formatCalendarDate, formatDate } from "@/lib/format/dates";
+import type { PresentedQuote } from "@/lib/quotes/quote-presentation";
 import { SAFETY_POINTS } from "@/lib/safety";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
@@ -34,33 +35,21 @@ export interface QuoteSheetData {
   };
   customer: { name: string; email: string | null };
   buildTitle: string | null;
-  lines: {
-    sku: string | null;
-    description: string;
-    quantity: string;
-    unitPrice: string;
-    discount: string | null;
-    net: string;
-  }[];
-  totals: {
-    subtotal: string;
-    discount: string | null;
-    taxRatePct: string;
-    tax: string;
-    total: string;
-  };
-  deposit: { pct: string; amount: string; paid: string | null } | null;
+  /** Lines and totals as every surface shows them (lib/quotes/quote-presentation.ts). */
+  presented: PresentedQuote;
+  /** The deposit's rate ("30 %") and amount. */
+  deposit: { rate: string; amount: string; paid: string | null } | null;
   /** The shop's paper and time zone (the issue date is the day in that zone). */
   paper: PaperSize;
   timeZone: string;
 }
 
 const COLS = [
-  { key: "description", label: "Item", width: "44%" },
-  { key: "quantity", label: "Qty", width: "10%", num: true },
-  { key: "unitPrice", label: "Unit price", width: "16%", num: true },
-  { key: "discount", label: "Discount", width: "12%", num: true },
-  { key: "net", label: "Amount", width: "18%", num: true },
+  { key: "description", label: "Item", width: "38%" },
+  { key: "quantity", label: "Qty", width: "8%", num: true },
+  { key: "unitPrice", label: "Unit price", width: "15%", num: true },
+  { key: "discount", label: "Discount", width: "22%", num: true },
+  { key: "lineTotal", label: "Line total", width: "17%", num: true },
 ] as const;
 
 function QuoteSheet({ d }: { d: QuoteSheetData }) {
@@ -102,7 +91,7 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
             </Text>
           ))}
         </View>
-        {d.lines.map((l, i) => (
+        {d.presented.lines.map((l, i) => (
           <View key={i} style={{ flexDirection: "row" }} wrap={false}>
             <View style={[s.td, { width: COLS[0].width }]}>
               <Text>{pdfText(l.description)}</Text>
@@ -110,24 +99,25 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
             </View>
             <Text style={[s.td, s.num, { width: COLS[1].width }]}>{l.quantity}</Text>
             <Text style={[s.td, s.num, { width: COLS[2].width }]}>{l.unitPrice}</Text>
-            <Text style={[s.td, s.num, { width: COLS[3].width }]}>{l.discount ?? "-"}</Text>
-            <Text style={[s.td, s.num, { width: COLS[4].width }]}>{l.net}</Text>
+            <Text style={[s.td, s.num, { width: COLS[3].width }]}>
+              {l.discountRate ? pdfText(l.discount) : "-"}
+            </Text>
+            <Text style={[s.td, s.num, { width: COLS[4].width }]}>{l.lineTotal}</Text>
           </View>
         ))}
         <View style={{ marginTop: 6 }}>
           <View style={s.total}>
             <Text>Subtotal</Text>
-            <Text style={{ width: 80, textAlign: "right" }}>{d.totals.subtotal}</Text>
+            <Text style={{ width: 80, textAlign: "right" }}>{d.presented.subtotal}</Text>
           </View>
-          {d.totals.discount ? (
+          {d.presented.discountNote ? (
             <View style={s.total}>
-              <Text>Discounts</Text>
-              <Text style={{ width: 80, textAlign: "right" }}>-{d.totals.discount}</Text>
+              <Text style={s.muted}>{d.presented.discountNote}</Text>
             </View>
           ) : null}
           <View style={s.total}>
-            <Text>Tax ({d.totals.taxRatePct} %)</Text>
-            <Text style={{ width: 80, textAlign: "right" }}>{d.totals.tax}</Text>
+            <Text>{d.presented.taxLabel}</Text>
+            <Text style={{ width: 80, textAlign: "right" }}>{d.presented.tax}</Text>
           </View>
           <View
             style={[
@@ -137,7 +127,7 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
           >
             <Text style={{ fontWeight: 700, fontSize: 10 }}>Total</Text>
             <Text style={{ width: 80, textAlign: "right", fontWeight: 700, fontSize: 10 }}>
-              {d.totals.total}
+              {d.presented.total}
             </Text>
           </View>
         </View>
@@ -148,7 +138,7 @@ function QuoteSheet({ d }: { d: QuoteSheetData }) {
             <Text>
               {d.deposit.paid
                 ? `Deposit of ${d.deposit.amount} received ${d.deposit.paid}. Thank you.`
-                : `A deposit of ${d.deposit.pct} % (${d.deposit.amount}) is asked when the quote is accepted; the shop orders the parts once it is paid. Pay it from your portal.`}
+                : `A deposit of ${d.deposit.rate} (${d.deposit.amount}) is asked when the quote is accepted; the shop orders the parts once it is paid. Pay it from your portal.`}
             </Text>
           </View>
         ) : null}

@@ -19,6 +19,8 @@ import {
 import { getShopSettings } from "@/db/queries/shops";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
+import { minorToPlain } from "@/lib/catalog/money";
+import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   Conflict,
   Invalid,
@@ -38,12 +40,18 @@ import {
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
-import { calendarDay } from "@/lib/format/dates";
 import { sendMail } from "@/lib/mail";
+import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
+import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
+import { cachedPdf } from "@/lib/pdf/render-cache";
+import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
+import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
+import { QUOTE_SUBTOTAL_MAX_MINOR } from "@/lib/validations/column-bounds";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 
 import { quoteEmail } from "./quote-email";
-import { linesFromBuild } from "./quote-lines";
+import { linesFromBuild, withLabour } from "./quote-lines";
+import { presentQuote } from "./quote-presentation";
 
 type QuoteFields = Omit<QuoteEdit, "id" | "version">;
 
@@ -81,9 +89,25 @@ async function checkLineParts(shopId: string, lines: QuoteLineInput[]) {
     throw new Invalid("A line names a part that is not in this shop's catalog", issues);
 }
 
+/** The shop's labour rate (minor units an hour). */
+async function labourRateOf(shopId: string): Promise<number> {
+  return (await getShopSettings(shopId))?.settings.labourRateMinor ?? DEFAULT_LABOUR_RATE_MINOR;
+}
+
+/** Lines whose labour made them more than one quote holds: a field error on the hours. */
+function checkQuoteSize(lines: QuoteLineInput[]) {
+  if (quoteTotals(lines, 0).grossMinor > QUOTE_SUBTOTAL_MAX_MINOR)
+    throw Invalid.field(
+      "labourHours",
+      `With this labour the quote adds up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
+    );
+}
+
 /**
- * A draft quote: from a build (its chosen parts at today's prices and a labour line, for the
- * build's customer) or an empty one for a customer.
+ * A draft quote: from a build (its chosen parts at today's prices and a labour line at the
+ * shop's rate, for the build's customer), or a parts-only quote for a customer — no build
+ * needed — with the lines given (their parts must be in the shop's catalog) and, when
+ * `labourHours` is given, one labour line at the shop's rate unless the lines carry labour.
  */
 export async function createQuote(member: Member, input: QuoteCreate): Promise<QuoteRow> {
   authorize(member, "quotes:write");
@@ -91,31 +115,39 @@ export async function createQuote(member: Member, input: QuoteCreate): Promise<Q
   if (input.buildId) {
     const row = await getBuild(shopId, input.buildId);
     if (!row) throw Invalid.field("buildId", "That build is not in this shop");
-    const [catalog, settings] = await Promise.all([
+    const [catalog, rateMinor] = await Promise.all([
       getPartsByIds(
         shopId,
         row.build.parts.map((p) => p.partId),
       ),
-      getShopSettings(shopId),
+      labourRateOf(shopId),
     ]);
     const lines = linesFromBuild(row.build.parts, catalog, {
       hours: input.labourHours ?? DEFAULT_LABOUR_HOURS,
-      rateMinor: settings?.settings.labourRateMinor ?? DEFAULT_LABOUR_RATE_MINOR,
+      rateMinor,
     });
+    checkQuoteSize(lines);
     return insertQuote(shopId, member.user.id, {
       customerId: row.build.customerId,
       buildId: row.build.id,
       validUntil: input.validUntil,
       lines,
-      notes: `For ${row.build.title}`,
+      notes: input.notes ?? `For ${row.build.title}`,
     });
   }
   const customer = await getCustomer(shopId, input.customerId!);
   if (!customer) throw Invalid.field("customerId", "That customer is not in this shop");
+  const given = input.lines ?? [];
+  await checkLineParts(shopId, given);
+  const lines = input.labourHours
+    ? withLabour(given, { hours: input.labourHours, rateMinor: await labourRateOf(shopId) })
+    : given;
+  checkQuoteSize(lines);
   return insertQuote(shopId, member.user.id, {
     customerId: customer.id,
     validUntil: input.validUntil,
-    lines: [],
+    lines,
+    notes: input.notes || undefined,
   });
 }
 
@@ -172,6 +204,42 @@ export async function editQuote(member: Member, input: QuoteEdit): Promise<Quote
 }
 
 /**
+ * The files a sent quote carries: its PDF as the customer will read it (sent, with the deposit
+ * asked) and, where the quote is for a build, the build's spec sheet (its latest revision, in
+ * the customer's units where they set them). Rendered through the same cache as the downloads.
+ */
+async function quoteAttachments(
+  shopId: string,
+  quote: QuoteRow,
+  customerUserId: string | null,
+): Promise<{ filename: string; content: Buffer; contentType: string }[]> {
+  const sheet = await quoteSheetData(shopId, quote.id, undefined, { asSent: true });
+  const files = [
+    {
+      filename: quotePdfName(sheet.quote.label),
+      content: await cachedPdf("quote-sheet", sheet, renderQuoteSheet),
+      contentType: "application/pdf",
+    },
+  ];
+  const build = quote.buildId
+    ? await specSheetData(shopId, quote.buildId, { viewerId: customerUserId ?? undefined }).catch(
+        (e: unknown) => {
+          // A build deleted since the quote was made has no sheet to send; the quote still goes.
+          if (e instanceof NotFound) return null;
+          throw e;
+        },
+      )
+    : null;
+  if (build)
+    files.push({
+      filename: pdfFileName(build.build.title, build.build.version),
+      content: await cachedPdf("spec-sheet", build, renderSpecSheet),
+      contentType: "application/pdf",
+    });
+  return files;
+}
+
+/**
  * E-mails a draft or sent quote to its customer (with a portal invitation when they have no
  * sign-in yet), then — only once the mail server took it — logs the message, records the
  * invitation and moves a draft to sent. A failed send writes nothing; a quote past its
@@ -211,19 +279,21 @@ export async function sendQuote(
   const invitationId = q.customerUserId
     ? null
     : (open?.id ?? randomBytes(24).toString("base64url"));
+  const attachments = await quoteAttachments(shopId, q.quote, q.customerUserId);
   const { subject, text } = quoteEmail({
     shopName: member.shopName,
     customerName: q.customerName,
     buildTitle: q.buildTitle,
     quote: q.quote,
-    lines: q.lines,
+    presented: presentQuote(q.quote, q.lines),
     link: `${appUrl}/my/quotes/${q.quote.id}`,
     invite: invitationId ? `${appUrl}/accept-invitation/${invitationId}` : null,
+    attachments: attachments.map((a) => a.filename),
   });
 
   let messageId: string | null;
   try {
-    ({ messageId } = await sendMail({ to, subject, text }));
+    ({ messageId } = await sendMail({ to, subject, text, attachments }));
   } catch (e) {
     const why =
       (e as { code?: string }).code === "ECONNREFUSED"

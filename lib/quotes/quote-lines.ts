@@ -35,13 +35,29 @@ export function linesFromBuild(
       discountBp: 0,
     });
   }
-  if (labour.hours > 0)
-    lines.push({
+  return withLabour(lines, labour);
+}
+
+/** The description a labour line starts with. */
+export const LABOUR_DESCRIPTION = "Fuel system fitting and setup";
+
+/**
+ * The lines with one labour line at the shop's rate — added once: lines that already carry
+ * labour (a kit's quote, a line typed in) are returned as they are, as are zero hours.
+ */
+export function withLabour(
+  lines: QuoteLineInput[],
+  labour: { hours: number; rateMinor: number },
+): QuoteLineInput[] {
+  if (labour.hours <= 0 || lines.some((l) => l.kind === "labour")) return lines;
+  return [
+    ...lines,
+    {
       kind: "labour",
-      description: "Fuel system fitting and setup",
+      description: LABOUR_DESCRIPTION,
       quantityMilli: Math.round(labour.hours * 1000),
       unitPriceMinor: labour.rateMinor,
       discountBp: 0,
-    });
-  return lines;
+    },
+  ];
 }

@@ -5,6 +5,7 @@ import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
 import { calendarDate, QUOTE_SUBTOTAL_MAX_MINOR, versionNumber } from "./column-bounds";
+import { searchText } from "./search";
 
 const isoDate = calendarDate();
 
@@ -36,34 +37,56 @@ export const QuoteLineSchema = z.object({
     .default(0),
 });
 
+/** A quote's lines: at most 200, adding up to what one quote can hold. */
+const QuoteLinesSchema = z
+  .array(QuoteLineSchema)
+  .max(200, "At most 200 lines")
+  .superRefine((lines, ctx) => {
+    const subtotal = quoteTotals(lines, 0).grossMinor;
+    if (subtotal > QUOTE_SUBTOTAL_MAX_MINOR)
+      ctx.addIssue({
+        code: "custom",
+        message: `The lines add up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
+      });
+  });
+
+const notesText = z.string().trim().max(2000, "Notes are too long");
+
+/** What a person edits on a quote: validity, notes and lines. */
+export const QuoteFieldsSchema = z.object({
+  validUntil: isoDate,
+  notes: notesText,
+  lines: QuoteLinesSchema,
+});
+
+/**
+ * A new draft: from a build (its kit's parts and a labour line, for the build's customer), or a
+ * parts-only quote for a customer — straight from the catalog, with the lines given (none: an
+ * empty draft to fill in). `labourHours` adds one labour line at the shop's rate, unless the
+ * lines already carry labour.
+ */
 export const QuoteCreateSchema = z
   .object({
     buildId: z.uuid("Choose a build").optional(),
     customerId: z.uuid("Choose a customer").optional(),
     validUntil: isoDate.optional(),
-    labourHours: z.number().min(0).max(1000).optional(),
+    labourHours: z
+      .number({ error: "Labour hours must be a number" })
+      .min(0, "Labour hours must be 0 or more")
+      .max(1000, "Labour hours must be at most 1000")
+      .optional(),
+    notes: notesText.optional(),
+    lines: QuoteLinesSchema.optional(),
   })
   .refine((q) => q.buildId || q.customerId, {
     path: ["customerId"],
     message: "Choose a build or a customer",
+  })
+  .refine((q) => !(q.buildId && q.lines), {
+    path: ["lines"],
+    message:
+      "A quote from a build takes its lines from the build's kit; leave out lines or the build",
   });
-
-/** What a person edits on a quote: validity, notes and lines. */
-export const QuoteFieldsSchema = z.object({
-  validUntil: isoDate,
-  notes: z.string().trim().max(2000, "Notes are too long"),
-  lines: z
-    .array(QuoteLineSchema)
-    .max(200, "At most 200 lines")
-    .superRefine((lines, ctx) => {
-      const subtotal = quoteTotals(lines, 0).subtotalMinor;
-      if (subtotal > QUOTE_SUBTOTAL_MAX_MINOR)
-        ctx.addIssue({
-          code: "custom",
-          message: `The lines add up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
-        });
-    }),
-});
 
 const quoteId = z.uuid({ error: "That quote was not found" });
 
@@ -97,6 +120,36 @@ export const DepositReturnSchema = z.object({
     .string({ error: "session is required" })
     .regex(/^cs_[A-Za-z0-9_]{4,200}$/, "session is not a checkout session id"),
 });
+
+/** How the quotes list sorts: newest number first (the default), oldest, total, validity, customer. */
+export const QUOTE_SORTS = ["newest", "oldest", "total", "valid", "customer"] as const;
+export type QuoteSort = (typeof QUOTE_SORTS)[number];
+export const QUOTE_SORT_LABELS: Record<QuoteSort, string> = {
+  newest: "Newest first",
+  oldest: "Oldest first",
+  total: "Total, highest first",
+  valid: "Valid until, soonest first",
+  customer: "Customer name",
+};
+
+/**
+ * The quotes list's filters (the page's searchParams and GET /api/v1/quotes alike): `q` finds a
+ * quote by its number ("Q-0007", "7", "Q-0007-r2"), its customer's name or its build's title or
+ * vehicle; `status` is the status as of today (a sent quote past its date is expired).
+ */
+export const QuoteListQuery = z.object({
+  q: searchText().optional(),
+  status: z.enum(QUOTE_STATUSES, { error: "Unknown status" }).optional(),
+  sort: z.enum(QUOTE_SORTS, { error: `Sort by ${QUOTE_SORTS.join(", ")}` }).default("newest"),
+});
+export type QuoteListFilters = z.output<typeof QuoteListQuery>;
+
+/** "Q-0007-r2", "q7", "0007" → { number: 7, revision: 2 } (revision only when named); else null. */
+export function parseQuoteNumber(q: string): { number: number; revision?: number } | null {
+  const m = /^(?:q\s*-?\s*)?0*(\d{1,9})(?:\s*-?\s*r(\d{1,4}))?$/i.exec(q.trim());
+  if (!m) return null;
+  return { number: Number(m[1]), ...(m[2] ? { revision: Number(m[2]) } : {}) };
+}
 
 export type QuoteCreate = z.output<typeof QuoteCreateSchema>;
 export type QuoteEdit = z.output<typeof QuoteEditSchema>;

@@ -34,6 +34,7 @@ import {
   QuoteCreateSchema,
   QuoteEditSchema,
   QuoteIdSchema,
+  QuoteListQuery,
   QuoteResponseSchema,
   QuoteStatusSchema,
 } from "@/lib/validations/quotes";
@@ -176,6 +177,7 @@ const QUERY: Record<
   "GET /api/v1/builds": { schema: BuildListQuery },
   "GET /api/v1/customers": { schema: CustomerListQuery },
   "GET /api/v1/parts": { schema: PartListQuery },
+  "GET /api/v1/quotes": { schema: QuoteListQuery },
   "GET /api/v1/builds/[id]/spec-sheet": { schema: SpecSheetQuery },
   "GET /api/v1/quotes/[id]/deposit": {
     schema: DepositReturnSchema,

@@ -90,7 +90,7 @@ describe("editing a quote: the route and the action give the same result", () =>
       status: "draft",
       validUntil: "2099-03-31",
       notes: "Both doors",
-      subtotalMinor: 22500,
+      subtotalMinor: 20250, // after the line's discount
       discountMinor: 2250,
       taxMinor: 1671,
       totalMinor: 21921,
@@ -178,7 +178,7 @@ describe("editing a quote: the route and the action give the same result", () =>
     expect(linesOnly.json.quote).toMatchObject({
       notes: "Changed notes",
       validUntil: "2099-04-30",
-      subtotalMinor: 50000, // 2.5 h × 200.00 (by hand)
+      subtotalMinor: 45000, // 2.5 h × 200.00 = 500.00, less 10 % (by hand)
     });
   });
 

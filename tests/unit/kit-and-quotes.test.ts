@@ -198,8 +198,10 @@ describe("quote totals in integer cents", () => {
       ],
       825,
     );
+    // The subtotal is after the line discounts (1339.00): nothing is taken off twice.
     expect(t).toMatchObject({
-      subtotalMinor: 139900,
+      grossMinor: 139900,
+      subtotalMinor: 133900,
       discountMinor: 6000,
       taxMinor: 11047,
       totalMinor: 144947,

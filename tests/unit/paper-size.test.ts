@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import { FuelSystemInputSchema, sizeParsedFuelSystem } from "@/lib/calc";
 import { renderQuoteSheet, type QuoteSheetData } from "@/lib/pdf/quote-sheet";
 import { renderSpecSheet, type SpecSheetData } from "@/lib/pdf/spec-sheet";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 import { boostedSix } from "../calc/fixtures";
 import { inspectPdf } from "../helpers/pdf";
@@ -46,22 +47,18 @@ const quote = (paper: QuoteSheetData["paper"], lines = 12): QuoteSheetData => ({
   },
   customer: { name: "Paper Customer", email: "paper@example.test" },
   buildTitle: "Paper build",
-  lines: Array.from({ length: lines }, (_, i) => ({
-    sku: `P-${i + 1}`,
-    description: `Paper part ${i + 1}`,
-    quantity: "1",
-    unitPrice: "$10.00",
-    discount: null,
-    net: "$10.00",
-  })),
-  totals: {
-    subtotal: "$120.00",
-    discount: null,
-    taxRatePct: "8.25",
-    tax: "$9.90",
-    total: "$129.90",
-  },
-  deposit: { pct: "30", amount: "$38.97", paid: null },
+  presented: presentQuote(
+    { currency: "USD", taxRateBp: 825 },
+    Array.from({ length: lines }, (_, i) => ({
+      kind: "part" as const,
+      sku: `P-${i + 1}`,
+      description: `Paper part ${i + 1}`,
+      quantityMilli: 1000,
+      unitPriceMinor: 1000,
+      discountBp: 0,
+    })),
+  ),
+  deposit: { rate: "30 %", amount: "$38.97", paid: null },
   paper,
   timeZone: "America/Chicago",
 });

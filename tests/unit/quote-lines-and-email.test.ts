@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 
 import { quoteEmail, type QuoteEmailData } from "@/lib/quotes/quote-email";
 import { linesFromBuild, type PricedPart } from "@/lib/quotes/quote-lines";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 // Invented catalog parts (inputs, not check values).
 const catalog: PricedPart[] = [
@@ -53,19 +54,20 @@ describe("the quote e-mail", () => {
     shopName: "Test Shop",
     customerName: "Sam",
     buildTitle: "Turbo six",
-    quote: {
-      number: 7,
-      revision: 2,
-      currency: "USD",
-      validUntil: "2099-01-31",
-      subtotalMinor: 18000,
-      discountMinor: 0,
-      taxMinor: 1485,
-      totalMinor: 19485,
-    },
-    lines: [{ description: "Fitting", quantityMilli: 1500, unitPriceMinor: 12000, discountBp: 0 }],
+    quote: { number: 7, revision: 2, validUntil: "2099-01-31" },
+    presented: presentQuote({ currency: "USD", taxRateBp: 825 }, [
+      {
+        kind: "labour",
+        sku: null,
+        description: "Fitting",
+        quantityMilli: 1500,
+        unitPriceMinor: 12000,
+        discountBp: 0,
+      },
+    ]),
     link: "https://app.test/my/quotes/q1",
     invite: null,
+    attachments: ["quote-Q-0007-r2.pdf"],
   };
 
   it("names the quote with its revision and states the total; a signed-up customer gets the portal link", () => {
@@ -73,8 +75,12 @@ describe("the quote e-mail", () => {
     expect(subject).toBe("Test Shop: quote Q-0007-r2 for your fuel system");
     expect(text).toContain("Here is quote Q-0007-r2 for Turbo six, valid until 31 Jan 2099.");
     // 1.5 h × 120.00 = 180.00; + 8.25 % = 14.85 → 194.85 (by hand).
-    expect(text).toContain("1.5 × Fitting — $180.00");
+    expect(text).toContain("1.5 × Fitting");
+    expect(text).toContain("$120.00 each: $180.00");
+    expect(text).toContain("Subtotal $180.00");
+    expect(text).toContain("Tax (8.25 %) $14.85");
     expect(text).toContain("Total $194.85");
+    expect(text).toContain("Attached: quote-Q-0007-r2.pdf.");
     expect(text).toContain("in your portal: https://app.test/my/quotes/q1");
     expect(text).not.toContain("set your password");
   });

@@ -5,6 +5,7 @@ import { checkLogo, imageInfo } from "@/lib/images/logo";
 import { depositOf } from "@/lib/payments/deposit";
 import { renderQuoteSheet, type QuoteSheetData } from "@/lib/pdf/quote-sheet";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 
 import { naFour } from "../calc/fixtures";
 import { inspectPdf } from "../helpers/pdf";
@@ -22,32 +23,27 @@ const quote = (extra: Partial<QuoteSheetData> = {}): QuoteSheetData => ({
   },
   customer: { name: "Test Customer", email: "test@example.test" },
   buildTitle: "Sheet test build",
-  lines: [
+  // 6 × $100.00 less 10 % = $540.00; 4 × $120.00 = $480.00; subtotal (after discounts)
+  // $1,020.00; tax 8.25 % = $84.15; total $1,104.15 (by hand).
+  presented: presentQuote({ currency: "USD", taxRateBp: 825 }, [
     {
+      kind: "part",
       sku: "TST-1",
       description: "Testbrand injector",
-      quantity: "6",
-      unitPrice: "$100.00",
-      discount: "10 %",
-      net: "$540.00",
+      quantityMilli: 6000,
+      unitPriceMinor: 10000,
+      discountBp: 1000,
     },
     {
+      kind: "labour",
       sku: null,
       description: "Fitting labour",
-      quantity: "4",
-      unitPrice: "$120.00",
-      discount: null,
-      net: "$480.00",
+      quantityMilli: 4000,
+      unitPriceMinor: 12000,
+      discountBp: 0,
     },
-  ],
-  totals: {
-    subtotal: "$1,080.00",
-    discount: "$60.00",
-    taxRatePct: "8.25",
-    tax: "$84.15",
-    total: "$1,104.15",
-  },
-  deposit: { pct: "30", amount: "$331.25", paid: null },
+  ]),
+  deposit: { rate: "30 %", amount: "$331.25", paid: null },
   paper: "a4",
   timeZone: "UTC",
   ...extra,
@@ -65,7 +61,10 @@ describe("quote PDF", () => {
       "Testbrand injector",
       "TST-1",
       "Fitting labour",
+      "10 % (-$60.00)",
       "$540.00",
+      "Subtotal $1,020.00",
+      "Includes discounts of $60.00",
       "$1,104.15",
       "Tax (8.25 %)",
       "30 % ($331.25)",
@@ -78,7 +77,7 @@ describe("quote PDF", () => {
   it("a paid deposit is shown as received", async () => {
     const { text } = inspectPdf(
       await renderQuoteSheet(
-        quote({ deposit: { pct: "30", amount: "$331.25", paid: "2026-12-01" } }),
+        quote({ deposit: { rate: "30 %", amount: "$331.25", paid: "2026-12-01" } }),
       ),
     );
     expect(text.replace(/\s+/g, " ")).toContain("Deposit of $331.25 received 2026-12-01");

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Suspense } from "react";
 
 import { PartsTable } from "@/components/parts/parts-table";
 import { PageHeader } from "@/components/ui/status";
@@ -42,7 +43,9 @@ export default async function PartsPage() {
           ) : null}
         </div>
       </PageHeader>
-      <PartsTable currency={s?.settings.currency ?? "USD"} canEdit={canEdit} units={units} />
+      <Suspense>
+        <PartsTable currency={s?.settings.currency ?? "USD"} canEdit={canEdit} units={units} />
+      </Suspense>
     </>
   );
 }

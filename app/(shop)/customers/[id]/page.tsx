@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/status";
 import { listBuilds } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
+import { can } from "@/lib/auth/permissions";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { idOrNotFound } from "@/lib/ids";
 
@@ -21,7 +22,17 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
   return (
     <>
       <PageHeader title={c.name}>
-        <DeleteCustomer id={c.id} name={c.name} />
+        <div className="flex flex-wrap items-center gap-3">
+          {can(m.role, "quotes:write") ? (
+            <Link
+              href={`/quotes/new?customer=${c.id}`}
+              className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700"
+            >
+              New quote
+            </Link>
+          ) : null}
+          <DeleteCustomer id={c.id} name={c.name} />
+        </div>
       </PageHeader>
       <section className="max-w-xl rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="mb-4 text-xl font-semibold">Details</h2>

@@ -3,17 +3,19 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { QuoteEditor } from "@/components/quotes/quote-editor";
+import { RevisionChanges } from "@/components/quotes/revision-changes";
 import { StockPromise } from "@/components/quotes/stock-promise";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
-import { listParts } from "@/db/queries/parts";
 import { listPayments } from "@/db/queries/payments";
-import { getQuote, latestRevision } from "@/db/queries/quotes";
+import { getQuote, getRevisionLines, latestRevision } from "@/db/queries/quotes";
+import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
+import { diffQuotes } from "@/lib/quotes/quote-diff";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
 export const metadata: Metadata = { title: "Quote" };
@@ -30,23 +32,18 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const q = await getQuote(m.shopId, id);
   if (!q) notFound();
   const canWrite = can(m.role, "quotes:write");
-  const catalog = canWrite
-    ? (await listParts(m.shopId, { sort: "sku", limit: 2000 })).map((p) => ({
-        id: p.id,
-        sku: p.sku,
-        label: `${p.brand} ${p.name}`,
-        priceMinor: p.priceMinor,
-        free: p.stock - p.reserved,
-      }))
-    : [];
   const qt = q.quote;
   const today = isoDay();
   const shown = quoteStatusOn(qt, today);
-  const [payments, latest, stock] = await Promise.all([
+  const [payments, latest, stock, seen, settings] = await Promise.all([
     listPayments(m.shopId, qt.id),
     qt.status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
     STOCK_SHOWN.includes(shown) ? quoteStock(m.shopId, qt.status, q.lines) : null,
+    // A later revision: the one before it is what the customer was sent.
+    qt.revision > 1 ? getRevisionLines(m.shopId, qt.number, qt.revision - 1) : null,
+    getShopSettings(m.shopId),
   ]);
+  const since = seen ? quoteLabel(qt.number, seen.revision) : null;
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
@@ -99,6 +96,9 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           ({QUOTE_STATUS_LABELS[quoteStatusOn(latest, today)].toLowerCase()}).
         </p>
       ) : null}
+      {seen && since ? (
+        <RevisionChanges since={since} diff={diffQuotes(qt, seen.lines, q.lines)} />
+      ) : null}
       <QuoteEditor
         key={qt.id}
         id={qt.id}
@@ -120,7 +120,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           unitPriceMinor: l.unitPriceMinor,
           discountBp: l.discountBp,
         }))}
-        catalog={catalog}
+        labourRateMinor={settings?.settings.labourRateMinor ?? 12000}
         canWrite={canWrite}
         customerEmail={q.customerEmail}
       />

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
+import { QuoteLinesTable } from "@/components/quotes/quote-lines-table";
 import { StockPromise } from "@/components/quotes/stock-promise";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
@@ -11,11 +12,11 @@ import { listPayments } from "@/db/queries/payments";
 import { getQuote, latestRevision } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
-import { formatMoney, formatScaled } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
+import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
+import { presentQuote } from "@/lib/quotes/quote-presentation";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
 export const metadata: Metadata = { title: "My quote" };
@@ -46,7 +47,7 @@ export default async function MyQuotePage({
   // As of today, whatever is stored: past its date a sent or accepted quote is expired.
   const status = quoteStatusOn(qt, isoDay());
   const money = (v: number) => formatMoney(v, qt.currency);
-  const t = quoteTotals(q.lines, qt.taxRateBp);
+  const presented = presentQuote(qt, q.lines);
   const [settings, paid, latest, stock] = await Promise.all([
     getShopSettings(m.shopId),
     listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid")),
@@ -60,13 +61,21 @@ export default async function MyQuotePage({
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
-        <div className="flex items-center gap-4">
+        <div className="flex flex-wrap items-center gap-3">
           <a
             href={`/api/v1/quotes/${qt.id}/pdf`}
             className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
           >
             Download quote (PDF)
           </a>
+          {qt.buildId ? (
+            <a
+              href={`/api/v1/builds/${qt.buildId}/spec-sheet`}
+              className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
+            >
+              Spec sheet (PDF)
+            </a>
+          ) : null}
           <Link href="/my" className="text-sm text-copper-700 underline">
             Back
           </Link>
@@ -111,44 +120,7 @@ export default async function MyQuotePage({
         {qt.validUntil}
         {q.buildTitle ? ` · ${q.buildTitle}` : ""}
       </p>
-      <table className="w-full rounded-lg border border-ink-200 bg-white text-left text-sm">
-        <thead className="bg-ink-100">
-          <tr>
-            <th scope="col" className="px-3 py-2">
-              Item
-            </th>
-            <th scope="col" className="px-3 py-2 text-right">
-              Qty
-            </th>
-            <th scope="col" className="px-3 py-2 text-right">
-              Amount
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {q.lines.map((l, i) => (
-            <tr key={l.id} className="border-t border-ink-100">
-              <td className="px-3 py-2">{l.description}</td>
-              <td className="figure px-3 py-2 text-right">{formatScaled(l.quantityMilli, 3)}</td>
-              <td className="figure px-3 py-2 text-right">{money(t.lines[i]!.netMinor)}</td>
-            </tr>
-          ))}
-        </tbody>
-        <tfoot className="text-right">
-          <tr>
-            <td colSpan={2} className="px-3 py-1">
-              Tax
-            </td>
-            <td className="figure px-3 py-1">{money(qt.taxMinor)}</td>
-          </tr>
-          <tr className="font-semibold">
-            <td colSpan={2} className="px-3 py-1">
-              Total
-            </td>
-            <td className="figure px-3 py-1">{money(qt.totalMinor)}</td>
-          </tr>
-        </tfoot>
-      </table>
+      <QuoteLinesTable presented={presented} />
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
       {stock ? <StockPromise lines={q.lines} {...stock} audience="customer" /> : null}
       {status === "accepted" && deposit > 0 ? (
