@@ -1,4 +1,5 @@
 import {
+  CalcInputError,
   fillTemplate,
   REGULATOR_LABELS,
   sizeParsedFuelSystem,
@@ -65,6 +66,31 @@ const R = (text: string, params?: FigureParams): Reason => (params ? { text, par
 const pct = (value: number): Figure => ({ value, quantity: "percent", decimals: 0 });
 const E = (value: number): Figure => ({ value, quantity: "ethanol" });
 const count = (value: number): Figure => ({ value, quantity: "count" });
+
+/**
+ * Sizes the build with one candidate's data; a part whose catalog data the library refuses (a
+ * pump without a usable flow curve, say) gives null, so one bad record cannot break every kit.
+ */
+function sizeWith(input: ParsedFuelSystemInput): FuelSystemResult | null {
+  try {
+    return sizeParsedFuelSystem(input);
+  } catch (e) {
+    if (e instanceof CalcInputError) return null;
+    throw e;
+  }
+}
+/** A candidate the kit could not check: listed last, never a fit. */
+function unchecked(role: KitRole, part: CatalogPart, quantity: number): Draft {
+  return {
+    role,
+    part,
+    quantity,
+    fits: false,
+    score: 10_000 + tieBreak(part, quantity),
+    why: [R("cannot be checked: its catalog data is incomplete (see the part's specs)")],
+    figure: null,
+  };
+}
 
 const available = (p: CatalogPart) => p.stock - p.reserved;
 const stockNote = (p: CatalogPart, qty: number): Reason =>
@@ -152,7 +178,8 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
   // Injectors: enough flow at the build's ΔP for the design duty at the richest blend, and a
   // pulse width at idle not below the injector's minimum.
   const injectors: Draft[] = of("injector").map((p) => {
-    const r = sizeParsedFuelSystem(withInjector(input, p));
+    const r = sizeWith(withInjector(input, p));
+    if (!r) return unchecked("injector", p, input.injectors.count);
     const why: Reason[] = [];
     let fits = true;
     // Duty at the worse end of the blend (calc-spec §7).
@@ -223,7 +250,11 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     let singleFits = false;
     for (const quantity of [1, 2]) {
       if (quantity === 2 && singleFits) break;
-      const r: FuelSystemResult = sizeParsedFuelSystem(withPump(input, p, quantity));
+      const r = sizeWith(withPump(input, p, quantity));
+      if (!r) {
+        pumps.push(unchecked("pump", p, quantity));
+        break;
+      }
       const margin = r.pump.marginPct;
       const why = [
         R(
@@ -307,7 +338,9 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
         filterDropKpa: current?.filterDropKpa ?? 0,
         roughnessMm: current?.roughnessMm,
       };
-      const r = sizeParsedFuelSystem({ ...input, lines: { ...input.lines, [side]: seg } });
+      const r = sizeWith({ ...input, lines: { ...input.lines, [side]: seg } });
+      if (!r)
+        return unchecked(side === "feed" ? "feed-line" : "return-line", p, Math.ceil(seg.lengthM));
       const l = side === "feed" ? r.lines.feed : r.lines.return;
       const drop = l?.pressureDropKpa ?? 0;
       const why = [

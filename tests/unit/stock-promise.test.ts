@@ -170,3 +170,41 @@ describe("an honest kit: best fit out of stock says so", () => {
     expect(a.map((c) => c.part.id)).toEqual(b.map((c) => c.part.id));
   });
 });
+
+describe("a part whose stored data the library refuses does not break the kit", () => {
+  const input = FuelSystemInputSchema.parse(boostedSix);
+  // Invented records; a pump stored without a usable curve (older data, a hand-edited row).
+  const pump = (id: string, curves: unknown[]): CatalogPart => ({
+    id,
+    sku: `P-${id.slice(-2)}`,
+    brand: "Test",
+    name: "Pump",
+    category: "pump",
+    priceMinor: 20000,
+    stock: 3,
+    reserved: 0,
+    expectedOn: null,
+    specs: { curves, mounting: "in-tank", ethanolOk: true },
+  });
+  const good = pump("00000000-0000-4000-8000-0000000000b1", [
+    {
+      voltage: 13.5,
+      points: [
+        { pressureKpa: 300, flowLPerH: 400 },
+        { pressureKpa: 600, flowLPerH: 330 },
+      ],
+    },
+  ]);
+  const broken = pump("00000000-0000-4000-8000-0000000000b2", []);
+
+  it("lists it last as not checked, never as a fit, and ranks the others as before", () => {
+    const pumps = recommendKit(input, [broken, good]).roles.find((r) => r.role === "pump")!;
+    const last = pumps.candidates.at(-1)!;
+    expect(last.part.id).toBe(broken.id);
+    expect(last.fits).toBe(false);
+    expect(last.why[0]!.text).toMatch(/cannot be checked/);
+    expect(pumps.candidates[0]!.part.id).toBe(good.id);
+    const alone = recommendKit(input, [good]).roles.find((r) => r.role === "pump")!;
+    expect(alone.candidates[0]!.figure).toBe(pumps.candidates[0]!.figure);
+  });
+});
