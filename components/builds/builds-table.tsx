@@ -31,12 +31,15 @@ const dutyLevel = (d: number) => (d >= 90 ? "danger" : d > 80 ? "caution" : "ok"
 export function BuildsTable({
   tuners,
   pageSize = 25,
+  initialStatus,
 }: {
   tuners: { id: string; name: string }[];
   pageSize?: number;
+  /** The status filter the page was opened with (`/builds?status=needs_sizing`). */
+  initialStatus?: BuildStatus;
 }) {
   const [q, setQ] = useState("");
-  const [status, setStatus] = useState<"" | BuildStatus>("");
+  const [status, setStatus] = useState<"" | BuildStatus>(initialStatus ?? "");
   const [tuner, setTuner] = useState("");
   const [sort, setSort] = useState<"updated" | "created" | "title">("updated");
   const [cursors, setCursors] = useState<string[]>([]);

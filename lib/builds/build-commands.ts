@@ -16,7 +16,12 @@ import { getVehicle } from "@/db/queries/vehicles";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { formatValue } from "@/lib/calc/quantities";
-import { FUEL_CHOICE_LABELS, refusedMove, type BuildStatus } from "@/lib/domain/builds";
+import {
+  FUEL_CHOICE_LABELS,
+  refusedMove,
+  vehicleText,
+  type BuildStatus,
+} from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
 import { isoDay } from "@/lib/domain/quotes";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
@@ -48,14 +53,6 @@ export async function createBuild(
   });
   return { build: buildData(b) };
 }
-
-/** A vehicle as words: "2004 Subaru Impreza WRX STI (EJ257)". */
-export const vehicleText = (v: {
-  year: number;
-  make: string;
-  model: string;
-  engine?: string | null;
-}) => `${v.year} ${v.make} ${v.model}${v.engine ? ` (${v.engine})` : ""}`.slice(0, 200);
 
 /**
  * The counter's draft build from a caller's goal: the customer's vehicle (picked, or added in the

@@ -87,6 +87,14 @@ export const FUEL_CHOICE_RANGES: Record<
   flex: { ethanolMinVolPct: 0, ethanolMaxVolPct: 83 },
 };
 
+/** A vehicle as words, as builds keep it: "2004 Subaru Impreza WRX STI (EJ257)". */
+export const vehicleText = (v: {
+  year: number;
+  make: string;
+  model: string;
+  engine?: string | null;
+}) => `${v.year} ${v.make} ${v.model}${v.engine ? ` (${v.engine})` : ""}`.slice(0, 200);
+
 /** What a build's status moves depend on besides the build itself. */
 export interface BuildStatusFacts {
   /** The build's quotes (superseded revisions left out) with their validity. */

@@ -6,12 +6,13 @@ import { normaliseVin, vinProblem } from "@/lib/domain/vin";
 const asNumber = (v: unknown) =>
   typeof v === "string" && v.trim() !== "" ? Number(v.trim()) : v === "" ? undefined : v;
 
+/** Blank or null is none (an API client sends back the nulls it read). */
 const optionalText = (max: number, label: string) =>
   z
     .string()
     .trim()
     .max(max, `${label} is too long (at most ${max} characters)`)
-    .optional()
+    .nullish()
     .transform((v) => (v ? v.replace(/\r\n?/g, "\n") : null));
 
 const required = (max: number, label: string) =>
@@ -39,7 +40,7 @@ const year = z.preprocess(
 const vin = z
   .string()
   .max(40, "VIN is too long")
-  .optional()
+  .nullish()
   .transform((v) => (v ? normaliseVin(v) : null))
   .transform((v) => v || null);
 
