@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionState, useState } from "react";
+import { startTransition, useActionState, useState } from "react";
 
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
@@ -42,7 +42,18 @@ export function DraftBuildForm({
   // A customer without vehicles starts with the new vehicle's fields open.
   const chosen = vehicle ?? (vehicles[0]?.id || "new");
   return (
-    <form action={action} noValidate className="space-y-5" aria-label="New build from a goal">
+    <form
+      // Sent by hand, not as the form's `action`: React resets a form after its action, and the
+      // selects would lose what was chosen when the server refuses a field.
+      onSubmit={(ev) => {
+        ev.preventDefault();
+        const data = new FormData(ev.currentTarget);
+        startTransition(() => action(data));
+      }}
+      noValidate
+      className="space-y-5"
+      aria-label="New build from a goal"
+    >
       <input type="hidden" name="units" value={units} />
       <SelectField
         label="Customer"
