@@ -79,6 +79,9 @@ describe("accessibility (axe-core)", () => {
       "/quotes",
       `/quotes/${quote!.id}`,
       "/customers",
+      "/customers/00000000-0000-4000-8000-000000000001",
+      "/builds/new?from=goal",
+      "/builds/10000000-0000-4000-8000-000000000005",
       "/settings",
       "/builds/10000000-0000-4000-8000-000000000002/dyno",
     ]) {
