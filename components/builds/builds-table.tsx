@@ -159,14 +159,15 @@ export function BuildsTable({
                   <td className="px-4 py-2">{b.tunerName ?? "—"}</td>
                   <td className="px-4 py-2">{STATUS_LABELS[b.status]}</td>
                   <td className="px-4 py-2 text-right">
-                    {b.dutyPct === null ? (
+                    {/* A build waiting for its sizing has no figures anyone checked yet. */}
+                    {b.dutyPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (
                       <Signal level={dutyLevel(b.dutyPct)}>{b.dutyPct.toFixed(0)} %</Signal>
                     )}
                   </td>
                   <td className="px-4 py-2 text-right">
-                    {b.marginPct === null ? (
+                    {b.marginPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (
                       <Signal
