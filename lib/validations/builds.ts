@@ -115,60 +115,89 @@ export const BuildDraftSchema = z
   });
 export type BuildDraft = z.output<typeof BuildDraftSchema>;
 
-/** Blank form fields are not sent. */
-const blankless = (o: Record<string, unknown>) =>
-  Object.fromEntries(Object.entries(o).filter(([, v]) => v !== "" && v !== undefined));
+/** A blank form field is no value. */
+const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
+const formText = (max: number, label: string) =>
+  z.preprocess(blank, z.string().trim().max(max, `${label} is too long`).optional());
 
 /**
- * The new-build page's form (flat fields; the power in the person's units, named by `units`):
- * `vehicleId` "new" takes the vehicle's fields (`vehicle.year` …). Turned into BuildDraftSchema's
- * shape, so the form and the API share its rules.
+ * The new-build page's form: flat fields named as the form names them (the power in the
+ * person's units, named by `units`; `vehicleId` "new" takes the `vehicle.*` fields), each
+ * checked under its own name, then put into BuildDraftSchema's shape for the command.
  */
 export const BuildDraftFormSchema = z
   .object({
-    customerId: z.string().optional(),
-    vehicleId: z.string().optional(),
-    title: z.string().optional(),
-    units: z.enum(["metric", "imperial"]).default("metric"),
-    displacementL: z.unknown().optional(),
-    cylinders: z.unknown().optional(),
-    aspiration: z.unknown().optional(),
-    power: z.unknown().optional(),
-    measuredAt: z.unknown().optional(),
-    fuel: z.unknown().optional(),
-    "vehicle.year": z.unknown().optional(),
-    "vehicle.make": z.string().optional(),
-    "vehicle.model": z.string().optional(),
-    "vehicle.engine": z.string().optional(),
-    "vehicle.vin": z.string().optional(),
+    customerId: z.uuid("Choose a customer"),
+    vehicleId: z.preprocess(
+      blank,
+      z.union([z.literal("new"), z.uuid("Pick a vehicle")]).optional(),
+    ),
+    title: formText(120, "Title"),
+    units: z.enum(["metric", "imperial"], { error: "Unknown units" }).default("metric"),
+    displacementL: BuildGoalSchema.shape.displacementL,
+    cylinders: BuildGoalSchema.shape.cylinders,
+    aspiration: BuildGoalSchema.shape.aspiration,
+    power: z.preprocess(
+      asNumber,
+      z
+        .number({
+          error: (iss) =>
+            iss.input === undefined ? "Enter the power goal" : "Power goal must be a number",
+        })
+        .positive("Power goal must be above zero"),
+    ),
+    measuredAt: BuildGoalSchema.shape.measuredAt,
+    fuel: BuildGoalSchema.shape.fuel,
+    "vehicle.year": z.preprocess(blank, z.unknown().optional()),
+    "vehicle.make": formText(60, "Make"),
+    "vehicle.model": formText(80, "Model"),
+    "vehicle.engine": formText(120, "Engine"),
+    "vehicle.vin": formText(40, "VIN"),
   })
-  .transform((f) => {
-    const power = asNumber(f.power);
-    return blankless({
-      customerId: f.customerId || undefined,
-      vehicleId: f.vehicleId && f.vehicleId !== "new" ? f.vehicleId : undefined,
-      newVehicle:
-        f.vehicleId === "new"
-          ? blankless({
-              year: f["vehicle.year"],
-              make: f["vehicle.make"],
-              model: f["vehicle.model"],
-              engine: f["vehicle.engine"],
-              vin: f["vehicle.vin"],
-            })
-          : undefined,
-      title: f.title?.trim() || undefined,
-      goal: blankless({
-        displacementL: f.displacementL,
-        cylinders: f.cylinders,
-        aspiration: f.aspiration,
-        powerKw:
-          typeof power === "number" && Number.isFinite(power)
-            ? converter("power", f.units).from(power)
-            : power,
-        measuredAt: f.measuredAt,
-        fuel: f.fuel,
-      }),
+  .transform((f, ctx) => {
+    const powerKw = converter("power", f.units).from(f.power);
+    const goal = BuildGoalSchema.safeParse({
+      displacementL: f.displacementL,
+      cylinders: f.cylinders,
+      aspiration: f.aspiration,
+      powerKw,
+      measuredAt: f.measuredAt,
+      fuel: f.fuel,
     });
-  })
-  .pipe(BuildDraftSchema);
+    // Only the power can fail here: its bounds are the schema's, in kW.
+    if (!goal.success) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["power"],
+        message: "Power goal must be between 1 and 5000 kW (about 1.3 to 6700 hp)",
+      });
+      return z.NEVER;
+    }
+    let newVehicle: z.output<typeof VehicleSchema> | undefined;
+    if (f.vehicleId === "new") {
+      const v = VehicleSchema.safeParse({
+        year: f["vehicle.year"],
+        make: f["vehicle.make"],
+        model: f["vehicle.model"],
+        engine: f["vehicle.engine"],
+        vin: f["vehicle.vin"],
+      });
+      if (!v.success) {
+        for (const i of v.error.issues)
+          ctx.addIssue({
+            code: "custom",
+            path: [`vehicle.${String(i.path[0])}`],
+            message: i.message,
+          });
+        return z.NEVER;
+      }
+      newVehicle = v.data;
+    }
+    return {
+      customerId: f.customerId,
+      vehicleId: f.vehicleId && f.vehicleId !== "new" ? f.vehicleId : undefined,
+      newVehicle,
+      title: f.title || undefined,
+      goal: goal.data,
+    } satisfies BuildDraft;
+  });

@@ -96,21 +96,21 @@ export function DraftBuildForm({
               inputMode="numeric"
               autoComplete="off"
               defaultValue={v["vehicle.year"]}
-              error={e["newVehicle.year"]}
+              error={e["vehicle.year"]}
             />
             <Field
               label="Make"
               name="vehicle.make"
               autoComplete="off"
               defaultValue={v["vehicle.make"]}
-              error={e["newVehicle.make"]}
+              error={e["vehicle.make"]}
             />
             <Field
               label="Model"
               name="vehicle.model"
               autoComplete="off"
               defaultValue={v["vehicle.model"]}
-              error={e["newVehicle.model"]}
+              error={e["vehicle.model"]}
             />
             <div className="sm:col-span-2">
               <Field
@@ -118,7 +118,7 @@ export function DraftBuildForm({
                 name="vehicle.engine"
                 autoComplete="off"
                 defaultValue={v["vehicle.engine"]}
-                error={e["newVehicle.engine"]}
+                error={e["vehicle.engine"]}
               />
             </div>
             <Field
@@ -126,7 +126,7 @@ export function DraftBuildForm({
               name="vehicle.vin"
               autoComplete="off"
               defaultValue={v["vehicle.vin"]}
-              error={e["newVehicle.vin"]}
+              error={e["vehicle.vin"]}
             />
           </div>
         ) : null}
@@ -139,7 +139,7 @@ export function DraftBuildForm({
           inputMode="decimal"
           autoComplete="off"
           defaultValue={v.displacementL}
-          error={e["goal.displacementL"]}
+          error={e.displacementL}
         />
         <Field
           label="Cylinders"
@@ -147,13 +147,13 @@ export function DraftBuildForm({
           inputMode="numeric"
           autoComplete="off"
           defaultValue={v.cylinders}
-          error={e["goal.cylinders"]}
+          error={e.cylinders}
         />
         <SelectField
           label="Aspiration"
           name="aspiration"
           defaultValue={v.aspiration ?? ""}
-          error={e["goal.aspiration"]}
+          error={e.aspiration}
         >
           <option value="">Choose…</option>
           {Object.entries(ASPIRATION_LABELS).map(([k, label]) => (
@@ -171,13 +171,13 @@ export function DraftBuildForm({
           inputMode="decimal"
           autoComplete="off"
           defaultValue={v.power}
-          error={e["goal.powerKw"]}
+          error={e.power}
         />
         <SelectField
           label="Measured"
           name="measuredAt"
           defaultValue={v.measuredAt ?? "wheel"}
-          error={e["goal.measuredAt"]}
+          error={e.measuredAt}
         >
           {Object.entries(MEASURED_AT_LABELS).map(([k, label]) => (
             <option key={k} value={k}>
@@ -185,7 +185,7 @@ export function DraftBuildForm({
             </option>
           ))}
         </SelectField>
-        <SelectField label="Fuel" name="fuel" defaultValue={v.fuel ?? ""} error={e["goal.fuel"]}>
+        <SelectField label="Fuel" name="fuel" defaultValue={v.fuel ?? ""} error={e.fuel}>
           <option value="">Choose…</option>
           {FUEL_CHOICES.map((f) => (
             <option key={f} value={f}>
