@@ -340,7 +340,10 @@ describe("the counter's draft build and the tuners' queue", () => {
     expect(await queue()).toContain(id);
     const page = await request(tuner, "GET", "/builds");
     expect(page.text).toMatch(/builds? need(s)?(<!-- -->)? sizing/);
-    expect(page.text).toContain(`${tag} queue build`);
+    // The panel lists the oldest waiting first.
+    const [oldest] =
+      await sql`select id from builds where shop_id = ${SHOP} and status = 'needs_sizing' order by created_at, id limit 1`;
+    expect(page.text).toContain(`href="/builds/${oldest!.id}"`);
     // The counter reads the build; its sizing fields say whose they are.
     const seen = await request(counter, "GET", `/builds/${id}`);
     expect(seen.text).toContain("Needs sizing");
