@@ -2,6 +2,8 @@ import { drizzle } from "drizzle-orm/postgres-js";
 import { migrate } from "drizzle-orm/postgres-js/migrator";
 import postgres from "postgres";
 
+import { normaliseStoredPhones } from "./normalise-phones";
+
 const url = process.env.DATABASE_URL;
 if (!url) {
   console.error("DATABASE_URL is not set");
@@ -12,7 +14,10 @@ try {
   await migrate(drizzle(sql), {
     migrationsFolder: new URL("./migrations", import.meta.url).pathname,
   });
-  console.log("migrations: up to date");
+  const phones = await normaliseStoredPhones(sql);
+  console.log(
+    `migrations: up to date${phones ? ` (${phones} phone numbers stored as E.164)` : ""}`,
+  );
 } finally {
   await sql.end();
 }

@@ -17,6 +17,7 @@ import {
 } from "../lib/calc";
 import { DEFAULT_BSFC } from "../lib/calc/power";
 import { quoteTotals } from "../lib/catalog/quote-totals";
+import type { BuildStatus } from "../lib/domain/builds";
 import { parsedEffectiveInputs, sizingSettingsOf } from "../lib/sizing/effective-inputs";
 import * as schema from "./schema";
 import { DEMO_PARTS } from "./seed-catalog";
@@ -55,30 +56,47 @@ const CUSTOMERS = [
     id: "00000000-0000-4000-8000-000000000001",
     name: "Dashiell Moreau",
     email: "customer@demo.fuelwright.test",
-    phone: "555-0142",
+    phone: "+12015550142",
     notes: "Turbo six, flex fuel. Wants 500 whp on pump E85.",
     userId: "demo-user-customer",
+    addressLine1: "88 Kestrel Row",
+    city: "Millbrook",
+    region: "NJ",
+    postcode: "07999",
   },
   {
     id: "00000000-0000-4000-8000-000000000002",
     name: "Harriet Quill",
     email: "harriet.quill@example.test",
-    phone: "555-0177",
+    phone: "+12015550177",
     notes: "NA four-cylinder track car.",
+    addressLine1: "3 Tannery Court",
+    addressLine2: "Unit 2",
+    city: "Millbrook",
+    region: "NJ",
+    postcode: "07999",
   },
   {
     id: "00000000-0000-4000-8000-000000000003",
     name: "Bo Castellanos",
     email: "bo.castellanos@example.test",
-    phone: "555-0103",
+    phone: "+12015550103",
     notes: "Supercharged V8, twin pumps planned.",
+    addressLine1: "1200 Quarry Road",
+    city: "Alder Falls",
+    region: "NJ",
+    postcode: "07998",
   },
   {
     id: "00000000-0000-4000-8000-000000000004",
     name: "Ingrid Achterberg",
     email: null,
-    phone: "555-0199",
+    phone: "+12015550188",
     notes: null,
+    addressLine1: "41 Weir Street",
+    city: "Alder Falls",
+    region: "NJ",
+    postcode: "07998",
   },
   {
     id: "00000000-0000-4000-8000-000000000005",
@@ -88,6 +106,55 @@ const CUSTOMERS = [
     notes: "Drag car, methanol later?",
   },
 ];
+
+/** Invented vehicles of the demo customers (makes and models are made up). */
+export const DEMO_VEHICLES = [
+  {
+    id: "20000000-0000-4000-8000-000000000001",
+    customerId: CUSTOMERS[1]!.id,
+    year: 2009,
+    make: "Harlan",
+    model: "Vesta",
+    engine: "2.0 NA four",
+    notes: "Track car; caged.",
+  },
+  {
+    id: "20000000-0000-4000-8000-000000000002",
+    customerId: CUSTOMERS[0]!.id,
+    year: 2016,
+    make: "Corvane",
+    model: "RX6",
+    engine: "3.0 turbo inline-six",
+    notes: null,
+  },
+  {
+    id: "20000000-0000-4000-8000-000000000003",
+    customerId: CUSTOMERS[2]!.id,
+    year: 2012,
+    make: "Brennan",
+    model: "Stag",
+    engine: "5.0 twin-turbo V8",
+    notes: null,
+  },
+  {
+    id: "20000000-0000-4000-8000-000000000004",
+    customerId: CUSTOMERS[4]!.id,
+    year: 2007,
+    make: "Ostrander",
+    model: "GT",
+    engine: "3.5 supercharged V6",
+    notes: "Drag car.",
+  },
+  {
+    id: "20000000-0000-4000-8000-000000000005",
+    customerId: CUSTOMERS[3]!.id,
+    year: 1998,
+    make: "Tamsin",
+    model: "Coupe 2.2",
+    engine: "2.2 turbo four",
+    notes: "Caller wants pump E85.",
+  },
+] as const;
 
 const pump = (quantity: number, scale = 1) => ({
   label: "Ridgeline RP-340 (demo curve)",
@@ -122,14 +189,18 @@ export const DEMO_BUILDS: {
   customerId: string;
   title: string;
   vehicle: string;
-  status: "draft" | "sized" | "quoted" | "ordered" | "fitted" | "verified";
+  vehicleId: string;
+  status: BuildStatus;
   inputs: FuelSystemInput;
+  /** Who took it: the counter's draft from a caller's goal has no tuner yet. */
+  by?: "counter";
 }[] = [
   {
     id: "10000000-0000-4000-8000-000000000001",
     customerId: CUSTOMERS[1]!.id,
     title: "Track day on pump gas",
-    vehicle: "Harlan Vesta 2.0 NA four",
+    vehicle: "2009 Harlan Vesta (2.0 NA four)",
+    vehicleId: DEMO_VEHICLES[0].id,
     status: "fitted",
     inputs: {
       engine: {
@@ -152,7 +223,8 @@ export const DEMO_BUILDS: {
     id: "10000000-0000-4000-8000-000000000002",
     customerId: CUSTOMERS[0]!.id,
     title: "500 whp on pump E85",
-    vehicle: "Corvane RX6 3.0 turbo inline-six",
+    vehicle: "2016 Corvane RX6 (3.0 turbo inline-six)",
+    vehicleId: DEMO_VEHICLES[1].id,
     status: "sized",
     inputs: {
       engine: {
@@ -179,7 +251,8 @@ export const DEMO_BUILDS: {
     id: "10000000-0000-4000-8000-000000000003",
     customerId: CUSTOMERS[2]!.id,
     title: "Twin-turbo V8, last of the injectors",
-    vehicle: "Brennan Stag 5.0 twin-turbo V8",
+    vehicle: "2012 Brennan Stag (5.0 twin-turbo V8)",
+    vehicleId: DEMO_VEHICLES[2].id,
     status: "quoted",
     inputs: {
       engine: {
@@ -202,7 +275,8 @@ export const DEMO_BUILDS: {
     id: "10000000-0000-4000-8000-000000000004",
     customerId: CUSTOMERS[4]!.id,
     title: "Supercharged V6 that leans out at boost",
-    vehicle: "Ostrander GT 3.5 supercharged V6",
+    vehicle: "2007 Ostrander GT (3.5 supercharged V6)",
+    vehicleId: DEMO_VEHICLES[3].id,
     status: "draft",
     inputs: {
       engine: {
@@ -219,6 +293,32 @@ export const DEMO_BUILDS: {
       regulator: { type: "fixed", basePressureKpa: 380 },
       pumps: [pump(1, 0.7)],
       electrical: { voltageAtPump: 12.5 },
+    },
+  },
+  {
+    // The counter took this one on the phone: the goal set, the rest starting values.
+    id: "10000000-0000-4000-8000-000000000005",
+    customerId: CUSTOMERS[3]!.id,
+    title: "1998 Tamsin Coupe 2.2: 260 kW at the wheels on E85",
+    vehicle: "1998 Tamsin Coupe 2.2 (2.2 turbo four)",
+    vehicleId: DEMO_VEHICLES[4].id,
+    status: "needs_sizing",
+    by: "counter",
+    inputs: {
+      engine: {
+        cylinders: 4,
+        displacementL: 2.2,
+        aspiration: "turbo",
+        redlineRpm: 7000,
+        idleRpm: 850,
+        maxBoostKpa: 150,
+      },
+      target: { powerKw: 260, measuredAt: "wheel", driveType: "manual" },
+      fuel: { ethanolMinVolPct: 51, ethanolMaxVolPct: 83 },
+      injectors: { count: 4, ratedFlowCcPerMin: 1000, ratedPressureKpa: 300 },
+      regulator: { type: "boost-referenced", basePressureKpa: 300 },
+      pumps: [pump(1)],
+      electrical: { voltageAtPump: 13.0 },
     },
   },
 ];
@@ -338,6 +438,11 @@ export async function seed(url: string) {
           .insert(schema.customers)
           .values({ ...c, shopId: DEMO_SHOP_ID })
           .onConflictDoNothing();
+      for (const v of DEMO_VEHICLES)
+        await tx
+          .insert(schema.vehicles)
+          .values({ ...v, shopId: DEMO_SHOP_ID })
+          .onConflictDoNothing();
       // Sized like every save: the build's own inputs with the demo shop's settings.
       const [demoSettings] = await tx
         .select()
@@ -363,10 +468,11 @@ export async function seed(url: string) {
             customerId: b.customerId,
             title: b.title,
             vehicle: b.vehicle,
+            vehicleId: b.vehicleId,
             status: b.status,
-            tunerId: "demo-user-tuner",
-            createdBy: "demo-user-tuner",
-            updatedBy: "demo-user-tuner",
+            tunerId: b.by ? null : "demo-user-tuner",
+            createdBy: b.by ? "demo-user-counter" : "demo-user-tuner",
+            updatedBy: b.by ? "demo-user-counter" : "demo-user-tuner",
           })
           .onConflictDoNothing()
           .returning({ id: schema.builds.id });
@@ -376,8 +482,8 @@ export async function seed(url: string) {
             buildId: b.id,
             version: 1,
             status: b.status,
-            authorId: "demo-user-tuner",
-            note: "Demo build",
+            authorId: b.by ? "demo-user-counter" : "demo-user-tuner",
+            note: b.by ? "Goal taken on the phone (demo)" : "Demo build",
           });
       }
       // Seeded before the status rules: the first demo build as verified with no dyno log. Left

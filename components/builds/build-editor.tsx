@@ -1,6 +1,14 @@
 "use client";
 
-import { useEffect, useMemo, useRef, useState, useTransition } from "react";
+import {
+  createContext,
+  useContext,
+  useEffect,
+  useMemo,
+  useRef,
+  useState,
+  useTransition,
+} from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
 import { Button } from "@/components/ui/button";
@@ -141,6 +149,9 @@ function valuesOf(
   return { ...convertInputs(full, units, "toShown"), title, status, include };
 }
 
+/** On a page the reader may not edit: the label every section carries (whose fields they are). */
+const LockedLabel = createContext<string | null>(null);
+
 function Section({
   title,
   children,
@@ -150,9 +161,17 @@ function Section({
   children?: React.ReactNode;
   toggle?: React.ReactNode;
 }) {
+  const locked = useContext(LockedLabel);
   return (
     <fieldset className="rounded-lg border border-ink-200 bg-white p-4">
-      <legend className="px-1 font-display text-lg font-semibold">{title}</legend>
+      <legend className="px-1 font-display text-lg font-semibold">
+        {title}
+        {locked ? (
+          <span className="ml-2 rounded bg-ink-100 px-2 py-0.5 align-middle font-sans text-xs font-medium text-ink-700">
+            {locked}
+          </span>
+        ) : null}
+      </legend>
       {toggle}
       {children ? <div className="mt-2 grid gap-3 sm:grid-cols-2">{children}</div> : null}
     </fieldset>
@@ -257,6 +276,11 @@ export function BuildEditor(props: {
   version: number;
   inputs: FuelSystemInput;
   readOnly: boolean;
+  /**
+   * Why the reader may not edit, said above the sheet and on every section (the counter: the
+   * sizing fields are the tuner's). Left out: the sections are read-only without a word.
+   */
+  readOnlyReason?: { note: string; label: string };
   units: UnitSystem;
   shopBsfc?: ShopBsfcRow[];
   /** The shop's settings of today: what a save sizes with, so the live results use them too. */
@@ -553,254 +577,283 @@ export function BuildEditor(props: {
           ) : null}
         </div>
       ) : null}
-      <form
-        ref={formRef}
-        aria-label="Build inputs"
-        noValidate
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (parsed.success && effective?.success && titleCheck.success) save();
-          else {
-            setSaved({ ok: false, message: "Check the highlighted fields" });
-            focusFirstInvalid();
-          }
-        }}
-      >
-        <fieldset disabled={props.readOnly} className="space-y-4">
-          <div className="flex flex-wrap items-end gap-3">
-            <div className="min-w-64 flex-1">
-              <label htmlFor="b-title" className="block text-sm font-medium text-ink-700">
-                Title
-              </label>
-              <input
-                id="b-title"
-                aria-invalid={Boolean(errors.title)}
-                aria-describedby={errors.title ? "b-title-err" : undefined}
-                className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600"
-                {...register("title")}
-              />
-              {errors.title ? (
-                <p id="b-title-err" role="alert" className="mt-1 text-sm text-danger-700">
-                  ✕ {errors.title}
-                </p>
-              ) : null}
-            </div>
-            <StatusControl
-              register={register}
-              status={baseline.status}
-              facts={props.statusFacts}
-              error={errors.status}
-            />
-          </div>
-        </fieldset>
-        <div
-          role="radiogroup"
-          aria-label="Units"
-          className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm"
+      {props.readOnly && props.readOnlyReason ? (
+        <p
+          id="b-readonly-note"
+          role="note"
+          data-testid="read-only-note"
+          className="rounded-lg border border-ink-300 bg-ink-100 p-4 text-sm text-ink-800 lg:col-span-2"
         >
-          {(["metric", "imperial"] as const).map((u) => (
-            <button
-              key={u}
-              type="button"
-              role="radio"
-              aria-checked={units === u}
-              onClick={() => switchUnits(u)}
-              className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}
-            >
-              {u === "metric" ? "Metric (kPa, kW, cc/min)" : "Imperial (psi, hp, lb/h)"}
-            </button>
-          ))}
-        </div>
-        <fieldset disabled={props.readOnly} className="mt-4 space-y-4">
-          <Section title="Engine">
-            {num("engine.cylinders")}
-            {num("engine.displacementL")}
-            {select("engine.aspiration")}
-            {num("engine.maxBoostKpa")}
-            {num("engine.redlineRpm")}
-            {num("engine.idleRpm")}
-          </Section>
-          <Section title="Power goal">
-            {num("target.powerKw")}
-            {select("target.measuredAt")}
-            {select("target.driveType")}
-            <div>
-              {num("target.drivetrainLossPct")}
-              {values.target?.drivetrainLossPct === undefined ||
-              String(values.target?.drivetrainLossPct) === "" ? (
-                <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
-                  Blank: the shop&apos;s{" "}
-                  {formatValue(
-                    "percent",
-                    props.sizingSettings.drivetrainLossPct[driveTypeOf(values)],
-                    units,
-                    0,
-                  )}{" "}
-                  for this drive.
-                </p>
-              ) : null}
-            </div>
-          </Section>
-          <Section title="Fuel and blend range">
-            {num("fuel.ethanolMinVolPct")}
-            {num("fuel.ethanolMaxVolPct")}
-            {num("fuel.bsfcGPerKwh")}
-            {num("fuel.bsfcEthanolVolPct")}
-            {num("fuel.targetLambda")}
-            <ShopBsfcOffer
-              row={shopBsfcFor(
-                props.shopBsfc ?? [],
-                Number(inputs.fuel?.ethanolMaxVolPct),
-                inputs.engine?.aspiration ?? "na",
-              )}
-              units={units}
-              current={inputs.fuel?.bsfcGPerKwh}
-              onUse={(g, ethanolVolPct) => {
-                setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, {
-                  shouldDirty: true,
-                });
-                // The measured figure belongs to the fuel it was measured on (calc-spec §2).
-                setValue("fuel.bsfcEthanolVolPct" as never, ethanolVolPct as never, {
-                  shouldDirty: true,
-                });
-              }}
-            />
-          </Section>
-          <Section
-            title="Injectors"
-            toggle={
-              <div className="mb-1">{toggle("deadTime", "Use the injector's dead-time table")}</div>
+          <span aria-hidden="true">🔒 </span>
+          {props.readOnlyReason.note}
+        </p>
+      ) : null}
+      <LockedLabel.Provider value={props.readOnly ? (props.readOnlyReason?.label ?? null) : null}>
+        <form
+          ref={formRef}
+          aria-label="Build inputs"
+          noValidate
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (parsed.success && effective?.success && titleCheck.success) save();
+            else {
+              setSaved({ ok: false, message: "Check the highlighted fields" });
+              focusFirstInvalid();
             }
+          }}
+        >
+          <fieldset
+            disabled={props.readOnly}
+            aria-describedby={
+              props.readOnly && props.readOnlyReason ? "b-readonly-note" : undefined
+            }
+            className="space-y-4"
           >
-            {num("injectors.count")}
-            {num("injectors.ratedFlowCcPerMin")}
-            {num("injectors.ratedPressureKpa")}
-            {num("injectors.minPulseWidthMs")}
-            {inc.deadTime ? (
-              <div className="sm:col-span-2">
-                <DeadTimeGrid
-                  control={control as never}
-                  register={register as never}
-                  setValue={setValue as never}
-                  pressureUnit={unitOf("pressure", units)}
-                  errors={errors}
-                  toNumber={toNumber}
+            <div className="flex flex-wrap items-end gap-3">
+              <div className="min-w-64 flex-1">
+                <label htmlFor="b-title" className="block text-sm font-medium text-ink-700">
+                  Title
+                </label>
+                <input
+                  id="b-title"
+                  aria-invalid={Boolean(errors.title)}
+                  aria-describedby={errors.title ? "b-title-err" : undefined}
+                  className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600"
+                  {...register("title")}
                 />
-              </div>
-            ) : null}
-          </Section>
-          <Section title="Regulator">
-            {select("regulator.type")}
-            {num("regulator.basePressureKpa")}
-          </Section>
-          <Section title="Pump">
-            {num("pumps.0.quantity")}
-            {num("pumps.0.curves.0.voltage")}
-            <div className="sm:col-span-2">
-              <p className="text-sm font-medium text-ink-700">Flow curve</p>
-              {errors["pumps.0.curves.0.points"] ? (
-                <p role="alert" className="text-sm text-danger-700">
-                  ✕ {errors["pumps.0.curves.0.points"]}
-                </p>
-              ) : null}
-              <div className="mt-1 space-y-2">
-                {points.fields.map((p, i) => (
-                  <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    {num(`pumps.0.curves.0.points.${i}.pressureKpa`)}
-                    {num(`pumps.0.curves.0.points.${i}.flowLPerH`)}
-                    <Button
-                      type="button"
-                      variant="ghost"
-                      aria-label={`Remove point ${i + 1}`}
-                      onClick={() => points.remove(i)}
-                    >
-                      ✕
-                    </Button>
-                  </div>
-                ))}
-              </div>
-              <Button
-                type="button"
-                variant="secondary"
-                className="mt-2"
-                onClick={() =>
-                  points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)
-                }
-              >
-                Add point
-              </Button>
-            </div>
-          </Section>
-          <Section
-            title="Electrical"
-            toggle={
-              <div className="mb-1">{toggle("wiring", "Work out the voltage from the wiring")}</div>
-            }
-          >
-            {num("electrical.voltageAtPump")}
-            {num("electrical.injectorVoltage")}
-            {inc.wiring
-              ? [
-                  num("electrical.wiring.sourceVoltage"),
-                  num("electrical.wiring.gaugeAwg"),
-                  num("electrical.wiring.roundTripLengthM"),
-                  num("electrical.wiring.currentA"),
-                ]
-              : null}
-          </Section>
-          <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
-            {inc.feed ? lineFields("feed") : null}
-          </Section>
-          <Section
-            title="Return line"
-            toggle={toggle("return", "Size the return line (regulator to tank)")}
-          >
-            {inc.return ? lineFields("return") : null}
-          </Section>
-          {!props.readOnly ? (
-            <div className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3">
-              <Button type="submit" disabled={pending}>
-                {pending ? "Saving…" : "Save build"}
-              </Button>
-              <span className="figure text-sm text-ink-600">
-                version {version}
-                {dirty ? " · unsaved changes" : ""}
-              </span>
-              <FormStatus ok={saved?.ok} message={saved?.message} />
-              {conflict ? (
-                <div className="w-full text-sm text-caution-700" data-testid="conflict">
-                  <p>
-                    ▲ {conflict.updatedByName ?? "Someone"} saved version {conflict.version} (“
-                    {conflict.title}”) at {conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC.
-                    Your entries are still here; nothing was overwritten. Reload to take theirs,
-                    then re-apply yours.
+                {errors.title ? (
+                  <p id="b-title-err" role="alert" className="mt-1 text-sm text-danger-700">
+                    ✕ {errors.title}
                   </p>
-                  {conflictChanges.length > 0 ? (
-                    <table className="mt-2 w-full text-left text-ink-800">
-                      <thead>
-                        <tr>
-                          <th scope="col">Field</th>
-                          <th scope="col">Yours</th>
-                          <th scope="col">Theirs (saved)</th>
-                        </tr>
-                      </thead>
-                      <tbody>
-                        {conflictChanges.map((c) => (
-                          <tr key={c.path}>
-                            <td>{c.label}</td>
-                            <td className="figure">{c.before}</td>
-                            <td className="figure">{c.after}</td>
-                          </tr>
-                        ))}
-                      </tbody>
-                    </table>
-                  ) : null}
+                ) : null}
+              </div>
+              <StatusControl
+                register={register}
+                status={baseline.status}
+                facts={props.statusFacts}
+                error={errors.status}
+              />
+            </div>
+          </fieldset>
+          <div
+            role="radiogroup"
+            aria-label="Units"
+            className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm"
+          >
+            {(["metric", "imperial"] as const).map((u) => (
+              <button
+                key={u}
+                type="button"
+                role="radio"
+                aria-checked={units === u}
+                onClick={() => switchUnits(u)}
+                className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}
+              >
+                {u === "metric" ? "Metric (kPa, kW, cc/min)" : "Imperial (psi, hp, lb/h)"}
+              </button>
+            ))}
+          </div>
+          <fieldset
+            disabled={props.readOnly}
+            aria-describedby={
+              props.readOnly && props.readOnlyReason ? "b-readonly-note" : undefined
+            }
+            className="mt-4 space-y-4"
+          >
+            <Section title="Engine">
+              {num("engine.cylinders")}
+              {num("engine.displacementL")}
+              {select("engine.aspiration")}
+              {num("engine.maxBoostKpa")}
+              {num("engine.redlineRpm")}
+              {num("engine.idleRpm")}
+            </Section>
+            <Section title="Power goal">
+              {num("target.powerKw")}
+              {select("target.measuredAt")}
+              {select("target.driveType")}
+              <div>
+                {num("target.drivetrainLossPct")}
+                {values.target?.drivetrainLossPct === undefined ||
+                String(values.target?.drivetrainLossPct) === "" ? (
+                  <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
+                    Blank: the shop&apos;s{" "}
+                    {formatValue(
+                      "percent",
+                      props.sizingSettings.drivetrainLossPct[driveTypeOf(values)],
+                      units,
+                      0,
+                    )}{" "}
+                    for this drive.
+                  </p>
+                ) : null}
+              </div>
+            </Section>
+            <Section title="Fuel and blend range">
+              {num("fuel.ethanolMinVolPct")}
+              {num("fuel.ethanolMaxVolPct")}
+              {num("fuel.bsfcGPerKwh")}
+              {num("fuel.bsfcEthanolVolPct")}
+              {num("fuel.targetLambda")}
+              <ShopBsfcOffer
+                row={shopBsfcFor(
+                  props.shopBsfc ?? [],
+                  Number(inputs.fuel?.ethanolMaxVolPct),
+                  inputs.engine?.aspiration ?? "na",
+                )}
+                units={units}
+                current={inputs.fuel?.bsfcGPerKwh}
+                onUse={(g, ethanolVolPct) => {
+                  setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, {
+                    shouldDirty: true,
+                  });
+                  // The measured figure belongs to the fuel it was measured on (calc-spec §2).
+                  setValue("fuel.bsfcEthanolVolPct" as never, ethanolVolPct as never, {
+                    shouldDirty: true,
+                  });
+                }}
+              />
+            </Section>
+            <Section
+              title="Injectors"
+              toggle={
+                <div className="mb-1">
+                  {toggle("deadTime", "Use the injector's dead-time table")}
+                </div>
+              }
+            >
+              {num("injectors.count")}
+              {num("injectors.ratedFlowCcPerMin")}
+              {num("injectors.ratedPressureKpa")}
+              {num("injectors.minPulseWidthMs")}
+              {inc.deadTime ? (
+                <div className="sm:col-span-2">
+                  <DeadTimeGrid
+                    control={control as never}
+                    register={register as never}
+                    setValue={setValue as never}
+                    pressureUnit={unitOf("pressure", units)}
+                    errors={errors}
+                    toNumber={toNumber}
+                  />
                 </div>
               ) : null}
-            </div>
-          ) : null}
-        </fieldset>
-      </form>
+            </Section>
+            <Section title="Regulator">
+              {select("regulator.type")}
+              {num("regulator.basePressureKpa")}
+            </Section>
+            <Section title="Pump">
+              {num("pumps.0.quantity")}
+              {num("pumps.0.curves.0.voltage")}
+              <div className="sm:col-span-2">
+                <p className="text-sm font-medium text-ink-700">Flow curve</p>
+                {errors["pumps.0.curves.0.points"] ? (
+                  <p role="alert" className="text-sm text-danger-700">
+                    ✕ {errors["pumps.0.curves.0.points"]}
+                  </p>
+                ) : null}
+                <div className="mt-1 space-y-2">
+                  {points.fields.map((p, i) => (
+                    <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
+                      {num(`pumps.0.curves.0.points.${i}.pressureKpa`)}
+                      {num(`pumps.0.curves.0.points.${i}.flowLPerH`)}
+                      <Button
+                        type="button"
+                        variant="ghost"
+                        aria-label={`Remove point ${i + 1}`}
+                        onClick={() => points.remove(i)}
+                      >
+                        ✕
+                      </Button>
+                    </div>
+                  ))}
+                </div>
+                <Button
+                  type="button"
+                  variant="secondary"
+                  className="mt-2"
+                  onClick={() =>
+                    points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)
+                  }
+                >
+                  Add point
+                </Button>
+              </div>
+            </Section>
+            <Section
+              title="Electrical"
+              toggle={
+                <div className="mb-1">
+                  {toggle("wiring", "Work out the voltage from the wiring")}
+                </div>
+              }
+            >
+              {num("electrical.voltageAtPump")}
+              {num("electrical.injectorVoltage")}
+              {inc.wiring
+                ? [
+                    num("electrical.wiring.sourceVoltage"),
+                    num("electrical.wiring.gaugeAwg"),
+                    num("electrical.wiring.roundTripLengthM"),
+                    num("electrical.wiring.currentA"),
+                  ]
+                : null}
+            </Section>
+            <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
+              {inc.feed ? lineFields("feed") : null}
+            </Section>
+            <Section
+              title="Return line"
+              toggle={toggle("return", "Size the return line (regulator to tank)")}
+            >
+              {inc.return ? lineFields("return") : null}
+            </Section>
+            {!props.readOnly ? (
+              <div className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3">
+                <Button type="submit" disabled={pending}>
+                  {pending ? "Saving…" : "Save build"}
+                </Button>
+                <span className="figure text-sm text-ink-600">
+                  version {version}
+                  {dirty ? " · unsaved changes" : ""}
+                </span>
+                <FormStatus ok={saved?.ok} message={saved?.message} />
+                {conflict ? (
+                  <div className="w-full text-sm text-caution-700" data-testid="conflict">
+                    <p>
+                      ▲ {conflict.updatedByName ?? "Someone"} saved version {conflict.version} (“
+                      {conflict.title}”) at {conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC.
+                      Your entries are still here; nothing was overwritten. Reload to take theirs,
+                      then re-apply yours.
+                    </p>
+                    {conflictChanges.length > 0 ? (
+                      <table className="mt-2 w-full text-left text-ink-800">
+                        <thead>
+                          <tr>
+                            <th scope="col">Field</th>
+                            <th scope="col">Yours</th>
+                            <th scope="col">Theirs (saved)</th>
+                          </tr>
+                        </thead>
+                        <tbody>
+                          {conflictChanges.map((c) => (
+                            <tr key={c.path}>
+                              <td>{c.label}</td>
+                              <td className="figure">{c.before}</td>
+                              <td className="figure">{c.after}</td>
+                            </tr>
+                          ))}
+                        </tbody>
+                      </table>
+                    ) : null}
+                  </div>
+                ) : null}
+              </div>
+            ) : null}
+          </fieldset>
+        </form>
+      </LockedLabel.Provider>
       <div>
         <ResultsPanel result={result} units={units} />
         {result && effective?.success ? (

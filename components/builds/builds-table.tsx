@@ -31,12 +31,15 @@ const dutyLevel = (d: number) => (d >= 90 ? "danger" : d > 80 ? "caution" : "ok"
 export function BuildsTable({
   tuners,
   pageSize = 25,
+  initialStatus,
 }: {
   tuners: { id: string; name: string }[];
   pageSize?: number;
+  /** The status filter the page was opened with (`/builds?status=needs_sizing`). */
+  initialStatus?: BuildStatus;
 }) {
   const [q, setQ] = useState("");
-  const [status, setStatus] = useState<"" | BuildStatus>("");
+  const [status, setStatus] = useState<"" | BuildStatus>(initialStatus ?? "");
   const [tuner, setTuner] = useState("");
   const [sort, setSort] = useState<"updated" | "created" | "title">("updated");
   const [cursors, setCursors] = useState<string[]>([]);
@@ -156,14 +159,15 @@ export function BuildsTable({
                   <td className="px-4 py-2">{b.tunerName ?? "—"}</td>
                   <td className="px-4 py-2">{STATUS_LABELS[b.status]}</td>
                   <td className="px-4 py-2 text-right">
-                    {b.dutyPct === null ? (
+                    {/* A build waiting for its sizing has no figures anyone checked yet. */}
+                    {b.dutyPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (
                       <Signal level={dutyLevel(b.dutyPct)}>{b.dutyPct.toFixed(0)} %</Signal>
                     )}
                   </td>
                   <td className="px-4 py-2 text-right">
-                    {b.marginPct === null ? (
+                    {b.marginPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (
                       <Signal

@@ -9,15 +9,18 @@ import {
   member,
   quotes,
   user,
+  vehicles,
   type Build,
 } from "@/db/schema";
 import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
 import { type BuildStatus, type BuildStatusFacts, type ChosenPart } from "@/lib/domain/builds";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 import type { SizingSettings } from "@/lib/sizing/effective-inputs";
+import type { VehicleInput } from "@/lib/validations/vehicles";
 
 import { escapeLike } from "./like";
 import { differs } from "./unchanged";
+import { insertVehicle } from "./vehicles";
 
 export const BUILD_SORTS = ["updated", "created", "title"] as const;
 export type BuildSort = (typeof BUILD_SORTS)[number];
@@ -241,7 +244,12 @@ export interface BuildPatch {
   always?: boolean;
 }
 
-/** A new build with its revision 1. The customer must be the shop's (the command checks it). */
+/**
+ * A new build with its revision 1. The customer must be the shop's (the command checks it). A
+ * draft from a caller's goal names a vehicle of the customer (`vehicleId`, checked here) or a
+ * new one (`newVehicle`, added in the same transaction), starts in `needs_sizing` and has no
+ * tuner yet.
+ */
 export async function createBuild(
   shopId: string,
   userId: string,
@@ -249,10 +257,31 @@ export async function createBuild(
     customerId: string;
     title: string;
     vehicle?: string;
+    vehicleId?: string;
+    newVehicle?: VehicleInput;
+    status?: BuildStatus;
+    note?: string;
     sized: NonNullable<BuildPatch["sized"]>;
   },
 ) {
   return db.transaction(async (tx) => {
+    let vehicleId = v.vehicleId ?? null;
+    if (vehicleId) {
+      const [mine] = await tx
+        .select({ id: vehicles.id })
+        .from(vehicles)
+        .where(
+          and(
+            eq(vehicles.shopId, shopId),
+            eq(vehicles.id, vehicleId),
+            eq(vehicles.customerId, v.customerId),
+          ),
+        )
+        .limit(1);
+      if (!mine) throw new NotFound("That vehicle");
+    }
+    if (v.newVehicle) vehicleId = (await insertVehicle(shopId, v.customerId, v.newVehicle, tx)).id;
+    const draft = v.status === "needs_sizing";
     const [b] = await tx
       .insert(builds)
       .values({
@@ -260,8 +289,10 @@ export async function createBuild(
         customerId: v.customerId,
         title: v.title,
         vehicle: v.vehicle || null,
+        vehicleId,
+        ...(v.status ? { status: v.status } : {}),
         ...v.sized,
-        tunerId: userId,
+        tunerId: draft ? null : userId,
         createdBy: userId,
         updatedBy: userId,
       })
@@ -273,10 +304,37 @@ export async function createBuild(
       status: b!.status,
       ...v.sized,
       authorId: userId,
-      note: "Created",
+      note: v.note ?? "Created",
     });
     return b!;
   });
+}
+
+/** The builds waiting for a tuner to size them, oldest first (the tuners' queue). */
+export async function needsSizingQueue(shopId: string, limit = 10) {
+  const where = and(eq(builds.shopId, shopId), eq(builds.status, "needs_sizing"));
+  const [rows, [total]] = await Promise.all([
+    db
+      .select({
+        id: builds.id,
+        title: builds.title,
+        vehicle: builds.vehicle,
+        createdAt: builds.createdAt,
+        customerName: customers.name,
+        createdByName: user.name,
+      })
+      .from(builds)
+      .innerJoin(customers, eq(customers.id, builds.customerId))
+      .leftJoin(user, eq(user.id, builds.createdBy))
+      .where(where)
+      .orderBy(asc(builds.createdAt), asc(builds.id))
+      .limit(limit),
+    db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(builds)
+      .where(where),
+  ]);
+  return { builds: rows, total: total?.n ?? 0 };
 }
 
 /** The build as it is now, with the name of who saved it last (what a conflict shows). */
@@ -335,6 +393,10 @@ export async function saveBuild(
                 kitBasis: sql`case when ${builds.inputs} is distinct from ${JSON.stringify(v.sized.inputs)}::jsonb then null else ${builds.kitBasis} end`,
               }
             : {}),
+        // A build taken out of the sizing queue gets the tuner who moves it, if it has none.
+        ...(v.status && v.status !== "needs_sizing"
+          ? { tunerId: sql`coalesce(${builds.tunerId}, ${userId})` }
+          : {}),
         version: sql`${builds.version} + 1`,
         updatedBy: userId,
         updatedAt: new Date(),

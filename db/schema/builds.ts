@@ -16,7 +16,7 @@ import { BUILD_STATUSES, type ChosenPart } from "@/lib/domain/builds";
 import type { SizingSettings } from "@/lib/sizing/effective-inputs";
 
 import { organization, user } from "./auth";
-import { customers } from "./shops";
+import { customers, vehicles } from "./shops";
 
 /** A customer's build sheet: the validated sizing inputs and the last result computed from them. */
 export const builds = pgTable(
@@ -30,7 +30,9 @@ export const builds = pgTable(
       .notNull()
       .references(() => customers.id, { onDelete: "restrict" }),
     title: text("title").notNull(),
+    /** The vehicle as words (kept for the search); `vehicle_id` names the customer's vehicle record. */
     vehicle: text("vehicle"),
+    vehicleId: uuid("vehicle_id").references(() => vehicles.id, { onDelete: "set null" }),
     status: text("status", { enum: BUILD_STATUSES }).notNull().default("draft"),
     /**
      * The validated inputs, written at lib/builds/stored-inputs.ts#INPUTS_SCHEMA_VERSION (noted in
@@ -73,6 +75,7 @@ export const builds = pgTable(
     index("builds_shop_tuner_idx").on(t.shopId, t.tunerId, t.updatedAt, t.id),
     index("builds_search_trgm_idx").using("gin", sql`${t.searchText} gin_trgm_ops`),
     index("builds_shop_customer_idx").on(t.shopId, t.customerId),
+    index("builds_shop_vehicle_idx").on(t.shopId, t.vehicleId),
   ],
 );
 

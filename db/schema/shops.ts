@@ -31,6 +31,11 @@ export const shopSettings = pgTable("shop_settings", {
   units: text("units", { enum: ["metric", "imperial"] })
     .notNull()
     .default("imperial"),
+  /**
+   * ISO 3166-1 alpha-2: the default country of customers' phone numbers and addresses, and
+   * whether customers carry a tax id (lib/domain/countries.ts).
+   */
+  country: text("country").notNull().default("US"),
   address: text("address"),
   phone: text("phone"),
   bsfcGasolineNa: real("bsfc_gasoline_na").notNull(),
@@ -66,8 +71,18 @@ export const customers = pgTable(
       .references(() => organization.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     email: text("email"),
+    /** E.164 (+12015550123) when it could be read as a number (lib/format/phone.ts), else as typed. */
     phone: text("phone"),
     notes: text("notes"),
+    addressLine1: text("address_line1"),
+    addressLine2: text("address_line2"),
+    city: text("city"),
+    region: text("region"),
+    postcode: text("postcode"),
+    /** ISO 3166-1 alpha-2; null: the shop's country. */
+    country: text("country"),
+    /** VAT, GST or business number, where the shop's country uses one (lib/domain/countries.ts). */
+    taxId: text("tax_id"),
     /** The portal sign-in of this customer, once invited. */
     userId: text("user_id").references(() => user.id, { onDelete: "set null" }),
     /** Goes up with each saved edit; an edit names the version it started from (stale → 409). */
@@ -82,15 +97,47 @@ export const customers = pgTable(
   ],
 );
 
+/** A customer's vehicle; builds may name one (builds.vehicle_id). */
+export const vehicles = pgTable(
+  "vehicles",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    customerId: uuid("customer_id")
+      .notNull()
+      .references(() => customers.id, { onDelete: "cascade" }),
+    year: integer("year").notNull(),
+    make: text("make").notNull(),
+    model: text("model").notNull(),
+    engine: text("engine"),
+    /** Upper case, checked when given (lib/domain/vin.ts). */
+    vin: text("vin"),
+    notes: text("notes"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("vehicles_shop_customer_idx").on(t.shopId, t.customerId),
+    index("vehicles_shop_vin_idx").on(t.shopId, t.vin),
+  ],
+);
+
 export const shopSettingsRelations = relations(shopSettings, ({ one }) => ({
   shop: one(organization, { fields: [shopSettings.shopId], references: [organization.id] }),
 }));
-export const customerRelations = relations(customers, ({ one }) => ({
+export const customerRelations = relations(customers, ({ one, many }) => ({
   shop: one(organization, { fields: [customers.shopId], references: [organization.id] }),
+  vehicles: many(vehicles),
+}));
+export const vehicleRelations = relations(vehicles, ({ one }) => ({
+  customer: one(customers, { fields: [vehicles.customerId], references: [customers.id] }),
 }));
 
 export type ShopSettings = typeof shopSettings.$inferSelect;
 export type Customer = typeof customers.$inferSelect;
+export type Vehicle = typeof vehicles.$inferSelect;
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 

@@ -15,6 +15,8 @@ export const PERMISSIONS = {
   "customers:write": ["owner", "tuner", "counter"],
   "builds:read": ["owner", "tuner", "counter"],
   "builds:write": ["owner", "tuner"],
+  /** Starting a build from a caller's goal, in "needs sizing" for a tuner (the counter may). */
+  "builds:draft": ["owner", "tuner", "counter"],
   /** Reading builds through the API; customers see only their own (see ownRecordsOnly). */
   "builds:view": ["owner", "tuner", "counter", "customer"],
   /** Dyno datalogs: tuners upload them; staff read them. */

@@ -11,21 +11,30 @@ import {
   type StatusCheck,
 } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
+import { unitSystemOf } from "@/db/queries/preferences";
+import { getVehicle } from "@/db/queries/vehicles";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
-import { refusedMove, type BuildStatus } from "@/lib/domain/builds";
+import { formatValue } from "@/lib/calc/quantities";
+import {
+  FUEL_CHOICE_LABELS,
+  refusedMove,
+  vehicleText,
+  type BuildStatus,
+} from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
 import { isoDay } from "@/lib/domain/quotes";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import type {
   BuildCreateSchema,
+  BuildDraft,
   BuildRefSchema,
   BuildSaveSchema,
   RevisionRestoreSchema,
 } from "@/lib/validations/builds";
 
 import { buildData, saved, type BuildResult } from "./build-data";
-import { newBuildInputs } from "./defaults";
+import { draftInputs, newBuildInputs } from "./defaults";
 import { readStoredInputs, sizeForSave } from "./stored-inputs";
 
 /** A new build sheet for one of the shop's customers, sized on the server (default inputs if none). */
@@ -41,6 +50,39 @@ export async function createBuild(
     title: input.title,
     vehicle: input.vehicle,
     sized: sizeForSave(await shopSizingSettings(m.shopId), input.inputs ?? newBuildInputs()),
+  });
+  return { build: buildData(b) };
+}
+
+/**
+ * The counter's draft build from a caller's goal: the customer's vehicle (picked, or added in the
+ * same transaction), the engine, power goal and fuel set into the starting inputs, in
+ * `needs_sizing` for a tuner to size (it is sized once with the shop's settings, so the record
+ * is whole; the status says nobody has checked it). Who may: `builds:draft` (the counter too).
+ */
+export async function createDraftBuild(m: Member, input: BuildDraft): Promise<BuildResult> {
+  authorize(m, "builds:draft");
+  if (!(await getCustomer(m.shopId, input.customerId)))
+    throw Invalid.field("customerId", "That customer is not in this shop");
+  let vehicle: string | undefined;
+  if (input.vehicleId) {
+    const v = await getVehicle(m.shopId, input.vehicleId);
+    if (!v || v.customerId !== input.customerId)
+      throw Invalid.field("vehicleId", "That vehicle is not this customer's");
+    vehicle = vehicleText(v);
+  } else if (input.newVehicle) vehicle = vehicleText(input.newVehicle);
+  const g = input.goal;
+  const units = await unitSystemOf(m.user.id, m.shopId);
+  const goalText = `${formatValue("power", g.powerKw, units)} ${g.measuredAt === "wheel" ? "at the wheels" : "at the crank"}, ${FUEL_CHOICE_LABELS[g.fuel]}`;
+  const b = await insertBuild(m.shopId, m.user.id, {
+    customerId: input.customerId,
+    title: (input.title || `${vehicle ?? "New build"}: ${goalText}`).slice(0, 120),
+    vehicle,
+    vehicleId: input.vehicleId,
+    newVehicle: input.newVehicle,
+    status: "needs_sizing",
+    note: `Goal taken by ${m.user.name}: ${goalText}`.slice(0, 500),
+    sized: sizeForSave(await shopSizingSettings(m.shopId), draftInputs(g)),
   });
   return { build: buildData(b) };
 }

@@ -1,4 +1,6 @@
 import { DEFAULT_E85_RANGE, type FuelSystemInput } from "@/lib/calc";
+import { FUEL_CHOICE_RANGES } from "@/lib/domain/builds";
+import type { BuildGoal } from "@/lib/validations/builds";
 
 /**
  * Starting inputs of a new build sheet: a boosted six on pump E85 (ASTM D5798 range), with an
@@ -40,5 +42,27 @@ export function newBuildInputs(): FuelSystemInput {
       },
     ],
     electrical: { voltageAtPump: 13.0 },
+  };
+}
+
+/**
+ * The starting inputs of a draft build from a caller's goal (BuildGoalSchema): the engine, the
+ * power goal and the fuel's ethanol range set; one injector per cylinder and no boost for a
+ * naturally aspirated engine; everything else the new-build defaults, for the tuner to size.
+ */
+export function draftInputs(goal: BuildGoal): FuelSystemInput {
+  const base = newBuildInputs();
+  return {
+    ...base,
+    engine: {
+      ...base.engine,
+      cylinders: goal.cylinders,
+      displacementL: goal.displacementL,
+      aspiration: goal.aspiration,
+      maxBoostKpa: goal.aspiration === "na" ? 0 : base.engine.maxBoostKpa,
+    },
+    target: { ...base.target, powerKw: goal.powerKw, measuredAt: goal.measuredAt },
+    fuel: { ...FUEL_CHOICE_RANGES[goal.fuel] },
+    injectors: { ...base.injectors, count: goal.cylinders },
   };
 }

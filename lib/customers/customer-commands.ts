@@ -1,28 +1,58 @@
 import "server-only";
 
+import type { z } from "zod";
+
 import {
   deleteCustomerIfUnused,
   getCustomer,
   createCustomer as insertCustomer,
   updateCustomer as patchCustomer,
+  shopCountry,
+  type CustomerWithVehicles,
 } from "@/db/queries/customers";
 import { ensurePortalInvitation } from "@/db/queries/shops";
-import type { Customer } from "@/db/schema";
+import { deleteVehicle, getVehicle, insertVehicle, patchVehicle } from "@/db/queries/vehicles";
+import type { Vehicle } from "@/db/schema";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Conflict, Invalid, NotFound, Unavailable } from "@/lib/domain/errors";
+import { vinProblem } from "@/lib/domain/vin";
 import { serverEnv } from "@/lib/env";
+import { readPhone } from "@/lib/format/phone";
 import { sendMail } from "@/lib/mail";
-import type { CustomerInput, CustomerUpdate } from "@/lib/validations/customers";
+import type { CustomerCreate, CustomerInput, CustomerPatch } from "@/lib/validations/customers";
+import type { VehicleAddSchema, VehicleUpdate } from "@/lib/validations/vehicles";
 
 /**
  * The customer records' writes: one command per write. Each checks the member's permission
  * first and throws domain errors only (lib/domain/errors).
  */
 
-export async function createCustomer(member: Member, input: CustomerInput): Promise<Customer> {
+/**
+ * The phone number as stored: E.164, read with the shop's country as the default; blank (null)
+ * clears it, left out (undefined) keeps it. One that cannot be read as a number is a field error.
+ */
+async function storedPhone(shopId: string, phone: string | null | undefined, stored?: string) {
+  if (!phone) return phone;
+  const r = readPhone(phone, await shopCountry(shopId));
+  if (r.ok) return r.e164;
+  // A number kept as typed before numbers were read, sent back unchanged, stays.
+  if (phone === stored) return undefined;
+  throw Invalid.field("phone", r.message, "invalid_phone");
+}
+
+/** A new customer (with their vehicles, from the API), the phone number stored as E.164. */
+export async function createCustomer(
+  member: Member,
+  input: CustomerInput | CustomerCreate,
+): Promise<CustomerWithVehicles> {
   authorize(member, "customers:write");
-  return insertCustomer(member.shopId, input);
+  const { vehicles = [], ...fields } = input as CustomerCreate;
+  return insertCustomer(
+    member.shopId,
+    { ...fields, phone: (await storedPhone(member.shopId, fields.phone)) ?? null },
+    vehicles,
+  );
 }
 
 /**
@@ -30,10 +60,53 @@ export async function createCustomer(member: Member, input: CustomerInput): Prom
  * the version the edit started from when it names one (stale → Conflict with the record as it
  * is now). Values equal to the stored ones change nothing; the answer is the record.
  */
-export async function updateCustomer(member: Member, input: CustomerUpdate): Promise<Customer> {
+export async function updateCustomer(
+  member: Member,
+  input: CustomerPatch,
+): Promise<CustomerWithVehicles> {
   authorize(member, "customers:write");
-  const { id, version, ...fields } = input;
-  return patchCustomer(member.shopId, id, fields, version);
+  const { id, version, vehicles, ...fields } = input;
+  const before = fields.phone ? await getCustomer(member.shopId, id) : null;
+  const phone = await storedPhone(member.shopId, fields.phone, before?.phone ?? undefined);
+  return patchCustomer(
+    member.shopId,
+    id,
+    { ...fields, ...(phone === undefined ? {} : { phone }) },
+    version,
+    vehicles,
+  );
+}
+
+/** Adds a vehicle to one of the shop's customers. */
+export async function addVehicle(
+  member: Member,
+  input: z.output<typeof VehicleAddSchema>,
+): Promise<Vehicle> {
+  authorize(member, "customers:write");
+  const { customerId, ...v } = input;
+  return insertVehicle(member.shopId, customerId, v);
+}
+
+/**
+ * Changes the fields sent of one of the shop's vehicles (equal values write nothing). A VIN
+ * sent without a year is checked against the stored year.
+ */
+export async function updateVehicle(member: Member, input: VehicleUpdate): Promise<Vehicle> {
+  authorize(member, "customers:write");
+  const { id, ...fields } = input;
+  if (fields.vin && fields.year === undefined) {
+    const stored = await getVehicle(member.shopId, id);
+    if (!stored) throw new NotFound("That vehicle");
+    const problem = vinProblem(fields.vin, stored.year);
+    if (problem) throw Invalid.field("vin", problem);
+  }
+  return patchVehicle(member.shopId, id, fields);
+}
+
+/** Removes one of the shop's vehicles; builds that named it keep the vehicle as text. */
+export async function removeVehicle(member: Member, input: { id: string }): Promise<Vehicle> {
+  authorize(member, "customers:write");
+  return deleteVehicle(member.shopId, input.id);
 }
 
 const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;

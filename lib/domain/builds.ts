@@ -3,6 +3,7 @@
 import { quoteStatusOn, type QuoteStatus } from "./quotes";
 
 export const BUILD_STATUSES = [
+  "needs_sizing",
   "draft",
   "sized",
   "quoted",
@@ -45,6 +46,8 @@ export interface ChosenPart {
  * also has a precondition on the build's quotes or dyno logs: see `statusMoves`.
  */
 export const STATUS_NEXT: Record<BuildStatus, readonly BuildStatus[]> = {
+  // The counter's draft from a caller's goal: the tuner sizes it (or takes it on as a draft).
+  needs_sizing: ["sized", "draft"],
   draft: ["sized"],
   sized: ["draft", "quoted"],
   quoted: ["draft", "ordered"],
@@ -54,6 +57,7 @@ export const STATUS_NEXT: Record<BuildStatus, readonly BuildStatus[]> = {
 };
 
 export const STATUS_LABELS: Record<BuildStatus, string> = {
+  needs_sizing: "Needs sizing",
   draft: "Draft",
   sized: "Sized",
   quoted: "Quoted",
@@ -61,6 +65,35 @@ export const STATUS_LABELS: Record<BuildStatus, string> = {
   fitted: "Fitted",
   verified: "Verified",
 };
+
+/**
+ * The fuel a caller names for a draft build, and the ethanol range (vol %) the tuner starts from:
+ * pump gasoline up to E10 (common practice, no source: US pump gasoline is sold E0–E10), pump E85
+ * at ASTM D5798's 51–83 % (lib/calc DEFAULT_E85_RANGE), flex fuel across both (0–83 %).
+ */
+export const FUEL_CHOICES = ["gasoline", "e85", "flex"] as const;
+export type FuelChoice = (typeof FUEL_CHOICES)[number];
+export const FUEL_CHOICE_LABELS: Record<FuelChoice, string> = {
+  gasoline: "Pump gasoline (E0–E10)",
+  e85: "E85 (51–83 % ethanol)",
+  flex: "Flex fuel (gasoline to E85)",
+};
+export const FUEL_CHOICE_RANGES: Record<
+  FuelChoice,
+  { ethanolMinVolPct: number; ethanolMaxVolPct: number }
+> = {
+  gasoline: { ethanolMinVolPct: 0, ethanolMaxVolPct: 10 },
+  e85: { ethanolMinVolPct: 51, ethanolMaxVolPct: 83 },
+  flex: { ethanolMinVolPct: 0, ethanolMaxVolPct: 83 },
+};
+
+/** A vehicle as words, as builds keep it: "2004 Subaru Impreza WRX STI (EJ257)". */
+export const vehicleText = (v: {
+  year: number;
+  make: string;
+  model: string;
+  engine?: string | null;
+}) => `${v.year} ${v.make} ${v.model}${v.engine ? ` (${v.engine})` : ""}`.slice(0, 200);
 
 /** What a build's status moves depend on besides the build itself. */
 export interface BuildStatusFacts {
@@ -120,7 +153,7 @@ function missingFor(to: BuildStatus, facts: BuildStatusFacts): string | null {
 /**
  * The moves out of `from` (STATUS_NEXT), each allowed or not with the reason, given the facts.
  * The one rule the save command enforces and the status control shows:
- * - sized: from draft, nothing more (every save sizes the inputs);
+ * - sized: from draft or needs sizing, nothing more (every save sizes the inputs);
  * - quoted: a quote for the build that is sent, accepted, deposit paid or ordered, where a sent or
  *   accepted one past its valid-until day counts as expired;
  * - ordered, fitted: a quote for the build accepted (within its validity), deposit paid or ordered;

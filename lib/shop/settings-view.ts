@@ -9,6 +9,7 @@ export function shopSettingsView(name: string, s: ShopSettings) {
     currency: s.currency,
     taxRatePct: s.taxRateBp / 100,
     units: s.units,
+    country: s.country,
     address: s.address,
     phone: s.phone,
     paperSize: s.paperSize,

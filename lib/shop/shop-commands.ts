@@ -59,6 +59,7 @@ export async function saveShopSettings(
 /** Settings stored under the name the form uses. */
 const COLUMNS_BY_NAME = [
   "currency",
+  "country",
   "units",
   "paperSize",
   "timeZone",

@@ -1,7 +1,10 @@
 import { z } from "zod";
 
+import { isCountryCode } from "@/lib/domain/countries";
+
 import { editVersion } from "./column-bounds";
 import { searchText } from "./search";
+import { VehicleListSchema, VehicleSchema } from "./vehicles";
 
 /** Blank is none (null); line breaks as one `\n` (a browser posts a textarea's as `\r\n`). */
 const optionalText = (max: number, label: string) =>
@@ -25,10 +28,31 @@ export const CustomerSchema = z.object({
     .optional()
     .transform((v) => (v ? v.toLowerCase() : null))
     .pipe(z.email("Enter a valid e-mail address").nullable()),
+  /** As typed; the command reads it with the shop's country and stores E.164 (lib/format/phone). */
   phone: optionalText(40, "Phone"),
   notes: optionalText(2000, "Notes"),
+  addressLine1: optionalText(120, "Address"),
+  addressLine2: optionalText(120, "Address line 2"),
+  city: optionalText(80, "City"),
+  region: optionalText(80, "State or region"),
+  postcode: optionalText(20, "Postcode"),
+  /** Blank: the shop's country. */
+  country: z
+    .string()
+    .trim()
+    .max(2, "Choose a country")
+    .optional()
+    .transform((v) => (v ? v.toUpperCase() : null))
+    .refine((v) => v === null || isCountryCode(v), "Choose a country"),
+  taxId: optionalText(40, "Tax number"),
 });
 export type CustomerInput = z.output<typeof CustomerSchema>;
+
+/** `POST /api/v1/customers`: a customer, optionally with their vehicles. */
+export const CustomerCreateSchema = CustomerSchema.extend({
+  vehicles: z.array(VehicleSchema).max(50, "At most 50 vehicles per customer").optional(),
+});
+export type CustomerCreate = z.output<typeof CustomerCreateSchema>;
 
 /**
  * A change to a customer, from the edit form or `PATCH /api/v1/customers/:id`: the `.partial()`
@@ -41,10 +65,26 @@ export const CustomerUpdateSchema = CustomerSchema.partial()
   .refine(
     (o) => Object.entries(o).some(([k, v]) => !["id", "version"].includes(k) && v !== undefined),
     {
-      message: "Send at least one of name, email, phone or notes",
+      message: "Send at least one of the customer's fields",
     },
   );
 export type CustomerUpdate = z.output<typeof CustomerUpdateSchema>;
+
+/**
+ * `PATCH /api/v1/customers/:id`: the form's change, and optionally `vehicles`, the whole list
+ * (lib/validations/vehicles.ts#VehicleListSchema).
+ */
+export const CustomerPatchSchema = CustomerSchema.partial()
+  .extend({
+    id: z.uuid("Unknown customer"),
+    version: editVersion(),
+    vehicles: VehicleListSchema.optional(),
+  })
+  .refine(
+    (o) => Object.entries(o).some(([k, v]) => !["id", "version"].includes(k) && v !== undefined),
+    { message: "Send at least one of the customer's fields or vehicles" },
+  );
+export type CustomerPatch = z.output<typeof CustomerPatchSchema>;
 
 export const CustomerIdSchema = z.object({ id: z.uuid("Unknown customer") });
 

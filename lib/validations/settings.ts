@@ -1,5 +1,6 @@
 import { z } from "zod";
 
+import { isCountryCode } from "@/lib/domain/countries";
 import { canonicalTimeZone, PAPER_SIZES } from "@/lib/domain/documents";
 import { ROLES } from "@/lib/domain/roles";
 
@@ -42,6 +43,13 @@ export const ShopSettingsFields = z.object({
     .regex(/^[A-Z]{3}$/, "Use a three-letter currency code such as USD"),
   taxRatePct: n("Tax rate", 0, 30),
   units: z.enum(["metric", "imperial"], { error: "Choose metric or imperial" }),
+  /** ISO 3166-1 alpha-2: customers' phone numbers are read as from here; left out: kept. */
+  country: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .refine(isCountryCode, "Choose the shop's country")
+    .optional(),
   address: z.string().trim().max(300).optional(),
   phone: z.string().trim().max(40).optional(),
   paperSize: z.enum(PAPER_SIZES, { error: "Choose Letter or A4 paper" }),

@@ -92,6 +92,26 @@ describe("accessibility (axe-core)", () => {
     await ctx.close();
   });
 
+  it("the customer page, the counter's goal form and a build that needs sizing (as the counter) have none either", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    const csp = cspWatch(page);
+    await signInAs(page, "counter");
+    const report: Record<string, string[]> = {};
+    for (const path of [
+      "/customers/00000000-0000-4000-8000-000000000001",
+      "/builds/new",
+      "/builds/10000000-0000-4000-8000-000000000005",
+    ]) {
+      await page.goto(path);
+      await page.waitForLoadState("networkidle");
+      report[path] = await seriousViolations(page);
+    }
+    expect(Object.fromEntries(Object.entries(report).filter(([, v]) => v.length))).toEqual({});
+    expect(csp).toEqual([]);
+    await ctx.close();
+  });
+
   it("the customer portal has no serious or critical violations", async () => {
     const ctx = await newClient(browser);
     const page = await ctx.newPage();

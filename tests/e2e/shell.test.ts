@@ -77,11 +77,11 @@ describe("customers", () => {
     await form.getByRole("button", { name: "Add customer" }).click();
     await page.waitForURL(/\/customers\/[0-9a-f-]{36}$/);
     const edit = page.getByRole("form", { name: "Edit customer" });
-    await edit.getByLabel("Phone").fill("555-0123");
+    await edit.getByLabel("Phone").fill("201-555-0123");
     await edit.getByRole("button", { name: "Save changes" }).click();
     await expect.poll(() => edit.getByText("Saved").count()).toBe(1);
     const [row] = await sql`select phone, shop_id from customers where name = ${name}`;
-    expect(row).toMatchObject({ phone: "555-0123", shop_id: "demo-shop-ridgeback" });
+    expect(row).toMatchObject({ phone: "+12015550123", shop_id: "demo-shop-ridgeback" });
     await page.screenshot({ path: `${shots}/customer-edit-phone.png`, fullPage: true });
     await page.getByRole("button", { name: "Delete customer" }).click();
     await page.getByRole("dialog").getByRole("button", { name: "Keep" }).click();

@@ -37,7 +37,7 @@ describe("stale edit forms", () => {
     await two.goto(`/customers/${c!.id}`);
 
     const formOne = one.getByRole("form", { name: "Edit customer" });
-    await formOne.getByLabel("Phone").fill("555-0101");
+    await formOne.getByLabel("Phone").fill("(201) 555-0101");
     await formOne.getByRole("button", { name: "Save changes" }).click();
     await expect.poll(() => formOne.getByText("✓ Saved", { exact: true }).count()).toBe(1);
 
@@ -47,10 +47,12 @@ describe("stale edit forms", () => {
     const conflict = formTwo.getByTestId("conflict");
     await expect.poll(() => conflict.count()).toBe(1);
     expect(await conflict.innerText()).toMatch(/Someone saved this customer meanwhile/);
-    expect(await conflict.getByRole("row", { name: /Phone/ }).innerText()).toContain("555-0101");
+    expect(await conflict.getByRole("row", { name: /Phone/ }).innerText()).toContain(
+      "+12015550101",
+    );
     expect(await formTwo.getByLabel("Notes").inputValue()).toBe("Typed in the second tab");
     const [kept] = await sql`select phone, notes, version from customers where id = ${c!.id}`;
-    expect(kept).toEqual({ phone: "555-0101", notes: null, version: 2 });
+    expect(kept).toEqual({ phone: "+12015550101", notes: null, version: 2 });
     await two.screenshot({ path: `${shots}/customer-stale-edit.png`, fullPage: true });
 
     await conflict.getByRole("button", { name: "Save mine over theirs" }).click();

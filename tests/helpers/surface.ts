@@ -18,6 +18,9 @@ export interface Fx {
   build: string;
   /** A customer record made for the run (the customer routes and actions edit it). */
   customer: string;
+  /** Vehicles of `customer`: one the vehicle actions edit, one they remove. */
+  vehicle: string;
+  doomedVehicle: string;
   doomedCustomer: string;
   part: string;
   doomedPart: string;
@@ -329,6 +332,26 @@ export const ACTIONS: Record<string, ActionCell> = {
     args: (f) => [prev, formOf({ customerId: f.customer, title: "Matrix action build" })],
     expect: "401 ok ok 403 403 422",
   },
+  // The counter's goal form: a draft build in "needs sizing" (the counter may; another shop's
+  // owner names a customer unknown to them).
+  "app/(shop)/builds/new/actions.ts#createDraftBuildAction": {
+    page: () => "/builds/new",
+    args: (f) => [
+      prev,
+      formOf({
+        customerId: f.customer,
+        vehicleId: f.vehicle,
+        units: "metric",
+        displacementL: "2.0",
+        cylinders: "4",
+        aspiration: "turbo",
+        power: "250",
+        measuredAt: "wheel",
+        fuel: "e85",
+      }),
+    ],
+    expect: "401 ok ok ok 403 422",
+  },
   "lib/builds/build-actions.ts#saveBuildAction": {
     page: (f) => `/builds/${f.build}`,
     args: (f) => [prev, { id: f.build, version: 1, title: "Matrix build", inputs: f.inputs }],
@@ -378,6 +401,25 @@ export const ACTIONS: Record<string, ActionCell> = {
   "app/(shop)/customers/actions.ts#deleteCustomerAction": {
     page: (f) => `/customers/${f.customer}`,
     args: (f) => [prev, formOf({ id: f.doomedCustomer })],
+    expect: "401 ok ok ok 403 404",
+    mayVanish: true,
+  },
+  "app/(shop)/customers/actions.ts#addVehicleAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [
+      prev,
+      formOf({ customerId: f.customer, year: "2001", make: "Matrixware", model: "Added" }),
+    ],
+    expect: "401 ok ok ok 403 404",
+  },
+  "app/(shop)/customers/actions.ts#updateVehicleAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [prev, formOf({ id: f.vehicle, model: "Matrix (edited)" })],
+    expect: "401 ok ok ok 403 404",
+  },
+  "app/(shop)/customers/actions.ts#deleteVehicleAction": {
+    page: (f) => `/customers/${f.customer}`,
+    args: (f) => [prev, formOf({ id: f.doomedVehicle })],
     expect: "401 ok ok ok 403 404",
     mayVanish: true,
   },
@@ -531,6 +573,10 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
   const own = await request(counter, "POST", "/api/v1/customers", {
     name: "Access matrix customer",
     email: `matrix-${Date.now().toString(36)}@example.test`,
+    vehicles: [
+      { year: 2012, make: "Matrixware", model: "Edited" },
+      { year: 2013, make: "Matrixware", model: "Doomed" },
+    ],
   });
   const quote = await request(counter, "POST", "/api/v1/quotes", { buildId: build });
   const [part] =
@@ -557,6 +603,8 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
   return {
     build,
     customer: own.json.customer.id,
+    vehicle: own.json.customer.vehicles[0].id,
+    doomedVehicle: own.json.customer.vehicles[1].id,
     doomedCustomer: doomed.json.customer.id,
     part: part!.id,
     doomedPart: doomedPart!.id,

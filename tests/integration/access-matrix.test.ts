@@ -85,6 +85,7 @@ const TABLES = [
   "shop_logos",
   "shop_settings",
   "user",
+  "vehicles",
 ];
 
 beforeAll(async () => {

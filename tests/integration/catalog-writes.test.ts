@@ -266,7 +266,7 @@ describe("customers", () => {
       await request(counter, "POST", "/api/v1/customers", {
         name,
         email: `${name.toLowerCase().replace(/\W+/g, "-")}@example.test`,
-        phone: "555-0199",
+        phone: "(201) 555-0199",
         notes: "Keeps the old car",
       })
     ).json.customer as { id: string; name: string };
@@ -282,7 +282,7 @@ describe("customers", () => {
     expect(r.status).toBe(200);
     const kept = {
       name: "Renamed",
-      phone: "555-0199",
+      phone: "+12015550199",
       notes: "Keeps the old car",
     };
     expect(await rowOf(a.id)).toMatchObject(kept);

@@ -6,6 +6,7 @@ import { FuelSystemInputSchema } from "@/lib/calc";
 import { AcceptInvitationSchema, SignUpSchema } from "@/lib/validations/auth";
 import {
   BuildCreateSchema,
+  BuildDraftFormSchema,
   BuildListQuery,
   BuildRefSchema,
   BuildSaveSchema,
@@ -14,8 +15,10 @@ import {
 } from "@/lib/validations/builds";
 import { BlendRequestSchema } from "@/lib/validations/calc";
 import {
+  CustomerCreateSchema,
   CustomerIdSchema,
   CustomerListQuery,
+  CustomerPatchSchema,
   CustomerSchema,
   CustomerUpdateSchema,
 } from "@/lib/validations/customers";
@@ -51,6 +54,7 @@ import {
   ShareLinkDaysSchema,
   ShareLinkRevokeSchema,
 } from "@/lib/validations/shares";
+import { VehicleAddSchema, VehicleIdSchema, VehicleUpdateSchema } from "@/lib/validations/vehicles";
 
 import { actionManifest, callAction, formOf, type ActionResult } from "../helpers/actions";
 import { appTables, changedTables, sql, tableHashes } from "../helpers/db";
@@ -152,8 +156,8 @@ const BODY: Record<
     schema: BlendRequestSchema,
     base: () => ({ kind: "mix", parts: [{ volumeL: 10, ethanolVolPct: 85 }] }),
   },
-  "POST /api/v1/customers": { schema: CustomerSchema },
-  "PATCH /api/v1/customers/[id]": { schema: CustomerUpdateSchema, skip: isId },
+  "POST /api/v1/customers": { schema: CustomerCreateSchema },
+  "PATCH /api/v1/customers/[id]": { schema: CustomerPatchSchema, skip: isId },
   "POST /api/v1/datalogs/[id]/analysis": { schema: DatalogAnalysisSchema, skip: isId },
   "POST /api/v1/parts": { schema: FlatPartSchema },
   "PATCH /api/v1/parts/[id]": { schema: PartUpdateSchema, skip: isId },
@@ -210,6 +214,7 @@ const ACTION_BASES: Record<string, () => unknown> = {
 /** What each server action parses with. */
 const ACTION_SCHEMAS: Record<string, z.ZodType> = {
   "app/(shop)/builds/new/actions.ts#createBuildAction": BuildCreateSchema.omit({ inputs: true }),
+  "app/(shop)/builds/new/actions.ts#createDraftBuildAction": BuildDraftFormSchema,
   "lib/builds/build-actions.ts#saveBuildAction": BuildSaveSchema,
   "lib/builds/build-actions.ts#copyBuildAction": BuildRefSchema,
   "lib/builds/build-actions.ts#chooseKitAction": KitChoiceSchema,
@@ -221,6 +226,9 @@ const ACTION_SCHEMAS: Record<string, z.ZodType> = {
   "app/(shop)/customers/actions.ts#updateCustomerAction": CustomerUpdateSchema,
   "app/(shop)/customers/actions.ts#deleteCustomerAction": CustomerIdSchema,
   "app/(shop)/customers/actions.ts#invitePortalAction": CustomerIdSchema,
+  "app/(shop)/customers/actions.ts#addVehicleAction": VehicleAddSchema,
+  "app/(shop)/customers/actions.ts#updateVehicleAction": VehicleUpdateSchema,
+  "app/(shop)/customers/actions.ts#deleteVehicleAction": VehicleIdSchema,
   "lib/parts/part-actions.ts#createPartAction": FlatPartSchema,
   "lib/parts/part-actions.ts#updatePartAction": PartUpdateSchema,
   "lib/parts/part-actions.ts#deletePartAction": PartIdSchema,

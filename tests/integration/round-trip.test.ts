@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { initialActionState } from "@/lib/actions/state";
+import { formatPhone } from "@/lib/format/phone";
 import { flatOf } from "@/lib/validations/parts";
 
 import { actionManifest, callAction, formOf, type ActionRef } from "../helpers/actions";
@@ -176,8 +177,24 @@ describe("load → save unchanged → the stored row is byte for byte the same",
     const full = await request(counter, "POST", "/api/v1/customers", {
       name: `${tag} Full Customer`,
       email: `${tag.toLowerCase()}@example.test`,
-      phone: "555-0142",
+      phone: "(201) 555-0142",
       notes: "Line one\nline two — ünïcode",
+      addressLine1: "88 Kestrel Row",
+      city: "Millbrook",
+      region: "NJ",
+      postcode: "07999",
+      country: "GB",
+      taxId: "GB 123 4567 89",
+      vehicles: [
+        {
+          year: 1989,
+          make: "Harlan",
+          model: "Vesta",
+          engine: "2.0 NA four",
+          vin: "1M8GDM9AXKP042788",
+        },
+        { year: 1972, make: "Brennan", model: "Stag", notes: "Before VINs were 17 characters" },
+      ],
     });
     const sparse = await request(counter, "POST", "/api/v1/customers", {
       name: `${tag} Sparse Customer`,
@@ -193,8 +210,16 @@ describe("load → save unchanged → the stored row is byte for byte the same",
         version: String(c.version),
         name: c.name,
         email: c.email ?? "",
-        phone: c.phone ?? "",
+        // The form shows the number as people read it; saved back, it is the same number.
+        phone: formatPhone(c.phone, "US"),
         notes: c.notes ?? "",
+        addressLine1: c.addressLine1 ?? "",
+        addressLine2: c.addressLine2 ?? "",
+        city: c.city ?? "",
+        region: c.region ?? "",
+        postcode: c.postcode ?? "",
+        country: c.country ?? "",
+        taxId: c.taxId ?? "",
       };
       const updRef = ref(
         "app/(shop)/customers/actions.ts",
@@ -218,6 +243,57 @@ describe("load → save unchanged → the stored row is byte for byte the same",
       ).toBe(200);
       expect(await rowText("customers", id)).toBe(before);
     }
+  });
+
+  it("vehicles, through their edit form's action and the customer PATCH's list", async () => {
+    const made = await request(counter, "POST", "/api/v1/customers", {
+      name: `${tag} Vehicle Owner`,
+      vehicles: [
+        {
+          year: 1989,
+          make: "Harlan",
+          model: "Vesta",
+          engine: "2.0 NA four",
+          vin: "1M8GDM9AXKP042788",
+          notes: "Line one\nline two",
+        },
+        { year: 2019, make: "Corvane", model: "RX6" },
+      ],
+    });
+    expect(made.status).toBe(201);
+    const id = made.json.customer.id as string;
+    const c = (await request(counter, "GET", `/api/v1/customers/${id}`)).json.customer;
+    expect(c.vehicles).toHaveLength(2);
+    const rows = async () =>
+      (await sql`select t::text as t from vehicles t where customer_id = ${id} order by id`).map(
+        (r) => r.t as string,
+      );
+    const before = await rows();
+    const customerBefore = await rowText("customers", id);
+    const updRef = ref(
+      "app/(shop)/customers/actions.ts",
+      "updateVehicleAction",
+      `/customers/${id}`,
+    );
+    for (const v of c.vehicles as Record<string, unknown>[]) {
+      // What the vehicle's edit form holds and posts (blanks for what is not there).
+      const form = Object.fromEntries(
+        ["id", "year", "make", "model", "engine", "vin", "notes"].map((k) => [
+          k,
+          v[k] === null ? "" : String(v[k]),
+        ]),
+      );
+      expect(await act(counter, updRef, formOf(form))).toMatchObject({ ok: true });
+    }
+    expect(await rows()).toEqual(before);
+    // The API's list as it was read, sent back: nothing written, nothing removed.
+    const patched = await request(counter, "PATCH", `/api/v1/customers/${id}`, {
+      vehicles: c.vehicles,
+    });
+    expect(patched.status).toBe(200);
+    expect(patched.json.customer.vehicles).toHaveLength(2);
+    expect(await rows()).toEqual(before);
+    expect(await rowText("customers", id)).toBe(customerBefore);
   });
 
   it("parts, through the part form's action and PATCH (dead-time table, pump curves)", async () => {
@@ -369,7 +445,7 @@ describe("stale edit forms: a second tab's save is a 409 and overwrites nothing"
     expect(stale.current).toMatchObject({ id, version: v + 1, name: `${tag} Tab One` });
     const api = await request(counter, "PATCH", `/api/v1/customers/${id}`, {
       version: v,
-      phone: "555-0000",
+      phone: "201-555-0000",
     });
     expect(api.status).toBe(409);
     expect(api.json.current).toMatchObject({ version: v + 1, name: `${tag} Tab One` });
@@ -379,8 +455,10 @@ describe("stale edit forms: a second tab's save is a 409 and overwrites nothing"
       await act(counter, updRef, formOf({ id, version: String(v + 1), name: `${tag} Tab Two` })),
     ).toMatchObject({ ok: true, data: { customer: { version: v + 2, name: `${tag} Tab Two` } } });
     // An API client that names no version: the last write wins.
-    const blind = await request(counter, "PATCH", `/api/v1/customers/${id}`, { phone: "555-0001" });
-    expect(blind.json.customer).toMatchObject({ version: v + 3, phone: "555-0001" });
+    const blind = await request(counter, "PATCH", `/api/v1/customers/${id}`, {
+      phone: "201-555-0001",
+    });
+    expect(blind.json.customer).toMatchObject({ version: v + 3, phone: "+12015550001" });
   });
 
   it("parts: the form and PATCH with the version they loaded", async () => {

@@ -56,7 +56,7 @@ describe("tenancy: a member of shop B cannot see or touch shop A's customers", (
     const made = await request(outsider, "POST", "/api/v1/customers", {
       name: "Partial Patch",
       email: "partial@example.test",
-      phone: "555-0100",
+      phone: "201-555-0100",
     });
     const id = made.json.customer.id;
     const renamed = await request(outsider, "PATCH", `/api/v1/customers/${id}`, {
@@ -66,7 +66,7 @@ describe("tenancy: a member of shop B cannot see or touch shop A's customers", (
     expect(renamed.json.customer).toMatchObject({
       name: "Partial Patch Renamed",
       email: "partial@example.test",
-      phone: "555-0100",
+      phone: "+12015550100",
     });
     const cleared = await request(outsider, "PATCH", `/api/v1/customers/${id}`, { phone: "" });
     expect(cleared.json.customer).toMatchObject({

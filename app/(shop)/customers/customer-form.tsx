@@ -9,7 +9,7 @@ import { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { EditConflict } from "@/components/ui/edit-conflict";
-import { Field, TextAreaField } from "@/components/ui/field";
+import { Field, SelectField, TextAreaField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
 import { CustomerSchema } from "@/lib/validations/customers";
@@ -23,12 +23,47 @@ type Stored = {
   version: number;
   name: string;
   email: string | null;
+  /** As people read it (lib/format/phone#formatPhone). */
   phone: string | null;
   notes: string | null;
+  addressLine1: string | null;
+  addressLine2: string | null;
+  city: string | null;
+  region: string | null;
+  postcode: string | null;
+  country: string | null;
+  taxId: string | null;
 };
-const LABELS = { name: "Name", email: "E-mail", phone: "Phone", notes: "Notes" } as const;
+const LABELS = {
+  name: "Name",
+  email: "E-mail",
+  phone: "Phone",
+  addressLine1: "Address",
+  addressLine2: "Address line 2",
+  city: "City",
+  region: "State or region",
+  postcode: "Postcode",
+  country: "Country",
+  taxId: "Tax number",
+  notes: "Notes",
+} as const;
 
-export function CustomerForm({ customer }: { customer?: Stored }) {
+/** The shop's country and what it needs of a customer's details. */
+export interface CustomerFormContext {
+  shopCountry: string;
+  shopCountryName: string;
+  /** What the shop's country calls a customer's tax number; null: none is asked. */
+  taxIdLabel: string | null;
+  countries: { code: string; name: string }[];
+}
+
+export function CustomerForm({
+  customer,
+  context,
+}: {
+  customer?: Stored;
+  context: CustomerFormContext;
+}) {
   const router = useRouter();
   const [state, action, pending] = useActionState(
     customer ? updateCustomerAction : createCustomerAction,
@@ -51,6 +86,13 @@ export function CustomerForm({ customer }: { customer?: Stored }) {
       email: customer?.email ?? "",
       phone: customer?.phone ?? "",
       notes: customer?.notes ?? "",
+      addressLine1: customer?.addressLine1 ?? "",
+      addressLine2: customer?.addressLine2 ?? "",
+      city: customer?.city ?? "",
+      region: customer?.region ?? "",
+      postcode: customer?.postcode ?? "",
+      country: customer?.country ?? "",
+      taxId: customer?.taxId ?? "",
     },
   });
 
@@ -104,10 +146,67 @@ export function CustomerForm({ customer }: { customer?: Stored }) {
           label="Phone"
           type="tel"
           autoComplete="off"
+          hint={`Any spelling; without + it is read as a ${context.shopCountryName} number.`}
           error={formState.errors.phone?.message}
           {...register("phone")}
         />
       </div>
+      <fieldset className="space-y-4">
+        <legend className="text-sm font-semibold text-ink-800">Address</legend>
+        <Field
+          label="Street address"
+          autoComplete="off"
+          error={formState.errors.addressLine1?.message}
+          {...register("addressLine1")}
+        />
+        <Field
+          label="Address line 2"
+          autoComplete="off"
+          error={formState.errors.addressLine2?.message}
+          {...register("addressLine2")}
+        />
+        <div className="grid gap-4 sm:grid-cols-2">
+          <Field
+            label="City"
+            autoComplete="off"
+            error={formState.errors.city?.message}
+            {...register("city")}
+          />
+          <Field
+            label="State or region"
+            autoComplete="off"
+            error={formState.errors.region?.message}
+            {...register("region")}
+          />
+          <Field
+            label="Postcode"
+            autoComplete="off"
+            error={formState.errors.postcode?.message}
+            {...register("postcode")}
+          />
+          <SelectField
+            label="Country"
+            error={formState.errors.country?.message}
+            {...register("country")}
+          >
+            <option value="">{context.shopCountryName} (the shop&apos;s)</option>
+            {context.countries.map((c) => (
+              <option key={c.code} value={c.code}>
+                {c.name}
+              </option>
+            ))}
+          </SelectField>
+        </div>
+      </fieldset>
+      {context.taxIdLabel ? (
+        <Field
+          label={context.taxIdLabel}
+          autoComplete="off"
+          hint="For business customers."
+          error={formState.errors.taxId?.message}
+          {...register("taxId")}
+        />
+      ) : null}
       <TextAreaField label="Notes" error={formState.errors.notes?.message} {...register("notes")} />
       {/* A conflict speaks for itself below (with what was saved meanwhile). */}
       <FormStatus ok={state.ok} message={conflict ? undefined : state.message} />

@@ -5,6 +5,8 @@ import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listCustomers } from "@/db/queries/customers";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
+import { customerFormContext } from "@/lib/customers/form-context";
+import { formatPhone } from "@/lib/format/phone";
 import { CustomerListQuery } from "@/lib/validations/customers";
 
 import { CustomerForm } from "./customer-form";
@@ -19,7 +21,10 @@ export default async function CustomersPage({
   const m = await requirePageMember("customers:read");
   const parsed = CustomerListQuery.safeParse(await searchParams);
   const q = parsed.success ? parsed.data.q : undefined;
-  const rows = await listCustomers(m.shopId, { q, limit: 100 });
+  const [rows, context] = await Promise.all([
+    listCustomers(m.shopId, { q, limit: 100 }),
+    customerFormContext(m.shopId),
+  ]);
   return (
     <>
       <PageHeader title="Customers">
@@ -32,7 +37,7 @@ export default async function CustomersPage({
             name="q"
             type="search"
             defaultValue={q}
-            placeholder="Name, e-mail or phone"
+            placeholder="Name, e-mail, phone or vehicle"
             className="rounded-md border border-ink-300 px-3 py-2"
           />
           <button className="rounded-md border border-ink-300 bg-white px-3 py-2 text-sm font-semibold">
@@ -60,6 +65,9 @@ export default async function CustomersPage({
                     <th scope="col" className="px-4 py-2">
                       Phone
                     </th>
+                    <th scope="col" className="px-4 py-2">
+                      Vehicles
+                    </th>
                   </tr>
                 </thead>
                 <tbody>
@@ -71,7 +79,14 @@ export default async function CustomersPage({
                         </Link>
                       </td>
                       <td className="px-4 py-2">{c.email ?? "—"}</td>
-                      <td className="px-4 py-2">{c.phone ?? "—"}</td>
+                      <td className="px-4 py-2 whitespace-nowrap">
+                        {formatPhone(c.phone, context.shopCountry) || "—"}
+                      </td>
+                      <td className="px-4 py-2">
+                        {c.vehicles.length
+                          ? c.vehicles.map((v) => `${v.year} ${v.make} ${v.model}`).join("; ")
+                          : "—"}
+                      </td>
                     </tr>
                   ))}
                 </tbody>
@@ -87,7 +102,7 @@ export default async function CustomersPage({
             <h2 id="add-customer" className="mb-4 text-xl font-semibold">
               Add a customer
             </h2>
-            <CustomerForm />
+            <CustomerForm context={context} />
           </section>
         ) : null}
       </div>

@@ -12,6 +12,7 @@ import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
 import { minorToPlain } from "@/lib/catalog/money";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
+import { countryOptions } from "@/lib/format/phone";
 import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
 
 import { LogoUpload } from "./logo-upload";
@@ -56,6 +57,7 @@ export default async function SettingsPage() {
           <SettingsForm
             readOnly={!can(m.role, "settings:update")}
             initial={formValues(shopSettingsView(s.name, s.settings))}
+            countries={countryOptions()}
           />
           <LogoUpload
             logo={

@@ -48,9 +48,11 @@ const TIME_ZONES = [
 export function SettingsForm({
   initial,
   readOnly,
+  countries,
 }: {
   initial: Record<string, string>;
   readOnly: boolean;
+  countries: { code: string; name: string }[];
 }) {
   const [state, action, pending] = useActionState(updateSettingsAction, initialActionState);
   const v = { ...initial, ...state.values };
@@ -84,6 +86,19 @@ export function SettingsForm({
           <Field label="Shop name" name="shopName" defaultValue={v.shopName} error={e.shopName} />
           <Field label="Phone" name="phone" defaultValue={v.phone} error={e.phone} />
           <Field label="Address" name="address" defaultValue={v.address} error={e.address} />
+          <SelectField
+            label="Country"
+            name="country"
+            defaultValue={v.country}
+            error={e.country}
+            hint="Customers' phone numbers without + are read as from here."
+          >
+            {countries.map((c) => (
+              <option key={c.code} value={c.code}>
+                {c.name}
+              </option>
+            ))}
+          </SelectField>
           <Field
             label="Currency"
             name="currency"

@@ -36,6 +36,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
     unitSystemOf(m.user.id, m.shopId),
   ]);
   const b = row.build;
+  const writes = can(m.role, "builds:write");
   const inputs = readStoredInputs(b);
   // What today's settings would change in what is sized (nothing: the build is up to date).
   const settingsChanges = diffInputs(
@@ -47,7 +48,9 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
     <>
       <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-ink-600">
-          {row.customerName}
+          <Link href={`/customers/${b.customerId}`} className="text-copper-700 underline">
+            {row.customerName}
+          </Link>
           {b.vehicle ? ` · ${b.vehicle}` : ""}
         </p>
         <div className="flex flex-wrap items-center gap-3">
@@ -69,9 +72,22 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
           >
             Parts kit{b.parts.length ? ` (${b.parts.length} chosen)` : ""}
           </Link>
-          {can(m.role, "builds:write") ? <CopyBuildButton buildId={b.id} /> : null}
+          {writes ? <CopyBuildButton buildId={b.id} /> : null}
         </div>
       </div>
+      {b.status === "needs_sizing" ? (
+        <p
+          role="status"
+          data-testid="needs-sizing"
+          className="mb-4 rounded-lg border border-caution-600 bg-caution-50 p-4 text-sm text-ink-800"
+        >
+          <strong>▲ Needs sizing.</strong> Taken from the caller&apos;s goal (engine, power goal,
+          fuel); the rest are starting values.{" "}
+          {writes
+            ? "Size it and move its status to Sized to take it out of the queue."
+            : "A tuner sizes it next; it waits in their queue."}
+        </p>
+      ) : null}
       <BuildEditor
         buildId={b.id}
         title={b.title}
@@ -79,7 +95,15 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
         statusFacts={statusFacts}
         version={b.version}
         inputs={inputs}
-        readOnly={!can(m.role, "builds:write")}
+        readOnly={!writes}
+        readOnlyReason={
+          writes
+            ? undefined
+            : {
+                note: "The sizing fields below are the tuner's: you can read them here, and a tuner changes them. Parts (the kit), quotes and share links are yours.",
+                label: "Tuner's · read-only",
+              }
+        }
         units={units}
         shopBsfc={bsfcRows}
         sizingSettings={today}

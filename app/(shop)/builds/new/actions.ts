@@ -4,8 +4,8 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 
 import { memberAction } from "@/lib/actions/member-action";
-import { createBuild } from "@/lib/builds/build-commands";
-import { BuildCreateSchema } from "@/lib/validations/builds";
+import { createBuild, createDraftBuild } from "@/lib/builds/build-commands";
+import { BuildCreateSchema, BuildDraftFormSchema } from "@/lib/validations/builds";
 
 /** The new-build form: a build with the default inputs for the chosen customer, then opens it. */
 export const createBuildAction = memberAction(
@@ -16,3 +16,14 @@ export const createBuildAction = memberAction(
     redirect(`/builds/${build.id}`);
   },
 );
+
+/**
+ * The counter's form: a draft build from the caller's goal (and their vehicle, picked or added),
+ * in "needs sizing" for a tuner; then opens it.
+ */
+export const createDraftBuildAction = memberAction(BuildDraftFormSchema, async (m, input) => {
+  const { build } = await createDraftBuild(m, input);
+  revalidatePath("/builds");
+  revalidatePath(`/customers/${input.customerId}`);
+  redirect(`/builds/${build.id}`);
+});
