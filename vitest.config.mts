@@ -22,7 +22,8 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           fileParallelism: false,
-          testTimeout: 30000,
+          // The walks of the whole surface (matrix, hostile input) grow with every route.
+          testTimeout: 90000,
           hookTimeout: 60000,
         },
       },
