@@ -1,7 +1,12 @@
 // Reference: docs/calculations.md §7.
 import { fuelBlend } from "./fuel";
-import { injectorDifferentialPressureKpa, railPressureKpa } from "./injectors";
-import { defaultBsfc } from "./power";
+import {
+  injectorDifferentialPressureKpa,
+  injectorDutyPct,
+  injectorFlowAtPressure,
+  railPressureKpa,
+} from "./injectors";
+import { defaultBsfc, fuelMassFlowGPerMin } from "./power";
 import { pumpSupplyFunction } from "./pumps";
 import type { ParsedFuelSystemInput } from "./schema";
 import { sizeParsedFuelSystem, type FuelSystemResult } from "./size";
@@ -43,7 +48,11 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
     basePressureKpa: input.regulator.basePressureKpa,
     manifoldKpa: input.engine.maxBoostKpa,
   });
-  const q = input.injectors.ratedFlowCcPerMin * Math.sqrt(dp / input.injectors.ratedPressureKpa);
+  const q = injectorFlowAtPressure({
+    ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
+    ratedPressureKpa: input.injectors.ratedPressureKpa,
+    differentialPressureKpa: dp,
+  });
   const out: { ethanolVolPct: number; dutyPct: number }[] = [];
   const count = Math.max(2, Math.min(101, Math.floor(points)));
   for (let i = 0; i < count; i++) {
@@ -57,10 +66,15 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
         targetLambda: input.fuel.targetLambda,
         defaults: input.fuel.bsfcDefaults,
       }).bsfcGPerKwh;
-    const mdot = (crankPowerKw * bsfc) / 60;
+    const mdot = fuelMassFlowGPerMin({ powerKw: crankPowerKw, bsfcGPerKwh: bsfc });
     out.push({
       ethanolVolPct: e,
-      dutyPct: (100 * mdot) / (b.densityKgPerL * input.injectors.count * q),
+      dutyPct: injectorDutyPct({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: input.injectors.count,
+        flowAtOperatingCcPerMin: q,
+      }),
     });
   }
   return out;

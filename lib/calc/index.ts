@@ -33,7 +33,9 @@ export type {
 } from "./blend";
 export {
   crankPowerFromWheel,
+  wheelPowerFromCrank,
   fuelMassFlowGPerMin,
+  fuelVolumeFlowLPerH,
   bsfcAtBlend,
   defaultBsfc,
   DEFAULT_BSFC,
@@ -46,17 +48,23 @@ export {
   railPressureKpa,
   injectorDutyPct,
   requiredInjectorFlowCcPerMin,
+  injectorPowerCeilingKw,
+  dutyBand,
+  effectivePulseWidthMs,
+  pulseWidthForFuelMs,
+  idleFuelConsumptionLPerH,
   cycleTimeMs,
   deadTimeMs,
   idleFuelPerCylinderMg,
   gaugeFromAbsKpa,
 } from "./injectors";
-export type { RegulatorType, DeadTimeTable } from "./injectors";
+export type { RegulatorType, DeadTimeTable, DutyBand } from "./injectors";
 export {
   pumpFlowLPerH,
   pumpsSupplyLPerH,
   pumpSupplyFunction,
   pumpMarginPct,
+  pumpPowerCeilingKw,
   validatePumpCurve,
 } from "./pumps";
 export type { Pump, PumpCurve, PumpFlow } from "./pumps";
@@ -71,7 +79,12 @@ export {
   DEFAULT_HOSE_ROUGHNESS_MM,
 } from "./lines";
 export type { LineSegment, LineDrop } from "./lines";
-export { awgDiameterMm, copperResistanceOhmPerM, wireVoltageDropV } from "./wire";
+export {
+  awgDiameterMm,
+  copperResistanceOhmPerM,
+  wireVoltageDropV,
+  voltageAfterWiringV,
+} from "./wire";
 export * from "./units";
 export * from "./schema";
 export {
@@ -81,6 +94,7 @@ export {
   DEFAULT_LIMITS,
   DEFAULT_DRIVETRAIN_LOSS_PCT,
 } from "./size";
+export type { SizingLimits } from "./size";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";

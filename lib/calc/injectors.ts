@@ -118,6 +118,92 @@ export function requiredInjectorFlowCcPerMin(q: {
   return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
 }
 
+/**
+ * Power a set of injectors supports at a duty: P = duty × n × Q_op × ρ × 60 ÷ BSFC (kW).
+ * @example injectorPowerCeilingKw({ dutyPct: 80, injectorCount: 6, flowAtOperatingCcPerMin: 1000, densityKgPerL: 0.787, bsfcGPerKwh: 486.6 }) // 465.9
+ */
+export function injectorPowerCeilingKw(q: {
+  dutyPct: number;
+  injectorCount: number;
+  flowAtOperatingCcPerMin: number;
+  densityKgPerL: number;
+  bsfcGPerKwh: number;
+}): number {
+  requireRange("dutyPct", q.dutyPct, 0, 100, "Duty");
+  requireCount("injectorCount", q.injectorCount);
+  requireRange("flowAtOperatingCcPerMin", q.flowAtOperatingCcPerMin, 0, 1e5, "Injector flow");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requirePositive("bsfcGPerKwh", q.bsfcGPerKwh, 2000, "BSFC");
+  const duty = q.dutyPct / 100;
+  return (
+    (duty * q.injectorCount * q.flowAtOperatingCcPerMin * q.densityKgPerL * 60) / q.bsfcGPerKwh
+  );
+}
+
+/** The band a duty falls in (docs/calculations.md §3.3): static at 100 % and above. */
+export type DutyBand = "ok" | "caution" | "danger" | "static";
+
+/**
+ * Duty band by the shop's caution and danger levels: above danger is danger, above caution is
+ * caution, 100 % or more is static (the injector never closes).
+ * @example dutyBand(86, { dutyCautionPct: 80, dutyDangerPct: 90 }) // "caution"
+ */
+export function dutyBand(
+  dutyPct: number,
+  levels: { dutyCautionPct: number; dutyDangerPct: number },
+): DutyBand {
+  requireRange("dutyPct", dutyPct, 0, 1e6, "Duty");
+  return dutyPct >= 100
+    ? "static"
+    : dutyPct > levels.dutyDangerPct
+      ? "danger"
+      : dutyPct > levels.dutyCautionPct
+        ? "caution"
+        : "ok";
+}
+
+/**
+ * Effective (opening) pulse width for a duty: duty × cycle.
+ * @example effectivePulseWidthMs({ dutyPct: 80, cycleMs: 20 }) // 16
+ */
+export function effectivePulseWidthMs(q: { dutyPct: number; cycleMs: number }): number {
+  requireRange("dutyPct", q.dutyPct, 0, 1e6, "Duty");
+  requireRange("cycleMs", q.cycleMs, 0, 1e6, "Cycle time");
+  return (q.dutyPct / 100) * q.cycleMs;
+}
+
+/**
+ * Opening time to deliver a fuel mass per injection: t = m ÷ (ρ × Q) (ms, m in mg).
+ * @example pulseWidthForFuelMs({ fuelMg: 10, densityKgPerL: 0.745, flowCcPerMin: 500 }) // 1.611
+ */
+export function pulseWidthForFuelMs(q: {
+  fuelMg: number;
+  densityKgPerL: number;
+  flowCcPerMin: number;
+}): number {
+  requireRange("fuelMg", q.fuelMg, 0, 1e6, "Fuel per injection");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requirePositive("flowCcPerMin", q.flowCcPerMin, 1e5, "Injector flow");
+  return (q.fuelMg / 1000 / q.densityKgPerL / q.flowCcPerMin) * 60000;
+}
+
+/**
+ * Fuel an engine burns at idle, L/h: fuel per cylinder per cycle × cylinders × rpm ÷ 2 ÷ ρ.
+ * @example idleFuelConsumptionLPerH({ fuelPerCylinderMg: 10, cylinders: 4, rpm: 850, densityKgPerL: 0.745 }) // 1.369
+ */
+export function idleFuelConsumptionLPerH(q: {
+  fuelPerCylinderMg: number;
+  cylinders: number;
+  rpm: number;
+  densityKgPerL: number;
+}): number {
+  requireRange("fuelPerCylinderMg", q.fuelPerCylinderMg, 0, 1e6, "Fuel per cylinder");
+  requireCount("cylinders", q.cylinders);
+  requireRange("rpm", q.rpm, 0, 30000, "Engine speed");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  return ((q.fuelPerCylinderMg * q.cylinders * (q.rpm / 2)) / 1000 / q.densityKgPerL) * 0.06;
+}
+
 /** Length of one four-stroke cycle in ms: 120 000 / rpm. @example cycleTimeMs(6000) // 20 */
 export function cycleTimeMs(rpm: number): number {
   requireRange("rpm", rpm, 1, 30000, "Engine speed");

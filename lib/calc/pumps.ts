@@ -177,3 +177,21 @@ export function pumpMarginPct(supplyLPerH: number, demandLPerH: number): number 
   // No demand: no margin to speak of. A vanishing one (under a millilitre an hour) is no demand.
   return demandLPerH > 1e-3 ? (supplyLPerH / demandLPerH - 1) * 100 : 0;
 }
+
+/**
+ * Power the pumps support with the minimum margin kept:
+ * P = supply ÷ (1 + margin) × ρ × 1000 ÷ BSFC (kW; supply L/h, ρ kg/L, BSFC g/kWh).
+ * @example pumpPowerCeilingKw({ supplyLPerH: 500, minMarginPct: 25, densityKgPerL: 0.787, bsfcGPerKwh: 486.6 }) // 646.9
+ */
+export function pumpPowerCeilingKw(q: {
+  supplyLPerH: number;
+  minMarginPct: number;
+  densityKgPerL: number;
+  bsfcGPerKwh: number;
+}): number {
+  requireRange("supplyLPerH", q.supplyLPerH, 0, 1e6, "Pump supply");
+  requireRange("minMarginPct", q.minMarginPct, 0, 1000, "Minimum pump margin");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requireRange("bsfcGPerKwh", q.bsfcGPerKwh, 1, 2000, "BSFC");
+  return ((q.supplyLPerH / (1 + q.minMarginPct / 100)) * q.densityKgPerL * 1000) / q.bsfcGPerKwh;
+}

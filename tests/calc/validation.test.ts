@@ -12,27 +12,36 @@ import {
   cycleTimeMs,
   deadTimeMs,
   defaultBsfc,
+  dutyBand,
+  effectivePulseWidthMs,
   frictionFactor,
   fuelBlend,
   fuelMassFlowGPerMin,
   FuelSystemInputSchema,
+  fuelVolumeFlowLPerH,
   gaugeFromAbsKpa,
+  idleFuelConsumptionLPerH,
   idleFuelPerCylinderMg,
   injectorDifferentialPressureKpa,
   injectorDutyPct,
   injectorFlowAtPressure,
+  injectorPowerCeilingKw,
   KPA_PER_PSI,
   lambdaFromAfr,
   laminarFrictionFactor,
   linePressureDrop,
   pressureFromKpa,
+  pulseWidthForFuelMs,
   pumpFlowLPerH,
   pumpMarginPct,
+  pumpPowerCeilingKw,
   railPressureKpa,
   requiredInjectorFlowCcPerMin,
   sizeFuelSystem,
   swameeJainFrictionFactor,
+  voltageAfterWiringV,
   volumeFlowFromLPerH,
+  wheelPowerFromCrank,
   wireVoltageDropV,
 } from "@/lib/calc";
 
@@ -185,6 +194,53 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
   ["lambdaFromAfr", (a, b) => lambdaFromAfr(a, b)],
   ["crankPowerFromWheel", (a, b) => crankPowerFromWheel({ wheelPowerKw: a, drivetrainLossPct: b })],
   ["fuelMassFlowGPerMin", (a, b) => fuelMassFlowGPerMin({ powerKw: a, bsfcGPerKwh: b })],
+  ["wheelPowerFromCrank", (a, b) => wheelPowerFromCrank({ crankPowerKw: a, drivetrainLossPct: b })],
+  [
+    "fuelVolumeFlowLPerH",
+    (a, b) => fuelVolumeFlowLPerH({ fuelMassFlowGPerMin: a, densityKgPerL: b }),
+  ],
+  [
+    "injectorPowerCeilingKw",
+    (a, b, c, d) =>
+      injectorPowerCeilingKw({
+        dutyPct: a,
+        injectorCount: Math.round(b),
+        flowAtOperatingCcPerMin: c,
+        densityKgPerL: 0.75,
+        bsfcGPerKwh: d,
+      }),
+  ],
+  ["dutyBand", (a, b, c) => dutyBand(a, { dutyCautionPct: b, dutyDangerPct: c })],
+  ["effectivePulseWidthMs", (a, b) => effectivePulseWidthMs({ dutyPct: a, cycleMs: b })],
+  [
+    "pulseWidthForFuelMs",
+    (a, b, c) => pulseWidthForFuelMs({ fuelMg: a, densityKgPerL: b, flowCcPerMin: c }),
+  ],
+  [
+    "idleFuelConsumptionLPerH",
+    (a, b, c, d) =>
+      idleFuelConsumptionLPerH({
+        fuelPerCylinderMg: a,
+        cylinders: Math.round(b),
+        rpm: c,
+        densityKgPerL: d,
+      }),
+  ],
+  [
+    "pumpPowerCeilingKw",
+    (a, b, c, d) =>
+      pumpPowerCeilingKw({ supplyLPerH: a, minMarginPct: b, densityKgPerL: c, bsfcGPerKwh: d }),
+  ],
+  [
+    "voltageAfterWiringV",
+    (a, b, c, d) =>
+      voltageAfterWiringV({
+        sourceVoltage: a,
+        gaugeAwg: Math.round(b),
+        roundTripLengthM: c,
+        currentA: d,
+      }),
+  ],
   [
     "defaultBsfc",
     (a, b) => defaultBsfc({ ethanolVolPct: a, aspiration: "turbo", targetLambda: b }),

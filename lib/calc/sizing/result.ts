@@ -1,0 +1,90 @@
+// Reference: docs/calculations.md §7.
+import type { DutyBand } from "../injectors";
+import type { LineDrop } from "../lines";
+import type { TraceStep, Warning } from "../types";
+import type { SizingLimits } from "./context";
+
+export interface BlendEnd {
+  ethanolVolPct: number;
+  densityKgPerL: number;
+  stoichAfr: number;
+  bsfcGPerKwh: number;
+  bsfcSource: "given" | "scaled" | "rule-of-thumb";
+  fuelMassFlowGPerMin: number;
+  fuelVolumeFlowLPerH: number;
+  requiredFlowAtOperatingCcPerMin: number;
+  requiredRatedFlowCcPerMin: number;
+  dutyPct: number;
+  powerCeilingKw: number;
+  pulseWidthRedline: PulseWidth;
+}
+
+export interface PulseWidth {
+  rpm: number;
+  cycleMs: number;
+  effectiveMs: number;
+  deadTimeMs: number | null;
+  commandedMs: number | null;
+}
+
+export interface LineResult extends LineDrop {
+  flowLPerH: number;
+  insideDiameterMm: number;
+  lengthM: number;
+  withinLimit: boolean;
+}
+
+export interface FuelSystemResult {
+  calcVersion: string;
+  wheelPowerKw: number;
+  crankPowerKw: number;
+  /** At the worse end of the blend range (`blend.worstEnd`): the one needing more fuel volume. */
+  fuelMassFlowGPerMin: number;
+  fuelVolumeFlowLPerH: number;
+  /** Each end of the blend range, and which is the worse (duty and demand are taken there). */
+  blend: { lean: BlendEnd; rich: BlendEnd; worstEnd: "lean" | "rich" };
+  injector: {
+    count: number;
+    /** Battery/charging voltage the dead time was looked up at. */
+    voltage: number;
+    differentialPressureKpa: number;
+    flowAtOperatingCcPerMin: number;
+    requiredFlowAtOperatingCcPerMin: number;
+    requiredRatedFlowCcPerMin: number;
+    /** At the worse end (`blend.worstEnd`); each end's is in `blend.lean` / `blend.rich`. */
+    dutyPct: number;
+    dutyBand: DutyBand;
+    powerCeilingKw: number;
+    pulseWidthRedline: PulseWidth;
+    pulseWidthIdle: PulseWidth & {
+      differentialPressureKpa: number;
+      minPulseWidthMs: number | null;
+      fuelPerInjectionMg: number;
+    };
+  };
+  pump: {
+    voltageUsed: number;
+    wireDropV: number | null;
+    railPressureKpa: number;
+    outletPressureKpa: number;
+    demandLPerH: number;
+    supplyLPerH: number;
+    marginPct: number;
+    returnFlowLPerH: number;
+    powerCeilingKw: number;
+    idleRailPressureKpa: number;
+    idleSupplyLPerH: number;
+    idleReturnFlowLPerH: number;
+  };
+  lines: {
+    feed: LineResult | null;
+    return: LineResult | null;
+    recommendedFeedDash: number | null;
+    recommendedReturnDash: number | null;
+    assumedLengthM: number | null;
+  };
+  powerCeiling: { kw: number; limitedBy: "injectors" | "pump" | "feed-line"; headroomPct: number };
+  limits: SizingLimits;
+  warnings: Warning[];
+  trace: TraceStep[];
+}
