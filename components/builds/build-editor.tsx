@@ -692,6 +692,7 @@ export function BuildEditor(props: {
           <Section title="Regulator">
             {select("regulator.type")}
             {num("regulator.basePressureKpa")}
+            {values.regulator?.type !== "fixed" ? num("regulator.risingRateRatio") : null}
           </Section>
           <Section title="Pump">
             {num("pumps.0.quantity")}

@@ -47,6 +47,7 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
     type: input.regulator.type,
     basePressureKpa: input.regulator.basePressureKpa,
     manifoldKpa: input.engine.maxBoostKpa,
+    risingRateRatio: input.regulator.risingRateRatio,
   });
   const q = injectorFlowAtPressure({
     ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
@@ -95,6 +96,7 @@ export function pumpSupplyCurve(
       type: input.regulator.type,
       basePressureKpa: input.regulator.basePressureKpa,
       manifoldKpa: input.engine.maxBoostKpa,
+      risingRateRatio: input.regulator.risingRateRatio,
     }) + 100,
   );
   const supplyAt = pumpSupplyFunction(input.pumps);

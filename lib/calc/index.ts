@@ -58,7 +58,10 @@ export {
   idleFuelPerCylinderMg,
   gaugeFromAbsKpa,
 } from "./injectors";
-export type { RegulatorType, DeadTimeTable, DutyBand } from "./injectors";
+export type { RegulatorType, RegulatorQuery, DeadTimeTable, DutyBand } from "./injectors";
+export { MAX_RISING_RATE_RATIO } from "./injectors";
+export { fuelPressureAgainstBoost } from "./regulator";
+export type { BoostPressurePoint } from "./regulator";
 export {
   pumpFlowLPerH,
   pumpsSupplyLPerH,

@@ -7,16 +7,40 @@ import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
  * docs/calculations.md §3.
  */
 
-const regulatorQuery = (q: {
+/** A regulator at a manifold pressure; `risingRateRatio` (default 1: 1:1) only for a referenced one. */
+export interface RegulatorQuery {
   type: RegulatorType;
   basePressureKpa: number;
   manifoldKpa: number;
-}) => {
+  /**
+   * Fuel-pressure rise per unit of boost of a boost-referenced regulator: 1 for 1:1, up to 12
+   * for a 1:12 rising-rate unit. Under vacuum the regulator follows the manifold 1:1.
+   */
+  risingRateRatio?: number;
+}
+
+/** Largest rising-rate ratio the library takes (1:12 units are the largest sold; 20 for slack). */
+export const MAX_RISING_RATE_RATIO = 20;
+
+const regulatorQuery = (q: RegulatorQuery): number => {
   if (q.type !== "boost-referenced" && q.type !== "fixed")
     throw new CalcInputError("type", "Regulator must be boost-referenced or fixed");
   requirePositive("basePressureKpa", q.basePressureKpa, 1e4, "Base pressure");
   requireRange("manifoldKpa", q.manifoldKpa, -ATMOSPHERE_KPA, 1e4, "Manifold pressure (gauge)");
+  return q.risingRateRatio === undefined
+    ? 1
+    : requireRange(
+        "risingRateRatio",
+        q.risingRateRatio,
+        1,
+        MAX_RISING_RATE_RATIO,
+        "Rising-rate ratio",
+      );
 };
+
+/** What a rising-rate regulator adds above 1:1: (ratio − 1) × boost, none under vacuum. */
+const risingRateExtra = (ratio: number, manifoldKpa: number): number =>
+  ratio === 1 || manifoldKpa <= 0 ? 0 : (ratio - 1) * manifoldKpa;
 
 /**
  * Flow of an injector at another differential pressure, by the orifice law
@@ -44,17 +68,18 @@ export type RegulatorType = "boost-referenced" | "fixed";
 
 /**
  * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
- * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure; a fixed one
- * leaves the rail at base, so ΔP = base − manifold (boost lowers it, vacuum raises it).
+ * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure, a rising-rate
+ * one (ratio r) adds (r − 1) × boost; a fixed one leaves the rail at base, so
+ * ΔP = base − manifold (boost lowers it, vacuum raises it). docs/calculations.md §3.2.
  * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
+ * @example injectorDifferentialPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 100, risingRateRatio: 4 }) // 600
  */
-export function injectorDifferentialPressureKpa(q: {
-  type: RegulatorType;
-  basePressureKpa: number;
-  manifoldKpa: number;
-}): number {
-  regulatorQuery(q);
-  const dp = q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
+export function injectorDifferentialPressureKpa(q: RegulatorQuery): number {
+  const ratio = regulatorQuery(q);
+  const dp =
+    q.type === "boost-referenced"
+      ? q.basePressureKpa + risingRateExtra(ratio, q.manifoldKpa)
+      : q.basePressureKpa - q.manifoldKpa;
   if (dp <= 0)
     throw new CalcInputError(
       "basePressureKpa",
@@ -65,17 +90,15 @@ export function injectorDifferentialPressureKpa(q: {
 
 /**
  * Rail pressure (kPa gauge) the pump must reach at a manifold pressure: referenced base +
- * boost; fixed base.
+ * boost (+ (r − 1) × boost for a rising-rate ratio r); fixed base.
  * @example railPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 150 }) // 450
  */
-export function railPressureKpa(q: {
-  type: RegulatorType;
-  basePressureKpa: number;
-  manifoldKpa: number;
-}): number {
-  regulatorQuery(q);
+export function railPressureKpa(q: RegulatorQuery): number {
+  const ratio = regulatorQuery(q);
   const rail =
-    q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
+    q.type === "boost-referenced"
+      ? q.basePressureKpa + q.manifoldKpa + risingRateExtra(ratio, q.manifoldKpa)
+      : q.basePressureKpa;
   // A base pressure below the manifold vacuum cannot pull the rail below atmosphere: the
   // regulator closes and the rail sits at (about) 0 kPa gauge. Never a negative pressure.
   return rail < 0 ? 0 : rail;

@@ -39,7 +39,7 @@ export const ASPIRATION_LABELS: Record<(typeof ASPIRATIONS)[number], string> = {
   supercharged: "Supercharged",
 };
 export const REGULATOR_LABELS: Record<(typeof REGULATOR_TYPES)[number], string> = {
-  "boost-referenced": "Boost-referenced (1:1)",
+  "boost-referenced": "Boost-referenced (1:1 or rising-rate)",
   fixed: "Fixed (not referenced)",
 };
 export const MEASURED_AT_LABELS = { wheel: "At the wheels", crank: "At the crank" } as const;
@@ -190,6 +190,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   regulator: { label: "Regulator" },
   "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
   "regulator.basePressureKpa": { label: "Base pressure", quantity: "pressure" },
+  "regulator.risingRateRatio": {
+    label: "Rising-rate ratio (fuel pressure per unit of boost)",
+    short: "Rising-rate ratio",
+    quantity: "risingRate",
+  },
   pumps: { label: "Pumps" },
   "pumps.*": { label: "Pump #" },
   "pumps.*.label": { label: "Pump # name", text: true },
@@ -371,6 +376,17 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     label: "Fuel per injection at idle",
     quantity: "mass",
     decimals: 2,
+  },
+  "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
+  "regulator.risingRateRatio": { label: "Rising-rate ratio", quantity: "risingRate" },
+  "regulator.pressureVsBoost.*.boostKpa": { label: "Boost, point #", quantity: "pressure" },
+  "regulator.pressureVsBoost.*.railKpa": {
+    label: "Rail pressure at boost point #",
+    quantity: "pressure",
+  },
+  "regulator.pressureVsBoost.*.differentialKpa": {
+    label: "Pressure across the injectors at boost point #",
+    quantity: "pressure",
   },
   "pump.voltageUsed": { label: "Voltage at the pump", quantity: "voltage" },
   "injector.voltage": { label: "Voltage at the injectors", quantity: "voltage" },

@@ -174,6 +174,11 @@ export const RegulatorSchema = z.object(
   {
     type: z.enum(REGULATOR_TYPES, { error: "Regulator must be boost-referenced or fixed" }),
     basePressureKpa: num("Base pressure", 50, 1000, "kPa"),
+    /**
+     * Fuel-pressure rise per unit of boost of a boost-referenced regulator: 1 (1:1) unless a
+     * rising-rate unit (up to 1:12). Ignored by a fixed regulator. docs/calculations.md §3.8.
+     */
+    risingRateRatio: num("Rising-rate ratio", 1, 12).default(1),
   },
   { error: "Give the regulator: type and base pressure" },
 );

@@ -2,6 +2,7 @@
 import { CalcInputError } from "./_lib/input-error";
 import { Tracer } from "./_lib/trace";
 import { cycleTimeMs, dutyBand } from "./injectors";
+import { fuelPressureAgainstBoost } from "./regulator";
 import { FuelSystemInputSchema, type FuelSystemInput, type ParsedFuelSystemInput } from "./schema";
 import { blendEndStage, worseEnd } from "./sizing/blend-ends";
 import { ceilingStage } from "./sizing/ceiling-stage";
@@ -19,7 +20,7 @@ export type { SizingLimits } from "./sizing/context";
 export type { BlendEnd, FuelSystemResult, LineResult, PulseWidth } from "./sizing/result";
 
 /** Bumped whenever a formula or default changes, so saved results say what made them. */
-export const CALC_VERSION = "1.1.0";
+export const CALC_VERSION = "1.2.0";
 
 /**
  * Sizes a fuel system: fuel needed at the target power across the blend range, injector duty,
@@ -124,6 +125,16 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         minPulseWidthMs: injectors.minPulseWidthMs ?? null,
         fuelPerInjectionMg: idle.fuelPerInjectionMg,
       },
+    },
+    regulator: {
+      type: input.regulator.type,
+      risingRateRatio: input.regulator.type === "fixed" ? 1 : input.regulator.risingRateRatio,
+      pressureVsBoost: fuelPressureAgainstBoost({
+        type: input.regulator.type,
+        basePressureKpa: input.regulator.basePressureKpa,
+        risingRateRatio: input.regulator.risingRateRatio,
+        maxBoostKpa: engine.maxBoostKpa,
+      }),
     },
     pump: {
       voltageUsed,

@@ -318,6 +318,10 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
             <Text>
               Regulator: {REGULATOR_LABELS[input.regulator.type].toLowerCase()}, base{" "}
               {q("pressure", input.regulator.basePressureKpa)}
+              {r.regulator.risingRateRatio !== 1
+                ? `, rising rate ${q("risingRate", r.regulator.risingRateRatio)}`
+                : ""}
+              ; rail {q("pressure", r.pump.railPressureKpa)} at full boost
             </Text>
           </View>
         </View>

@@ -17,6 +17,7 @@ import {
   frictionFactor,
   fuelBlend,
   fuelMassFlowGPerMin,
+  fuelPressureAgainstBoost,
   FuelSystemInputSchema,
   fuelVolumeFlowLPerH,
   gaugeFromAbsKpa,
@@ -275,6 +276,27 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         type: c > 0 ? "fixed" : "boost-referenced",
         basePressureKpa: a,
         manifoldKpa: b,
+      }),
+  ],
+  [
+    "railPressureKpa, rising rate",
+    (a, b, c) =>
+      railPressureKpa({
+        type: "boost-referenced",
+        basePressureKpa: a,
+        manifoldKpa: b,
+        risingRateRatio: c,
+      }),
+  ],
+  [
+    "fuelPressureAgainstBoost",
+    (a, b, c, d) =>
+      fuelPressureAgainstBoost({
+        type: d > 0 ? "fixed" : "boost-referenced",
+        basePressureKpa: a,
+        maxBoostKpa: b,
+        risingRateRatio: c,
+        points: 5,
       }),
   ],
   [

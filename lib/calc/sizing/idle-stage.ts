@@ -41,6 +41,7 @@ export function idleStage(
     type: regulator.type,
     basePressureKpa: regulator.basePressureKpa,
     manifoldKpa: manifoldGaugeKpa,
+    risingRateRatio: regulator.risingRateRatio,
   });
   const idleFuel = idleFuelPerCylinderMg({
     displacementL: engine.displacementL,

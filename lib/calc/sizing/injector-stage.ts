@@ -27,17 +27,30 @@ export function injectorOperatingPoint({ input, t }: SizingContext): InjectorOpe
     type: regulator.type,
     basePressureKpa: regulator.basePressureKpa,
     manifoldKpa: engine.maxBoostKpa,
+    risingRateRatio: regulator.risingRateRatio,
   });
+  const rising = regulator.type === "boost-referenced" && regulator.risingRateRatio !== 1;
   t.add({
     id: "injector-dp",
     label: "Pressure across the injector at full boost",
     formula:
-      regulator.type === "boost-referenced"
-        ? "base pressure (the regulator follows boost 1:1)"
-        : "base pressure − boost",
+      regulator.type === "fixed"
+        ? "base pressure − boost"
+        : rising
+          ? "base pressure + (rising-rate ratio − 1) × boost"
+          : "base pressure (the regulator follows boost 1:1)",
     inputs: [
       { label: "base pressure", value: regulator.basePressureKpa, quantity: "pressure" },
       { label: "boost", value: engine.maxBoostKpa, quantity: "pressure" },
+      ...(rising
+        ? [
+            {
+              label: "rising-rate ratio",
+              value: regulator.risingRateRatio,
+              quantity: "risingRate" as const,
+            },
+          ]
+        : []),
     ],
     value: dpOp,
     quantity: "pressure",

@@ -68,10 +68,33 @@ export function pumpStage(
   idle: IdleStage,
 ): PumpStage {
   const { engine, regulator, pumps } = input;
-  const rail = railPressureKpa({
-    type: regulator.type,
-    basePressureKpa: regulator.basePressureKpa,
-    manifoldKpa: engine.maxBoostKpa,
+  const rail = t.add({
+    id: "rail-full-boost",
+    label: "Rail pressure at full boost",
+    formula:
+      regulator.type === "fixed"
+        ? "base pressure (a fixed regulator ignores boost)"
+        : "base pressure + rising-rate ratio × boost",
+    inputs: [
+      { label: "base pressure", value: regulator.basePressureKpa, quantity: "pressure" },
+      { label: "boost", value: engine.maxBoostKpa, quantity: "pressure" },
+      ...(regulator.type === "fixed"
+        ? []
+        : [
+            {
+              label: "rising-rate ratio",
+              value: regulator.risingRateRatio,
+              quantity: "risingRate" as const,
+            },
+          ]),
+    ],
+    value: railPressureKpa({
+      type: regulator.type,
+      basePressureKpa: regulator.basePressureKpa,
+      manifoldKpa: engine.maxBoostKpa,
+      risingRateRatio: regulator.risingRateRatio,
+    }),
+    quantity: "pressure",
   });
   const demand = worst.fuelVolumeFlowLPerH;
   const feedLine = input.lines?.feed;
@@ -89,10 +112,7 @@ export function pumpStage(
   t.add({
     id: "pump-outlet",
     label: "Pressure the pump works against",
-    formula:
-      regulator.type === "boost-referenced"
-        ? "base pressure + boost + filter and feed-line losses"
-        : "base pressure + filter and feed-line losses",
+    formula: "rail pressure + filter and feed-line losses",
     inputs: [
       { label: "rail pressure", value: rail, quantity: "pressure" },
       { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, quantity: "pressureDrop" },
@@ -161,6 +181,7 @@ export function pumpStage(
     type: regulator.type,
     basePressureKpa: regulator.basePressureKpa,
     manifoldKpa: idle.manifoldGaugeKpa,
+    risingRateRatio: regulator.risingRateRatio,
   });
   const idleSupply = supplyAt(Math.max(0, idleRail), voltageUsed);
   const idleConsumption = idleFuelConsumptionLPerH({

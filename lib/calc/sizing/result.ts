@@ -1,6 +1,7 @@
 // Reference: docs/calculations.md §7.
-import type { DutyBand } from "../injectors";
+import type { DutyBand, RegulatorType } from "../injectors";
 import type { LineDrop } from "../lines";
+import type { BoostPressurePoint } from "../regulator";
 import type { TraceStep, Warning } from "../types";
 import type { SizingLimits } from "./context";
 
@@ -61,6 +62,13 @@ export interface FuelSystemResult {
       minPulseWidthMs: number | null;
       fuelPerInjectionMg: number;
     };
+  };
+  regulator: {
+    type: RegulatorType;
+    /** 1 for 1:1; r for a 1:r rising-rate regulator (a fixed one: 1, unused). */
+    risingRateRatio: number;
+    /** Rail, manifold (= boost) and pressure across the injector over 0…max boost (§3.8). */
+    pressureVsBoost: BoostPressurePoint[];
   };
   pump: {
     voltageUsed: number;
