@@ -50,7 +50,7 @@ import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
 
 /** The optional parts of a build, switched on and off in the form. */
-const OPTIONAL = ["feed", "return", "wiring", "deadTime"] as const;
+const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2"] as const;
 type Optional = (typeof OPTIONAL)[number];
 type Values = FuelSystemInput & {
   title: string;
@@ -72,6 +72,19 @@ const OPTIONAL_DEFAULTS = {
     filterDropKpa: 0,
   },
   wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
+  /** A second pump: another model, or a stage switched on by boost. */
+  pump2: {
+    quantity: 1,
+    curves: [
+      {
+        voltage: 13.5,
+        points: [
+          { pressureKpa: 300, flowLPerH: 250 },
+          { pressureKpa: 600, flowLPerH: 180 },
+        ],
+      },
+    ],
+  },
   deadTime: {
     voltages: [10, 12, 14],
     pressuresKpa: [300, 400],
@@ -81,6 +94,14 @@ const OPTIONAL_DEFAULTS = {
       [0.7, 0.75],
     ],
   },
+};
+
+const NONE_INCLUDED: Record<Optional, boolean> = {
+  feed: false,
+  return: false,
+  wiring: false,
+  deadTime: false,
+  pump2: false,
 };
 
 const toNumber = (v: unknown) =>
@@ -98,7 +119,7 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   void title;
   void status;
   const v = structuredClone(rest) as FuelSystemInput;
-  const inc = include ?? { feed: false, return: false, wiring: false, deadTime: false };
+  const inc = include ?? NONE_INCLUDED;
   const lines = {
     ...(inc.feed ? { feed: v.lines?.feed } : {}),
     ...(inc.return ? { return: v.lines?.return } : {}),
@@ -107,6 +128,8 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   else delete v.lines;
   if (!inc.wiring && v.electrical) delete v.electrical.wiring;
   if (!inc.deadTime && v.injectors) delete v.injectors.deadTime;
+  // Without the second pump, the first (and any the API added beyond the second) stay.
+  if (!inc.pump2 && Array.isArray(v.pumps)) v.pumps = [v.pumps[0]!, ...v.pumps.slice(2)];
   return convertInputs(v, units, "toCanonical", baseline);
 }
 
@@ -122,6 +145,7 @@ function valuesOf(
     return: Boolean(inputs.lines?.return),
     wiring: Boolean(inputs.electrical?.wiring),
     deadTime: Boolean(inputs.injectors?.deadTime),
+    pump2: inputs.pumps.length > 1,
   };
   const full: FuelSystemInput = {
     ...inputs,
@@ -133,6 +157,7 @@ function valuesOf(
       ...inputs.electrical,
       wiring: inputs.electrical.wiring ?? OPTIONAL_DEFAULTS.wiring,
     },
+    pumps: [inputs.pumps[0]!, inputs.pumps[1] ?? OPTIONAL_DEFAULTS.pump2, ...inputs.pumps.slice(2)],
     lines: {
       feed: inputs.lines?.feed ?? OPTIONAL_DEFAULTS.feed,
       return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return,
@@ -295,6 +320,7 @@ export function BuildEditor(props: {
     defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
   const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
+  const points2 = useFieldArray({ control, name: "pumps.1.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
 
   const inputs = useMemo(
@@ -368,7 +394,10 @@ export function BuildEditor(props: {
     const canonical = inputsOf(current, units, baseline.inputs);
     // Switched-off parts keep their typed values through the switch as well.
     const all = inputsOf(
-      { ...current, include: { feed: true, return: true, wiring: true, deadTime: true } },
+      {
+        ...current,
+        include: { feed: true, return: true, wiring: true, deadTime: true, pump2: true },
+      },
       units,
       baseline.inputs,
     );
@@ -378,6 +407,7 @@ export function BuildEditor(props: {
         lines: all.lines,
         electrical: { ...canonical.electrical, wiring: all.electrical.wiring },
         injectors: { ...canonical.injectors, deadTime: all.injectors.deadTime },
+        pumps: all.pumps,
       },
       next,
       current.title,
@@ -504,6 +534,43 @@ export function BuildEditor(props: {
       </SelectField>
     );
   };
+  /** A pump's flow curve: pressure and flow points, added and removed. */
+  const curveEditor = (pump: 0 | 1, arr: typeof points) => (
+    <div className="sm:col-span-2">
+      <p className="text-sm font-medium text-ink-700">
+        {pump === 0 ? "Flow curve" : "Second pump's flow curve"}
+      </p>
+      {errors[`pumps.${pump}.curves.0.points`] ? (
+        <p role="alert" className="text-sm text-danger-700">
+          ✕ {errors[`pumps.${pump}.curves.0.points`]}
+        </p>
+      ) : null}
+      <div className="mt-1 space-y-2">
+        {arr.fields.map((p, i) => (
+          <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
+            {num(`pumps.${pump}.curves.0.points.${i}.pressureKpa`)}
+            {num(`pumps.${pump}.curves.0.points.${i}.flowLPerH`)}
+            <Button
+              type="button"
+              variant="ghost"
+              aria-label={`Remove ${pump === 0 ? "" : "second pump's "}point ${i + 1}`}
+              onClick={() => arr.remove(i)}
+            >
+              ✕
+            </Button>
+          </div>
+        ))}
+      </div>
+      <Button
+        type="button"
+        variant="secondary"
+        className="mt-2"
+        onClick={() => arr.append({ pressureKpa: undefined, flowLPerH: undefined } as never)}
+      >
+        {pump === 0 ? "Add point" : "Add a point to the second pump"}
+      </Button>
+    </div>
+  );
   const lineFields = (side: "feed" | "return") => [
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
@@ -513,7 +580,7 @@ export function BuildEditor(props: {
     num(`lines.${side}.fittingsK`),
     num(`lines.${side}.filterDropKpa`),
   ];
-  const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
+  const inc = values.include ?? NONE_INCLUDED;
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
   const changes = resized ? [] : (props.settingsChanges ?? []);
@@ -697,40 +764,29 @@ export function BuildEditor(props: {
           <Section title="Pump">
             {num("pumps.0.quantity")}
             {num("pumps.0.curves.0.voltage")}
-            <div className="sm:col-span-2">
-              <p className="text-sm font-medium text-ink-700">Flow curve</p>
-              {errors["pumps.0.curves.0.points"] ? (
-                <p role="alert" className="text-sm text-danger-700">
-                  ✕ {errors["pumps.0.curves.0.points"]}
-                </p>
-              ) : null}
-              <div className="mt-1 space-y-2">
-                {points.fields.map((p, i) => (
-                  <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    {num(`pumps.0.curves.0.points.${i}.pressureKpa`)}
-                    {num(`pumps.0.curves.0.points.${i}.flowLPerH`)}
-                    <Button
-                      type="button"
-                      variant="ghost"
-                      aria-label={`Remove point ${i + 1}`}
-                      onClick={() => points.remove(i)}
-                    >
-                      ✕
-                    </Button>
-                  </div>
-                ))}
+            {curveEditor(0, points)}
+          </Section>
+          <Section
+            title="Second pump"
+            toggle={
+              <div className="mb-1">
+                {toggle(
+                  "pump2",
+                  "Add a second pump (another model, or a stage switched on by boost)",
+                )}
               </div>
-              <Button
-                type="button"
-                variant="secondary"
-                className="mt-2"
-                onClick={() =>
-                  points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)
-                }
-              >
-                Add point
-              </Button>
-            </div>
+            }
+          >
+            {inc.pump2
+              ? [
+                  num("pumps.1.quantity"),
+                  num("pumps.1.switchOnBoostKpa"),
+                  num("pumps.1.curves.0.voltage"),
+                  <div key="pump2-curve" className="sm:col-span-2">
+                    {curveEditor(1, points2)}
+                  </div>,
+                ]
+              : null}
           </Section>
           <Section
             title="Electrical"

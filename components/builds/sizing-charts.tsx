@@ -84,6 +84,11 @@ export function SizingCharts({
     across: P(p.differentialKpa),
   }));
   const top = result.regulator.pressureVsBoost.at(-1);
+  const staged = result.pump.supplyVsBoost.map((p) => ({
+    boost: P(p.boostKpa),
+    supply: F(p.supplyLPerH),
+    demand: F(p.demandLPerH),
+  }));
   const regulatorName =
     result.regulator.type === "fixed"
       ? "fixed regulator"
@@ -179,6 +184,47 @@ export function SizingCharts({
             <Line
               dataKey="manifold"
               name="manifold"
+              stroke={DANGER}
+              strokeDasharray="5 3"
+              dot={false}
+              isAnimationActive={false}
+            />
+          </LineChart>
+        </Chart>
+      ) : null}
+      {staged.length > 1 ? (
+        <Chart
+          title="Pump supply and demand against boost"
+          summary={`The pump margin is at its lowest, ${formatValue("percent", result.pump.marginPct, units, 0)}, at ${formatValue("pressure", result.pump.worstMarginBoostKpa, units)} boost`}
+        >
+          <LineChart data={staged} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+            <CartesianGrid stroke="#e6eaee" />
+            <XAxis
+              dataKey="boost"
+              type="number"
+              domain={[0, "dataMax"]}
+              unit={` ${pu}`}
+              tick={{ fontSize: 11 }}
+            />
+            <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
+            <Tooltip />
+            <Legend />
+            <ReferenceLine
+              x={P(result.pump.worstMarginBoostKpa)}
+              stroke={INK}
+              strokeDasharray="2 2"
+              label={{ value: "least margin", fontSize: 11 }}
+            />
+            <Line
+              dataKey="supply"
+              name="supply"
+              stroke={COPPER}
+              dot={false}
+              isAnimationActive={false}
+            />
+            <Line
+              dataKey="demand"
+              name="demand"
               stroke={DANGER}
               strokeDasharray="5 3"
               dot={false}

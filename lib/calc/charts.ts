@@ -106,7 +106,7 @@ export function pumpSupplyCurve(
     const p = (top * i) / (count - 1);
     out.push({
       pressureKpa: p,
-      supplyLPerH: supplyAt(p, result.pump.voltageUsed).flowLPerH,
+      supplyLPerH: supplyAt(p, result.pump.voltageUsed, input.engine.maxBoostKpa).flowLPerH,
       demandLPerH: result.pump.demandLPerH,
     });
   }

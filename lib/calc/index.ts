@@ -61,6 +61,8 @@ export {
 export type { RegulatorType, RegulatorQuery, DeadTimeTable, DutyBand } from "./injectors";
 export { MAX_RISING_RATE_RATIO } from "./injectors";
 export { fuelPressureAgainstBoost } from "./regulator";
+export { demandAtBoostLPerH, supplyAgainstBoost } from "./staging";
+export type { SupplyPoint } from "./staging";
 export type { BoostPressurePoint } from "./regulator";
 export {
   pumpFlowLPerH,

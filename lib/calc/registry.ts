@@ -222,6 +222,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     short: "Point # flow",
     quantity: "volumeFlow",
   },
+  "pumps.*.switchOnBoostKpa": {
+    label: "Pump #: switches on at boost (blank: always on)",
+    short: "Switches on at boost (blank: always on)",
+    quantity: "pressure",
+  },
   electrical: { label: "Electrical" },
   "electrical.voltageAtPump": { label: "Voltage at the pump", quantity: "voltage" },
   "electrical.injectorVoltage": {
@@ -400,7 +405,41 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "pump.outletPressureKpa": { label: "Pressure the pump works against", quantity: "pressure" },
   "pump.demandLPerH": { label: "Pump demand (worse end of the blend)", quantity: "volumeFlow" },
   "pump.supplyLPerH": { label: "Pump supply", quantity: "volumeFlow", better: "higher" },
-  "pump.marginPct": { label: "Pump margin", quantity: "percent", decimals: 0, better: "higher" },
+  "pump.marginPct": {
+    label: "Pump margin",
+    quantity: "percent",
+    decimals: 0,
+    better: "higher",
+  },
+  "pump.fullLoadMarginPct": {
+    label: "Pump margin at full boost",
+    quantity: "percent",
+    decimals: 0,
+    better: "higher",
+  },
+  "pump.worstMarginBoostKpa": {
+    label: "Boost where the pump margin is worst",
+    quantity: "pressure",
+  },
+  "pump.supplyVsBoost.*.boostKpa": { label: "Boost, supply point #", quantity: "pressure" },
+  "pump.supplyVsBoost.*.outletKpa": {
+    label: "Pump outlet pressure at supply point #",
+    quantity: "pressure",
+  },
+  "pump.supplyVsBoost.*.supplyLPerH": {
+    label: "Pump supply at supply point #",
+    quantity: "volumeFlow",
+  },
+  "pump.supplyVsBoost.*.demandLPerH": {
+    label: "Fuel demand at supply point #",
+    quantity: "volumeFlow",
+  },
+  "pump.supplyVsBoost.*.marginPct": {
+    label: "Pump margin at supply point #",
+    quantity: "percent",
+    decimals: 0,
+  },
+  "pump.supplyVsBoost.*.pumpsOn": { label: "Pumps running at supply point #", quantity: "count" },
   "pump.returnFlowLPerH": { label: "Return flow at full load", quantity: "volumeFlow" },
   "pump.powerCeilingKw": { label: "Pump power ceiling", quantity: "power", better: "higher" },
   "pump.idleRailPressureKpa": { label: "Rail pressure at idle", quantity: "pressure" },

@@ -30,7 +30,7 @@ export function fuelPressureAgainstBoost(q: {
     top === 0 ? 1 : Math.round(requireRange("points", q.points ?? 11, 2, 200, "Points"));
   const out: BoostPressurePoint[] = [];
   for (let i = 0; i < count; i++) {
-    const boostKpa = count === 1 ? 0 : (top * i) / (count - 1);
+    const boostKpa = count === 1 ? 0 : i === count - 1 ? top : (top * i) / (count - 1);
     const r = {
       type: q.type,
       basePressureKpa: q.basePressureKpa,

@@ -234,6 +234,8 @@ export const PumpSchema = z.object({
   label: z.string().max(120).optional(),
   quantity: int("Pump quantity", 1, 4).default(1),
   curves: z.array(PumpCurveSchema).min(1, "A pump needs at least one flow curve").max(8),
+  /** A boost-switched stage runs from this boost up; left out, the pump runs all the time. */
+  switchOnBoostKpa: num("Switch-on boost", 0, 500, "kPa").optional(),
 });
 
 export const WiringSchema = z.object({
@@ -305,6 +307,13 @@ export const FuelSystemInputSchema = z
     { error: "Send the build as a JSON object" },
   )
   .superRefine((s, ctx) => {
+    // Staged pumps: the first stage must run all the time (idle and light load need fuel).
+    if (s.pumps.every((p) => p.switchOnBoostKpa !== undefined))
+      ctx.addIssue({
+        code: "custom",
+        path: ["pumps", 0, "switchOnBoostKpa"],
+        message: "One pump must run all the time: leave its switch-on boost blank",
+      });
     // A fixed regulator loses the boost from ΔP; keep some pressure across the injector.
     if (s.regulator.type === "fixed" && s.regulator.basePressureKpa - s.engine.maxBoostKpa < 50) {
       ctx.addIssue({

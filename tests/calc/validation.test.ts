@@ -12,6 +12,7 @@ import {
   cycleTimeMs,
   deadTimeMs,
   defaultBsfc,
+  demandAtBoostLPerH,
   dutyBand,
   effectivePulseWidthMs,
   frictionFactor,
@@ -39,6 +40,7 @@ import {
   railPressureKpa,
   requiredInjectorFlowCcPerMin,
   sizeFuelSystem,
+  supplyAgainstBoost,
   swameeJainFrictionFactor,
   voltageAfterWiringV,
   volumeFlowFromLPerH,
@@ -296,6 +298,55 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         basePressureKpa: a,
         maxBoostKpa: b,
         risingRateRatio: c,
+        points: 5,
+      }),
+  ],
+  [
+    "demandAtBoostLPerH",
+    (a, b, c, d) =>
+      demandAtBoostLPerH({
+        demandAtFullBoostLPerH: a,
+        boostKpa: b,
+        maxBoostKpa: c,
+        ambientKpaAbs: d,
+      }),
+  ],
+  [
+    "supplyAgainstBoost",
+    (a, b, c, d) =>
+      supplyAgainstBoost({
+        pumps: [
+          {
+            quantity: 1,
+            curves: [
+              {
+                voltage: 12,
+                points: [
+                  { pressureKpa: 0, flowLPerH: 300 },
+                  { pressureKpa: 600, flowLPerH: 200 },
+                ],
+              },
+            ],
+          },
+          {
+            quantity: 1,
+            switchOnBoostKpa: d,
+            curves: [
+              {
+                voltage: 12,
+                points: [
+                  { pressureKpa: 0, flowLPerH: 300 },
+                  { pressureKpa: 600, flowLPerH: 200 },
+                ],
+              },
+            ],
+          },
+        ],
+        voltage: 12,
+        regulator: { type: "boost-referenced", basePressureKpa: 300 },
+        maxBoostKpa: a,
+        demandAtFullBoostLPerH: b,
+        lossesKpa: c,
         points: 5,
       }),
   ],

@@ -3,6 +3,7 @@ import type { FuelBlend } from "../fuel";
 import { idleFuelConsumptionLPerH, railPressureKpa } from "../injectors";
 import { linePressureDrop, type LineDrop, type LineSegment } from "../lines";
 import { pumpMarginPct, pumpPowerCeilingKw, pumpSupplyFunction, type PumpFlow } from "../pumps";
+import { supplyAgainstBoost, type SupplyPoint } from "../staging";
 import { voltageAfterWiringV } from "../wire";
 import type { SizingContext } from "./context";
 import type { IdleStage } from "./idle-stage";
@@ -46,7 +47,12 @@ export interface PumpStage {
   feedDrop: LineDrop | null;
   demand: number;
   supply: PumpFlow;
+  /** Where it is worst over the boost range (§4.4). */
   margin: number;
+  fullLoadMargin: number;
+  /** The point below full boost where the margin is worst, if lower than at full boost. */
+  worstAt: SupplyPoint | null;
+  supplyVsBoost: SupplyPoint[];
   pumpCeiling: number;
   idleRail: number;
   idleSupply: PumpFlow;
@@ -105,10 +111,11 @@ export function pumpStage(
   });
   const supplyAt = pumpSupplyFunction(pumps);
   const base = rail + (feedLine?.filterDropKpa ?? 0);
+  const fullBoost = engine.maxBoostKpa;
   const { outlet, feedDrop } = pumpOperatingPoint(base, feedLine, (p) =>
-    fluid(supplyAt(p, voltageUsed).flowLPerH),
+    fluid(supplyAt(p, voltageUsed, fullBoost).flowLPerH),
   );
-  const supply = supplyAt(outlet, voltageUsed);
+  const supply = supplyAt(outlet, voltageUsed, fullBoost);
   t.add({
     id: "pump-outlet",
     label: "Pressure the pump works against",
@@ -137,7 +144,8 @@ export function pumpStage(
   t.add({
     id: "pump-supply",
     label: "Pump supply",
-    formula: "sum over pumps of quantity × flow on the curve at the outlet pressure and voltage",
+    formula:
+      "sum over the pumps running at full boost of quantity × flow on the curve at the outlet pressure and voltage",
     inputs: [
       { label: "outlet pressure", value: outlet, quantity: "pressure" },
       { label: "voltage", value: voltageUsed, quantity: "voltage" },
@@ -145,9 +153,9 @@ export function pumpStage(
     value: supply.flowLPerH,
     quantity: "volumeFlow",
   });
-  const margin = t.add({
+  const fullLoadMargin = t.add({
     id: "pump-margin",
-    label: "Pump margin",
+    label: "Pump margin at full boost",
     formula: "(supply ÷ demand − 1) × 100",
     inputs: [
       { label: "supply", value: supply.flowLPerH, quantity: "volumeFlow" },
@@ -183,7 +191,7 @@ export function pumpStage(
     manifoldKpa: idle.manifoldGaugeKpa,
     risingRateRatio: regulator.risingRateRatio,
   });
-  const idleSupply = supplyAt(Math.max(0, idleRail), voltageUsed);
+  const idleSupply = supplyAt(Math.max(0, idleRail), voltageUsed, idle.manifoldGaugeKpa);
   const idleConsumption = idleFuelConsumptionLPerH({
     fuelPerCylinderMg: idle.fuelPerCylinderMg,
     cylinders: engine.cylinders,
@@ -191,6 +199,45 @@ export function pumpStage(
     densityKgPerL: leanProps.densityKgPerL,
   });
   const idleReturn = Math.max(0, idleSupply.flowLPerH - idleConsumption);
+
+  // Supply against demand over the boost range; the margin is taken where it is worst (§4.4).
+  const supplyVsBoost = supplyAgainstBoost({
+    pumps,
+    supplyAt,
+    voltage: voltageUsed,
+    regulator,
+    maxBoostKpa: fullBoost,
+    ambientKpaAbs: engine.ambientKpaAbs,
+    demandAtFullBoostLPerH: demand,
+    lossesKpa: Math.max(0, outlet - rail),
+  });
+  let worstAt: SupplyPoint | null = null;
+  for (let i = 0; i < supplyVsBoost.length - 1; i++) {
+    const p = supplyVsBoost[i]!;
+    if (p.marginPct < fullLoadMargin && (!worstAt || p.marginPct < worstAt.marginPct)) worstAt = p;
+  }
+  let margin = fullLoadMargin;
+  if (worstAt) {
+    margin = t.add({
+      id: "pump-margin-worst",
+      label: "Pump margin where it is worst, at {boost} boost ({pumps} pumps running)",
+      params: {
+        boost: { value: worstAt.boostKpa, quantity: "pressure" },
+        pumps: { value: worstAt.pumpsOn, quantity: "count" },
+      },
+      formula:
+        "(supply ÷ demand − 1) × 100, demand = demand at full boost × (ambient + boost) ÷ (ambient + full boost)",
+      inputs: [
+        { label: "outlet pressure", value: worstAt.outletKpa, quantity: "pressure" },
+        { label: "supply", value: worstAt.supplyLPerH, quantity: "volumeFlow" },
+        { label: "demand at full boost", value: demand, quantity: "volumeFlow" },
+        { label: "ambient", value: engine.ambientKpaAbs, quantity: "pressureAbs" },
+        { label: "demand there", value: worstAt.demandLPerH, quantity: "volumeFlow" },
+      ],
+      value: worstAt.marginPct,
+      quantity: "percent",
+    });
+  }
   return {
     rail,
     outlet,
@@ -198,6 +245,9 @@ export function pumpStage(
     demand,
     supply,
     margin,
+    fullLoadMargin,
+    worstAt,
+    supplyVsBoost,
     pumpCeiling,
     idleRail,
     idleSupply,

@@ -2,6 +2,7 @@
 import type { DutyBand, RegulatorType } from "../injectors";
 import type { LineDrop } from "../lines";
 import type { BoostPressurePoint } from "../regulator";
+import type { SupplyPoint } from "../staging";
 import type { TraceStep, Warning } from "../types";
 import type { SizingLimits } from "./context";
 
@@ -77,7 +78,13 @@ export interface FuelSystemResult {
     outletPressureKpa: number;
     demandLPerH: number;
     supplyLPerH: number;
+    /** Where it is worst over the boost range (§4.4); at full boost unless a stage is late. */
     marginPct: number;
+    fullLoadMarginPct: number;
+    /** Boost at which the margin is worst. */
+    worstMarginBoostKpa: number;
+    /** Supply against demand over 0…max boost (with a point either side of each stage). */
+    supplyVsBoost: SupplyPoint[];
     returnFlowLPerH: number;
     powerCeilingKw: number;
     idleRailPressureKpa: number;

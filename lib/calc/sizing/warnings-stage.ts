@@ -3,6 +3,7 @@ import { deadTimeMs, type DutyBand } from "../injectors";
 import { AN_SIZES } from "../lines";
 import type { PumpFlow } from "../pumps";
 import type { FigureParams } from "../quantities";
+import type { SupplyPoint } from "../staging";
 import type { Severity, Warning } from "../types";
 import type { Ceiling } from "./ceiling-stage";
 import type { SizingContext } from "./context";
@@ -31,6 +32,8 @@ export interface SizingFacts {
   demand: number;
   supply: PumpFlow;
   margin: number;
+  /** Where the margin is worst below full boost, if lower than at full boost (§4.4). */
+  worstAt: SupplyPoint | null;
   idleRail: number;
   idleSupply: PumpFlow;
   feed: LineResult | null;
@@ -56,7 +59,7 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
   const { engine, fuel, injectors, regulator, electrical } = input;
   const { crankPowerKw, lean, rich, worst, dpOp, dutyBand, needRating, idle, voltageUsed } = f;
   const { wireDropV, outlet, demand, supply, margin, idleRail, idleSupply, feed, ret } = f;
-  const { recommendedFeedDash, recommendedReturnDash } = f;
+  const { recommendedFeedDash, recommendedReturnDash, worstAt } = f;
   const { kw: ceilingKw, limitedBy } = f.ceiling;
   const pumpLimited = limitedBy !== "injectors";
   const dutyMax = Math.max(lean.dutyPct, rich.dutyPct);
@@ -163,15 +166,50 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
       "Add a pump or fit a larger one, raise the voltage at the pump, or lower the target power.",
       pumpAt,
     );
+  } else if (worstAt && worstAt.supplyLPerH < worstAt.demandLPerH) {
+    // Staged pumps: short below full boost, before a stage switches on (§4.4).
+    warn(
+      "pump-short",
+      "danger",
+      "At {boost} boost the pumps running deliver {supply} at {outlet}, less than the {demand} the engine needs there: the rail pressure will collapse before the next stage switches on.",
+      "Switch the second stage on at a lower boost, or fit a larger first stage.",
+      {
+        boost: { value: worstAt.boostKpa, quantity: "pressure" },
+        supply: { value: worstAt.supplyLPerH, quantity: "volumeFlow" },
+        outlet: { value: worstAt.outletKpa, quantity: "pressure" },
+        demand: { value: worstAt.demandLPerH, quantity: "volumeFlow" },
+      },
+    );
   } else if (margin < limits.minPumpMarginPct) {
     warn(
       "pump-margin-low",
       "caution",
-      "Pump margin is {margin}, below the {min} minimum.",
-      "Fit a larger pump or a second one, or improve the pump's wiring.",
+      worstAt
+        ? "Pump margin is {margin} at {boost} boost, before the next stage switches on, below the {min} minimum."
+        : "Pump margin is {margin}, below the {min} minimum.",
+      worstAt
+        ? "Switch the second stage on at a lower boost, or fit a larger first stage."
+        : "Fit a larger pump or a second one, or improve the pump's wiring.",
       {
         margin: { value: margin, quantity: "percent", decimals: 0 },
         min: { value: limits.minPumpMarginPct, quantity: "percent", decimals: 0 },
+        ...(worstAt ? { boost: { value: worstAt.boostKpa, quantity: "pressure" as const } } : {}),
+      },
+    );
+  }
+  const neverOn = input.pumps.findIndex(
+    (p) => p.switchOnBoostKpa !== undefined && p.switchOnBoostKpa > engine.maxBoostKpa,
+  );
+  if (neverOn >= 0) {
+    warn(
+      "pump-stage-never-on",
+      "caution",
+      "Pump {pump} switches on at {switchOn}, above the engine's {boost} boost: it never runs.",
+      "Lower its switch-on boost, or leave it blank to run it all the time.",
+      {
+        pump: { value: neverOn + 1, quantity: "count" },
+        switchOn: { value: input.pumps[neverOn]!.switchOnBoostKpa!, quantity: "pressure" },
+        boost: { value: engine.maxBoostKpa, quantity: "pressure" },
       },
     );
   }
