@@ -50,7 +50,7 @@ import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
 
 /** The optional parts of a build, switched on and off in the form. */
-const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2"] as const;
+const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2", "bypass"] as const;
 type Optional = (typeof OPTIONAL)[number];
 type Values = FuelSystemInput & {
   title: string;
@@ -72,6 +72,7 @@ const OPTIONAL_DEFAULTS = {
     filterDropKpa: 0,
   },
   wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
+  bypass: { flowLPerH: 400, atPressureKpa: 300 },
   /** A second pump: another model, or a stage switched on by boost. */
   pump2: {
     quantity: 1,
@@ -102,6 +103,7 @@ const NONE_INCLUDED: Record<Optional, boolean> = {
   wiring: false,
   deadTime: false,
   pump2: false,
+  bypass: false,
 };
 
 const toNumber = (v: unknown) =>
@@ -128,6 +130,7 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   else delete v.lines;
   if (!inc.wiring && v.electrical) delete v.electrical.wiring;
   if (!inc.deadTime && v.injectors) delete v.injectors.deadTime;
+  if (!inc.bypass && v.regulator) delete v.regulator.bypass;
   // Without the second pump, the first (and any the API added beyond the second) stay.
   if (!inc.pump2 && Array.isArray(v.pumps)) v.pumps = [v.pumps[0]!, ...v.pumps.slice(2)];
   return convertInputs(v, units, "toCanonical", baseline);
@@ -146,6 +149,7 @@ function valuesOf(
     wiring: Boolean(inputs.electrical?.wiring),
     deadTime: Boolean(inputs.injectors?.deadTime),
     pump2: inputs.pumps.length > 1,
+    bypass: Boolean(inputs.regulator?.bypass),
   };
   const full: FuelSystemInput = {
     ...inputs,
@@ -156,6 +160,10 @@ function valuesOf(
     electrical: {
       ...inputs.electrical,
       wiring: inputs.electrical.wiring ?? OPTIONAL_DEFAULTS.wiring,
+    },
+    regulator: {
+      ...inputs.regulator,
+      bypass: inputs.regulator.bypass ?? OPTIONAL_DEFAULTS.bypass,
     },
     pumps: [inputs.pumps[0]!, inputs.pumps[1] ?? OPTIONAL_DEFAULTS.pump2, ...inputs.pumps.slice(2)],
     lines: {
@@ -396,7 +404,14 @@ export function BuildEditor(props: {
     const all = inputsOf(
       {
         ...current,
-        include: { feed: true, return: true, wiring: true, deadTime: true, pump2: true },
+        include: {
+          feed: true,
+          return: true,
+          wiring: true,
+          deadTime: true,
+          pump2: true,
+          bypass: true,
+        },
       },
       units,
       baseline.inputs,
@@ -408,6 +423,7 @@ export function BuildEditor(props: {
         electrical: { ...canonical.electrical, wiring: all.electrical.wiring },
         injectors: { ...canonical.injectors, deadTime: all.injectors.deadTime },
         pumps: all.pumps,
+        regulator: { ...canonical.regulator, bypass: all.regulator.bypass },
       },
       next,
       current.title,
@@ -756,10 +772,20 @@ export function BuildEditor(props: {
               </div>
             ) : null}
           </Section>
-          <Section title="Regulator">
+          <Section
+            title="Regulator"
+            toggle={
+              <div className="mb-1">
+                {toggle("bypass", "Check the regulator's bypass (return) capacity")}
+              </div>
+            }
+          >
             {select("regulator.type")}
             {num("regulator.basePressureKpa")}
             {values.regulator?.type !== "fixed" ? num("regulator.risingRateRatio") : null}
+            {inc.bypass
+              ? [num("regulator.bypass.flowLPerH"), num("regulator.bypass.atPressureKpa")]
+              : null}
           </Section>
           <Section title="Pump">
             {num("pumps.0.quantity")}

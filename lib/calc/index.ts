@@ -60,7 +60,7 @@ export {
 } from "./injectors";
 export type { RegulatorType, RegulatorQuery, DeadTimeTable, DutyBand } from "./injectors";
 export { MAX_RISING_RATE_RATIO } from "./injectors";
-export { fuelPressureAgainstBoost } from "./regulator";
+export { fuelPressureAgainstBoost, regulatorBypassCapacityLPerH } from "./regulator";
 export { demandAtBoostLPerH, supplyAgainstBoost } from "./staging";
 export type { SupplyPoint } from "./staging";
 export type { BoostPressurePoint } from "./regulator";

@@ -190,6 +190,17 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   regulator: { label: "Regulator" },
   "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
   "regulator.basePressureKpa": { label: "Base pressure", quantity: "pressure" },
+  "regulator.bypass": { label: "Regulator bypass rating" },
+  "regulator.bypass.flowLPerH": {
+    label: "Regulator bypass flow (rated)",
+    short: "Bypass flow (rated)",
+    quantity: "volumeFlow",
+  },
+  "regulator.bypass.atPressureKpa": {
+    label: "Regulator bypass rated at",
+    short: "Bypass flow rated at",
+    quantity: "pressure",
+  },
   "regulator.risingRateRatio": {
     label: "Rising-rate ratio (fuel pressure per unit of boost)",
     short: "Rising-rate ratio",
@@ -384,6 +395,11 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   },
   "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
   "regulator.risingRateRatio": { label: "Rising-rate ratio", quantity: "risingRate" },
+  "regulator.bypassCapacityAtIdleLPerH": {
+    label: "Regulator bypass capacity at the idle rail pressure",
+    quantity: "volumeFlow",
+    better: "higher",
+  },
   "regulator.pressureVsBoost.*.boostKpa": { label: "Boost, point #", quantity: "pressure" },
   "regulator.pressureVsBoost.*.railKpa": {
     label: "Rail pressure at boost point #",

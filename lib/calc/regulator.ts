@@ -1,5 +1,5 @@
 // Reference: docs/calculations.md §3.8.
-import { requireRange } from "./_lib/input-error";
+import { requirePositive, requireRange } from "./_lib/input-error";
 import { injectorDifferentialPressureKpa, railPressureKpa, type RegulatorType } from "./injectors";
 
 /** One point of the fuel pressure against boost (all kPa gauge). */
@@ -44,4 +44,21 @@ export function fuelPressureAgainstBoost(q: {
     });
   }
   return out;
+}
+
+/**
+ * What a regulator's bypass (return) valve passes at a rail pressure, from its rating (a flow at
+ * a pressure), by the orifice law Q = Q_rated · √(p / p_rated) (§3.1 applied to the open valve).
+ * docs/calculations.md §3.9.
+ * @example regulatorBypassCapacityLPerH({ ratedFlowLPerH: 400, ratedPressureKpa: 300, railPressureKpa: 240 }) // 357.8
+ */
+export function regulatorBypassCapacityLPerH(q: {
+  ratedFlowLPerH: number;
+  ratedPressureKpa: number;
+  railPressureKpa: number;
+}): number {
+  requireRange("ratedFlowLPerH", q.ratedFlowLPerH, 0, 1e5, "Bypass flow");
+  requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Pressure of the bypass rating");
+  requireRange("railPressureKpa", q.railPressureKpa, 0, 1e4, "Rail pressure");
+  return q.ratedFlowLPerH * Math.sqrt(q.railPressureKpa / q.ratedPressureKpa);
 }

@@ -179,6 +179,13 @@ export const RegulatorSchema = z.object(
      * rising-rate unit (up to 1:12). Ignored by a fixed regulator. docs/calculations.md §3.8.
      */
     risingRateRatio: num("Rising-rate ratio", 1, 12).default(1),
+    /** Optional: the bypass (return) flow the regulator is rated to pass at a pressure (§3.9). */
+    bypass: z
+      .object({
+        flowLPerH: num("Regulator bypass flow", 10, 5000, "L/h"),
+        atPressureKpa: num("Pressure of the bypass rating", 50, 1000, "kPa"),
+      })
+      .optional(),
   },
   { error: "Give the regulator: type and base pressure" },
 );

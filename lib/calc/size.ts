@@ -88,6 +88,8 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
     worstAt: pump.worstAt,
     idleRail: pump.idleRail,
     idleSupply: pump.idleSupply,
+    idleReturn: pump.idleReturn,
+    bypassAtIdle: pump.bypassAtIdle,
     feed: lines.feed,
     ret: lines.return,
     recommendedFeedDash: lines.recommendedFeedDash,
@@ -136,6 +138,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         risingRateRatio: input.regulator.risingRateRatio,
         maxBoostKpa: engine.maxBoostKpa,
       }),
+      bypassCapacityAtIdleLPerH: pump.bypassAtIdle,
     },
     pump: {
       voltageUsed,

@@ -38,6 +38,7 @@ import {
   pumpMarginPct,
   pumpPowerCeilingKw,
   railPressureKpa,
+  regulatorBypassCapacityLPerH,
   requiredInjectorFlowCcPerMin,
   sizeFuelSystem,
   supplyAgainstBoost,
@@ -300,6 +301,11 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         risingRateRatio: c,
         points: 5,
       }),
+  ],
+  [
+    "regulatorBypassCapacityLPerH",
+    (a, b, c) =>
+      regulatorBypassCapacityLPerH({ ratedFlowLPerH: a, ratedPressureKpa: b, railPressureKpa: c }),
   ],
   [
     "demandAtBoostLPerH",

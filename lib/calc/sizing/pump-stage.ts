@@ -3,6 +3,7 @@ import type { FuelBlend } from "../fuel";
 import { idleFuelConsumptionLPerH, railPressureKpa } from "../injectors";
 import { linePressureDrop, type LineDrop, type LineSegment } from "../lines";
 import { pumpMarginPct, pumpPowerCeilingKw, pumpSupplyFunction, type PumpFlow } from "../pumps";
+import { regulatorBypassCapacityLPerH } from "../regulator";
 import { supplyAgainstBoost, type SupplyPoint } from "../staging";
 import { voltageAfterWiringV } from "../wire";
 import type { SizingContext } from "./context";
@@ -57,6 +58,8 @@ export interface PumpStage {
   idleRail: number;
   idleSupply: PumpFlow;
   idleReturn: number;
+  /** Regulator bypass capacity at the idle rail pressure; null without a rating. */
+  bypassAtIdle: number | null;
   fluid: LineFluid;
 }
 
@@ -199,6 +202,26 @@ export function pumpStage(
     densityKgPerL: leanProps.densityKgPerL,
   });
   const idleReturn = Math.max(0, idleSupply.flowLPerH - idleConsumption);
+  const bypass = regulator.bypass;
+  const bypassAtIdle = bypass
+    ? t.add({
+        id: "regulator-bypass",
+        label: "Regulator bypass capacity at the idle rail pressure",
+        formula: "rated bypass flow × √(idle rail pressure ÷ rating pressure)",
+        inputs: [
+          { label: "rated bypass flow", value: bypass.flowLPerH, quantity: "volumeFlow" },
+          { label: "rating pressure", value: bypass.atPressureKpa, quantity: "pressure" },
+          { label: "idle rail pressure", value: Math.max(0, idleRail), quantity: "pressure" },
+          { label: "idle return flow", value: idleReturn, quantity: "volumeFlow" },
+        ],
+        value: regulatorBypassCapacityLPerH({
+          ratedFlowLPerH: bypass.flowLPerH,
+          ratedPressureKpa: bypass.atPressureKpa,
+          railPressureKpa: Math.max(0, idleRail),
+        }),
+        quantity: "volumeFlow",
+      })
+    : null;
 
   // Supply against demand over the boost range; the margin is taken where it is worst (§4.4).
   const supplyVsBoost = supplyAgainstBoost({
@@ -252,6 +275,7 @@ export function pumpStage(
     idleRail,
     idleSupply,
     idleReturn,
+    bypassAtIdle,
     fluid,
   };
 }

@@ -70,6 +70,8 @@ export interface FuelSystemResult {
     risingRateRatio: number;
     /** Rail, manifold (= boost) and pressure across the injector over 0…max boost (§3.8). */
     pressureVsBoost: BoostPressurePoint[];
+    /** What the bypass passes at the idle rail pressure (§3.9); null: no rating given. */
+    bypassCapacityAtIdleLPerH: number | null;
   };
   pump: {
     voltageUsed: number;

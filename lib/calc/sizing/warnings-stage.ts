@@ -36,6 +36,8 @@ export interface SizingFacts {
   worstAt: SupplyPoint | null;
   idleRail: number;
   idleSupply: PumpFlow;
+  idleReturn: number;
+  bypassAtIdle: number | null;
   feed: LineResult | null;
   ret: LineResult | null;
   recommendedFeedDash: number | null;
@@ -194,6 +196,19 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
         margin: { value: margin, quantity: "percent", decimals: 0 },
         min: { value: limits.minPumpMarginPct, quantity: "percent", decimals: 0 },
         ...(worstAt ? { boost: { value: worstAt.boostKpa, quantity: "pressure" as const } } : {}),
+      },
+    );
+  }
+  if (f.bypassAtIdle !== null && f.bypassAtIdle < f.idleReturn) {
+    warn(
+      "regulator-bypass-short",
+      "caution",
+      "At idle the regulator must return {idleReturn}, but its bypass passes only {capacity} at {idleRail}: the rail pressure will rise above its setting at idle and light load.",
+      "Fit a regulator with a larger bypass, or a smaller (or staged) pump.",
+      {
+        idleReturn: { value: f.idleReturn, quantity: "volumeFlow" },
+        capacity: { value: f.bypassAtIdle, quantity: "volumeFlow" },
+        idleRail: { value: Math.max(0, idleRail), quantity: "pressure" },
       },
     );
   }
