@@ -63,13 +63,11 @@ const OPTIONAL_DEFAULTS = {
     insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
     lengthM: 5,
     fittingsK: 4,
-    filterDropKpa: 7,
   },
   return: {
     insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
     lengthM: 5,
     fittingsK: 3,
-    filterDropKpa: 0,
   },
   wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
   bypass: { flowLPerH: 400, atPressureKpa: 300 },
@@ -594,7 +592,6 @@ export function BuildEditor(props: {
     num(`lines.${side}.insideDiameterMm`),
     num(`lines.${side}.lengthM`),
     num(`lines.${side}.fittingsK`),
-    num(`lines.${side}.filterDropKpa`),
   ];
   const inc = values.include ?? NONE_INCLUDED;
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
@@ -830,6 +827,10 @@ export function BuildEditor(props: {
                   num("electrical.wiring.currentA"),
                 ]
               : null}
+          </Section>
+          <Section title="Filters">
+            {num("filters.prePumpDropKpa")}
+            {num("filters.postPumpDropKpa")}
           </Section>
           <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
             {inc.feed ? lineFields("feed") : null}

@@ -100,6 +100,7 @@ export {
   DEFAULT_DRIVETRAIN_LOSS_PCT,
 } from "./size";
 export type { SizingLimits } from "./size";
+export { PRE_PUMP_FILTER_CAUTION_KPA } from "./sizing/warnings-stage";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";

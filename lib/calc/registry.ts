@@ -91,11 +91,6 @@ const line = (side: "feed" | "return"): Record<string, FieldSpec> => {
       short: "Fittings (sum of K)",
       quantity: "lossCoefficient",
     },
-    [`lines.${side}.filterDropKpa`]: {
-      label: `${L} filter drop`,
-      short: "Filter drop",
-      quantity: "pressureDrop",
-    },
   };
 };
 
@@ -269,6 +264,17 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   lines: { label: "Lines" },
   ...line("feed"),
   ...line("return"),
+  filters: { label: "Filters" },
+  "filters.prePumpDropKpa": {
+    label: "Pre-pump filter drop (suction side)",
+    short: "Pre-pump filter drop",
+    quantity: "pressureDrop",
+  },
+  "filters.postPumpDropKpa": {
+    label: "Post-pump filter drop (pump to rail)",
+    short: "Post-pump filter drop",
+    quantity: "pressureDrop",
+  },
   limits: { label: "Limits" },
   "limits.designDutyPct": { label: "Design duty", quantity: "percent", decimals: 0 },
   "limits.dutyCautionPct": { label: "Duty caution level", quantity: "percent", decimals: 0 },

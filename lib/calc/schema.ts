@@ -270,7 +270,16 @@ export const LineSchema = z.object({
   lengthM: num("Line length", 0.1, 30, "m"),
   roughnessMm: num("Roughness", 0, 1, "mm").optional(),
   fittingsK: num("Fittings K", 0, 50).default(0),
-  filterDropKpa: num("Filter drop", 0, 100, "kPa").default(0),
+});
+
+/**
+ * Filters as two items (docs/calculations.md §4.5): the pre-pump one (sock, strainer) on the
+ * suction side; the post-pump one between the pump and the rail, in the pump's outlet pressure.
+ * Inputs format 2 kept one filter drop on the feed line; it reads as the post-pump filter.
+ */
+export const FiltersSchema = z.object({
+  prePumpDropKpa: num("Pre-pump filter drop", 0, 50, "kPa").default(0),
+  postPumpDropKpa: num("Post-pump filter drop", 0, 200, "kPa").default(0),
 });
 
 export const LinesSchema = z.object({ feed: LineSchema.optional(), return: LineSchema.optional() });
@@ -309,6 +318,7 @@ export const FuelSystemInputSchema = z
         .max(6, "At most six pump entries"),
       electrical: ElectricalSchema,
       lines: LinesSchema.optional(),
+      filters: FiltersSchema.prefault({}),
       limits: LimitsSchema.optional(),
     },
     { error: "Send the build as a JSON object" },

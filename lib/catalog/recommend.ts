@@ -264,7 +264,6 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
         insideDiameterMm: s.insideDiameterMm,
         lengthM: lineLength(side),
         fittingsK: current?.fittingsK ?? 0,
-        filterDropKpa: current?.filterDropKpa ?? 0,
         roughnessMm: current?.roughnessMm,
       };
       const r = sizeParsedFuelSystem({ ...input, lines: { ...input.lines, [side]: seg } });
@@ -423,21 +422,18 @@ export function applyKit(
             insideDiameterMm: s.insideDiameterMm,
             lengthM: cur?.lengthM ?? 5,
             fittingsK: cur?.fittingsK ?? 0,
-            filterDropKpa: cur?.filterDropKpa ?? 0,
             ...(cur?.roughnessMm !== undefined ? { roughnessMm: cur.roughnessMm } : {}),
           },
         },
       };
     }
-    if (c.role === "filter" && next.lines?.feed)
+    // A catalog filter is the fine one, after the pump (docs/calculations.md §4.5).
+    if (c.role === "filter")
       next = {
         ...next,
-        lines: {
-          ...next.lines,
-          feed: {
-            ...next.lines.feed,
-            filterDropKpa: (c.part.specs as { dropKpa: number }).dropKpa,
-          },
+        filters: {
+          ...next.filters,
+          postPumpDropKpa: (c.part.specs as { dropKpa: number }).dropKpa,
         },
       };
   }

@@ -64,7 +64,7 @@ export interface PumpStage {
 }
 
 /**
- * Stage "pump operating point": the outlet pressure (rail + filter + the feed line's drop at
+ * Stage "pump operating point": the outlet pressure (rail + post-pump filter + the feed line's drop at
  * the pump's own flow), supply there, demand at the worse end, margin, the pump's power
  * ceiling, and at idle the supply and the return flow the return line carries.
  */
@@ -113,7 +113,8 @@ export function pumpStage(
     viscosityMPaS: richProps.viscosityMPaS,
   });
   const supplyAt = pumpSupplyFunction(pumps);
-  const base = rail + (feedLine?.filterDropKpa ?? 0);
+  const postFilter = input.filters.postPumpDropKpa;
+  const base = rail + postFilter;
   const fullBoost = engine.maxBoostKpa;
   const { outlet, feedDrop } = pumpOperatingPoint(base, feedLine, (p) =>
     fluid(supplyAt(p, voltageUsed, fullBoost).flowLPerH),
@@ -122,10 +123,10 @@ export function pumpStage(
   t.add({
     id: "pump-outlet",
     label: "Pressure the pump works against",
-    formula: "rail pressure + filter and feed-line losses",
+    formula: "rail pressure + post-pump filter drop + feed-line drop",
     inputs: [
       { label: "rail pressure", value: rail, quantity: "pressure" },
-      { label: "filter drop", value: feedLine?.filterDropKpa ?? 0, quantity: "pressureDrop" },
+      { label: "post-pump filter drop", value: postFilter, quantity: "pressureDrop" },
       { label: "feed-line drop", value: feedDrop?.pressureDropKpa ?? 0, quantity: "pressureDrop" },
     ],
     value: outlet,

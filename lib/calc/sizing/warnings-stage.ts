@@ -10,6 +10,11 @@ import type { SizingContext } from "./context";
 import type { IdleStage } from "./idle-stage";
 import type { BlendEnd, LineResult } from "./result";
 
+/**
+ * Above this drop a pre-pump (suction-side) filter is a caution: the pump's inlet falls toward
+ * the fuel's vapour pressure (common practice, no source; docs/calculations.md §4.5).
+ */
+export const PRE_PUMP_FILTER_CAUTION_KPA = 10;
 /** Figures of a warning without numbers. */
 const NO_PARAMS: FigureParams = Object.freeze({}) as FigureParams;
 /** The largest hose size the recommendation tries. */
@@ -209,6 +214,18 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
         idleReturn: { value: f.idleReturn, quantity: "volumeFlow" },
         capacity: { value: f.bypassAtIdle, quantity: "volumeFlow" },
         idleRail: { value: Math.max(0, idleRail), quantity: "pressure" },
+      },
+    );
+  }
+  if (input.filters.prePumpDropKpa > PRE_PUMP_FILTER_CAUTION_KPA) {
+    warn(
+      "pre-pump-filter-drop",
+      "caution",
+      "The pre-pump filter loses {drop} on the suction side, more than {limit}: the pump may draw vapour (cavitate) with hot fuel or a low tank.",
+      "Use a coarser or larger pre-pump filter (a sock or strainer) and do the fine filtering after the pump.",
+      {
+        drop: { value: input.filters.prePumpDropKpa, quantity: "pressureDrop" },
+        limit: { value: PRE_PUMP_FILTER_CAUTION_KPA, quantity: "pressureDrop" },
       },
     );
   }
