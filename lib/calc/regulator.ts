@@ -1,5 +1,5 @@
 // Reference: docs/calculations.md §3.8.
-import { requirePositive, requireRange } from "./_lib/input-error";
+import { requireRange } from "./_lib/input-error";
 import { injectorDifferentialPressureKpa, railPressureKpa, type RegulatorType } from "./injectors";
 
 /** One point of the fuel pressure against boost (all kPa gauge). */
@@ -58,7 +58,7 @@ export function regulatorBypassCapacityLPerH(q: {
   railPressureKpa: number;
 }): number {
   requireRange("ratedFlowLPerH", q.ratedFlowLPerH, 0, 1e5, "Bypass flow");
-  requirePositive("ratedPressureKpa", q.ratedPressureKpa, 1e4, "Pressure of the bypass rating");
+  requireRange("ratedPressureKpa", q.ratedPressureKpa, 1, 1e4, "Pressure of the bypass rating");
   requireRange("railPressureKpa", q.railPressureKpa, 0, 1e4, "Rail pressure");
   return q.ratedFlowLPerH * Math.sqrt(q.railPressureKpa / q.ratedPressureKpa);
 }
