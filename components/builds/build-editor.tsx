@@ -756,6 +756,7 @@ export function BuildEditor(props: {
             {num("injectors.ratedFlowCcPerMin")}
             {num("injectors.ratedPressureKpa")}
             {num("injectors.minPulseWidthMs")}
+            {num("injectors.ratingFluidDensityKgPerL")}
             {inc.deadTime ? (
               <div className="sm:col-span-2">
                 <DeadTimeGrid

@@ -44,6 +44,7 @@ export {
 export type { Aspiration, BsfcDefaults, BsfcEstimate } from "./power";
 export {
   injectorFlowAtPressure,
+  injectorFlowForFuel,
   injectorDifferentialPressureKpa,
   railPressureKpa,
   injectorDutyPct,

@@ -67,6 +67,29 @@ export function injectorFlowAtPressure(q: {
 export type RegulatorType = "boost-referenced" | "fixed";
 
 /**
+ * Volume flow of the fuel through an injector rated with a test fluid of another density, at
+ * the same pressure: an orifice passes Q = C·A·√(2ΔP/ρ), so Q_fuel = Q_test·√(ρ_test/ρ_fuel)
+ * (mass flow goes with √(ρ_fuel/ρ_test)). docs/calculations.md §3.10.
+ * @example injectorFlowForFuel({ flowCcPerMin: 1000, ratingFluidDensityKgPerL: 0.684, fuelDensityKgPerL: 0.787 }) // 932.3
+ */
+export function injectorFlowForFuel(q: {
+  flowCcPerMin: number;
+  ratingFluidDensityKgPerL: number;
+  fuelDensityKgPerL: number;
+}): number {
+  requireRange("flowCcPerMin", q.flowCcPerMin, 0, 1e5, "Injector flow");
+  requireRange(
+    "ratingFluidDensityKgPerL",
+    q.ratingFluidDensityKgPerL,
+    0.1,
+    2,
+    "Rating fluid density",
+  );
+  requireRange("fuelDensityKgPerL", q.fuelDensityKgPerL, 0.1, 2, "Fuel density");
+  return q.flowCcPerMin * Math.sqrt(q.ratingFluidDensityKgPerL / q.fuelDensityKgPerL);
+}
+
+/**
  * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
  * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure, a rising-rate
  * one (ratio r) adds (r − 1) × boost; a fixed one leaves the rail at base, so

@@ -171,6 +171,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     quantity: "pressure",
   },
   "injectors.minPulseWidthMs": { label: "Minimum pulse width", quantity: "time" },
+  "injectors.ratingFluidDensityKgPerL": {
+    label: "Density of the injector's rating fluid (blank: rated with the fuel)",
+    short: "Rating fluid density (blank: the fuel)",
+    quantity: "density",
+  },
   "injectors.deadTime": { label: "Dead-time table" },
   "injectors.deadTime.voltages": { label: "Dead-time voltages" },
   "injectors.deadTime.voltages.*": { label: "Dead-time voltage, row #", quantity: "voltage" },
@@ -308,6 +313,10 @@ const blendEnd = (which: "lean" | "rich"): Record<string, FieldSpec> => {
     },
     [`${p}.requiredRatedFlowCcPerMin`]: {
       label: `Smallest injector rating ${at}`,
+      quantity: "injectorFlow",
+    },
+    [`${p}.injectorFlowCcPerMin`]: {
+      label: `Injector flow of the fuel ${at}`,
       quantity: "injectorFlow",
     },
     [`${p}.dutyPct`]: { label: `Injector duty ${at}`, quantity: "percent", better: "lower" },

@@ -166,6 +166,11 @@ export const InjectorsSchema = z.object(
     ratedPressureKpa: num("Injector rated pressure", 100, 1000, "kPa").default(300),
     deadTime: DeadTimeTableSchema.optional(),
     minPulseWidthMs: num("Minimum pulse width", 0.1, 10, "ms").optional(),
+    /**
+     * Density of the fluid the rating was measured with (n-heptane ≈ 0.684, calibration fluids
+     * ≈ 0.76–0.78 kg/L). Left out: the rating is taken as the fuel's own. §3.10.
+     */
+    ratingFluidDensityKgPerL: num("Rating fluid density", 0.6, 1.1, "kg/L").optional(),
   },
   { error: "Give the injectors: count and rated flow" },
 );

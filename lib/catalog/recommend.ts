@@ -73,6 +73,7 @@ function withInjector(input: ParsedFuelSystemInput, p: CatalogPart): ParsedFuelS
     ratedFlowCcPerMin: number;
     ratedPressureKpa: number;
     minPulseWidthMs?: number;
+    ratingFluidDensityKgPerL?: number;
     deadTime?: ParsedFuelSystemInput["injectors"]["deadTime"];
   };
   return {
@@ -82,6 +83,7 @@ function withInjector(input: ParsedFuelSystemInput, p: CatalogPart): ParsedFuelS
       ratedFlowCcPerMin: s.ratedFlowCcPerMin,
       ratedPressureKpa: s.ratedPressureKpa,
       minPulseWidthMs: s.minPulseWidthMs,
+      ratingFluidDensityKgPerL: s.ratingFluidDensityKgPerL,
       deadTime: s.deadTime,
     },
   };

@@ -27,6 +27,7 @@ import {
   injectorDifferentialPressureKpa,
   injectorDutyPct,
   injectorFlowAtPressure,
+  injectorFlowForFuel,
   injectorPowerCeilingKw,
   KPA_PER_PSI,
   lambdaFromAfr,
@@ -301,6 +302,11 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         risingRateRatio: c,
         points: 5,
       }),
+  ],
+  [
+    "injectorFlowForFuel",
+    (a, b, c) =>
+      injectorFlowForFuel({ flowCcPerMin: a, ratingFluidDensityKgPerL: b, fuelDensityKgPerL: c }),
   ],
   [
     "regulatorBypassCapacityLPerH",

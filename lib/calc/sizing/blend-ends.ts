@@ -3,6 +3,7 @@ import { fuelBlend, type FuelBlend } from "../fuel";
 import {
   injectorDutyPct,
   injectorFlowAtPressure,
+  injectorFlowForFuel,
   injectorPowerCeilingKw,
   requiredInjectorFlowCcPerMin,
 } from "../injectors";
@@ -106,6 +107,28 @@ export function blendEndStage(
   const { dpOp, qOp } = op;
   const b = fuelBlend(ethanolVolPct, input.fuel.properties);
   const e = { ethanol: { value: ethanolVolPct, quantity: "ethanol" as const } };
+  // The rating's test fluid (§3.10): this fuel's volume flow, and the rating's scale back.
+  const testFluid = injectors.ratingFluidDensityKgPerL;
+  const qFuel =
+    testFluid === undefined
+      ? qOp
+      : t.add({
+          id: `injector-flow-fuel-${which}`,
+          label: "Injector flow of the fuel at {ethanol}",
+          params: e,
+          formula: "flow at that pressure × √(rating fluid density ÷ fuel density)",
+          inputs: [
+            { label: "flow at that pressure", value: qOp, quantity: "injectorFlow" },
+            { label: "rating fluid density", value: testFluid, quantity: "density" },
+            { label: "fuel density", value: b.densityKgPerL, quantity: "density" },
+          ],
+          value: injectorFlowForFuel({
+            flowCcPerMin: qOp,
+            ratingFluidDensityKgPerL: testFluid,
+            fuelDensityKgPerL: b.densityKgPerL,
+          }),
+          quantity: "injectorFlow",
+        });
   const { bsfc, source } = bsfcAtEnd(ctx, ethanolVolPct, which);
   const mdot = t.add({
     id: `fuel-mass-${which}`,
@@ -156,12 +179,22 @@ export function blendEndStage(
       { label: "rated pressure", value: injectors.ratedPressureKpa, quantity: "pressure" },
       { label: "pressure across", value: dpOp, quantity: "pressure" },
     ],
-    // The orifice law run backwards: the rating that gives reqOp at dpOp.
-    value: injectorFlowAtPressure({
-      ratedFlowCcPerMin: reqOp,
-      ratedPressureKpa: dpOp,
-      differentialPressureKpa: injectors.ratedPressureKpa,
-    }),
+    // The orifice law run backwards: the rating that gives reqOp at dpOp (in the rating's
+    // test fluid where its density is given).
+    value: ((rated: number) =>
+      testFluid === undefined
+        ? rated
+        : injectorFlowForFuel({
+            flowCcPerMin: rated,
+            ratingFluidDensityKgPerL: b.densityKgPerL,
+            fuelDensityKgPerL: testFluid,
+          }))(
+      injectorFlowAtPressure({
+        ratedFlowCcPerMin: reqOp,
+        ratedPressureKpa: dpOp,
+        differentialPressureKpa: injectors.ratedPressureKpa,
+      }),
+    ),
     quantity: "injectorFlow",
   });
   const duty = t.add({
@@ -175,14 +208,14 @@ export function blendEndStage(
       { label: "fuel needed", value: mdot, quantity: "massFlow" },
       { label: "density", value: b.densityKgPerL, quantity: "density" },
       { label: "injectors", value: n, quantity: "count" },
-      { label: "injector flow", value: qOp, quantity: "injectorFlow" },
+      { label: "injector flow", value: qFuel, quantity: "injectorFlow" },
       RATING_FLUID,
     ],
     value: injectorDutyPct({
       fuelMassFlowGPerMin: mdot,
       densityKgPerL: b.densityKgPerL,
       injectorCount: n,
-      flowAtOperatingCcPerMin: qOp,
+      flowAtOperatingCcPerMin: qFuel,
     }),
     quantity: "percent",
   });
@@ -196,7 +229,7 @@ export function blendEndStage(
     inputs: [
       { label: "design duty", value: limits.designDutyPct, quantity: "percent", decimals: 0 },
       { label: "injectors", value: n, quantity: "count" },
-      { label: "injector flow", value: qOp, quantity: "injectorFlow" },
+      { label: "injector flow", value: qFuel, quantity: "injectorFlow" },
       { label: "density", value: b.densityKgPerL, quantity: "density" },
       { label: "BSFC", value: bsfc, quantity: "bsfc" },
       RATING_FLUID,
@@ -204,7 +237,7 @@ export function blendEndStage(
     value: injectorPowerCeilingKw({
       dutyPct: limits.designDutyPct,
       injectorCount: n,
-      flowAtOperatingCcPerMin: qOp,
+      flowAtOperatingCcPerMin: qFuel,
       densityKgPerL: b.densityKgPerL,
       bsfcGPerKwh: bsfc,
     }),
@@ -220,6 +253,7 @@ export function blendEndStage(
     fuelVolumeFlowLPerH: volLPerH,
     requiredFlowAtOperatingCcPerMin: reqOp,
     requiredRatedFlowCcPerMin: reqRated,
+    injectorFlowCcPerMin: qFuel,
     dutyPct: duty,
     powerCeilingKw: ceiling,
     pulseWidthRedline: redlinePulse(ctx, op, duty),

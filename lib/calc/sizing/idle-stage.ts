@@ -5,6 +5,7 @@ import {
   idleFuelPerCylinderMg,
   injectorDifferentialPressureKpa,
   injectorFlowAtPressure,
+  injectorFlowForFuel,
   pulseWidthForFuelMs,
 } from "../injectors";
 import { RATING_FLUID } from "./blend-ends";
@@ -52,11 +53,19 @@ export function idleStage(
     stoichAfr: leanProps.stoichAfr,
   });
   const fuelPerInjectionMg = (idleFuel.fuelMg * engine.cylinders) / injectors.count;
-  const qIdle = injectorFlowAtPressure({
+  const qIdleRated = injectorFlowAtPressure({
     ratedFlowCcPerMin: injectors.ratedFlowCcPerMin,
     ratedPressureKpa: injectors.ratedPressureKpa,
     differentialPressureKpa: dpIdle,
   });
+  const qIdle =
+    injectors.ratingFluidDensityKgPerL === undefined
+      ? qIdleRated
+      : injectorFlowForFuel({
+          flowCcPerMin: qIdleRated,
+          ratingFluidDensityKgPerL: injectors.ratingFluidDensityKgPerL,
+          fuelDensityKgPerL: leanProps.densityKgPerL,
+        });
   const effectiveMs = t.add({
     id: "pulse-idle",
     label: "Effective pulse width at idle ({ethanol}, λ 1)",

@@ -16,6 +16,8 @@ export interface BlendEnd {
   fuelVolumeFlowLPerH: number;
   requiredFlowAtOperatingCcPerMin: number;
   requiredRatedFlowCcPerMin: number;
+  /** The injector's flow of this fuel at full-boost ΔP (corrected for the rating fluid, §3.10). */
+  injectorFlowCcPerMin: number;
   dutyPct: number;
   powerCeilingKw: number;
   pulseWidthRedline: PulseWidth;
