@@ -23,7 +23,10 @@ export {
   ethanolFromFlexSensorHz,
   flexSensorHzFromEthanol,
   FLEX_SENSOR_HZ,
+  FLEX_SENSOR_MIN_SPAN_PCT,
+  flexSensorAdvice,
 } from "./blend";
+export type { FlexSensorAdvice } from "./blend";
 export type {
   FuelVolume,
   VolumeToAddQuery,

@@ -1,5 +1,6 @@
 import {
   fillTemplate,
+  flexSensorAdvice,
   REGULATOR_LABELS,
   sizeParsedFuelSystem,
   type Figure,
@@ -347,7 +348,10 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     };
   });
 
-  const varies = input.fuel.ethanolMinVolPct !== input.fuel.ethanolMaxVolPct;
+  // The one rule the build sheet's warning follows too (lib/calc flexSensorAdvice, §1).
+  const flex = flexSensorAdvice(input.fuel);
+  const varies = flex.needed;
+  const range = { low: E(input.fuel.ethanolMinVolPct), high: E(input.fuel.ethanolMaxVolPct) };
   const sensors: Candidate[] = of("sensor").map((p) => ({
     role: "sensor",
     part: p,
@@ -355,12 +359,14 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     fits: varies,
     score: (varies ? 0 : 1000) + tieBreak(p, 1),
     why: [
-      varies
-        ? R("the blend varies {low} to {high}: the ECU needs the ethanol content", {
-            low: E(input.fuel.ethanolMinVolPct),
-            high: E(input.fuel.ethanolMaxVolPct),
-          })
-        : R("the blend is fixed: no sensor needed"),
+      flex.reason === "wide"
+        ? R("the blend varies {low} to {high}: the ECU needs the ethanol content", range)
+        : flex.reason === "narrow"
+          ? R(
+              "the blend varies only {low} to {high}: the fuel trims cover it, no sensor needed",
+              range,
+            )
+          : R("the blend is fixed: no sensor needed"),
       stockNote(p, 1),
     ],
     figure: null,

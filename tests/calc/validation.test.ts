@@ -15,6 +15,7 @@ import {
   demandAtBoostLPerH,
   dutyBand,
   effectivePulseWidthMs,
+  flexSensorAdvice,
   frictionFactor,
   fuelBlend,
   fuelMassFlowGPerMin,
@@ -303,6 +304,7 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         points: 5,
       }),
   ],
+  ["flexSensorAdvice", (a, b) => flexSensorAdvice({ ethanolMinVolPct: a, ethanolMaxVolPct: b })],
   [
     "injectorFlowForFuel",
     (a, b, c) =>

@@ -1,4 +1,5 @@
 // Reference: docs/calculations.md §7.2, §7.3 (stage "warnings" of §7).
+import { flexSensorAdvice } from "../blend";
 import { deadTimeMs, type DutyBand } from "../injectors";
 import { AN_SIZES } from "../lines";
 import type { PumpFlow } from "../pumps";
@@ -366,7 +367,7 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
       "Enter a measured BSFC once the engine has been on the dyno.",
     );
   }
-  if (fuel.ethanolMaxVolPct - fuel.ethanolMinVolPct >= 20) {
+  if (flexSensorAdvice(fuel).needed) {
     warn(
       "blend-range-flex",
       "info",
