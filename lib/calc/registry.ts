@@ -59,6 +59,13 @@ export const LIMITED_BY_LABELS = {
   pump: "the pump",
   "feed-line": "the feed line",
 } as const;
+/** The power ceiling's one severity (§7.2), as the results, the spec sheet and compare say it. */
+export const CEILING_SEVERITY_LABELS = {
+  ok: "Meets the target",
+  info: "Below the target (within the limits)",
+  caution: "Below the target: caution",
+  danger: "Below the target: danger",
+} as const;
 export const BSFC_SOURCE_LABELS = {
   given: "given",
   scaled: "given, scaled to this blend",
@@ -483,6 +490,7 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "lines.assumedLengthM": { label: "Line length assumed", quantity: "length" },
   "powerCeiling.kw": { label: "Power ceiling (crank)", quantity: "power", better: "higher" },
   "powerCeiling.limitedBy": { label: "Limited by", options: LIMITED_BY_LABELS },
+  "powerCeiling.severity": { label: "Power ceiling verdict", options: CEILING_SEVERITY_LABELS },
   "powerCeiling.headroomPct": {
     label: "Headroom over the target",
     quantity: "percent",

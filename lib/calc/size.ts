@@ -62,13 +62,20 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const idle = idleStage(ctx, op, lean, L.props);
   const pump = pumpStage(ctx, worst, R.props, L.props, voltageUsed, idle);
   const lines = linesStage(ctx, pump.fluid, pump.supply.flowLPerH, pump.idleReturn);
+  const band = dutyBand(Math.max(lean.dutyPct, rich.dutyPct), limits);
+  const worstSupply = pump.worstAt ? pump.worstAt.supplyLPerH : pump.supply.flowLPerH;
+  const worstDemand = pump.worstAt ? pump.worstAt.demandLPerH : pump.demand;
   const ceiling = ceilingStage(
     crankPowerKw,
     { lean: lean.powerCeilingKw, rich: rich.powerCeilingKw },
     pump.pumpCeiling,
     lines.feed,
+    {
+      dutyBand: band,
+      pumpShort: pump.supply.flowLPerH < pump.demand || worstSupply < worstDemand,
+      pumpMarginLow: pump.margin < limits.minPumpMarginPct,
+    },
   );
-  const band = dutyBand(Math.max(lean.dutyPct, rich.dutyPct), limits);
   const needRating = Math.max(lean.requiredRatedFlowCcPerMin, rich.requiredRatedFlowCcPerMin);
   const warnings = sizingWarnings(ctx, {
     crankPowerKw,
@@ -162,6 +169,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
       kw: ceiling.kw,
       limitedBy: ceiling.limitedBy,
       headroomPct: ceiling.headroomPct,
+      severity: ceiling.severity,
     },
     limits,
     warnings,

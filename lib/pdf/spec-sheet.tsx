@@ -364,7 +364,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           {fig("Power ceiling (crank)", q("power", r.powerCeiling.kw))}
           {fig(
             "Limited by",
-            `${LIMITED_BY_LABELS[r.powerCeiling.limitedBy]} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${q("percent", r.powerCeiling.headroomPct, 0)})`,
+            `${LIMITED_BY_LABELS[r.powerCeiling.limitedBy]} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${q("percent", r.powerCeiling.headroomPct, 0)})${r.powerCeiling.severity === "caution" || r.powerCeiling.severity === "danger" ? `, ${r.powerCeiling.severity}` : ""}`,
           )}
         </View>
 

@@ -4,6 +4,7 @@ import type { LineDrop } from "../lines";
 import type { BoostPressurePoint } from "../regulator";
 import type { SupplyPoint } from "../staging";
 import type { TraceStep, Warning } from "../types";
+import type { CeilingSeverity } from "./ceiling-stage";
 import type { SizingLimits } from "./context";
 
 export interface BlendEnd {
@@ -102,7 +103,13 @@ export interface FuelSystemResult {
     recommendedReturnDash: number | null;
     assumedLengthM: number | null;
   };
-  powerCeiling: { kw: number; limitedBy: "injectors" | "pump" | "feed-line"; headroomPct: number };
+  powerCeiling: {
+    kw: number;
+    limitedBy: "injectors" | "pump" | "feed-line";
+    headroomPct: number;
+    /** The ceiling's one severity, its limiting figure's (§7.2): the same wherever it is shown. */
+    severity: CeilingSeverity;
+  };
   limits: SizingLimits;
   warnings: Warning[];
   trace: TraceStep[];

@@ -335,13 +335,9 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
   // figure's own finding (duty band, pump margin, line drop), already warned at that figure's
   // severity. Only a limiter within the shop's bands (a duty above the design duty yet below
   // the caution level) leaves the ceiling to say it, as a note.
-  const limiterWarned =
-    limitedBy === "injectors"
-      ? dutyBand !== "ok"
-      : limitedBy === "pump"
-        ? supply.flowLPerH < demand || margin < limits.minPumpMarginPct
-        : feed !== null && !feed.withinLimit;
-  if (ceilingKw < crankPowerKw && !limiterWarned) {
+  // One figure, one severity (calc-spec §7): the ceiling's severity is its limiter's; only a
+  // limiter within its bands leaves the ceiling to say it, as a note.
+  if (f.ceiling.severity === "info") {
     warn(
       "ceiling-below-target",
       "info",
