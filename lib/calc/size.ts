@@ -144,6 +144,8 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
         basePressureKpa: input.regulator.basePressureKpa,
         risingRateRatio: input.regulator.risingRateRatio,
         maxBoostKpa: engine.maxBoostKpa,
+        // Rail and ΔP are straight lines in boost (§3.8): the two ends draw them exactly.
+        points: 2,
       }),
       bypassCapacityAtIdleLPerH: pump.bypassAtIdle,
     },

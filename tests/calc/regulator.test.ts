@@ -86,7 +86,9 @@ describe("fuel pressure against boost (docs/calculations.md §3.8)", () => {
     const plain = sizeFuelSystem(boostedSix);
     expect(plain.regulator.risingRateRatio).toBe(1);
     const series = plain.regulator.pressureVsBoost;
-    expect(series).toHaveLength(11);
+    // Straight lines in boost: the two ends (§3.8).
+    expect(series).toHaveLength(2);
+    expect(series[0]).toEqual({ boostKpa: 0, railKpa: 400, differentialKpa: 400 });
     expect(series.at(-1)).toEqual({ boostKpa: 150, railKpa: 550, differentialKpa: 400 });
     expect(plain.pump.railPressureKpa).toBe(550);
 

@@ -234,6 +234,8 @@ export function pumpStage(
     ambientKpaAbs: engine.ambientKpaAbs,
     demandAtFullBoostLPerH: demand,
     lossesKpa: Math.max(0, outlet - rail),
+    // Six even points (plus each stage's two) keep a sizing within its time budget.
+    points: 6,
   });
   let worstAt: SupplyPoint | null = null;
   for (let i = 0; i < supplyVsBoost.length - 1; i++) {
