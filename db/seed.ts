@@ -242,9 +242,10 @@ export const DEMO_BUILDS: {
       pumps: [pump(2)],
       electrical: { voltageAtPump: 13.0 },
       lines: {
-        feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2, filterDropKpa: 10 },
-        return: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 0, filterDropKpa: 0 },
+        feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2 },
+        return: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 0 },
       },
+      filters: { postPumpDropKpa: 10 },
     },
   },
   {

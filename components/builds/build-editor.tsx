@@ -58,7 +58,7 @@ import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
 
 /** The optional parts of a build, switched on and off in the form. */
-const OPTIONAL = ["feed", "return", "wiring", "deadTime"] as const;
+const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2", "bypass"] as const;
 type Optional = (typeof OPTIONAL)[number];
 type Values = FuelSystemInput & {
   title: string;
@@ -71,15 +71,27 @@ const OPTIONAL_DEFAULTS = {
     insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
     lengthM: 5,
     fittingsK: 4,
-    filterDropKpa: 7,
   },
   return: {
     insideDiameterMm: AN_SIZES[1].typicalHoseIdMm,
     lengthM: 5,
     fittingsK: 3,
-    filterDropKpa: 0,
   },
   wiring: { sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 7, currentA: 15 },
+  bypass: { flowLPerH: 400, atPressureKpa: 300 },
+  /** A second pump: another model, or a stage switched on by boost. */
+  pump2: {
+    quantity: 1,
+    curves: [
+      {
+        voltage: 13.5,
+        points: [
+          { pressureKpa: 300, flowLPerH: 250 },
+          { pressureKpa: 600, flowLPerH: 180 },
+        ],
+      },
+    ],
+  },
   deadTime: {
     voltages: [10, 12, 14],
     pressuresKpa: [300, 400],
@@ -89,6 +101,15 @@ const OPTIONAL_DEFAULTS = {
       [0.7, 0.75],
     ],
   },
+};
+
+const NONE_INCLUDED: Record<Optional, boolean> = {
+  feed: false,
+  return: false,
+  wiring: false,
+  deadTime: false,
+  pump2: false,
+  bypass: false,
 };
 
 const toNumber = (v: unknown) =>
@@ -106,7 +127,7 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   void title;
   void status;
   const v = structuredClone(rest) as FuelSystemInput;
-  const inc = include ?? { feed: false, return: false, wiring: false, deadTime: false };
+  const inc = include ?? NONE_INCLUDED;
   const lines = {
     ...(inc.feed ? { feed: v.lines?.feed } : {}),
     ...(inc.return ? { return: v.lines?.return } : {}),
@@ -115,6 +136,9 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   else delete v.lines;
   if (!inc.wiring && v.electrical) delete v.electrical.wiring;
   if (!inc.deadTime && v.injectors) delete v.injectors.deadTime;
+  if (!inc.bypass && v.regulator) delete v.regulator.bypass;
+  // Without the second pump, the first (and any the API added beyond the second) stay.
+  if (!inc.pump2 && Array.isArray(v.pumps)) v.pumps = [v.pumps[0]!, ...v.pumps.slice(2)];
   return convertInputs(v, units, "toCanonical", baseline);
 }
 
@@ -130,6 +154,8 @@ function valuesOf(
     return: Boolean(inputs.lines?.return),
     wiring: Boolean(inputs.electrical?.wiring),
     deadTime: Boolean(inputs.injectors?.deadTime),
+    pump2: inputs.pumps.length > 1,
+    bypass: Boolean(inputs.regulator?.bypass),
   };
   const full: FuelSystemInput = {
     ...inputs,
@@ -141,6 +167,11 @@ function valuesOf(
       ...inputs.electrical,
       wiring: inputs.electrical.wiring ?? OPTIONAL_DEFAULTS.wiring,
     },
+    regulator: {
+      ...inputs.regulator,
+      bypass: inputs.regulator.bypass ?? OPTIONAL_DEFAULTS.bypass,
+    },
+    pumps: [inputs.pumps[0]!, inputs.pumps[1] ?? OPTIONAL_DEFAULTS.pump2, ...inputs.pumps.slice(2)],
     lines: {
       feed: inputs.lines?.feed ?? OPTIONAL_DEFAULTS.feed,
       return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return,
@@ -319,6 +350,7 @@ export function BuildEditor(props: {
     defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
   const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
+  const points2 = useFieldArray({ control, name: "pumps.1.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
 
   const inputs = useMemo(
@@ -392,7 +424,17 @@ export function BuildEditor(props: {
     const canonical = inputsOf(current, units, baseline.inputs);
     // Switched-off parts keep their typed values through the switch as well.
     const all = inputsOf(
-      { ...current, include: { feed: true, return: true, wiring: true, deadTime: true } },
+      {
+        ...current,
+        include: {
+          feed: true,
+          return: true,
+          wiring: true,
+          deadTime: true,
+          pump2: true,
+          bypass: true,
+        },
+      },
       units,
       baseline.inputs,
     );
@@ -402,6 +444,8 @@ export function BuildEditor(props: {
         lines: all.lines,
         electrical: { ...canonical.electrical, wiring: all.electrical.wiring },
         injectors: { ...canonical.injectors, deadTime: all.injectors.deadTime },
+        pumps: all.pumps,
+        regulator: { ...canonical.regulator, bypass: all.regulator.bypass },
       },
       next,
       current.title,
@@ -528,6 +572,43 @@ export function BuildEditor(props: {
       </SelectField>
     );
   };
+  /** A pump's flow curve: pressure and flow points, added and removed. */
+  const curveEditor = (pump: 0 | 1, arr: typeof points) => (
+    <div className="sm:col-span-2">
+      <p className="text-sm font-medium text-ink-700">
+        {pump === 0 ? "Flow curve" : "Second pump's flow curve"}
+      </p>
+      {errors[`pumps.${pump}.curves.0.points`] ? (
+        <p role="alert" className="text-sm text-danger-700">
+          ✕ {errors[`pumps.${pump}.curves.0.points`]}
+        </p>
+      ) : null}
+      <div className="mt-1 space-y-2">
+        {arr.fields.map((p, i) => (
+          <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
+            {num(`pumps.${pump}.curves.0.points.${i}.pressureKpa`)}
+            {num(`pumps.${pump}.curves.0.points.${i}.flowLPerH`)}
+            <Button
+              type="button"
+              variant="ghost"
+              aria-label={`Remove ${pump === 0 ? "" : "second pump's "}point ${i + 1}`}
+              onClick={() => arr.remove(i)}
+            >
+              ✕
+            </Button>
+          </div>
+        ))}
+      </div>
+      <Button
+        type="button"
+        variant="secondary"
+        className="mt-2"
+        onClick={() => arr.append({ pressureKpa: undefined, flowLPerH: undefined } as never)}
+      >
+        {pump === 0 ? "Add point" : "Add a point to the second pump"}
+      </Button>
+    </div>
+  );
   const lineFields = (side: "feed" | "return") => [
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
@@ -535,9 +616,8 @@ export function BuildEditor(props: {
     num(`lines.${side}.insideDiameterMm`),
     num(`lines.${side}.lengthM`),
     num(`lines.${side}.fittingsK`),
-    num(`lines.${side}.filterDropKpa`),
   ];
-  const inc = values.include ?? { feed: false, return: false, wiring: false, deadTime: false };
+  const inc = values.include ?? NONE_INCLUDED;
   const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
   const changes = resized ? [] : (props.settingsChanges ?? []);
@@ -726,6 +806,7 @@ export function BuildEditor(props: {
               {num("injectors.ratedFlowCcPerMin")}
               {num("injectors.ratedPressureKpa")}
               {num("injectors.minPulseWidthMs")}
+              {num("injectors.ratingFluidDensityKgPerL")}
               {inc.deadTime ? (
                 <div className="sm:col-span-2">
                   <DeadTimeGrid
@@ -739,47 +820,47 @@ export function BuildEditor(props: {
                 </div>
               ) : null}
             </Section>
-            <Section title="Regulator">
+            <Section
+              title="Regulator"
+              toggle={
+                <div className="mb-1">
+                  {toggle("bypass", "Check the regulator's bypass (return) capacity")}
+                </div>
+              }
+            >
               {select("regulator.type")}
               {num("regulator.basePressureKpa")}
+              {values.regulator?.type !== "fixed" ? num("regulator.risingRateRatio") : null}
+              {inc.bypass
+                ? [num("regulator.bypass.flowLPerH"), num("regulator.bypass.atPressureKpa")]
+                : null}
             </Section>
             <Section title="Pump">
               {num("pumps.0.quantity")}
               {num("pumps.0.curves.0.voltage")}
-              <div className="sm:col-span-2">
-                <p className="text-sm font-medium text-ink-700">Flow curve</p>
-                {errors["pumps.0.curves.0.points"] ? (
-                  <p role="alert" className="text-sm text-danger-700">
-                    ✕ {errors["pumps.0.curves.0.points"]}
-                  </p>
-                ) : null}
-                <div className="mt-1 space-y-2">
-                  {points.fields.map((p, i) => (
-                    <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                      {num(`pumps.0.curves.0.points.${i}.pressureKpa`)}
-                      {num(`pumps.0.curves.0.points.${i}.flowLPerH`)}
-                      <Button
-                        type="button"
-                        variant="ghost"
-                        aria-label={`Remove point ${i + 1}`}
-                        onClick={() => points.remove(i)}
-                      >
-                        ✕
-                      </Button>
-                    </div>
-                  ))}
+              {curveEditor(0, points)}
+            </Section>
+            <Section
+              title="Second pump"
+              toggle={
+                <div className="mb-1">
+                  {toggle(
+                    "pump2",
+                    "Add a second pump (another model, or a stage switched on by boost)",
+                  )}
                 </div>
-                <Button
-                  type="button"
-                  variant="secondary"
-                  className="mt-2"
-                  onClick={() =>
-                    points.append({ pressureKpa: undefined, flowLPerH: undefined } as never)
-                  }
-                >
-                  Add point
-                </Button>
-              </div>
+              }
+            >
+              {inc.pump2
+                ? [
+                    num("pumps.1.quantity"),
+                    num("pumps.1.switchOnBoostKpa"),
+                    num("pumps.1.curves.0.voltage"),
+                    <div key="pump2-curve" className="sm:col-span-2">
+                      {curveEditor(1, points2)}
+                    </div>,
+                  ]
+                : null}
             </Section>
             <Section
               title="Electrical"
@@ -799,6 +880,10 @@ export function BuildEditor(props: {
                     num("electrical.wiring.currentA"),
                   ]
                 : null}
+            </Section>
+            <Section title="Filters">
+              {num("filters.prePumpDropKpa")}
+              {num("filters.postPumpDropKpa")}
             </Section>
             <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
               {inc.feed ? lineFields("feed") : null}

@@ -3,6 +3,7 @@
 import { Signal } from "@/components/ui/status";
 import {
   AN_SIZES,
+  CEILING_SEVERITY_LABELS,
   DUTY_BAND_LABELS,
   formatNumber,
   formatResult,
@@ -185,6 +186,13 @@ export function ResultsPanel({
             : `▲ ${formatValue("percent", -headroom, units, 0)} below`}{" "}
           the {formatResult("crankPowerKw", r.crankPowerKw, units)} crank target.
         </p>
+        {r.powerCeiling.severity ? (
+          <div className="mt-2" data-testid="ceiling-severity">
+            <Signal level={r.powerCeiling.severity}>
+              {CEILING_SEVERITY_LABELS[r.powerCeiling.severity]}
+            </Signal>
+          </div>
+        ) : null}
       </section>
       <section aria-labelledby="warn" className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 id="warn" className="text-lg font-semibold">

@@ -16,6 +16,7 @@ import {
   converter,
   dutyAcrossEthanol,
   dutyAcrossRpm,
+  formatValue,
   pumpSupplyCurve,
   toShown,
   type FuelSystemResult,
@@ -76,6 +77,24 @@ export function SizingCharts({
     supply: F(p.supplyLPerH),
     demand: F(p.demandLPerH),
   }));
+  const boost = result.regulator.pressureVsBoost.map((p) => ({
+    boost: P(p.boostKpa),
+    rail: P(p.railKpa),
+    manifold: P(p.boostKpa),
+    across: P(p.differentialKpa),
+  }));
+  const top = result.regulator.pressureVsBoost.at(-1);
+  const staged = result.pump.supplyVsBoost.map((p) => ({
+    boost: P(p.boostKpa),
+    supply: F(p.supplyLPerH),
+    demand: F(p.demandLPerH),
+  }));
+  const regulatorName =
+    result.regulator.type === "fixed"
+      ? "fixed regulator"
+      : result.regulator.risingRateRatio === 1
+        ? "1:1 boost-referenced regulator"
+        : `rising-rate regulator ${formatValue("risingRate", result.regulator.risingRateRatio, units)}`;
   const danger = result.limits.dutyDangerPct;
   return (
     <div className="space-y-4">
@@ -130,6 +149,90 @@ export function SizingCharts({
           <Line dataKey="duty" name="duty" stroke={COPPER} dot isAnimationActive={false} />
         </LineChart>
       </Chart>
+      {boost.length > 1 && top ? (
+        <Chart
+          title="Fuel pressure against boost"
+          summary={`With a ${regulatorName}, at ${formatValue("pressure", top.boostKpa, units)} boost the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them`}
+        >
+          <LineChart data={boost} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+            <CartesianGrid stroke="#e6eaee" />
+            <XAxis
+              dataKey="boost"
+              type="number"
+              domain={[0, "dataMax"]}
+              unit={` ${pu}`}
+              tick={{ fontSize: 11 }}
+              name="boost"
+            />
+            <YAxis unit={` ${pu}`} tick={{ fontSize: 11 }} width={64} />
+            <Tooltip />
+            <Legend />
+            <Line
+              dataKey="rail"
+              name="rail"
+              stroke={COPPER}
+              dot={false}
+              isAnimationActive={false}
+            />
+            <Line
+              dataKey="across"
+              name="across the injector"
+              stroke={INK}
+              dot={false}
+              isAnimationActive={false}
+            />
+            <Line
+              dataKey="manifold"
+              name="manifold"
+              stroke={DANGER}
+              strokeDasharray="5 3"
+              dot={false}
+              isAnimationActive={false}
+            />
+          </LineChart>
+        </Chart>
+      ) : null}
+      {staged.length > 1 ? (
+        <Chart
+          title="Pump supply and demand against boost"
+          summary={`The pump margin is at its lowest, ${formatValue("percent", result.pump.marginPct, units, 0)}, at ${formatValue("pressure", result.pump.worstMarginBoostKpa, units)} boost`}
+        >
+          <LineChart data={staged} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+            <CartesianGrid stroke="#e6eaee" />
+            <XAxis
+              dataKey="boost"
+              type="number"
+              domain={[0, "dataMax"]}
+              unit={` ${pu}`}
+              tick={{ fontSize: 11 }}
+            />
+            <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
+            <Tooltip />
+            <Legend />
+            <ReferenceLine
+              x={P(result.pump.worstMarginBoostKpa)}
+              stroke={INK}
+              strokeDasharray="2 2"
+              label={{ value: "least margin", fontSize: 11 }}
+            />
+            <Line
+              dataKey="supply"
+              name="supply"
+              stroke={COPPER}
+              dot={false}
+              isAnimationActive={false}
+            />
+            <Line
+              dataKey="demand"
+              name="demand"
+              stroke={DANGER}
+              strokeDasharray="5 3"
+              dot={false}
+              isAnimationActive={false}
+            />
+          </LineChart>
+        </Chart>
+      ) : null}
       <Chart
         title="Pump supply against pressure"
         summary={`Supply ${F(result.pump.supplyLPerH)} ${fu} against demand ${F(result.pump.demandLPerH)} ${fu} at ${P(result.pump.outletPressureKpa)} ${pu}`}

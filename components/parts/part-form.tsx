@@ -24,6 +24,11 @@ const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
     ["connector", "Connector"],
     ["ethanol_ok", "Rated for ethanol (yes/no)"],
     [
+      "test_fluid_kg_l",
+      "Rating fluid density (kg/L)",
+      "e.g. 0.684 for n-heptane; blank: rated with the fuel itself",
+    ],
+    [
       "dead_time_ms",
       "Dead time table",
       "e.g. 12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72 (kPa:ms); blank clears it",

@@ -18,12 +18,15 @@ import {
  * when FuelSystemInputSchema changes so that stored inputs no longer parse, and add the step from
  * the previous version to UPGRADES.
  */
-export const INPUTS_SCHEMA_VERSION = 2;
+export const INPUTS_SCHEMA_VERSION = 3;
 
 /**
  * One step per stored format: turns inputs kept at that version into today's inputs. Version 2 is
  * today's schema. A later format adds `3: (raw) => FuelSystemInputSchema.parse(upgrade2to3(raw))`
  * and so on, so every stored version reaches today's shape.
+ *
+ * Version 3 keeps the pre- and post-pump filters as items (`filters`) instead of a filter drop on
+ * each line.
  *
  * Version 1 always stated a drivetrain loss and, with `limits`, every limit (the schema filled in
  * defaults); version 2 leaves out what the build does not state, so the shop's settings apply
@@ -31,9 +34,41 @@ export const INPUTS_SCHEMA_VERSION = 2;
  * read as they are: what they stated stays stated, so an old build's figures do not move.
  */
 const UPGRADES: Record<number, (raw: unknown) => ParsedFuelSystemInput> = {
-  1: (raw) => FuelSystemInputSchema.parse(raw),
-  2: (raw) => FuelSystemInputSchema.parse(raw),
+  1: (raw) => FuelSystemInputSchema.parse(filtersOfFormat2(raw)),
+  2: (raw) => FuelSystemInputSchema.parse(filtersOfFormat2(raw)),
+  3: (raw) => FuelSystemInputSchema.parse(raw),
 };
+
+/**
+ * Formats 1 and 2 kept one filter drop on each line (`lines.feed.filterDropKpa`, counted in the
+ * pump's outlet pressure only with a feed line; the return line's was never used). Format 3
+ * has the pre- and post-pump filters as items of their own (docs/calculations.md §4.5): the
+ * feed line's drop becomes the post-pump filter, so an old build's figures do not move.
+ */
+function filtersOfFormat2(raw: unknown): unknown {
+  if (!raw || typeof raw !== "object") return raw;
+  const r = raw as {
+    lines?: Record<string, Record<string, unknown> | undefined>;
+    filters?: unknown;
+  };
+  if (!r.lines || typeof r.lines !== "object") return raw;
+  const lines: Record<string, unknown> = {};
+  for (const [side, line] of Object.entries(r.lines)) {
+    if (line && typeof line === "object") {
+      const { filterDropKpa, ...rest } = line;
+      void filterDropKpa;
+      lines[side] = rest;
+    } else lines[side] = line;
+  }
+  const feedDrop = r.lines.feed?.filterDropKpa;
+  return {
+    ...r,
+    lines,
+    ...(typeof feedDrop === "number" && feedDrop > 0 && r.filters === undefined
+      ? { filters: { postPumpDropKpa: feedDrop } }
+      : {}),
+  };
+}
 
 /** Inputs kept by this version of the product could not be read: a data problem, never the caller's. */
 export class StoredInputsError extends Error {}

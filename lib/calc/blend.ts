@@ -230,3 +230,42 @@ export function flexSensorHzFromEthanol(ethanolVolPct: number): number {
   requireRange("ethanolVolPct", ethanolVolPct, 0, 100, "Ethanol content");
   return ethanolVolPct + FLEX_SENSOR_HZ.min;
 }
+
+/** A blend range this wide or wider needs an ethanol content sensor (common practice, no source). */
+export const FLEX_SENSOR_MIN_SPAN_PCT = 20;
+
+/** Whether a build needs an ethanol content sensor, and why (the one rule; §1). */
+export interface FlexSensorAdvice {
+  needed: boolean;
+  /** `fixed`: one content; `narrow`: closed-loop trims cover it; `wide`: the tune must follow it. */
+  reason: "fixed" | "narrow" | "wide";
+  spanPct: number;
+}
+
+/**
+ * The one rule for the ethanol content sensor, read by the build sheet's warning and the kit
+ * alike: a blend range of 20 points or more needs one; a narrower one (E0–E10 pump fuel) is left
+ * to the closed-loop fuel trims. docs/calculations.md §1.
+ * @example flexSensorAdvice({ ethanolMinVolPct: 51, ethanolMaxVolPct: 83 }) // { needed: true, reason: "wide", spanPct: 32 }
+ */
+export function flexSensorAdvice(q: {
+  ethanolMinVolPct: number;
+  ethanolMaxVolPct: number;
+}): FlexSensorAdvice {
+  const lo = requireRange("ethanolMinVolPct", q.ethanolMinVolPct, 0, 100, "Lowest ethanol content");
+  const hi = requireRange(
+    "ethanolMaxVolPct",
+    q.ethanolMaxVolPct,
+    0,
+    100,
+    "Highest ethanol content",
+  );
+  if (hi < lo)
+    throw new CalcInputError(
+      "ethanolMaxVolPct",
+      "The highest ethanol content must not be below the lowest",
+    );
+  const spanPct = hi - lo;
+  const reason = spanPct === 0 ? "fixed" : spanPct >= FLEX_SENSOR_MIN_SPAN_PCT ? "wide" : "narrow";
+  return { needed: reason === "wide", reason, spanPct };
+}

@@ -1,7 +1,12 @@
 // Reference: docs/calculations.md §7.
 import { fuelBlend } from "./fuel";
-import { injectorDifferentialPressureKpa, railPressureKpa } from "./injectors";
-import { defaultBsfc } from "./power";
+import {
+  injectorDifferentialPressureKpa,
+  injectorDutyPct,
+  injectorFlowAtPressure,
+  railPressureKpa,
+} from "./injectors";
+import { defaultBsfc, fuelMassFlowGPerMin } from "./power";
 import { pumpSupplyFunction } from "./pumps";
 import type { ParsedFuelSystemInput } from "./schema";
 import { sizeParsedFuelSystem, type FuelSystemResult } from "./size";
@@ -42,8 +47,13 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
     type: input.regulator.type,
     basePressureKpa: input.regulator.basePressureKpa,
     manifoldKpa: input.engine.maxBoostKpa,
+    risingRateRatio: input.regulator.risingRateRatio,
   });
-  const q = input.injectors.ratedFlowCcPerMin * Math.sqrt(dp / input.injectors.ratedPressureKpa);
+  const q = injectorFlowAtPressure({
+    ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
+    ratedPressureKpa: input.injectors.ratedPressureKpa,
+    differentialPressureKpa: dp,
+  });
   const out: { ethanolVolPct: number; dutyPct: number }[] = [];
   const count = Math.max(2, Math.min(101, Math.floor(points)));
   for (let i = 0; i < count; i++) {
@@ -57,10 +67,15 @@ export function dutyAcrossEthanol(input: ParsedFuelSystemInput, crankPowerKw: nu
         targetLambda: input.fuel.targetLambda,
         defaults: input.fuel.bsfcDefaults,
       }).bsfcGPerKwh;
-    const mdot = (crankPowerKw * bsfc) / 60;
+    const mdot = fuelMassFlowGPerMin({ powerKw: crankPowerKw, bsfcGPerKwh: bsfc });
     out.push({
       ethanolVolPct: e,
-      dutyPct: (100 * mdot) / (b.densityKgPerL * input.injectors.count * q),
+      dutyPct: injectorDutyPct({
+        fuelMassFlowGPerMin: mdot,
+        densityKgPerL: b.densityKgPerL,
+        injectorCount: input.injectors.count,
+        flowAtOperatingCcPerMin: q,
+      }),
     });
   }
   return out;
@@ -81,6 +96,7 @@ export function pumpSupplyCurve(
       type: input.regulator.type,
       basePressureKpa: input.regulator.basePressureKpa,
       manifoldKpa: input.engine.maxBoostKpa,
+      risingRateRatio: input.regulator.risingRateRatio,
     }) + 100,
   );
   const supplyAt = pumpSupplyFunction(input.pumps);
@@ -90,7 +106,7 @@ export function pumpSupplyCurve(
     const p = (top * i) / (count - 1);
     out.push({
       pressureKpa: p,
-      supplyLPerH: supplyAt(p, result.pump.voltageUsed).flowLPerH,
+      supplyLPerH: supplyAt(p, result.pump.voltageUsed, input.engine.maxBoostKpa).flowLPerH,
       demandLPerH: result.pump.demandLPerH,
     });
   }

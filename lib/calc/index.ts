@@ -23,7 +23,10 @@ export {
   ethanolFromFlexSensorHz,
   flexSensorHzFromEthanol,
   FLEX_SENSOR_HZ,
+  FLEX_SENSOR_MIN_SPAN_PCT,
+  flexSensorAdvice,
 } from "./blend";
+export type { FlexSensorAdvice } from "./blend";
 export type {
   FuelVolume,
   VolumeToAddQuery,
@@ -33,7 +36,9 @@ export type {
 } from "./blend";
 export {
   crankPowerFromWheel,
+  wheelPowerFromCrank,
   fuelMassFlowGPerMin,
+  fuelVolumeFlowLPerH,
   bsfcAtBlend,
   defaultBsfc,
   DEFAULT_BSFC,
@@ -42,21 +47,33 @@ export {
 export type { Aspiration, BsfcDefaults, BsfcEstimate } from "./power";
 export {
   injectorFlowAtPressure,
+  injectorFlowForFuel,
   injectorDifferentialPressureKpa,
   railPressureKpa,
   injectorDutyPct,
   requiredInjectorFlowCcPerMin,
+  injectorPowerCeilingKw,
+  dutyBand,
+  effectivePulseWidthMs,
+  pulseWidthForFuelMs,
+  idleFuelConsumptionLPerH,
   cycleTimeMs,
   deadTimeMs,
   idleFuelPerCylinderMg,
   gaugeFromAbsKpa,
 } from "./injectors";
-export type { RegulatorType, DeadTimeTable } from "./injectors";
+export type { RegulatorType, RegulatorQuery, DeadTimeTable, DutyBand } from "./injectors";
+export { MAX_RISING_RATE_RATIO } from "./injectors";
+export { fuelPressureAgainstBoost, regulatorBypassCapacityLPerH } from "./regulator";
+export { demandAtBoostLPerH, supplyAgainstBoost } from "./staging";
+export type { SupplyPoint } from "./staging";
+export type { BoostPressurePoint } from "./regulator";
 export {
   pumpFlowLPerH,
   pumpsSupplyLPerH,
   pumpSupplyFunction,
   pumpMarginPct,
+  pumpPowerCeilingKw,
   validatePumpCurve,
 } from "./pumps";
 export type { Pump, PumpCurve, PumpFlow } from "./pumps";
@@ -71,7 +88,12 @@ export {
   DEFAULT_HOSE_ROUGHNESS_MM,
 } from "./lines";
 export type { LineSegment, LineDrop } from "./lines";
-export { awgDiameterMm, copperResistanceOhmPerM, wireVoltageDropV } from "./wire";
+export {
+  awgDiameterMm,
+  copperResistanceOhmPerM,
+  wireVoltageDropV,
+  voltageAfterWiringV,
+} from "./wire";
 export * from "./units";
 export * from "./schema";
 export {
@@ -81,6 +103,8 @@ export {
   DEFAULT_LIMITS,
   DEFAULT_DRIVETRAIN_LOSS_PCT,
 } from "./size";
+export type { SizingLimits } from "./size";
+export { PRE_PUMP_FILTER_CAUTION_KPA } from "./sizing/warnings-stage";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
 export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";

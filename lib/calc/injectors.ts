@@ -7,16 +7,40 @@ import { ATMOSPHERE_KPA, R_AIR_J_PER_KG_K } from "./constants";
  * docs/calculations.md §3.
  */
 
-const regulatorQuery = (q: {
+/** A regulator at a manifold pressure; `risingRateRatio` (default 1: 1:1) only for a referenced one. */
+export interface RegulatorQuery {
   type: RegulatorType;
   basePressureKpa: number;
   manifoldKpa: number;
-}) => {
+  /**
+   * Fuel-pressure rise per unit of boost of a boost-referenced regulator: 1 for 1:1, up to 12
+   * for a 1:12 rising-rate unit. Under vacuum the regulator follows the manifold 1:1.
+   */
+  risingRateRatio?: number;
+}
+
+/** Largest rising-rate ratio the library takes (1:12 units are the largest sold; 20 for slack). */
+export const MAX_RISING_RATE_RATIO = 20;
+
+const regulatorQuery = (q: RegulatorQuery): number => {
   if (q.type !== "boost-referenced" && q.type !== "fixed")
     throw new CalcInputError("type", "Regulator must be boost-referenced or fixed");
   requirePositive("basePressureKpa", q.basePressureKpa, 1e4, "Base pressure");
   requireRange("manifoldKpa", q.manifoldKpa, -ATMOSPHERE_KPA, 1e4, "Manifold pressure (gauge)");
+  return q.risingRateRatio === undefined
+    ? 1
+    : requireRange(
+        "risingRateRatio",
+        q.risingRateRatio,
+        1,
+        MAX_RISING_RATE_RATIO,
+        "Rising-rate ratio",
+      );
 };
+
+/** What a rising-rate regulator adds above 1:1: (ratio − 1) × boost, none under vacuum. */
+const risingRateExtra = (ratio: number, manifoldKpa: number): number =>
+  ratio === 1 || manifoldKpa <= 0 ? 0 : (ratio - 1) * manifoldKpa;
 
 /**
  * Flow of an injector at another differential pressure, by the orifice law
@@ -43,18 +67,42 @@ export function injectorFlowAtPressure(q: {
 export type RegulatorType = "boost-referenced" | "fixed";
 
 /**
- * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
- * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure; a fixed one
- * leaves the rail at base, so ΔP = base − manifold (boost lowers it, vacuum raises it).
- * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
+ * Volume flow of the fuel through an injector rated with a test fluid of another density, at
+ * the same pressure: an orifice passes Q = C·A·√(2ΔP/ρ), so Q_fuel = Q_test·√(ρ_test/ρ_fuel)
+ * (mass flow goes with √(ρ_fuel/ρ_test)). docs/calculations.md §3.10.
+ * @example injectorFlowForFuel({ flowCcPerMin: 1000, ratingFluidDensityKgPerL: 0.684, fuelDensityKgPerL: 0.787 }) // 932.3
  */
-export function injectorDifferentialPressureKpa(q: {
-  type: RegulatorType;
-  basePressureKpa: number;
-  manifoldKpa: number;
+export function injectorFlowForFuel(q: {
+  flowCcPerMin: number;
+  ratingFluidDensityKgPerL: number;
+  fuelDensityKgPerL: number;
 }): number {
-  regulatorQuery(q);
-  const dp = q.type === "boost-referenced" ? q.basePressureKpa : q.basePressureKpa - q.manifoldKpa;
+  requireRange("flowCcPerMin", q.flowCcPerMin, 0, 1e5, "Injector flow");
+  requireRange(
+    "ratingFluidDensityKgPerL",
+    q.ratingFluidDensityKgPerL,
+    0.1,
+    2,
+    "Rating fluid density",
+  );
+  requireRange("fuelDensityKgPerL", q.fuelDensityKgPerL, 0.1, 2, "Fuel density");
+  return q.flowCcPerMin * Math.sqrt(q.ratingFluidDensityKgPerL / q.fuelDensityKgPerL);
+}
+
+/**
+ * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
+ * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure, a rising-rate
+ * one (ratio r) adds (r − 1) × boost; a fixed one leaves the rail at base, so
+ * ΔP = base − manifold (boost lowers it, vacuum raises it). docs/calculations.md §3.2.
+ * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
+ * @example injectorDifferentialPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 100, risingRateRatio: 4 }) // 600
+ */
+export function injectorDifferentialPressureKpa(q: RegulatorQuery): number {
+  const ratio = regulatorQuery(q);
+  const dp =
+    q.type === "boost-referenced"
+      ? q.basePressureKpa + risingRateExtra(ratio, q.manifoldKpa)
+      : q.basePressureKpa - q.manifoldKpa;
   if (dp <= 0)
     throw new CalcInputError(
       "basePressureKpa",
@@ -65,17 +113,15 @@ export function injectorDifferentialPressureKpa(q: {
 
 /**
  * Rail pressure (kPa gauge) the pump must reach at a manifold pressure: referenced base +
- * boost; fixed base.
+ * boost (+ (r − 1) × boost for a rising-rate ratio r); fixed base.
  * @example railPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 150 }) // 450
  */
-export function railPressureKpa(q: {
-  type: RegulatorType;
-  basePressureKpa: number;
-  manifoldKpa: number;
-}): number {
-  regulatorQuery(q);
+export function railPressureKpa(q: RegulatorQuery): number {
+  const ratio = regulatorQuery(q);
   const rail =
-    q.type === "boost-referenced" ? q.basePressureKpa + q.manifoldKpa : q.basePressureKpa;
+    q.type === "boost-referenced"
+      ? q.basePressureKpa + q.manifoldKpa + risingRateExtra(ratio, q.manifoldKpa)
+      : q.basePressureKpa;
   // A base pressure below the manifold vacuum cannot pull the rail below atmosphere: the
   // regulator closes and the rail sits at (about) 0 kPa gauge. Never a negative pressure.
   return rail < 0 ? 0 : rail;
@@ -116,6 +162,92 @@ export function requiredInjectorFlowCcPerMin(q: {
   requireCount("injectorCount", q.injectorCount);
   requireRange("designDutyPct", q.designDutyPct, 1, 100, "Design duty");
   return q.fuelMassFlowGPerMin / (q.densityKgPerL * q.injectorCount * (q.designDutyPct / 100));
+}
+
+/**
+ * Power a set of injectors supports at a duty: P = duty × n × Q_op × ρ × 60 ÷ BSFC (kW).
+ * @example injectorPowerCeilingKw({ dutyPct: 80, injectorCount: 6, flowAtOperatingCcPerMin: 1000, densityKgPerL: 0.787, bsfcGPerKwh: 486.6 }) // 465.9
+ */
+export function injectorPowerCeilingKw(q: {
+  dutyPct: number;
+  injectorCount: number;
+  flowAtOperatingCcPerMin: number;
+  densityKgPerL: number;
+  bsfcGPerKwh: number;
+}): number {
+  requireRange("dutyPct", q.dutyPct, 0, 100, "Duty");
+  requireCount("injectorCount", q.injectorCount);
+  requireRange("flowAtOperatingCcPerMin", q.flowAtOperatingCcPerMin, 0, 1e5, "Injector flow");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requirePositive("bsfcGPerKwh", q.bsfcGPerKwh, 2000, "BSFC");
+  const duty = q.dutyPct / 100;
+  return (
+    (duty * q.injectorCount * q.flowAtOperatingCcPerMin * q.densityKgPerL * 60) / q.bsfcGPerKwh
+  );
+}
+
+/** The band a duty falls in (docs/calculations.md §3.3): static at 100 % and above. */
+export type DutyBand = "ok" | "caution" | "danger" | "static";
+
+/**
+ * Duty band by the shop's caution and danger levels: above danger is danger, above caution is
+ * caution, 100 % or more is static (the injector never closes).
+ * @example dutyBand(86, { dutyCautionPct: 80, dutyDangerPct: 90 }) // "caution"
+ */
+export function dutyBand(
+  dutyPct: number,
+  levels: { dutyCautionPct: number; dutyDangerPct: number },
+): DutyBand {
+  requireRange("dutyPct", dutyPct, 0, 1e6, "Duty");
+  return dutyPct >= 100
+    ? "static"
+    : dutyPct > levels.dutyDangerPct
+      ? "danger"
+      : dutyPct > levels.dutyCautionPct
+        ? "caution"
+        : "ok";
+}
+
+/**
+ * Effective (opening) pulse width for a duty: duty × cycle.
+ * @example effectivePulseWidthMs({ dutyPct: 80, cycleMs: 20 }) // 16
+ */
+export function effectivePulseWidthMs(q: { dutyPct: number; cycleMs: number }): number {
+  requireRange("dutyPct", q.dutyPct, 0, 1e6, "Duty");
+  requireRange("cycleMs", q.cycleMs, 0, 1e6, "Cycle time");
+  return (q.dutyPct / 100) * q.cycleMs;
+}
+
+/**
+ * Opening time to deliver a fuel mass per injection: t = m ÷ (ρ × Q) (ms, m in mg).
+ * @example pulseWidthForFuelMs({ fuelMg: 10, densityKgPerL: 0.745, flowCcPerMin: 500 }) // 1.611
+ */
+export function pulseWidthForFuelMs(q: {
+  fuelMg: number;
+  densityKgPerL: number;
+  flowCcPerMin: number;
+}): number {
+  requireRange("fuelMg", q.fuelMg, 0, 1e6, "Fuel per injection");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requirePositive("flowCcPerMin", q.flowCcPerMin, 1e5, "Injector flow");
+  return (q.fuelMg / 1000 / q.densityKgPerL / q.flowCcPerMin) * 60000;
+}
+
+/**
+ * Fuel an engine burns at idle, L/h: fuel per cylinder per cycle × cylinders × rpm ÷ 2 ÷ ρ.
+ * @example idleFuelConsumptionLPerH({ fuelPerCylinderMg: 10, cylinders: 4, rpm: 850, densityKgPerL: 0.745 }) // 1.369
+ */
+export function idleFuelConsumptionLPerH(q: {
+  fuelPerCylinderMg: number;
+  cylinders: number;
+  rpm: number;
+  densityKgPerL: number;
+}): number {
+  requireRange("fuelPerCylinderMg", q.fuelPerCylinderMg, 0, 1e6, "Fuel per cylinder");
+  requireCount("cylinders", q.cylinders);
+  requireRange("rpm", q.rpm, 0, 30000, "Engine speed");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  return ((q.fuelPerCylinderMg * q.cylinders * (q.rpm / 2)) / 1000 / q.densityKgPerL) * 0.06;
 }
 
 /** Length of one four-stroke cycle in ms: 120 000 / rpm. @example cycleTimeMs(6000) // 20 */

@@ -20,6 +20,32 @@ export function crankPowerFromWheel(q: {
 }
 
 /**
+ * Wheel power from crank power, the inverse of crankPowerFromWheel: P_wheel = P_crank · (1 − loss).
+ * @example wheelPowerFromCrank({ crankPowerKw: 400, drivetrainLossPct: 15 }) // 340
+ */
+export function wheelPowerFromCrank(q: {
+  crankPowerKw: number;
+  drivetrainLossPct: number;
+}): number {
+  requireRange("crankPowerKw", q.crankPowerKw, 0, 1e5, "Crank power");
+  requireRange("drivetrainLossPct", q.drivetrainLossPct, 0, 60, "Drivetrain loss");
+  return q.crankPowerKw * (1 - q.drivetrainLossPct / 100);
+}
+
+/**
+ * Fuel volume flow in L/h from a mass flow in g/min: Q = ṁ / ρ × 0.06.
+ * @example fuelVolumeFlowLPerH({ fuelMassFlowGPerMin: 1825, densityKgPerL: 0.745 }) // 146.98
+ */
+export function fuelVolumeFlowLPerH(q: {
+  fuelMassFlowGPerMin: number;
+  densityKgPerL: number;
+}): number {
+  requireRange("fuelMassFlowGPerMin", q.fuelMassFlowGPerMin, 0, 1e7, "Fuel mass flow");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  return (q.fuelMassFlowGPerMin / q.densityKgPerL) * 0.06;
+}
+
+/**
  * Fuel mass flow at a power: ṁ = P · BSFC.
  * @example fuelMassFlowGPerMin({ powerKw: 300, bsfcGPerKwh: 365 }) // 1825
  */

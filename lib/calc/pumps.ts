@@ -14,6 +14,11 @@ export interface Pump {
   quantity: number;
   curves: PumpCurve[];
   label?: string;
+  /**
+   * A staged pump runs only from this boost up (kPa gauge; a boost-switched second stage).
+   * Left out: it runs all the time. docs/calculations.md §4.4.
+   */
+  switchOnBoostKpa?: number;
 }
 
 export interface PumpFlow {
@@ -27,10 +32,14 @@ export interface PumpFlow {
    * the flow is derated in proportion to the voltage; above the highest it is held there.
    */
   voltageOutOfRange: boolean;
+  /** Several pumps: how many ran (each entry's quantity, for the entries switched on). */
+  pumpsOn?: number;
 }
 
 interface PreparedPump {
   quantity: number;
+  /** Boost from which it runs; -Infinity: always. */
+  switchOn: number;
   voltages: number[];
   curves: { xs: number[]; ys: number[] }[];
   /** Reused buffer: one flow per tested voltage. */
@@ -74,6 +83,14 @@ function prepare(pump: Pump, index = 0): PreparedPump {
   if (!Array.isArray(pump.curves) || pump.curves.length === 0)
     throw new CalcInputError(`pumps.${index}.curves`, "A pump needs at least one flow curve");
   requireRange(`pumps.${index}.quantity`, pump.quantity, 0, 100, "Pump quantity");
+  if (pump.switchOnBoostKpa !== undefined)
+    requireRange(
+      `pumps.${index}.switchOnBoostKpa`,
+      pump.switchOnBoostKpa,
+      0,
+      1e4,
+      "Switch-on boost",
+    );
   pump.curves.forEach((c, j) => validatePumpCurve(c, `pumps.${index}.curves.${j}`));
   const curves = [...pump.curves].sort((a, b) => a.voltage - b.voltage);
   for (let j = 1; j < curves.length; j++)
@@ -81,6 +98,7 @@ function prepare(pump: Pump, index = 0): PreparedPump {
       throw new CalcInputError(`pumps.${index}.curves`, "Two curves at one voltage");
   return {
     quantity: pump.quantity,
+    switchOn: pump.switchOnBoostKpa ?? -Infinity,
     voltages: curves.map((c) => c.voltage),
     scratch: curves.map(() => 0),
     curves: curves.map((c) => {
@@ -132,14 +150,17 @@ export function pumpFlowLPerH(pump: Pump, pressureKpa: number, voltage: number):
   return flowOf(prepare(pump), pressureKpa, voltage);
 }
 
-/** A reusable evaluator of several pumps in parallel (flows add at the same pressure). */
+/**
+ * A reusable evaluator of several pumps in parallel (flows add at the same pressure). Given a
+ * boost (kPa gauge), only the pumps switched on at that boost run; without one, all of them.
+ */
 export function pumpSupplyFunction(
   pumps: readonly Pump[],
-): (pressureKpa: number, voltage: number) => PumpFlow {
+): (pressureKpa: number, voltage: number, boostKpa?: number) => PumpFlow {
   if (!Array.isArray(pumps) || pumps.length === 0)
     throw new CalcInputError("pumps", "Add at least one fuel pump");
   const prepared = pumps.map((p, i) => prepare(p, i));
-  return (pressureKpa, voltage) => {
+  return (pressureKpa, voltage, boostKpa) => {
     // The hot path (solver) stays check-free; out-of-range inputs are clamped to the physical.
     const pk = Number.isFinite(pressureKpa) && pressureKpa > 0 ? pressureKpa : 0;
     const v = Number.isFinite(voltage) && voltage > 0 ? voltage : 0;
@@ -147,14 +168,23 @@ export function pumpSupplyFunction(
     let pressureOutOfRange = false;
     let pressureBelowCurve = false;
     let voltageOutOfRange = false;
+    let pumpsOn = 0;
     for (const p of prepared) {
+      if (boostKpa !== undefined && p.switchOn > boostKpa) continue;
+      pumpsOn += p.quantity;
       const r = flowOf(p, pk, v);
       flow += r.flowLPerH * p.quantity;
       pressureOutOfRange ||= r.pressureOutOfRange;
       pressureBelowCurve ||= r.pressureBelowCurve;
       voltageOutOfRange ||= r.voltageOutOfRange;
     }
-    return { flowLPerH: flow, pressureOutOfRange, pressureBelowCurve, voltageOutOfRange };
+    return {
+      flowLPerH: flow,
+      pressureOutOfRange,
+      pressureBelowCurve,
+      voltageOutOfRange,
+      pumpsOn,
+    };
   };
 }
 
@@ -176,4 +206,22 @@ export function pumpMarginPct(supplyLPerH: number, demandLPerH: number): number 
   requireRange("demandLPerH", demandLPerH, 0, 1e6, "Fuel demand");
   // No demand: no margin to speak of. A vanishing one (under a millilitre an hour) is no demand.
   return demandLPerH > 1e-3 ? (supplyLPerH / demandLPerH - 1) * 100 : 0;
+}
+
+/**
+ * Power the pumps support with the minimum margin kept:
+ * P = supply ÷ (1 + margin) × ρ × 1000 ÷ BSFC (kW; supply L/h, ρ kg/L, BSFC g/kWh).
+ * @example pumpPowerCeilingKw({ supplyLPerH: 500, minMarginPct: 25, densityKgPerL: 0.787, bsfcGPerKwh: 486.6 }) // 646.9
+ */
+export function pumpPowerCeilingKw(q: {
+  supplyLPerH: number;
+  minMarginPct: number;
+  densityKgPerL: number;
+  bsfcGPerKwh: number;
+}): number {
+  requireRange("supplyLPerH", q.supplyLPerH, 0, 1e6, "Pump supply");
+  requireRange("minMarginPct", q.minMarginPct, 0, 1000, "Minimum pump margin");
+  requireRange("densityKgPerL", q.densityKgPerL, 0.1, 2, "Fuel density");
+  requireRange("bsfcGPerKwh", q.bsfcGPerKwh, 1, 2000, "BSFC");
+  return ((q.supplyLPerH / (1 + q.minMarginPct / 100)) * q.densityKgPerL * 1000) / q.bsfcGPerKwh;
 }

@@ -65,6 +65,8 @@ export type Quantity =
   | "ethanol"
   /** A plain fraction such as volumetric efficiency. */
   | "ratio"
+  /** A rising-rate regulator's fuel-pressure rise per unit of boost, printed "1:4". */
+  | "risingRate"
   | "lambda"
   | "afr"
   /** Times, ms. */
@@ -267,6 +269,12 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     canonical: "",
     entryUnit: "fraction",
     ...same({ unit: "", decimals: 2 }),
+  },
+  risingRate: {
+    name: "rising-rate ratio",
+    canonical: "1:r",
+    entryUnit: "1:",
+    ...same({ unit: "", prefix: "1:", decimals: 1 }),
   },
   lambda: {
     name: "lambda",

@@ -39,7 +39,7 @@ export const ASPIRATION_LABELS: Record<(typeof ASPIRATIONS)[number], string> = {
   supercharged: "Supercharged",
 };
 export const REGULATOR_LABELS: Record<(typeof REGULATOR_TYPES)[number], string> = {
-  "boost-referenced": "Boost-referenced (1:1)",
+  "boost-referenced": "Boost-referenced (1:1 or rising-rate)",
   fixed: "Fixed (not referenced)",
 };
 export const MEASURED_AT_LABELS = { wheel: "At the wheels", crank: "At the crank" } as const;
@@ -58,6 +58,13 @@ export const LIMITED_BY_LABELS = {
   injectors: "the injectors",
   pump: "the pump",
   "feed-line": "the feed line",
+} as const;
+/** The power ceiling's one severity (§7.2), as the results, the spec sheet and compare say it. */
+export const CEILING_SEVERITY_LABELS = {
+  ok: "Meets the target",
+  info: "Below the target (within the limits)",
+  caution: "Below the target: caution",
+  danger: "Below the target: danger",
 } as const;
 export const BSFC_SOURCE_LABELS = {
   given: "given",
@@ -90,11 +97,6 @@ const line = (side: "feed" | "return"): Record<string, FieldSpec> => {
       label: `${L} fittings (sum of K)`,
       short: "Fittings (sum of K)",
       quantity: "lossCoefficient",
-    },
-    [`lines.${side}.filterDropKpa`]: {
-      label: `${L} filter drop`,
-      short: "Filter drop",
-      quantity: "pressureDrop",
     },
   };
 };
@@ -176,6 +178,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     quantity: "pressure",
   },
   "injectors.minPulseWidthMs": { label: "Minimum pulse width", quantity: "time" },
+  "injectors.ratingFluidDensityKgPerL": {
+    label: "Density of the injector's rating fluid (blank: rated with the fuel)",
+    short: "Rating fluid density (blank: the fuel)",
+    quantity: "density",
+  },
   "injectors.deadTime": { label: "Dead-time table" },
   "injectors.deadTime.voltages": { label: "Dead-time voltages" },
   "injectors.deadTime.voltages.*": { label: "Dead-time voltage, row #", quantity: "voltage" },
@@ -190,6 +197,22 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   regulator: { label: "Regulator" },
   "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
   "regulator.basePressureKpa": { label: "Base pressure", quantity: "pressure" },
+  "regulator.bypass": { label: "Regulator bypass rating" },
+  "regulator.bypass.flowLPerH": {
+    label: "Regulator bypass flow (rated)",
+    short: "Bypass flow (rated)",
+    quantity: "volumeFlow",
+  },
+  "regulator.bypass.atPressureKpa": {
+    label: "Regulator bypass rated at",
+    short: "Bypass flow rated at",
+    quantity: "pressure",
+  },
+  "regulator.risingRateRatio": {
+    label: "Rising-rate ratio (fuel pressure per unit of boost)",
+    short: "Rising-rate ratio",
+    quantity: "risingRate",
+  },
   pumps: { label: "Pumps" },
   "pumps.*": { label: "Pump #" },
   "pumps.*.label": { label: "Pump # name", text: true },
@@ -216,6 +239,11 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     label: "Pump # curve # point # flow",
     short: "Point # flow",
     quantity: "volumeFlow",
+  },
+  "pumps.*.switchOnBoostKpa": {
+    label: "Pump #: switches on at boost (blank: always on)",
+    short: "Switches on at boost (blank: always on)",
+    quantity: "pressure",
   },
   electrical: { label: "Electrical" },
   "electrical.voltageAtPump": { label: "Voltage at the pump", quantity: "voltage" },
@@ -248,6 +276,17 @@ export const INPUT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   lines: { label: "Lines" },
   ...line("feed"),
   ...line("return"),
+  filters: { label: "Filters" },
+  "filters.prePumpDropKpa": {
+    label: "Pre-pump filter drop (suction side)",
+    short: "Pre-pump filter drop",
+    quantity: "pressureDrop",
+  },
+  "filters.postPumpDropKpa": {
+    label: "Post-pump filter drop (pump to rail)",
+    short: "Post-pump filter drop",
+    quantity: "pressureDrop",
+  },
   limits: { label: "Limits" },
   "limits.designDutyPct": { label: "Design duty", quantity: "percent", decimals: 0 },
   "limits.dutyCautionPct": { label: "Duty caution level", quantity: "percent", decimals: 0 },
@@ -281,6 +320,10 @@ const blendEnd = (which: "lean" | "rich"): Record<string, FieldSpec> => {
     },
     [`${p}.requiredRatedFlowCcPerMin`]: {
       label: `Smallest injector rating ${at}`,
+      quantity: "injectorFlow",
+    },
+    [`${p}.injectorFlowCcPerMin`]: {
+      label: `Injector flow of the fuel ${at}`,
       quantity: "injectorFlow",
     },
     [`${p}.dutyPct`]: { label: `Injector duty ${at}`, quantity: "percent", better: "lower" },
@@ -372,6 +415,22 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
     quantity: "mass",
     decimals: 2,
   },
+  "regulator.type": { label: "Regulator", options: REGULATOR_LABELS },
+  "regulator.risingRateRatio": { label: "Rising-rate ratio", quantity: "risingRate" },
+  "regulator.bypassCapacityAtIdleLPerH": {
+    label: "Regulator bypass capacity at the idle rail pressure",
+    quantity: "volumeFlow",
+    better: "higher",
+  },
+  "regulator.pressureVsBoost.*.boostKpa": { label: "Boost, point #", quantity: "pressure" },
+  "regulator.pressureVsBoost.*.railKpa": {
+    label: "Rail pressure at boost point #",
+    quantity: "pressure",
+  },
+  "regulator.pressureVsBoost.*.differentialKpa": {
+    label: "Pressure across the injectors at boost point #",
+    quantity: "pressure",
+  },
   "pump.voltageUsed": { label: "Voltage at the pump", quantity: "voltage" },
   "injector.voltage": { label: "Voltage at the injectors", quantity: "voltage" },
   "pump.wireDropV": {
@@ -384,7 +443,41 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "pump.outletPressureKpa": { label: "Pressure the pump works against", quantity: "pressure" },
   "pump.demandLPerH": { label: "Pump demand (worse end of the blend)", quantity: "volumeFlow" },
   "pump.supplyLPerH": { label: "Pump supply", quantity: "volumeFlow", better: "higher" },
-  "pump.marginPct": { label: "Pump margin", quantity: "percent", decimals: 0, better: "higher" },
+  "pump.marginPct": {
+    label: "Pump margin",
+    quantity: "percent",
+    decimals: 0,
+    better: "higher",
+  },
+  "pump.fullLoadMarginPct": {
+    label: "Pump margin at full boost",
+    quantity: "percent",
+    decimals: 0,
+    better: "higher",
+  },
+  "pump.worstMarginBoostKpa": {
+    label: "Boost where the pump margin is worst",
+    quantity: "pressure",
+  },
+  "pump.supplyVsBoost.*.boostKpa": { label: "Boost, supply point #", quantity: "pressure" },
+  "pump.supplyVsBoost.*.outletKpa": {
+    label: "Pump outlet pressure at supply point #",
+    quantity: "pressure",
+  },
+  "pump.supplyVsBoost.*.supplyLPerH": {
+    label: "Pump supply at supply point #",
+    quantity: "volumeFlow",
+  },
+  "pump.supplyVsBoost.*.demandLPerH": {
+    label: "Fuel demand at supply point #",
+    quantity: "volumeFlow",
+  },
+  "pump.supplyVsBoost.*.marginPct": {
+    label: "Pump margin at supply point #",
+    quantity: "percent",
+    decimals: 0,
+  },
+  "pump.supplyVsBoost.*.pumpsOn": { label: "Pumps running at supply point #", quantity: "count" },
   "pump.returnFlowLPerH": { label: "Return flow at full load", quantity: "volumeFlow" },
   "pump.powerCeilingKw": { label: "Pump power ceiling", quantity: "power", better: "higher" },
   "pump.idleRailPressureKpa": { label: "Rail pressure at idle", quantity: "pressure" },
@@ -397,6 +490,7 @@ export const RESULT_FIELDS: Readonly<Record<string, FieldSpec>> = {
   "lines.assumedLengthM": { label: "Line length assumed", quantity: "length" },
   "powerCeiling.kw": { label: "Power ceiling (crank)", quantity: "power", better: "higher" },
   "powerCeiling.limitedBy": { label: "Limited by", options: LIMITED_BY_LABELS },
+  "powerCeiling.severity": { label: "Power ceiling verdict", options: CEILING_SEVERITY_LABELS },
   "powerCeiling.headroomPct": {
     label: "Headroom over the target",
     quantity: "percent",

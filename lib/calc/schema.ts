@@ -166,6 +166,11 @@ export const InjectorsSchema = z.object(
     ratedPressureKpa: num("Injector rated pressure", 100, 1000, "kPa").default(300),
     deadTime: DeadTimeTableSchema.optional(),
     minPulseWidthMs: num("Minimum pulse width", 0.1, 10, "ms").optional(),
+    /**
+     * Density of the fluid the rating was measured with (n-heptane ≈ 0.684, calibration fluids
+     * ≈ 0.76–0.78 kg/L). Left out: the rating is taken as the fuel's own. §3.10.
+     */
+    ratingFluidDensityKgPerL: num("Rating fluid density", 0.6, 1.1, "kg/L").optional(),
   },
   { error: "Give the injectors: count and rated flow" },
 );
@@ -174,6 +179,18 @@ export const RegulatorSchema = z.object(
   {
     type: z.enum(REGULATOR_TYPES, { error: "Regulator must be boost-referenced or fixed" }),
     basePressureKpa: num("Base pressure", 50, 1000, "kPa"),
+    /**
+     * Fuel-pressure rise per unit of boost of a boost-referenced regulator: 1 (1:1) unless a
+     * rising-rate unit (up to 1:12). Ignored by a fixed regulator. docs/calculations.md §3.8.
+     */
+    risingRateRatio: num("Rising-rate ratio", 1, 12).default(1),
+    /** Optional: the bypass (return) flow the regulator is rated to pass at a pressure (§3.9). */
+    bypass: z
+      .object({
+        flowLPerH: num("Regulator bypass flow", 10, 5000, "L/h"),
+        atPressureKpa: num("Pressure of the bypass rating", 50, 1000, "kPa"),
+      })
+      .optional(),
   },
   { error: "Give the regulator: type and base pressure" },
 );
@@ -229,6 +246,8 @@ export const PumpSchema = z.object({
   label: z.string().max(120).optional(),
   quantity: int("Pump quantity", 1, 4).default(1),
   curves: z.array(PumpCurveSchema).min(1, "A pump needs at least one flow curve").max(8),
+  /** A boost-switched stage runs from this boost up; left out, the pump runs all the time. */
+  switchOnBoostKpa: num("Switch-on boost", 0, 500, "kPa").optional(),
 });
 
 export const WiringSchema = z.object({
@@ -256,7 +275,16 @@ export const LineSchema = z.object({
   lengthM: num("Line length", 0.1, 30, "m"),
   roughnessMm: num("Roughness", 0, 1, "mm").optional(),
   fittingsK: num("Fittings K", 0, 50).default(0),
-  filterDropKpa: num("Filter drop", 0, 100, "kPa").default(0),
+});
+
+/**
+ * Filters as two items (docs/calculations.md §4.5): the pre-pump one (sock, strainer) on the
+ * suction side; the post-pump one between the pump and the rail, in the pump's outlet pressure.
+ * Inputs format 2 kept one filter drop on the feed line; it reads as the post-pump filter.
+ */
+export const FiltersSchema = z.object({
+  prePumpDropKpa: num("Pre-pump filter drop", 0, 50, "kPa").default(0),
+  postPumpDropKpa: num("Post-pump filter drop", 0, 200, "kPa").default(0),
 });
 
 export const LinesSchema = z.object({ feed: LineSchema.optional(), return: LineSchema.optional() });
@@ -295,11 +323,19 @@ export const FuelSystemInputSchema = z
         .max(6, "At most six pump entries"),
       electrical: ElectricalSchema,
       lines: LinesSchema.optional(),
+      filters: FiltersSchema.prefault({}),
       limits: LimitsSchema.optional(),
     },
     { error: "Send the build as a JSON object" },
   )
   .superRefine((s, ctx) => {
+    // Staged pumps: the first stage must run all the time (idle and light load need fuel).
+    if (s.pumps.every((p) => p.switchOnBoostKpa !== undefined))
+      ctx.addIssue({
+        code: "custom",
+        path: ["pumps", 0, "switchOnBoostKpa"],
+        message: "One pump must run all the time: leave its switch-on boost blank",
+      });
     // A fixed regulator loses the boost from ΔP; keep some pressure across the injector.
     if (s.regulator.type === "fixed" && s.regulator.basePressureKpa - s.engine.maxBoostKpa < 50) {
       ctx.addIssue({

@@ -33,3 +33,18 @@ export function wireVoltageDropV(q: {
   requireRange("currentA", q.currentA, 0, 200, "Pump current");
   return q.currentA * copperResistanceOhmPerM(q.gaugeAwg) * q.roundTripLengthM;
 }
+
+/**
+ * Voltage left at the pump after its wiring: supply − I · R (never below 0).
+ * @example voltageAfterWiringV({ sourceVoltage: 14, gaugeAwg: 12, roundTripLengthM: 10, currentA: 15 }) // 13.22
+ */
+export function voltageAfterWiringV(q: {
+  sourceVoltage: number;
+  gaugeAwg: number;
+  roundTripLengthM: number;
+  currentA: number;
+}): { voltage: number; dropV: number } {
+  requireRange("sourceVoltage", q.sourceVoltage, 0, 60, "Supply voltage");
+  const dropV = wireVoltageDropV(q);
+  return { voltage: Math.max(0, q.sourceVoltage - dropV), dropV };
+}

@@ -1,6 +1,7 @@
 import {
   CalcInputError,
   fillTemplate,
+  flexSensorAdvice,
   REGULATOR_LABELS,
   sizeParsedFuelSystem,
   type Figure,
@@ -139,6 +140,7 @@ function withInjector(input: ParsedFuelSystemInput, p: CatalogPart): ParsedFuelS
     ratedFlowCcPerMin: number;
     ratedPressureKpa: number;
     minPulseWidthMs?: number;
+    ratingFluidDensityKgPerL?: number;
     deadTime?: ParsedFuelSystemInput["injectors"]["deadTime"];
   };
   return {
@@ -148,6 +150,7 @@ function withInjector(input: ParsedFuelSystemInput, p: CatalogPart): ParsedFuelS
       ratedFlowCcPerMin: s.ratedFlowCcPerMin,
       ratedPressureKpa: s.ratedPressureKpa,
       minPulseWidthMs: s.minPulseWidthMs,
+      ratingFluidDensityKgPerL: s.ratingFluidDensityKgPerL,
       deadTime: s.deadTime,
     },
   };
@@ -335,7 +338,6 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
         insideDiameterMm: s.insideDiameterMm,
         lengthM: lineLength(side),
         fittingsK: current?.fittingsK ?? 0,
-        filterDropKpa: current?.filterDropKpa ?? 0,
         roughnessMm: current?.roughnessMm,
       };
       const r = sizeWith({ ...input, lines: { ...input.lines, [side]: seg } });
@@ -419,7 +421,10 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     };
   });
 
-  const varies = input.fuel.ethanolMinVolPct !== input.fuel.ethanolMaxVolPct;
+  // The one rule the build sheet's warning follows too (lib/calc flexSensorAdvice, §1).
+  const flex = flexSensorAdvice(input.fuel);
+  const varies = flex.needed;
+  const range = { low: E(input.fuel.ethanolMinVolPct), high: E(input.fuel.ethanolMaxVolPct) };
   const sensors: Draft[] = of("sensor").map((p) => ({
     role: "sensor",
     part: p,
@@ -427,12 +432,14 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
     fits: varies,
     score: (varies ? 0 : 1000) + tieBreak(p, 1),
     why: [
-      varies
-        ? R("the blend varies {low} to {high}: the ECU needs the ethanol content", {
-            low: E(input.fuel.ethanolMinVolPct),
-            high: E(input.fuel.ethanolMaxVolPct),
-          })
-        : R("the blend is fixed: no sensor needed"),
+      flex.reason === "wide"
+        ? R("the blend varies {low} to {high}: the ECU needs the ethanol content", range)
+        : flex.reason === "narrow"
+          ? R(
+              "the blend varies only {low} to {high}: the fuel trims cover it, no sensor needed",
+              range,
+            )
+          : R("the blend is fixed: no sensor needed"),
       stockNote(p, 1),
     ],
     figure: null,
@@ -507,21 +514,18 @@ export function applyKit(
             insideDiameterMm: s.insideDiameterMm,
             lengthM: cur?.lengthM ?? 5,
             fittingsK: cur?.fittingsK ?? 0,
-            filterDropKpa: cur?.filterDropKpa ?? 0,
             ...(cur?.roughnessMm !== undefined ? { roughnessMm: cur.roughnessMm } : {}),
           },
         },
       };
     }
-    if (c.role === "filter" && next.lines?.feed)
+    // A catalog filter is the fine one, after the pump (docs/calculations.md §4.5).
+    if (c.role === "filter")
       next = {
         ...next,
-        lines: {
-          ...next.lines,
-          feed: {
-            ...next.lines.feed,
-            filterDropKpa: (c.part.specs as { dropKpa: number }).dropKpa,
-          },
+        filters: {
+          ...next.filters,
+          postPumpDropKpa: (c.part.specs as { dropKpa: number }).dropKpa,
         },
       };
   }

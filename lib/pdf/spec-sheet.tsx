@@ -318,6 +318,10 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
             <Text>
               Regulator: {REGULATOR_LABELS[input.regulator.type].toLowerCase()}, base{" "}
               {q("pressure", input.regulator.basePressureKpa)}
+              {r.regulator.risingRateRatio !== 1
+                ? `, rising rate ${q("risingRate", r.regulator.risingRateRatio)}`
+                : ""}
+              ; rail {q("pressure", r.pump.railPressureKpa)} at full boost
             </Text>
           </View>
         </View>
@@ -360,7 +364,7 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
           {fig("Power ceiling (crank)", q("power", r.powerCeiling.kw))}
           {fig(
             "Limited by",
-            `${LIMITED_BY_LABELS[r.powerCeiling.limitedBy]} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${q("percent", r.powerCeiling.headroomPct, 0)})`,
+            `${LIMITED_BY_LABELS[r.powerCeiling.limitedBy]} (${r.powerCeiling.headroomPct >= 0 ? "+" : ""}${q("percent", r.powerCeiling.headroomPct, 0)})${r.powerCeiling.severity === "caution" || r.powerCeiling.severity === "danger" ? `, ${r.powerCeiling.severity}` : ""}`,
           )}
         </View>
 

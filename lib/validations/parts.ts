@@ -15,6 +15,8 @@ export const SPEC_SCHEMAS = {
     ratedFlowCcPerMin: z.number().min(20).max(10000),
     ratedPressureKpa: z.number().min(100).max(1000),
     minPulseWidthMs: z.number().min(0.1).max(10).optional(),
+    /** Density of the fluid the rating was measured with (n-heptane 0.684 kg/L); §3.10. */
+    ratingFluidDensityKgPerL: z.number().min(0.6).max(1.1).optional(),
     impedance: z.enum(["high", "low"]).optional(),
     connector: z.string().max(40).optional(),
     ethanolOk: z.boolean(),
@@ -87,6 +89,7 @@ export const CSV_COLUMNS = [
   "material",
   "micron",
   "drop_kpa",
+  "test_fluid_kg_l",
 ] as const;
 export type FlatPart = Partial<Record<(typeof CSV_COLUMNS)[number], string>>;
 
@@ -229,6 +232,7 @@ const SPEC_COLUMNS = {
   material: { key: "material", kind: "text" },
   micron: { key: "micron", kind: "number" },
   drop_kpa: { key: "dropKpa", kind: "number", blank: 0 },
+  test_fluid_kg_l: { key: "ratingFluidDensityKgPerL", kind: "number" },
 } satisfies Partial<Record<(typeof CSV_COLUMNS)[number], SpecColumn>>;
 type SpecColumnName = keyof typeof SPEC_COLUMNS;
 const SPEC_COLUMN_NAMES = Object.keys(SPEC_COLUMNS) as SpecColumnName[];
@@ -474,6 +478,8 @@ const SPEC_COLUMN: Record<string, string> = Object.fromEntries(
 const SPEC_HINT: Record<string, string> = {
   ratedFlowCcPerMin: "flow_cc_min needs the rated flow in cc/min (20 to 10000)",
   ratedPressureKpa: "rated_kpa needs the rating pressure in kPa (100 to 1000)",
+  ratingFluidDensityKgPerL:
+    "test_fluid_kg_l needs the rating fluid's density in kg/L (0.6 to 1.1), or a blank",
   curves:
     "pump_curve needs curves like “13.5V 300:340 500:290” (kPa:L/h), at least two points each",
   deadTime:
@@ -542,6 +548,7 @@ export function flatOf(
     material: str(s.material),
     micron: str(s.micron),
     drop_kpa: str(s.dropKpa),
+    test_fluid_kg_l: str(s.ratingFluidDensityKgPerL),
   };
 }
 

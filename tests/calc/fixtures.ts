@@ -55,9 +55,10 @@ export const boostedSix: FuelSystemInput = {
   ],
   electrical: { voltageAtPump: 13.0 },
   lines: {
-    feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2, filterDropKpa: 10 },
+    feed: { insideDiameterMm: 11.1, lengthM: 5, fittingsK: 2 },
     return: { insideDiameterMm: 8.7, lengthM: 5 },
   },
+  filters: { postPumpDropKpa: 10 },
 };
 
 /** A small naturally aspirated four-cylinder on pump gasoline. */

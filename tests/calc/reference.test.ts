@@ -7,6 +7,7 @@ const dir = join(process.cwd(), "lib/calc");
 const modules = [
   ...readdirSync(dir).filter((f) => f.endsWith(".ts")),
   ...readdirSync(join(dir, "_lib")).map((f) => `_lib/${f}`),
+  ...readdirSync(join(dir, "sizing")).map((f) => `sizing/${f}`),
 ];
 
 describe("docs/calculations.md is the library's reference", () => {

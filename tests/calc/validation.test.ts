@@ -12,27 +12,42 @@ import {
   cycleTimeMs,
   deadTimeMs,
   defaultBsfc,
+  demandAtBoostLPerH,
+  dutyBand,
+  effectivePulseWidthMs,
+  flexSensorAdvice,
   frictionFactor,
   fuelBlend,
   fuelMassFlowGPerMin,
+  fuelPressureAgainstBoost,
   FuelSystemInputSchema,
+  fuelVolumeFlowLPerH,
   gaugeFromAbsKpa,
+  idleFuelConsumptionLPerH,
   idleFuelPerCylinderMg,
   injectorDifferentialPressureKpa,
   injectorDutyPct,
   injectorFlowAtPressure,
+  injectorFlowForFuel,
+  injectorPowerCeilingKw,
   KPA_PER_PSI,
   lambdaFromAfr,
   laminarFrictionFactor,
   linePressureDrop,
   pressureFromKpa,
+  pulseWidthForFuelMs,
   pumpFlowLPerH,
   pumpMarginPct,
+  pumpPowerCeilingKw,
   railPressureKpa,
+  regulatorBypassCapacityLPerH,
   requiredInjectorFlowCcPerMin,
   sizeFuelSystem,
+  supplyAgainstBoost,
   swameeJainFrictionFactor,
+  voltageAfterWiringV,
   volumeFlowFromLPerH,
+  wheelPowerFromCrank,
   wireVoltageDropV,
 } from "@/lib/calc";
 
@@ -185,6 +200,53 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
   ["lambdaFromAfr", (a, b) => lambdaFromAfr(a, b)],
   ["crankPowerFromWheel", (a, b) => crankPowerFromWheel({ wheelPowerKw: a, drivetrainLossPct: b })],
   ["fuelMassFlowGPerMin", (a, b) => fuelMassFlowGPerMin({ powerKw: a, bsfcGPerKwh: b })],
+  ["wheelPowerFromCrank", (a, b) => wheelPowerFromCrank({ crankPowerKw: a, drivetrainLossPct: b })],
+  [
+    "fuelVolumeFlowLPerH",
+    (a, b) => fuelVolumeFlowLPerH({ fuelMassFlowGPerMin: a, densityKgPerL: b }),
+  ],
+  [
+    "injectorPowerCeilingKw",
+    (a, b, c, d) =>
+      injectorPowerCeilingKw({
+        dutyPct: a,
+        injectorCount: Math.round(b),
+        flowAtOperatingCcPerMin: c,
+        densityKgPerL: 0.75,
+        bsfcGPerKwh: d,
+      }),
+  ],
+  ["dutyBand", (a, b, c) => dutyBand(a, { dutyCautionPct: b, dutyDangerPct: c })],
+  ["effectivePulseWidthMs", (a, b) => effectivePulseWidthMs({ dutyPct: a, cycleMs: b })],
+  [
+    "pulseWidthForFuelMs",
+    (a, b, c) => pulseWidthForFuelMs({ fuelMg: a, densityKgPerL: b, flowCcPerMin: c }),
+  ],
+  [
+    "idleFuelConsumptionLPerH",
+    (a, b, c, d) =>
+      idleFuelConsumptionLPerH({
+        fuelPerCylinderMg: a,
+        cylinders: Math.round(b),
+        rpm: c,
+        densityKgPerL: d,
+      }),
+  ],
+  [
+    "pumpPowerCeilingKw",
+    (a, b, c, d) =>
+      pumpPowerCeilingKw({ supplyLPerH: a, minMarginPct: b, densityKgPerL: c, bsfcGPerKwh: d }),
+  ],
+  [
+    "voltageAfterWiringV",
+    (a, b, c, d) =>
+      voltageAfterWiringV({
+        sourceVoltage: a,
+        gaugeAwg: Math.round(b),
+        roundTripLengthM: c,
+        currentA: d,
+      }),
+  ],
   [
     "defaultBsfc",
     (a, b) => defaultBsfc({ ethanolVolPct: a, aspiration: "turbo", targetLambda: b }),
@@ -219,6 +281,87 @@ const calls: [string, (a: number, b: number, c: number, d: number) => unknown][]
         type: c > 0 ? "fixed" : "boost-referenced",
         basePressureKpa: a,
         manifoldKpa: b,
+      }),
+  ],
+  [
+    "railPressureKpa, rising rate",
+    (a, b, c) =>
+      railPressureKpa({
+        type: "boost-referenced",
+        basePressureKpa: a,
+        manifoldKpa: b,
+        risingRateRatio: c,
+      }),
+  ],
+  [
+    "fuelPressureAgainstBoost",
+    (a, b, c, d) =>
+      fuelPressureAgainstBoost({
+        type: d > 0 ? "fixed" : "boost-referenced",
+        basePressureKpa: a,
+        maxBoostKpa: b,
+        risingRateRatio: c,
+        points: 5,
+      }),
+  ],
+  ["flexSensorAdvice", (a, b) => flexSensorAdvice({ ethanolMinVolPct: a, ethanolMaxVolPct: b })],
+  [
+    "injectorFlowForFuel",
+    (a, b, c) =>
+      injectorFlowForFuel({ flowCcPerMin: a, ratingFluidDensityKgPerL: b, fuelDensityKgPerL: c }),
+  ],
+  [
+    "regulatorBypassCapacityLPerH",
+    (a, b, c) =>
+      regulatorBypassCapacityLPerH({ ratedFlowLPerH: a, ratedPressureKpa: b, railPressureKpa: c }),
+  ],
+  [
+    "demandAtBoostLPerH",
+    (a, b, c, d) =>
+      demandAtBoostLPerH({
+        demandAtFullBoostLPerH: a,
+        boostKpa: b,
+        maxBoostKpa: c,
+        ambientKpaAbs: d,
+      }),
+  ],
+  [
+    "supplyAgainstBoost",
+    (a, b, c, d) =>
+      supplyAgainstBoost({
+        pumps: [
+          {
+            quantity: 1,
+            curves: [
+              {
+                voltage: 12,
+                points: [
+                  { pressureKpa: 0, flowLPerH: 300 },
+                  { pressureKpa: 600, flowLPerH: 200 },
+                ],
+              },
+            ],
+          },
+          {
+            quantity: 1,
+            switchOnBoostKpa: d,
+            curves: [
+              {
+                voltage: 12,
+                points: [
+                  { pressureKpa: 0, flowLPerH: 300 },
+                  { pressureKpa: 600, flowLPerH: 200 },
+                ],
+              },
+            ],
+          },
+        ],
+        voltage: 12,
+        regulator: { type: "boost-referenced", basePressureKpa: 300 },
+        maxBoostKpa: a,
+        demandAtFullBoostLPerH: b,
+        lossesKpa: c,
+        points: 5,
       }),
   ],
   [

@@ -157,7 +157,7 @@ describe("shop settings reach every figure", () => {
   /** The feed line lengthened so that its drop is `kpa` under the changed settings. */
   const atLineDrop = (kpa: number): FuelSystemInput => {
     const b = bare();
-    b.lines = { feed: { insideDiameterMm: 8.7, lengthM: 3, fittingsK: 0, filterDropKpa: 0 } };
+    b.lines = { feed: { insideDiameterMm: 8.7, lengthM: 3, fittingsK: 0 } };
     for (let i = 0; i < 4; i++) {
       const drop = sizeWith(CHANGED_COLUMNS, b).lines.feed!.pressureDropKpa;
       b.lines.feed!.lengthM = Math.min(30, (b.lines.feed!.lengthM * kpa) / drop);

@@ -173,9 +173,26 @@ describe("kit recommendation", () => {
     expect(r.blend.rich.dutyPct).toBeCloseTo(role("injector")[0]!.figure!, 6);
   });
 
-  it("asks for an ethanol sensor only when the blend varies", () => {
+  it("asks for an ethanol sensor exactly when the build sheet does (docs/calculations.md §1)", () => {
     const sensor = part("sensor", { kind: "ethanol" });
-    expect(recommendKit(input, [sensor]).roles.find((r) => r.role === "sensor")!.needed).toBe(true);
+    // One rule, flexSensorAdvice: 20 points or more of blend range (common practice, no source).
+    for (const [lo, hi, needed] of [
+      [51, 83, true], // pump E85 across ASTM D5798's classes
+      [0, 85, true],
+      [70, 85, false], // 15 points: the fuel trims cover it
+      [0, 10, false],
+      [85, 85, false],
+    ] as const) {
+      const build = FuelSystemInputSchema.parse({
+        ...boostedSix,
+        fuel: { ethanolMinVolPct: lo, ethanolMaxVolPct: hi },
+      });
+      const kit = recommendKit(build, [sensor]).roles.find((r) => r.role === "sensor")!;
+      const sheet = sizeParsedFuelSystem(build).warnings.some((w) => w.code === "blend-range-flex");
+      expect(kit.needed, `E${lo}–E${hi}`).toBe(needed);
+      expect(sheet, `E${lo}–E${hi}`).toBe(needed);
+      expect(kit.candidates[0]!.fits).toBe(needed);
+    }
     const fixed = FuelSystemInputSchema.parse({
       ...naFour,
       fuel: { ethanolMinVolPct: 10, ethanolMaxVolPct: 10 },

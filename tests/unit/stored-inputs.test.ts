@@ -32,8 +32,35 @@ describe("readStoredInputs", () => {
       readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: INPUTS_SCHEMA_VERSION + 1 });
     expect(read).toThrow(Unavailable);
     expect(read).toThrow(
-      /newer version of Fuelwright \(inputs format 3; this server reads up to 2\)/,
+      /newer version of Fuelwright \(inputs format 4; this server reads up to 3\)/,
     );
+  });
+
+  it("reads format 2's filter drop on the feed line as the post-pump filter (docs/calculations.md §4.5)", () => {
+    const { filters, ...rest } = boostedSix;
+    void filters;
+    const format2 = {
+      ...rest,
+      lines: {
+        feed: { ...boostedSix.lines!.feed!, filterDropKpa: 10 },
+        return: { ...boostedSix.lines!.return!, filterDropKpa: 4 },
+      },
+    };
+    const got = readStoredInputs({ inputs: format2, inputsSchemaVersion: 2 });
+    expect(got.filters).toEqual({ prePumpDropKpa: 0, postPumpDropKpa: 10 });
+    expect(got.lines!.feed).not.toHaveProperty("filterDropKpa");
+    expect(got).toEqual(FuelSystemInputSchema.parse(boostedSix));
+    // The same figures as before the upgrade: the pump works against rail + 10 kPa + the line.
+    const sized = sizeForSave(LIBRARY_SIZING_SETTINGS, got).result;
+    const outlet = sized.trace.find((s) => s.id === "pump-outlet")!;
+    expect(outlet.inputs.find((i) => i.label === "post-pump filter drop")!.value).toBe(10);
+    // Without a stated drop nothing is made up; format 3 is read as it is.
+    const bare = readStoredInputs({
+      inputs: { ...rest, lines: { feed: boostedSix.lines!.feed } },
+      inputsSchemaVersion: 2,
+    });
+    expect(bare.filters).toEqual({ prePumpDropKpa: 0, postPumpDropKpa: 0 });
+    expect(readStoredInputs({ inputs: boostedSix, inputsSchemaVersion: 3 })).toEqual(got);
   });
 
   it("refuses a format it never wrote", () => {
