@@ -10,6 +10,7 @@ export function NumInput({
   value,
   onChange,
   error,
+  placeholder,
 }: {
   id: string;
   label: string;
@@ -17,6 +18,7 @@ export function NumInput({
   value: string;
   onChange: (v: string) => void;
   error?: string;
+  placeholder?: string;
 }) {
   return (
     <UnitNumberField
@@ -25,6 +27,7 @@ export function NumInput({
       unit={unit}
       error={error}
       value={value}
+      placeholder={placeholder}
       onChange={(e) => onChange(e.target.value)}
     />
   );
