@@ -29,6 +29,7 @@ import {
   FuelSystemInputSchema,
   inputField,
   issueMessages,
+  parseNumberText,
   shopBsfcFor,
   sizeParsedFuelSystem,
   toShown,
@@ -96,7 +97,7 @@ const toNumber = (v: unknown) =>
     ? undefined
     : typeof v === "number"
       ? v
-      : Number(String(v).replace(",", "."));
+      : parseNumberText(String(v));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
 const driveTypeOf = (v: Values): DriveType => v.target?.driveType ?? DEFAULT_DRIVE_TYPE;
 

@@ -73,6 +73,7 @@ export {
 export type { LineSegment, LineDrop } from "./lines";
 export { awgDiameterMm, copperResistanceOhmPerM, wireVoltageDropV } from "./wire";
 export * from "./units";
+export * from "./number-text";
 export * from "./schema";
 export {
   sizeFuelSystem,

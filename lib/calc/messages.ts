@@ -92,6 +92,8 @@ export interface IssueLike {
   path: readonly PropertyKey[];
   message: string;
   origin?: string;
+  /** What an invalid_type issue got ("Infinity" for a number too large to hold). */
+  received?: string;
   params?: unknown;
 }
 
@@ -117,7 +119,13 @@ export function issueMessage(issue: IssueLike, system: UnitSystem): string {
   const path = issue.path.map(String).join(".");
   const field = inputField(path);
   if (!field?.quantity) return issue.message;
-  if ((issue.code === "too_small" || issue.code === "too_big") && issue.origin === "number") {
+  const infinite =
+    issue.code === "invalid_type" &&
+    (issue.received === "Infinity" || issue.received === "-Infinity");
+  if (
+    ((issue.code === "too_small" || issue.code === "too_big") && issue.origin === "number") ||
+    infinite
+  ) {
     const b = inputBounds(path);
     if (b?.min === undefined || b.max === undefined) return issue.message;
     const q = field.quantity;

@@ -1,12 +1,13 @@
 import { z } from "zod";
 
+import { parseNumberText } from "@/lib/calc/number-text";
 import { isCountryCode } from "@/lib/domain/countries";
 import { canonicalTimeZone, PAPER_SIZES } from "@/lib/domain/documents";
 import { ROLES } from "@/lib/domain/roles";
 
 /** A number from a form field (text) or a JSON body (number); a blank field is no number. */
 const asNumber = (v: unknown) =>
-  typeof v === "string" && v.trim() !== "" ? Number(v.trim().replace(",", ".")) : v;
+  typeof v === "string" && v.trim() !== "" ? parseNumberText(v) : v;
 
 const n = (label: string, min: number, max: number) =>
   z.preprocess(
