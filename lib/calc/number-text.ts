@@ -1,3 +1,5 @@
+// Reference: docs/calculations.md §8.
+
 /**
  * A number as a person types it into a field, read the same by every number field (the build
  * editor, the goal and settings forms, the tools): digits with a decimal point or a decimal
