@@ -162,8 +162,19 @@ describe("parts counter", () => {
     await page.goto(`/quotes/${q.id}`);
     const price = page.getByLabel("Line 1 unit price");
     const qty = page.getByLabel("Line 1 quantity");
-    await price.fill("1000000.01"); // one cent past the most a line's unit price may be
-    await page.getByRole("button", { name: "Save quote" }).click();
+    const save = page.getByRole("button", { name: "Save quote" });
+    // One cent past the most a line's unit price may be; typed again until the page has hydrated
+    // (Save is offered once something changed).
+    await expect
+      .poll(
+        async () => {
+          await price.fill("1000000.01");
+          return save.isEnabled();
+        },
+        { timeout: 30000 },
+      )
+      .toBe(true);
+    await save.click();
     await expect.poll(() => price.getAttribute("aria-invalid")).toBe("true");
     await expect
       .poll(() => page.evaluate(() => document.activeElement?.getAttribute("aria-label")))
