@@ -13,6 +13,7 @@ import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-ho
 
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
+import { LocalTime } from "@/components/ui/local-time";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
@@ -29,6 +30,7 @@ import {
   FuelSystemInputSchema,
   inputField,
   issueMessages,
+  parseNumberText,
   shopBsfcFor,
   sizeParsedFuelSystem,
   toShown,
@@ -117,7 +119,7 @@ const toNumber = (v: unknown) =>
     ? undefined
     : typeof v === "number"
       ? v
-      : Number(String(v).replace(",", "."));
+      : parseNumberText(String(v));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
 const driveTypeOf = (v: Values): DriveType => v.target?.driveType ?? DEFAULT_DRIVE_TYPE;
 
@@ -908,9 +910,9 @@ export function BuildEditor(props: {
                   <div className="w-full text-sm text-caution-700" data-testid="conflict">
                     <p>
                       ▲ {conflict.updatedByName ?? "Someone"} saved version {conflict.version} (“
-                      {conflict.title}”) at {conflict.updatedAt.replace("T", " ").slice(0, 16)} UTC.
-                      Your entries are still here; nothing was overwritten. Reload to take theirs,
-                      then re-apply yours.
+                      {conflict.title}”) at <LocalTime value={conflict.updatedAt} />. Your entries
+                      are still here; nothing was overwritten. Reload to take theirs, then re-apply
+                      yours.
                     </p>
                     {conflictChanges.length > 0 ? (
                       <table className="mt-2 w-full text-left text-ink-800">

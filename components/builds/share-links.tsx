@@ -5,6 +5,7 @@ import useSWR from "swr";
 
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
+import { LocalTime } from "@/components/ui/local-time";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
 import { fetcher } from "@/lib/fetcher";
@@ -87,15 +88,19 @@ export function ShareLinks({ buildId }: { buildId: string }) {
       {data && data.links.length ? (
         <ul className="mt-3 divide-y divide-ink-100 text-sm">
           {data.links.map((l) => {
-            const state = l.revokedAt
-              ? "withdrawn"
-              : !l.active
-                ? "expired"
-                : `works until ${l.expiresAt.slice(0, 10)}`;
+            const state = l.revokedAt ? (
+              "withdrawn"
+            ) : !l.active ? (
+              "expired"
+            ) : (
+              <>
+                works until <LocalTime value={l.expiresAt} />
+              </>
+            );
             return (
               <li key={l.id} className="flex items-center gap-3 py-2">
                 <span className="figure text-ink-600">
-                  made {l.createdAt.slice(0, 16).replace("T", " ")} UTC
+                  made <LocalTime value={l.createdAt} />
                 </span>
                 <span className="flex-1">{state}</span>
                 {l.active ? (

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useMemo, useState, useTransition } from "react";
+import { useState, useTransition } from "react";
 
 import { Button } from "@/components/ui/button";
 import { SearchCombobox } from "@/components/ui/search-combobox";
@@ -27,6 +27,12 @@ import {
   reviseQuoteAction,
   sendQuoteAction,
 } from "@/lib/quotes/quote-actions";
+import {
+  quantityTooLarge,
+  quoteLimitMessages,
+  quoteSizeIssue,
+  unitPriceTooLarge,
+} from "@/lib/quotes/quote-limits";
 import { LABOUR_DESCRIPTION } from "@/lib/quotes/quote-lines";
 import { presentQuote } from "@/lib/quotes/quote-presentation";
 
@@ -106,6 +112,25 @@ type EditorProps = {
 };
 type Outcome = { ok: boolean; message: string } | null;
 
+/** The fields of one line the editor marks; the schema's keys they stand for. */
+type LineField = "description" | "qty" | "price" | "discount";
+const FIELD_OF: Record<string, LineField> = {
+  description: "description",
+  quantityMilli: "qty",
+  unitPriceMinor: "price",
+  discountBp: "discount",
+};
+const FIELD_NAMES: Record<LineField, string> = {
+  description: "description",
+  qty: "quantity",
+  price: "unit price",
+  discount: "discount",
+};
+/** The input of line i's field (focused when it is the first one wrong). */
+const fieldId = (i: number, f: LineField) => `q-line-${i}-${f}`;
+/** Messages per line and field: "0.price" → "At most $1,000,000.00". */
+type LineErrors = Record<string, string>;
+
 /** A refused action's message, with the first field's own message when it names fields. */
 function refusal(state: ActionState): string {
   const first = Object.values(state.fieldErrors ?? {})[0]?.[0];
@@ -141,49 +166,95 @@ function QuoteEditorForm({
   const [notes, setNotes] = useState(props.notes);
   const [pending, start] = useTransition();
   const [busy, setBusy] = useState("");
+  /** What the server said of a line's field on the last save (until that line is edited). */
+  const [serverErrors, setServerErrors] = useState<LineErrors>({});
+  const limits = quoteLimitMessages(props.currency);
 
-  const parsed = useMemo(
-    () =>
-      rows.map((r) => ({
-        quantityMilli: parseScaled(r.qty, 3),
-        unitPriceMinor: parseMoney(r.price),
-        discountBp: r.discount.trim() === "" ? 0 : parseScaled(r.discount, 2),
-      })),
-    [rows],
-  );
-  const bad = parsed.map((p) => ({
-    qty: p.quantityMilli === null || p.quantityMilli === 0,
-    price: p.unitPriceMinor === null,
-    discount: p.discountBp === null || (p.discountBp ?? 0) > 10000,
+  const parsed = rows.map((r) => ({
+    quantityMilli: parseScaled(r.qty, 3),
+    unitPriceMinor: parseMoney(r.price),
+    discountBp: r.discount.trim() === "" ? 0 : parseScaled(r.discount, 2),
   }));
-  const allGood =
-    bad.every((b) => !b.qty && !b.price && !b.discount) && rows.every((r) => r.description.trim());
   // The same presentation as the PDF, the portal and the e-mail (a line being typed counts as 0).
-  const shown = useMemo(
-    () =>
-      presentQuote(
-        { currency: props.currency, taxRateBp: props.taxRateBp },
-        parsed.map((p, i) => ({
-          kind: rows[i]!.kind,
-          sku: rows[i]!.sku,
-          description: rows[i]!.description,
-          quantityMilli: p.quantityMilli ?? 0,
-          unitPriceMinor: p.unitPriceMinor ?? 0,
-          discountBp: Math.min(p.discountBp ?? 0, 10000),
-        })),
-      ),
-    [parsed, rows, props.currency, props.taxRateBp],
+  const shown = presentQuote(
+    { currency: props.currency, taxRateBp: props.taxRateBp },
+    parsed.map((p, i) => ({
+      kind: rows[i]!.kind,
+      sku: rows[i]!.sku,
+      description: rows[i]!.description,
+      quantityMilli: p.quantityMilli ?? 0,
+      unitPriceMinor: p.unitPriceMinor ?? 0,
+      discountBp: Math.min(p.discountBp ?? 0, 10000),
+    })),
   );
+  // Each line's fields as the person typed them, checked here with the limits the server keeps
+  // (a message saying the limit, money in the quote's currency), plus what the server said.
+  const lineErrors: LineErrors = {
+    ...serverErrors,
+    ...Object.fromEntries(rows.flatMap((r, i) => checkLine(r, parsed[i]!, limits, i))),
+  };
+  const errorOf = (i: number, f: LineField) => lineErrors[`${i}.${f}`];
+  const linesGood = Object.keys(lineErrors).length === 0;
+  const sizeMessage = linesGood
+    ? quoteSizeIssue(
+        parsed.map((p) => ({
+          quantityMilli: p.quantityMilli!,
+          unitPriceMinor: p.unitPriceMinor!,
+          discountBp: p.discountBp ?? 0,
+        })),
+        props.currency,
+      )
+    : null;
+  const allGood = linesGood && !sizeMessage;
+  /** "Line 1 unit price: At most $1,000,000.00" for the first field wrong, focused. */
+  const firstError = (errors: LineErrors) => {
+    const first = rows
+      .flatMap((_, i) =>
+        (["description", "qty", "price", "discount"] as const).map((f) => [i, f] as const),
+      )
+      .find(([i, f]) => errors[`${i}.${f}`]);
+    if (!first) return null;
+    const [i, f] = first;
+    return { id: fieldId(i, f), text: `Line ${i + 1} ${FIELD_NAMES[f]}: ${errors[`${i}.${f}`]}` };
+  };
+  const focusFirst = (errors: LineErrors) => {
+    const first = firstError(errors);
+    if (first) requestAnimationFrame(() => document.getElementById(first.id)?.focus());
+    return first;
+  };
+  const invalidProps = (i: number, f: LineField) =>
+    errorOf(i, f)
+      ? { "aria-invalid": true, "aria-describedby": `${fieldId(i, f)}-error` }
+      : { "aria-invalid": false };
   const revises = props.status === "sent";
   const label = (revision: number) => quoteLabel(props.number, revision);
   const dated = { status: props.status, validUntil: props.validUntil };
   const lapsed = pastValidity(dated, props.today);
   const moves = quoteMovesOn(dated, props.today).filter((s) => s !== "sent");
   const money = (m: number) => formatMoney(m, props.currency);
-  const setRow = (i: number, patch: Partial<Row>) =>
+  const setRow = (i: number, patch: Partial<Row>) => {
     setRows((rs) => rs.map((r, k) => (k === i ? { ...r, ...patch } : r)));
+    setServerErrors((e) =>
+      Object.fromEntries(Object.entries(e).filter(([k]) => !k.startsWith(`${i}.`))),
+    );
+  };
+  /** Lines added or removed renumber them: what the server said no longer points anywhere. */
+  const changeRows = (f: (rs: Row[]) => Row[]) => {
+    setRows(f);
+    setServerErrors({});
+  };
 
-  const save = () =>
+  const save = () => {
+    if (!allGood) {
+      const first = focusFirst(lineErrors);
+      setStatus({
+        ok: false,
+        message: first
+          ? `Check the highlighted fields: ${first.text}`
+          : (sizeMessage ?? "Check the lines"),
+      });
+      return;
+    }
     start(async () => {
       const lines = rows.map((r, i) => ({
         kind: r.kind,
@@ -207,10 +278,27 @@ function QuoteEditorForm({
         router.push(`/quotes/${res.data.id}`);
         return;
       }
-      setStatus(
-        res.ok ? { ok: true, message: "Quote saved" } : { ok: false, message: refusal(res) },
-      );
+      if (res.ok) {
+        setStatus({ ok: true, message: "Quote saved" });
+        return;
+      }
+      // A line's field the server refused (lines.0.unitPriceMinor): marked on that line.
+      const fromServer: LineErrors = {};
+      for (const [path, messages] of Object.entries(res.fieldErrors ?? {})) {
+        const m = /^lines\.(\d+)\.(\w+)$/.exec(path);
+        const f = m && Object.hasOwn(FIELD_OF, m[2]!) ? FIELD_OF[m[2]!] : undefined;
+        if (m && f && Number(m[1]) < rows.length) fromServer[`${m[1]}.${f}`] = messages[0]!;
+      }
+      setServerErrors(fromServer);
+      const first = focusFirst(fromServer);
+      setStatus({
+        ok: false,
+        message: first
+          ? `${res.message ?? "Check the highlighted fields"}: ${first.text}`
+          : refusal(res),
+      });
     });
+  };
   /** Runs a quote action; the page shows the result (the action revalidates it). */
   const run = <T,>(
     label: string,
@@ -231,14 +319,14 @@ function QuoteEditorForm({
   const labourAt = rows.findIndex((r) => r.kind === "labour");
   const addLabour = () => {
     if (labourAt >= 0) {
-      document.getElementById(`q-line-${labourAt}-qty`)?.focus();
+      document.getElementById(fieldId(labourAt, "qty"))?.focus();
       setStatus({
         ok: true,
         message: `Labour is already on line ${labourAt + 1}; change its hours there`,
       });
       return;
     }
-    setRows((rs) => [
+    changeRows((rs) => [
       ...rs,
       {
         kind: "labour",
@@ -320,12 +408,20 @@ function QuoteEditorForm({
               <tr key={i} className="border-t border-ink-100">
                 <td className="px-3 py-2">
                   {editable ? (
-                    <input
-                      aria-label={`Line ${i + 1} description`}
-                      className="w-full rounded-md border border-ink-300 px-2 py-1"
-                      value={r.description}
-                      onChange={(e) => setRow(i, { description: e.target.value })}
-                    />
+                    <>
+                      <input
+                        id={fieldId(i, "description")}
+                        aria-label={`Line ${i + 1} description`}
+                        {...invalidProps(i, "description")}
+                        className="w-full rounded-md border border-ink-300 px-2 py-1 aria-[invalid=true]:border-danger-600"
+                        value={r.description}
+                        onChange={(e) => setRow(i, { description: e.target.value })}
+                      />
+                      <FieldMessage
+                        id={`${fieldId(i, "description")}-error`}
+                        text={errorOf(i, "description")}
+                      />
+                    </>
                   ) : (
                     r.description
                   )}
@@ -336,29 +432,39 @@ function QuoteEditorForm({
                 </td>
                 <td className="px-3 py-2 text-right">
                   {editable ? (
-                    <input
-                      id={`q-line-${i}-qty`}
-                      aria-label={`Line ${i + 1} quantity`}
-                      aria-invalid={bad[i]!.qty}
-                      inputMode="decimal"
-                      className={cell}
-                      value={r.qty}
-                      onChange={(e) => setRow(i, { qty: e.target.value })}
-                    />
+                    <>
+                      <input
+                        id={fieldId(i, "qty")}
+                        aria-label={`Line ${i + 1} quantity`}
+                        {...invalidProps(i, "qty")}
+                        inputMode="decimal"
+                        className={cell}
+                        value={r.qty}
+                        onChange={(e) => setRow(i, { qty: e.target.value })}
+                      />
+                      <FieldMessage id={`${fieldId(i, "qty")}-error`} text={errorOf(i, "qty")} />
+                    </>
                   ) : (
                     r.qty
                   )}
                 </td>
                 <td className="px-3 py-2 text-right">
                   {editable ? (
-                    <input
-                      aria-label={`Line ${i + 1} unit price`}
-                      aria-invalid={bad[i]!.price}
-                      inputMode="decimal"
-                      className={cell}
-                      value={r.price}
-                      onChange={(e) => setRow(i, { price: e.target.value })}
-                    />
+                    <>
+                      <input
+                        id={fieldId(i, "price")}
+                        aria-label={`Line ${i + 1} unit price`}
+                        {...invalidProps(i, "price")}
+                        inputMode="decimal"
+                        className={cell}
+                        value={r.price}
+                        onChange={(e) => setRow(i, { price: e.target.value })}
+                      />
+                      <FieldMessage
+                        id={`${fieldId(i, "price")}-error`}
+                        text={errorOf(i, "price")}
+                      />
+                    </>
                   ) : (
                     <span className="figure">{shown.lines[i]!.unitPrice}</span>
                   )}
@@ -367,12 +473,17 @@ function QuoteEditorForm({
                   {editable ? (
                     <>
                       <input
+                        id={fieldId(i, "discount")}
                         aria-label={`Line ${i + 1} discount`}
-                        aria-invalid={bad[i]!.discount}
+                        {...invalidProps(i, "discount")}
                         inputMode="decimal"
                         className={cell}
                         value={r.discount}
                         onChange={(e) => setRow(i, { discount: e.target.value })}
+                      />
+                      <FieldMessage
+                        id={`${fieldId(i, "discount")}-error`}
+                        text={errorOf(i, "discount")}
                       />
                       {shown.lines[i]!.discountAmount ? (
                         <span className="figure block text-xs text-ink-600">
@@ -393,7 +504,7 @@ function QuoteEditorForm({
                       type="button"
                       variant="ghost"
                       aria-label={`Remove line ${i + 1}`}
-                      onClick={() => setRows((rs) => rs.filter((_, k) => k !== i))}
+                      onClick={() => changeRows((rs) => rs.filter((_, k) => k !== i))}
                     >
                       ✕
                     </Button>
@@ -435,10 +546,16 @@ function QuoteEditorForm({
           </tfoot>
         </table>
       </div>
-      {!allGood && editable ? (
+      {!linesGood && editable ? (
         <p role="alert" className="text-sm text-danger-700">
-          ✕ Each line needs a description, a quantity above 0 (up to 3 decimals), a price like 12.50
-          and a discount from 0 to 100 %.
+          ✕ Each line needs a description, a quantity above 0 (up to 3 decimals, at most{" "}
+          {limits.quantity.replace("At most ", "")}), a price like 12.50 (
+          {limits.unitPrice.toLowerCase()}) and a discount from 0 to 100 %.
+        </p>
+      ) : null}
+      {sizeMessage && editable ? (
+        <p role="alert" className="text-sm text-danger-700" data-testid="quote-size-error">
+          ✕ {sizeMessage}
         </p>
       ) : null}
       {editable ? (
@@ -457,7 +574,7 @@ function QuoteEditorForm({
             }
             empty="No part matches; try another SKU, name or brand"
             onPick={(p) =>
-              setRows((rs) => [
+              changeRows((rs) => [
                 ...rs,
                 {
                   kind: "part",
@@ -478,7 +595,7 @@ function QuoteEditorForm({
             type="button"
             variant="secondary"
             onClick={() =>
-              setRows((rs) => [
+              changeRows((rs) => [
                 ...rs,
                 {
                   kind: "fee",
@@ -527,7 +644,7 @@ function QuoteEditorForm({
       {props.canWrite ? (
         <div className="flex flex-wrap items-center gap-3 border-t border-ink-200 pt-3">
           {editable ? (
-            <Button onClick={save} disabled={pending || !allGood || !dirty}>
+            <Button onClick={save} disabled={pending || !dirty}>
               {pending && !busy
                 ? "Saving…"
                 : revises
@@ -602,4 +719,31 @@ function QuoteEditorForm({
       ) : null}
     </div>
   );
+}
+
+/** A line field's own message under it (the input names it with aria-describedby). */
+function FieldMessage({ id, text }: { id: string; text?: string }) {
+  return text ? (
+    <span id={id} className="block text-left text-xs text-danger-700">
+      {text}
+    </span>
+  ) : null;
+}
+
+/** One line's own problems as [`${i}.${field}`, message] pairs, the limits said as money. */
+function checkLine(
+  r: Row,
+  p: { quantityMilli: number | null; unitPriceMinor: number | null; discountBp: number | null },
+  limits: ReturnType<typeof quoteLimitMessages>,
+  i: number,
+): [string, string][] {
+  const out: [string, string][] = [];
+  if (!r.description.trim()) out.push([`${i}.description`, "Describe the line"]);
+  if (p.quantityMilli === null || p.quantityMilli === 0)
+    out.push([`${i}.qty`, "A quantity above 0, up to 3 decimals"]);
+  else if (quantityTooLarge(p.quantityMilli)) out.push([`${i}.qty`, limits.quantity]);
+  if (p.unitPriceMinor === null) out.push([`${i}.price`, "A price like 12.50"]);
+  else if (unitPriceTooLarge(p.unitPriceMinor)) out.push([`${i}.price`, limits.unitPrice]);
+  if (p.discountBp === null || p.discountBp > 10000) out.push([`${i}.discount`, "From 0 to 100 %"]);
+  return out;
 }

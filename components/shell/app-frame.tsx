@@ -17,7 +17,10 @@ export function AppFrame({ member, children }: { member: Member; children: React
           <Link href="/" className="text-white">
             <Logo small />
           </Link>
-          <nav aria-label="Main" className="order-3 w-full overflow-x-auto sm:order-none sm:w-auto">
+          <nav
+            aria-label="Main"
+            className="order-3 w-full min-w-0 sm:order-none sm:w-auto sm:flex-1"
+          >
             <NavLinks items={navFor(member.role).map(({ href, label }) => ({ href, label }))} />
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">

@@ -1,6 +1,7 @@
 "use client";
 
 import { UnitNumberField } from "@/components/ui/unit-number-field";
+import { parseNumberText } from "@/lib/calc/number-text";
 
 /** A labelled number box that keeps what the user typed and says when it is not a number. */
 export function NumInput({
@@ -35,6 +36,6 @@ export function NumInput({
 
 export const toNum = (s: string): number | undefined => {
   if (s.trim() === "") return undefined;
-  const n = Number(s.replace(",", "."));
+  const n = parseNumberText(s);
   return Number.isFinite(n) ? n : undefined;
 };

@@ -4,9 +4,10 @@ import { Conflict } from "@/lib/domain/errors";
 
 /**
  * A build as commands return it: plain data (times as ISO strings), the same to JSON and actions.
- * The kit's basis (`kitBasis`, inputs kept for the kit's ranking) stays on the server.
+ * Internal columns stay on the server: the kit's basis (`kitBasis`, inputs kept for the kit's
+ * ranking) and the search column (`searchText`, kept by the database's triggers).
  */
-export type BuildData = Omit<Build, "createdAt" | "updatedAt" | "kitBasis"> & {
+export type BuildData = Omit<Build, "createdAt" | "updatedAt" | "kitBasis" | "searchText"> & {
   createdAt: string;
   updatedAt: string;
 };
@@ -19,7 +20,7 @@ export interface BuildResult {
   build: BuildData;
 }
 
-export function buildData({ kitBasis: _basis, ...b }: Build): BuildData {
+export function buildData({ kitBasis: _basis, searchText: _search, ...b }: Build): BuildData {
   return { ...b, createdAt: b.createdAt.toISOString(), updatedAt: b.updatedAt.toISOString() };
 }
 

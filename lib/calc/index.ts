@@ -95,6 +95,7 @@ export {
   voltageAfterWiringV,
 } from "./wire";
 export * from "./units";
+export * from "./number-text";
 export * from "./schema";
 export {
   sizeFuelSystem,

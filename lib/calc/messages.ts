@@ -1,6 +1,7 @@
 // Reference: docs/calculations.md §7.3.
 import {
   fillTemplate,
+  formatLabelled,
   formatNumber,
   formatValue,
   QUANTITIES,
@@ -63,13 +64,15 @@ export function formatTraceStep(step: TraceStep, system: UnitSystem): FormattedS
   if (!("quantity" in step)) {
     // Saved before steps carried quantities: the numbers as they were, in their units.
     const old = step as unknown as LegacyStep;
-    const u = (unit: string) => (unit ? ` ${unit}` : "");
+    // A unit the label already names ("reference lambda" in λ) is not said again.
+    const u = (unit: string, label = "") =>
+      unit && !(unit === "λ" && /lambda$/i.test(label.trim())) ? ` ${unit}` : "";
     return {
       id: old.id,
       label: old.label,
       value: `${legacyNumber(old.value, 2)}${u(old.unit)}`,
       formula: old.formula,
-      inputs: old.inputs.map((i) => `${i.label} ${legacyNumber(i.value, 3)}${u(i.unit)}`),
+      inputs: old.inputs.map((i) => `${i.label} ${legacyNumber(i.value, 3)}${u(i.unit, i.label)}`),
     };
   }
   return {
@@ -79,7 +82,7 @@ export function formatTraceStep(step: TraceStep, system: UnitSystem): FormattedS
     formula: system === "imperial" && step.formulaImperial ? step.formulaImperial : step.formula,
     inputs: step.inputs
       .filter((i) => !i.only || i.only === system)
-      .map((i) => `${i.label} ${formatValue(i.quantity, i.value, system, i.decimals)}`),
+      .map((i) => formatLabelled(i.label, i.quantity, i.value, system, i.decimals)),
   };
 }
 
@@ -89,6 +92,8 @@ export interface IssueLike {
   path: readonly PropertyKey[];
   message: string;
   origin?: string;
+  /** What an invalid_type issue got ("Infinity" for a number too large to hold). */
+  received?: string;
   params?: unknown;
 }
 
@@ -114,7 +119,13 @@ export function issueMessage(issue: IssueLike, system: UnitSystem): string {
   const path = issue.path.map(String).join(".");
   const field = inputField(path);
   if (!field?.quantity) return issue.message;
-  if ((issue.code === "too_small" || issue.code === "too_big") && issue.origin === "number") {
+  const infinite =
+    issue.code === "invalid_type" &&
+    (issue.received === "Infinity" || issue.received === "-Infinity");
+  if (
+    ((issue.code === "too_small" || issue.code === "too_big") && issue.origin === "number") ||
+    infinite
+  ) {
     const b = inputBounds(path);
     if (b?.min === undefined || b.max === undefined) return issue.message;
     const q = field.quantity;

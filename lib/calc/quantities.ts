@@ -358,6 +358,29 @@ export function formatValue(
   return `${c.prefix ?? ""}${n}${c.unit ? `${c.gap ?? " "}${c.unit}` : ""}`;
 }
 
+/**
+ * A label and its figure: "reference lambda" with λ 0.80 → "reference lambda 0.80". A prefix
+ * that is a sign standing for the quantity's name ("λ ", set apart by a space) is left out when
+ * the label already ends with that name, so the name is never said twice (the PDFs spell λ as
+ * "lambda"); a prefix that belongs to the figure itself ("E85") stays.
+ */
+export function formatLabelled(
+  label: string,
+  q: Quantity,
+  canonical: number,
+  system: UnitSystem,
+  decimals?: number,
+): string {
+  const value = formatValue(q, canonical, system, decimals);
+  const prefix = QUANTITIES[q][system].prefix;
+  const named =
+    !!prefix &&
+    prefix.endsWith(" ") &&
+    value.startsWith(prefix) &&
+    label.trim().toLowerCase().endsWith(QUANTITIES[q].name.toLowerCase());
+  return `${label} ${named ? value.slice(prefix.length) : value}`;
+}
+
 /** A number with its quantity: how warnings and working steps carry their figures. */
 export interface Figure {
   value: number;

@@ -10,8 +10,14 @@ const num = (label: string, min: number, max: number, unit = "") => {
   const u = unit ? ` ${unit}` : "";
   return z
     .number({
+      // A number too large to hold (Infinity: "1e400", or 1e308 psi once in kPa) is past the
+      // limits, and says them; text that is no number says so.
       error: (iss) =>
-        iss.input === undefined ? `${label} is required` : `${label} must be a number`,
+        iss.input === undefined
+          ? `${label} is required`
+          : typeof iss.input === "number" && !Number.isNaN(iss.input)
+            ? `${label} must be between ${min} and ${max}${u}`
+            : `${label} must be a number`,
     })
     .min(min, `${label} must be between ${min} and ${max}${u}`)
     .max(max, `${label} must be between ${min} and ${max}${u}`);

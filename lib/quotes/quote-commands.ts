@@ -19,8 +19,6 @@ import {
 import { getShopSettings } from "@/db/queries/shops";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
-import { minorToPlain } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
 import {
   Conflict,
   Invalid,
@@ -46,10 +44,10 @@ import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
 import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
 import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
-import { QUOTE_SUBTOTAL_MAX_MINOR } from "@/lib/validations/column-bounds";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 
 import { quoteEmail } from "./quote-email";
+import { quoteSizeIssue } from "./quote-limits";
 import { linesFromBuild, withLabour } from "./quote-lines";
 import { presentQuote } from "./quote-presentation";
 
@@ -89,18 +87,26 @@ async function checkLineParts(shopId: string, lines: QuoteLineInput[]) {
     throw new Invalid("A line names a part that is not in this shop's catalog", issues);
 }
 
-/** The shop's labour rate (minor units an hour). */
-async function labourRateOf(shopId: string): Promise<number> {
-  return (await getShopSettings(shopId))?.settings.labourRateMinor ?? DEFAULT_LABOUR_RATE_MINOR;
+/** The shop's labour rate (minor units an hour) and currency (what a new quote is priced in). */
+async function shopQuoteTerms(shopId: string): Promise<{ rateMinor: number; currency: string }> {
+  const s = (await getShopSettings(shopId))?.settings;
+  return {
+    rateMinor: s?.labourRateMinor ?? DEFAULT_LABOUR_RATE_MINOR,
+    currency: s?.currency ?? "USD",
+  };
 }
 
-/** Lines whose labour made them more than one quote holds: a field error on the hours. */
-function checkQuoteSize(lines: QuoteLineInput[]) {
-  if (quoteTotals(lines, 0).grossMinor > QUOTE_SUBTOTAL_MAX_MINOR)
-    throw Invalid.field(
-      "labourHours",
-      `With this labour the quote adds up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
-    );
+/**
+ * Lines that add up to more than one quote holds: a field error, the limit said as money in the
+ * quote's currency — on the labour hours when the shop's labour line made them too much.
+ */
+function checkQuoteSize(lines: QuoteLineInput[], currency: string, onLabour = false) {
+  const message = quoteSizeIssue(
+    lines,
+    currency,
+    onLabour ? "With this labour the quote adds up" : undefined,
+  );
+  if (message) throw Invalid.field(onLabour ? "labourHours" : "lines", message);
 }
 
 /**
@@ -115,18 +121,18 @@ export async function createQuote(member: Member, input: QuoteCreate): Promise<Q
   if (input.buildId) {
     const row = await getBuild(shopId, input.buildId);
     if (!row) throw Invalid.field("buildId", "That build is not in this shop");
-    const [catalog, rateMinor] = await Promise.all([
+    const [catalog, { rateMinor, currency }] = await Promise.all([
       getPartsByIds(
         shopId,
         row.build.parts.map((p) => p.partId),
       ),
-      labourRateOf(shopId),
+      shopQuoteTerms(shopId),
     ]);
     const lines = linesFromBuild(row.build.parts, catalog, {
       hours: input.labourHours ?? DEFAULT_LABOUR_HOURS,
       rateMinor,
     });
-    checkQuoteSize(lines);
+    checkQuoteSize(lines, currency, true);
     return insertQuote(shopId, member.user.id, {
       customerId: row.build.customerId,
       buildId: row.build.id,
@@ -138,11 +144,13 @@ export async function createQuote(member: Member, input: QuoteCreate): Promise<Q
   const customer = await getCustomer(shopId, input.customerId!);
   if (!customer) throw Invalid.field("customerId", "That customer is not in this shop");
   const given = input.lines ?? [];
+  const { rateMinor, currency } = await shopQuoteTerms(shopId);
+  checkQuoteSize(given, currency);
   await checkLineParts(shopId, given);
   const lines = input.labourHours
-    ? withLabour(given, { hours: input.labourHours, rateMinor: await labourRateOf(shopId) })
+    ? withLabour(given, { hours: input.labourHours, rateMinor })
     : given;
-  checkQuoteSize(lines);
+  checkQuoteSize(lines, currency, true);
   return insertQuote(shopId, member.user.id, {
     customerId: customer.id,
     validUntil: input.validUntil,
@@ -192,7 +200,10 @@ export async function editQuote(member: Member, input: QuoteEdit): Promise<Quote
         ? "An accepted quote cannot be edited; make a new revision of it instead"
         : `A quote that is ${lower(status)} cannot be edited`,
     );
-  if (fields.lines) await checkLineParts(member.shopId, fields.lines);
+  if (fields.lines) {
+    checkQuoteSize(fields.lines, q.quote.currency);
+    await checkLineParts(member.shopId, fields.lines);
+  }
   if (version === q.quote.version && unchanged(q, fields)) return q.quote;
   return revise
     ? insertRevision(member.shopId, id, member.user.id, {

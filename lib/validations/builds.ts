@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-import { FuelSystemInputSchema } from "@/lib/calc";
+import { FuelSystemInputSchema, numberFromField } from "@/lib/calc";
 import { converter } from "@/lib/calc/quantities";
 import { ASPIRATIONS } from "@/lib/calc/schema";
 import { BUILD_STATUSES, FUEL_CHOICES } from "@/lib/domain/builds";
@@ -57,8 +57,7 @@ export const BuildListQuery = z.object({
 export const SpecSheetQuery = z.object({ version: versionParam().optional() });
 
 /** A number from a form field (text) or a JSON body (number); a blank field is no number. */
-const asNumber = (v: unknown) =>
-  typeof v === "string" ? (v.trim() === "" ? undefined : Number(v.trim().replace(",", "."))) : v;
+const asNumber = numberFromField;
 const goalNumber = (label: string, min: number, max: number, unit: string) =>
   z.preprocess(
     asNumber,

@@ -45,6 +45,11 @@ export const versionParam = (name = "version") =>
  */
 export const QUOTE_SUBTOTAL_MAX_MINOR = Math.floor(INT4_MAX / 2);
 
+/** The largest quantity one quote line takes, in thousandths (100 000). */
+export const QUOTE_LINE_QTY_MAX_MILLI = 100_000_000;
+/** The largest unit price one quote line takes, in cents (1 000 000.00). */
+export const QUOTE_LINE_PRICE_MAX_MINOR = 100_000_000;
+
 /**
  * The calendar dates the app stores (PostgreSQL `date`): `YYYY-MM-DD`, a day that exists, in
  * the years 1900 to 9999. PostgreSQL has no year 0, and a five-digit year is no date a person

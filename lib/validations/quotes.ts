@@ -1,10 +1,13 @@
 import { z } from "zod";
 
-import { minorToPlain } from "@/lib/catalog/money";
-import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
-import { calendarDate, QUOTE_SUBTOTAL_MAX_MINOR, versionNumber } from "./column-bounds";
+import {
+  calendarDate,
+  QUOTE_LINE_PRICE_MAX_MINOR,
+  QUOTE_LINE_QTY_MAX_MILLI,
+  versionNumber,
+} from "./column-bounds";
 import { searchText } from "./search";
 
 const isoDate = calendarDate();
@@ -23,12 +26,12 @@ export const QuoteLineSchema = z.object({
     .number({ error: "Quantity must be a number" })
     .int("Quantity has at most three decimals")
     .min(1, "Quantity must be above 0")
-    .max(100_000_000, "Quantity is too large"),
+    .max(QUOTE_LINE_QTY_MAX_MILLI, "Quantity must be at most 100,000"),
   unitPriceMinor: z
     .number({ error: "Unit price must be a number" })
     .int("Unit price is in cents")
     .min(0, "Unit price must not be negative")
-    .max(100_000_000, "Unit price is too large"),
+    .max(QUOTE_LINE_PRICE_MAX_MINOR, "Unit price must be at most 1,000,000.00"),
   discountBp: z
     .number({ error: "Discount must be a number" })
     .int()
@@ -37,18 +40,12 @@ export const QuoteLineSchema = z.object({
     .default(0),
 });
 
-/** A quote's lines: at most 200, adding up to what one quote can hold. */
-const QuoteLinesSchema = z
-  .array(QuoteLineSchema)
-  .max(200, "At most 200 lines")
-  .superRefine((lines, ctx) => {
-    const subtotal = quoteTotals(lines, 0).grossMinor;
-    if (subtotal > QUOTE_SUBTOTAL_MAX_MINOR)
-      ctx.addIssue({
-        code: "custom",
-        message: `The lines add up to more than ${minorToPlain(QUOTE_SUBTOTAL_MAX_MINOR)}, the most one quote can hold`,
-      });
-  });
+/**
+ * A quote's lines: at most 200. That they add up to what one quote can hold is checked by the
+ * quote commands (`lib/quotes/quote-limits.ts#quoteSizeIssue`), which know the quote's currency
+ * and so can say the limit as money.
+ */
+const QuoteLinesSchema = z.array(QuoteLineSchema).max(200, "At most 200 lines");
 
 const notesText = z.string().trim().max(2000, "Notes are too long");
 

@@ -1,5 +1,6 @@
 import { z } from "zod";
 
+import { parseNumberText } from "@/lib/calc/number-text";
 import { converter, formatValue, type Quantity } from "@/lib/calc/quantities";
 import type { UnitSystem } from "@/lib/calc/units";
 import { isCountryCode } from "@/lib/domain/countries";
@@ -8,7 +9,7 @@ import { ROLES } from "@/lib/domain/roles";
 
 /** A number from a form field (text) or a JSON body (number); a blank field is no number. */
 const asNumber = (v: unknown) =>
-  typeof v === "string" && v.trim() !== "" ? Number(v.trim().replace(",", ".")) : v;
+  typeof v === "string" && v.trim() !== "" ? parseNumberText(v) : v;
 
 const n = (label: string, min: number, max: number, unit = "") =>
   z.preprocess(

@@ -1,6 +1,8 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { formatDateTime } from "@/lib/format/dates";
+
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
 import { BASE_URL, request, signIn } from "../helpers/http";
@@ -69,6 +71,12 @@ describe("build sheets", () => {
     await p2.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => p2.getByText(/Someone saved this build meanwhile/).count()).toBe(1);
     expect(await p2.getByLabel("Injectors (count)").inputValue()).toBe("8");
+    // When they saved, in the shared date format in the viewer's zone ("3 Dec 2026, 06:10 UTC").
+    const when = p2.getByTestId("conflict").locator("time");
+    const iso = (await when.getAttribute("datetime"))!;
+    const zone = await p2.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone);
+    await expect.poll(() => when.innerText()).toBe(formatDateTime(iso, { timeZone: zone }));
+    expect(await p2.getByTestId("conflict").innerText()).not.toMatch(/\d{4}-\d\d-\d\d/);
     // The other person's change is shown beside ours.
     await expect
       .poll(() => p2.getByTestId("conflict").innerText())

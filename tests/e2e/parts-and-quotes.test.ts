@@ -146,6 +146,93 @@ describe("parts counter", () => {
     await ctx.close();
   });
 
+  it("a line past the limits marks that line's field with the limit in money, focused; the sum's limit reads as money", async () => {
+    const api = await signIn("counter@demo.fuelwright.test");
+    const created = await request(api, "POST", "/api/v1/quotes", {
+      customerId: "00000000-0000-4000-8000-000000000001", // the portal customer (db/seed.ts)
+      lines: [
+        { kind: "fee", description: "Dyno session", quantityMilli: 1000, unitPriceMinor: 15000 },
+      ],
+    });
+    expect(created.status).toBe(201);
+    const q = created.json.quote as { id: string; version: number };
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto(`/quotes/${q.id}`);
+    const price = page.getByLabel("Line 1 unit price");
+    const qty = page.getByLabel("Line 1 quantity");
+    const save = page.getByRole("button", { name: "Save quote" });
+    // One cent past the most a line's unit price may be; typed again until the page has hydrated
+    // (Save is offered once something changed).
+    await expect
+      .poll(
+        async () => {
+          await price.fill("1000000.01");
+          return save.isEnabled();
+        },
+        { timeout: 30000 },
+      )
+      .toBe(true);
+    await save.click();
+    await expect.poll(() => price.getAttribute("aria-invalid")).toBe("true");
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.getAttribute("aria-label")))
+      .toBe("Line 1 unit price");
+    const described = await price.getAttribute("aria-describedby");
+    expect(await page.locator(`[id="${described}"]`).innerText()).toBe("At most $1,000,000.00");
+    await expect
+      .poll(() =>
+        page
+          .getByText("Check the highlighted fields: Line 1 unit price: At most $1,000,000.00")
+          .count(),
+      )
+      .toBe(1);
+
+    await price.fill("1000000.00");
+    await expect.poll(() => price.getAttribute("aria-invalid")).toBe("false");
+    await qty.fill("100000.001");
+    await page.getByRole("button", { name: "Save quote" }).click();
+    await expect.poll(() => qty.getAttribute("aria-invalid")).toBe("true");
+    const qtyNote = await qty.getAttribute("aria-describedby");
+    expect(await page.locator(`[id="${qtyNote}"]`).innerText()).toBe("At most 100,000");
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.getAttribute("aria-label")))
+      .toBe("Line 1 quantity");
+
+    // Each within its limit, the line's amount is more than a quote holds.
+    await qty.fill("100000");
+    await expect
+      .poll(() => page.getByTestId("quote-size-error").innerText())
+      .toBe("✕ The lines add up to more than $10,737,418.23, the most one quote can hold");
+    await page.getByRole("button", { name: "Save quote" }).click();
+    await expect
+      .poll(() => page.getByText(/^✕ The lines add up to more than \$10,737,418\.23/).count())
+      .toBe(2);
+    // Nothing was saved; the API says the same limit as money, on lines.
+    const api422 = await request(api, "PATCH", `/api/v1/quotes/${q.id}`, {
+      version: q.version,
+      lines: [
+        {
+          kind: "fee",
+          description: "Dyno session",
+          quantityMilli: 100_000_000,
+          unitPriceMinor: 100_000_000,
+        },
+      ],
+    });
+    expect(api422.status).toBe(422);
+    expect(api422.json.error.issues).toEqual([
+      {
+        path: "lines",
+        message: "The lines add up to more than $10,737,418.23, the most one quote can hold",
+      },
+    ]);
+    const after = await request(api, "GET", `/api/v1/quotes/${q.id}`);
+    expect(after.json.quote).toMatchObject({ version: q.version });
+    await ctx.close();
+  });
+
   it("editing a sent quote says beforehand that it makes the next revision, then opens that draft", async () => {
     const api = await signIn("counter@demo.fuelwright.test");
     const created = await request(api, "POST", "/api/v1/quotes", {

@@ -70,7 +70,20 @@ describe("every figure in the reader's units", () => {
       .poll(() => page.getByText("Boost must be between 0 and 72.5 psi").count())
       .toBeGreaterThan(0);
     expect(await page.getByLabel("Boost (psi)").getAttribute("aria-invalid")).toBe("true");
+    // A number too large to hold in kPa is out of range too, with the same limits.
+    await page.getByLabel("Boost (psi)").fill("1e308");
+    await expect
+      .poll(() => page.getByText("Boost must be between 0 and 72.5 psi").count())
+      .toBeGreaterThan(0);
+    expect(await page.getByText("Boost must be a number").count()).toBe(0);
     await page.getByLabel("Boost (psi)").fill("20");
+    // Thousands separators are read as such: 7,000 rpm is a redline, not 7.
+    await page.getByLabel("Redline (rpm)").fill("7,000");
+    await page.getByLabel("Boost (psi)").focus();
+    await expect
+      .poll(() => page.getByLabel("Redline (rpm)").getAttribute("aria-invalid"))
+      .not.toBe("true");
+    expect(await page.getByText(/Redline must be between/).count()).toBe(0);
     // A blank title, then a 5 000-character one: highlighted, said why, and focused.
     await page.getByLabel("Title").fill("");
     await page.getByRole("button", { name: "Save build" }).click();

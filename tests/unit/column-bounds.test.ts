@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 
 import { fieldErrorsOf } from "@/lib/actions/state";
+import { quoteLimitMessages, quoteSizeIssue } from "@/lib/quotes/quote-limits";
 import {
   calendarDate,
   DATE_MAX,
@@ -42,14 +43,35 @@ describe("numbers the schemas accept fit the integer columns", () => {
     description: "Injector",
     quantityMilli,
     unitPriceMinor,
+    discountBp: 0,
   });
 
-  it("quote lines whose sum cannot be stored are refused on lines, each line alone being valid", () => {
+  it("quote lines whose sum cannot be stored are refused, each line alone being valid, the limit said as money", () => {
     // 100 000 × 1 000 000.00: both within their own limits, the product is not.
-    const r = QuoteFieldsSchema.shape.lines.safeParse([line(100_000_000, 100_000_000)]);
-    expect(r.success).toBe(false);
-    expect(r.error?.issues[0]?.message).toMatch(/most one quote can hold/);
-    expect(QuoteFieldsSchema.shape.lines.safeParse([line(2_000, 34_900)]).success).toBe(true);
+    const big = [line(100_000_000, 100_000_000)];
+    expect(QuoteFieldsSchema.shape.lines.safeParse(big).success).toBe(true);
+    // Half of PostgreSQL's integer maximum in cents: 1 073 741 823 → $10,737,418.23.
+    expect(quoteSizeIssue(big, "USD")).toBe(
+      "The lines add up to more than $10,737,418.23, the most one quote can hold",
+    );
+    expect(quoteSizeIssue(big, "EUR")).toMatch(/more than €10,737,418\.23/);
+    expect(quoteSizeIssue([line(2_000, 34_900)], "USD")).toBeNull();
+  });
+
+  it("a line past 100 000 units or 1 000 000.00 a unit is refused on that line's field", () => {
+    const lines = [line(1_000, 100_000_001), line(100_000_001, 100)];
+    const r = QuoteFieldsSchema.shape.lines.safeParse(lines);
+    expect(r.error?.issues.map((i) => [i.path.join("."), i.message])).toEqual([
+      ["0.unitPriceMinor", "Unit price must be at most 1,000,000.00"],
+      ["1.quantityMilli", "Quantity must be at most 100,000"],
+    ]);
+    expect(
+      QuoteFieldsSchema.shape.lines.safeParse([line(100_000_000, 100_000_000 / 1000)]).success,
+    ).toBe(true);
+    expect(quoteLimitMessages("USD")).toMatchObject({
+      unitPrice: "At most $1,000,000.00",
+      quantity: "At most 100,000",
+    });
   });
 });
 

@@ -3,6 +3,7 @@ import { z } from "zod";
 
 import { newBuildInputs } from "@/lib/builds/defaults";
 import {
+  formatLabelled,
   formatTraceStep,
   formatValue,
   formatWarning,
@@ -241,6 +242,41 @@ describe("warnings and working steps carry their figures as data", () => {
     expect(dp.inputs).toContain("base pressure 58.0 psi");
     expect(formatValue("count", 6, "imperial")).toBe("6");
     expect(formatValue("anDash", 8, "metric")).toBe("−8 AN");
+  });
+
+  it("never says lambda twice in a working step: the label names it, the figure is bare", () => {
+    let lambdas = 0;
+    for (const [name, r] of results)
+      for (const units of ["metric", "imperial"] as const)
+        for (const s of r.trace)
+          for (const i of formatTraceStep(s, units).inputs) {
+            if (/lambda/i.test(i)) lambdas++;
+            expect(i, `${name} ${s.id}`).not.toMatch(/lambda\s*λ/i);
+          }
+    expect(lambdas).toBeGreaterThan(0); // not vacuous: some step names a lambda
+    const bsfc = results
+      .flatMap(([, r]) => r.trace)
+      .find((s) => s.id === "bsfc-rich" && s.inputs.some((i) => i.label === "reference lambda"));
+    expect(bsfc).toBeDefined();
+    for (const units of ["metric", "imperial"] as const) {
+      const inputs = formatTraceStep(bsfc!, units).inputs;
+      // The library's boosted reference lambda, 0.80 (lib/calc/power.ts; common practice, no source).
+      expect(
+        inputs.some((i) => /^reference lambda 0\.\d\d$/.test(i)),
+        inputs.join(" | "),
+      ).toBe(true);
+      expect(
+        inputs.some((i) => /^target lambda 0\.\d\d$/.test(i)),
+        inputs.join(" | "),
+      ).toBe(true);
+    }
+    // A label that does not name the quantity keeps its sign; a prefix that is part of the
+    // figure (E85) always stays.
+    expect(formatLabelled("reference lambda", "lambda", 0.8, "metric")).toBe(
+      "reference lambda 0.80",
+    );
+    expect(formatLabelled("target", "lambda", 0.8, "imperial")).toBe("target λ 0.80");
+    expect(formatLabelled("ethanol content", "ethanol", 85, "metric")).toBe("ethanol content E85");
   });
 
   it("says the imperial formula where the metric one hides a unit constant", () => {

@@ -66,6 +66,19 @@ describe("spec sheet PDF", () => {
     expect(flat).not.toMatch(/[λ»]/);
   });
 
+  it("working steps say lambda once: reference lambda 0.80, target lambda 0.80 (both unit systems)", async () => {
+    // A rule-of-thumb BSFC (none given), so the sheet shows the BSFC step with both lambdas.
+    const input = { ...boostedSix, fuel: { ...boostedSix.fuel, bsfcGPerKwh: undefined } };
+    for (const units of ["metric", "imperial"] as const) {
+      const d = sheet(input, { units });
+      expect(d.result.trace.some((s) => s.id === "bsfc-rich")).toBe(true);
+      const flat = inspectPdf(await renderSpecSheet(d)).text.replace(/\s+/g, " ");
+      expect(flat, units).toMatch(/reference lambda 0\.\d\d/);
+      expect(flat, units).toMatch(/target lambda 0\.\d\d/);
+      expect(flat, units).not.toMatch(/lambda lambda/);
+    }
+  });
+
   it("a minimal build renders, in the shop's imperial units", async () => {
     const d = sheet(naFour, { units: "imperial" });
     const { text, pages } = inspectPdf(await renderSpecSheet(d));

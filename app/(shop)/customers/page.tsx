@@ -28,7 +28,7 @@ export default async function CustomersPage({
   return (
     <>
       <PageHeader title="Customers">
-        <form role="search" className="flex gap-2" action="/customers">
+        <form role="search" className="flex w-full gap-2 sm:w-auto" action="/customers">
           <label htmlFor="q" className="sr-only">
             Search customers
           </label>
@@ -38,7 +38,7 @@ export default async function CustomersPage({
             type="search"
             defaultValue={q}
             placeholder="Name, e-mail, phone or vehicle"
-            className="rounded-md border border-ink-300 px-3 py-2"
+            className="min-w-0 flex-1 rounded-md border border-ink-300 px-3 py-2"
           />
           <button className="rounded-md border border-ink-300 bg-white px-3 py-2 text-sm font-semibold">
             Search
@@ -59,13 +59,13 @@ export default async function CustomersPage({
                     <th scope="col" className="px-4 py-2">
                       Name
                     </th>
-                    <th scope="col" className="px-4 py-2">
+                    <th scope="col" className="hidden px-4 py-2 sm:table-cell">
                       E-mail
                     </th>
                     <th scope="col" className="px-4 py-2">
                       Phone
                     </th>
-                    <th scope="col" className="px-4 py-2">
+                    <th scope="col" className="hidden px-4 py-2 md:table-cell">
                       Vehicles
                     </th>
                   </tr>
@@ -73,20 +73,30 @@ export default async function CustomersPage({
                 <tbody>
                   {rows.map((c) => (
                     <tr key={c.id} className="border-t border-ink-100">
-                      <td className="px-4 py-2 font-medium">
-                        <Link className="text-copper-700 underline" href={`/customers/${c.id}`}>
+                      <td className="px-4 py-2 [overflow-wrap:anywhere]">
+                        <Link
+                          className="font-medium text-copper-700 underline"
+                          href={`/customers/${c.id}`}
+                        >
                           {c.name}
                         </Link>
+                        {/* On a phone the secondary columns are hidden: their text sits here. */}
+                        <span className="block text-xs text-ink-600 sm:hidden">
+                          {c.email ?? "No e-mail"}
+                        </span>
+                        {vehicles(c) ? (
+                          <span className="block text-xs text-ink-600 md:hidden">
+                            {vehicles(c)}
+                          </span>
+                        ) : null}
                       </td>
-                      <td className="px-4 py-2">{c.email ?? "—"}</td>
-                      <td className="px-4 py-2 whitespace-nowrap">
+                      <td className="hidden px-4 py-2 [overflow-wrap:anywhere] sm:table-cell">
+                        {c.email ?? "—"}
+                      </td>
+                      <td className="px-4 py-2 whitespace-nowrap" data-testid="customer-phone">
                         {formatPhone(c.phone, context.shopCountry) || "—"}
                       </td>
-                      <td className="px-4 py-2">
-                        {c.vehicles.length
-                          ? c.vehicles.map((v) => `${v.year} ${v.make} ${v.model}`).join("; ")
-                          : "—"}
-                      </td>
+                      <td className="hidden px-4 py-2 md:table-cell">{vehicles(c) || "—"}</td>
                     </tr>
                   ))}
                 </tbody>
@@ -108,4 +118,9 @@ export default async function CustomersPage({
       </div>
     </>
   );
+}
+
+/** A customer's vehicles in one line: "2004 Subaru Impreza; 1999 Mazda MX-5" ("" for none). */
+function vehicles(c: { vehicles: { year: number | null; make: string; model: string }[] }) {
+  return c.vehicles.map((v) => [v.year, v.make, v.model].filter(Boolean).join(" ")).join("; ");
 }
