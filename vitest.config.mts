@@ -14,7 +14,12 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: "unit", include: ["tests/calc/**/*.test.ts", "tests/unit/**/*.test.ts"] },
+        // PDF renders take a second or two here, several times that on a loaded machine.
+        test: {
+          name: "unit",
+          include: ["tests/calc/**/*.test.ts", "tests/unit/**/*.test.ts"],
+          testTimeout: 20000,
+        },
       },
       {
         resolve: { alias: serverAlias },
