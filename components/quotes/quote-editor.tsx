@@ -740,9 +740,10 @@ function checkLine(
   const out: [string, string][] = [];
   if (!r.description.trim()) out.push([`${i}.description`, "Describe the line"]);
   if (p.quantityMilli === null || p.quantityMilli === 0)
-    out.push([`${i}.qty`, "A quantity above 0, up to 3 decimals"]);
+    out.push([`${i}.qty`, `Above 0, up to 3 decimals, ${limits.quantity.toLowerCase()}`]);
   else if (quantityTooLarge(p.quantityMilli)) out.push([`${i}.qty`, limits.quantity]);
-  if (p.unitPriceMinor === null) out.push([`${i}.price`, "A price like 12.50"]);
+  if (p.unitPriceMinor === null)
+    out.push([`${i}.price`, `A price like 12.50, ${limits.unitPrice.toLowerCase()}`]);
   else if (unitPriceTooLarge(p.unitPriceMinor)) out.push([`${i}.price`, limits.unitPrice]);
   if (p.discountBp === null || p.discountBp > 10000) out.push([`${i}.discount`, "From 0 to 100 %"]);
   return out;
