@@ -11,7 +11,6 @@ export function NumInput({
   value,
   onChange,
   error,
-  placeholder,
 }: {
   id: string;
   label: string;
@@ -19,7 +18,6 @@ export function NumInput({
   value: string;
   onChange: (v: string) => void;
   error?: string;
-  placeholder?: string;
 }) {
   return (
     <UnitNumberField
@@ -28,7 +26,6 @@ export function NumInput({
       unit={unit}
       error={error}
       value={value}
-      placeholder={placeholder}
       onChange={(e) => onChange(e.target.value)}
     />
   );

@@ -5,18 +5,16 @@ import { revalidatePath } from "next/cache";
 import { memberAction } from "@/lib/actions/member-action";
 import { PATHS } from "@/lib/cache-tags";
 import { changeMemberRole, inviteMember, removeMember } from "@/lib/members/member-commands";
-import { settingsFromShown } from "@/lib/shop/settings-view";
-import { readShopSettings, saveShopSettings } from "@/lib/shop/shop-commands";
+import { saveShopSettings } from "@/lib/shop/shop-commands";
 import {
   InviteSchema,
   MemberRemoveSchema,
   MemberRoleSchema,
-  ShopSettingsFormSchema,
+  ShopSettingsSchema,
 } from "@/lib/validations/settings";
 
-/** The settings form: typed in the viewer's units, saved canonical (a value left as shown kept). */
-export const updateSettingsAction = memberAction(ShopSettingsFormSchema, async (m, input) => {
-  await saveShopSettings(m, settingsFromShown(input, await readShopSettings(m)));
+export const updateSettingsAction = memberAction(ShopSettingsSchema, async (m, input) => {
+  await saveShopSettings(m, input);
   revalidatePath(PATHS.settings);
   return { ok: true, message: "Shop settings saved" };
 });
