@@ -3,6 +3,7 @@ import postgres from "postgres";
 
 import { serverEnv } from "@/lib/env";
 
+import { noteQuery } from "./query-count";
 import * as schema from "./schema";
 
 type Db = ReturnType<typeof drizzle<typeof schema>>;
@@ -14,6 +15,7 @@ function connect(): Db {
     idle_timeout: 20,
     connect_timeout: 5,
     onnotice: () => {},
+    ...(process.env.DB_QUERY_COUNT === "on" ? { debug: noteQuery } : {}),
   });
   globalForDb.fuelwrightSql = sql;
   return drizzle(sql, { schema });

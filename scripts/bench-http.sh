@@ -16,7 +16,7 @@ pg_ensure_db 54349 fuelwright_bench
 export DATABASE_URL="postgres://fuelwright@127.0.0.1:54349/fuelwright_bench"
 ensure_secret BETTER_AUTH_SECRET bench-auth-secret
 ensure_secret STRIPE_WEBHOOK_SECRET bench-payments-webhook-secret whsec_
-export APP_URL="http://127.0.0.1:3300" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
+export BENCH_ROUTES=on APP_URL="http://127.0.0.1:3300" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
 migrate_and_seed
 BENCH_SEED_ONLY=1 node node_modules/.bin/tsx tests/bench/builds.bench.ts || die "seeding the bench database failed"
 export NEXT_DIST_DIR=.next-bench

@@ -1,7 +1,7 @@
-import { and, asc, desc, eq, gt } from "drizzle-orm";
+import { and, asc, desc, eq, gt, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { invitation, member, organization, user } from "@/db/schema";
+import { invitation, member, organization, session, user } from "@/db/schema";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 /**
@@ -172,4 +172,57 @@ export async function removeMember(shopId: string, memberId: string): Promise<vo
     if (target.role === "owner" && owners <= 1) throw LAST_OWNER();
     await tx.delete(member).where(and(eq(member.organizationId, shopId), eq(member.id, memberId)));
   });
+}
+
+/** A session found by its token, with its person and the membership it acts with (if any). */
+export interface SessionMemberRow {
+  expiresAt: Date;
+  userId: string;
+  userName: string;
+  userEmail: string;
+  role: string | null;
+  shopId: string | null;
+  shopName: string | null;
+}
+
+/**
+ * The session of `token`, its person and membership (as `sessionMembership` chooses it) in one
+ * round trip — the look-up every signed-in request makes first. Null when no session has it.
+ */
+export async function sessionMemberByToken(token: string): Promise<SessionMemberRow | null> {
+  const rows = await db.execute<{
+    expires_at: Date | string;
+    user_id: string;
+    user_name: string;
+    user_email: string;
+    role: string | null;
+    shop_id: string | null;
+    shop_name: string | null;
+  }>(sql`
+    select s.expires_at, u.id as user_id, u.name as user_name, u.email as user_email,
+           m.role, m.shop_id, m.shop_name
+    from ${session} s
+    join ${user} u on u.id = s.user_id
+    left join lateral (
+      select mm.role, mm.organization_id as shop_id, o.name as shop_name
+      from ${member} mm
+      join ${organization} o on o.id = mm.organization_id
+      where mm.user_id = s.user_id
+        and (s.active_organization_id is null or mm.organization_id = s.active_organization_id)
+      order by mm.created_at asc
+      limit 1
+    ) m on true
+    where s.token = ${token}
+    limit 1`);
+  const r = rows[0];
+  if (!r) return null;
+  return {
+    expiresAt: new Date(r.expires_at),
+    userId: r.user_id,
+    userName: r.user_name,
+    userEmail: r.user_email,
+    role: r.role,
+    shopId: r.shop_id,
+    shopName: r.shop_name,
+  };
 }

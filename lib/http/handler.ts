@@ -1,3 +1,4 @@
+import { countQueries } from "@/db/query-count";
 import { Invalid } from "@/lib/domain/errors";
 
 import { isJsonType } from "./body";
@@ -36,7 +37,11 @@ export function handle<C = unknown>(fn: Handler<C>, options: HandleOptions = {})
         const issue = controlCharacterIssue(value, key);
         if (issue) throw new Invalid(issue.message, [issue]);
       }
-      return await fn(req, ctx);
+      if (process.env.DB_QUERY_COUNT !== "on") return await fn(req, ctx);
+      const { value, queries } = await countQueries(() => fn(req, ctx));
+      const res = new Response(value.body, value);
+      res.headers.set("x-db-round-trips", String(queries));
+      return res;
     } catch (e) {
       return errorResponse(e);
     }

@@ -77,6 +77,14 @@ const CASES: Case[] = [
     nextPath: () => `/api/v1/builds/${coldIds[cold++ % coldIds.length]}/spec-sheet`,
   },
   { name: "GET /api/health (framework + one query)", url: `${BASE}/api/health` },
+  {
+    // The yardstick: the same sizing in a bare route handler of the same framework, no session.
+    name: "POST /api/bench/size (bare route, no auth)",
+    url: `${BASE}/api/bench/size`,
+    method: "POST",
+    body: sizingBody,
+    headers: { "content-type": "application/json" },
+  },
 ];
 
 function run(c: Case, connections: number, duration = SECONDS) {
@@ -201,11 +209,13 @@ if (soak) {
     );
   bare.close();
   console.table([...rows, ...bareRows]);
+  const bareRoute = CASES.at(-1)!.name;
   for (const n of [1, 16, 64]) {
     const app = rows.find((r) => r.case === CASES[0]!.name && r.conns === n)!;
+    const route = rows.find((r) => r.case === bareRoute && r.conns === n)!;
     const floor = bareRows.find((r) => r.conns === n)!;
     console.log(
-      `calc API at ${n} connection(s): ${app["req/s"]} req/s vs bare ${floor["req/s"]} req/s = ${((100 * app["req/s"]) / floor["req/s"]).toFixed(0)} % of the floor`,
+      `calc API at ${n} connection(s): ${app["req/s"]} req/s = ${(app["req/s"] / route["req/s"]).toFixed(2)}× the bare route (${route["req/s"]} req/s; goal ≥ 0.8×), ${((100 * app["req/s"]) / floor["req/s"]).toFixed(0)} % of bare node:http (${floor["req/s"]} req/s); errors ${app.errors}`,
     );
   }
 }

@@ -42,6 +42,11 @@ export interface Cell {
 const CSV = (body: string) => ({ body, type: "text/csv" });
 export const ROUTES: Record<string, Cell> = {
   "GET /api/health": { call: () => ({ path: "/api/health" }), expect: "ok ok ok ok ok ok" },
+  // The benchmark's yardstick: served only by `npm run bench:http`'s server (BENCH_ROUTES=on).
+  "POST /api/bench/size": {
+    call: () => ({ path: "/api/bench/size", body: {} }),
+    expect: "404 404 404 404 404 404",
+  },
   "GET /api/auth/[...all]": {
     call: () => ({ path: "/api/auth/get-session" }),
     expect: "ok ok ok ok ok ok",
