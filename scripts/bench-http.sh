@@ -11,9 +11,9 @@ trap 'stop_all' EXIT
 trap 'exit 130' INT TERM
 ensure_node_modules
 ensure_postgres
-pg_start bench 54349
-pg_ensure_db 54349 fuelwright_bench
-export DATABASE_URL="postgres://fuelwright@127.0.0.1:54349/fuelwright_bench"
+pg_start bench 54397
+pg_ensure_db 54397 fuelwright_bench
+export DATABASE_URL="postgres://fuelwright@127.0.0.1:54397/fuelwright_bench"
 ensure_secret BETTER_AUTH_SECRET bench-auth-secret
 ensure_secret STRIPE_WEBHOOK_SECRET bench-payments-webhook-secret whsec_
 export BENCH_ROUTES=on APP_URL="http://127.0.0.1:3300" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"

@@ -1,8 +1,11 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import {
   createContext,
+  memo,
   useContext,
+  useDeferredValue,
   useEffect,
   useMemo,
   useRef,
@@ -11,6 +14,7 @@ import {
 } from "react";
 import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
+import { ChartPlaceholder, WhenVisible } from "@/components/charts/when-visible";
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { LocalTime } from "@/components/ui/local-time";
@@ -36,6 +40,8 @@ import {
   toShown,
   unitOf,
   type FuelSystemInput,
+  type FuelSystemResult,
+  type ParsedFuelSystemInput,
   type ShopBsfcRow,
   type UnitSystem,
 } from "@/lib/calc";
@@ -56,8 +62,40 @@ import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { ResultsPanel } from "./results-panel";
-import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
+
+// The charts' code (the charting library is most of this page's JavaScript) loads when the charts
+// scroll near the screen, after the sheet is usable.
+const SizingCharts = dynamic(() => import("./sizing-charts").then((m) => m.SizingCharts), {
+  ssr: false,
+  loading: () => <ChartPlaceholder minHeight={CHARTS_HEIGHT} label="Loading the charts…" />,
+});
+const CHARTS_HEIGHT = 1200;
+
+/**
+ * The charts and the settings note follow the typing a beat behind the key figures (a deferred
+ * value): a keystroke repaints the figures first, the charts when the browser has time.
+ */
+const LaterFigures = memo(function LaterFigures({
+  input,
+  result,
+  units,
+}: {
+  input: ParsedFuelSystemInput;
+  result: FuelSystemResult;
+  units: UnitSystem;
+}) {
+  return (
+    <>
+      <SizingSettingsNote input={input} result={result} units={units} />
+      <div className="mt-4">
+        <WhenVisible minHeight={CHARTS_HEIGHT} label="The charts load as you scroll to them">
+          <SizingCharts input={input} result={result} units={units} />
+        </WhenVisible>
+      </div>
+    </>
+  );
+});
 
 /** The optional parts of a build, switched on and off in the form. */
 const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2", "bypass"] as const;
@@ -372,6 +410,11 @@ export function BuildEditor(props: {
     () => (effective?.success ? sizeParsedFuelSystem(effective.data) : null),
     [effective],
   );
+  const sized = useMemo(
+    () => (result && effective?.success ? { input: effective.data, result } : null),
+    [result, effective],
+  );
+  const later = useDeferredValue(sized);
   const baselineJson = useMemo(
     () => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs),
     [baseline.inputs],
@@ -943,14 +986,7 @@ export function BuildEditor(props: {
       </LockedLabel.Provider>
       <div>
         <ResultsPanel result={result} units={units} />
-        {result && effective?.success ? (
-          <>
-            <SizingSettingsNote input={effective.data} result={result} units={units} />
-            <div className="mt-4">
-              <SizingCharts input={effective.data} result={result} units={units} />
-            </div>
-          </>
-        ) : null}
+        {later ? <LaterFigures input={later.input} result={later.result} units={units} /> : null}
       </div>
     </div>
   );

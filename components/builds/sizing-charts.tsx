@@ -97,7 +97,7 @@ export function SizingCharts({
         : `rising-rate regulator ${formatValue("risingRate", result.regulator.risingRateRatio, units)}`;
   const danger = result.limits.dutyDangerPct;
   return (
-    <div className="space-y-4">
+    <div className="space-y-4" data-testid="sizing-charts">
       <Chart
         title="Duty across engine speed"
         summary={`Duty rises to ${result.injector.dutyPct.toFixed(0)} % at ${input.engine.redlineRpm} rpm`}

@@ -1,22 +1,35 @@
 "use client";
 
 import { useRouter } from "next/navigation";
+import { useState } from "react";
 
-import { authClient } from "@/lib/auth/client";
-
+/**
+ * Ends the session through the auth library's own endpoint with one plain request — no auth
+ * client in every staff page's JavaScript (it is 14 KiB gzipped; `npm run bench:bundle`).
+ */
 export function SignOutButton() {
   const router = useRouter();
+  const [busy, setBusy] = useState(false);
   return (
     <button
       type="button"
-      className="rounded border border-ink-600 px-3 py-1.5 text-ink-100 hover:bg-ink-800"
+      disabled={busy}
+      className="rounded border border-ink-600 px-3 py-1.5 text-ink-100 hover:bg-ink-800 disabled:opacity-60"
       onClick={async () => {
-        await authClient.signOut();
-        router.replace("/sign-in");
-        router.refresh();
+        setBusy(true);
+        try {
+          await fetch("/api/auth/sign-out", {
+            method: "POST",
+            headers: { "content-type": "application/json" },
+            body: "{}",
+          });
+        } finally {
+          router.replace("/sign-in");
+          router.refresh();
+        }
       }}
     >
-      Sign out
+      {busy ? "Signing out…" : "Sign out"}
     </button>
   );
 }

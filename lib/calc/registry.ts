@@ -3,7 +3,32 @@ import { z } from "zod";
 
 import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";
 import { ASPIRATIONS, FuelSystemInputSchema, REGULATOR_TYPES } from "./schema";
+import {
+  ASPIRATION_LABELS,
+  REGULATOR_LABELS,
+  MEASURED_AT_LABELS,
+  DRIVE_TYPE_LABELS,
+  DUTY_BAND_LABELS,
+  LIMITED_BY_LABELS,
+  CEILING_SEVERITY_LABELS,
+  BSFC_SOURCE_LABELS,
+  BLEND_END_LABELS,
+  FLOW_REGIME_LABELS,
+} from "./code-labels";
 import type { UnitSystem } from "./units";
+
+export {
+  ASPIRATION_LABELS,
+  REGULATOR_LABELS,
+  MEASURED_AT_LABELS,
+  DRIVE_TYPE_LABELS,
+  DUTY_BAND_LABELS,
+  LIMITED_BY_LABELS,
+  CEILING_SEVERITY_LABELS,
+  BSFC_SOURCE_LABELS,
+  BLEND_END_LABELS,
+  FLOW_REGIME_LABELS,
+} from "./code-labels";
 
 /**
  * The one registry of the sizing's fields: every input path of the schema and every figure of a
@@ -33,50 +58,6 @@ export interface FieldSpec {
   better?: "higher" | "lower";
 }
 
-export const ASPIRATION_LABELS: Record<(typeof ASPIRATIONS)[number], string> = {
-  na: "Naturally aspirated",
-  turbo: "Turbocharged",
-  supercharged: "Supercharged",
-};
-export const REGULATOR_LABELS: Record<(typeof REGULATOR_TYPES)[number], string> = {
-  "boost-referenced": "Boost-referenced (1:1 or rising-rate)",
-  fixed: "Fixed (not referenced)",
-};
-export const MEASURED_AT_LABELS = { wheel: "At the wheels", crank: "At the crank" } as const;
-export const DRIVE_TYPE_LABELS = {
-  manual: "Manual gearbox",
-  automatic: "Automatic gearbox",
-  awd: "All-wheel drive",
-} as const;
-export const DUTY_BAND_LABELS = {
-  ok: "Duty fine",
-  caution: "Duty high",
-  danger: "Duty too high",
-  static: "Injectors static",
-} as const;
-export const LIMITED_BY_LABELS = {
-  injectors: "the injectors",
-  pump: "the pump",
-  "feed-line": "the feed line",
-} as const;
-/** The power ceiling's one severity (§7.2), as the results, the spec sheet and compare say it. */
-export const CEILING_SEVERITY_LABELS = {
-  ok: "Meets the target",
-  info: "Below the target (within the limits)",
-  caution: "Below the target: caution",
-  danger: "Below the target: danger",
-} as const;
-export const BSFC_SOURCE_LABELS = {
-  given: "given",
-  scaled: "given, scaled to this blend",
-  "rule-of-thumb": "rule of thumb",
-} as const;
-export const BLEND_END_LABELS = { lean: "lowest ethanol", rich: "highest ethanol" } as const;
-export const FLOW_REGIME_LABELS = {
-  laminar: "laminar",
-  transitional: "transitional",
-  turbulent: "turbulent",
-} as const;
 
 const line = (side: "feed" | "return"): Record<string, FieldSpec> => {
   const L = side === "feed" ? "Feed line" : "Return line";

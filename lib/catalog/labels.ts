@@ -1,4 +1,6 @@
-import { formatValue, REGULATOR_LABELS, type UnitSystem } from "@/lib/calc";
+import { REGULATOR_LABELS } from "@/lib/calc/code-labels";
+import { formatValue } from "@/lib/calc/quantities";
+import type { UnitSystem } from "@/lib/calc/units";
 import type { PartCategory } from "@/lib/domain/parts";
 
 /** One line of a part's key figures for tables, in the reader's unit system (specs are canonical). */
