@@ -83,3 +83,14 @@ export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
 /** Q-0007, or Q-0007-r2 for a later revision. */
 export const quoteLabel = (number: number, revision: number) =>
   `Q-${String(number).padStart(4, "0")}${revision > 1 ? `-r${revision}` : ""}`;
+
+/** How the quotes list sorts (its filter and the API's `sort`). */
+export const QUOTE_SORTS = ["newest", "oldest", "total", "valid", "customer"] as const;
+export type QuoteSort = (typeof QUOTE_SORTS)[number];
+export const QUOTE_SORT_LABELS: Record<QuoteSort, string> = {
+  newest: "Newest first",
+  oldest: "Oldest first",
+  total: "Total, highest first",
+  valid: "Valid until, soonest first",
+  customer: "Customer name",
+};

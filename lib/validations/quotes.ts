@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-import { QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
+import { QUOTE_LINE_KINDS, QUOTE_SORTS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
 import {
   calendarDate,
@@ -119,15 +119,7 @@ export const DepositReturnSchema = z.object({
 });
 
 /** How the quotes list sorts: newest number first (the default), oldest, total, validity, customer. */
-export const QUOTE_SORTS = ["newest", "oldest", "total", "valid", "customer"] as const;
-export type QuoteSort = (typeof QUOTE_SORTS)[number];
-export const QUOTE_SORT_LABELS: Record<QuoteSort, string> = {
-  newest: "Newest first",
-  oldest: "Oldest first",
-  total: "Total, highest first",
-  valid: "Valid until, soonest first",
-  customer: "Customer name",
-};
+export { QUOTE_SORT_LABELS, QUOTE_SORTS, type QuoteSort } from "@/lib/domain/quotes";
 
 /**
  * The quotes list's filters (the page's searchParams and GET /api/v1/quotes alike): `q` finds a
