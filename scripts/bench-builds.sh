@@ -8,9 +8,9 @@ trap 'stop_all' EXIT
 trap 'exit 130' INT TERM
 ensure_node_modules
 ensure_postgres
-pg_start bench 54349
-pg_ensure_db 54349 fuelwright_bench
-export DATABASE_URL="postgres://fuelwright@127.0.0.1:54349/fuelwright_bench"
+pg_start bench 54397
+pg_ensure_db 54397 fuelwright_bench
+export DATABASE_URL="postgres://fuelwright@127.0.0.1:54397/fuelwright_bench"
 ensure_secret BETTER_AUTH_SECRET bench-auth-secret
 migrate_and_seed
 node node_modules/.bin/tsx tests/bench/builds.bench.ts

@@ -2,7 +2,7 @@
  * Builds-table benchmark on 100 000 builds over 10 000 customers (one shop). Times the same
  * query functions the route handlers call — GET /api/v1/builds (search, filters, pages) and
  * opening a build (the build plus its revisions) — and prints p50/p95 per case. No pass/fail.
- * Run: npm run bench:builds (starts its own database on port 54349).
+ * Run: npm run bench:builds (starts its own database on port 54397).
  */
 import postgres from "postgres";
 
