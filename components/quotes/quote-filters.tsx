@@ -2,8 +2,12 @@
 
 import { SelectField } from "@/components/ui/field";
 import { useUrlFilters } from "@/components/ui/url-filters";
-import { QUOTE_STATUS_LABELS, QUOTE_STATUSES } from "@/lib/domain/quotes";
-import { QUOTE_SORT_LABELS, QUOTE_SORTS } from "@/lib/domain/quotes";
+import {
+  QUOTE_SORT_LABELS,
+  QUOTE_SORTS,
+  QUOTE_STATUS_LABELS,
+  QUOTE_STATUSES,
+} from "@/lib/domain/quotes";
 
 const DEFAULTS = { q: "", status: "", sort: "newest" };
 

@@ -1,20 +1,20 @@
 // Reference: docs/calculations.md §9.
 import { z } from "zod";
 
-import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";
-import { ASPIRATIONS, FuelSystemInputSchema, REGULATOR_TYPES } from "./schema";
 import {
   ASPIRATION_LABELS,
-  REGULATOR_LABELS,
-  MEASURED_AT_LABELS,
+  BLEND_END_LABELS,
+  BSFC_SOURCE_LABELS,
+  CEILING_SEVERITY_LABELS,
   DRIVE_TYPE_LABELS,
   DUTY_BAND_LABELS,
-  LIMITED_BY_LABELS,
-  CEILING_SEVERITY_LABELS,
-  BSFC_SOURCE_LABELS,
-  BLEND_END_LABELS,
   FLOW_REGIME_LABELS,
+  LIMITED_BY_LABELS,
+  MEASURED_AT_LABELS,
+  REGULATOR_LABELS,
 } from "./code-labels";
+import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";
+import { ASPIRATIONS, FuelSystemInputSchema, REGULATOR_TYPES } from "./schema";
 import type { UnitSystem } from "./units";
 
 export {
@@ -57,7 +57,6 @@ export interface FieldSpec {
   /** Results: which way is better when two revisions are compared. */
   better?: "higher" | "lower";
 }
-
 
 const line = (side: "feed" | "return"): Record<string, FieldSpec> => {
   const L = side === "feed" ? "Feed line" : "Return line";
