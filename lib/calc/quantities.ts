@@ -404,3 +404,33 @@ export function fillTemplate(
     return f ? formatValue(f.quantity, f.value, system, f.decimals) : whole;
   });
 }
+
+/**
+ * A number typed in a unit system, back in canonical units. A shown value nobody changed (equal
+ * to `original` as shown) is the exact original, so a form saved unchanged writes what it
+ * loaded; anything else keeps one digit more than metric shows (0.437 in is 11.1 mm, not
+ * 11.0998), so a unit switch never drifts a value.
+ */
+export function fromShown(
+  q: Quantity,
+  shown: number,
+  system: UnitSystem,
+  original?: number | null,
+): number {
+  if (typeof original === "number" && toShown(q, original, system) === shown) return original;
+  const c = QUANTITIES[q][system];
+  const m = QUANTITIES[q].metric;
+  if (c.from === m.from) return shown;
+  const d = m.decimals + 1;
+  return Math.round(c.from(shown) * 10 ** d) / 10 ** d;
+}
+
+/** A canonical value as a form field shows it: converted and rounded ("" for no value). */
+export function shownText(
+  q: Quantity,
+  canonical: number | null | undefined,
+  system: UnitSystem,
+): string {
+  if (typeof canonical !== "number" || !Number.isFinite(canonical)) return "";
+  return String(toShown(q, canonical, system));
+}

@@ -122,6 +122,13 @@ describe("every figure in the reader's units", () => {
         .poll(() => page.getByTestId("working").locator("li").count())
         .toBeGreaterThan(10);
       pages.push(["build sheet", await mainText(page)]);
+      // Chart ticks: the number, a space, the unit ("55 gal/h", never "55gal/h").
+      const ticks = page.locator(".recharts-cartesian-axis-tick-value");
+      await expect.poll(() => ticks.count(), { timeout: 15000 }).toBeGreaterThan(10);
+      const tickTexts = await ticks.allTextContents();
+      const flow = system === "imperial" ? "gal/h" : "L/h";
+      expect(tickTexts.filter((t) => t.endsWith(flow)).length).toBeGreaterThan(1);
+      expect(tickTexts.filter((t) => /\d[^\d.\s]/.test(t))).toEqual([]);
       expect(await page.getByTestId("warnings").innerText()).toMatch(own);
       expect(await page.getByTestId("working").innerText()).toMatch(own);
       await page.goto(`${url}/revisions/2`);
