@@ -167,11 +167,11 @@ export function SizingCharts({
               dataKey="boost"
               type="number"
               domain={[0, "dataMax"]}
-              unit={` ${pu}`}
+              tickFormatter={axisTick(pu)}
               tick={{ fontSize: 11 }}
               name="boost"
             />
-            <YAxis unit={` ${pu}`} tick={{ fontSize: 11 }} width={64} />
+            <YAxis tickFormatter={axisTick(pu)} tick={{ fontSize: 11 }} width={64} />
             <Tooltip />
             <Legend />
             <Line
@@ -210,10 +210,10 @@ export function SizingCharts({
               dataKey="boost"
               type="number"
               domain={[0, "dataMax"]}
-              unit={` ${pu}`}
+              tickFormatter={axisTick(pu)}
               tick={{ fontSize: 11 }}
             />
-            <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
+            <YAxis tickFormatter={axisTick(fu)} tick={{ fontSize: 11 }} width={64} />
             <Tooltip />
             <Legend />
             <ReferenceLine

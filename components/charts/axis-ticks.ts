@@ -1,8 +1,11 @@
 /**
  * The one tick formatter of our charts' axes: the tick's number, a no-break space and the unit
- * ("55 gal/h", "6000 rpm"). Recharts breaks a tick's text into lines at ordinary spaces when the
- * axis is narrow, and the lines then read run together ("55gal/h"); a no-break space keeps the
- * number and its unit on one line. Never pass recharts' own `unit` prop (it does the same split).
+ * ("55 gal/h", "6000 rpm"). Recharts' <Text> splits a tick's text into words at ordinary spaces
+ * and, since the axis gives each tick a width, draws every word as a <tspan> line of its own, so
+ * "55 gal/h" reads "55gal/h" (its textContent) and stacks on screen; the no-break space is no
+ * word break there (recharts' BREAKING_SPACES), so the tick stays one line. Never pass recharts'
+ * own `unit` prop: it appends the unit after whatever the formatter gave, with the ordinary space
+ * we put in it (tests/unit/chart-ticks.test.ts checks both).
  */
 export const NBSP = "\u00a0";
 

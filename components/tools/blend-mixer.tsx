@@ -7,7 +7,6 @@ import {
   ethanolFromFlexSensorHz,
   fillTemplate,
   formatValue,
-  fromShown,
   volumeToAdd,
   VolumeToAddSchema,
   type UnitSystem,
@@ -30,11 +29,12 @@ export function BlendMixer({ units }: { units: UnitSystem }) {
     tankCapacityL: START_VOLUMES[units].capacity,
     hz: "",
   });
-  const volUnit = converter("volume", units).unit;
-  /** A volume typed in the person's units, in litres. */
+  const volume = converter("volume", units);
+  const volUnit = volume.unit;
+  /** A volume typed in the person's units, in litres (exactly: nothing here is stored). */
   const litres = (s: string) => {
     const n = toNum(s);
-    return n === undefined ? undefined : fromShown("volume", n, units);
+    return n === undefined ? undefined : volume.from(n);
   };
   const vol = (l: number) => formatValue("volume", l, units);
   const set = (k: keyof typeof f) => (v: string) => setF((s) => ({ ...s, [k]: v }));

@@ -92,6 +92,8 @@ export const ShopSettingsFields = z.object({
   ),
 });
 
+export const DUTY_ORDER_MESSAGE = "Danger duty must not be below caution duty";
+
 /**
  * The settings a person reads and types in their own units (the rest are %, days, money or
  * AFR, the same in both systems), with the quantity that shows them and the canonical bounds.
@@ -161,6 +163,7 @@ const shownSetting = (name: ShownSetting, system: UnitSystem) => {
 
 const SYSTEMS = ["metric", "imperial"] as const satisfies readonly UnitSystem[];
 
+/** The form's fields in each system, with the rule across fields (caution not above danger). */
 const FORM_SCHEMAS = Object.fromEntries(
   SYSTEMS.map((system) => [
     system,
@@ -168,7 +171,15 @@ const FORM_SCHEMAS = Object.fromEntries(
       Object.fromEntries(
         Object.keys(SHOWN_SETTINGS).map((k) => [k, shownSetting(k as ShownSetting, system)]),
       ) as { [K in ShownSetting]: ReturnType<typeof shownSetting> },
-    ),
+    ).refine((s) => s.dutyCautionPct <= s.dutyDangerPct, {
+      path: ["dutyDangerPct"],
+      message: DUTY_ORDER_MESSAGE,
+      // Said beside the other fields' errors, not only once they are right (as ShopSettingsSchema).
+      when: (p) => {
+        const v = p.value as { dutyCautionPct?: unknown; dutyDangerPct?: unknown };
+        return typeof v.dutyCautionPct === "number" && typeof v.dutyDangerPct === "number";
+      },
+    }),
   ]),
 );
 
@@ -183,21 +194,16 @@ export const ShopSettingsFormSchema = z
   .looseObject({ shownUnits: z.enum(SYSTEMS).catch("metric") })
   .transform((raw, ctx) => {
     const system = raw.shownUnits as UnitSystem;
+    // Every bad field by name, the rule across fields included (a form names them all at once).
     const r = FORM_SCHEMAS[system]!.safeParse(raw);
     if (!r.success) {
       for (const i of r.error.issues)
         ctx.addIssue({ code: "custom", path: i.path, message: i.message });
       return z.NEVER;
     }
-    if (r.data.dutyCautionPct > r.data.dutyDangerPct) {
-      ctx.addIssue({ code: "custom", path: ["dutyDangerPct"], message: DUTY_ORDER_MESSAGE });
-      return z.NEVER;
-    }
     return { ...(r.data as z.output<typeof ShopSettingsFields>), shownUnits: system };
   });
 export type ShopSettingsFormInput = z.output<typeof ShopSettingsFormSchema>;
-
-export const DUTY_ORDER_MESSAGE = "Danger duty must not be below caution duty";
 
 /** Shop defaults as the settings form sends them: every field. */
 export const ShopSettingsSchema = ShopSettingsFields.refine(
