@@ -3,6 +3,7 @@ import {
   celsiusFromFahrenheit,
   fahrenheitFromCelsius,
   KG_PER_LB,
+  L_PER_CU_IN,
   L_PER_US_GAL,
   M_PER_FT,
   MM_PER_IN,
@@ -52,10 +53,13 @@ export type Quantity =
   | "temperature"
   | "density"
   | "velocity"
-  /** Engine displacement, L (the trade quotes litres in both systems). */
+  /** Engine displacement, L (cu in in imperial, as a US shop reads an engine's size). */
   | "displacement"
   | "volume"
-  /** Air or fuel per cylinder, mg (ECUs work in mg in both systems). */
+  /**
+   * Air or fuel per cylinder or per injection, mg in both systems: ECUs and tuning software
+   * work in mg per injection in the US too, so imperial keeps it (and every label says "mg").
+   */
   | "mass"
   | "voltage"
   | "current"
@@ -241,7 +245,17 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     metric: metric("m/s", 2),
     imperial: { unit: "ft/s", decimals: 1, to: (x) => x / M_PER_FT, from: (x) => x * M_PER_FT },
   },
-  displacement: { name: "displacement", canonical: "L", ...same({ unit: "L", decimals: 1 }) },
+  displacement: {
+    name: "displacement",
+    canonical: "L",
+    metric: metric("L", 1),
+    imperial: {
+      unit: "cu in",
+      decimals: 0,
+      to: (x) => x / L_PER_CU_IN,
+      from: (x) => x * L_PER_CU_IN,
+    },
+  },
   volume: {
     name: "volume",
     canonical: "L",
