@@ -16,9 +16,9 @@ afterAll(async () => {
  * A figure in a unit of one system only: a number, then the unit. "m" and "in" count only after a
  * number, being words too. The same lists as tests/unit/registry.test.ts.
  */
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F)(?![\w/])/;
 /**
  * An internal field path or code where a label belongs: camelCase names (units such as kPa are not), "›" paths, and a code
  * standing alone in a table cell (the words themselves appear in sentences).
@@ -131,6 +131,11 @@ describe("every figure in the reader's units", () => {
       expect(tickTexts.filter((t) => /\d[^\d.\s]/.test(t))).toEqual([]);
       expect(await page.getByTestId("warnings").innerText()).toMatch(own);
       expect(await page.getByTestId("working").innerText()).toMatch(own);
+      // The engine's size as the reader's trade says it (cu in; L in metric) …
+      const displacement = system === "imperial" ? "Displacement (cu in)" : "Displacement (L)";
+      expect(await page.getByLabel(displacement, { exact: true }).count()).toBe(1);
+      // … and fuel per injection in mg in both systems (as ECUs take it), said so each time.
+      expect(await page.getByTestId("working").innerText()).toMatch(/fuel per injection [\d.]+ mg/);
       await page.goto(`${url}/revisions/2`);
       pages.push(["revision 2", await mainText(page)]);
       await page.goto(`${url}/compare?from=1&to=2`);
