@@ -120,6 +120,9 @@ const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefi
 const formText = (max: number, label: string) =>
   z.preprocess(blank, z.string().trim().max(max, `${label} is too long`).optional());
 
+/** The goal's canonical bounds (L, kW): BuildGoalSchema's, the sizing schema's. */
+const GOAL_BOUNDS = { displacement: [0.1, 20], power: [1, 5000] } as const;
+
 /**
  * The goal's bounds (lib/calc/schema.ts) as the person's units state them, rounded inwards to
  * the quantity's precision so every number said to be inside is (0.1–20 L: 7–1220 cu in).
@@ -172,6 +175,29 @@ export const BuildDraftFormSchema = z
     "vehicle.engine": formText(120, "Engine"),
     "vehicle.vin": formText(40, "VIN"),
   })
+  // The figures' bounds, in the person's units, beside the other fields' errors (not only once
+  // every other field is right).
+  .superRefine(
+    (f, ctx) => {
+      const units = f.units === "imperial" ? "imperial" : "metric";
+      for (const [key, q, label] of [
+        ["displacement", "displacement", "Displacement"],
+        ["power", "power", "Power goal"],
+      ] as const) {
+        const v = f[key];
+        if (typeof v !== "number") continue;
+        const [min, max] = GOAL_BOUNDS[q];
+        const canonical = converter(q, units).from(v);
+        if (!(canonical >= min && canonical <= max))
+          ctx.addIssue({
+            code: "custom",
+            path: [key],
+            message: `${label} must be ${goalBounds(q, min, max, units)}`,
+          });
+      }
+    },
+    { when: (p) => typeof p.value === "object" && p.value !== null },
+  )
   .transform((f, ctx) => {
     const goal = BuildGoalSchema.safeParse({
       displacementL: converter("displacement", f.units).from(f.displacement),
@@ -189,13 +215,13 @@ export const BuildDraftFormSchema = z
         ctx.addIssue({
           code: "custom",
           path: ["displacement"],
-          message: `Displacement must be ${goalBounds("displacement", 0.1, 20, f.units)}`,
+          message: `Displacement must be ${goalBounds("displacement", ...GOAL_BOUNDS.displacement, f.units)}`,
         });
       if (failed.has("powerKw"))
         ctx.addIssue({
           code: "custom",
           path: ["power"],
-          message: `Power goal must be ${goalBounds("power", 1, 5000, f.units)}`,
+          message: `Power goal must be ${goalBounds("power", ...GOAL_BOUNDS.power, f.units)}`,
         });
       return z.NEVER;
     }

@@ -176,6 +176,16 @@ describe("the counter's draft build", () => {
       power: "Power goal must be between 1 and 5000 kW",
     });
     expect(form("imperial", "350", "450").success).toBe(true);
+    // Said beside the other fields' errors, not only once they are right.
+    const partial = BuildDraftFormSchema.safeParse({
+      customerId: crypto.randomUUID(),
+      units: "imperial",
+      displacement: "2.2",
+    });
+    expect(messages(partial as ReturnType<typeof form>)).toMatchObject({
+      displacement: "Displacement must be between 7 and 1220 cu in",
+      power: "Enter the power goal",
+    });
   });
 
   it("names the missing goal fields by their paths", () => {
