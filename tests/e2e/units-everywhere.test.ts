@@ -176,5 +176,7 @@ describe("every figure in the reader's units", () => {
     await read("metric");
     await switchTo(wasImperial ? "imperial" : "metric"); // leave the demo tuner's units as found
     await ctx.close();
-  });
+    // One walk of eight pages and two spec sheets, in both systems: about two minutes on a
+    // loaded test machine (each poll keeps its own 10 s limit).
+  }, 240_000);
 });
