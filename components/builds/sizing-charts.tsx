@@ -12,6 +12,7 @@ import {
   YAxis,
 } from "recharts";
 
+import { axisTick } from "@/components/charts/axis-ticks";
 import {
   converter,
   dutyAcrossEthanol,
@@ -108,10 +109,10 @@ export function SizingCharts({
             dataKey="rpm"
             type="number"
             domain={["dataMin", "dataMax"]}
-            unit=" rpm"
+            tickFormatter={axisTick("rpm")}
             tick={{ fontSize: 11 }}
           />
-          <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
+          <YAxis tickFormatter={axisTick("%")} tick={{ fontSize: 11 }} width={48} />
           <Tooltip />
           <Legend />
           <ReferenceLine
@@ -140,8 +141,14 @@ export function SizingCharts({
       <Chart title="Duty across ethanol content" summary="Duty at the target power from E0 to E100">
         <LineChart data={eth} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />
-          <XAxis dataKey="e" type="number" domain={[0, 100]} unit=" %" tick={{ fontSize: 11 }} />
-          <YAxis unit=" %" tick={{ fontSize: 11 }} width={48} />
+          <XAxis
+            dataKey="e"
+            type="number"
+            domain={[0, 100]}
+            tickFormatter={axisTick("%")}
+            tick={{ fontSize: 11 }}
+          />
+          <YAxis tickFormatter={axisTick("%")} tick={{ fontSize: 11 }} width={48} />
           <Tooltip />
           <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" />
           <ReferenceLine x={input.fuel.ethanolMinVolPct} stroke={INK} strokeDasharray="2 2" />
@@ -160,11 +167,11 @@ export function SizingCharts({
               dataKey="boost"
               type="number"
               domain={[0, "dataMax"]}
-              unit={` ${pu}`}
+              tickFormatter={axisTick(pu)}
               tick={{ fontSize: 11 }}
               name="boost"
             />
-            <YAxis unit={` ${pu}`} tick={{ fontSize: 11 }} width={64} />
+            <YAxis tickFormatter={axisTick(pu)} tick={{ fontSize: 11 }} width={64} />
             <Tooltip />
             <Legend />
             <Line
@@ -203,10 +210,10 @@ export function SizingCharts({
               dataKey="boost"
               type="number"
               domain={[0, "dataMax"]}
-              unit={` ${pu}`}
+              tickFormatter={axisTick(pu)}
               tick={{ fontSize: 11 }}
             />
-            <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
+            <YAxis tickFormatter={axisTick(fu)} tick={{ fontSize: 11 }} width={64} />
             <Tooltip />
             <Legend />
             <ReferenceLine
@@ -243,10 +250,10 @@ export function SizingCharts({
             dataKey="p"
             type="number"
             domain={[0, "dataMax"]}
-            unit={` ${pu}`}
+            tickFormatter={axisTick(pu)}
             tick={{ fontSize: 11 }}
           />
-          <YAxis unit={` ${fu}`} tick={{ fontSize: 11 }} width={56} />
+          <YAxis tickFormatter={axisTick(fu)} tick={{ fontSize: 11 }} width={64} />
           <Tooltip />
           <Legend />
           <ReferenceLine

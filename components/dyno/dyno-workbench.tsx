@@ -14,6 +14,7 @@ import {
 } from "recharts";
 import useSWR from "swr";
 
+import { axisTick } from "@/components/charts/axis-ticks";
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { FormStatus, Signal } from "@/components/ui/status";
@@ -550,10 +551,15 @@ function PullChart({ points, units }: { points: Point[]; units: UnitSystem }) {
               dataKey="rpm"
               type="number"
               domain={["dataMin", "dataMax"]}
-              unit=" rpm"
+              tickFormatter={axisTick("rpm")}
               tick={{ fontSize: 11 }}
             />
-            <YAxis yAxisId="duty" unit=" %" tick={{ fontSize: 11 }} width={48} />
+            <YAxis
+              yAxisId="duty"
+              tickFormatter={axisTick("%")}
+              tick={{ fontSize: 11 }}
+              width={48}
+            />
             <YAxis
               yAxisId="lambda"
               orientation="right"

@@ -79,13 +79,14 @@ export function CatalogImport({ currency }: { currency: string }) {
         </label>
         <p className="mt-1 text-sm text-ink-600">
           First line: column names. Required: sku, category, brand, name, price, stock. All columns:{" "}
-          <span className="figure">{CSV_COLUMNS.join(", ")}</span>. Units: kPa, cc/min, ms, A, mm,
-          µm; yes/no for ethanol_ok. pump_curve: one curve per voltage, “13.5V 300:340 500:290 | 12V
-          300:300” (kPa:L/h). dead_time_ms: one row per voltage, the same pressures in each, “12V
-          300:0.85 500:0.95 | 14V 300:0.65 500:0.72” (kPa:ms). Known SKUs change only in the columns
-          the file has (a blank cell clears that value); a cell our export began with{" "}
-          <span className="figure">{"'"}</span> to keep a spreadsheet from running it as a formula
-          is read without it.
+          <span className="figure">{CSV_COLUMNS.join(", ")}</span>. The file&apos;s units are always
+          these, whatever units you read the app in (it is a file format; the part form converts):
+          kPa, cc/min, L/h, kg/L, ms, A, mm, µm; yes/no for ethanol_ok. pump_curve: one curve per
+          voltage, “13.5V 300:340 500:290 | 12V 300:300” (kPa:L/h). dead_time_ms: one row per
+          voltage, the same pressures in each, “12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72”
+          (kPa:ms). Known SKUs change only in the columns the file has (a blank cell clears that
+          value); a cell our export began with <span className="figure">{"'"}</span> to keep a
+          spreadsheet from running it as a formula is read without it.
         </p>
         <input
           id="csv-file"

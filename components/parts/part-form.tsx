@@ -8,75 +8,85 @@ import { EditConflict } from "@/components/ui/edit-conflict";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
+import type { UnitSystem } from "@/lib/calc/units";
 import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 import { createPartAction, deletePartAction, updatePartAction } from "@/lib/parts/part-actions";
+import {
+  partCanonical,
+  partFieldMessage,
+  partHints,
+  partShown,
+  partUnit,
+} from "@/lib/parts/part-units";
 import { CSV_COLUMNS, flatOf, type FlatPart } from "@/lib/validations/parts";
 
 type StoredPart = Parameters<typeof flatOf>[0] & { version: number };
 
-/** The spec fields each category shows: [column, label, hint]. */
-const SPEC_FIELDS: Record<PartCategory, [keyof FlatPart, string, string?][]> = {
-  injector: [
-    ["flow_cc_min", "Rated flow (cc/min)"],
-    ["rated_kpa", "Rated at (kPa)", "300 kPa (43.5 psi) is the usual rating pressure"],
-    ["min_pulse_ms", "Minimum pulse width (ms)"],
-    ["impedance", "Impedance (high or low)"],
-    ["connector", "Connector"],
-    ["ethanol_ok", "Rated for ethanol (yes/no)"],
-    [
-      "test_fluid_kg_l",
-      "Rating fluid density (kg/L)",
-      "e.g. 0.684 for n-heptane; blank: rated with the fuel itself",
+/** The spec fields each category shows, in the viewer's units: [column, label, hint]. */
+function specFields(units: UnitSystem): Record<PartCategory, [keyof FlatPart, string, string?][]> {
+  const u = (k: Parameters<typeof partUnit>[0]) => partUnit(k, units);
+  const hint = partHints(units);
+  return {
+    injector: [
+      ["flow_cc_min", `Rated flow (${u("flow_cc_min")})`],
+      ["rated_kpa", `Rated at (${u("rated_kpa")})`, hint.rated_kpa],
+      ["min_pulse_ms", "Minimum pulse width (ms)"],
+      ["impedance", "Impedance (high or low)"],
+      ["connector", "Connector"],
+      ["ethanol_ok", "Rated for ethanol (yes/no)"],
+      ["test_fluid_kg_l", `Rating fluid density (${u("test_fluid_kg_l")})`, hint.test_fluid_kg_l],
+      ["dead_time_ms", "Dead time table", hint.dead_time_ms],
     ],
-    [
-      "dead_time_ms",
-      "Dead time table",
-      "e.g. 12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72 (kPa:ms); blank clears it",
+    pump: [
+      ["pump_curve", "Flow curve", hint.pump_curve],
+      ["current_a", "Current draw (A)"],
+      ["mounting", "Mounting (in-tank or inline)"],
+      ["ethanol_ok", "Rated for ethanol (yes/no)"],
     ],
-  ],
-  pump: [
-    ["pump_curve", "Flow curve", "e.g. 13.5V 300:340 500:290 | 12V 300:300 (kPa:L/h)"],
-    ["current_a", "Current draw (A)"],
-    ["mounting", "Mounting (in-tank or inline)"],
-    ["ethanol_ok", "Rated for ethanol (yes/no)"],
-  ],
-  regulator: [
-    ["regulator_type", "Type (boost-referenced or fixed)"],
-    ["min_kpa", "Lowest setting (kPa)"],
-    ["max_kpa", "Highest setting (kPa)"],
-    ["an_dash", "Port size (AN dash)"],
-  ],
-  line: [
-    ["an_dash", "AN dash size"],
-    ["inside_mm", "Inside diameter (mm)"],
-    ["material", "Material"],
-    ["ethanol_ok", "Rated for ethanol (yes/no)"],
-  ],
-  fitting: [["an_dash", "AN dash size"]],
-  filter: [
-    ["micron", "Rating (µm)"],
-    ["drop_kpa", "Pressure drop at rated flow (kPa)"],
-    ["an_dash", "Port size (AN dash)"],
-    ["ethanol_ok", "Rated for ethanol (yes/no)"],
-  ],
-  sensor: [],
-  other: [],
-};
+    regulator: [
+      ["regulator_type", "Type (boost-referenced or fixed)"],
+      ["min_kpa", `Lowest setting (${u("min_kpa")})`],
+      ["max_kpa", `Highest setting (${u("max_kpa")})`],
+      ["an_dash", "Port size (AN dash)"],
+    ],
+    line: [
+      ["an_dash", "AN dash size"],
+      ["inside_mm", `Inside diameter (${u("inside_mm")})`],
+      ["material", "Material"],
+      ["ethanol_ok", "Rated for ethanol (yes/no)"],
+    ],
+    fitting: [["an_dash", "AN dash size"]],
+    filter: [
+      ["micron", "Rating (µm)"],
+      ["drop_kpa", `Pressure drop at rated flow (${u("drop_kpa")})`],
+      ["an_dash", "Port size (AN dash)"],
+      ["ethanol_ok", "Rated for ethanol (yes/no)"],
+    ],
+    sensor: [],
+    other: [],
+  };
+}
 
 export function PartForm({
   id,
   version: loadedVersion,
   initial,
   canDelete,
+  units,
 }: {
   id?: string;
   /** The version the edit starts from (an existing part). */
   version?: number;
+  /** The part as stored: canonical text (the CSV's columns). */
   initial: FlatPart;
   canDelete: boolean;
+  /** The viewer's units: flows, pressures, sizes and tables are shown and typed in them. */
+  units: UnitSystem;
 }) {
   const router = useRouter();
-  const [values, setValues] = useState<FlatPart>(initial);
+  // What the form shows and holds: in the viewer's units; sent back canonical (partCanonical).
+  const [values, setValues] = useState<FlatPart>(() => partShown(initial, units));
+  const SPEC_FIELDS = specFields(units);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
@@ -109,7 +119,10 @@ export function PartForm({
     }
     setErrors(
       Object.fromEntries(
-        Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [path, msgs.join(" ")]),
+        Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [
+          path,
+          msgs.map((msg) => partFieldMessage(path, msg, units)).join(" "),
+        ]),
       ),
     );
     setStatus({ ok: false, message: res.message ?? "Not saved" });
@@ -123,9 +136,10 @@ export function PartForm({
   // only what it is given and writes nothing when nothing differs.
   const submit = (from = version) =>
     start(async () => {
+      const sent = partCanonical(values, initial, units);
       const res = id
-        ? await updatePartAction(initialActionState, { ...values, category, id, version: from })
-        : await createPartAction(initialActionState, { ...values, category });
+        ? await updatePartAction(initialActionState, { ...sent, category, id, version: from })
+        : await createPartAction(initialActionState, { ...sent, category });
       if (res.ok) {
         setErrors({});
         setConflict(null);
@@ -222,7 +236,7 @@ export function PartForm({
             rows={CSV_COLUMNS.map((c) => ({
               label: c,
               yours: (values[c] ?? "").trim(),
-              theirs: flatOf(conflict)[c] ?? "",
+              theirs: partShown(flatOf(conflict), units)[c] ?? "",
             }))}
             onOverwrite={() => {
               setVersion(conflict.version);

@@ -2,29 +2,63 @@
 
 import { useState } from "react";
 
-import { ethanolFromFlexSensorHz, volumeToAdd, VolumeToAddSchema } from "@/lib/calc";
+import {
+  converter,
+  ethanolFromFlexSensorHz,
+  fillTemplate,
+  formatValue,
+  volumeToAdd,
+  VolumeToAddSchema,
+  type UnitSystem,
+} from "@/lib/calc";
 
 import { NumInput, toNum } from "./num-input";
 
-export function BlendMixer() {
+/** Starting volumes a person would type in each system (20 L / 60 L; 5 gal / 16 gal). */
+const START_VOLUMES = {
+  metric: { tank: "20", capacity: "60" },
+  imperial: { tank: "5", capacity: "16" },
+} as const;
+
+export function BlendMixer({ units }: { units: UnitSystem }) {
   const [f, setF] = useState({
-    tankVolumeL: "20",
+    tankVolumeL: START_VOLUMES[units].tank,
     tankEthanolVolPct: "10",
     addedEthanolVolPct: "83",
     targetEthanolVolPct: "50",
-    tankCapacityL: "60",
+    tankCapacityL: START_VOLUMES[units].capacity,
     hz: "",
   });
+  const volume = converter("volume", units);
+  const volUnit = volume.unit;
+  /** A volume typed in the person's units, in litres (exactly: nothing here is stored). */
+  const litres = (s: string) => {
+    const n = toNum(s);
+    return n === undefined ? undefined : volume.from(n);
+  };
+  const vol = (l: number) => formatValue("volume", l, units);
   const set = (k: keyof typeof f) => (v: string) => setF((s) => ({ ...s, [k]: v }));
   const parsed = VolumeToAddSchema.safeParse({
-    tankVolumeL: toNum(f.tankVolumeL),
+    tankVolumeL: litres(f.tankVolumeL),
     tankEthanolVolPct: toNum(f.tankEthanolVolPct),
     addedEthanolVolPct: toNum(f.addedEthanolVolPct),
     targetEthanolVolPct: toNum(f.targetEthanolVolPct),
-    tankCapacityL: toNum(f.tankCapacityL),
+    tankCapacityL: litres(f.tankCapacityL),
   });
-  const err = (k: string) =>
-    parsed.success ? undefined : parsed.error.issues.find((i) => i.path[0] === k)?.message;
+  const err = (k: string) => {
+    if (parsed.success) return undefined;
+    const issue = parsed.error.issues.find((i) => i.path[0] === k);
+    if (!issue) return undefined;
+    // The schema's bounds are in litres; volumes are said in the person's units.
+    if (k === "tankVolumeL" || k === "tankCapacityL") {
+      const what = k === "tankVolumeL" ? "Fuel in the tank" : "Tank capacity";
+      const min = k === "tankVolumeL" ? 0 : 0.1;
+      return toNum(f[k]) === undefined
+        ? `Enter ${what.toLowerCase()}`
+        : `${what} must be between ${vol(min)} and ${vol(100000)}`;
+    }
+    return issue.message;
+  };
   const result = parsed.success ? volumeToAdd(parsed.data) : null;
   const hz = toNum(f.hz);
   const sensor =
@@ -45,7 +79,7 @@ export function BlendMixer() {
         <NumInput
           id="mx-v"
           label="Fuel in the tank"
-          unit="L"
+          unit={volUnit}
           value={f.tankVolumeL}
           onChange={set("tankVolumeL")}
           error={err("tankVolumeL")}
@@ -77,7 +111,7 @@ export function BlendMixer() {
         <NumInput
           id="mx-c"
           label="Tank capacity"
-          unit="L"
+          unit={volUnit}
           value={f.tankCapacityL}
           onChange={set("tankCapacityL")}
           error={err("tankCapacityL")}
@@ -88,14 +122,17 @@ export function BlendMixer() {
           <p className="text-ink-600">Fill in the fields to see the answer.</p>
         ) : result.ok ? (
           <p className="figure text-2xl font-bold" data-testid="mix-result">
-            Add {result.volumeL.toFixed(1)} L{" "}
+            Add {vol(result.volumeL)}{" "}
             <span className="text-base font-normal text-ink-600">
-              → {result.finalVolumeL.toFixed(1)} L in the tank
+              → {vol(result.finalVolumeL)} in the tank
             </span>
           </p>
         ) : (
           <p className="font-medium text-caution-700" data-testid="mix-result">
-            ▲ {result.message}
+            ▲{" "}
+            {result.template
+              ? fillTemplate(result.template, result.figures, units)
+              : result.message}
           </p>
         )}
         <p className="mt-2 text-xs text-ink-500">

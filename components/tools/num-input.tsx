@@ -11,6 +11,7 @@ export function NumInput({
   value,
   onChange,
   error,
+  placeholder,
 }: {
   id: string;
   label: string;
@@ -18,6 +19,7 @@ export function NumInput({
   value: string;
   onChange: (v: string) => void;
   error?: string;
+  placeholder?: string;
 }) {
   return (
     <UnitNumberField
@@ -26,6 +28,7 @@ export function NumInput({
       unit={unit}
       error={error}
       value={value}
+      placeholder={placeholder}
       onChange={(e) => onChange(e.target.value)}
     />
   );

@@ -1,5 +1,6 @@
 // Reference: docs/calculations.md §1.
 import { CalcInputError, requireRange } from "./_lib/input-error";
+import type { FigureParams } from "./quantities";
 
 export interface FuelVolume {
   volumeL: number;
@@ -46,6 +47,9 @@ export type VolumeToAddResult =
       ok: false;
       code: "target-unreachable" | "overflow" | "tank-over-capacity";
       message: string;
+      /** The message with `{name}` places for its volumes, said in the reader's units. */
+      template?: string;
+      figures?: FigureParams;
       drainL?: number;
       thenAddL?: number;
     };
@@ -89,6 +93,8 @@ export function volumeToAdd(q: VolumeToAddQuery): VolumeToAddResult {
       ok: false,
       code: "tank-over-capacity",
       message: `The tank holds at most ${fmtL(cap)}, less than the ${fmtL(V)} said to be in it`,
+      template: "The tank holds at most {cap}, less than the {tank} said to be in it",
+      figures: { cap: { value: cap, quantity: "volume" }, tank: { value: V, quantity: "volume" } },
     };
   }
   if (Math.abs(t - a) < EPS || V === 0) {
@@ -120,6 +126,13 @@ export function volumeToAdd(q: VolumeToAddQuery): VolumeToAddResult {
       ok: false,
       code: "overflow",
       message: `Adding ${fmtL(x)} would overflow the ${fmtL(cap)} tank. Drain ${fmtL(drain)} first, then add ${fmtL(add)} of ${fmtE(b)} to reach ${fmtE(t)} with a full tank.`,
+      template: `Adding {add} would overflow the {cap} tank. Drain {drain} first, then add {then} of ${fmtE(b)} to reach ${fmtE(t)} with a full tank.`,
+      figures: {
+        add: { value: x, quantity: "volume" },
+        cap: { value: cap, quantity: "volume" },
+        drain: { value: drain, quantity: "volume" },
+        then: { value: add, quantity: "volume" },
+      },
       drainL: drain,
       thenAddL: add,
     };

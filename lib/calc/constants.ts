@@ -11,6 +11,8 @@ export const KG_PER_LB = 0.45359237;
 export const L_PER_US_GAL = 3.785411784;
 /** 1 in = 25.4 mm exactly (NIST SP 811). */
 export const MM_PER_IN = 25.4;
+/** 1 cubic inch = 16.387064 cm³ = 0.016387064 L exactly (NIST SP 811 B.8: (2.54 cm)³). */
+export const L_PER_CU_IN = (MM_PER_IN / 100) ** 3;
 /** 1 ft = 0.3048 m exactly (NIST SP 811). */
 export const M_PER_FT = 0.3048;
 /** Standard acceleration of gravity, 9.80665 m/s² exactly (NIST SP 811; CGPM 1901). */

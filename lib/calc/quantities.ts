@@ -3,6 +3,7 @@ import {
   celsiusFromFahrenheit,
   fahrenheitFromCelsius,
   KG_PER_LB,
+  L_PER_CU_IN,
   L_PER_US_GAL,
   M_PER_FT,
   MM_PER_IN,
@@ -52,10 +53,13 @@ export type Quantity =
   | "temperature"
   | "density"
   | "velocity"
-  /** Engine displacement, L (the trade quotes litres in both systems). */
+  /** Engine displacement, L (cu in in imperial, as a US shop reads an engine's size). */
   | "displacement"
   | "volume"
-  /** Air or fuel per cylinder, mg (ECUs work in mg in both systems). */
+  /**
+   * Air or fuel per cylinder or per injection, mg in both systems: ECUs and tuning software
+   * work in mg per injection in the US too, so imperial keeps it (and every label says "mg").
+   */
   | "mass"
   | "voltage"
   | "current"
@@ -241,7 +245,17 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     metric: metric("m/s", 2),
     imperial: { unit: "ft/s", decimals: 1, to: (x) => x / M_PER_FT, from: (x) => x * M_PER_FT },
   },
-  displacement: { name: "displacement", canonical: "L", ...same({ unit: "L", decimals: 1 }) },
+  displacement: {
+    name: "displacement",
+    canonical: "L",
+    metric: metric("L", 1),
+    imperial: {
+      unit: "cu in",
+      decimals: 0,
+      to: (x) => x / L_PER_CU_IN,
+      from: (x) => x * L_PER_CU_IN,
+    },
+  },
   volume: {
     name: "volume",
     canonical: "L",
@@ -403,4 +417,34 @@ export function fillTemplate(
     const f = params[name];
     return f ? formatValue(f.quantity, f.value, system, f.decimals) : whole;
   });
+}
+
+/**
+ * A number typed in a unit system, back in canonical units. A shown value nobody changed (equal
+ * to `original` as shown) is the exact original, so a form saved unchanged writes what it
+ * loaded; anything else keeps one digit more than metric shows (0.437 in is 11.1 mm, not
+ * 11.0998), so a unit switch never drifts a value.
+ */
+export function fromShown(
+  q: Quantity,
+  shown: number,
+  system: UnitSystem,
+  original?: number | null,
+): number {
+  if (typeof original === "number" && toShown(q, original, system) === shown) return original;
+  const c = QUANTITIES[q][system];
+  const m = QUANTITIES[q].metric;
+  if (c.from === m.from) return shown;
+  const d = m.decimals + 1;
+  return Math.round(c.from(shown) * 10 ** d) / 10 ** d;
+}
+
+/** A canonical value as a form field shows it: converted and rounded ("" for no value). */
+export function shownText(
+  q: Quantity,
+  canonical: number | null | undefined,
+  system: UnitSystem,
+): string {
+  if (typeof canonical !== "number" || !Number.isFinite(canonical)) return "";
+  return String(toShown(q, canonical, system));
 }

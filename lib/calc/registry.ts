@@ -13,7 +13,14 @@ import {
   MEASURED_AT_LABELS,
   REGULATOR_LABELS,
 } from "./code-labels";
-import { converter, formatValue, QUANTITIES, toShown, type Quantity } from "./quantities";
+import {
+  converter,
+  formatValue,
+  fromShown,
+  QUANTITIES,
+  toShown,
+  type Quantity,
+} from "./quantities";
 import { ASPIRATIONS, FuelSystemInputSchema, REGULATOR_TYPES } from "./schema";
 import type { UnitSystem } from "./units";
 
@@ -632,10 +639,7 @@ export function convertInputs<T>(
     const c = converter(q, system);
     if (c.to === converter(q, "metric").to) return v;
     if (direction === "toShown") return toShown(q, v, system);
-    if (typeof orig === "number" && toShown(q, orig, system) === v) return orig;
-    // Canonical values keep one digit more than metric shows: 0.437 in is 11.1 mm, not 11.0998.
-    const d = converter(q, "metric").decimals + 1;
-    return Math.round(c.from(v) * 10 ** d) / 10 ** d;
+    return fromShown(q, v, system, typeof orig === "number" ? orig : undefined);
   };
   return walk(value, "", original) as T;
 }

@@ -1,4 +1,16 @@
+import type { z } from "zod";
+
 import type { ShopSettings } from "@/db/schema";
+import { fromShown, shownText } from "@/lib/calc/quantities";
+import type { UnitSystem } from "@/lib/calc/units";
+import {
+  SHOWN_SETTINGS,
+  type ShopSettingsFormInput,
+  type ShopSettingsSchema,
+  type ShownSetting,
+} from "@/lib/validations/settings";
+
+type ShopSettingsInput = z.output<typeof ShopSettingsSchema>;
 
 /** The shop's settings by the names the form and the API use (money in major units, rates in %). */
 export type ShopSettingsView = ReturnType<typeof shopSettingsView>;
@@ -35,4 +47,39 @@ export function shopSettingsView(name: string, s: ShopSettings) {
     quoteValidDays: s.quoteValidDays,
     updatedAt: s.updatedAt.toISOString(),
   };
+}
+
+/**
+ * The settings as the form's text fields hold them, in the viewer's units (BSFC, line drop and
+ * densities converted and rounded to the registry's precision; blank: no value, the library's).
+ */
+export function settingsFormValues(
+  v: ShopSettingsView,
+  system: UnitSystem,
+): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [k, x] of Object.entries(v)) out[k] = x === null || x === undefined ? "" : String(x);
+  for (const [k, s] of Object.entries(SHOWN_SETTINGS))
+    out[k] = shownText(s.quantity, v[k as ShownSetting], system);
+  out.shownUnits = system;
+  return out;
+}
+
+/**
+ * The form's settings in canonical units. A field shown in other units converts back; one the
+ * person left as it was shown keeps the stored value exactly (so an unchanged save writes
+ * nothing); blank stays blank (the library's).
+ */
+export function settingsFromShown(
+  input: ShopSettingsFormInput,
+  current: Pick<ShopSettingsView, ShownSetting>,
+): ShopSettingsInput {
+  const { shownUnits, ...rest } = input;
+  const out: Record<string, unknown> = { ...rest };
+  for (const [k, s] of Object.entries(SHOWN_SETTINGS)) {
+    const v = input[k as ShownSetting];
+    if (typeof v === "number")
+      out[k] = fromShown(s.quantity, v, shownUnits, current[k as ShownSetting]);
+  }
+  return out as ShopSettingsInput;
 }

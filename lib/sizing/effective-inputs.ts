@@ -136,7 +136,13 @@ export function sizingSettingsOf(s: ShopSizingColumns): SizingSettings {
  *
  * @example effectiveInputs(shop, build).limits?.designDutyPct // 75 when the shop says 75 and the build says nothing
  */
-export function effectiveInputs(settings: SizingSettings, build: FuelSystemInput): FuelSystemInput {
+/** The parts of a build the shop's settings speak for (a quick tool passes only these). */
+export type SettingsBearingInputs = Pick<FuelSystemInput, "target" | "fuel" | "limits">;
+
+export function effectiveInputs<B extends SettingsBearingInputs>(
+  settings: SizingSettings,
+  build: B,
+): B {
   const driveType = build.target.driveType ?? DEFAULT_DRIVE_TYPE;
   const own = build.fuel.properties;
   const gasoline = { ...settings.fuel.gasoline, ...given({ ...own?.gasoline }) };

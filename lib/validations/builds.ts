@@ -3,6 +3,7 @@ import { z } from "zod";
 import { FuelSystemInputSchema, numberFromField } from "@/lib/calc";
 import { converter } from "@/lib/calc/quantities";
 import { ASPIRATIONS } from "@/lib/calc/schema";
+import type { UnitSystem } from "@/lib/calc/units";
 import { BUILD_STATUSES, FUEL_CHOICES } from "@/lib/domain/builds";
 
 import { versionNumber, versionParam } from "./column-bounds";
@@ -119,9 +120,38 @@ const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefi
 const formText = (max: number, label: string) =>
   z.preprocess(blank, z.string().trim().max(max, `${label} is too long`).optional());
 
+/** The goal's canonical bounds (L, kW): BuildGoalSchema's, the sizing schema's. */
+const GOAL_BOUNDS = { displacement: [0.1, 20], power: [1, 5000] } as const;
+
 /**
- * The new-build page's form: flat fields named as the form names them (the power in the
- * person's units, named by `units`; `vehicleId` "new" takes the `vehicle.*` fields), each
+ * The goal's bounds (lib/calc/schema.ts) as the person's units state them, rounded inwards to
+ * the quantity's precision so every number said to be inside is (0.1–20 L: 7–1220 cu in).
+ */
+function goalBounds(q: "displacement" | "power", min: number, max: number, units: UnitSystem) {
+  const c = converter(q, units);
+  const k = 10 ** c.decimals;
+  const low = Math.ceil(c.to(min) * k - 1e-9) / k;
+  const high = Math.floor(c.to(max) * k + 1e-9) / k;
+  return `between ${low} and ${high} ${c.unit}`;
+}
+
+/** A number typed in the form (in the person's units), checked only for being one above zero. */
+const formGoalNumber = (label: string) =>
+  z.preprocess(
+    asNumber,
+    z
+      .number({
+        error: (iss) =>
+          iss.input === undefined
+            ? `Enter the ${label.toLowerCase()}`
+            : `${label} must be a number`,
+      })
+      .positive(`${label} must be above zero`),
+  );
+
+/**
+ * The new-build page's form: flat fields named as the form names them (displacement and power in
+ * the person's units, named by `units`; `vehicleId` "new" takes the `vehicle.*` fields), each
  * checked under its own name, then put into BuildDraftSchema's shape for the command.
  */
 export const BuildDraftFormSchema = z
@@ -133,18 +163,10 @@ export const BuildDraftFormSchema = z
     ),
     title: formText(120, "Title"),
     units: z.enum(["metric", "imperial"], { error: "Unknown units" }).default("metric"),
-    displacementL: BuildGoalSchema.shape.displacementL,
+    displacement: formGoalNumber("Displacement"),
     cylinders: BuildGoalSchema.shape.cylinders,
     aspiration: BuildGoalSchema.shape.aspiration,
-    power: z.preprocess(
-      asNumber,
-      z
-        .number({
-          error: (iss) =>
-            iss.input === undefined ? "Enter the power goal" : "Power goal must be a number",
-        })
-        .positive("Power goal must be above zero"),
-    ),
+    power: formGoalNumber("Power goal"),
     measuredAt: BuildGoalSchema.shape.measuredAt,
     fuel: BuildGoalSchema.shape.fuel,
     "vehicle.year": z.preprocess(blank, z.unknown().optional()),
@@ -153,23 +175,54 @@ export const BuildDraftFormSchema = z
     "vehicle.engine": formText(120, "Engine"),
     "vehicle.vin": formText(40, "VIN"),
   })
+  // The figures' bounds, in the person's units, beside the other fields' errors (not only once
+  // every other field is right).
+  .superRefine(
+    (f, ctx) => {
+      const units = f.units === "imperial" ? "imperial" : "metric";
+      for (const [key, q, label] of [
+        ["displacement", "displacement", "Displacement"],
+        ["power", "power", "Power goal"],
+      ] as const) {
+        const v = f[key];
+        if (typeof v !== "number") continue;
+        const [min, max] = GOAL_BOUNDS[q];
+        const canonical = converter(q, units).from(v);
+        if (!(canonical >= min && canonical <= max))
+          ctx.addIssue({
+            code: "custom",
+            path: [key],
+            message: `${label} must be ${goalBounds(q, min, max, units)}`,
+          });
+      }
+    },
+    { when: (p) => typeof p.value === "object" && p.value !== null },
+  )
   .transform((f, ctx) => {
-    const powerKw = converter("power", f.units).from(f.power);
     const goal = BuildGoalSchema.safeParse({
-      displacementL: f.displacementL,
+      displacementL: converter("displacement", f.units).from(f.displacement),
       cylinders: f.cylinders,
       aspiration: f.aspiration,
-      powerKw,
+      powerKw: converter("power", f.units).from(f.power),
       measuredAt: f.measuredAt,
       fuel: f.fuel,
     });
-    // Only the power can fail here: its bounds are the schema's, in kW.
+    // Only the two converted figures can fail here: their bounds are the schema's (L, kW),
+    // said in the person's units.
     if (!goal.success) {
-      ctx.addIssue({
-        code: "custom",
-        path: ["power"],
-        message: "Power goal must be between 1 and 5000 kW (about 1.3 to 6700 hp)",
-      });
+      const failed = new Set(goal.error.issues.map((i) => String(i.path[0])));
+      if (failed.has("displacementL"))
+        ctx.addIssue({
+          code: "custom",
+          path: ["displacement"],
+          message: `Displacement must be ${goalBounds("displacement", ...GOAL_BOUNDS.displacement, f.units)}`,
+        });
+      if (failed.has("powerKw"))
+        ctx.addIssue({
+          code: "custom",
+          path: ["power"],
+          message: `Power goal must be ${goalBounds("power", ...GOAL_BOUNDS.power, f.units)}`,
+        });
       return z.NEVER;
     }
     let newVehicle: z.output<typeof VehicleSchema> | undefined;

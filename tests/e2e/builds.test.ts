@@ -250,20 +250,43 @@ describe("build sheets", () => {
     await ctx.close();
   });
 
-  it("the blend mixer answers a worked case", async () => {
+  it("the blend mixer answers a worked case in the counter's units", async () => {
+    // The counter's own units, else the shop's (the demo shop's are imperial: db/seed.ts).
+    const [who] = await sql`select coalesce(u.unit_system, s.units) as units
+      from "user" u join member m on m.user_id = u.id
+      join shop_settings s on s.shop_id = m.organization_id
+      where u.email = 'counter@demo.fuelwright.test'`;
+    const imperial = who!.units === "imperial";
     const ctx = await newClient(browser);
     const page = await ctx.newPage();
     await signInAs(page, "counter");
     await page.goto("/tools");
-    // By hand: 20 L of E10 to E50 with E85: 20·40/35 = 22.9 L.
-    await page.getByLabel("Fuel in the tank (L)").fill("20");
+    const vol = imperial ? "gal" : "L";
+    // Volumes are typed and answered in the reader's units, the other system's nowhere.
+    expect(await page.getByLabel(`Fuel in the tank (${imperial ? "L" : "gal"})`).count()).toBe(0);
+    // By hand: V of E10 to E50 with E85 needs V·(50 − 10)/(85 − 50) = V·40/35 (volumes add:
+    // common practice, no source): 20 L → 22.9 L; 5 gal → 5.71 gal.
+    await page.getByLabel(`Fuel in the tank (${vol})`).fill(imperial ? "5" : "20");
     await page.getByLabel("Its ethanol content (%)").fill("10");
     await page.getByLabel("Ethanol content of the fuel added (%)").fill("85");
     await page.getByLabel("Target (%)").fill("50");
-    await page.getByLabel("Tank capacity (L)").fill("60");
-    await expect.poll(() => page.getByTestId("mix-result").innerText()).toContain("Add 22.9 L");
-    await page.getByLabel("Tank capacity (L)").fill("30");
-    await expect.poll(() => page.getByTestId("mix-result").innerText()).toMatch(/Drain .* first/);
+    await page.getByLabel(`Tank capacity (${vol})`).fill(imperial ? "16" : "60");
+    await expect
+      .poll(() => page.getByTestId("mix-result").innerText())
+      .toMatch(
+        imperial
+          ? /Add 5\.71 gal\s*→ 10\.71 gal in the tank/
+          : /Add 22\.9 L\s*→ 42\.9 L in the tank/,
+      );
+    // A tank too small for that: drain first, said in the same units.
+    await page.getByLabel(`Tank capacity (${vol})`).fill(imperial ? "8" : "30");
+    await expect
+      .poll(() => page.getByTestId("mix-result").innerText())
+      .toMatch(
+        imperial
+          ? /overflow the 8\.00 gal tank\. Drain [\d.]+ gal first/
+          : /overflow the 30\.0 L tank\. Drain [\d.]+ L first/,
+      );
     await ctx.close();
   });
 });

@@ -65,14 +65,26 @@ describe("the counter takes a caller's goal", () => {
     await expect
       .poll(() => page.getByLabel("Vehicle", { exact: true }).inputValue())
       .not.toBe("new");
-    await page.getByLabel("Displacement (L)").fill("2.2");
-    await page.getByLabel("Cylinders").fill("4");
-    await page.getByLabel("Aspiration").selectOption({ label: "Turbocharged" });
-    // The goal in the counter's own units (hp in the demo shop, kW for one who chose metric).
+    // The goal in the counter's own units (hp and cu in in the demo shop, kW and L for one who
+    // chose metric).
     const powerField = page.getByLabel(/^Power goal \((hp|kW)\)$/);
     const unit = (await page.locator('label[for="f-power"]').innerText()).includes("hp")
       ? "hp"
       : "kW";
+    const displacement = page.getByLabel(`Displacement (${unit === "hp" ? "cu in" : "L"})`);
+    // An imperial reader typing litres is told the bounds in cubic inches (0.1–20 L =
+    // 6.1–1220.5 cu in, 1 in³ = 16.387064 cm³, NIST SP 811 B.8; rounded inwards).
+    if (unit === "hp") {
+      await displacement.fill("2.2");
+      await page.getByRole("button", { name: "Start the build" }).click();
+      await expect
+        .poll(() => page.getByText("Displacement must be between 7 and 1220 cu in").count())
+        .toBeGreaterThan(0);
+    }
+    // 2.2 L = 134.25 cu in.
+    await displacement.fill(unit === "hp" ? "134" : "2.2");
+    await page.getByLabel("Cylinders").fill("4");
+    await page.getByLabel("Aspiration").selectOption({ label: "Turbocharged" });
     await powerField.fill("");
     await page.getByRole("button", { name: "Start the build" }).click();
     await expect.poll(() => page.getByText("Enter the power goal").count()).toBeGreaterThan(0);
@@ -101,6 +113,8 @@ describe("the counter takes a caller's goal", () => {
     expect(row!.vehicle_id).toBeTruthy();
     // 350 hp = 261 kW (1 hp = 745.699872 W, NIST SP 811 B.8).
     expect(row!.inputs.target.powerKw).toBeCloseTo(261, 0);
+    // 134 cu in = 2.196 L.
+    expect(row!.inputs.engine.displacementL).toBeCloseTo(unit === "hp" ? 2.196 : 2.2, 3);
 
     // The tuner finds it in the queue on their landing page and sizes it.
     const tctx = await newClient(browser);

@@ -108,6 +108,102 @@ describe("parts counter", () => {
     await ctx.close();
   });
 
+  it("the part editor shows and takes flows, pressures and tables in the reader's units; an unchanged save writes nothing", async () => {
+    const tag = `E2U${Date.now().toString(36).toUpperCase()}`;
+    // Invented figures (inputs, not check values).
+    const specs = {
+      ratedFlowCcPerMin: 1000,
+      ratedPressureKpa: 300,
+      ethanolOk: true,
+      ratingFluidDensityKgPerL: 0.684,
+      deadTime: {
+        voltages: [12, 14],
+        pressuresKpa: [300, 500],
+        deadTimeMs: [
+          [1.1, 1.2],
+          [0.85, 0.95],
+        ],
+      },
+    };
+    const [part] =
+      await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, stock, specs)
+        values ('demo-shop-ridgeback', ${`${tag}-1`}, 'injector', 'Testbrand', 'Units test injector', 9900, 5, ${sql.json(specs)})
+        returning id`;
+    // The counter's own units, else the shop's (the demo shop's are imperial: db/seed.ts).
+    const [who] = await sql`select coalesce(u.unit_system, s.units) as units
+      from "user" u join member m on m.user_id = u.id
+      join shop_settings s on s.shop_id = m.organization_id
+      where u.email = 'counter@demo.fuelwright.test'`;
+    const imp = who!.units === "imperial";
+    const rowText = async () =>
+      (await sql`select p::text as t from parts p where id = ${part!.id}`)[0]!.t as string;
+    const before = await rowText();
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "counter");
+    await page.goto(`/parts/${part!.id}`);
+    // 1000 cc/min of the 0.72 kg/L rating fluid = 95.2 lb/h (registry); 300 kPa = 43.5 psi,
+    // 500 kPa = 72.5 psi (NIST SP 811 B.8); 0.684 kg/L = 5.71 lb/gal.
+    const flow = page.getByLabel(`Rated flow (${imp ? "lb/h" : "cc/min"})`);
+    await expect.poll(() => flow.inputValue()).toBe(imp ? "95.2" : "1000");
+    expect(await page.getByLabel(`Rated at (${imp ? "psi" : "kPa"})`).inputValue()).toBe(
+      imp ? "43.5" : "300",
+    );
+    expect(
+      await page.getByLabel(`Rating fluid density (${imp ? "lb/gal" : "kg/L"})`).inputValue(),
+    ).toBe(imp ? "5.71" : "0.684");
+    expect(await page.getByLabel("Dead time table").inputValue()).toBe(
+      imp
+        ? "12V 43.5:1.1 72.5:1.2 | 14V 43.5:0.85 72.5:0.95"
+        : "12V 300:1.1 500:1.2 | 14V 300:0.85 500:0.95",
+    );
+    expect(await page.locator("main").innerText()).toContain(imp ? "(psi:ms)" : "(kPa:ms)");
+    // Saved as loaded: the row stays byte for byte (no version, no updated_at).
+    await page.getByRole("button", { name: "Save part" }).click();
+    await page.waitForURL(/\/parts$/);
+    expect(await rowText()).toBe(before);
+
+    // Out of bounds: said in the reader's units (20–10000 cc/min = 1.9–952.4 lb/h).
+    await page.goto(`/parts/${part!.id}`);
+    await expect.poll(() => flow.inputValue()).not.toBe("");
+    await flow.fill(imp ? "2000" : "20000");
+    await page.getByRole("button", { name: "Save part" }).click();
+    await expect
+      .poll(() => page.getByText(/Rated flow must be a number between/).count())
+      .toBeGreaterThan(0);
+    expect(
+      await page
+        .getByText(/Rated flow must be a number between/)
+        .first()
+        .innerText(),
+    ).toContain(imp ? "between 1.9 and 952.4 lb/h" : "between 20 and 10000 cc/min");
+    // Typed in the reader's units, stored canonical: 100 lb/h = 1050.0 cc/min at 0.72 kg/L; the
+    // table's pressure cells left as shown keep their exact kPa, the edited dead time changes.
+    await flow.fill(imp ? "100" : "1050");
+    await page
+      .getByLabel("Dead time table")
+      .fill(
+        imp
+          ? "12V 43.5:1.1 72.5:1.25 | 14V 43.5:0.85 72.5:0.95"
+          : "12V 300:1.1 500:1.25 | 14V 300:0.85 500:0.95",
+      );
+    await page.getByRole("button", { name: "Save part" }).click();
+    await page.waitForURL(/\/parts$/);
+    const [saved] = await sql`select specs from parts where id = ${part!.id}`;
+    expect(saved!.specs.ratedFlowCcPerMin).toBeCloseTo(1050, 0);
+    expect(saved!.specs.ratedPressureKpa).toBe(300);
+    expect(saved!.specs.ratingFluidDensityKgPerL).toBe(0.684);
+    expect(saved!.specs.deadTime).toEqual({
+      voltages: [12, 14],
+      pressuresKpa: [300, 500],
+      deadTimeMs: [
+        [1.1, 1.25],
+        [0.85, 0.95],
+      ],
+    });
+    await ctx.close();
+  });
+
   it("the quote editor saves through its server action and says so when someone else saved first", async () => {
     const api = await signIn("counter@demo.fuelwright.test");
     const created = await request(api, "POST", "/api/v1/quotes", {

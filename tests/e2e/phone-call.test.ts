@@ -70,11 +70,12 @@ describe("the phone call: from a new caller to a quote in their inbox", () => {
     await you.fill(page.getByLabel("Year"), "2011");
     await you.fill(page.getByLabel("Make"), "Harrow");
     await you.fill(page.getByLabel("Model"), "GT Wagon");
-    await you.fill(page.getByLabel("Displacement (L)"), "3.0");
-    await you.fill(page.getByLabel("Cylinders"), "6");
-    await you.pick(page.getByLabel("Aspiration"), "Turbocharged");
     const power = page.getByLabel(/^Power goal \((hp|kW)\)$/);
     const hp = (await page.locator('label[for="f-power"]').innerText()).includes("hp");
+    // The counter's units: 3.0 L = 183 cu in (1 in³ = 16.387064 cm³, NIST SP 811 B.8).
+    await you.fill(page.getByLabel(`Displacement (${hp ? "cu in" : "L"})`), hp ? "183" : "3.0");
+    await you.fill(page.getByLabel("Cylinders"), "6");
+    await you.pick(page.getByLabel("Aspiration"), "Turbocharged");
     // 450 hp ≈ 336 kW (1 hp = 745.699872 W, NIST SP 811 B.8).
     await you.fill(power, hp ? "450" : "336");
     await you.pick(page.getByLabel("Fuel"), "E85 (51–83 % ethanol)");

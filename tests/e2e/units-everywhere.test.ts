@@ -16,9 +16,9 @@ afterAll(async () => {
  * A figure in a unit of one system only: a number, then the unit. "m" and "in" count only after a
  * number, being words too. The same lists as tests/unit/registry.test.ts.
  */
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F)(?![\w/])/;
 /**
  * An internal field path or code where a label belongs: camelCase names (units such as kPa are not), "›" paths, and a code
  * standing alone in a table cell (the words themselves appear in sentences).
@@ -122,8 +122,20 @@ describe("every figure in the reader's units", () => {
         .poll(() => page.getByTestId("working").locator("li").count())
         .toBeGreaterThan(10);
       pages.push(["build sheet", await mainText(page)]);
+      // Chart ticks: the number, a space, the unit ("55 gal/h", never "55gal/h").
+      const ticks = page.locator(".recharts-cartesian-axis-tick-value");
+      await expect.poll(() => ticks.count(), { timeout: 15000 }).toBeGreaterThan(10);
+      const tickTexts = await ticks.allTextContents();
+      const flow = system === "imperial" ? "gal/h" : "L/h";
+      expect(tickTexts.filter((t) => t.endsWith(flow)).length).toBeGreaterThan(1);
+      expect(tickTexts.filter((t) => /\d[^\d.\s]/.test(t))).toEqual([]);
       expect(await page.getByTestId("warnings").innerText()).toMatch(own);
       expect(await page.getByTestId("working").innerText()).toMatch(own);
+      // The engine's size as the reader's trade says it (cu in; L in metric) …
+      const displacement = system === "imperial" ? "Displacement (cu in)" : "Displacement (L)";
+      expect(await page.getByLabel(displacement, { exact: true }).count()).toBe(1);
+      // … and fuel per injection in mg in both systems (as ECUs take it), said so each time.
+      expect(await page.getByTestId("working").innerText()).toMatch(/fuel per injection [\d.]+ mg/);
       await page.goto(`${url}/revisions/2`);
       pages.push(["revision 2", await mainText(page)]);
       await page.goto(`${url}/compare?from=1&to=2`);
@@ -164,5 +176,7 @@ describe("every figure in the reader's units", () => {
     await read("metric");
     await switchTo(wasImperial ? "imperial" : "metric"); // leave the demo tuner's units as found
     await ctx.close();
-  });
+    // One walk of eight pages and two spec sheets, in both systems: about two minutes on a
+    // loaded test machine (each poll keeps its own 10 s limit).
+  }, 240_000);
 });

@@ -347,7 +347,7 @@ export const ACTIONS: Record<string, ActionCell> = {
         customerId: f.customer,
         vehicleId: f.vehicle,
         units: "metric",
-        displacementL: "2.0",
+        displacement: "2.0",
         cylinders: "4",
         aspiration: "turbo",
         power: "250",

@@ -16,6 +16,7 @@ import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/htt
 import { inspectPdf } from "../helpers/pdf";
 
 const BUILD = "10000000-0000-4000-8000-000000000002"; // demo turbo six on E85 (db/seed.ts)
+const DEMO_SHOP = "demo-shop-ridgeback"; // Ridgeback Fuel & Dyno (db/seed.ts)
 let tuner: Client, counter: Client, customer: Client, outsider: Client;
 beforeAll(async () => {
   const other = await makeOtherShop();
@@ -295,7 +296,20 @@ describe("the shop learns its own BSFC from verified builds", () => {
       ).text()
     ).replace(/<!-- -->/g, "");
     expect(settings).toContain("Measured BSFC from verified builds");
-    expect(settings).toContain(`${Math.round(row.meanGPerKwh)} g/kWh`);
+    // In the reader's units (the counter's own choice, else the shop's; the demo shop's is
+    // imperial): a metric reader sees g/kWh, an imperial one lb/hp/h (1 lb/(hp·h) = 608.28 g/kWh,
+    // calc-spec §2), never the other.
+    const [who] = await sql`select coalesce(u.unit_system, s.units) as units
+      from "user" u, shop_settings s
+      where u.email = 'counter@demo.fuelwright.test' and s.shop_id = ${DEMO_SHOP}`;
+    const table = /Measured BSFC from verified builds[\s\S]*?<\/table>/.exec(settings)![0];
+    if (who!.units === "imperial") {
+      expect(table).toContain(`${(row.meanGPerKwh / 608.277).toFixed(3)} lb/hp/h`);
+      expect(table).not.toMatch(/\d g\/kWh/);
+    } else {
+      expect(table).toContain(`${Math.round(row.meanGPerKwh)} g/kWh`);
+      expect(table).not.toMatch(/lb\/hp\/h/);
+    }
     // A build moved back to draft stops counting.
     const cur = await request(tuner, "GET", `/api/v1/builds/${a}`);
     expect(

@@ -361,24 +361,37 @@ describe("load → save unchanged → the stored row is byte for byte the same",
     }
   });
 
-  it("shop settings, through the settings form as the page fills it", async () => {
-    const page = await request(other, "GET", "/settings");
-    expect(page.status).toBe(200);
-    const form = formValuesIn(page.text, Object.keys(SEED_SETTINGS_FORM));
-    expect(Object.keys(form).sort()).toEqual(Object.keys(SEED_SETTINGS_FORM).sort());
+  it("shop settings, through the settings form as the page fills it, in both unit systems", async () => {
+    const names = [
+      ...Object.keys(SEED_SETTINGS_FORM),
+      "shownUnits",
+      "gasolineDensityKgPerL",
+      "ethanolDensityKgPerL",
+    ];
     const settingsRow = () => rowText("shop_settings", otherShop.shopId, "shop_id");
     const orgRow = () => rowText("organization", otherShop.shopId);
-    // A BSFC with a fraction (the page once rounded it, so an unchanged save changed it).
-    await sql`update shop_settings set bsfc_e85_na = 426.5 where shop_id = ${otherShop.shopId}`;
-    const filled = formValuesIn(
-      (await request(other, "GET", "/settings")).text,
-      Object.keys(SEED_SETTINGS_FORM),
-    );
-    expect(filled.bsfcE85Na).toBe("426.5");
-    const before = [await settingsRow(), await orgRow()];
-    const saveRef = ref("app/(shop)/settings/actions.ts", "updateSettingsAction", "/settings");
-    expect(await act(other, saveRef, formOf(filled))).toMatchObject({ ok: true });
-    expect([await settingsRow(), await orgRow()]).toEqual(before);
+    // Figures with more digits than the form shows (the page once rounded a BSFC, so an unchanged
+    // save changed it; a unit round trip could drift any of them).
+    await sql`update shop_settings set bsfc_e85_na = 426.5, max_line_drop_kpa = 12.34,
+      gasoline_density_kg_per_l = 0.7437 where shop_id = ${otherShop.shopId}`;
+    for (const units of ["metric", "imperial"] as const) {
+      await sql`update "user" set unit_system = ${units} where id = ${otherShop.userId}`;
+      const page = await request(other, "GET", "/settings");
+      expect(page.status).toBe(200);
+      const saveRef = ref("app/(shop)/settings/actions.ts", "updateSettingsAction", "/settings");
+      const filled = formValuesIn(page.text, names);
+      expect(Object.keys(filled).sort()).toEqual([...names].sort());
+      expect(filled.shownUnits).toBe(units);
+      // Shown at the registry's precision in the viewer's units: 426.5 g/kWh = 0.701 lb/hp/h,
+      // 12.34 kPa = 1.79 psi, 0.7437 kg/L = 6.21 lb/gal (NIST SP 811 B.8 factors).
+      expect([filled.bsfcE85Na, filled.maxLineDropKpa, filled.gasolineDensityKgPerL]).toEqual(
+        units === "metric" ? ["427", "12.3", "0.744"] : ["0.701", "1.79", "6.21"],
+      );
+      const before = [await settingsRow(), await orgRow()];
+      expect(await act(other, saveRef, formOf(filled))).toMatchObject({ ok: true });
+      expect([await settingsRow(), await orgRow()], units).toEqual(before);
+    }
+    await sql`update "user" set unit_system = null where id = ${otherShop.userId}`;
   });
 
   it("a member's role, a person's units and the shop's logo: the same again writes nothing", async () => {

@@ -133,7 +133,7 @@ describe("the counter's draft build", () => {
       "vehicle.make": "Tamsin",
       "vehicle.model": "Coupe",
       units: "imperial",
-      displacementL: "2.0",
+      displacement: "122",
       cylinders: "4",
       aspiration: "turbo",
       power: "500",
@@ -141,15 +141,58 @@ describe("the counter's draft build", () => {
       fuel: "gasoline",
     });
     expect(d.goal.powerKw).toBeCloseTo(372.85, 2);
+    // 122 cu in = 1.999 L (1 in³ = 16.387064 cm³ exactly, NIST SP 811 B.8).
+    expect(d.goal.displacementL).toBeCloseTo(1.9992, 4);
     expect(d.newVehicle).toMatchObject({ year: 2004, make: "Tamsin", model: "Coupe" });
     expect(d.vehicleId).toBeUndefined();
+  });
+
+  it("the form's displacement and power out of bounds are said in the person's units", () => {
+    const form = (units: string, displacement: string, power: string) =>
+      BuildDraftFormSchema.safeParse({
+        customerId: crypto.randomUUID(),
+        vehicleId: "new",
+        "vehicle.year": "2004",
+        "vehicle.make": "Tamsin",
+        "vehicle.model": "Coupe",
+        units,
+        displacement,
+        cylinders: "4",
+        aspiration: "turbo",
+        power,
+        measuredAt: "crank",
+        fuel: "gasoline",
+      });
+    const messages = (r: ReturnType<typeof form>) =>
+      Object.fromEntries(r.error!.issues.map((i) => [i.path.join("."), i.message]));
+    // 2.2 typed as cu in is 0.036 L, below the schema's 0.1 L: an imperial reader typing litres.
+    // 0.1–20 L = 6.1–1220.5 cu in, 1–5000 kW = 1.34–6705.1 hp (NIST SP 811 B.8), rounded inwards.
+    expect(messages(form("imperial", "2.2", "9000"))).toEqual({
+      displacement: "Displacement must be between 7 and 1220 cu in",
+      power: "Power goal must be between 2 and 6705 hp",
+    });
+    expect(messages(form("metric", "25", "6000"))).toEqual({
+      displacement: "Displacement must be between 0.1 and 20 L",
+      power: "Power goal must be between 1 and 5000 kW",
+    });
+    expect(form("imperial", "350", "450").success).toBe(true);
+    // Said beside the other fields' errors, not only once they are right.
+    const partial = BuildDraftFormSchema.safeParse({
+      customerId: crypto.randomUUID(),
+      units: "imperial",
+      displacement: "2.2",
+    });
+    expect(messages(partial as ReturnType<typeof form>)).toMatchObject({
+      displacement: "Displacement must be between 7 and 1220 cu in",
+      power: "Enter the power goal",
+    });
   });
 
   it("names the missing goal fields by their paths", () => {
     const r = BuildDraftFormSchema.safeParse({ customerId: crypto.randomUUID(), units: "metric" });
     expect(r.success).toBe(false);
     const paths = r.error!.issues.map((i) => i.path.join("."));
-    expect(paths).toEqual(expect.arrayContaining(["displacementL", "cylinders", "power", "fuel"]));
+    expect(paths).toEqual(expect.arrayContaining(["displacement", "cylinders", "power", "fuel"]));
   });
 
   it("needs sizing moves on to sized (or draft), never further", () => {

@@ -28,9 +28,9 @@ import { boostedSix, naFour } from "../calc/fixtures";
  * A figure printed in a unit of one system only: a number, then the unit (the imperial ones are
  * never printed in metric, and back). "m" and "in" count only after a number: they are words too.
  */
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F)(?![\w/])/;
 
 /** Leaves of a JSON Schema by dotted path (array items as `*`), with their node. */
 function schemaLeaves(
@@ -224,6 +224,15 @@ describe("warnings and working steps carry their figures as data", () => {
       for (const t of [...texts(r, "imperial"), ...texts(r, "metric")])
         expect(t).not.toMatch(/[{}]/);
     }
+  });
+
+  it("says displacement in cu in to an imperial reader and fuel per injection in mg to both", () => {
+    // 5.7 L = 347.8 cu in (1 in³ = 16.387064 cm³ exactly, NIST SP 811 B.8).
+    expect(formatValue("displacement", 5.7, "imperial")).toBe("348 cu in");
+    expect(formatValue("displacement", 5.7, "metric")).toBe("5.7 L");
+    expect(inputField("engine.displacementL")?.quantity).toBe("displacement");
+    for (const system of ["metric", "imperial"] as const)
+      expect(texts(results[0]![1], system).join("\n")).toMatch(/fuel per injection [\d.]+ mg/);
   });
 
   it("prints counts as whole numbers and figures at their precision", () => {

@@ -5,16 +5,18 @@ import { revalidatePath } from "next/cache";
 import { memberAction } from "@/lib/actions/member-action";
 import { PATHS } from "@/lib/cache-tags";
 import { changeMemberRole, inviteMember, removeMember } from "@/lib/members/member-commands";
-import { saveShopSettings } from "@/lib/shop/shop-commands";
+import { settingsFromShown } from "@/lib/shop/settings-view";
+import { readShopSettings, saveShopSettings } from "@/lib/shop/shop-commands";
 import {
   InviteSchema,
   MemberRemoveSchema,
   MemberRoleSchema,
-  ShopSettingsSchema,
+  ShopSettingsFormSchema,
 } from "@/lib/validations/settings";
 
-export const updateSettingsAction = memberAction(ShopSettingsSchema, async (m, input) => {
-  await saveShopSettings(m, input);
+/** The settings form: typed in the viewer's units, saved canonical (a value left as shown kept). */
+export const updateSettingsAction = memberAction(ShopSettingsFormSchema, async (m, input) => {
+  await saveShopSettings(m, settingsFromShown(input, await readShopSettings(m)));
   revalidatePath(PATHS.settings);
   return { ok: true, message: "Shop settings saved" };
 });

@@ -5,15 +5,21 @@ import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { logoFacts } from "@/db/queries/logos";
 import { listMembers, listPendingInvitations } from "@/db/queries/members";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { ASPIRATION_CLASS_LABELS, FUEL_CLASS_LABELS } from "@/lib/calc";
+import { ASPIRATION_CLASS_LABELS, formatNumber, formatValue, FUEL_CLASS_LABELS } from "@/lib/calc";
+import type { UnitSystem } from "@/lib/calc/units";
 import { minorToPlain } from "@/lib/catalog/money";
 import { isRole, ROLE_LABELS } from "@/lib/domain/roles";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { countryOptions } from "@/lib/format/phone";
-import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
+import {
+  settingsFormValues,
+  shopSettingsView,
+  type ShopSettingsView,
+} from "@/lib/shop/settings-view";
 
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
@@ -21,10 +27,9 @@ import { SettingsForm } from "./settings-form";
 
 export const metadata: Metadata = { title: "Settings" };
 
-/** The settings as the form's text fields hold them (blank: no value, the library's for fuel). */
-function formValues(v: ShopSettingsView): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const [k, x] of Object.entries(v)) out[k] = x === null || x === undefined ? "" : String(x);
+/** The settings as the form's text fields hold them, in the viewer's units (blank: the library's). */
+function formValues(v: ShopSettingsView, units: UnitSystem): Record<string, string> {
+  const out = settingsFormValues(v, units);
   out.labourRate = minorToPlain(Math.round(v.labourRate * 100));
   return out;
 }
@@ -34,11 +39,12 @@ export default async function SettingsPage() {
   const s = await getShopSettings(m.shopId);
   if (!s) notFound();
   const owner = can(m.role, "members:manage");
-  const [members, invitations, logo, measured] = await Promise.all([
+  const [members, invitations, logo, measured, units] = await Promise.all([
     listMembers(m.shopId),
     owner ? listPendingInvitations(m.shopId) : Promise.resolve([]),
     logoFacts(m.shopId),
     shopBsfc(m.shopId),
+    unitSystemOf(m.user.id, m.shopId),
   ]);
   return (
     <>
@@ -56,7 +62,8 @@ export default async function SettingsPage() {
           ) : null}
           <SettingsForm
             readOnly={!can(m.role, "settings:update")}
-            initial={formValues(shopSettingsView(s.name, s.settings))}
+            initial={formValues(shopSettingsView(s.name, s.settings), units)}
+            units={units}
             countries={countryOptions()}
           />
           <LogoUpload
@@ -170,13 +177,14 @@ export default async function SettingsPage() {
                     <td>{ASPIRATION_CLASS_LABELS[r.aspiration]}</td>
                     <td className="figure text-right">{r.builds}</td>
                     <td className="figure text-right font-semibold">
-                      {Math.round(r.meanGPerKwh)} g/kWh
+                      {formatValue("bsfc", r.meanGPerKwh, units)}
                     </td>
                     <td className="figure text-right">
-                      {Math.round(r.minGPerKwh)}–{Math.round(r.maxGPerKwh)}
+                      {formatNumber("bsfc", r.minGPerKwh, units)}–
+                      {formatValue("bsfc", r.maxGPerKwh, units)}
                     </td>
                     <td className="figure text-right text-ink-600">
-                      {rule === null ? "blend of the two" : `${Math.round(rule)} g/kWh`}
+                      {rule === null ? "blend of the two" : formatValue("bsfc", rule, units)}
                     </td>
                   </tr>
                 );

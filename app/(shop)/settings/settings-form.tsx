@@ -6,7 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import { ETHANOL, GASOLINE } from "@/lib/calc";
+import { ETHANOL, formatNumber, GASOLINE, unitOf, type UnitSystem } from "@/lib/calc";
 import { PAPER_SIZE_LABELS, PAPER_SIZES } from "@/lib/domain/documents";
 
 import { updateSettingsAction } from "./actions";
@@ -49,10 +49,13 @@ export function SettingsForm({
   initial,
   readOnly,
   countries,
+  units,
 }: {
   initial: Record<string, string>;
   readOnly: boolean;
   countries: { code: string; name: string }[];
+  /** The viewer's units: BSFC, line drop and densities are shown and typed in them. */
+  units: UnitSystem;
 }) {
   const [state, action, pending] = useActionState(updateSettingsAction, initialActionState);
   const v = { ...initial, ...state.values };
@@ -67,7 +70,8 @@ export function SettingsForm({
       error={e[name]}
     />
   );
-  const lib = (name: string, label: string, unit: string, library: number, dp: number) => (
+  /** A fuel property the library knows: its value (in the viewer's units) as the hint. */
+  const lib = (name: string, label: string, unit: string, library: string) => (
     <Field
       key={name}
       label={`${label} (${unit})`}
@@ -75,12 +79,17 @@ export function SettingsForm({
       inputMode="decimal"
       defaultValue={v[name]}
       error={e[name]}
-      placeholder={library.toFixed(dp)}
-      hint={`Library: ${library.toFixed(dp)}`}
+      placeholder={library}
+      hint={`Library: ${library}`}
     />
   );
+  const bsfc = unitOf("bsfc", units);
+  const density = unitOf("density", units);
+  const libDensity = (kgPerL: number) => formatNumber("density", kgPerL, units);
   return (
     <form action={action} noValidate className="mt-4" aria-label="Shop defaults">
+      {/* The units the figures below are typed in (the page's, not the "Units" being chosen). */}
+      <input type="hidden" name="shownUnits" value={units} />
       <fieldset disabled={readOnly} className="space-y-6">
         <div className="grid gap-4 sm:grid-cols-2">
           <Field label="Shop name" name="shopName" defaultValue={v.shopName} error={e.shopName} />
@@ -140,10 +149,10 @@ export function SettingsForm({
         </div>
         <fieldset className="grid gap-4 sm:grid-cols-2">
           <legend className="mb-2 font-semibold">BSFC rules of thumb</legend>
-          {num("bsfcGasolineNa", "Gasoline, NA", "g/kWh")}
-          {num("bsfcGasolineBoosted", "Gasoline, boosted", "g/kWh")}
-          {num("bsfcE85Na", "E85, NA", "g/kWh")}
-          {num("bsfcE85Boosted", "E85, boosted", "g/kWh")}
+          {num("bsfcGasolineNa", "Gasoline, NA", bsfc)}
+          {num("bsfcGasolineBoosted", "Gasoline, boosted", bsfc)}
+          {num("bsfcE85Na", "E85, NA", bsfc)}
+          {num("bsfcE85Boosted", "E85, boosted", bsfc)}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 font-semibold">Duty and margins</legend>
@@ -151,7 +160,7 @@ export function SettingsForm({
           {num("dutyCautionPct", "Caution above", "%")}
           {num("dutyDangerPct", "Danger above", "%")}
           {num("minPumpMarginPct", "Minimum pump margin", "%")}
-          {num("maxLineDropKpa", "Line drop limit", "kPa")}
+          {num("maxLineDropKpa", "Line drop limit", unitOf("pressureDrop", units))}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 font-semibold">Drivetrain loss</legend>
@@ -164,10 +173,30 @@ export function SettingsForm({
           <p className="text-sm text-ink-600 sm:col-span-2">
             Blank: the calculation library&apos;s value. A build may state its own.
           </p>
-          {lib("gasolineDensityKgPerL", "Gasoline density", "kg/L", GASOLINE.densityKgPerL, 3)}
-          {lib("gasolineStoichAfr", "Gasoline stoichiometric AFR", "AFR", GASOLINE.stoichAfr, 2)}
-          {lib("ethanolDensityKgPerL", "Ethanol density", "kg/L", ETHANOL.densityKgPerL, 3)}
-          {lib("ethanolStoichAfr", "Ethanol stoichiometric AFR", "AFR", ETHANOL.stoichAfr, 2)}
+          {lib(
+            "gasolineDensityKgPerL",
+            "Gasoline density",
+            density,
+            libDensity(GASOLINE.densityKgPerL),
+          )}
+          {lib(
+            "gasolineStoichAfr",
+            "Gasoline stoichiometric AFR",
+            "AFR",
+            GASOLINE.stoichAfr.toFixed(2),
+          )}
+          {lib(
+            "ethanolDensityKgPerL",
+            "Ethanol density",
+            density,
+            libDensity(ETHANOL.densityKgPerL),
+          )}
+          {lib(
+            "ethanolStoichAfr",
+            "Ethanol stoichiometric AFR",
+            "AFR",
+            ETHANOL.stoichAfr.toFixed(2),
+          )}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 font-semibold">Quotes</legend>

@@ -27,11 +27,14 @@ export function DraftBuildForm({
   customerId,
   units,
   powerUnit,
+  displacementUnit,
 }: {
   customers: DraftCustomer[];
   customerId?: string;
   units: UnitSystem;
   powerUnit: string;
+  /** "L" or "cu in": the displacement is typed in the person's units, like the power. */
+  displacementUnit: string;
 }) {
   const [state, action, pending] = useActionState(createDraftBuildAction, initialActionState);
   const v = state.values ?? {};
@@ -134,12 +137,12 @@ export function DraftBuildForm({
       <fieldset className="grid gap-3 rounded-lg border border-ink-200 p-4 sm:grid-cols-3">
         <legend className="px-1 font-semibold">Engine</legend>
         <Field
-          label="Displacement (L)"
-          name="displacementL"
+          label={`Displacement (${displacementUnit})`}
+          name="displacement"
           inputMode="decimal"
           autoComplete="off"
-          defaultValue={v.displacementL}
-          error={e.displacementL}
+          defaultValue={v.displacement}
+          error={e.displacement}
         />
         <Field
           label="Cylinders"

@@ -45,6 +45,7 @@ export default async function NewBuildPage({
             customerId={customer}
             units={units}
             powerUnit={unitOf("power", units)}
+            displacementUnit={unitOf("displacement", units)}
           />
         ) : (
           <NewBuildForm

@@ -2,12 +2,14 @@ import type { Metadata } from "next";
 
 import { PartForm } from "@/components/parts/part-form";
 import { PageHeader } from "@/components/ui/status";
+import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 
 export const metadata: Metadata = { title: "Add part" };
 
 export default async function NewPartPage() {
-  await requirePageMember("parts:write");
+  const m = await requirePageMember("parts:write");
+  const units = await unitSystemOf(m.user.id, m.shopId);
   return (
     <>
       <PageHeader title="Add part" />
@@ -20,6 +22,7 @@ export default async function NewPartPage() {
           rated_kpa: "300",
         }}
         canDelete={false}
+        units={units}
       />
     </>
   );
