@@ -94,6 +94,7 @@ CREATE TABLE "mail_log" (
 	"occasion" text DEFAULT '' NOT NULL,
 	"to" text NOT NULL,
 	"subject" text NOT NULL,
+	"body" text DEFAULT '' NOT NULL,
 	"status" text DEFAULT 'pending' NOT NULL,
 	"message_id" text,
 	"error" text,

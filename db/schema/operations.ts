@@ -293,6 +293,8 @@ export const mailLog = pgTable(
     occasion: text("occasion").notNull().default(""),
     to: text("to").notNull(),
     subject: text("subject").notNull(),
+    /** The message's text as sent (a retry sends it again; attachments are made again). */
+    body: text("body").notNull().default(""),
     status: text("status", { enum: MAIL_STATUSES }).notNull().default("pending"),
     messageId: text("message_id"),
     error: text("error"),
