@@ -2,6 +2,7 @@ import "server-only";
 
 import { fitJobRow, getJob, insertJob } from "@/db/queries/jobs";
 import { getPartsByIds } from "@/db/queries/parts";
+import { getQuote } from "@/db/queries/quotes";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
@@ -45,6 +46,8 @@ async function tellCustomer(
  */
 export async function openJob(m: Member, input: { quoteId: string }) {
   authorize(m, "jobs:write");
+  if (!(await getQuote(m.shopId, input.quoteId)))
+    throw Invalid.field("quoteId", "That quote is not in this shop");
   const job = await insertJob(m.shopId, m.user.id, input.quoteId);
   if (job.status === "ready") await tellCustomer(m, job.id, "ready_to_fit");
   return (await getJob(m.shopId, job.id))!;

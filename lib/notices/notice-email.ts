@@ -118,7 +118,7 @@ export function noticeEmail(d: NoticeData): { subject: string; text: string } {
             ? `All parts for job ${d.job}${what} are in: it is ready to fit. We will be in touch to book the car in.`
             : `Job ${d.job}${what} is fitted${d.parts.length ? ` (${d.parts.join(", ")})` : ""}. Your invoice follows.`;
       return {
-        subject: `${d.shopName}: job ${d.job} — ${NOTICE_LABELS[d.kind].toLowerCase()}`,
+        subject: `${d.shopName}: job ${d.job}, ${NOTICE_LABELS[d.kind].toLowerCase()}`,
         text: [
           `Hello ${d.customerName},`,
           "",
