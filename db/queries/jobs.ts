@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import {
@@ -324,4 +324,30 @@ export async function fitJobRow(
     }
     return done!;
   });
+}
+
+/** Quotes whose deposit is paid (or that are ordered) and that have no job yet, oldest first. */
+export async function quotesAwaitingJob(shopId: string) {
+  return db
+    .select({
+      id: quotes.id,
+      number: quotes.number,
+      revision: quotes.revision,
+      customerName: customers.name,
+      buildTitle: builds.title,
+      totalMinor: quotes.totalMinor,
+      currency: quotes.currency,
+    })
+    .from(quotes)
+    .innerJoin(customers, eq(customers.id, quotes.customerId))
+    .leftJoin(builds, eq(builds.id, quotes.buildId))
+    .leftJoin(jobs, eq(jobs.quoteId, quotes.id))
+    .where(
+      and(
+        eq(quotes.shopId, shopId),
+        inArray(quotes.status, ["deposit_paid", "ordered"]),
+        isNull(jobs.id),
+      ),
+    )
+    .orderBy(asc(quotes.acceptedAt));
 }

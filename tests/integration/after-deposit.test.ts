@@ -454,3 +454,29 @@ describe("a whole job: fitted, invoiced, paid", () => {
     ]);
   });
 });
+
+describe("the screens after the deposit", () => {
+  it("the shop reads jobs, purchasing, a job, its invoice and a purchase order; the customer reads their own invoice with the pay button", async () => {
+    const [job] =
+      await sql`select j.id, i.id as invoice_id from jobs j join invoices i on i.job_id = j.id where j.shop_id = ${SHOP} and i.status <> 'draft' order by j.number limit 1`;
+    const [po] = await sql`select id from purchase_orders where shop_id = ${SHOP} limit 1`;
+    expect(job && po, "the tests above made a job, an invoice and an order").toBeTruthy();
+    for (const [path, text] of [
+      ["/jobs", "Jobs"],
+      ["/purchasing", "To reorder"],
+      [`/jobs/${job!.id}`, "E-mails about this job"],
+      [`/invoices/${job!.invoice_id}`, "Balance due"],
+      [`/purchasing/orders/${po!.id}`, "Received"],
+    ] as const) {
+      const r = await request(counter, "GET", path);
+      expect(r.status, path).toBe(200);
+      expect(r.text, path).toContain(text);
+    }
+    const mine = await request(customer, "GET", `/my/invoices/${job!.invoice_id}`);
+    expect(mine.status).toBe(200);
+    expect(mine.text).toContain("Invoice INV-");
+    // Staff pages are not the customer's.
+    const refused = await request(customer, "GET", "/purchasing");
+    expect([303, 307, 308]).toContain(refused.status);
+  });
+});
