@@ -201,10 +201,31 @@ export async function updateInvoiceDraft(
         inv,
       );
     const notes = v.notes === undefined ? inv.notes : v.notes || null;
+    let lines = v.lines;
+    if (lines) {
+      // Lines equal to the stored ones (in order) are not written again.
+      const key = (l: ChargeLine) =>
+        JSON.stringify([
+          l.kind,
+          l.partId ?? null,
+          l.sku ?? null,
+          l.description,
+          l.quantityMilli,
+          l.unitPriceMinor,
+          l.discountBp,
+        ]);
+      const stored = await tx
+        .select()
+        .from(invoiceLines)
+        .where(eq(invoiceLines.invoiceId, id))
+        .orderBy(asc(invoiceLines.position));
+      if (stored.length === lines.length && stored.every((s, i) => key(s) === key(lines![i]!)))
+        lines = undefined;
+    }
     let totals = {};
-    if (v.lines) {
-      await writeLines(tx, shopId, id, v.lines);
-      const t = invoiceTotals(v.lines, inv.taxRateBp, inv.depositMinor);
+    if (lines) {
+      await writeLines(tx, shopId, id, lines);
+      const t = invoiceTotals(lines, inv.taxRateBp, inv.depositMinor);
       totals = {
         subtotalMinor: t.subtotalMinor,
         discountMinor: t.discountMinor,
