@@ -513,6 +513,7 @@ export async function seed(url: string) {
             customerId: q.build.customerId,
             buildId: q.build.id,
             status: q.status,
+            ...(q.status === "accepted" ? { acceptedAt: new Date("2026-01-05T10:00:00Z") } : {}),
             currency: "USD",
             taxRateBp: 825,
             validUntil: q.validUntil,

@@ -12,6 +12,8 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/customers", label: "Customers", roles: ["owner", "tuner", "counter"] },
   { href: "/parts", label: "Parts", roles: ["owner", "tuner", "counter"] },
   { href: "/quotes", label: "Quotes", roles: ["owner", "counter", "tuner"] },
+  { href: "/jobs", label: "Jobs", roles: ["owner", "tuner", "counter"] },
+  { href: "/purchasing", label: "Purchasing", roles: ["owner", "tuner", "counter"] },
   { href: "/tools", label: "Tools", roles: ["owner", "tuner", "counter"] },
   { href: "/settings", label: "Settings", roles: ["owner", "tuner", "counter"] },
   { href: "/my", label: "My builds", roles: ["customer"] },

@@ -436,6 +436,7 @@ async function writeStatus(tx: Tx, q: QuoteRow, to: QuoteStatus, by: string | nu
       status: to,
       statusChangedAt: new Date(),
       statusChangedBy: by,
+      ...(to === "accepted" ? { acceptedAt: new Date() } : {}),
       version: q.version + 1,
       updatedAt: new Date(),
     })

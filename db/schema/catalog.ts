@@ -13,11 +13,13 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import { PAYMENT_KINDS } from "@/lib/domain/operations";
 import { PART_CATEGORIES } from "@/lib/domain/parts";
 import { PAYMENT_STATUSES, QUOTE_LINE_KINDS, QUOTE_STATUSES } from "@/lib/domain/quotes";
 
 import { organization, user } from "./auth";
 import { builds } from "./builds";
+import { invoices } from "./operations";
 import { customers } from "./shops";
 
 /** One catalog part of a shop. Money in integer minor units (cents); specs validated per category. */
@@ -97,6 +99,8 @@ export const quotes = pgTable(
     version: integer("version").notNull().default(1),
     statusChangedAt: timestamp("status_changed_at", { withTimezone: true }),
     statusChangedBy: text("status_changed_by").references(() => user.id, { onDelete: "set null" }),
+    /** When it was accepted: back-orders are filled in this order as stock arrives. */
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -202,7 +206,11 @@ export const shareLinks = pgTable(
 );
 export type ShareLink = typeof shareLinks.$inferSelect;
 
-/** A deposit asked of the customer through the card-payment provider: one row per checkout session. */
+/**
+ * A payment asked of the customer through the card-payment provider, one row per checkout
+ * session: the deposit on a quote, or the balance of an invoice (`invoice_id`). The paid rows
+ * are the ledger every document's totals agree with.
+ */
 export const payments = pgTable(
   "payments",
   {
@@ -213,6 +221,8 @@ export const payments = pgTable(
     quoteId: uuid("quote_id")
       .notNull()
       .references(() => quotes.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: PAYMENT_KINDS }).notNull().default("deposit"),
+    invoiceId: uuid("invoice_id").references(() => invoices.id, { onDelete: "restrict" }),
     provider: text("provider").notNull().default("stripe"),
     /** The provider's checkout session id (unique: one payment per session, whatever arrives twice). */
     checkoutSessionId: text("checkout_session_id").notNull(),
@@ -228,6 +238,7 @@ export const payments = pgTable(
   (t) => [
     uniqueIndex("payments_session_idx").on(t.checkoutSessionId),
     index("payments_quote_idx").on(t.shopId, t.quoteId),
+    index("payments_invoice_idx").on(t.invoiceId),
   ],
 );
 export type Payment = typeof payments.$inferSelect;

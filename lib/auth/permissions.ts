@@ -35,6 +35,21 @@ export const PERMISSIONS = {
   /** A customer pays the deposit on their own accepted quote. */
   "quotes:pay": ["customer"],
   "shares:manage": ["owner", "tuner", "counter"],
+  /** Suppliers and purchase orders: staff only (customers never see them). */
+  "purchasing:read": ["owner", "tuner", "counter"],
+  "purchasing:write": ["owner", "counter"],
+  /** Jobs: staff run them (the tuner fits); customers read their own through the API. */
+  "jobs:read": ["owner", "tuner", "counter"],
+  "jobs:write": ["owner", "tuner", "counter"],
+  "jobs:view": ["owner", "tuner", "counter", "customer"],
+  /** Invoices and credit notes: raised by the owner and the counter; customers read their own. */
+  "invoices:read": ["owner", "tuner", "counter"],
+  "invoices:write": ["owner", "counter"],
+  "invoices:view": ["owner", "tuner", "counter", "customer"],
+  /** A customer pays the balance of their own issued invoice. */
+  "invoices:pay": ["customer"],
+  /** Resending a notice that failed, and choosing to get the shop's notices. */
+  "notices:manage": ["owner", "tuner", "counter"],
   "calc:use": ["owner", "tuner", "counter", "customer"],
   /**
    * better-auth's organization endpoints (/api/auth/organization/*): staff only — customers are

@@ -2,12 +2,14 @@ import "server-only";
 
 import type Stripe from "stripe";
 
+import { getInvoice } from "@/db/queries/invoices";
 import {
   confirmPayment,
   listPayments,
   markPaymentExpired,
   markPaymentPaid,
   onceForEvent,
+  paymentBySession,
   recordPendingPayment,
   type CheckoutClaim,
 } from "@/db/queries/payments";
@@ -16,8 +18,10 @@ import { getShopSettings } from "@/db/queries/shops";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Conflict, Invalid, NotFound, Unavailable } from "@/lib/domain/errors";
+import { invoiceLabel } from "@/lib/domain/operations";
 import { isoDay, pastValidity, quoteLabel } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
+import { deliverNotice, notifyShop } from "@/lib/notices/notice-commands";
 
 import { depositOf } from "./deposit";
 import { payments } from "./provider";
@@ -73,13 +77,53 @@ export async function startDeposit(
   const depositBp = settings?.settings.depositBp ?? DEFAULT_DEPOSIT_BP;
   const amountMinor = depositOf(q.quote.totalMinor, depositBp);
   if (amountMinor <= 0) throw new Invalid("This quote asks for no deposit", [], "no_deposit");
+  const appUrl = serverEnv().APP_URL;
+  const open = await openCheckout(await listPayments(shopId, quoteId), amountMinor, {
+    name: `Deposit (${depositBp / 100} %) on quote ${quoteLabel(q.quote.number, q.quote.revision)}`,
+    currency: q.quote.currency,
+    email: q.customerEmail,
+    reference: quoteId,
+    metadata: { shop_id: shopId, quote_id: quoteId },
+    successUrl: `${appUrl}/api/v1/quotes/${quoteId}/deposit?session={CHECKOUT_SESSION_ID}`,
+    cancelUrl: `${appUrl}/my/quotes/${quoteId}?payment=cancelled`,
+  });
+  if (open.created)
+    await recordPendingPayment({
+      shopId,
+      quoteId,
+      checkoutSessionId: open.sessionId,
+      amountMinor,
+      currency: q.quote.currency,
+      createdBy: member.user.id,
+    });
+  return { url: open.url, amountMinor };
+}
+
+/**
+ * A checkout page for `amountMinor`: an open one of `existing` (pending, same amount) is reused,
+ * else the provider makes a new one (`created`: the caller records it pending).
+ */
+export async function openCheckout(
+  existing: { status: string; amountMinor: number; checkoutSessionId: string }[],
+  amountMinor: number,
+  spec: {
+    name: string;
+    currency: string;
+    email: string | null;
+    /** `client_reference_id`: the quote (deposit) or invoice (balance) it pays. */
+    reference: string;
+    metadata: Record<string, string>;
+    successUrl: string;
+    cancelUrl: string;
+  },
+): Promise<{ url: string; sessionId: string; created: boolean }> {
   const stripe = payments();
-  for (const p of await listPayments(shopId, quoteId)) {
+  for (const p of existing) {
     if (p.status !== "pending" || p.amountMinor !== amountMinor) continue;
     const open = await provider(() => stripe.checkout.sessions.retrieve(p.checkoutSessionId));
-    if (open.status === "open" && open.url) return { url: open.url, amountMinor };
+    if (open.status === "open" && open.url)
+      return { url: open.url, sessionId: open.id, created: false };
   }
-  const appUrl = serverEnv().APP_URL;
   const session = await provider(() =>
     stripe.checkout.sessions.create({
       mode: "payment",
@@ -87,19 +131,17 @@ export async function startDeposit(
         {
           quantity: 1,
           price_data: {
-            currency: q.quote.currency.toLowerCase(),
+            currency: spec.currency.toLowerCase(),
             unit_amount: amountMinor,
-            product_data: {
-              name: `Deposit (${depositBp / 100} %) on quote ${quoteLabel(q.quote.number, q.quote.revision)}`,
-            },
+            product_data: { name: spec.name },
           },
         },
       ],
-      customer_email: q.customerEmail ?? undefined,
-      client_reference_id: quoteId,
-      metadata: { shop_id: shopId, quote_id: quoteId },
-      success_url: `${appUrl}/api/v1/quotes/${quoteId}/deposit?session={CHECKOUT_SESSION_ID}`,
-      cancel_url: `${appUrl}/my/quotes/${quoteId}?payment=cancelled`,
+      customer_email: spec.email ?? undefined,
+      client_reference_id: spec.reference,
+      metadata: spec.metadata,
+      success_url: spec.successUrl,
+      cancel_url: spec.cancelUrl,
     }),
   );
   if (!session.url)
@@ -108,15 +150,7 @@ export async function startDeposit(
       "payments_unavailable",
       "upstream",
     );
-  await recordPendingPayment({
-    shopId,
-    quoteId,
-    checkoutSessionId: session.id,
-    amountMinor,
-    currency: q.quote.currency,
-    createdBy: member.user.id,
-  });
-  return { url: session.url, amountMinor };
+  return { url: session.url, sessionId: session.id, created: true };
 }
 
 /** A checkout session id as the provider makes them; anything else is not worth asking about. */
@@ -140,12 +174,14 @@ async function retrieveCheckout(id: string): Promise<Stripe.Checkout.Session | n
 
 /** What a paid checkout says it paid for, as the app checks it against its own payment row. */
 function claimOf(session: Stripe.Checkout.Session): CheckoutClaim {
-  const quoteId = session.metadata?.quote_id ?? "";
   return {
     checkoutSessionId: session.id,
     shopId: session.metadata?.shop_id ?? "",
-    // The quote named twice by the app when it opened the checkout: both must agree.
-    quoteId: session.client_reference_id === quoteId ? quoteId : "",
+    // What the app named when it opened the checkout: the quote (and, for a balance, the
+    // invoice) in the metadata and the one it is for as the reference; all must agree.
+    quoteId: session.metadata?.quote_id ?? "",
+    invoiceId: session.metadata?.invoice_id ?? "",
+    reference: session.client_reference_id ?? "",
     amountMinor: session.amount_total ?? -1,
     currency: (session.currency ?? "").toUpperCase(),
   };
@@ -173,10 +209,22 @@ export async function confirmDepositReturn(
     (p) => p.checkoutSessionId === input.session,
   );
   if (!mine) throw new NotFound("That payment");
-  const session = await retrieveCheckout(input.session);
+  return confirmCheckoutReturn(input.session);
+}
+
+/**
+ * The customer's return from a checkout (deposit or balance; the caller checked it is theirs):
+ * the provider is asked, and a paid checkout recorded once (with its receipts), whether or not
+ * the webhook came first.
+ */
+export async function confirmCheckoutReturn(
+  sessionId: string,
+): Promise<"paid" | "already" | "unpaid"> {
+  const session = await retrieveCheckout(sessionId);
   if (session?.payment_status !== "paid") return "unpaid";
   const r = await confirmPayment(claimOf(session), `return:${session.id}`);
   warnRefused(r, session.id, "the customer's return");
+  if (r === "paid") await paymentNotices(session.id);
   return r === "paid" ? "paid" : r === "already" ? "already" : "unpaid";
 }
 
@@ -221,5 +269,82 @@ export async function recordPaymentEvent(event: Stripe.Event) {
     },
   );
   if (outcome && sessionId) warnRefused(outcome, sessionId, `event ${event.id}`);
+  if (outcome === "paid" && sessionId) await paymentNotices(sessionId);
   return { received: true, event: event.id, outcome: outcome ?? "duplicate" };
+}
+
+/**
+ * After a payment is recorded: the customer's receipt (on the quote for a deposit, on the
+ * invoice for a balance, with what is left to pay) and the shop's notice to its subscribers.
+ * Each once per payment; a failed send is logged to retry and changes nothing.
+ */
+async function paymentNotices(sessionId: string) {
+  try {
+    const p = await paymentBySession(sessionId);
+    if (!p || p.status !== "paid") return;
+    const shop = await getShopSettings(p.shopId);
+    const shopName = shop?.name ?? "Your shop";
+    const appUrl = serverEnv().APP_URL;
+    if (p.kind === "balance" && p.invoiceId) {
+      const inv = await getInvoice(p.shopId, p.invoiceId);
+      if (!inv) return;
+      const target = {
+        shopId: p.shopId,
+        recordKind: "invoice" as const,
+        recordId: p.invoiceId,
+        occasion: p.id,
+      };
+      const document = `invoice ${invoiceLabel(inv.invoice.number)}`;
+      await deliverNotice(target, [inv.customerEmail], {
+        kind: "balance_receipt",
+        shopName,
+        customerName: inv.customerName,
+        document,
+        amountMinor: p.amountMinor,
+        currency: p.currency,
+        leftMinor: Math.max(0, inv.ledger.balanceMinor),
+        link: `${appUrl}/my/invoices/${p.invoiceId}`,
+      });
+      await notifyShop(target, {
+        kind: "staff_payment_received",
+        shopName,
+        customerName: inv.customerName,
+        document,
+        amountMinor: p.amountMinor,
+        currency: p.currency,
+        link: `${appUrl}/invoices/${p.invoiceId}`,
+      });
+      return;
+    }
+    const q = await getQuote(p.shopId, p.quoteId);
+    if (!q) return;
+    const target = {
+      shopId: p.shopId,
+      recordKind: "quote" as const,
+      recordId: p.quoteId,
+      occasion: p.id,
+    };
+    const document = `quote ${quoteLabel(q.quote.number, q.quote.revision)}`;
+    await deliverNotice(target, [q.customerEmail], {
+      kind: "deposit_receipt",
+      shopName,
+      customerName: q.customerName,
+      document,
+      amountMinor: p.amountMinor,
+      currency: p.currency,
+      link: `${appUrl}/my/quotes/${p.quoteId}`,
+    });
+    await notifyShop(target, {
+      kind: "staff_payment_received",
+      shopName,
+      customerName: q.customerName,
+      document,
+      amountMinor: p.amountMinor,
+      currency: p.currency,
+      link: `${appUrl}/quotes/${p.quoteId}`,
+    });
+  } catch (e) {
+    // The payment stands; its notices are logged where they got to.
+    console.error("payment notices:", (e as Error).message);
+  }
 }

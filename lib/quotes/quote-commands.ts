@@ -34,11 +34,13 @@ import {
   QUOTE_NEXT,
   QUOTE_REVISED_ON_EDIT,
   QUOTE_STATUS_LABELS,
+  quoteLabel,
   quoteMovesOn,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
+import { notifyShop } from "@/lib/notices/notice-commands";
 import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
 import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
 import { cachedPdf } from "@/lib/pdf/render-cache";
@@ -348,11 +350,13 @@ export async function changeQuoteStatus(
       `This quote was valid until ${q.validUntil}: it can no longer be accepted, declined or paid. Mark it expired, or ${q.status === "sent" ? "edit it to make a new revision to send" : "revise it"}.`,
       "quote_expired",
     );
-  return setQuoteStatus(member.shopId, q.id, {
+  const done = await setQuoteStatus(member.shopId, q.id, {
     from: q.status,
     to: input.status,
     by: member.user.id,
   });
+  await tellShopOfAnswer(member, done);
+  return done;
 }
 
 /**
@@ -392,12 +396,33 @@ export async function respondToQuote(
       `This quote was valid until ${q.validUntil} and can no longer be accepted or declined; ask the shop for a new one`,
       "quote_expired",
     );
-  return setQuoteStatus(member.shopId, q.id, {
+  const done = await setQuoteStatus(member.shopId, q.id, {
     from: "sent",
     to: input.decision === "accept" ? "accepted" : "declined",
     by: member.user.id,
     portalUserId: member.user.id,
   });
+  await tellShopOfAnswer(member, done);
+  return done;
+}
+
+/** The shop's subscribers hear that a quote was accepted or declined (once per quote). */
+async function tellShopOfAnswer(member: Member, q: QuoteRow) {
+  if (q.status !== "accepted" && q.status !== "declined") return;
+  const row = await getQuote(member.shopId, q.id);
+  if (!row) return;
+  await notifyShop(
+    { shopId: member.shopId, recordKind: "quote", recordId: q.id },
+    {
+      kind: q.status === "accepted" ? "staff_quote_accepted" : "staff_quote_declined",
+      shopName: member.shopName,
+      customerName: row.customerName,
+      quote: quoteLabel(q.number, q.revision),
+      totalMinor: q.totalMinor,
+      currency: q.currency,
+      link: `${serverEnv().APP_URL}/quotes/${q.id}`,
+    },
+  );
 }
 
 /**

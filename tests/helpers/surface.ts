@@ -30,6 +30,18 @@ export interface Fx {
   share: string;
   inputs: unknown;
   portalCustomer: string;
+  supplier: string;
+  doomedSupplier: string;
+  purchaseOrder: string;
+  purchaseOrderLine: string;
+  /** A quote of the portal customer with its deposit paid (no job yet). */
+  paidQuote: string;
+  /** The portal customer's job, fitted and invoiced; and one ready to fit. */
+  job: string;
+  readyJob: string;
+  /** The fitted job's invoice, issued; and an e-mail logged on it. */
+  invoice: string;
+  mail: string;
 }
 
 export interface Cell {
@@ -267,6 +279,128 @@ export const ROUTES: Record<string, Cell> = {
   "GET /api/v1/quotes/[id]/pdf": {
     call: (f) => ({ path: `/api/v1/quotes/${f.quote}/pdf` }),
     expect: "401 ok ok ok 404 404",
+  },
+  "GET /api/v1/suppliers": {
+    call: () => ({ path: "/api/v1/suppliers" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "POST /api/v1/suppliers": {
+    call: () => ({ path: "/api/v1/suppliers", body: { name: "Matrix supplier" } }),
+    expect: "401 ok 403 ok 403 ok",
+  },
+  "GET /api/v1/suppliers/[id]": {
+    call: (f) => ({ path: `/api/v1/suppliers/${f.supplier}` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "PATCH /api/v1/suppliers/[id]": {
+    call: (f) => ({ path: `/api/v1/suppliers/${f.supplier}`, body: { notes: "Matrix" } }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "DELETE /api/v1/suppliers/[id]": {
+    call: (f) => ({ path: `/api/v1/suppliers/${f.doomedSupplier}` }),
+    expect: "401 ok 403 ok 403 404",
+    mayVanish: true,
+  },
+  "GET /api/v1/purchase-orders": {
+    call: () => ({ path: "/api/v1/purchase-orders" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "POST /api/v1/purchase-orders": {
+    call: (f) => ({
+      path: "/api/v1/purchase-orders",
+      body: { supplierId: f.supplier, lines: [{ partId: f.part, quantity: 1 }] },
+    }),
+    expect: "401 ok 403 ok 403 422",
+  },
+  "GET /api/v1/purchase-orders/[id]": {
+    call: (f) => ({ path: `/api/v1/purchase-orders/${f.purchaseOrder}` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "GET /api/v1/purchase-orders/[id]/pdf": {
+    call: (f) => ({ path: `/api/v1/purchase-orders/${f.purchaseOrder}/pdf` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "POST /api/v1/purchase-orders/[id]/receive": {
+    call: (f) => ({
+      path: `/api/v1/purchase-orders/${f.purchaseOrder}/receive`,
+      body: { lines: [{ lineId: f.purchaseOrderLine, quantity: 1 }] },
+    }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/purchase-orders/[id]/send": {
+    call: (f) => ({ path: `/api/v1/purchase-orders/${f.purchaseOrder}/send` }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "GET /api/v1/reorder-list": {
+    call: () => ({ path: "/api/v1/reorder-list" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "GET /api/v1/jobs": { call: () => ({ path: "/api/v1/jobs" }), expect: "401 ok ok ok ok ok" },
+  "POST /api/v1/jobs": {
+    call: (f) => ({ path: "/api/v1/jobs", body: { quoteId: f.paidQuote } }),
+    expect: "401 ok ok ok 403 422",
+  },
+  "GET /api/v1/jobs/[id]": {
+    call: (f) => ({ path: `/api/v1/jobs/${f.job}` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "POST /api/v1/jobs/[id]/fit": {
+    call: (f) => ({
+      path: `/api/v1/jobs/${f.readyJob}/fit`,
+      body: { version: 1, parts: [], labourMilli: 1000 },
+    }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "GET /api/v1/invoices": {
+    call: () => ({ path: "/api/v1/invoices" }),
+    expect: "401 ok ok ok ok ok",
+  },
+  "POST /api/v1/invoices": {
+    call: (f) => ({ path: "/api/v1/invoices", body: { jobId: f.job } }),
+    expect: "401 ok 403 ok 403 422",
+  },
+  "GET /api/v1/invoices/[id]": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "PATCH /api/v1/invoices/[id]": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}`, body: { version: 1, notes: "Matrix" } }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/invoices/[id]/issue": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}/issue`, body: { version: 1 } }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/invoices/[id]/credit-notes": {
+    call: (f) => ({
+      path: `/api/v1/invoices/${f.invoice}/credit-notes`,
+      body: { reason: "Matrix", amountMinor: 1 },
+    }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/invoices/[id]/payment": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}/payment` }),
+    expect: "401 403 403 403 ok 403",
+  },
+  "GET /api/v1/invoices/[id]/payment": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}/payment?session=cs_matrix` }),
+    expect: "401 403 403 403 404 403",
+  },
+  "GET /api/v1/invoices/[id]/pdf": {
+    call: (f) => ({ path: `/api/v1/invoices/${f.invoice}/pdf` }),
+    expect: "401 ok ok ok ok 404",
+  },
+  "POST /api/v1/mail/[id]/retry": {
+    call: (f) => ({ path: `/api/v1/mail/${f.mail}/retry` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "GET /api/v1/shop/notices": {
+    call: () => ({ path: "/api/v1/shop/notices" }),
+    expect: "401 ok ok ok 403 ok",
+  },
+  "PUT /api/v1/shop/notices": {
+    call: () => ({ path: "/api/v1/shop/notices", body: { on: false } }),
+    expect: "401 ok ok ok 403 ok",
   },
   "GET /api/v1/shop/bsfc": {
     call: () => ({ path: "/api/v1/shop/bsfc" }),
@@ -524,6 +658,69 @@ export const ACTIONS: Record<string, ActionCell> = {
     args: (f) => [prev, { id: f.quote }],
     expect: "401 403 403 403 404 403",
   },
+  "lib/jobs/job-actions.ts#openJobAction": {
+    page: () => "/jobs",
+    args: (f) => [prev, { quoteId: f.paidQuote }],
+    expect: "401 ok ok ok 403 422",
+  },
+  "lib/jobs/job-actions.ts#fitJobAction": {
+    page: (f) => `/jobs/${f.readyJob}`,
+    args: (f) => [prev, { id: f.readyJob, version: 1, parts: [], labourMilli: 1000 }],
+    expect: "401 ok ok ok 403 404",
+  },
+  "lib/invoices/invoice-actions.ts#createInvoiceAction": {
+    page: (f) => `/jobs/${f.job}`,
+    args: (f) => [prev, { jobId: f.job }],
+    expect: "401 ok 403 ok 403 422",
+  },
+  "lib/invoices/invoice-actions.ts#issueInvoiceAction": {
+    page: (f) => `/invoices/${f.invoice}`,
+    args: (f) => [prev, { id: f.invoice, version: 1 }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/invoices/invoice-actions.ts#createCreditNoteAction": {
+    page: (f) => `/invoices/${f.invoice}`,
+    args: (f) => [prev, { id: f.invoice, reason: "Matrix", amountMinor: 1 }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/invoices/invoice-actions.ts#startBalanceAction": {
+    page: (f) => `/my/invoices/${f.invoice}`,
+    args: (f) => [prev, { id: f.invoice }],
+    expect: "401 403 403 403 ok 403",
+  },
+  "lib/purchasing/purchasing-actions.ts#createSupplierAction": {
+    page: () => "/purchasing",
+    args: () => [prev, { name: "Matrix supplier (action)" }],
+    expect: "401 ok 403 ok 403 ok",
+  },
+  "lib/purchasing/purchasing-actions.ts#createPurchaseOrderAction": {
+    page: () => "/purchasing",
+    args: (f) => [prev, { supplierId: f.supplier, lines: [{ partId: f.part, quantity: 1 }] }],
+    expect: "401 ok 403 ok 403 422",
+  },
+  "lib/purchasing/purchasing-actions.ts#sendPurchaseOrderAction": {
+    page: (f) => `/purchasing/orders/${f.purchaseOrder}`,
+    args: (f) => [prev, { id: f.purchaseOrder }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/purchasing/purchasing-actions.ts#receivePurchaseOrderAction": {
+    page: (f) => `/purchasing/orders/${f.purchaseOrder}`,
+    args: (f) => [
+      prev,
+      { id: f.purchaseOrder, lines: [{ lineId: f.purchaseOrderLine, quantity: 1 }] },
+    ],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/notices/notice-actions.ts#retryNoticeAction": {
+    page: (f) => `/invoices/${f.invoice}`,
+    args: (f) => [prev, { id: f.mail }],
+    expect: "401 ok ok ok 403 404",
+  },
+  "lib/notices/notice-actions.ts#setShopNoticesAction": {
+    page: () => "/settings",
+    args: () => [prev, { on: false }],
+    expect: "401 ok ok ok 403 ok",
+  },
   "lib/preferences/preference-actions.ts#setUnitsAction": {
     page: (f) => `/builds/${f.build}`,
     args: () => [prev, formOf({ units: "metric" })],
@@ -605,7 +802,9 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
     [made.status, doomed.status, own.status, quote.status, log.status, share.status],
     "fixtures",
   ).toEqual([201, 201, 201, 201, 201, 201]);
+  const ops = await operationsFixtures(counter, tuner, portalCustomer, part!.id as string);
   return {
+    ...ops,
     build,
     customer: own.json.customer.id,
     vehicle: own.json.customer.vehicles[0].id,
@@ -619,5 +818,87 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
     share: share.json.link.id,
     inputs: demo!.inputs,
     portalCustomer,
+  };
+}
+
+/**
+ * Suppliers, a purchase order, a paid quote, jobs (one fitted and invoiced, one ready) and an
+ * issued invoice of the portal customer, made through the API.
+ */
+async function operationsFixtures(
+  counter: Client,
+  tuner: Client,
+  portalCustomer: string,
+  part: string,
+) {
+  const stamp = Date.now().toString(36);
+  const supplier = await request(counter, "POST", "/api/v1/suppliers", {
+    name: `Matrix supply ${stamp}`,
+    email: `matrix-supply-${stamp}@example.test`,
+    parts: [{ partId: part, supplierSku: "MX-1", costMinor: 100 }],
+  });
+  const doomedSupplier = await request(counter, "POST", "/api/v1/suppliers", {
+    name: `Matrix doomed supply ${stamp}`,
+  });
+  const po = await request(counter, "POST", "/api/v1/purchase-orders", {
+    supplierId: supplier.json.supplier.id,
+    lines: [{ partId: part, quantity: 1000 }],
+  });
+  /** A quote of the portal customer with one labour line, its deposit recorded paid. */
+  const paidQuote = async () => {
+    const q = await request(counter, "POST", "/api/v1/quotes", { customerId: portalCustomer });
+    await request(counter, "PATCH", `/api/v1/quotes/${q.json.quote.id}`, {
+      version: 1,
+      validUntil: "2099-01-31",
+      lines: [
+        {
+          kind: "labour",
+          description: "Matrix labour",
+          quantityMilli: 1000,
+          unitPriceMinor: 10000,
+          discountBp: 0,
+        },
+      ],
+    });
+    await sql`update quotes set status = 'deposit_paid', accepted_at = now() where id = ${q.json.quote.id}`;
+    return q.json.quote.id as string;
+  };
+  const [forJob, forReady, open] = [await paidQuote(), await paidQuote(), await paidQuote()];
+  const job = await request(counter, "POST", "/api/v1/jobs", { quoteId: forJob });
+  const ready = await request(counter, "POST", "/api/v1/jobs", { quoteId: forReady });
+  const fitted = await request(tuner, "POST", `/api/v1/jobs/${job.json.job.id}/fit`, {
+    version: job.json.job.version,
+    parts: [],
+    labourMilli: 1000,
+  });
+  const inv = await request(counter, "POST", "/api/v1/invoices", { jobId: job.json.job.id });
+  const issued = await request(counter, "POST", `/api/v1/invoices/${inv.json.invoice?.id}/issue`, {
+    version: inv.json.invoice?.version,
+  });
+  expect(
+    [
+      supplier.status,
+      doomedSupplier.status,
+      po.status,
+      job.status,
+      ready.status,
+      fitted.status,
+      inv.status,
+      issued.status,
+    ],
+    "operations fixtures",
+  ).toEqual([201, 201, 201, 201, 201, 200, 201, 200]);
+  const [mail] =
+    await sql`select id from mail_log where record_id = ${inv.json.invoice.id} limit 1`;
+  return {
+    supplier: supplier.json.supplier.id as string,
+    doomedSupplier: doomedSupplier.json.supplier.id as string,
+    purchaseOrder: po.json.purchaseOrder.po.id as string,
+    purchaseOrderLine: po.json.purchaseOrder.lines[0].id as string,
+    paidQuote: open,
+    job: job.json.job.id as string,
+    readyJob: ready.json.job.id as string,
+    invoice: inv.json.invoice.id as string,
+    mail: mail!.id as string,
   };
 }

@@ -66,6 +66,17 @@ const clients = {} as Record<Who, Client | null>;
 // Everything but sessions and rate-limit counters, which sign-ins and reads touch by design.
 const TABLES = [
   "account",
+  "credit_notes",
+  "invoice_lines",
+  "invoices",
+  "job_lines",
+  "jobs",
+  "mail_log",
+  "purchase_order_lines",
+  "purchase_orders",
+  "shop_notice_subscribers",
+  "supplier_parts",
+  "suppliers",
   "build_revisions",
   "builds",
   "customers",

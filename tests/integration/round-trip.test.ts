@@ -361,6 +361,74 @@ describe("load → save unchanged → the stored row is byte for byte the same",
     }
   });
 
+  it("suppliers and draft invoices, through PATCH: the same again writes nothing", async () => {
+    const [part] = await sql`select id from parts where shop_id = ${SHOP} order by sku limit 1`;
+    const made = await request(counter, "POST", "/api/v1/suppliers", {
+      name: `Round trip supply ${tag}`,
+      email: `rt-${tag.toLowerCase()}@supplier.example.test`,
+      leadTimeDays: 4,
+      parts: [{ partId: part!.id, supplierSku: "RT-1", costMinor: 1234 }],
+    });
+    expect(made.status).toBe(201);
+    const id = made.json.supplier.id as string;
+    const before = await rowText("suppliers", id);
+    const s = (await request(counter, "GET", `/api/v1/suppliers/${id}`)).json.supplier;
+    const patched = await request(counter, "PATCH", `/api/v1/suppliers/${id}`, {
+      version: s.version,
+      name: s.name,
+      email: s.email,
+      leadTimeDays: s.leadTimeDays,
+      parts: s.parts.map((p: { partId: string; supplierSku: string; costMinor: number }) => ({
+        partId: p.partId,
+        supplierSku: p.supplierSku,
+        costMinor: p.costMinor,
+      })),
+    });
+    expect(patched.status).toBe(200);
+    expect(await rowText("suppliers", id)).toBe(before);
+
+    // A draft invoice: its lines and notes sent back as loaded.
+    const [q] =
+      await sql`insert into quotes (shop_id, number, customer_id, status, currency, tax_rate_bp, valid_until, accepted_at)
+      values (${SHOP}, 900000 + floor(random() * 90000)::int, ${customerId}, 'deposit_paid', 'USD', 825, '2099-01-01', now()) returning id`;
+    await sql`insert into quote_lines (shop_id, quote_id, position, kind, description, quantity_milli, unit_price_minor)
+      values (${SHOP}, ${q!.id}, 1, 'labour', 'Round trip labour', 1500, 12000)`;
+    const job = await request(counter, "POST", "/api/v1/jobs", { quoteId: q!.id });
+    await request(tuner, "POST", `/api/v1/jobs/${job.json.job.id}/fit`, {
+      version: job.json.job.version,
+      parts: [],
+      labourMilli: 1500,
+    });
+    const inv = (await request(counter, "POST", "/api/v1/invoices", { jobId: job.json.job.id }))
+      .json.invoice;
+    const invBefore = await rowText("invoices", inv.id);
+    const again = await request(counter, "PATCH", `/api/v1/invoices/${inv.id}`, {
+      version: inv.version,
+      notes: inv.notes ?? "",
+      lines: inv.lines.map(
+        (l: {
+          kind: string;
+          partId: string | null;
+          sku: string | null;
+          description: string;
+          quantityMilli: number;
+          unitPriceMinor: number;
+          discountBp: number;
+        }) => ({
+          kind: l.kind,
+          partId: l.partId,
+          sku: l.sku,
+          description: l.description,
+          quantityMilli: l.quantityMilli,
+          unitPriceMinor: l.unitPriceMinor,
+          discountBp: l.discountBp,
+        }),
+      ),
+    });
+    expect(again.status).toBe(200);
+    expect(await rowText("invoices", inv.id)).toBe(invBefore);
+  });
+
   it("shop settings, through the settings form as the page fills it, in both unit systems", async () => {
     const names = [
       ...Object.keys(SEED_SETTINGS_FORM),

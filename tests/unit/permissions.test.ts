@@ -23,6 +23,16 @@ describe("permissions table", () => {
   it("better-auth's organization endpoints are for staff: customers are not shop members there", () => {
     for (const r of ROLES) expect(can(r, "organization:use")).toBe(r !== "customer");
   });
+  it("suppliers and purchase orders are staff only; customers read their own jobs and invoices and pay them", () => {
+    for (const r of ROLES) {
+      expect(can(r, "purchasing:read")).toBe(r !== "customer");
+      expect(can(r, "purchasing:write")).toBe(r === "owner" || r === "counter");
+      expect(can(r, "jobs:view")).toBe(true);
+      expect(can(r, "invoices:view")).toBe(true);
+      expect(can(r, "invoices:write")).toBe(r === "owner" || r === "counter");
+      expect(can(r, "invoices:pay")).toBe(r === "customer");
+    }
+  });
   it("every role named in the table is a known role", () => {
     for (const roles of Object.values(PERMISSIONS))
       for (const r of roles) expect(ROLES).toContain(r);

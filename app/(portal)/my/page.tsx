@@ -3,10 +3,18 @@ import Link from "next/link";
 
 import { EmptyState, PageHeader } from "@/components/ui/status";
 import { listBuildsOfPortalUser } from "@/db/queries/builds";
+import { listInvoices } from "@/db/queries/invoices";
+import { listJobs } from "@/db/queries/jobs";
 import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { STATUS_LABELS } from "@/lib/domain/builds";
+import {
+  INVOICE_STATUS_LABELS,
+  invoiceLabel,
+  JOB_STATUS_LABELS,
+  jobLabel,
+} from "@/lib/domain/operations";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 
 export const metadata: Metadata = { title: "My builds" };
@@ -14,9 +22,11 @@ export const metadata: Metadata = { title: "My builds" };
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
   const today = isoDay(); // a quote past its date shows as expired before the sweep writes it
-  const [builds, quotes] = await Promise.all([
+  const [builds, quotes, jobs, invoices] = await Promise.all([
     listBuildsOfPortalUser(m.shopId, m.user.id),
     listQuotes(m.shopId, { portalUserId: m.user.id }),
+    listJobs(m.shopId, m.user.id),
+    listInvoices(m.shopId, m.user.id),
   ]);
   return (
     <>
@@ -69,6 +79,40 @@ export default async function MyBuildsPage() {
             ))}
         </ul>
       )}
+      {jobs.length || invoices.length ? (
+        <section className="mt-8" aria-labelledby="work-h">
+          <h2 id="work-h" className="mb-2 text-lg font-semibold text-ink-900">
+            Work and invoices
+          </h2>
+          <ul className="divide-y divide-ink-100 rounded-lg border border-ink-200 bg-white text-sm">
+            {jobs.map((j) => (
+              <li key={j.job.id} className="px-4 py-2">
+                <Link
+                  href={`/my/jobs/${j.job.id}`}
+                  className="font-semibold text-copper-700 underline"
+                >
+                  Job {jobLabel(j.job.number)}
+                </Link>{" "}
+                <span className="text-ink-600">{JOB_STATUS_LABELS[j.job.status]}</span>
+              </li>
+            ))}
+            {invoices.map((i) => (
+              <li key={i.invoice.id} className="px-4 py-2">
+                <Link
+                  href={`/my/invoices/${i.invoice.id}`}
+                  className="font-semibold text-copper-700 underline"
+                >
+                  Invoice {invoiceLabel(i.invoice.number)}
+                </Link>{" "}
+                <span className="text-ink-600">
+                  {INVOICE_STATUS_LABELS[i.invoice.status]} ·{" "}
+                  {formatMoney(i.invoice.totalMinor, i.invoice.currency)}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
     </>
   );
 }

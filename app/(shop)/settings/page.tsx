@@ -1,9 +1,11 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 
+import { NoticeToggle } from "@/components/operations/notice-toggle";
 import { LocalTime } from "@/components/ui/local-time";
 import { PageHeader } from "@/components/ui/status";
 import { logoFacts } from "@/db/queries/logos";
+import { isNoticeSubscriber } from "@/db/queries/mail-log";
 import { listMembers, listPendingInvitations } from "@/db/queries/members";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
@@ -39,16 +41,26 @@ export default async function SettingsPage() {
   const s = await getShopSettings(m.shopId);
   if (!s) notFound();
   const owner = can(m.role, "members:manage");
-  const [members, invitations, logo, measured, units] = await Promise.all([
+  const [members, invitations, logo, measured, units, notices] = await Promise.all([
     listMembers(m.shopId),
     owner ? listPendingInvitations(m.shopId) : Promise.resolve([]),
     logoFacts(m.shopId),
     shopBsfc(m.shopId),
     unitSystemOf(m.user.id, m.shopId),
+    isNoticeSubscriber(m.shopId, m.user.id),
   ]);
   return (
     <>
       <PageHeader title="Settings" />
+      <section
+        aria-labelledby="my-notices"
+        className="mb-8 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="my-notices" className="mb-2 text-xl font-semibold">
+          My notices
+        </h2>
+        <NoticeToggle on={notices} />
+      </section>
       <div className="grid gap-8 xl:grid-cols-[1fr_26rem]">
         <section
           aria-labelledby="shop-defaults"
