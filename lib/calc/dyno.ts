@@ -14,6 +14,14 @@ export interface PullSample {
   /** Fuel pressure across the injector (rail minus manifold), kPa. */
   fuelDiffKpa?: number | null;
   powerKw?: number | null;
+  /** Exhaust gas temperature per cylinder, °C, in cylinder order (null: that cell was blank). */
+  egtC?: (number | null)[] | null;
+  /** Exhaust manifold pressure above atmosphere, kPa. */
+  exhaustKpa?: number | null;
+  turboRpm?: number | null;
+  intakeTempC?: number | null;
+  /** Ignition timing, degrees before top dead centre. */
+  timingDeg?: number | null;
 }
 
 export interface PullContext {
