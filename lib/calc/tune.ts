@@ -113,7 +113,8 @@ export function crankPowerKw(q: {
  */
 export function lambdaTargetAt(table: TuneLimits["lambdaTargets"], boostKpa: number): number {
   if (!table.length) throw new CalcInputError("lambdaTargets", "Give at least one lambda target");
-  requireRange("boostKpa", boostKpa, -ATMOSPHERE_KPA, 1e4, "Boost");
+  // Any logged boost is judged: beyond the table's rows the end rows hold.
+  if (!Number.isFinite(boostKpa)) throw new CalcInputError("boostKpa", "Boost must be a number");
   const rows = [...table].sort((a, b) => a.boostKpa - b.boostKpa);
   if (boostKpa <= rows[0]!.boostKpa) return rows[0]!.lambda;
   for (let i = 1; i < rows.length; i++) {
@@ -198,7 +199,11 @@ export function preparePull(
       );
   }
   const byRpm = new Map<number, PullSample[]>();
-  for (const s of usable) byRpm.set(s.rpm, [...(byRpm.get(s.rpm) ?? []), s]);
+  for (const s of usable) {
+    const group = byRpm.get(s.rpm);
+    if (group) group.push(s);
+    else byRpm.set(s.rpm, [s]);
+  }
   const repeated = usable.length - byRpm.size;
   if (repeated > 0)
     note(
@@ -206,7 +211,7 @@ export function preparePull(
       "{count} rows repeated an engine speed already logged; each repeat was averaged with it.",
       { count: { value: repeated, quantity: "count" } },
     );
-  const cylinders = Math.max(0, ...usable.map((s) => s.egtC?.length ?? 0));
+  const cylinders = usable.reduce((m, s) => Math.max(m, s.egtC?.length ?? 0), 0);
   const points: TunePoint[] = [...byRpm.entries()]
     .sort((a, b) => a[0] - b[0])
     .map(([rpm, group]) => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 
 import {
+  analyzePull,
   checkLimits,
   crankPowerKw,
   DatalogMappingSchema,
@@ -117,6 +118,20 @@ describe("lambda target following boost", () => {
       crank,
     );
     expect(check(checkLimits(p.points, limits()), "lambda").status).toBe("within");
+  });
+
+  it("lets the single-log analysis judge lambda against the table too", () => {
+    // λ 0.86 held at 60 kPa under load: against one boosted target of 0.78 it read 0.08 lean
+    // ("danger … stop pulls"); against the table's 0.86 at 60 kPa it is on target.
+    const samples = pull(() => ({ boostKpa: 60, lambda: 0.86 }));
+    const ctx = { ...e85, targetLambda: 0.78, dutyDangerPct: 90 };
+    expect(analyzePull(samples, ctx).warnings.map((w) => w.code)).toContain("log-lambda-lean");
+    const table = analyzePull(samples, {
+      ...ctx,
+      lambdaTargetAt: (b) => lambdaTargetAt(DEFAULT_TUNE_LIMITS.lambdaTargets, b),
+    });
+    expect(table.warnings.map((w) => w.code)).not.toContain("log-lambda-lean");
+    expect(table.lambda!.worstError).toBeCloseTo(0, 9);
   });
 
   it("marks a pull over where it runs leaner than the target at that boost, with where and by how much", () => {
