@@ -511,7 +511,7 @@ export function checkLimits(points: TunePoint[], limits: TuneLimits): LimitCheck
       message: {
         over: "Ran {measured} at {rpm} where the table asks {target} at {boost}: {by} leaner than the allowed {limit}. Stop and richen before the next pull.",
         near: "Leanest {measured} at {rpm} against {target} at {boost}: within the allowance, {by} short of {limit}.",
-        within: "On the table: leanest {measured} at {rpm} against {target} at {boost}.",
+        within: "on the table: leanest {measured} at {rpm} against {target} at {boost}.",
         "no-data": "",
         "not-set": "",
       }[status],

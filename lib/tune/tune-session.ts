@@ -15,6 +15,7 @@ import {
   predictNextStep,
   preparePull,
   samplesFromLog,
+  sizeParsedFuelSystem,
   suggestMapping,
   summarizePull,
   TuneLimitsSchema,
@@ -255,4 +256,83 @@ function nextStep(
     if (e instanceof CalcInputError) return { from: null, reason: e.message };
     throw e;
   }
+}
+
+/** What the spec sheet prints of the session: the best pull per fuel, and what stopped the climb. */
+export interface SheetSession {
+  best: {
+    position: number;
+    ethanolPct: number;
+    crankKw: number;
+    rpm: number;
+    boostKpa: number | null;
+    measured: { bsfcGPerKwh: number | null; dutyPct: number | null };
+    predicted: { bsfcGPerKwh: number; dutyPct: number };
+  }[];
+  /** The last pull's limits crossed (else those it came near), with their reasons. */
+  stoppedBy: { position: number; checks: LimitCheck[] } | null;
+}
+
+/**
+ * The session for the spec sheet: per fuel (ethanol content), the pull with the most crank power
+ * and the sizing's prediction at that power, boost and fuel; and the limits the last pull met.
+ */
+export async function sheetSession(
+  shopId: string,
+  buildId: string,
+  input: ParsedFuelSystemInput,
+): Promise<SheetSession | null> {
+  const pulls = (await listTunePulls(shopId, buildId))
+    .map((r) => r.pull)
+    .filter((p) => !p.excluded);
+  if (!pulls.length) return null;
+  const { limits } = limitsInForce(await tuneLimitsOf(shopId, buildId));
+  const byFuel = new Map<number, (typeof pulls)[number]>();
+  for (const p of pulls) {
+    const best = byFuel.get(p.ethanolPct);
+    if (
+      p.summary.peakPower &&
+      (!best || p.summary.peakPower.crankKw > (best.summary.peakPower?.crankKw ?? 0))
+    )
+      byFuel.set(p.ethanolPct, p);
+  }
+  const best = [...byFuel.values()]
+    .sort((a, b) => a.ethanolPct - b.ethanolPct)
+    .map((p) => {
+      const power = p.summary.peakPower!;
+      const boost = p.summary.peakBoostKpa ?? p.boostTargetKpa;
+      const sized = sizeParsedFuelSystem({
+        ...input,
+        engine: {
+          ...input.engine,
+          maxBoostKpa:
+            input.engine.aspiration === "na" ? 0 : Math.min(500, Math.max(0, boost ?? 0)),
+        },
+        target: { ...input.target, powerKw: Math.max(1, power.crankKw), measuredAt: "crank" },
+        fuel: { ...input.fuel, ethanolMinVolPct: p.ethanolPct, ethanolMaxVolPct: p.ethanolPct },
+      });
+      return {
+        position: p.position,
+        ethanolPct: p.ethanolPct,
+        crankKw: power.crankKw,
+        rpm: power.rpm,
+        boostKpa: boost,
+        measured: {
+          bsfcGPerKwh: p.summary.measuredBsfc?.gPerKwh ?? null,
+          dutyPct: p.summary.peakDuty?.pct ?? null,
+        },
+        predicted: { bsfcGPerKwh: sized.blend.rich.bsfcGPerKwh, dutyPct: sized.injector.dutyPct },
+      };
+    });
+  const last = pulls[pulls.length - 1]!;
+  const checks = checkLimits(last.points, limits);
+  const over = checks.filter((c) => c.status === "over");
+  const near = checks.filter((c) => c.status === "near");
+  return {
+    best,
+    stoppedBy:
+      over.length || near.length
+        ? { position: last.position, checks: over.length ? over : near }
+        : null,
+  };
 }

@@ -63,7 +63,7 @@ describe("tune session", () => {
     const first = page.getByTestId("pull-1");
     await first.getByText("Limits and what was done to the log").click();
     const lambda = (await first.getByTestId("limit-lambda").innerText()).replace(/\s+/g, " ");
-    expect(lambda).toMatch(/Within Lambda against the boost table: On the table/);
+    expect(lambda).toMatch(/Within Lambda against the boost table: on the table/);
     // Pull 3 crossed the EGT spread, and says where, by how much and why.
     const third = page.getByTestId("pull-3");
     await expect(third.getByText("Over: egt spread between cylinders").count()).resolves.toBe(1);

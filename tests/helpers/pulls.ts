@@ -14,7 +14,7 @@ export interface PullSpec {
 }
 
 export const PULL_HEADERS =
-  "RPM,Injector Duty,Lambda,Boost,Fuel Pressure Diff,Wheel Power,EGT 1,EGT 2,EGT 3,EGT 4,EGT 5,EGT 6,EMAP,Turbo Speed,IAT,Ign Timing";
+  "RPM,Injector Duty,Lambda,Boost,Fuel Pressure Diff,Wheel Power,EGT 1,EGT 2,EGT 3,EGT 4,EGT 5,EGT 6,Exhaust Press,Turbo Speed,IAT,Ign Timing";
 export const PULL_UNITS = "rpm,%,λ,kPa,kPa,kW,°C,°C,°C,°C,°C,°C,kPa,rpm,°C,deg";
 
 /** λ target of the default table (0 → 0.90, 60 → 0.86, 150 → 0.80, 250 → 0.78 kPa). */

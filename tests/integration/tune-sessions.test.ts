@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
-import { BASE_URL, request, signIn, type Client } from "../helpers/http";
+import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
+import { inspectPdf } from "../helpers/pdf";
 import { THREE_PULLS } from "../helpers/pulls";
 
 // Its own build (a copy of the demo turbo six on E85, db/seed.ts: 6 × 1300 cc/min at 300 kPa,
@@ -18,13 +19,14 @@ beforeAll(async () => {
     signIn("customer@demo.fuelwright.test"),
     signIn(other.email, other.password),
   ]);
-  const [b] = await sql<{ id: string }[]>`
-    insert into builds (shop_id, customer_id, title, vehicle, status, inputs, inputs_schema_version,
-      result, calc_version, sizing_settings, parts)
-    select shop_id, customer_id, 'Tune session test', vehicle, 'sized', inputs, inputs_schema_version,
-      result, calc_version, sizing_settings, parts from builds where id = ${DEMO}
-    returning id`;
-  BUILD = b!.id;
+  const [demo] = await sql`select customer_id, inputs from builds where id = ${DEMO}`;
+  const made = await request(tuner, "POST", "/api/v1/builds", {
+    customerId: demo!.customer_id,
+    title: "Tune session test",
+    inputs: demo!.inputs,
+  });
+  expect(made.status).toBe(201);
+  BUILD = made.json.build.id;
 });
 afterAll(async () => {
   await sql.end();
@@ -122,6 +124,18 @@ describe("tune sessions", () => {
     const at200 = await session(counter, "?nextBoostKpa=200");
     // Worked by hand: 423.53 × (101.325 + 200) / (101.325 + 150) = 507.79 kW.
     expect(at200.next.step!.crankKw).toBeCloseTo(((360 / 0.85) * 301.325) / 251.325, 3);
+  });
+
+  it("prints the session on the spec sheet: best pull per fuel and what stopped the climb", async () => {
+    const pdf = await getBytes(counter, `/api/v1/builds/${BUILD}/spec-sheet`);
+    expect(pdf.status).toBe(200);
+    const text = inspectPdf(pdf.bytes).text.replace(/\s+/g, " ");
+    expect(text).toContain("Tune session");
+    // E10 and E85 each have a best pull: #1 and #3 (the most crank power on E85).
+    expect(text).toMatch(/#1, E10/);
+    expect(text).toMatch(/#3, E85/);
+    expect(text).toContain("What stopped the climb (pull #3)");
+    expect(text).toMatch(/Over — EGT spread between cylinders: Cylinder 3 ran/);
   });
 
   it("refuses a log the mapping cannot place, naming the column, and stores nothing", async () => {
