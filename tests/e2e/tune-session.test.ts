@@ -38,12 +38,16 @@ describe("tune session", () => {
     const session = page.getByTestId("tune-session");
     await expect.poll(() => session.getByText("No pulls yet").count(), { timeout: 30000 }).toBe(1);
     const form = session.getByRole("form", { name: "Add a pull" });
+    // The tuner's own unit system (the shop's imperial unless they chose metric): the boost field says.
+    const imperial = /psi/.test(await form.getByText(/^Boost target/).innerText());
     for (const p of THREE_PULLS) {
       await form
         .getByLabel("Pull log (CSV)")
         .setInputFiles({ name: p.name, mimeType: "text/csv", buffer: Buffer.from(p.csv) });
       await form.getByLabel("Ethanol content (%)").fill(String(p.ethanolPct));
-      await form.getByLabel(/Boost target/).fill(psi(p.boostTargetKpa));
+      await form
+        .getByLabel(/Boost target/)
+        .fill(imperial ? psi(p.boostTargetKpa) : String(p.boostTargetKpa));
       await form.getByLabel("Power measured at").selectOption("wheel");
       await form.getByRole("button", { name: "Add pull" }).click();
       await expect
@@ -71,7 +75,9 @@ describe("tune session", () => {
     const spread = (await third.getByTestId("limit-egtSpread").innerText()).replace(/\s+/g, " ");
     // 100 °C between cylinders is 180 °F; 80 °C allowed is 144 °F, 20 °C over is 36 °F (× 1.8).
     expect(spread).toMatch(
-      /Over.*Cylinder 3 ran 180 °F hotter than cylinder 1 at 6000 rpm, 36 °F past the 144 °F allowed/,
+      imperial
+        ? /Over.*Cylinder 3 ran 180 °F hotter than cylinder 1 at 6000 rpm, 36 °F past the 144 °F allowed/
+        : /Over.*Cylinder 3 ran 100 °C hotter than cylinder 1 at 6000 rpm, 20 °C past the 80 °C allowed/,
     );
     // Pulls are drawn apart from the limit mark.
     await expect
@@ -86,7 +92,9 @@ describe("tune session", () => {
     const next = page.getByTestId("next-step");
     await expect.poll(() => next.getByText(/From pull 3/).count()).toBe(1);
     await expect(next.getByTestId("runs-out-first").innerText()).resolves.toMatch(
-      /^the (injectors|fuel pump|feed line), at \d+ hp$/,
+      imperial
+        ? /^the (injectors|fuel pump|feed line), at \d+ hp$/
+        : /^the (injectors|fuel pump|feed line), at \d+ kW$/,
     );
     await expect(next.getByText("Injector duty").count()).resolves.toBe(1);
     await page.screenshot({ path: "test-results/screenshots/tune-session.png", fullPage: true });
