@@ -1,6 +1,11 @@
 import "server-only";
 
-import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
 
 import { NotFound, Unavailable } from "@/lib/domain/errors";
 import { serverEnv } from "@/lib/env";
@@ -48,6 +53,17 @@ export async function putObject(key: string, body: Buffer, contentType: string) 
       }),
     ),
   );
+}
+
+/** Removes a stored file; one already gone is fine. */
+export async function deleteObject(key: string) {
+  try {
+    await storage(() =>
+      s3().send(new DeleteObjectCommand({ Bucket: serverEnv().S3_BUCKET, Key: key })),
+    );
+  } catch (e) {
+    if (!(e instanceof NotFound)) throw e;
+  }
 }
 
 export async function getObject(key: string): Promise<Buffer> {

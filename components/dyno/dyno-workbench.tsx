@@ -31,6 +31,8 @@ import {
 import { analyseDatalogAction, verifyDatalogAction } from "@/lib/dyno/dyno-actions";
 import { fetcher } from "@/lib/fetcher";
 
+import { axisLabel, tooltipValue } from "./tune-chart";
+
 const COPPER = "#b3592c";
 const INK = "#44505c";
 const TEAL = "#1f7a5a";
@@ -556,19 +558,47 @@ function PullChart({ points, units }: { points: Point[]; units: UnitSystem }) {
             />
             <YAxis
               yAxisId="duty"
-              tickFormatter={axisTick("%")}
               tick={{ fontSize: 11 }}
               width={48}
+              label={{ value: "duty (%)", angle: -90, position: "insideLeft", fontSize: 11 }}
             />
             <YAxis
               yAxisId="lambda"
               orientation="right"
               domain={[0.6, 1.1]}
               tick={{ fontSize: 11 }}
-              width={40}
+              width={44}
+              label={{ value: "lambda (λ)", angle: 90, position: "insideRight", fontSize: 11 }}
             />
-            <YAxis yAxisId="kpa" hide domain={[0, "dataMax"]} />
-            <Tooltip />
+            {/* Fuel ΔP on an axis of its own, in the reader's pressure unit (never the duty axis). */}
+            <YAxis
+              yAxisId="kpa"
+              orientation="right"
+              domain={[0, "dataMax"]}
+              tick={{ fontSize: 11 }}
+              width={52}
+              label={{
+                value: axisLabel({ label: "fuel ΔP", quantity: "pressure" }, units),
+                angle: 90,
+                position: "insideRight",
+                fontSize: 11,
+              }}
+            />
+            <Tooltip
+              labelFormatter={(rpm) => formatValue("speed", Number(rpm), units)}
+              formatter={(value, name, item) => [
+                tooltipValue(
+                  value,
+                  String(item.dataKey) === "fuelDiff"
+                    ? "pressure"
+                    : String(item.dataKey).startsWith("lambda")
+                      ? "lambda"
+                      : "percent",
+                  units,
+                ),
+                name,
+              ]}
+            />
             <Legend />
             <Line
               yAxisId="duty"

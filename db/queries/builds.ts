@@ -262,6 +262,8 @@ export async function createBuild(
     status?: BuildStatus;
     note?: string;
     sized: NonNullable<BuildPatch["sized"]>;
+    /** "Copy as next power step": the build it continues (same shop, checked by the caller). */
+    previousStepId?: string;
   },
 ) {
   return db.transaction(async (tx) => {
@@ -292,6 +294,7 @@ export async function createBuild(
         vehicleId,
         ...(v.status ? { status: v.status } : {}),
         ...v.sized,
+        ...(v.previousStepId ? { previousStepId: v.previousStepId } : {}),
         tunerId: draft ? null : userId,
         createdBy: userId,
         updatedBy: userId,

@@ -1,17 +1,29 @@
 import { relations, sql } from "drizzle-orm";
 import {
+  boolean,
   index,
   integer,
   jsonb,
   pgTable,
   primaryKey,
+  real,
   text,
   timestamp,
   uniqueIndex,
   uuid,
+  type AnyPgColumn,
 } from "drizzle-orm/pg-core";
 
-import type { FuelSystemResult, ParsedFuelSystemInput } from "@/lib/calc";
+import type {
+  DatalogMapping,
+  FuelSystemResult,
+  ParsedFuelSystemInput,
+  PowerMeasuredAt,
+  TuneLimits,
+  TunePoint,
+  TunePullSummary,
+  Warning,
+} from "@/lib/calc";
 import { BUILD_STATUSES, type ChosenPart } from "@/lib/domain/builds";
 import type { SizingSettings } from "@/lib/sizing/effective-inputs";
 
@@ -60,6 +72,10 @@ export const builds = pgTable(
     version: integer("version").notNull().default(1),
     /** Lower-cased title, vehicle and customer name, for the trigram search of the builds table. */
     searchText: text("search_text").notNull().default(""),
+    /** "Copy as next power step": the build (step) this one was copied from. */
+    previousStepId: uuid("previous_step_id").references((): AnyPgColumn => builds.id, {
+      onDelete: "set null",
+    }),
     /** The tuner responsible for the build (the creator unless reassigned). */
     tunerId: text("tuner_id").references(() => user.id, { onDelete: "set null" }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
@@ -165,3 +181,65 @@ export const datalogMappings = pgTable(
   },
   (t) => [primaryKey({ columns: [t.shopId, t.headerKey] })],
 );
+
+/** A build's tune session: its own limits (null: the shop's, shop_settings.tune_limits). */
+export const tuneSessions = pgTable(
+  "tune_sessions",
+  {
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id")
+      .notNull()
+      .references(() => builds.id, { onDelete: "cascade" }),
+    limits: jsonb("limits").$type<TuneLimits>(),
+    updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.shopId, t.buildId] })],
+);
+
+/**
+ * One pull of a build's tune session, in order (`position`): its fuel, boost target, notes and
+ * log (a datalog of the build), where the dyno measured power, and what the pull measured —
+ * points in canonical units with power at the crank (lib/calc/tune preparePull), the summary and
+ * the notes on what was done to the log. Limits are judged when read (they can change).
+ */
+export const tunePulls = pgTable(
+  "tune_pulls",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: text("shop_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    buildId: uuid("build_id")
+      .notNull()
+      .references(() => builds.id, { onDelete: "cascade" }),
+    datalogId: uuid("datalog_id")
+      .notNull()
+      .references(() => datalogs.id, { onDelete: "cascade" }),
+    position: integer("position").notNull(),
+    ethanolPct: real("ethanol_pct").notNull(),
+    /** Boost asked of this pull, kPa gauge; null: not stated (naturally aspirated, or unknown). */
+    boostTargetKpa: real("boost_target_kpa"),
+    notes: text("notes").notNull().default(""),
+    powerMeasuredAt: text("power_measured_at", { enum: ["crank", "wheel", "hub"] })
+      .$type<PowerMeasuredAt>()
+      .notNull(),
+    /** The drivetrain loss the power was carried to the crank with (the build's, when uploaded). */
+    drivetrainLossPct: real("drivetrain_loss_pct").notNull(),
+    excluded: boolean("excluded").notNull().default(false),
+    mapping: jsonb("mapping").$type<DatalogMapping>().notNull(),
+    points: jsonb("points").$type<TunePoint[]>().notNull(),
+    summary: jsonb("summary").$type<TunePullSummary>().notNull(),
+    logNotes: jsonb("log_notes").$type<Warning[]>().notNull().default([]),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("tune_pulls_build_idx").on(t.shopId, t.buildId, t.position),
+    uniqueIndex("tune_pulls_datalog_idx").on(t.datalogId),
+  ],
+);
+export type TunePullRow = typeof tunePulls.$inferSelect;

@@ -3,6 +3,7 @@ import {
   customType,
   index,
   integer,
+  jsonb,
   pgTable,
   real,
   text,
@@ -10,6 +11,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 
+import type { TuneLimits } from "@/lib/calc";
 import { PAPER_SIZES } from "@/lib/domain/documents";
 
 import { organization, user } from "./auth";
@@ -55,6 +57,8 @@ export const shopSettings = pgTable("shop_settings", {
   gasolineStoichAfr: real("gasoline_stoich_afr"),
   ethanolDensityKgPerL: real("ethanol_density_kg_per_l"),
   ethanolStoichAfr: real("ethanol_stoich_afr"),
+  /** Default limits of every build's tune session (lib/calc TuneLimits); null: the library's. */
+  tuneLimits: jsonb("tune_limits").$type<TuneLimits>(),
   /** Paper of every PDF the shop makes. */
   paperSize: text("paper_size", { enum: PAPER_SIZES }).notNull().default("letter"),
   /** IANA zone of every date a person reads in the shop's documents and e-mails. */

@@ -25,6 +25,10 @@ export const KPA_PER_BAR = 100;
 /** °F ↔ °C: t/°C = (t/°F − 32) / 1.8 exactly (NIST SP 811 B.8). */
 export const celsiusFromFahrenheit = (f: number): number => (f - 32) / 1.8;
 export const fahrenheitFromCelsius = (c: number): number => c * 1.8 + 32;
+/** A temperature difference: 1 K = 1.8 °F·difference exactly (NIST SP 811 B.8, no offset). */
+export const FAHRENHEIT_DEGREES_PER_KELVIN = 1.8;
+/** 1 lbf·ft = 0.45359237 × 9.80665 N × 0.3048 m = 1.355 817 948 N·m (NIST SP 811, exact factors). */
+export const NM_PER_LBF_FT = KG_PER_LB * STANDARD_GRAVITY_M_PER_S2 * M_PER_FT;
 /** 1 hp (550 ft·lbf/s) = 0.74569987158227 kW (NIST SP 811). */
 export const KW_PER_HP = 0.74569987158227022;
 /** 1 metric horsepower (PS) = 0.73549875 kW (NIST SP 811). */

@@ -14,6 +14,14 @@ export interface PullSample {
   /** Fuel pressure across the injector (rail minus manifold), kPa. */
   fuelDiffKpa?: number | null;
   powerKw?: number | null;
+  /** Exhaust gas temperature per cylinder, °C, in cylinder order (null: that cell was blank). */
+  egtC?: (number | null)[] | null;
+  /** Exhaust manifold pressure above atmosphere, kPa. */
+  exhaustKpa?: number | null;
+  turboRpm?: number | null;
+  intakeTempC?: number | null;
+  /** Ignition timing, degrees before top dead centre. */
+  timingDeg?: number | null;
 }
 
 export interface PullContext {
@@ -22,6 +30,11 @@ export interface PullContext {
   ratedPressureKpa: number;
   densityKgPerL: number;
   targetLambda: number;
+  /**
+   * The target at a sample's boost (a lambda table, lib/calc/tune lambdaTargetAt): when given,
+   * each loaded sample is judged against its own boost's target instead of `targetLambda`.
+   */
+  lambdaTargetAt?: (boostKpa: number) => number;
   /** Duty above which the sizing calls it danger (the shop's setting). */
   dutyDangerPct: number;
   /** The differential the regulator should hold, kPa. */
@@ -82,7 +95,9 @@ export function analyzePull(samples: PullSample[], c: PullContext): PullAnalysis
   const loaded = rows.filter((s) => (sampleDutyPct(s) ?? 0) > 20 && finite(s.lambda));
   let lambda: PullAnalysis["lambda"] = null;
   if (loaded.length) {
-    const errs = loaded.map((s) => ({ e: s.lambda! - c.targetLambda, rpm: s.rpm }));
+    const target = (s: PullSample) =>
+      c.lambdaTargetAt ? c.lambdaTargetAt(finite(s.boostKpa) ? s.boostKpa : 0) : c.targetLambda;
+    const errs = loaded.map((s) => ({ e: s.lambda! - target(s), rpm: s.rpm }));
     const worst = errs.reduce((a, b) => (Math.abs(b.e) > Math.abs(a.e) ? b : a));
     lambda = {
       meanAbsError: errs.reduce((t, x) => t + Math.abs(x.e), 0) / errs.length,

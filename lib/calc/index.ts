@@ -118,6 +118,7 @@ export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";
 export type { PullSample, PullContext, PullAnalysis } from "./dyno";
 export {
   DatalogMappingSchema,
+  MAX_EGT_COLUMNS,
   headerKey,
   mappingProblems,
   samplesFromLog,
@@ -134,3 +135,31 @@ export {
   MEASURED_BSFC_RANGE,
 } from "./shop-bsfc";
 export type { BsfcPoint, ShopBsfcRow, FuelClass, AspirationClass } from "./shop-bsfc";
+export {
+  BACK_PRESSURE_MIN_BOOST_KPA,
+  checkLimits,
+  crankPowerKw,
+  DEFAULT_TUNE_LIMITS,
+  LambdaTargetSchema,
+  lambdaTargetAt,
+  LIMIT_KEYS,
+  LIMIT_LABELS,
+  MAX_PULL_POINTS,
+  POWER_MEASURED_AT,
+  powerAtBoostKw,
+  predictNextStep,
+  preparePull,
+  summarizePull,
+  TuneLimitsSchema,
+} from "./tune";
+export type {
+  LimitCheck,
+  LimitKey,
+  LimitStatus,
+  NextStep,
+  PowerMeasuredAt,
+  StepTarget,
+  TuneLimits,
+  TunePoint,
+  TunePullSummary,
+} from "./tune";

@@ -1,7 +1,13 @@
 // Reference: docs/calculations.md §6.
 import { z } from "zod";
 
-import { ATMOSPHERE_KPA, KPA_PER_BAR, KPA_PER_PSI, KW_PER_HP } from "./constants";
+import {
+  ATMOSPHERE_KPA,
+  celsiusFromFahrenheit,
+  KPA_PER_BAR,
+  KPA_PER_PSI,
+  KW_PER_HP,
+} from "./constants";
 import type { Datalog } from "./datalog";
 import type { PullSample } from "./dyno";
 
@@ -11,6 +17,9 @@ const KW_PER = { kW: 1, hp: KW_PER_HP } as const;
 
 const col = z.string({ error: "Choose a column" }).min(1, "Choose a column");
 const pressureUnit = z.enum(["kPa", "bar", "psi"], { error: "Choose kPa, bar or psi" });
+const temperatureUnit = z.enum(["C", "F"], { error: "Choose °C or °F" });
+/** Most cylinders an engine of the sizing schema has (EngineSchema): one EGT column each at most. */
+export const MAX_EGT_COLUMNS = 16;
 
 /** Which log column is what, and in which units: what the tuner picks on the mapping screen. */
 export const DatalogMappingSchema = z.object({
@@ -34,6 +43,26 @@ export const DatalogMappingSchema = z.object({
     .optional(),
   ethanol: z.object({ column: col }).optional(),
   power: z.object({ column: col, unit: z.enum(["kW", "hp"]) }).optional(),
+  /** Exhaust gas temperature, one column per cylinder (any number of them), in cylinder order. */
+  egt: z
+    .object({
+      columns: z
+        .array(col)
+        .min(1, "Choose at least one EGT column")
+        .max(MAX_EGT_COLUMNS, `At most ${MAX_EGT_COLUMNS} EGT columns`),
+      unit: temperatureUnit,
+    })
+    .optional(),
+  /** Exhaust manifold pressure (before the turbine). */
+  exhaustPressure: z
+    .object({ column: col, kind: z.enum(["gauge", "absolute"]), unit: pressureUnit })
+    .optional(),
+  turboSpeed: z
+    .object({ column: col, unit: z.enum(["rpm", "krpm"], { error: "Choose rpm or krpm" }) })
+    .optional(),
+  intakeTemp: z.object({ column: col, unit: temperatureUnit }).optional(),
+  /** Ignition timing in degrees before top dead centre. */
+  timing: z.object({ column: col }).optional(),
 });
 export type DatalogMapping = z.output<typeof DatalogMappingSchema>;
 
@@ -58,13 +87,24 @@ export function mappingProblems(
     ["fuelPressure.column", m.fuelPressure?.column],
     ["ethanol.column", m.ethanol?.column],
     ["power.column", m.power?.column],
+    ...(m.egt?.columns ?? []).map((c, i): [string, string] => [`egt.columns.${i}`, c]),
+    ["exhaustPressure.column", m.exhaustPressure?.column],
+    ["turboSpeed.column", m.turboSpeed?.column],
+    ["intakeTemp.column", m.intakeTemp?.column],
+    ["timing.column", m.timing?.column],
   ];
   return named
     .filter(([, c]) => c !== undefined && !headers.includes(c))
     .map(([path, c]) => ({ path, message: `The log has no column "${c}"` }));
 }
 
-/** The log's rows as samples in canonical units (kPa gauge, differential pressure, lambda, kW). */
+const celsius = (v: number | null, unit: "C" | "F") =>
+  v === null ? null : unit === "F" ? celsiusFromFahrenheit(v) : v;
+
+/**
+ * The log's rows as samples in canonical units (kPa gauge, differential pressure, lambda, kW,
+ * °C, rpm, degrees): °F, psi, bar, absolute pressures, AFR and krpm converted here.
+ */
 export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
   const at = (c: string | undefined) => (c === undefined ? -1 : log.headers.indexOf(c));
   const i = {
@@ -74,6 +114,11 @@ export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
     boost: at(m.boost?.column),
     fuel: at(m.fuelPressure?.column),
     power: at(m.power?.column),
+    egt: (m.egt?.columns ?? []).map((c) => at(c)),
+    exhaust: at(m.exhaustPressure?.column),
+    turbo: at(m.turboSpeed?.column),
+    iat: at(m.intakeTemp?.column),
+    timing: at(m.timing?.column),
   };
   const v = (row: (number | null)[], idx: number) => (idx < 0 ? null : (row[idx] ?? null));
   return log.rows.map((row) => {
@@ -109,8 +154,34 @@ export function samplesFromLog(log: Datalog, m: DatalogMapping): PullSample[] {
       boostKpa,
       fuelDiffKpa,
       powerKw: power === null || !m.power ? null : power * KW_PER[m.power.unit],
+      ...(m.egt ? { egtC: i.egt.map((idx) => celsius(v(row, idx), m.egt!.unit)) } : {}),
+      ...(m.exhaustPressure
+        ? {
+            exhaustKpa: ((raw) =>
+              raw === null
+                ? null
+                : raw * KPA_PER[m.exhaustPressure!.unit] -
+                  (m.exhaustPressure!.kind === "absolute" ? ATMOSPHERE_KPA : 0))(v(row, i.exhaust)),
+          }
+        : {}),
+      ...(m.turboSpeed
+        ? {
+            turboRpm: ((raw) =>
+              raw === null ? null : m.turboSpeed!.unit === "krpm" ? raw * 1000 : raw)(
+              v(row, i.turbo),
+            ),
+          }
+        : {}),
+      ...(m.intakeTemp ? { intakeTempC: celsius(v(row, i.iat), m.intakeTemp.unit) } : {}),
+      ...(m.timing ? { timingDeg: v(row, i.timing) } : {}),
     };
   });
+}
+
+/** The cylinder number a column names ("EGT 3" → 3); columns without one sort last. */
+function cylinderOf(h: string): number {
+  const n = /(\d+)(?!.*\d)/.exec(h);
+  return n ? Number(n[1]) : Number.MAX_SAFE_INTEGER;
 }
 
 /** A first guess from the headers and units row, for a logger the shop has not mapped yet. */
@@ -125,7 +196,9 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
         ? "bar"
         : "kPa") as "kPa" | "bar" | "psi";
   const out: Partial<DatalogMapping> = {};
-  const rpm = find(/\b(rpm|engine ?speed)\b/i);
+  const rpm = log.headers.find(
+    (h) => /\b(rpm|engine ?speed)\b/i.test(h) && !/turbo|shaft|\btss\b/i.test(h),
+  );
   if (rpm) out.rpm = rpm;
   const duty = find(/duty|\bidc\b/i);
   const pw = find(/pulse|\bipw\b|inj(ector)? ?(pw|time)/i);
@@ -135,8 +208,10 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   const afr = find(/\bafr\b|air.?fuel/i);
   if (lam) out.mixture = { column: lam, kind: "lambda", afrStoich: 14.7 };
   else if (afr) out.mixture = { column: afr, kind: "afr", afrStoich: 14.7 };
-  const map = find(/\bmap\b|manifold/i);
-  const boost = find(/boost/i);
+  // Exhaust and temperature columns name "manifold" too: they are not the intake's pressure.
+  const notIntake = (h: string) => /exhaust|\bemap\b|\begt\b|temp|back ?press/i.test(h);
+  const map = log.headers.find((h) => /\bmap\b|manifold/i.test(h) && !notIntake(h));
+  const boost = log.headers.find((h) => /boost/i.test(h) && !notIntake(h));
   if (boost) out.boost = { column: boost, kind: "gauge", unit: pu(boost) };
   else if (map) out.boost = { column: map, kind: "absolute", unit: pu(map) };
   const fp = find(/fuel ?(press|pres|pressure)|\bfp\b|rail/i);
@@ -150,5 +225,30 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   if (eth) out.ethanol = { column: eth };
   const power = find(/power|\bwhp\b|\bhp\b|\bkw\b/i);
   if (power) out.power = { column: power, unit: /kw/i.test(power + unitOf(power)) ? "kW" : "hp" };
+  const tu = (h: string) =>
+    (/°?\s*f\b|fahrenheit/i.test(`${unitOf(h)} ${h}`) ? "F" : "C") as "C" | "F";
+  const egts = log.headers
+    .filter((h) => /egt|exhaust gas temp/i.test(h))
+    .sort((a, b) => cylinderOf(a) - cylinderOf(b))
+    .slice(0, MAX_EGT_COLUMNS);
+  if (egts.length) out.egt = { columns: egts, unit: tu(egts[0]!) };
+  const emap = find(/\bemap\b|exhaust ?(manifold )?press|back ?press|drive ?press/i);
+  if (emap)
+    out.exhaustPressure = {
+      column: emap,
+      kind:
+        /abs|psia|\bemap\b/i.test(`${emap} ${unitOf(emap)}`) &&
+        !/gauge|psig/i.test(`${emap} ${unitOf(emap)}`)
+          ? "absolute"
+          : "gauge",
+      unit: pu(emap),
+    };
+  const turbo = find(/turbo ?(shaft )?speed|shaft ?speed|\btss\b|turbo ?rpm/i);
+  if (turbo)
+    out.turboSpeed = { column: turbo, unit: /krpm/i.test(turbo + unitOf(turbo)) ? "krpm" : "rpm" };
+  const iat = find(/\biat\b|intake ?(air )?temp|charge ?temp|\bmat\b|\bact\b/i);
+  if (iat) out.intakeTemp = { column: iat, unit: tu(iat) };
+  const timing = find(/timing|ignition|spark ?adv|advance/i);
+  if (timing) out.timing = { column: timing };
   return out;
 }

@@ -1,12 +1,14 @@
 // Reference: docs/calculations.md §0, §9.
 import {
   celsiusFromFahrenheit,
+  FAHRENHEIT_DEGREES_PER_KELVIN,
   fahrenheitFromCelsius,
   KG_PER_LB,
   L_PER_CU_IN,
   L_PER_US_GAL,
   M_PER_FT,
   MM_PER_IN,
+  NM_PER_LBF_FT,
 } from "./constants";
 import {
   bsfcFromGPerKwh,
@@ -51,6 +53,16 @@ export type Quantity =
   | "diameter"
   | "roughness"
   | "temperature"
+  /** A difference of temperatures (EGT spread between cylinders), °C: no offset in °F. */
+  | "temperatureDiff"
+  /** Engine torque, N·m (lb·ft in imperial). */
+  | "torque"
+  /** Turbocharger shaft speed, rpm. */
+  | "turboSpeed"
+  /** Absolute pressure over absolute pressure (exhaust manifold to boost), printed "1.45:1". */
+  | "pressureRatio"
+  /** Ignition timing, degrees of crank before top dead centre. */
+  | "timing"
   | "density"
   | "velocity"
   /** Engine displacement, L (cu in in imperial, as a US shop reads an engine's size). */
@@ -227,6 +239,43 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
       to: fahrenheitFromCelsius,
       from: celsiusFromFahrenheit,
     },
+  },
+  temperatureDiff: {
+    name: "temperature difference",
+    canonical: "°C difference",
+    metric: metric("°C", 0),
+    imperial: {
+      unit: "°F",
+      decimals: 0,
+      to: (x) => x * FAHRENHEIT_DEGREES_PER_KELVIN,
+      from: (x) => x / FAHRENHEIT_DEGREES_PER_KELVIN,
+    },
+  },
+  torque: {
+    name: "torque",
+    canonical: "N·m",
+    metric: metric("N·m", 0),
+    imperial: {
+      unit: "lb·ft",
+      decimals: 0,
+      to: (x) => x / NM_PER_LBF_FT,
+      from: (x) => x * NM_PER_LBF_FT,
+    },
+  },
+  turboSpeed: {
+    name: "turbo speed",
+    canonical: "rpm",
+    ...same({ unit: "rpm", decimals: 0 }),
+  },
+  pressureRatio: {
+    name: "pressure ratio",
+    canonical: ":1 absolute",
+    ...same({ unit: ":1", gap: "", decimals: 2 }),
+  },
+  timing: {
+    name: "ignition timing",
+    canonical: "° before TDC",
+    ...same({ unit: "° BTDC", gap: "", decimals: 1 }),
   },
   density: {
     name: "density",

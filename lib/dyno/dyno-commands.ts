@@ -11,6 +11,7 @@ import {
   saveAnalysis,
   saveBuildVerifiedByDatalog,
 } from "@/db/queries/datalogs";
+import { tuneLimitsOf } from "@/db/queries/tune";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { saved, type BuildResult } from "@/lib/builds/build-data";
@@ -25,6 +26,7 @@ import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
 import { Conflict, Invalid, NotFound } from "@/lib/domain/errors";
 import { isoDay } from "@/lib/domain/quotes";
 import { putObject } from "@/lib/storage";
+import { limitsInForce } from "@/lib/tune/tune-session";
 import type {
   DatalogAnalysisSchema,
   DatalogRefSchema,
@@ -83,7 +85,13 @@ export async function analyseDatalog(m: Member, input: z.output<typeof DatalogAn
     );
   const row = await getBuild(m.shopId, d.buildId);
   if (!row) throw new NotFound("That build");
-  const out = analyseLog(log, input.mapping, storedEffectiveInputs(row.build));
+  const { limits } = limitsInForce(await tuneLimitsOf(m.shopId, d.buildId));
+  const out = analyseLog(
+    log,
+    input.mapping,
+    storedEffectiveInputs(row.build),
+    limits.lambdaTargets,
+  );
   await saveAnalysis(
     m.shopId,
     m.user.id,

@@ -9,6 +9,7 @@ import {
   dutyAcrossRpm,
   fuelBlend,
   headerKey,
+  lambdaTargetAt,
   parseDatalog,
   sampleDutyPct,
   samplesFromLog,
@@ -20,6 +21,7 @@ import {
   type DatalogMapping,
   type ParsedFuelSystemInput,
   type PullContext,
+  type TuneLimits,
 } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
 import { getObject } from "@/lib/storage";
@@ -55,7 +57,13 @@ export async function datalogView(shopId: string, id: string) {
  * pressure, flow, BSFC) with the ethanol, target lambda and predicted peak duty it was judged on,
  * and a thinned series of measured against predicted duty for the chart.
  */
-export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedFuelSystemInput) {
+export function analyseLog(
+  log: Datalog,
+  mapping: DatalogMapping,
+  input: ParsedFuelSystemInput,
+  /** The session's lambda table (limits in force): the target follows boost. */
+  lambdaTargets?: TuneLimits["lambdaTargets"],
+) {
   const result = sizeParsedFuelSystem(input);
   const samples = samplesFromLog(log, mapping);
   const ethIdx = mapping.ethanol ? log.headers.indexOf(mapping.ethanol.column) : -1;
@@ -68,19 +76,29 @@ export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedF
   const ethanolPct = eth.length
     ? eth.reduce((a, b) => a + b, 0) / eth.length
     : input.fuel.ethanolMaxVolPct;
-  const targetLambda =
-    input.fuel.targetLambda ??
-    defaultBsfc({
-      ethanolVolPct: ethanolPct,
-      aspiration: input.engine.aspiration,
-      defaults: input.fuel.bsfcDefaults,
-    }).referenceLambda;
+  const peakBoost = samples.reduce(
+    (m, s) =>
+      typeof s.boostKpa === "number" && Number.isFinite(s.boostKpa) && s.boostKpa > m
+        ? s.boostKpa
+        : m,
+    0,
+  );
+  const targetAt = lambdaTargets ? (b: number) => lambdaTargetAt(lambdaTargets, b) : undefined;
+  const targetLambda = targetAt
+    ? targetAt(peakBoost)
+    : (input.fuel.targetLambda ??
+      defaultBsfc({
+        ethanolVolPct: ethanolPct,
+        aspiration: input.engine.aspiration,
+        defaults: input.fuel.bsfcDefaults,
+      }).referenceLambda);
   const ctx: PullContext = {
     injectorCount: input.injectors.count,
     ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
     ratedPressureKpa: input.injectors.ratedPressureKpa,
     densityKgPerL: fuelBlend(ethanolPct, input.fuel.properties).densityKgPerL,
     targetLambda,
+    lambdaTargetAt: targetAt,
     dutyDangerPct: result.limits.dutyDangerPct,
   };
   const analysis = analyzePull(samples, ctx);
@@ -100,7 +118,7 @@ export function analyseLog(log: Datalog, mapping: DatalogMapping, input: ParsedF
       dutyMeasured: sampleDutyPct(s),
       dutyPredicted: predictAt(s.rpm),
       lambda: s.lambda ?? null,
-      lambdaTarget: targetLambda,
+      lambdaTarget: targetAt ? targetAt(s.boostKpa ?? 0) : targetLambda,
       fuelDiffKpa: s.fuelDiffKpa ?? null,
     }));
   return {

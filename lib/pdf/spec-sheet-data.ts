@@ -8,6 +8,7 @@ import { getShopSettings } from "@/db/queries/shops";
 import { storedEffectiveInputs } from "@/lib/builds/stored-inputs";
 import { CALC_VERSION, sizeParsedFuelSystem } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
+import { sheetSession } from "@/lib/tune/tune-session";
 
 import type { SpecSheetData } from "./spec-sheet";
 
@@ -21,13 +22,14 @@ export async function specSheetData(
   if (!row) throw new NotFound("That build");
   const rev = await getRevision(shopId, buildId, opts.version ?? row.build.version);
   if (!rev) throw new NotFound(`Version ${opts.version} of that build`);
-  const [settings, logo, log] = await Promise.all([
+  // The revision's own inputs with the shop settings it was sized with: its figures never move.
+  const input = storedEffectiveInputs(rev);
+  const [settings, logo, log, tune] = await Promise.all([
     getShopSettings(shopId),
     pdfLogo(shopId),
     rev.status === "verified" ? latestVerifiedDatalog(shopId, buildId) : null,
+    sheetSession(shopId, buildId, input),
   ]);
-  // The revision's own inputs with the shop settings it was sized with: its figures never move.
-  const input = storedEffectiveInputs(rev);
   const stored = rev.result;
   const result = stored && rev.calcVersion === CALC_VERSION ? stored : sizeParsedFuelSystem(input);
   // Staff and customers in the portal read their own units where they set them, else the
@@ -65,6 +67,7 @@ export async function specSheetData(
             analysis: log.analysis as NonNullable<SpecSheetData["verification"]>["analysis"],
           }
         : null,
+    tune,
   };
 }
 

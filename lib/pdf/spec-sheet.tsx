@@ -18,9 +18,11 @@ import {
   DEFAULT_DRIVETRAIN_LOSS_PCT,
   DRIVE_TYPE_LABELS,
   dutyAcrossRpm,
+  fillTemplate,
   formatTraceStep,
   formatValue,
   formatWarning,
+  LIMIT_LABELS,
   LIMITED_BY_LABELS,
   pumpSupplyCurve,
   REGULATOR_LABELS,
@@ -37,6 +39,7 @@ import { KIT_ROLE_LABELS, type ChosenPart } from "@/lib/domain/builds";
 import { PDF_PAGE_SIZE, type PaperSize } from "@/lib/domain/documents";
 import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
+import type { SheetSession } from "@/lib/tune/tune-session";
 
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
 
@@ -75,6 +78,71 @@ export interface SpecSheetData {
       predictedPeakDutyPct: number;
     };
   } | null;
+  /** The build's tune session: best pull per fuel against the prediction, what stopped the climb. */
+  tune?: SheetSession | null;
+}
+
+/** The tune session: the best pull per fuel, measured against predicted, and the limits met. */
+function TuneSummary({
+  t,
+  q,
+  units,
+}: {
+  t: SheetSession;
+  q: (quantity: Quantity, x: number, decimals?: number) => string;
+  units: UnitSystem;
+}) {
+  const cell = { width: "20%" } as const;
+  return (
+    <View wrap={false}>
+      <Text style={s.h2}>Tune session</Text>
+      <Text style={s.muted}>
+        {pdfText(
+          "The best pull on each fuel (power at the crank), measured beside what the sizing predicts at that power, boost and fuel.",
+        )}
+      </Text>
+      <View style={[s.row, { fontWeight: 700, marginTop: 3 }]}>
+        <Text style={cell}>Pull and fuel</Text>
+        <Text style={cell}>Power at the crank</Text>
+        <Text style={cell}>Boost</Text>
+        <Text style={cell}>BSFC predicted / measured</Text>
+        <Text style={cell}>Duty predicted / measured</Text>
+      </View>
+      {t.best.map((b) => (
+        <View style={s.row} key={b.position}>
+          <Text style={cell}>{pdfText(`#${b.position}, ${q("ethanol", b.ethanolPct)}`)}</Text>
+          <Text style={cell}>{pdfText(`${q("power", b.crankKw)} at ${q("speed", b.rpm)}`)}</Text>
+          <Text style={cell}>{b.boostKpa === null ? "not logged" : q("pressure", b.boostKpa)}</Text>
+          <Text style={cell}>
+            {pdfText(
+              `${q("bsfc", b.predicted.bsfcGPerKwh)} / ${b.measured.bsfcGPerKwh === null ? "not logged" : q("bsfc", b.measured.bsfcGPerKwh)}`,
+            )}
+          </Text>
+          <Text style={cell}>
+            {pdfText(
+              `${q("percent", b.predicted.dutyPct)} / ${b.measured.dutyPct === null ? "not logged" : q("percent", b.measured.dutyPct)}`,
+            )}
+          </Text>
+        </View>
+      ))}
+      {t.stoppedBy ? (
+        <>
+          <Text style={{ fontWeight: 700, marginTop: 3 }}>
+            {pdfText(`What stopped the climb (pull #${t.stoppedBy.position})`)}
+          </Text>
+          {t.stoppedBy.checks.map((c) => (
+            <Text key={c.key}>
+              {pdfText(
+                `${c.status === "over" ? "Over" : "Near"} — ${LIMIT_LABELS[c.key]}: ${fillTemplate(c.message, c.params, units)}`,
+              )}
+            </Text>
+          ))}
+        </>
+      ) : (
+        <Text style={s.muted}>The last pull stayed inside every limit logged.</Text>
+      )}
+    </View>
+  );
 }
 
 /** Measured on the dyno beside the sizing's prediction. */
@@ -409,6 +477,8 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
         {d.verification ? (
           <Verification v={d.verification} r={r} q={q} units={units} timeZone={d.timeZone} />
         ) : null}
+
+        {d.tune ? <TuneSummary t={d.tune} q={q} units={units} /> : null}
 
         <Text style={s.h2}>Chosen parts</Text>
         {d.parts.length === 0 ? (

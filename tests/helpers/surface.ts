@@ -27,6 +27,9 @@ export interface Fx {
   doomedSku: string;
   quote: string;
   datalog: string;
+  /** A pull of the build's tune session, and one the delete route and action remove. */
+  pull: string;
+  doomedPull: string;
   share: string;
   inputs: unknown;
   portalCustomer: string;
@@ -114,6 +117,34 @@ export const ROUTES: Record<string, Cell> = {
   "POST /api/v1/builds/[id]/datalogs": {
     call: (f) => ({ path: `/api/v1/builds/${f.build}/datalogs`, raw: CSV("rpm,duty\n3000,40\n") }),
     expect: "401 ok ok 403 403 404",
+  },
+  "GET /api/v1/builds/[id]/tune": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/tune` }),
+    expect: "401 ok ok ok 403 404",
+  },
+  "PATCH /api/v1/builds/[id]/tune": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/tune`, body: { limits: null } }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "POST /api/v1/builds/[id]/tune/pulls": {
+    call: (f) => ({
+      path: `/api/v1/builds/${f.build}/tune/pulls?ethanolPct=85&powerMeasuredAt=crank`,
+      raw: CSV("rpm,duty\n3000,40\n3100,41\n"),
+    }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "POST /api/v1/builds/[id]/next-step": {
+    call: (f) => ({ path: `/api/v1/builds/${f.build}/next-step`, body: { powerKw: 300 } }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "PATCH /api/v1/tune-pulls/[id]": {
+    call: (f) => ({ path: `/api/v1/tune-pulls/${f.pull}`, body: { notes: "Access matrix" } }),
+    expect: "401 ok ok 403 403 404",
+  },
+  "DELETE /api/v1/tune-pulls/[id]": {
+    call: (f) => ({ path: `/api/v1/tune-pulls/${f.doomedPull}` }),
+    expect: "401 ok ok 403 403 404",
+    mayVanish: true,
   },
   "GET /api/v1/builds/[id]/kit": {
     call: (f) => ({ path: `/api/v1/builds/${f.build}/kit` }),
@@ -522,6 +553,27 @@ export const ACTIONS: Record<string, ActionCell> = {
     ],
     expect: "401 ok ok 403 403 404",
   },
+  "lib/tune/tune-actions.ts#updateTunePullAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { id: f.pull, notes: "Access matrix action" }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/tune/tune-actions.ts#deleteTunePullAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { id: f.doomedPull }],
+    expect: "401 ok ok 403 403 404",
+    mayVanish: true,
+  },
+  "lib/tune/tune-actions.ts#saveTuneLimitsAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { buildId: f.build, limits: null }],
+    expect: "401 ok ok 403 403 404",
+  },
+  "lib/tune/tune-actions.ts#nextPowerStepAction": {
+    page: (f) => `/builds/${f.build}/dyno`,
+    args: (f) => [prev, { buildId: f.build, powerKw: 300 }],
+    expect: "401 ok ok 403 403 404",
+  },
   "lib/dyno/dyno-actions.ts#verifyDatalogAction": {
     page: (f) => `/builds/${f.build}/dyno`,
     args: (f) => [prev, { id: f.datalog }],
@@ -797,11 +849,34 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
       "x-file-name": "matrix.csv",
     },
   });
+  const addPull = () =>
+    fetch(`${BASE_URL}/api/v1/builds/${build}/tune/pulls?ethanolPct=85&powerMeasuredAt=crank`, {
+      method: "POST",
+      body: "rpm,duty\n3000,40\n3100,41\n",
+      headers: {
+        cookie: tuner.cookie,
+        "x-forwarded-for": tuner.ip,
+        origin: BASE_URL,
+        "content-type": "text/csv",
+        "x-file-name": "matrix pull.csv",
+      },
+    });
+  const pull = await addPull();
+  const doomedPull = await addPull();
   const share = await request(tuner, "POST", `/api/v1/builds/${build}/share-links`, { days: 1 });
   expect(
-    [made.status, doomed.status, own.status, quote.status, log.status, share.status],
+    [
+      made.status,
+      doomed.status,
+      own.status,
+      quote.status,
+      log.status,
+      pull.status,
+      doomedPull.status,
+      share.status,
+    ],
     "fixtures",
-  ).toEqual([201, 201, 201, 201, 201, 201]);
+  ).toEqual([201, 201, 201, 201, 201, 201, 201, 201]);
   const ops = await operationsFixtures(counter, tuner, portalCustomer, part!.id as string);
   return {
     ...ops,
@@ -815,6 +890,8 @@ export async function makeFixtures(c: { tuner: Client; counter: Client }): Promi
     doomedSku,
     quote: quote.json.quote.id,
     datalog: (await log.json()).datalog.id,
+    pull: (await pull.json()).pull.id,
+    doomedPull: (await doomedPull.json()).pull.id,
     share: share.json.link.id,
     inputs: demo!.inputs,
     portalCustomer,

@@ -95,6 +95,8 @@ const TABLES = [
   "shop_counters",
   "shop_logos",
   "shop_settings",
+  "tune_pulls",
+  "tune_sessions",
   "user",
   "vehicles",
 ];

@@ -65,6 +65,7 @@ const FORM_TYPES: [string, (json: string) => { type: string; body: BodyInit }][]
 const UPLOAD_TYPES: Record<string, string[]> = {
   "POST /api/v1/parts/import": ["text/csv", "text/plain"],
   "POST /api/v1/builds/[id]/datalogs": ["text/csv", "text/plain"],
+  "POST /api/v1/builds/[id]/tune/pulls": ["text/csv", "text/plain"],
   "PUT /api/v1/shop/logo": ["image/png"],
 };
 
@@ -199,6 +200,11 @@ describe("cross-site writes to the API", () => {
       );
       expect(ok.status, `datalog as ${type}`).toBe(201);
     }
+    const pulls = `/api/v1/builds/${fx.build}/tune/pulls?ethanolPct=85&powerMeasuredAt=crank`;
+    for (const type of UPLOAD_TYPES["POST /api/v1/builds/[id]/tune/pulls"]!) {
+      const ok = await send(owner, "POST", pulls, { "content-type": type }, log);
+      expect(ok.status, `tune pull as ${type}`).toBe(201);
+    }
     // The logo of another shop (its owner's), so the demo shop's stays as it is.
     const png = new Uint8Array(solidPng(32, 32, [20, 120, 200]));
     const put = await send(
@@ -209,11 +215,12 @@ describe("cross-site writes to the API", () => {
       png,
     );
     expect(put.status).toBe(200);
-    // The same three from another site: refused, nothing stored.
+    // The same four from another site: refused, nothing stored.
     const before = await tableHashes(tables);
     for (const [path, method, type, body] of [
       ["/api/v1/parts/import", "POST", "text/plain", csv],
       [`/api/v1/builds/${fx.build}/datalogs`, "POST", "text/plain", log],
+      [pulls, "POST", "text/plain", log],
       ["/api/v1/shop/logo", "PUT", "image/png", png],
     ] as const) {
       const res = await send(owner, method, path, { origin: FOREIGN, "content-type": type }, body);

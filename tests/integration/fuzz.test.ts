@@ -70,6 +70,13 @@ import {
   ShareLinkDaysSchema,
   ShareLinkRevokeSchema,
 } from "@/lib/validations/shares";
+import {
+  NextPowerStepSchema,
+  TuneLimitsSaveSchema,
+  TunePullRefSchema,
+  TunePullUpdateSchema,
+  TuneSessionQuery,
+} from "@/lib/validations/tune";
 import { VehicleAddSchema, VehicleIdSchema, VehicleUpdateSchema } from "@/lib/validations/vehicles";
 
 import { actionManifest, callAction, formOf, type ActionResult } from "../helpers/actions";
@@ -193,6 +200,12 @@ const BODY: Record<
   "PATCH /api/v1/invoices/[id]": { schema: InvoiceEditSchema, skip: isId },
   "POST /api/v1/invoices/[id]/issue": { schema: InvoiceIssueSchema, skip: isId },
   "POST /api/v1/invoices/[id]/credit-notes": { schema: CreditNoteCreateSchema, skip: isId },
+  "PATCH /api/v1/builds/[id]/tune": {
+    schema: TuneLimitsSaveSchema.omit({ buildId: true }),
+    base: () => ({ limits: null }),
+  },
+  "POST /api/v1/builds/[id]/next-step": { schema: NextPowerStepSchema.omit({ buildId: true }) },
+  "PATCH /api/v1/tune-pulls/[id]": { schema: TunePullUpdateSchema, skip: isId },
   // better-auth's own endpoint: its body as the reset form sends it.
   "POST /api/auth/[...all]": {
     schema: z.object({ email: z.email().max(200), redirectTo: z.string().max(200) }),
@@ -215,6 +228,7 @@ const QUERY: Record<
     base: { session: "cs_fuzz_session" },
     skip: isId,
   },
+  "GET /api/v1/builds/[id]/tune": { schema: TuneSessionQuery },
   "GET /api/v1/quotes/[id]/deposit": {
     schema: DepositReturnSchema,
     base: { session: "cs_fuzz_session" },
@@ -225,6 +239,7 @@ const QUERY: Record<
 const UPLOADS = [
   "POST /api/v1/parts/import",
   "POST /api/v1/builds/[id]/datalogs",
+  "POST /api/v1/builds/[id]/tune/pulls",
   "PUT /api/v1/shop/logo",
 ];
 
@@ -254,6 +269,10 @@ const ACTION_SCHEMAS: Record<string, z.ZodType> = {
     RevisionRestoreSchema,
   "lib/dyno/dyno-actions.ts#analyseDatalogAction": DatalogAnalysisSchema,
   "lib/dyno/dyno-actions.ts#verifyDatalogAction": DatalogRefSchema,
+  "lib/tune/tune-actions.ts#updateTunePullAction": TunePullUpdateSchema,
+  "lib/tune/tune-actions.ts#deleteTunePullAction": TunePullRefSchema,
+  "lib/tune/tune-actions.ts#saveTuneLimitsAction": TuneLimitsSaveSchema,
+  "lib/tune/tune-actions.ts#nextPowerStepAction": NextPowerStepSchema,
   "app/(shop)/customers/actions.ts#createCustomerAction": CustomerSchema,
   "app/(shop)/customers/actions.ts#updateCustomerAction": CustomerUpdateSchema,
   "app/(shop)/customers/actions.ts#deleteCustomerAction": CustomerIdSchema,
@@ -652,6 +671,38 @@ describe("schema-driven fuzz", () => {
         "x-file-name": `${"x".repeat(300)}.csv`,
       });
       await judgeRoute(`POST datalogs (${label})`, res);
+      await beforeWrite();
+      const pull = await request(
+        owner,
+        "POST",
+        `/api/v1/builds/${fx.build}/tune/pulls?ethanolPct=85&powerMeasuredAt=wheel`,
+        csv,
+        { "content-type": "text/csv", "x-file-name": `${"x".repeat(300)}.csv` },
+      );
+      await judgeRoute(`POST tune pull (${label})`, pull);
+    }
+    // The pull's fields come in the query string: at and past their edges, and hostile text.
+    const pullQueries = [
+      "ethanolPct=100.0001&powerMeasuredAt=crank",
+      "ethanolPct=-0&powerMeasuredAt=hub&boostTargetKpa=500",
+      "ethanolPct=85&powerMeasuredAt=wheel&boostTargetKpa=500.1",
+      `ethanolPct=85&powerMeasuredAt=crank&notes=${"n".repeat(2001)}`,
+      "ethanolPct=85&powerMeasuredAt=crank&notes=%F0%9F%98%80%E2%80%AE",
+      "ethanolPct=85&powerMeasuredAt=crank&mapping=%7Bnot%20json",
+      `ethanolPct=85&powerMeasuredAt=crank&mapping=${encodeURIComponent(JSON.stringify({ rpm: "rpm", duty: { column: "duty", kind: "duty_pct" }, egt: { columns: Array(17).fill("rpm"), unit: "C" } }))}`,
+      "ethanolPct=1e309&powerMeasuredAt=crank",
+      "powerMeasuredAt=crank",
+    ];
+    for (const q of pullQueries) {
+      await beforeWrite();
+      const res = await request(
+        owner,
+        "POST",
+        `/api/v1/builds/${fx.build}/tune/pulls?${q}`,
+        "rpm,duty\n3000,40\n3100,41\n",
+        { "content-type": "text/csv" },
+      );
+      await judgeRoute(`POST tune pull (?${q.slice(0, 60)})`, res);
     }
     const logos: [string, Buffer][] = [
       ["15 px: one too small", solidPng(15, 15, [1, 2, 3])],

@@ -36,6 +36,8 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
     unitSystemOf(m.user.id, m.shopId),
   ]);
   const b = row.build;
+  // "Copy as next power step": the build this one continues (same shop; gone: no link).
+  const previous = b.previousStepId ? await getBuild(m.shopId, b.previousStepId) : null;
   const writes = can(m.role, "builds:write");
   const inputs = readStoredInputs(b);
   // What today's settings would change in what is sized (nothing: the build is up to date).
@@ -52,6 +54,18 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
             {row.customerName}
           </Link>
           {b.vehicle ? ` · ${b.vehicle}` : ""}
+          {previous ? (
+            <>
+              {" · next power step from "}
+              <Link
+                href={`/builds/${previous.build.id}/dyno`}
+                className="text-copper-700 underline"
+                data-testid="previous-step"
+              >
+                {previous.build.title}
+              </Link>
+            </>
+          ) : null}
         </p>
         <div className="flex flex-wrap items-center gap-3">
           <a
@@ -64,7 +78,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
             href={`/builds/${b.id}/dyno`}
             className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
           >
-            Dyno logs
+            Dyno and tune session
           </Link>
           <Link
             href={`/builds/${b.id}/kit`}

@@ -3,19 +3,25 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { DynoWorkbench } from "@/components/dyno/dyno-workbench";
+import { TuneSession } from "@/components/dyno/tune-session";
 import { PageHeader } from "@/components/ui/status";
 import { buildStatusFacts, getBuild } from "@/db/queries/builds";
 import { listDatalogs } from "@/db/queries/datalogs";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
 import { isoDay } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 
 export const metadata: Metadata = { title: "Dyno verification" };
 
-/** Dyno logs of one build: upload, map columns, measured against predicted, mark verified. */
+/**
+ * Dyno work on one build: its tune session (pulls in order, overlaid, judged against the limits,
+ * the next step predicted), and single logs: upload, map columns, measured against predicted,
+ * mark verified.
+ */
 export default async function DynoPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("datalogs:read");
   const id = idOrNotFound((await params).id);
@@ -46,6 +52,15 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
         Stop a pull at once if lambda goes lean or fuel pressure falls. Dyno work on fuel systems
         follows your local codes and licensed practice.
       </p>
+      <TuneSession
+        buildId={id}
+        units={units}
+        canWrite={can(m.role, "datalogs:upload")}
+        canCopy={can(m.role, "builds:write")}
+        canSetShopLimits={can(m.role, "settings:update")}
+        targetMeasuredAt={readStoredInputs(row.build).target.measuredAt}
+      />
+      <h2 className="mb-3 text-lg font-semibold">Single logs and verification</h2>
       <DynoWorkbench
         buildId={id}
         canUpload={can(m.role, "datalogs:upload")}

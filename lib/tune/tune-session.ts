@@ -1,0 +1,338 @@
+import "server-only";
+
+import { getBuild } from "@/db/queries/builds";
+import { listTunePulls, tuneLimitsOf } from "@/db/queries/tune";
+import type { Build } from "@/db/schema";
+import { storedEffectiveInputs } from "@/lib/builds/stored-inputs";
+import {
+  CalcInputError,
+  checkLimits,
+  DatalogError,
+  DatalogMappingSchema,
+  DEFAULT_TUNE_LIMITS,
+  fuelBlend,
+  mappingProblems,
+  predictNextStep,
+  preparePull,
+  samplesFromLog,
+  sizeParsedFuelSystem,
+  suggestMapping,
+  summarizePull,
+  TuneLimitsSchema,
+  type Datalog,
+  type DatalogMapping,
+  type LimitCheck,
+  type NextStep,
+  type ParsedFuelSystemInput,
+  type PowerMeasuredAt,
+  type StepTarget,
+  type TuneLimits,
+} from "@/lib/calc";
+import { Invalid, NotFound } from "@/lib/domain/errors";
+
+/** Which source the session's limits came from. */
+export type LimitsSource = "build" | "shop" | "library";
+
+/** The limits in force for a build: its own, else the shop's, else the library's. */
+export function limitsInForce(stored: { build: unknown; shop: unknown }): {
+  limits: TuneLimits;
+  source: LimitsSource;
+} {
+  const b = TuneLimitsSchema.safeParse(stored.build);
+  if (stored.build && b.success) return { limits: b.data, source: "build" };
+  const s = TuneLimitsSchema.safeParse(stored.shop);
+  if (stored.shop && s.success) return { limits: s.data, source: "shop" };
+  return { limits: DEFAULT_TUNE_LIMITS, source: "library" };
+}
+
+/**
+ * The mapping a new pull's log is read with: the one sent, else the shop's remembered mapping for
+ * this logger's header set, else a guess from the headers. A log it cannot place is refused with
+ * a message naming the column (or the channel no column was found for); nothing is stored.
+ */
+export function placeLog(log: Datalog, mapping: unknown, remembered: boolean): DatalogMapping {
+  const parsed = DatalogMappingSchema.safeParse(mapping ?? suggestMapping(log));
+  const cols = log.headers.map((h) => `"${h}"`).join(", ");
+  if (!parsed.success) {
+    const first = parsed.error.issues[0]!;
+    const channel = String(first.path[0] ?? "");
+    const what =
+      channel === "rpm"
+        ? "engine speed"
+        : channel === "duty"
+          ? "injector duty or pulse width"
+          : channel;
+    throw new Invalid(
+      `No column of this log reads as ${what} (its columns: ${cols}). Name it in the mapping and upload again`,
+      [{ path: `mapping.${first.path.join(".")}`, message: first.message }],
+      "unplaced_log",
+    );
+  }
+  const problems = mappingProblems(parsed.data, log.headers);
+  if (problems.length)
+    throw new Invalid(
+      `${remembered ? "The mapping remembered for this logger" : "The mapping"} names ${problems
+        .map((p) => p.message.replace(/^The log has no column /, ""))
+        .join(", ")}, which this log does not have (its columns: ${cols})`,
+      problems.map((p) => ({ path: `mapping.${p.path}`, message: p.message })),
+      "unplaced_log",
+    );
+  // A named column with no number in it cannot be placed either.
+  const empty = mappedColumns(parsed.data).find((c) => {
+    const i = log.headers.indexOf(c.column);
+    return i >= 0 && !log.rows.some((r) => typeof r[i] === "number");
+  });
+  if (empty)
+    throw new Invalid(
+      `The column "${empty.column}" (mapped as ${empty.as}) holds no numbers`,
+      [{ path: `mapping.${empty.path}`, message: `The column "${empty.column}" holds no numbers` }],
+      "unplaced_log",
+    );
+  return parsed.data;
+}
+
+function mappedColumns(m: DatalogMapping): { column: string; as: string; path: string }[] {
+  return [
+    { column: m.rpm, as: "engine speed", path: "rpm" },
+    { column: m.duty.column, as: "duty", path: "duty.column" },
+    ...(m.mixture
+      ? [{ column: m.mixture.column, as: m.mixture.kind, path: "mixture.column" }]
+      : []),
+    ...(m.boost ? [{ column: m.boost.column, as: "boost", path: "boost.column" }] : []),
+    ...(m.power ? [{ column: m.power.column, as: "power", path: "power.column" }] : []),
+  ];
+}
+
+/** A pull's figures from its log: points (power at the crank), notes, summary. */
+export function measurePull(
+  log: Datalog,
+  mapping: DatalogMapping,
+  input: ParsedFuelSystemInput,
+  pull: { ethanolPct: number; powerMeasuredAt: PowerMeasuredAt },
+) {
+  const drivetrainLossPct = input.target.drivetrainLossPct ?? 15;
+  try {
+    const { points, notes } = preparePull(samplesFromLog(log, mapping), {
+      measuredAt: pull.powerMeasuredAt,
+      drivetrainLossPct,
+    });
+    if (!points.length)
+      throw new Invalid(
+        `The column "${mapping.rpm}" (engine speed) has no usable speed in any row`,
+        [{ path: "mapping.rpm", message: "No row has an engine speed" }],
+        "unplaced_log",
+      );
+    const summary = summarizePull(
+      points,
+      {
+        injectorCount: input.injectors.count,
+        ratedFlowCcPerMin: input.injectors.ratedFlowCcPerMin,
+        ratedPressureKpa: input.injectors.ratedPressureKpa,
+        densityKgPerL: fuelBlend(pull.ethanolPct, input.fuel.properties).densityKgPerL,
+      },
+      pull.powerMeasuredAt,
+      drivetrainLossPct,
+    );
+    return { points, logNotes: notes, summary, drivetrainLossPct };
+  } catch (e) {
+    if (e instanceof CalcInputError || e instanceof DatalogError)
+      throw new Invalid(e.message, [{ path: "(body)", message: e.message }], "bad_datalog");
+    throw e;
+  }
+}
+
+export interface PullView {
+  id: string;
+  position: number;
+  fileName: string;
+  datalogId: string;
+  ethanolPct: number;
+  boostTargetKpa: number | null;
+  notes: string;
+  powerMeasuredAt: PowerMeasuredAt;
+  drivetrainLossPct: number;
+  excluded: boolean;
+  verified: boolean;
+  createdAt: Date;
+  summary: ReturnType<typeof measurePull>["summary"];
+  logNotes: ReturnType<typeof measurePull>["logNotes"];
+  points: ReturnType<typeof measurePull>["points"];
+  checks: LimitCheck[];
+}
+
+/**
+ * The build's tune session as read: the limits in force and where they came from, every pull in
+ * order with its checks, and the next step predicted from the last pull that is not excluded and
+ * logged power (`step`: a boost or crank power; none: the build's target, else 20 kPa more boost).
+ */
+export async function tuneSession(
+  shopId: string,
+  buildId: string,
+  step?: { boostKpa?: number; crankKw?: number },
+) {
+  const row = await getBuild(shopId, buildId);
+  if (!row) throw new NotFound("That build");
+  const stored = await tuneLimitsOf(shopId, buildId);
+  const { limits, source } = limitsInForce(stored);
+  const shopLimits = limitsInForce({ build: null, shop: stored.shop }).limits;
+  const pulls: PullView[] = (await listTunePulls(shopId, buildId)).map(
+    ({ pull: p, fileName, verifiedAt }) => ({
+      id: p.id,
+      position: p.position,
+      fileName,
+      datalogId: p.datalogId,
+      ethanolPct: p.ethanolPct,
+      boostTargetKpa: p.boostTargetKpa,
+      notes: p.notes,
+      powerMeasuredAt: p.powerMeasuredAt,
+      drivetrainLossPct: p.drivetrainLossPct,
+      excluded: p.excluded,
+      verified: verifiedAt !== null,
+      createdAt: p.createdAt,
+      summary: p.summary,
+      logNotes: p.logNotes,
+      points: p.points,
+      checks: checkLimits(p.points, limits),
+    }),
+  );
+  return {
+    buildId,
+    limits,
+    limitsSource: source,
+    shopLimits,
+    pulls,
+    next: nextStep(row.build, pulls, limits, step),
+  };
+}
+
+function nextStep(
+  build: Build,
+  pulls: PullView[],
+  limits: TuneLimits,
+  step: { boostKpa?: number; crankKw?: number } = {},
+): { from: string; step: NextStep } | { from: null; reason: string } {
+  const last = [...pulls]
+    .reverse()
+    .find((p) => !p.excluded && p.summary.measuredBsfc && p.summary.peakPower);
+  if (!last)
+    return {
+      from: null,
+      reason: pulls.length
+        ? "No pull in the session logged power with duty: the next step needs a measured BSFC."
+        : "Add a pull to predict the next step.",
+    };
+  const input = storedEffectiveInputs(build);
+  const bsfc = last.summary.measuredBsfc!;
+  const boostNow = last.summary.peakBoostKpa ?? last.boostTargetKpa ?? 0;
+  let target: StepTarget;
+  if (step.boostKpa !== undefined) target = { boostKpa: step.boostKpa };
+  else if (step.crankKw !== undefined) target = { crankKw: step.crankKw };
+  else {
+    const wanted =
+      input.target.measuredAt === "crank"
+        ? input.target.powerKw
+        : input.target.powerKw / (1 - (input.target.drivetrainLossPct ?? 15) / 100);
+    target =
+      wanted > bsfc.powerKw * 1.01 || input.engine.aspiration === "na"
+        ? { crankKw: Math.max(wanted, bsfc.powerKw * 1.05) }
+        : { boostKpa: Math.min(500, Math.max(0, boostNow) + 20) };
+  }
+  try {
+    return {
+      from: last.id,
+      step: predictNextStep(
+        input,
+        {
+          crankKw: bsfc.powerKw,
+          boostKpa: Math.max(0, boostNow),
+          bsfcGPerKwh: bsfc.gPerKwh,
+          ethanolPct: last.ethanolPct,
+        },
+        target,
+        limits.maxDutyPct,
+      ),
+    };
+  } catch (e) {
+    if (e instanceof CalcInputError) return { from: null, reason: e.message };
+    throw e;
+  }
+}
+
+/** What the spec sheet prints of the session: the best pull per fuel, and what stopped the climb. */
+export interface SheetSession {
+  best: {
+    position: number;
+    ethanolPct: number;
+    crankKw: number;
+    rpm: number;
+    boostKpa: number | null;
+    measured: { bsfcGPerKwh: number | null; dutyPct: number | null };
+    predicted: { bsfcGPerKwh: number; dutyPct: number };
+  }[];
+  /** The last pull's limits crossed (else those it came near), with their reasons. */
+  stoppedBy: { position: number; checks: LimitCheck[] } | null;
+}
+
+/**
+ * The session for the spec sheet: per fuel (ethanol content), the pull with the most crank power
+ * and the sizing's prediction at that power, boost and fuel; and the limits the last pull met.
+ */
+export async function sheetSession(
+  shopId: string,
+  buildId: string,
+  input: ParsedFuelSystemInput,
+): Promise<SheetSession | null> {
+  const pulls = (await listTunePulls(shopId, buildId))
+    .map((r) => r.pull)
+    .filter((p) => !p.excluded);
+  if (!pulls.length) return null;
+  const { limits } = limitsInForce(await tuneLimitsOf(shopId, buildId));
+  const byFuel = new Map<number, (typeof pulls)[number]>();
+  for (const p of pulls) {
+    const best = byFuel.get(p.ethanolPct);
+    if (
+      p.summary.peakPower &&
+      (!best || p.summary.peakPower.crankKw > (best.summary.peakPower?.crankKw ?? 0))
+    )
+      byFuel.set(p.ethanolPct, p);
+  }
+  const best = [...byFuel.values()]
+    .sort((a, b) => a.ethanolPct - b.ethanolPct)
+    .map((p) => {
+      const power = p.summary.peakPower!;
+      const boost = p.summary.peakBoostKpa ?? p.boostTargetKpa;
+      const sized = sizeParsedFuelSystem({
+        ...input,
+        engine: {
+          ...input.engine,
+          maxBoostKpa:
+            input.engine.aspiration === "na" ? 0 : Math.min(500, Math.max(0, boost ?? 0)),
+        },
+        target: { ...input.target, powerKw: Math.max(1, power.crankKw), measuredAt: "crank" },
+        fuel: { ...input.fuel, ethanolMinVolPct: p.ethanolPct, ethanolMaxVolPct: p.ethanolPct },
+      });
+      return {
+        position: p.position,
+        ethanolPct: p.ethanolPct,
+        crankKw: power.crankKw,
+        rpm: power.rpm,
+        boostKpa: boost,
+        measured: {
+          bsfcGPerKwh: p.summary.measuredBsfc?.gPerKwh ?? null,
+          dutyPct: p.summary.peakDuty?.pct ?? null,
+        },
+        predicted: { bsfcGPerKwh: sized.blend.rich.bsfcGPerKwh, dutyPct: sized.injector.dutyPct },
+      };
+    });
+  const last = pulls[pulls.length - 1]!;
+  const checks = checkLimits(last.points, limits);
+  const over = checks.filter((c) => c.status === "over");
+  const near = checks.filter((c) => c.status === "near");
+  return {
+    best,
+    stoppedBy:
+      over.length || near.length
+        ? { position: last.position, checks: over.length ? over : near }
+        : null,
+  };
+}
