@@ -13,6 +13,7 @@ import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-ho
 
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
+import { useLeaveGuard } from "@/components/ui/leave-guard";
 import { LocalTime } from "@/components/ui/local-time";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
@@ -55,9 +56,12 @@ import {
 import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
+import { FiguresAnnouncer } from "./figures-announcer";
+import { PinnedSummary } from "./pinned-summary";
 import { ResultsPanel } from "./results-panel";
 import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
+import { UnitToggle } from "./unit-toggle";
 
 /** The optional parts of a build, switched on and off in the form. */
 const OPTIONAL = ["feed", "return", "wiring", "deadTime", "pump2", "bypass"] as const;
@@ -412,13 +416,8 @@ export function BuildEditor(props: {
       focusFirstInvalid();
   }, [saved]);
 
-  // Unsaved changes are not lost by leaving the page by accident.
-  useEffect(() => {
-    if (!dirty) return;
-    const warn = (e: BeforeUnloadEvent) => e.preventDefault();
-    window.addEventListener("beforeunload", warn);
-    return () => window.removeEventListener("beforeunload", warn);
-  }, [dirty]);
+  // Unsaved changes are not lost by leaving the page by accident (a reload or an in-app link).
+  useLeaveGuard(dirty && !props.readOnly);
 
   const switchUnits = (next: UnitSystem) => {
     if (next === units) return;
@@ -684,6 +683,8 @@ export function BuildEditor(props: {
             }
           }}
         >
+          {/* On a narrow screen the key figures stay pinned above the inputs as they scroll. */}
+          <PinnedSummary result={result} units={units} resultsId="results" />
           <fieldset
             disabled={props.readOnly}
             aria-describedby={
@@ -717,24 +718,7 @@ export function BuildEditor(props: {
               />
             </div>
           </fieldset>
-          <div
-            role="radiogroup"
-            aria-label="Units"
-            className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm"
-          >
-            {(["metric", "imperial"] as const).map((u) => (
-              <button
-                key={u}
-                type="button"
-                role="radio"
-                aria-checked={units === u}
-                onClick={() => switchUnits(u)}
-                className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}
-              >
-                {u === "metric" ? "Metric (kPa, kW, cc/min)" : "Imperial (psi, hp, lb/h)"}
-              </button>
-            ))}
-          </div>
+          <UnitToggle value={units} onChange={switchUnits} />
           <fieldset
             disabled={props.readOnly}
             aria-describedby={
@@ -941,7 +925,8 @@ export function BuildEditor(props: {
           </fieldset>
         </form>
       </LockedLabel.Provider>
-      <div>
+      <div id="results" className="min-w-0 scroll-mt-4">
+        <FiguresAnnouncer result={result} units={units} />
         <ResultsPanel result={result} units={units} />
         {result && effective?.success ? (
           <>
