@@ -931,7 +931,7 @@ export function BuildEditor(props: {
         {result && effective?.success ? (
           <>
             <SizingSettingsNote input={effective.data} result={result} units={units} />
-            <div className="mt-4">
+            <div className="mt-4 print:hidden">
               <SizingCharts input={effective.data} result={result} units={units} />
             </div>
           </>
