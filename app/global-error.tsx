@@ -12,7 +12,7 @@ export default function GlobalError({ error, retry }: { error: unknown; retry: (
     <html lang="en" className={`${bodyFont.variable} ${displayFont.variable}`}>
       <body className="min-h-screen">
         <title>Something went wrong · Fuelwright</title>
-        <main className="px-4 py-10">
+        <main id="main" tabIndex={-1} className="px-4 py-10 focus:outline-none">
           <ErrorNotice error={error} retry={retry} />
         </main>
       </body>

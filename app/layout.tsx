@@ -28,7 +28,16 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   await connection();
   return (
     <html lang="en" className={`${bodyFont.variable} ${displayFont.variable}`}>
-      <body className="min-h-screen">{children}</body>
+      <body className="min-h-screen">
+        {/* The first Tab of every page: past the header and its menu, to the page's content. */}
+        <a
+          href="#main"
+          className="skip-link rounded-md bg-white px-4 py-2 font-semibold text-ink-900 shadow-lg ring-2 ring-copper-500"
+        >
+          Skip to content
+        </a>
+        {children}
+      </body>
     </html>
   );
 }

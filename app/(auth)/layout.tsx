@@ -4,7 +4,11 @@ import { Logo } from "@/components/shell/logo";
 
 export default function AuthLayout({ children }: { children: ReactNode }) {
   return (
-    <main className="flex min-h-screen flex-col items-center justify-center bg-ink-900 px-4 py-10">
+    <main
+      id="main"
+      tabIndex={-1}
+      className="flex min-h-screen flex-col items-center justify-center bg-ink-900 px-4 py-10 focus:outline-none"
+    >
       <div className="mb-6 text-white">
         <Logo />
       </div>

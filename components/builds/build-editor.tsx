@@ -17,6 +17,7 @@ import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-ho
 import { ChartPlaceholder, WhenVisible } from "@/components/charts/when-visible";
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
+import { useLeaveGuard } from "@/components/ui/leave-guard";
 import { LocalTime } from "@/components/ui/local-time";
 import { FormStatus } from "@/components/ui/status";
 import { UnitNumberField } from "@/components/ui/unit-number-field";
@@ -61,8 +62,11 @@ import {
 import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
+import { FiguresAnnouncer } from "./figures-announcer";
+import { PinnedSummary } from "./pinned-summary";
 import { ResultsPanel } from "./results-panel";
 import { SizingSettingsNote } from "./sizing-settings-note";
+import { UnitToggle } from "./unit-toggle";
 
 // The charts' code (the charting library is most of this page's JavaScript) loads when the charts
 // scroll near the screen, after the sheet is usable.
@@ -88,7 +92,7 @@ const LaterFigures = memo(function LaterFigures({
   return (
     <>
       <SizingSettingsNote input={input} result={result} units={units} />
-      <div className="mt-4">
+      <div className="mt-4 print:hidden">
         <WhenVisible minHeight={CHARTS_HEIGHT} label="The charts load as you scroll to them">
           <SizingCharts input={input} result={result} units={units} />
         </WhenVisible>
@@ -455,13 +459,8 @@ export function BuildEditor(props: {
       focusFirstInvalid();
   }, [saved]);
 
-  // Unsaved changes are not lost by leaving the page by accident.
-  useEffect(() => {
-    if (!dirty) return;
-    const warn = (e: BeforeUnloadEvent) => e.preventDefault();
-    window.addEventListener("beforeunload", warn);
-    return () => window.removeEventListener("beforeunload", warn);
-  }, [dirty]);
+  // Unsaved changes are not lost by leaving the page by accident (a reload or an in-app link).
+  useLeaveGuard(dirty && !props.readOnly);
 
   const switchUnits = (next: UnitSystem) => {
     if (next === units) return;
@@ -727,6 +726,8 @@ export function BuildEditor(props: {
             }
           }}
         >
+          {/* On a narrow screen the key figures stay pinned above the inputs as they scroll. */}
+          <PinnedSummary result={result} units={units} resultsId="results" />
           <fieldset
             disabled={props.readOnly}
             aria-describedby={
@@ -760,24 +761,7 @@ export function BuildEditor(props: {
               />
             </div>
           </fieldset>
-          <div
-            role="radiogroup"
-            aria-label="Units"
-            className="mt-3 inline-flex rounded-md border border-ink-300 bg-white p-0.5 text-sm"
-          >
-            {(["metric", "imperial"] as const).map((u) => (
-              <button
-                key={u}
-                type="button"
-                role="radio"
-                aria-checked={units === u}
-                onClick={() => switchUnits(u)}
-                className={`rounded px-3 py-1 ${units === u ? "bg-ink-800 text-white" : "text-ink-700"}`}
-              >
-                {u === "metric" ? "Metric (kPa, kW, cc/min)" : "Imperial (psi, hp, lb/h)"}
-              </button>
-            ))}
-          </div>
+          <UnitToggle value={units} onChange={switchUnits} />
           <fieldset
             disabled={props.readOnly}
             aria-describedby={
@@ -984,7 +968,8 @@ export function BuildEditor(props: {
           </fieldset>
         </form>
       </LockedLabel.Provider>
-      <div>
+      <div id="results" className="min-w-0 scroll-mt-4">
+        <FiguresAnnouncer result={result} units={units} />
         <ResultsPanel result={result} units={units} />
         {later ? <LaterFigures input={later.input} result={later.result} units={units} /> : null}
       </div>

@@ -120,7 +120,7 @@ export function BuildsTable({
         </EmptyState>
       ) : (
         <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-          <table className="w-full text-left text-sm">
+          <table className="table-cards w-full text-left text-sm">
             <thead className="bg-ink-100 text-ink-700">
               <tr>
                 <th scope="col" className="px-4 py-2">
@@ -155,10 +155,16 @@ export function BuildsTable({
                     </Link>
                     {b.vehicle ? <p className="text-xs text-ink-600">{b.vehicle}</p> : null}
                   </td>
-                  <td className="px-4 py-2">{b.customerName}</td>
-                  <td className="px-4 py-2">{b.tunerName ?? "—"}</td>
-                  <td className="px-4 py-2">{STATUS_LABELS[b.status]}</td>
-                  <td className="px-4 py-2 text-right">
+                  <td className="px-4 py-2" data-label="Customer">
+                    {b.customerName}
+                  </td>
+                  <td className="px-4 py-2" data-label="Tuner">
+                    {b.tunerName ?? "—"}
+                  </td>
+                  <td className="px-4 py-2" data-label="Status" data-testid="build-status">
+                    {STATUS_LABELS[b.status]}
+                  </td>
+                  <td className="px-4 py-2 text-right" data-label="Duty" data-testid="build-duty">
                     {/* A build waiting for its sizing has no figures anyone checked yet. */}
                     {b.dutyPct === null || b.status === "needs_sizing" ? (
                       "—"
@@ -166,7 +172,11 @@ export function BuildsTable({
                       <Signal level={dutyLevel(b.dutyPct)}>{b.dutyPct.toFixed(0)} %</Signal>
                     )}
                   </td>
-                  <td className="px-4 py-2 text-right">
+                  <td
+                    className="px-4 py-2 text-right"
+                    data-label="Pump margin"
+                    data-testid="build-margin"
+                  >
                     {b.marginPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (

@@ -79,7 +79,8 @@ export function DeadTimeGrid({
           ✕ {error}
         </p>
       ) : null}
-      <div className="mt-1 overflow-x-auto">
+      {/* A grid of inputs that grows by columns: it may scroll sideways on its own. */}
+      <div className="mt-1 overflow-x-auto" data-scroll-x>
         <table className="text-sm">
           <thead>
             <tr>

@@ -60,10 +60,7 @@ export function ResultsPanel({
 }) {
   if (!result) {
     return (
-      <div
-        aria-live="polite"
-        className="rounded-lg border border-dashed border-ink-300 bg-white p-6 text-ink-700"
-      >
+      <div className="rounded-lg border border-dashed border-ink-300 bg-white p-6 text-ink-700">
         <p className="font-semibold">No figures yet</p>
         <p className="mt-1 text-sm">{error ?? "Fix the highlighted fields to see the sizing."}</p>
       </div>
@@ -95,7 +92,8 @@ export function ResultsPanel({
   const ceiling = split("powerCeiling.kw", r.powerCeiling.kw, units);
   const headroom = r.powerCeiling.headroomPct;
   return (
-    <div aria-live="polite" className="space-y-4">
+    // Not a live region: the editor's FiguresAnnouncer says what changed, not the whole panel.
+    <div className="space-y-4">
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Injectors</h2>
         <dl className="mt-3 grid grid-cols-2 gap-4 sm:grid-cols-3">

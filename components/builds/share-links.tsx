@@ -30,7 +30,10 @@ export function ShareLinks({ buildId }: { buildId: string }) {
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
   const [pending, start] = useTransition();
   return (
-    <section aria-labelledby="share" className="mt-8 rounded-lg border border-ink-200 bg-white p-5">
+    <section
+      aria-labelledby="share"
+      className="mt-8 rounded-lg border border-ink-200 bg-white p-5 print:hidden"
+    >
       <h2 id="share" className="text-xl font-semibold">
         Share the spec sheet
       </h2>

@@ -98,7 +98,7 @@ export function PartsTable({
         </EmptyState>
       ) : (
         <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-          <table className="w-full text-left text-sm">
+          <table className="table-cards w-full text-left text-sm">
             <thead className="bg-ink-100 text-ink-700">
               <tr>
                 <th scope="col" className="px-4 py-2">
@@ -124,7 +124,7 @@ export function PartsTable({
             <tbody>
               {(data?.parts ?? []).map((p) => (
                 <tr key={p.id} className="border-t border-ink-100">
-                  <td className="figure px-4 py-2">
+                  <td className="figure px-4 py-2" data-label="SKU">
                     {canEdit ? (
                       <Link href={`/parts/${p.id}`} className="text-copper-700 underline">
                         {p.sku}
@@ -133,18 +133,24 @@ export function PartsTable({
                       p.sku
                     )}
                   </td>
-                  <td className="px-4 py-2">
+                  <td className="px-4 py-2 font-medium sm:font-normal">
                     {p.name}
-                    <p className="text-xs text-ink-600">{p.brand}</p>
+                    <p className="text-xs font-normal text-ink-600">{p.brand}</p>
                   </td>
-                  <td className="px-4 py-2">{CATEGORY_LABELS[p.category]}</td>
-                  <td className="px-4 py-2 text-ink-700">
+                  <td className="px-4 py-2" data-label="Category">
+                    {CATEGORY_LABELS[p.category]}
+                  </td>
+                  <td className="px-4 py-2 text-ink-700" data-label="Key figures">
                     {specSummary(p.category, p.specs as Record<string, unknown>, units)}
                   </td>
-                  <td className="figure px-4 py-2 text-right">
+                  <td
+                    className="figure px-4 py-2 text-right"
+                    data-label="Price"
+                    data-testid="part-price"
+                  >
                     {formatMoney(p.priceMinor, currency)}
                   </td>
-                  <td className="px-4 py-2 text-right">
+                  <td className="px-4 py-2 text-right" data-label="Stock" data-testid="part-stock">
                     <StockBadge
                       stock={p.stock}
                       reserved={p.reserved}

@@ -371,7 +371,7 @@ function QuoteEditorForm({
         </p>
       ) : null}
       <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-        <table className="w-full text-left text-sm">
+        <table className="table-cards w-full text-left text-sm">
           <thead className="bg-ink-100 text-ink-700">
             <tr>
               <th scope="col" className="px-3 py-2">
@@ -406,7 +406,7 @@ function QuoteEditorForm({
             ) : null}
             {rows.map((r, i) => (
               <tr key={i} className="border-t border-ink-100">
-                <td className="px-3 py-2">
+                <td className="card-wide px-3 py-2">
                   {editable ? (
                     <>
                       <input
@@ -430,7 +430,7 @@ function QuoteEditorForm({
                     {r.sku ? ` · ${r.sku}` : ""}
                   </span>
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td className="px-3 py-2 text-right" data-label="Qty">
                   {editable ? (
                     <>
                       <input
@@ -448,7 +448,7 @@ function QuoteEditorForm({
                     r.qty
                   )}
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td className="px-3 py-2 text-right" data-label="Unit price">
                   {editable ? (
                     <>
                       <input
@@ -469,7 +469,7 @@ function QuoteEditorForm({
                     <span className="figure">{shown.lines[i]!.unitPrice}</span>
                   )}
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td className="px-3 py-2 text-right" data-label="Discount %">
                   {editable ? (
                     <>
                       <input
@@ -495,11 +495,15 @@ function QuoteEditorForm({
                     <span className="figure">{shown.lines[i]!.discount}</span>
                   )}
                 </td>
-                <td className="figure px-3 py-2 text-right" data-testid="line-total">
+                <td
+                  className="figure px-3 py-2 text-right"
+                  data-label="Line total"
+                  data-testid="line-total"
+                >
                   {shown.lines[i]!.lineTotal}
                 </td>
                 {editable ? (
-                  <td className="px-3 py-2">
+                  <td className="px-3 py-2 text-right">
                     <Button
                       type="button"
                       variant="ghost"

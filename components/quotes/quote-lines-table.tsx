@@ -7,7 +7,7 @@ import type { PresentedQuote } from "@/lib/quotes/quote-presentation";
 export function QuoteLinesTable({ presented: p }: { presented: PresentedQuote }) {
   return (
     <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-      <table className="w-full text-left text-sm" data-testid="quote-lines">
+      <table className="table-cards w-full text-left text-sm" data-testid="quote-lines">
         <thead className="bg-ink-100">
           <tr>
             <th scope="col" className="px-3 py-2">
@@ -37,16 +37,22 @@ export function QuoteLinesTable({ presented: p }: { presented: PresentedQuote })
           ) : null}
           {p.lines.map((l, i) => (
             <tr key={i} className="border-t border-ink-100">
-              <td className="px-3 py-2">
+              <td className="px-3 py-2 font-medium sm:font-normal">
                 {l.description}
                 {l.sku ? <span className="block text-xs text-ink-600">{l.sku}</span> : null}
               </td>
-              <td className="figure px-3 py-2 text-right">{l.quantity}</td>
-              <td className="figure px-3 py-2 text-right">{l.unitPrice}</td>
-              <td className="figure px-3 py-2 text-right">
+              <td className="figure px-3 py-2 text-right" data-label="Qty">
+                {l.quantity}
+              </td>
+              <td className="figure px-3 py-2 text-right" data-label="Unit price">
+                {l.unitPrice}
+              </td>
+              <td className="figure px-3 py-2 text-right" data-label="Discount">
                 {l.discountRate ? l.discount : <span aria-label="no discount">—</span>}
               </td>
-              <td className="figure px-3 py-2 text-right">{l.lineTotal}</td>
+              <td className="figure px-3 py-2 text-right" data-label="Line total">
+                {l.lineTotal}
+              </td>
             </tr>
           ))}
         </tbody>

@@ -9,29 +9,36 @@ import { navFor } from "./nav-items";
 import { NavLinks } from "./nav-links";
 import { SignOutButton } from "./sign-out-button";
 
+/**
+ * The frame of every signed-in page. Below 640 px the main nav is a "Menu" button that opens
+ * every section; from 640 px to 1024 px the links take their own row and wrap; from 1024 px they
+ * sit beside the logo. The root layout's skip link jumps to `#main`.
+ */
 export function AppFrame({ member, children }: { member: Member; children: ReactNode }) {
   return (
     <div className="min-h-screen">
-      <header className="bg-ink-900 text-white">
+      <header className="relative bg-ink-900 text-white">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
           <Link href="/" className="text-white">
             <Logo small />
           </Link>
           <nav
             aria-label="Main"
-            className="order-3 w-full min-w-0 sm:order-none sm:w-auto sm:flex-1"
+            className="min-w-0 flex-1 sm:order-3 sm:w-full sm:flex-none lg:order-none lg:w-auto lg:flex-1"
           >
             <NavLinks items={navFor(member.role).map(({ href, label }) => ({ href, label }))} />
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
-            <span className="hidden text-ink-200 md:inline" data-testid="who">
+            <span className="hidden text-ink-200 lg:inline" data-testid="who">
               {member.user.name} · {ROLE_LABELS[member.role]} · {member.shopName}
             </span>
             <SignOutButton />
           </div>
         </div>
       </header>
-      <main className="mx-auto max-w-7xl px-4 py-6">{children}</main>
+      <main id="main" tabIndex={-1} className="mx-auto max-w-7xl px-4 py-6 focus:outline-none">
+        {children}
+      </main>
     </div>
   );
 }

@@ -4,44 +4,66 @@ import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 
+/** More links than this and a phone gets the "Menu" button instead of the links themselves. */
+const INLINE_ON_PHONE = 2;
+
 /**
- * The main nav's links. On a narrow screen they scroll sideways; while more links lie to the
- * right, a "More" arrow over a fade says so (and scrolls them on when pressed). The page's own
- * link is scrolled into view.
+ * The main nav's links, every one of them reachable at every width (none hidden off the end):
+ * - below 640 px: a "Menu" button naming the section you are in; it opens a panel with every
+ *   link in two columns (Escape or choosing a link closes it);
+ * - from 640 px: the links themselves, wrapping onto a second line when they do not fit.
+ * A nav with few links (the customer's) shows them at every width.
  */
 export function NavLinks({ items }: { items: { href: string; label: string }[] }) {
   const path = usePathname();
-  const list = useRef<HTMLUListElement>(null);
-  const [more, setMore] = useState(false);
+  // Open on the page it was opened on: a link chosen (or Back) closes it.
+  const [openOn, setOpenOn] = useState<string | null>(null);
+  const open = openOn === path;
+  const button = useRef<HTMLButtonElement>(null);
+  const isActive = (href: string) => path === href || path.startsWith(`${href}/`);
+  const current = items.find((i) => isActive(i.href));
+  const menu = items.length > INLINE_ON_PHONE;
 
   useEffect(() => {
-    const ul = list.current;
-    if (!ul) return;
-    const check = () => setMore(ul.scrollLeft + ul.clientWidth < ul.scrollWidth - 1);
-    ul.querySelector<HTMLElement>("[aria-current=page]")?.scrollIntoView({
-      block: "nearest",
-      inline: "nearest",
-    });
-    check();
-    ul.addEventListener("scroll", check, { passive: true });
-    const resized = new ResizeObserver(check);
-    resized.observe(ul);
-    return () => {
-      ul.removeEventListener("scroll", check);
-      resized.disconnect();
+    if (!open) return;
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== "Escape") return;
+      setOpenOn(null);
+      button.current?.focus();
     };
-  }, [path]);
+    document.addEventListener("keydown", onKey);
+    return () => document.removeEventListener("keydown", onKey);
+  }, [open]);
 
+  const list = menu
+    ? `${open ? "grid" : "hidden"} absolute inset-x-0 top-full z-40 grid-cols-2 gap-1 border-t border-ink-700 bg-ink-900 px-4 pt-2 pb-4 shadow-lg sm:static sm:flex sm:flex-wrap sm:border-0 sm:p-0 sm:shadow-none`
+    : "flex flex-wrap gap-1";
   return (
-    <div className="relative">
-      <ul ref={list} className="flex gap-1 overflow-x-auto">
+    <>
+      {menu ? (
+        <button
+          ref={button}
+          type="button"
+          aria-expanded={open}
+          aria-controls="main-nav-links"
+          onClick={() => setOpenOn(open ? null : path)}
+          className="flex min-h-10 items-center gap-2 rounded border border-ink-600 px-3 py-1.5 text-sm font-medium text-white sm:hidden"
+          data-testid="nav-menu"
+        >
+          <span aria-hidden="true">{open ? "✕" : "☰"}</span>
+          Menu
+          {current ? <span className="text-ink-200">· {current.label}</span> : null}
+        </button>
+      ) : null}
+      <ul id="main-nav-links" className={list}>
         {items.map((i) => {
-          const active = path === i.href || path.startsWith(`${i.href}/`);
+          const active = isActive(i.href);
           return (
             <li key={i.href} className="shrink-0">
               <Link
                 href={i.href}
                 aria-current={active ? "page" : undefined}
+                onClick={() => setOpenOn(null)}
                 className={`block rounded px-3 py-2 text-sm font-medium whitespace-nowrap ${active ? "bg-ink-700 text-white underline decoration-copper-500 decoration-2 underline-offset-4" : "text-ink-200 hover:bg-ink-800 hover:text-white"}`}
               >
                 {i.label}
@@ -50,18 +72,6 @@ export function NavLinks({ items }: { items: { href: string; label: string }[] }
           );
         })}
       </ul>
-      {more ? (
-        <button
-          type="button"
-          data-testid="nav-more"
-          aria-label="More links: scroll the menu"
-          tabIndex={-1}
-          onClick={() => list.current?.scrollBy({ left: list.current.clientWidth * 0.7 })}
-          className="absolute inset-y-0 right-0 flex items-center bg-gradient-to-l from-ink-900 via-ink-900/90 to-transparent pr-1 pl-6 text-sm font-semibold text-white"
-        >
-          More <span aria-hidden="true">›</span>
-        </button>
-      ) : null}
-    </div>
+    </>
   );
 }

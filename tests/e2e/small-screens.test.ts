@@ -1,78 +1,331 @@
-import type { Browser, Page } from "playwright-core";
+import { randomUUID } from "node:crypto";
+import { mkdirSync } from "node:fs";
+
+import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
-import { launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { navFor } from "@/components/shell/nav-items";
+
+import { BASE_URL, launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { appPages, renderedLinks, urlsFor, type AppPage } from "../helpers/pages";
+
+/**
+ * A phone (390 × 844) and a tablet (768 × 1024): every page of the app — found on disk
+ * (tests/helpers/pages.ts), so new pages are walked too — opened as each role. No page is wider
+ * than the screen, nothing sits in a box that scrolls sideways (a table's columns cut off), the
+ * page has exactly one h1 and the first Tab reaches the skip link.
+ */
+
+const PHONE = { width: 390, height: 844 };
+const TABLET = { width: 768, height: 1024 };
+const shots = "test-results/screenshots/small-screens";
+const DEMO_BUILD = "10000000-0000-4000-8000-000000000002";
 
 let browser: Browser;
+const pages = appPages();
+/** A URL for every staff page, found by the owner following links (plus the few fixtures). */
+let shopUrls: Map<string, string>;
+let missingShop: string[];
+/** Pages no link of a signed-in staff member leads to, made for the walk. */
+const fixtures: Record<string, string> = {
+  "/accept-invitation/[id]": `/accept-invitation/${randomUUID()}`, // an invitation that is gone
+  // Linked from a build's revisions once it has two; the demo builds start with one.
+  "/builds/[id]/compare": `/builds/${DEMO_BUILD}/compare?from=1&to=1`,
+};
+
 beforeAll(async () => {
+  mkdirSync(shots, { recursive: true });
   browser = await launchBrowser();
-});
+  const ctx = await newClient(browser);
+  const page = await ctx.newPage();
+  await signInAs(page, "owner");
+  // The public share page: a link made the way the build page makes one.
+  const share = await ctx.request.post(`/api/v1/builds/${DEMO_BUILD}/share-links`, {
+    data: { days: 7 },
+    headers: { origin: BASE_URL },
+  });
+  expect(share.status()).toBe(201);
+  fixtures["/share/[token]"] = new URL(((await share.json()) as { url: string }).url).pathname;
+  const found = await urlsFor(
+    ctx.request,
+    pages.filter((p) => p.audience === "shop"),
+    { fixtures, rendered: (url) => renderedLinks(page, url) },
+  );
+  shopUrls = found.urls;
+  missingShop = found.missing;
+  await ctx.close();
+}, 600_000);
 afterAll(async () => {
   await browser?.close();
 });
 
-/** The page's width and what sticks out past the screen's right edge (tag, id or class, right). */
-const overflow = (page: Page) =>
+/** What does not fit: the page's width, elements past the right edge, sideways scrollers, h1s. */
+const measure = (page: Page) =>
   page.evaluate(() => {
     const w = document.documentElement.clientWidth;
-    const out: string[] = [];
+    const name = (el: Element) =>
+      `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ""}${el.getAttribute("data-testid") ? `[${el.getAttribute("data-testid")}]` : ""}.${String(el.getAttribute("class") ?? "").slice(0, 40)}`;
+    const past: string[] = [];
+    const scrollers: string[] = [];
     for (const el of Array.from(document.body.querySelectorAll("*"))) {
+      const s = getComputedStyle(el);
+      if (
+        (s.overflowX === "auto" || s.overflowX === "scroll") &&
+        el.scrollWidth > el.clientWidth + 1 &&
+        !el.closest("[data-scroll-x]")
+      )
+        scrollers.push(`${name(el)} ${el.clientWidth}/${el.scrollWidth}`);
       const r = el.getBoundingClientRect();
-      if (r.right > w + 0.5 && r.width > 0) {
-        // Inside a box that scrolls on its own (the nav) it does not widen the page.
-        let p = el.parentElement;
-        let clipped = false;
-        while (p && p !== document.body) {
-          const o = getComputedStyle(p).overflowX;
-          if (o === "auto" || o === "scroll" || o === "hidden") clipped = true;
-          p = p.parentElement;
-        }
-        if (!clipped)
-          out.push(
-            `${el.tagName.toLowerCase()}${el.id ? `#${el.id}` : ""}.${String(el.className).slice(0, 40)} → ${Math.round(r.right)}`,
-          );
-      }
+      if (r.right > w + 0.5 && r.width > 0 && s.position !== "fixed") past.push(name(el));
     }
-    return { scrollWidth: document.documentElement.scrollWidth, out: out.slice(0, 8) };
+    const visibleH1 = Array.from(document.querySelectorAll("h1")).length;
+    return {
+      scrollWidth: document.documentElement.scrollWidth,
+      past: past.slice(-3),
+      scrollers: scrollers.slice(0, 3),
+      h1: visibleH1,
+    };
   });
 
-describe("a 390 px wide phone", () => {
-  it("the customers, quotes, builds and parts lists fit the screen; the main nav shows it scrolls", async () => {
-    const ctx = await newClient(browser, { width: 390, height: 844 });
-    const page = await ctx.newPage();
-    await signInAs(page, "owner");
-    for (const path of ["/customers", "/quotes", "/builds", "/parts"]) {
-      await page.goto(path);
-      await page.getByRole("heading", { level: 1 }).waitFor();
-      const o = await overflow(page);
-      expect(o.scrollWidth, `${path}: ${o.out.join("; ")}`).toBeLessThanOrEqual(390);
-      await page.screenshot({ path: `test-results/screenshots/390${path.replace("/", "-")}.png` });
+const frames = (page: Page) =>
+  page.evaluate(
+    () => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(() => r(null)))),
+  );
+
+/** Opens each URL on a phone, then the same page on a tablet; returns what failed, by URL. */
+async function walk(ctx: BrowserContext, urls: string[], tag: string) {
+  const page = await ctx.newPage();
+  const problems: string[] = [];
+  for (const url of urls) {
+    await page.setViewportSize(PHONE);
+    const res = await page.goto(url);
+    await page.waitForLoadState("networkidle");
+    if (!res || res.status() >= 500) problems.push(`${url}: status ${res?.status()}`);
+    for (const size of [PHONE, TABLET]) {
+      if (size !== PHONE) {
+        await page.setViewportSize(size);
+        await frames(page);
+      }
+      const m = await measure(page);
+      const at = `${url} @${size.width}`;
+      if (m.scrollWidth > size.width)
+        problems.push(`${at}: ${m.scrollWidth} px wide (${m.past.join(", ")})`);
+      if (m.scrollers.length) problems.push(`${at}: scrolls sideways: ${m.scrollers.join(", ")}`);
+      if (m.h1 !== 1) problems.push(`${at}: ${m.h1} h1 elements`);
     }
+    // The first Tab of the page lands on the skip link.
+    await page.setViewportSize(PHONE);
+    await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+    await page.keyboard.press("Tab");
+    const first = await page.evaluate(() => document.activeElement?.textContent?.trim());
+    if (first !== "Skip to content") problems.push(`${url}: the first Tab reaches “${first}”`);
+    await page.screenshot({
+      path: `${shots}/${tag}${url.split("?")[0]!.replace(/\//g, "_")}.jpeg`,
+      type: "jpeg",
+      quality: 40,
+    });
+  }
+  await page.close();
+  return problems;
+}
 
-    // The customers list still shows each customer's phone, on screen.
-    await page.goto("/customers");
-    const phone = page.getByTestId("customer-phone").first();
-    await phone.waitFor();
-    const box = (await phone.boundingBox())!;
-    expect(box.x + box.width).toBeLessThanOrEqual(390);
-    expect(await phone.innerText()).toMatch(/\d/);
+const routesOf = (audiences: AppPage["audience"][]) =>
+  pages.filter((p) => audiences.includes(p.audience)).map((p) => p.route);
 
-    // More nav items than fit: a visible hint that the nav scrolls, gone once scrolled to the end.
-    const nav = page.getByRole("navigation", { name: "Main" });
-    const more = page.getByTestId("nav-more");
+describe("phone (390 px) and tablet (768 px): every page as every role", () => {
+  it("finds a URL for every staff page (a link to it, or a fixture above)", () => {
+    expect(routesOf(["shop"]).length).toBeGreaterThan(15);
+    expect(missingShop).toEqual([]);
+  });
+
+  it.each(["owner", "tuner", "counter"] as const)(
+    "%s: every staff page fits, scrolls nothing sideways, has one h1 and a skip link",
+    async (role) => {
+      const ctx = await newClient(browser, PHONE);
+      const page = await ctx.newPage();
+      await signInAs(page, role);
+      await page.close();
+      const urls = routesOf(["shop"]).map((r) => shopUrls.get(r)!);
+      expect(await walk(ctx, urls, role)).toEqual([]);
+      await ctx.close();
+    },
+    900_000,
+  );
+
+  it("the customer: every portal page fits (the quote page found from their list)", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "customer");
+    const portal = pages.filter((p) => p.audience === "portal");
+    const { urls, missing } = await urlsFor(ctx.request, portal, {
+      rendered: (url) => renderedLinks(page, url),
+    });
+    expect(missing).toEqual([]);
     expect(
-      await nav.evaluate((n) => n.querySelector("ul")!.scrollWidth > n.clientWidth),
-      "the owner's nav is wider than the phone",
-    ).toBe(true);
-    await expect.poll(() => more.isVisible()).toBe(true);
-    await more.click(); // scrolls the nav on
-    await expect
-      .poll(() => nav.evaluate((n) => n.querySelector("ul")!.scrollLeft))
-      .toBeGreaterThan(0);
-    await nav
-      .locator("ul")
-      .evaluate((u) => u.scrollTo({ left: u.scrollWidth, behavior: "instant" as ScrollBehavior }));
-    await expect.poll(() => more.isVisible()).toBe(false);
+      await walk(
+        ctx,
+        portal.map((p) => urls.get(p.route)!),
+        "customer",
+      ),
+    ).toEqual([]);
+    await ctx.close();
+  }, 600_000);
+
+  it("signed out: the sign-in pages and the public share page fit", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const open = pages.filter((p) => p.audience === "auth" || p.audience === "public");
+    const urls = open.map((p) => (p.dynamic ? fixtures[p.route] : p.route));
+    expect(
+      open.filter((_, i) => !urls[i]).map((p) => p.route),
+      "a page with no fixture",
+    ).toEqual([]);
+    expect(await walk(ctx, urls as string[], "signed-out")).toEqual([]);
+    await ctx.close();
+  }, 600_000);
+});
+
+describe("the main nav on a phone and a tablet", () => {
+  it.each([
+    ["owner", "/builds"],
+    ["counter", "/builds"],
+    ["customer", "/my"],
+  ] as const)("%s reaches every section (staff: Settings too)", async (role, landing) => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, role);
+    await page.goto(landing);
+    const nav = page.getByRole("navigation", { name: "Main" });
+    const links = nav.getByRole("link");
+    const menu = page.getByRole("button", { name: /^Menu/ });
+    const items = navFor(role);
+    // A nav of one or two links shows them; a longer one hides them behind "Menu".
+    const folded = items.length > 2;
+    if (folded) {
+      // Staff: a Menu button that names where you are and opens every link.
+      await expect.poll(() => menu.innerText()).toMatch(/Menu[\s\S]*Builds/);
+      expect(await menu.getAttribute("aria-expanded")).toBe("false");
+      expect(await links.count()).toBe(0); // closed: no link shown
+      await menu.click();
+      expect(await menu.getAttribute("aria-expanded")).toBe("true");
+    } else expect(await menu.count()).toBe(0);
+    const count = await links.count();
+    expect(await links.allInnerTexts()).toEqual(items.map((i) => i.label));
+    const inside = async (w: number) => {
+      for (let i = 0; i < count; i++) {
+        const box = await links.nth(i).boundingBox();
+        expect(box, `link ${i} visible`).not.toBeNull();
+        expect(box!.x).toBeGreaterThanOrEqual(0);
+        expect(box!.x + box!.width).toBeLessThanOrEqual(w);
+      }
+    };
+    await inside(PHONE.width);
+    await page.screenshot({ path: `${shots}/nav-open-${role}.png` });
+    if (folded) {
+      // Escape closes it and gives the focus back to the button.
+      await page.keyboard.press("Escape");
+      expect(await menu.getAttribute("aria-expanded")).toBe("false");
+      expect(await page.evaluate(() => document.activeElement?.textContent)).toMatch(/Menu/);
+      await menu.click();
+      await nav.getByRole("link", { name: "Settings" }).click();
+      await page.waitForURL("**/settings");
+      await page.getByRole("heading", { level: 1 }).waitFor();
+      expect(await menu.getAttribute("aria-expanded")).toBe("false");
+      await expect.poll(() => menu.innerText()).toMatch(/Menu[\s\S]*Settings/);
+    }
+    // A tablet: the links themselves, every one on screen (wrapping, never scrolled away).
+    await page.setViewportSize(TABLET);
+    await frames(page);
+    expect(await menu.isVisible().catch(() => false)).toBe(false);
+    await inside(TABLET.width);
     await ctx.close();
   });
+});
+
+describe("key columns stay on a phone's screen", () => {
+  /** The element's box lies within the screen's width, and it is not cut off by a scroller. */
+  const onScreen = async (page: Page, testId: string) => {
+    const el = page.getByTestId(testId).first();
+    await el.waitFor();
+    const box = (await el.boundingBox())!;
+    return box.x >= 0 && box.x + box.width <= PHONE.width && box.width > 0;
+  };
+
+  it("builds: status, duty and margin; catalog: price and stock; a quote's description and prices", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "owner");
+    await page.goto("/builds");
+    for (const id of ["build-status", "build-duty", "build-margin"])
+      expect(await onScreen(page, id), id).toBe(true);
+    await page.goto("/parts");
+    for (const id of ["part-price", "part-stock"]) expect(await onScreen(page, id), id).toBe(true);
+
+    // A draft quote in the editor: the description box is wide enough to read, prices typeable.
+    await page.goto("/quotes");
+    await page.getByTestId("quotes-table").waitFor();
+    const draft = page
+      .getByTestId("quotes-table")
+      .locator("tbody tr", { hasText: "Draft" })
+      .first()
+      .getByRole("link")
+      .first();
+    await draft.click();
+    await page.waitForURL(/\/quotes\/[0-9a-f-]{36}$/);
+    const description = page.getByLabel("Line 1 description");
+    await description.waitFor();
+    const d = (await description.boundingBox())!;
+    expect(d.width).toBeGreaterThan(250);
+    expect(d.x + d.width).toBeLessThanOrEqual(PHONE.width);
+    const price = page.getByLabel("Line 1 unit price");
+    const p = (await price.boundingBox())!;
+    expect(p.width).toBeGreaterThan(80);
+    expect(p.x + p.width).toBeLessThanOrEqual(PHONE.width);
+    await price.fill("123.45");
+    expect(await price.inputValue()).toBe("123.45");
+    expect(await onScreen(page, "line-total")).toBe(true);
+    await page.screenshot({ path: `${shots}/quote-editor-390.png`, fullPage: true });
+    await ctx.close();
+  });
+
+  it("the build sheet pins duty, margin, ceiling and the worst warning above the inputs", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(`/builds/${DEMO_BUILD}`);
+    // The form has taken over the page (its fields hold their values).
+    await page.waitForFunction(
+      () => (document.querySelector("#b-title") as HTMLInputElement | null)?.value,
+    );
+    const pinned = page.getByTestId("pinned-summary");
+    await pinned.waitFor();
+    for (const id of ["pinned-duty", "pinned-margin", "pinned-ceiling", "pinned-warning"])
+      expect(await pinned.getByTestId(id).innerText(), id).toMatch(/\S/);
+    // The same figures as the results panel.
+    const duty = await page.getByTestId("pinned-duty").innerText();
+    expect(duty).toMatch(/Duty at E\d+\s+[\d.]+ %/);
+    const ceiling = await page.getByTestId("ceiling").innerText();
+    expect(await page.getByTestId("pinned-ceiling").innerText()).toContain(
+      ceiling.split(" ").slice(0, 2).join(" "),
+    );
+    // Scrolled down to the injectors' fields, the summary is still at the top of the screen.
+    const field = page.getByLabel(/Rated flow/).first();
+    await field.scrollIntoViewIfNeeded();
+    await page.evaluate(() => window.scrollBy(0, 300));
+    await frames(page);
+    const box = (await pinned.boundingBox())!;
+    expect(box.y).toBeLessThanOrEqual(1);
+    expect(box.height).toBeLessThan(PHONE.height / 4);
+    // It follows the inputs: a bigger power goal changes its duty figure.
+    const power = page.getByLabel(/^Target power/).first();
+    const before = await page.getByTestId("pinned-duty").innerText();
+    const now = Number((await power.inputValue()).replace(/,/g, ""));
+    await power.fill(String(Math.round(now * 1.3)));
+    await expect.poll(() => page.getByTestId("pinned-duty").innerText()).not.toBe(before);
+    await page.screenshot({ path: `${shots}/build-sheet-pinned.png` });
+    // On a wide screen the results stand beside the inputs: no pinned copy.
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await frames(page);
+    expect(await pinned.isVisible()).toBe(false);
+    await ctx.close();
+  }, 300_000);
 });

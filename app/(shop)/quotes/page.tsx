@@ -60,7 +60,7 @@ export default async function QuotesPage({
         </EmptyState>
       ) : (
         <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-          <table className="w-full text-left text-sm" data-testid="quotes-table">
+          <table className="table-cards w-full text-left text-sm" data-testid="quotes-table">
             <thead className="bg-ink-100 text-ink-700">
               <tr>
                 <th scope="col" className="px-4 py-2">
@@ -91,22 +91,30 @@ export default async function QuotesPage({
                       {quoteLabel(q.number, q.revision)}
                     </Link>
                   </td>
-                  <td className="px-4 py-2">{q.customerName}</td>
-                  <td className="px-4 py-2">
+                  <td className="px-4 py-2" data-label="Customer">
+                    {q.customerName}
+                  </td>
+                  <td className="px-4 py-2" data-label="Build">
                     {q.buildTitle ? (
                       <>
-                        {q.buildTitle}
-                        {q.buildVehicle ? (
-                          <span className="block text-xs text-ink-600">{q.buildVehicle}</span>
-                        ) : null}
+                        <span>
+                          {q.buildTitle}
+                          {q.buildVehicle ? (
+                            <span className="block text-xs text-ink-600">{q.buildVehicle}</span>
+                          ) : null}
+                        </span>
                       </>
                     ) : (
                       <span className="text-ink-600">Parts only</span>
                     )}
                   </td>
-                  <td className="px-4 py-2">{QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}</td>
-                  <td className="figure px-4 py-2 whitespace-nowrap">{q.validUntil}</td>
-                  <td className="figure px-4 py-2 text-right whitespace-nowrap">
+                  <td className="px-4 py-2" data-label="Status">
+                    {QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}
+                  </td>
+                  <td className="figure px-4 py-2 whitespace-nowrap" data-label="Valid until">
+                    {q.validUntil}
+                  </td>
+                  <td className="figure px-4 py-2 text-right whitespace-nowrap" data-label="Total">
                     {formatMoney(q.totalMinor, q.currency)}
                   </td>
                 </tr>

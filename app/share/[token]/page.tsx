@@ -23,7 +23,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
   if (!check.ok) {
     if (check.reason === "invalid") notFound();
     return (
-      <main className="mx-auto max-w-xl p-8">
+      <main id="main" tabIndex={-1} className="mx-auto max-w-xl p-8 focus:outline-none">
         <h1 className="font-display text-2xl font-semibold">Spec sheet not available</h1>
         <p className="mt-2 text-ink-700" data-testid="share-refused">
           {REASONS[check.reason]} Ask the shop for a new link.
@@ -36,7 +36,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
     getShopSettings(check.link.shopId),
   ]);
   return (
-    <main className="mx-auto max-w-xl p-8">
+    <main id="main" tabIndex={-1} className="mx-auto max-w-xl p-8 focus:outline-none">
       <p className="text-sm text-ink-600">{shop?.name}</p>
       <h1 className="font-display text-2xl font-semibold">{row?.build.title}</h1>
       <p className="mt-1 text-ink-700">{row?.build.vehicle}</p>

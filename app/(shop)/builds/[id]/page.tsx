@@ -48,26 +48,32 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   );
   return (
     <>
-      <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
-        <p className="text-sm text-ink-600">
-          <Link href={`/customers/${b.customerId}`} className="text-copper-700 underline">
-            {row.customerName}
-          </Link>
-          {b.vehicle ? ` · ${b.vehicle}` : ""}
-          {previous ? (
-            <>
-              {" · next power step from "}
-              <Link
-                href={`/builds/${previous.build.id}/dyno`}
-                className="text-copper-700 underline"
-                data-testid="previous-step"
-              >
-                {previous.build.title}
-              </Link>
-            </>
-          ) : null}
-        </p>
-        <div className="flex flex-wrap items-center gap-3">
+      <div className="mb-4 flex flex-wrap items-end justify-between gap-3">
+        <div className="min-w-0">
+          {/* The page's one h1; the build's title is the first field of the sheet below. */}
+          <h1 className="text-2xl font-bold text-ink-900">
+            Build sheet<span className="sr-only">: {b.title}</span>
+          </h1>
+          <p className="text-sm text-ink-600">
+            <Link href={`/customers/${b.customerId}`} className="text-copper-700 underline">
+              {row.customerName}
+            </Link>
+            {b.vehicle ? ` · ${b.vehicle}` : ""}
+            {previous ? (
+              <>
+                {" · next power step from "}
+                <Link
+                  href={`/builds/${previous.build.id}/dyno`}
+                  className="text-copper-700 underline"
+                  data-testid="previous-step"
+                >
+                  {previous.build.title}
+                </Link>
+              </>
+            ) : null}
+          </p>
+        </div>
+        <div className="flex flex-wrap items-center gap-3 print:hidden">
           <a
             href={`/api/v1/builds/${b.id}/spec-sheet`}
             className="rounded-md border border-ink-300 bg-white px-4 py-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
@@ -125,7 +131,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
       />
       <section
         aria-labelledby="revs"
-        className="mt-8 rounded-lg border border-ink-200 bg-white p-5"
+        className="mt-8 rounded-lg border border-ink-200 bg-white p-5 print:hidden"
       >
         <h2 id="revs" className="text-xl font-semibold">
           Revisions

@@ -164,13 +164,13 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
           ) : null}
         </div>
         <div>
-          <section aria-labelledby="cust-details" className={card}>
+          <section aria-labelledby="cust-details" className={`${card} print:hidden`}>
             <h2 id="cust-details" className="mb-4 text-xl font-semibold">
               Details
             </h2>
             <CustomerForm customer={{ ...c, phone: phone || null }} context={context} />
           </section>
-          <section aria-labelledby="cust-portal" className={card}>
+          <section aria-labelledby="cust-portal" className={`${card} print:hidden`}>
             <h2 id="cust-portal" className="mb-2 text-xl font-semibold">
               Customer portal
             </h2>

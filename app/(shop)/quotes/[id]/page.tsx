@@ -162,7 +162,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
       </section>
       <section
         aria-labelledby="q-mail"
-        className="mt-6 rounded-lg border border-ink-200 bg-white p-5"
+        className="mt-6 rounded-lg border border-ink-200 bg-white p-5 print:hidden"
       >
         <h2 id="q-mail" className="text-lg font-semibold">
           E-mails sent

@@ -1,0 +1,333 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
+import { cspWatch, seriousViolations } from "../helpers/axe";
+import { launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { sql } from "../helpers/db";
+import { inspectPdf } from "../helpers/pdf";
+
+/**
+ * The accessibility suite on the phone and tablet layouts and on paper: axe on the small
+ * screens and the print view, the skip link, one h1, the unit toggle's arrow keys, the live
+ * region that says only the changed key figures, the focus on a failed save and the guard on
+ * leaving an edited build sheet through the menu.
+ */
+
+const PHONE = { width: 390, height: 844 };
+const TABLET = { width: 768, height: 1024 };
+const BUILD = "/builds/10000000-0000-4000-8000-000000000002";
+const CUSTOMER = "/customers/00000000-0000-4000-8000-000000000001";
+
+let browser: Browser;
+let quote: string;
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const [q] =
+    await sql`select id from quotes where shop_id = 'demo-shop-ridgeback' and status = 'draft' order by number limit 1`;
+  quote = `/quotes/${q!.id}`;
+});
+afterAll(async () => {
+  await browser?.close();
+  await sql.end();
+});
+
+/** The build sheet's form has taken over the page (its fields hold their values). */
+const hydrated = (page: Page) =>
+  page.waitForFunction(
+    () => (document.querySelector("#b-title") as HTMLInputElement | null)?.value,
+  );
+
+const settle = (page: Page) =>
+  page.evaluate(
+    () => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(() => r(null)))),
+  );
+
+describe("axe on the phone, the tablet and paper", () => {
+  it("the staff pages and the portal have no serious or critical findings at 390 and 768 px, nor in print", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    const csp = cspWatch(page);
+    await signInAs(page, "owner");
+    const report: Record<string, string[]> = {};
+    for (const path of ["/builds", BUILD, "/parts", "/quotes", quote, CUSTOMER, "/settings"]) {
+      await page.setViewportSize(PHONE);
+      await page.goto(path);
+      await page.waitForLoadState("networkidle");
+      report[`${path} @390`] = await seriousViolations(page);
+      // The phone's menu open, too.
+      if (path === "/builds") {
+        await page.getByRole("button", { name: /^Menu/ }).click();
+        report[`${path} @390 menu open`] = await seriousViolations(page);
+      }
+      await page.setViewportSize(TABLET);
+      await settle(page);
+      report[`${path} @768`] = await seriousViolations(page);
+      await page.emulateMedia({ media: "print" });
+      report[`${path} print`] = await seriousViolations(page);
+      await page.emulateMedia({ media: "screen" });
+    }
+    const customer = await newClient(browser, PHONE);
+    const portal = await customer.newPage();
+    await signInAs(portal, "customer");
+    await portal.waitForLoadState("networkidle");
+    report["/my @390"] = await seriousViolations(portal);
+    expect(Object.fromEntries(Object.entries(report).filter(([, v]) => v.length))).toEqual({});
+    expect(csp).toEqual([]);
+    await customer.close();
+    await ctx.close();
+  }, 600_000);
+});
+
+describe("keyboard and screen readers on the build sheet", () => {
+  it("the first Tab is a visible skip link that moves the focus past the menu into the page, whose one h1 names the sheet", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await page.getByRole("heading", { level: 1 }).waitFor();
+    const h1 = await page.getByRole("heading", { level: 1 }).allInnerTexts();
+    expect(h1).toHaveLength(1);
+    expect(h1[0]).toMatch(/^Build sheet/);
+    await page.keyboard.press("Tab");
+    const skip = page.getByRole("link", { name: "Skip to content" });
+    expect(await skip.evaluate((el) => el === document.activeElement)).toBe(true);
+    const box = (await skip.boundingBox())!;
+    expect(box.y).toBeGreaterThanOrEqual(0); // shown while it has the focus
+    await page.keyboard.press("Enter");
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe("main");
+    await page.keyboard.press("Tab");
+    const inMain = await page.evaluate(
+      () =>
+        document.activeElement?.closest("main") !== null &&
+        !document.activeElement?.closest("header"),
+    );
+    expect(inMain, "the Tab after the skip link is in the page, not the menu").toBe(true);
+    await ctx.close();
+  });
+
+  it("the unit toggle is a radio group: one Tab stop, arrow keys choose the other system", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await hydrated(page);
+    const group = page.getByRole("radiogroup", { name: "Units" });
+    await group.waitFor();
+    const radios = group.getByRole("radio");
+    expect(await radios.count()).toBe(2);
+    const checked = () =>
+      group.locator('[aria-checked="true"]').evaluate((el) => el.textContent ?? "");
+    const start = await checked();
+    // Only the chosen one is in the Tab order.
+    expect(await radios.evaluateAll((rs) => rs.map((r) => (r as HTMLElement).tabIndex))).toEqual(
+      (await radios.evaluateAll((rs) => rs.map((r) => r.getAttribute("aria-checked")))).map((c) =>
+        c === "true" ? 0 : -1,
+      ),
+    );
+    await group.locator('[aria-checked="true"]').focus();
+    const unitBefore = await page.locator('label[for="b-engine-maxBoostKpa"]').innerText();
+    await page.keyboard.press("ArrowRight");
+    await expect.poll(checked).not.toBe(start);
+    expect(
+      await page.evaluate(() => document.activeElement?.getAttribute("aria-checked")),
+      "the focus moves with the choice",
+    ).toBe("true");
+    await expect
+      .poll(() => page.locator('label[for="b-engine-maxBoostKpa"]').innerText())
+      .not.toBe(unitBefore);
+    await page.keyboard.press("ArrowLeft");
+    await expect.poll(checked).toBe(start);
+    await page.keyboard.press("End");
+    await expect.poll(checked).toMatch(/Imperial/);
+    await page.keyboard.press("Home");
+    await expect.poll(checked).toMatch(/Metric/);
+    // Back to where the tuner started (their preference is saved on each switch).
+    if (!(await checked()).startsWith(start.slice(0, 6))) await page.keyboard.press("ArrowRight");
+    await expect.poll(checked).toBe(start);
+    await ctx.close();
+  });
+
+  it("a polite live region says only the key figures that changed, once typing pauses", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await hydrated(page);
+    const live = page.getByTestId("figures-announcer");
+    await live.waitFor({ state: "attached" });
+    expect(await live.getAttribute("aria-live")).toBe("polite");
+    expect(await live.innerText()).toBe(""); // nothing said on arrival
+    // The results panel itself is no live region any more: its figures sit in none.
+    expect(
+      await page.getByTestId("ceiling").evaluate((el) => el.closest("[aria-live]") === null),
+    ).toBe(true);
+    await page.evaluate(() => {
+      const el = document.querySelector('[data-testid="figures-announcer"]')!;
+      const w = window as unknown as { said: string[]; at: number[] };
+      w.said = [];
+      w.at = [];
+      new MutationObserver(() => {
+        w.said.push(el.textContent ?? "");
+        w.at.push(performance.now());
+      }).observe(el, { childList: true, characterData: true, subtree: true });
+    });
+    const power = page.getByLabel(/^Target power/);
+    const now = Number((await power.inputValue()).replace(/,/g, ""));
+    await power.selectText();
+    // Typed as a person types: a keystroke every 60 ms.
+    await power.pressSequentially(String(Math.round(now * 1.25)), { delay: 60 });
+    await expect
+      .poll(() => page.evaluate(() => (window as unknown as { said: string[] }).said.length))
+      .toBeGreaterThan(0);
+    await page.waitForTimeout(1500);
+    const { said, at } = await page.evaluate(() => {
+      const w = window as unknown as { said: string[]; at: number[] };
+      return { said: w.said, at: w.at };
+    });
+    const typed = String(Math.round(now * 1.25)).length;
+    // Debounced: never one per keystroke (on a slow machine a keystroke may take longer than
+    // the pause, so a long edit may be said more than once — never twice within the pause).
+    expect(said.length, "fewer announcements than keystrokes").toBeLessThan(typed);
+    for (let i = 1; i < at.length; i++) expect(at[i]! - at[i - 1]!).toBeGreaterThan(800);
+    const last = said[said.length - 1]!;
+    expect(last).toMatch(/Duty at E\d+: [\d.]+ %/);
+    expect(last).toMatch(/Pump margin: -?[\d.]+ %/);
+    expect(last, "the ceiling did not change, so it is not said").not.toMatch(/Power ceiling/);
+    expect(last.length).toBeLessThan(400);
+    // The same value typed again changes no figure: nothing more is said.
+    await power.fill(String(Math.round(now * 1.25)));
+    await page.waitForTimeout(1500);
+    expect(await page.evaluate(() => (window as unknown as { said: string[] }).said.length)).toBe(
+      said.length,
+    );
+    await ctx.close();
+  });
+
+  it("a failed save puts the focus on the first invalid field", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await hydrated(page);
+    const cylinders = page.locator("#b-engine-cylinders");
+    await cylinders.fill("");
+    await page.locator("#b-injectors-count").fill("");
+    await page.getByRole("button", { name: "Save build" }).click();
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.id))
+      .toBe("b-engine-cylinders");
+    expect(await cylinders.getAttribute("aria-invalid")).toBe("true");
+    await ctx.close();
+  });
+
+  it.each([
+    ["a laptop", { width: 1280, height: 900 }],
+    ["a phone", PHONE],
+  ] as const)(
+    "on %s, leaving an edited sheet through the top menu asks first; Cancel keeps the edits",
+    async (_name, viewport) => {
+      const ctx = await newClient(browser, viewport);
+      const page = await ctx.newPage();
+      await signInAs(page, "tuner");
+      await page.goto(BUILD);
+      await hydrated(page);
+      const title = page.locator("#b-title");
+      const edited = `${await title.inputValue()} (edited)`;
+      await title.fill(edited);
+      const asked: string[] = [];
+      let answer = false;
+      page.on("dialog", (d) => {
+        asked.push(`${d.type()}: ${d.message()}`);
+        void (answer ? d.accept() : d.dismiss());
+      });
+      const customers = async () => {
+        const menu = page.getByRole("button", { name: /^Menu/ });
+        // On a phone, open the menu (it stays open after a cancelled click).
+        if ((await menu.isVisible()) && (await menu.getAttribute("aria-expanded")) === "false")
+          await menu.click();
+        await page
+          .getByRole("navigation", { name: "Main" })
+          .getByRole("link", { name: "Customers" })
+          .click();
+      };
+      await customers();
+      await expect.poll(() => asked.length).toBe(1);
+      expect(asked[0]).toMatch(/^confirm: .*unsaved changes/);
+      await page.waitForTimeout(500);
+      expect(new URL(page.url()).pathname).toBe(BUILD);
+      expect(await title.inputValue()).toBe(edited);
+      answer = true;
+      await customers();
+      await page.waitForURL("**/customers");
+      expect(asked).toHaveLength(2);
+      await ctx.close();
+    },
+  );
+
+  it("an unedited sheet leaves through the menu without a question", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await hydrated(page);
+    const asked: string[] = [];
+    page.on("dialog", (d) => {
+      asked.push(d.message());
+      void d.dismiss();
+    });
+    await page
+      .getByRole("navigation", { name: "Main" })
+      .getByRole("link", { name: "Parts" })
+      .click();
+    await page.waitForURL("**/parts");
+    expect(asked).toEqual([]);
+    await ctx.close();
+  });
+});
+
+describe("print", () => {
+  it("the build sheet, the customer page and a quote print without the menu or sticky bars, the sheet on at most 3 pages", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signInAs(page, "owner");
+    await page.goto(BUILD);
+    await page.getByTestId("ceiling").waitFor();
+    await page.waitForLoadState("networkidle");
+    await hydrated(page); // the inputs' values are set by the form once it runs
+    await page.emulateMedia({ media: "print" });
+    expect(await page.getByRole("navigation", { name: "Main" }).isVisible()).toBe(false);
+    expect(await page.getByTestId("pinned-summary").isVisible()).toBe(false);
+    expect(
+      await page
+        .locator("button", { hasText: "Save build" })
+        .evaluate((b) => getComputedStyle(b.parentElement!).position),
+    ).toBe("static");
+    expect(await page.getByRole("heading", { level: 1 }).count()).toBe(1);
+    const pages: Record<string, number> = {};
+    for (const [name, path, most] of [
+      ["build sheet", BUILD, 3],
+      ["customer", CUSTOMER, 3],
+      ["quote", quote, 3],
+    ] as const) {
+      if (path !== BUILD) {
+        await page.goto(path);
+        await page.getByRole("heading", { level: 1 }).waitFor();
+        await page.waitForLoadState("networkidle");
+      }
+      for (const format of ["Letter", "A4"] as const) {
+        const pdf = inspectPdf(await page.pdf({ format, printBackground: true }));
+        pages[`${name} ${format}`] = pdf.pages;
+        expect(pdf.pages, `${name} on ${format}`).toBeLessThanOrEqual(most);
+        expect(pdf.text).not.toMatch(/Sign out|Skip to content|Save build|Menu/);
+        if (name === "build sheet") {
+          expect(pdf.text).toMatch(/Build sheet/);
+          expect(pdf.text).toMatch(/Power ceiling/);
+          expect(pdf.text).toMatch(/Warnings/);
+          expect(pdf.text).toMatch(/Duty at E/);
+        }
+      }
+    }
+    console.log("printed pages:", JSON.stringify(pages));
+    await ctx.close();
+  }, 300_000);
+});
