@@ -20,7 +20,7 @@ export type { SizingLimits } from "./sizing/context";
 export type { BlendEnd, FuelSystemResult, LineResult, PulseWidth } from "./sizing/result";
 
 /** Bumped whenever a formula or default changes, so saved results say what made them. */
-export const CALC_VERSION = "1.2.0";
+export const CALC_VERSION = "1.3.0";
 
 /**
  * Sizes a fuel system: fuel needed at the target power across the blend range, injector duty,
