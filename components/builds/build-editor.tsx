@@ -141,25 +141,16 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   if (!inc.bypass && v.regulator) delete v.regulator.bypass;
   // Without the second pump, the first (and any the API added beyond the second) stay.
   if (!inc.pump2 && Array.isArray(v.pumps)) v.pumps = [v.pumps[0]!, ...v.pumps.slice(2)];
-  return convertInputs(v, units, "toCanonical", baseline);
+  return convertInputs(v, units, "toCanonical", withOptionalDefaults(baseline));
 }
 
-/** Canonical inputs → form values in the shown units, with the optional parts filled in. */
-function valuesOf(
-  inputs: FuelSystemInput,
-  units: UnitSystem,
-  title: string,
-  status: BuildStatus,
-): Values {
-  const include = {
-    feed: Boolean(inputs.lines?.feed),
-    return: Boolean(inputs.lines?.return),
-    wiring: Boolean(inputs.electrical?.wiring),
-    deadTime: Boolean(inputs.injectors?.deadTime),
-    pump2: inputs.pumps.length > 1,
-    bypass: Boolean(inputs.regulator?.bypass),
-  };
-  const full: FuelSystemInput = {
+/**
+ * Canonical inputs with the optional parts filled in (their canonical defaults where the build
+ * has none): what the form shows, and the original a shown value converts back to — so a default
+ * nobody changed comes back exactly (400 L/h at 300 kPa, never 400.1 at 299.9 after a switch).
+ */
+function withOptionalDefaults(inputs: FuelSystemInput): FuelSystemInput {
+  return {
     ...inputs,
     injectors: {
       ...inputs.injectors,
@@ -179,6 +170,24 @@ function valuesOf(
       return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return,
     },
   };
+}
+
+/** Canonical inputs → form values in the shown units, with the optional parts filled in. */
+function valuesOf(
+  inputs: FuelSystemInput,
+  units: UnitSystem,
+  title: string,
+  status: BuildStatus,
+): Values {
+  const include = {
+    feed: Boolean(inputs.lines?.feed),
+    return: Boolean(inputs.lines?.return),
+    wiring: Boolean(inputs.electrical?.wiring),
+    deadTime: Boolean(inputs.injectors?.deadTime),
+    pump2: inputs.pumps.length > 1,
+    bypass: Boolean(inputs.regulator?.bypass),
+  };
+  const full = withOptionalDefaults(inputs);
   return { ...convertInputs(full, units, "toShown"), title, status, include };
 }
 
@@ -480,6 +489,10 @@ export function BuildEditor(props: {
 
   const save = () =>
     start(async () => {
+      if (!dirty) {
+        setSaved({ ok: true, message: `Nothing to save: no changes, still version ${version}` });
+        return;
+      }
       const v = getValues();
       const res = await saveBuildAction(initialActionState, {
         id: props.buildId,
@@ -490,7 +503,13 @@ export function BuildEditor(props: {
       });
       if (res.ok && res.data) {
         const saved = res.data.build.version;
-        setSaved({ ...res, message: `Saved as version ${saved}` });
+        setSaved({
+          ...res,
+          message:
+            saved === version
+              ? `Nothing to save: no changes, still version ${saved}`
+              : `Saved as version ${saved}`,
+        });
         setVersion(saved);
         setBaseline({
           inputs: parsed.success ? parsed.data : inputs,
@@ -749,6 +768,12 @@ export function BuildEditor(props: {
               {num("engine.maxBoostKpa")}
               {num("engine.redlineRpm")}
               {num("engine.idleRpm")}
+            </Section>
+            <Section title="Idle and air conditions">
+              {num("engine.idleManifoldKpaAbs")}
+              {num("engine.idleVolumetricEfficiency")}
+              {num("engine.intakeTempC")}
+              {num("engine.ambientKpaAbs")}
             </Section>
             <Section title="Power goal">
               {num("target.powerKw")}

@@ -58,7 +58,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const rich = R.end;
   const worstEnd = worseEnd(lean, rich);
   const worst = worstEnd === "lean" ? lean : rich;
-  redlinePulseStep(ctx, worst);
+  redlinePulseStep(ctx, worst, op);
   const idle = idleStage(ctx, op, lean, L.props);
   const pump = pumpStage(ctx, worst, R.props, L.props, voltageUsed, idle);
   const lines = linesStage(ctx, pump.fluid, pump.supply.flowLPerH, pump.idleReturn);
