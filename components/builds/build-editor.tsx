@@ -9,7 +9,7 @@ import {
   useState,
   useTransition,
 } from "react";
-import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
+import { useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
@@ -55,6 +55,7 @@ import {
 import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
+import { PumpCurves } from "./pump-curves";
 import { ResultsPanel } from "./results-panel";
 import { SizingCharts } from "./sizing-charts";
 import { SizingSettingsNote } from "./sizing-settings-note";
@@ -360,8 +361,6 @@ export function BuildEditor(props: {
   const { register, control, reset, getValues, setValue } = useForm<Values>({
     defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
-  const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
-  const points2 = useFieldArray({ control, name: "pumps.1.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
 
   const inputs = useMemo(
@@ -520,14 +519,14 @@ export function BuildEditor(props: {
     });
 
   /** A number field: label and unit from the registry, in the person's units. */
-  const num = (name: string) => {
+  const num = (name: string, label?: string) => {
     const f = inputField(name)!;
     return (
       <NumberField
         key={name}
         register={register}
         name={name}
-        label={f.short ?? f.label}
+        label={label ?? f.short ?? f.label}
         unit={entryUnitOf(f.quantity!, units)}
         error={errors[name]}
       />
@@ -593,43 +592,6 @@ export function BuildEditor(props: {
       </SelectField>
     );
   };
-  /** A pump's flow curve: pressure and flow points, added and removed. */
-  const curveEditor = (pump: 0 | 1, arr: typeof points) => (
-    <div className="sm:col-span-2">
-      <p className="text-sm font-medium text-ink-700">
-        {pump === 0 ? "Flow curve" : "Second pump's flow curve"}
-      </p>
-      {errors[`pumps.${pump}.curves.0.points`] ? (
-        <p role="alert" className="text-sm text-danger-700">
-          ✕ {errors[`pumps.${pump}.curves.0.points`]}
-        </p>
-      ) : null}
-      <div className="mt-1 space-y-2">
-        {arr.fields.map((p, i) => (
-          <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-            {num(`pumps.${pump}.curves.0.points.${i}.pressureKpa`)}
-            {num(`pumps.${pump}.curves.0.points.${i}.flowLPerH`)}
-            <Button
-              type="button"
-              variant="ghost"
-              aria-label={`Remove ${pump === 0 ? "" : "second pump's "}point ${i + 1}`}
-              onClick={() => arr.remove(i)}
-            >
-              ✕
-            </Button>
-          </div>
-        ))}
-      </div>
-      <Button
-        type="button"
-        variant="secondary"
-        className="mt-2"
-        onClick={() => arr.append({ pressureKpa: undefined, flowLPerH: undefined } as never)}
-      >
-        {pump === 0 ? "Add point" : "Add a point to the second pump"}
-      </Button>
-    </div>
-  );
   const lineFields = (side: "feed" | "return") => [
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
@@ -864,8 +826,7 @@ export function BuildEditor(props: {
             </Section>
             <Section title="Pump">
               {num("pumps.0.quantity")}
-              {num("pumps.0.curves.0.voltage")}
-              {curveEditor(0, points)}
+              <PumpCurves pump={0} control={control as never} num={num} errors={errors} />
             </Section>
             <Section
               title="Second pump"
@@ -882,10 +843,13 @@ export function BuildEditor(props: {
                 ? [
                     num("pumps.1.quantity"),
                     num("pumps.1.switchOnBoostKpa"),
-                    num("pumps.1.curves.0.voltage"),
-                    <div key="pump2-curve" className="sm:col-span-2">
-                      {curveEditor(1, points2)}
-                    </div>,
+                    <PumpCurves
+                      key="pump2-curves"
+                      pump={1}
+                      control={control as never}
+                      num={num}
+                      errors={errors}
+                    />,
                   ]
                 : null}
             </Section>

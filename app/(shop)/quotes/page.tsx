@@ -9,6 +9,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 import { QuoteListQuery, type QuoteListFilters } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quotes" };
@@ -105,7 +106,9 @@ export default async function QuotesPage({
                     )}
                   </td>
                   <td className="px-4 py-2">{QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}</td>
-                  <td className="figure px-4 py-2 whitespace-nowrap">{q.validUntil}</td>
+                  <td className="figure px-4 py-2 whitespace-nowrap">
+                    {formatCalendarDate(q.validUntil)}
+                  </td>
                   <td className="figure px-4 py-2 text-right whitespace-nowrap">
                     {formatMoney(q.totalMinor, q.currency)}
                   </td>
