@@ -9,13 +9,15 @@ import { initialActionState } from "@/lib/actions/state";
 import { ASPIRATION_LABELS, MEASURED_AT_LABELS } from "@/lib/calc/registry";
 import type { UnitSystem } from "@/lib/calc/units";
 import { FUEL_CHOICE_LABELS, FUEL_CHOICES } from "@/lib/domain/builds";
+import { engineFromText } from "@/lib/domain/engine-text";
 
 import { createDraftBuildAction } from "./actions";
 
 export interface DraftCustomer {
   id: string;
   name: string;
-  vehicles: { id: string; label: string }[];
+  /** `engine`: the vehicle's engine as the caller named it, read for the engine fields. */
+  vehicles: { id: string; label: string; engine?: string | null }[];
 }
 
 /**
@@ -41,6 +43,13 @@ export function DraftBuildForm({
   const [vehicle, setVehicle] = useState<string | null>(v.vehicleId ?? null);
   // A customer without vehicles starts with the new vehicle's fields open.
   const chosen = vehicle ?? (vehicles[0]?.id || "new");
+  // The engine fields start from what the vehicle's engine text says (editable).
+  const [newEngine, setNewEngine] = useState<string>(v["vehicle.engine"] ?? "");
+  const engineText =
+    chosen === "new" ? newEngine : (vehicles.find((x) => x.id === chosen)?.engine ?? "");
+  const guess = engineFromText(engineText);
+  const guessKey = `${chosen}:${JSON.stringify(guess)}`;
+  const guessed = Object.keys(guess).length > 0;
   return (
     <form
       // Sent by hand, not as the form's `action`: React resets a form after its action, and the
@@ -118,6 +127,7 @@ export function DraftBuildForm({
                 name="vehicle.engine"
                 autoComplete="off"
                 defaultValue={v["vehicle.engine"]}
+                onChange={(ev) => setNewEngine(ev.target.value)}
                 error={e["vehicle.engine"]}
               />
             </div>
@@ -133,26 +143,34 @@ export function DraftBuildForm({
       </fieldset>
       <fieldset className="grid gap-3 rounded-lg border border-ink-200 p-4 sm:grid-cols-3">
         <legend className="px-1 font-semibold">Engine</legend>
+        {guessed ? (
+          <p className="text-sm text-ink-700 sm:col-span-3" data-testid="engine-prefill">
+            Filled in from the engine “{engineText}”: check them with the caller.
+          </p>
+        ) : null}
         <Field
+          key={`d-${guessKey}`}
           label="Displacement (L)"
           name="displacementL"
           inputMode="decimal"
           autoComplete="off"
-          defaultValue={v.displacementL}
+          defaultValue={v.displacementL ?? guess.displacementL?.toString()}
           error={e.displacementL}
         />
         <Field
+          key={`c-${guessKey}`}
           label="Cylinders"
           name="cylinders"
           inputMode="numeric"
           autoComplete="off"
-          defaultValue={v.cylinders}
+          defaultValue={v.cylinders ?? guess.cylinders?.toString()}
           error={e.cylinders}
         />
         <SelectField
+          key={`a-${guessKey}`}
           label="Aspiration"
           name="aspiration"
-          defaultValue={v.aspiration ?? ""}
+          defaultValue={v.aspiration ?? guess.aspiration ?? ""}
           error={e.aspiration}
         >
           <option value="">Choose…</option>
