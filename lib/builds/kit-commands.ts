@@ -24,6 +24,7 @@ const CATEGORY_OF: Record<KitRole, PartCategory> = {
   regulator: "regulator",
   "feed-line": "line",
   "return-line": "line",
+  "pre-filter": "filter",
   filter: "filter",
   sensor: "sensor",
 };
