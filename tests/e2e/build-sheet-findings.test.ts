@@ -57,12 +57,14 @@ describe("the build sheet after the tester's findings", () => {
     const page = await ctx.newPage();
     await open(page);
 
-    // Idle conditions are there to read and edit (docs/calculations.md §3.7 defaults).
-    expect(await page.getByLabel("Idle manifold pressure (kPa abs)").inputValue()).toBe("35");
+    // The demo shop works in imperial: the idle conditions are there, in psia and °F
+    // (docs/calculations.md §3.7 defaults: 35 kPa abs = 5.1 psia, 30 °C = 86 °F,
+    // 101.325 kPa = 14.7 psia; NIST SP 811 B.8 for the factors).
+    expect(await page.getByLabel("Idle manifold pressure (psia)").inputValue()).toBe("5.1");
     expect(await page.getByLabel("Idle volumetric efficiency").inputValue()).toBe("0.8");
-    expect(await page.getByLabel("Intake air temperature (°C)").inputValue()).toBe("30");
-    expect(await page.getByLabel("Ambient (barometric) pressure (kPa abs)").inputValue()).toMatch(
-      /^101\.?3?/,
+    expect(await page.getByLabel("Intake air temperature (°F)").inputValue()).toBe("86");
+    expect(await page.getByLabel("Ambient (barometric) pressure (psia)").inputValue()).toBe(
+      "14.7",
     );
 
     // The pulses are commanded ones, with the dead time and the voltage it was read at.
@@ -77,12 +79,13 @@ describe("the build sheet after the tester's findings", () => {
     await expect.poll(() => page.getByText(/Nothing to save/).count()).toBe(1);
     expect(await revisions()).toBe(before);
 
-    // Imperial and back: the idle fields convert, and the switched-off defaults stay canonical.
-    await page.getByRole("radio", { name: /Imperial/ }).click();
-    await expect.poll(() => page.getByLabel("Intake air temperature (°F)").inputValue()).toBe("86");
-    expect(await page.getByLabel("Idle manifold pressure (psia)").inputValue()).toBe("5.1");
+    // To metric (the tester's path): the idle fields convert, the defaults of the parts switched
+    // off come out as their canonical values.
     await page.getByRole("radio", { name: /Metric/ }).click();
-    await expect.poll(() => page.getByLabel("Intake air temperature (°C)").inputValue()).toBe("30");
+    await expect
+      .poll(() => page.getByLabel("Intake air temperature (°C)").inputValue())
+      .toBe("30");
+    expect(await page.getByLabel("Idle manifold pressure (kPa abs)").inputValue()).toBe("35");
     await page.getByLabel("Check the regulator's bypass (return) capacity").check();
     expect(await page.getByLabel("Bypass flow (rated) (L/h)").inputValue()).toBe("400");
     expect(await page.getByLabel("Bypass flow rated at (kPa)").inputValue()).toBe("300");
