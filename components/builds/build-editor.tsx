@@ -12,7 +12,7 @@ import {
   useState,
   useTransition,
 } from "react";
-import { useFieldArray, useForm, useWatch, type UseFormRegister } from "react-hook-form";
+import { useForm, useWatch, type UseFormRegister } from "react-hook-form";
 
 import { ChartPlaceholder, WhenVisible } from "@/components/charts/when-visible";
 import { Button } from "@/components/ui/button";
@@ -64,6 +64,7 @@ import { BuildCreateSchema } from "@/lib/validations/builds";
 import { DeadTimeGrid } from "./dead-time-grid";
 import { FiguresAnnouncer } from "./figures-announcer";
 import { PinnedSummary } from "./pinned-summary";
+import { PumpCurves } from "./pump-curves";
 import { ResultsPanel } from "./results-panel";
 import { SizingSettingsNote } from "./sizing-settings-note";
 import { UnitToggle } from "./unit-toggle";
@@ -183,25 +184,16 @@ function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput):
   if (!inc.bypass && v.regulator) delete v.regulator.bypass;
   // Without the second pump, the first (and any the API added beyond the second) stay.
   if (!inc.pump2 && Array.isArray(v.pumps)) v.pumps = [v.pumps[0]!, ...v.pumps.slice(2)];
-  return convertInputs(v, units, "toCanonical", baseline);
+  return convertInputs(v, units, "toCanonical", withOptionalDefaults(baseline));
 }
 
-/** Canonical inputs → form values in the shown units, with the optional parts filled in. */
-function valuesOf(
-  inputs: FuelSystemInput,
-  units: UnitSystem,
-  title: string,
-  status: BuildStatus,
-): Values {
-  const include = {
-    feed: Boolean(inputs.lines?.feed),
-    return: Boolean(inputs.lines?.return),
-    wiring: Boolean(inputs.electrical?.wiring),
-    deadTime: Boolean(inputs.injectors?.deadTime),
-    pump2: inputs.pumps.length > 1,
-    bypass: Boolean(inputs.regulator?.bypass),
-  };
-  const full: FuelSystemInput = {
+/**
+ * Canonical inputs with the optional parts filled in (their canonical defaults where the build
+ * has none): what the form shows, and the original a shown value converts back to — so a default
+ * nobody changed comes back exactly (400 L/h at 300 kPa, never 400.1 at 299.9 after a switch).
+ */
+function withOptionalDefaults(inputs: FuelSystemInput): FuelSystemInput {
+  return {
     ...inputs,
     injectors: {
       ...inputs.injectors,
@@ -221,6 +213,24 @@ function valuesOf(
       return: inputs.lines?.return ?? OPTIONAL_DEFAULTS.return,
     },
   };
+}
+
+/** Canonical inputs → form values in the shown units, with the optional parts filled in. */
+function valuesOf(
+  inputs: FuelSystemInput,
+  units: UnitSystem,
+  title: string,
+  status: BuildStatus,
+): Values {
+  const include = {
+    feed: Boolean(inputs.lines?.feed),
+    return: Boolean(inputs.lines?.return),
+    wiring: Boolean(inputs.electrical?.wiring),
+    deadTime: Boolean(inputs.injectors?.deadTime),
+    pump2: inputs.pumps.length > 1,
+    bypass: Boolean(inputs.regulator?.bypass),
+  };
+  const full = withOptionalDefaults(inputs);
   return { ...convertInputs(full, units, "toShown"), title, status, include };
 }
 
@@ -393,8 +403,6 @@ export function BuildEditor(props: {
   const { register, control, reset, getValues, setValue } = useForm<Values>({
     defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
-  const points = useFieldArray({ control, name: "pumps.0.curves.0.points" as never });
-  const points2 = useFieldArray({ control, name: "pumps.1.curves.0.points" as never });
   const values = useWatch({ control }) as Values;
 
   const inputs = useMemo(
@@ -522,6 +530,10 @@ export function BuildEditor(props: {
 
   const save = () =>
     start(async () => {
+      if (!dirty) {
+        setSaved({ ok: true, message: `Nothing to save: no changes, still version ${version}` });
+        return;
+      }
       const v = getValues();
       const res = await saveBuildAction(initialActionState, {
         id: props.buildId,
@@ -532,7 +544,13 @@ export function BuildEditor(props: {
       });
       if (res.ok && res.data) {
         const saved = res.data.build.version;
-        setSaved({ ...res, message: `Saved as version ${saved}` });
+        setSaved({
+          ...res,
+          message:
+            saved === version
+              ? `Nothing to save: no changes, still version ${saved}`
+              : `Saved as version ${saved}`,
+        });
         setVersion(saved);
         setBaseline({
           inputs: parsed.success ? parsed.data : inputs,
@@ -543,14 +561,14 @@ export function BuildEditor(props: {
     });
 
   /** A number field: label and unit from the registry, in the person's units. */
-  const num = (name: string) => {
+  const num = (name: string, label?: string) => {
     const f = inputField(name)!;
     return (
       <NumberField
         key={name}
         register={register}
         name={name}
-        label={f.short ?? f.label}
+        label={label ?? f.short ?? f.label}
         unit={entryUnitOf(f.quantity!, units)}
         error={errors[name]}
       />
@@ -616,43 +634,6 @@ export function BuildEditor(props: {
       </SelectField>
     );
   };
-  /** A pump's flow curve: pressure and flow points, added and removed. */
-  const curveEditor = (pump: 0 | 1, arr: typeof points) => (
-    <div className="sm:col-span-2">
-      <p className="text-sm font-medium text-ink-700">
-        {pump === 0 ? "Flow curve" : "Second pump's flow curve"}
-      </p>
-      {errors[`pumps.${pump}.curves.0.points`] ? (
-        <p role="alert" className="text-sm text-danger-700">
-          ✕ {errors[`pumps.${pump}.curves.0.points`]}
-        </p>
-      ) : null}
-      <div className="mt-1 space-y-2">
-        {arr.fields.map((p, i) => (
-          <div key={p.id} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-            {num(`pumps.${pump}.curves.0.points.${i}.pressureKpa`)}
-            {num(`pumps.${pump}.curves.0.points.${i}.flowLPerH`)}
-            <Button
-              type="button"
-              variant="ghost"
-              aria-label={`Remove ${pump === 0 ? "" : "second pump's "}point ${i + 1}`}
-              onClick={() => arr.remove(i)}
-            >
-              ✕
-            </Button>
-          </div>
-        ))}
-      </div>
-      <Button
-        type="button"
-        variant="secondary"
-        className="mt-2"
-        onClick={() => arr.append({ pressureKpa: undefined, flowLPerH: undefined } as never)}
-      >
-        {pump === 0 ? "Add point" : "Add a point to the second pump"}
-      </Button>
-    </div>
-  );
   const lineFields = (side: "feed" | "return") => [
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
@@ -777,6 +758,12 @@ export function BuildEditor(props: {
               {num("engine.redlineRpm")}
               {num("engine.idleRpm")}
             </Section>
+            <Section title="Idle and air conditions">
+              {num("engine.idleManifoldKpaAbs")}
+              {num("engine.idleVolumetricEfficiency")}
+              {num("engine.intakeTempC")}
+              {num("engine.ambientKpaAbs")}
+            </Section>
             <Section title="Power goal">
               {num("target.powerKw")}
               {select("target.measuredAt")}
@@ -866,8 +853,7 @@ export function BuildEditor(props: {
             </Section>
             <Section title="Pump">
               {num("pumps.0.quantity")}
-              {num("pumps.0.curves.0.voltage")}
-              {curveEditor(0, points)}
+              <PumpCurves pump={0} control={control as never} num={num} errors={errors} />
             </Section>
             <Section
               title="Second pump"
@@ -884,10 +870,13 @@ export function BuildEditor(props: {
                 ? [
                     num("pumps.1.quantity"),
                     num("pumps.1.switchOnBoostKpa"),
-                    num("pumps.1.curves.0.voltage"),
-                    <div key="pump2-curve" className="sm:col-span-2">
-                      {curveEditor(1, points2)}
-                    </div>,
+                    <PumpCurves
+                      key="pump2-curves"
+                      pump={1}
+                      control={control as never}
+                      num={num}
+                      errors={errors}
+                    />,
                   ]
                 : null}
             </Section>

@@ -88,6 +88,7 @@ export function ResultsPanel({
     );
   };
   const redline = r.injector.pulseWidthRedline;
+  const idle = r.injector.pulseWidthIdle;
   const beyondLargest = `larger than ${formatValue("anDash", AN_SIZES[AN_SIZES.length - 1]!.dash, units)}`;
   const ceiling = split("powerCeiling.kw", r.powerCeiling.kw, units);
   const headroom = r.powerCeiling.headroomPct;
@@ -127,20 +128,32 @@ export function ResultsPanel({
                 "injector.pulseWidthRedline.commandedMs",
                 redline.commandedMs,
               )}
-          {fig(
-            "Pulse at idle",
-            "injector.pulseWidthIdle.effectiveMs",
-            r.injector.pulseWidthIdle.effectiveMs,
-            undefined,
-            undefined,
-            " open",
-          )}
+          {idle.commandedMs === null
+            ? fig(
+                "Pulse at idle",
+                "injector.pulseWidthIdle.effectiveMs",
+                idle.effectiveMs,
+                "pulse-idle",
+                undefined,
+                " open",
+              )
+            : fig(
+                "Pulse at idle",
+                "injector.pulseWidthIdle.commandedMs",
+                idle.commandedMs,
+                "pulse-idle",
+              )}
           {fig(
             "ΔP at full boost",
             "injector.differentialPressureKpa",
             r.injector.differentialPressureKpa,
           )}
         </dl>
+        <p className="mt-3 text-sm text-ink-700" data-testid="pulse-note">
+          {redline.commandedMs === null || redline.deadTimeMs === null
+            ? "Pulses are opening times: no dead-time table, so the commanded pulses are a little longer."
+            : `Commanded pulses = opening + dead time at ${formatValue("voltage", r.injector.voltage, units)} at the injectors: redline ${formatResult("injector.pulseWidthRedline.effectiveMs", redline.effectiveMs, units)} + ${formatResult("injector.pulseWidthRedline.deadTimeMs", redline.deadTimeMs, units)}; idle ${formatResult("injector.pulseWidthIdle.effectiveMs", idle.effectiveMs, units)} + ${formatResult("injector.pulseWidthIdle.deadTimeMs", idle.deadTimeMs ?? 0, units)}.`}
+        </p>
         <div className="mt-3">
           <Signal level={band[r.injector.dutyBand]}>{DUTY_BAND_LABELS[r.injector.dutyBand]}</Signal>
         </div>

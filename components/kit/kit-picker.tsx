@@ -29,12 +29,15 @@ export function KitPicker({
   currency,
   canChoose,
   canQuote,
+  quoteOnly = false,
   units = "metric",
 }: {
   buildId: string;
   currency: string;
   canChoose: boolean;
   canQuote: boolean;
+  /** The counter: a choice goes to the quote only, the build's sizing stays the tuner's. */
+  quoteOnly?: boolean;
   /** The person's unit system: the reasons' figures are read in it. */
   units?: UnitSystem;
 }) {
@@ -94,7 +97,9 @@ export function KitPicker({
       if (res.ok && res.data) {
         setStatus({
           ok: true,
-          message: `Parts written into the build as version ${res.data.build.version}`,
+          message: quoteOnly
+            ? `Parts kept for the quote (version ${res.data.build.version}); the build's sizing did not change`
+            : `Parts written into the build as version ${res.data.build.version}`,
         });
         await mutate();
         setPick({});
@@ -111,6 +116,17 @@ export function KitPicker({
 
   return (
     <div className="space-y-4">
+      {quoteOnly && canChoose ? (
+        <p
+          role="note"
+          data-testid="kit-quote-only"
+          className="rounded-lg border border-ink-300 bg-ink-100 p-4 text-sm text-ink-800"
+        >
+          The parts you choose here go on the quote only. The build&apos;s sizing (injectors, pump,
+          lines) is the tuner&apos;s and stays as it is; where your choice differs, the tuner sees
+          it on the build&apos;s revisions.
+        </p>
+      ) : null}
       {data.roles.map((r) => {
         const labels = fitLabels(r.candidates);
         return (
@@ -181,7 +197,7 @@ export function KitPicker({
         <span className="figure font-semibold">Parts {formatMoney(total, currency)}</span>
         {canChoose ? (
           <Button onClick={choose} disabled={pending}>
-            {pending ? "Working…" : "Use these parts"}
+            {pending ? "Working…" : quoteOnly ? "Use these parts for the quote" : "Use these parts"}
           </Button>
         ) : null}
         {canQuote && data.chosen.length ? (

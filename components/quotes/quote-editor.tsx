@@ -21,6 +21,7 @@ import {
   quoteMovesOn,
   type QuoteStatus,
 } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 import {
   changeQuoteStatusAction,
   editQuoteAction,
@@ -363,8 +364,8 @@ function QuoteEditorForm({
           className="rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm text-ink-800"
           data-testid="lapsed-notice"
         >
-          Valid until {props.validUntil}: past that day it can no longer be accepted, declined or
-          paid.{" "}
+          Valid until {formatCalendarDate(props.validUntil)}: past that day it can no longer be
+          accepted, declined or paid.{" "}
           {revises
             ? "Edit it to make a new revision with a new date, and send that."
             : "Mark it expired, or revise it."}

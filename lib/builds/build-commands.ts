@@ -15,6 +15,7 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { getVehicle } from "@/db/queries/vehicles";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
+import type { FuelSystemInput } from "@/lib/calc";
 import { formatValue } from "@/lib/calc/quantities";
 import {
   FUEL_CHOICE_LABELS,
@@ -24,6 +25,7 @@ import {
 } from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
 import { isoDay } from "@/lib/domain/quotes";
+import { DEFAULT_DRIVE_TYPE } from "@/lib/sizing/effective-inputs";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import type {
   BuildCreateSchema,
@@ -35,7 +37,13 @@ import type {
 
 import { buildData, saved, type BuildResult } from "./build-data";
 import { draftInputs, newBuildInputs } from "./defaults";
-import { readStoredInputs, sizeForSave } from "./stored-inputs";
+import { stableJson } from "./diff";
+import {
+  readStoredInputs,
+  sizeForSave,
+  storedSizingSettings,
+  type SizedInputs,
+} from "./stored-inputs";
 
 /** A new build sheet for one of the shop's customers, sized on the server (default inputs if none). */
 export async function createBuild(
@@ -104,6 +112,8 @@ export async function saveBuild(
   const row = await getBuild(m.shopId, input.id);
   if (!row) throw new NotFound("That build");
   const { id, version, inputs, ...fields } = input;
+  const settings = await shopSizingSettings(m.shopId);
+  const sized = inputs ? sizeForSave(settings, sameDriveType(row.build, inputs)) : undefined;
   return saved(
     saveBuildRow(
       m.shopId,
@@ -112,12 +122,50 @@ export async function saveBuild(
       version,
       {
         ...fields,
-        ...(inputs ? { sized: sizeForSave(await shopSizingSettings(m.shopId), inputs) } : {}),
+        // Inputs equal to the stored ones, sized with the same settings, change nothing: they are
+        // not written (with nothing else changed the build keeps its version and no revision).
+        ...(sized && !sameSizing(row.build, sized) ? { sized } : {}),
       },
       undefined,
       input.status ? statusRule(m.shopId, id, input.status) : undefined,
     ),
   );
+}
+
+/**
+ * A build that names no drive type is sized as DEFAULT_DRIVE_TYPE: the editor's select shows
+ * that default, so a save sending it back states nothing new and the stored inputs keep no key.
+ */
+function sameDriveType(
+  stored: Parameters<typeof readStoredInputs>[0],
+  inputs: FuelSystemInput,
+): FuelSystemInput {
+  if (inputs.target?.driveType !== DEFAULT_DRIVE_TYPE) return inputs;
+  let before: FuelSystemInput;
+  try {
+    before = readStoredInputs(stored);
+  } catch {
+    return inputs;
+  }
+  if (before.target.driveType !== undefined) return inputs;
+  const target = { ...inputs.target };
+  delete target.driveType;
+  return { ...inputs, target };
+}
+
+/** The stored build already holds these inputs, sized with these settings. */
+function sameSizing(
+  stored: Parameters<typeof readStoredInputs>[0] & { sizingSettings: unknown },
+  sized: SizedInputs,
+): boolean {
+  try {
+    return (
+      stableJson(readStoredInputs(stored)) === stableJson(sized.inputs) &&
+      stableJson(storedSizingSettings(stored)) === stableJson(sized.sizingSettings)
+    );
+  } catch {
+    return false;
+  }
 }
 
 /** "Power step": a new build for the same car, starting from this build's inputs. */

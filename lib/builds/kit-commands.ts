@@ -5,7 +5,7 @@ import type { z } from "zod";
 import { getBuild, saveBuild } from "@/db/queries/builds";
 import { getPartsByIds } from "@/db/queries/parts";
 import type { Member } from "@/lib/auth/member";
-import { authorize } from "@/lib/auth/permissions";
+import { authorize, can } from "@/lib/auth/permissions";
 import { applyKit } from "@/lib/catalog/recommend";
 import type { ChosenPart, KitRole } from "@/lib/domain/builds";
 import { Invalid, NotFound } from "@/lib/domain/errors";
@@ -24,15 +24,17 @@ const CATEGORY_OF: Record<KitRole, PartCategory> = {
   regulator: "regulator",
   "feed-line": "line",
   "return-line": "line",
+  "pre-filter": "filter",
   filter: "filter",
   sensor: "sensor",
 };
 
 /**
- * Writes the chosen catalog parts into the build as a new revision: their data goes into the
+ * A tuner or owner: writes the chosen catalog parts into the build as a new revision: their data goes into the
  * inputs (injector flow, pump curves, hose bores), the sizing runs on it, and the choice is kept
  * in `builds.parts`; the inputs from before the first choice are kept as the kit's basis, so
- * the ranking does not move. A stale version → Conflict with the current build.
+ * the ranking does not move. The counter (no `builds:write`): the choice is kept for the quote
+ * only and the inputs are left alone. A stale version → Conflict with the current build.
  */
 export async function chooseKit(
   m: Member,
@@ -62,6 +64,15 @@ export async function chooseKit(
     name: `${c.part.brand} ${c.part.name}`,
     quantity: c.quantity,
   }));
+  // Who may not write build sheets (the counter) chooses parts for the quote only: the parts
+  // are kept on the build for its quote, the tuner's sizing (the inputs) stays as it is.
+  if (!can(m.role, "builds:write"))
+    return saved(
+      saveBuild(m.shopId, input.id, m.user.id, input.version, {
+        parts,
+        note: `Parts chosen for the quote (sizing unchanged): ${parts.map((p) => p.sku).join(", ")}`,
+      }),
+    );
   return saved(
     saveBuild(m.shopId, input.id, m.user.id, input.version, {
       sized: sizeForSave(

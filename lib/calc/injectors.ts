@@ -93,15 +93,19 @@ export function injectorFlowForFuel(q: {
  * Pressure across the injector for a manifold pressure (kPa gauge: boost positive, vacuum
  * negative). A boost-referenced (1:1) regulator holds ΔP at the base pressure, a rising-rate
  * one (ratio r) adds (r − 1) × boost; a fixed one leaves the rail at base, so
- * ΔP = base − manifold (boost lowers it, vacuum raises it). docs/calculations.md §3.2.
+ * ΔP = base − manifold (boost lowers it, vacuum raises it). A referenced rail that the vacuum
+ * would pull below atmosphere sits at 0 kPa gauge, so ΔP is then 0 − manifold (more than base).
+ * docs/calculations.md §3.2.
  * @example injectorDifferentialPressureKpa({ type: "fixed", basePressureKpa: 400, manifoldKpa: 150 }) // 250
  * @example injectorDifferentialPressureKpa({ type: "boost-referenced", basePressureKpa: 300, manifoldKpa: 100, risingRateRatio: 4 }) // 600
  */
 export function injectorDifferentialPressureKpa(q: RegulatorQuery): number {
   const ratio = regulatorQuery(q);
+  // Referenced: the rail follows the manifold, but a rail pulled below atmosphere sits at 0 kPa
+  // gauge (railPressureKpa), so the pressure across is that rail less the manifold (§3.2).
   const dp =
     q.type === "boost-referenced"
-      ? q.basePressureKpa + risingRateExtra(ratio, q.manifoldKpa)
+      ? Math.max(q.basePressureKpa + risingRateExtra(ratio, q.manifoldKpa), -q.manifoldKpa)
       : q.basePressureKpa - q.manifoldKpa;
   if (dp <= 0)
     throw new CalcInputError(

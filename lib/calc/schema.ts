@@ -214,26 +214,33 @@ export const PumpCurveSchema = z
       .min(2, "A pump curve needs at least two points")
       .max(40, "A pump curve takes at most 40 points"),
   })
-  .refine(
-    (c) => {
-      const ps = c.points.map((p) => p.pressureKpa).sort((a, b) => a - b);
-      return ps.every((p, i) => i === 0 || p - ps[i - 1]! >= 1);
-    },
-    {
-      path: ["points"],
-      message: "Each pressure may appear once on a curve, at least 1 kPa from the next",
-      params: {
-        template: "Each pressure may appear once on a curve, at least {gap} from the next",
-        figures: { gap: { value: 1, quantity: "pressureDrop" } },
-      },
-    },
-  )
   .superRefine((c, ctx) => {
-    // A pump's flow falls as its pressure rises: a point that flows more than one at a lower
-    // pressure is a typing mistake, refused at that point.
+    // Each pressure once, at least 1 kPa from the next: the second point of a pair is marked,
+    // naming the curve (its voltage) and the point it repeats.
     const order = c.points
       .map((_, i) => i)
-      .sort((a, b) => c.points[a]!.pressureKpa - c.points[b]!.pressureKpa);
+      .sort((a, b) => c.points[a]!.pressureKpa - c.points[b]!.pressureKpa || a - b);
+    for (let k = 1; k < order.length; k++) {
+      const [i, j] = [order[k - 1]!, order[k]!];
+      if (c.points[j]!.pressureKpa - c.points[i]!.pressureKpa < 1) {
+        const [first, second] = i < j ? [i, j] : [j, i];
+        ctx.addIssue({
+          code: "custom",
+          path: ["points", second, "pressureKpa"],
+          message: `On the ${c.voltage} V curve, point ${second + 1} has the pressure of point ${first + 1}: each pressure may appear once on a curve, at least 1 kPa from the next`,
+          params: {
+            template: `On the {voltage} curve, point ${second + 1} has the pressure of point ${first + 1}: each pressure may appear once on a curve, at least {gap} from the next`,
+            figures: {
+              voltage: { value: c.voltage, quantity: "voltage" },
+              gap: { value: 1, quantity: "pressureDrop" },
+            },
+          },
+        });
+        return;
+      }
+    }
+    // A pump's flow falls as its pressure rises: a point that flows more than one at a lower
+    // pressure is a typing mistake, refused at that point.
     for (let k = 1; k < order.length; k++) {
       const a = c.points[order[k - 1]!]!;
       const b = c.points[order[k]!]!;
@@ -241,7 +248,11 @@ export const PumpCurveSchema = z
         ctx.addIssue({
           code: "custom",
           path: ["points", order[k]!, "flowLPerH"],
-          message: `Point ${order[k]! + 1} flows more than point ${order[k - 1]! + 1} at a lower pressure: a pump's flow falls as pressure rises`,
+          message: `On the ${c.voltage} V curve, point ${order[k]! + 1} flows more than point ${order[k - 1]! + 1} at a lower pressure: a pump's flow falls as pressure rises`,
+          params: {
+            template: `On the {voltage} curve, point ${order[k]! + 1} flows more than point ${order[k - 1]! + 1} at a lower pressure: a pump's flow falls as pressure rises`,
+            figures: { voltage: { value: c.voltage, quantity: "voltage" } },
+          },
         });
         return;
       }

@@ -20,7 +20,7 @@ export type { SizingLimits } from "./sizing/context";
 export type { BlendEnd, FuelSystemResult, LineResult, PulseWidth } from "./sizing/result";
 
 /** Bumped whenever a formula or default changes, so saved results say what made them. */
-export const CALC_VERSION = "1.2.0";
+export const CALC_VERSION = "1.3.0";
 
 /**
  * Sizes a fuel system: fuel needed at the target power across the blend range, injector duty,
@@ -58,7 +58,7 @@ export function sizeParsedFuelSystem(input: ParsedFuelSystemInput): FuelSystemRe
   const rich = R.end;
   const worstEnd = worseEnd(lean, rich);
   const worst = worstEnd === "lean" ? lean : rich;
-  redlinePulseStep(ctx, worst);
+  redlinePulseStep(ctx, worst, op);
   const idle = idleStage(ctx, op, lean, L.props);
   const pump = pumpStage(ctx, worst, R.props, L.props, voltageUsed, idle);
   const lines = linesStage(ctx, pump.fluid, pump.supply.flowLPerH, pump.idleReturn);

@@ -2,6 +2,7 @@ import {
   CalcInputError,
   fillTemplate,
   flexSensorAdvice,
+  PRE_PUMP_FILTER_CAUTION_KPA,
   REGULATOR_LABELS,
   sizeParsedFuelSystem,
   type Figure,
@@ -63,6 +64,8 @@ export interface Reason {
 /** A reason as a person reads it, in their unit system. */
 export const reasonText = (r: Reason, units: UnitSystem): string =>
   fillTemplate(r.text, r.params, units);
+/** A filter this fine or coarser is a pre-pump strainer (common practice, no source). */
+export const STRAINER_MICRON = 30;
 const R = (text: string, params?: FigureParams): Reason => (params ? { text, params } : { text });
 const pct = (value: number): Figure => ({ value, quantity: "percent", decimals: 0 });
 const E = (value: number): Figure => ({ value, quantity: "ethanol" });
@@ -383,43 +386,65 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
       .map((c) => (c.part.specs as { dash: number }).dash),
     Infinity,
   );
-  const filters: Draft[] = of("filter").map((p) => {
-    const s = p.specs as { micron: number; dropKpa: number; dash?: number };
-    const why = [
-      R(`${s.micron} µm, {drop} drop`, { drop: { value: s.dropKpa, quantity: "pressureDrop" } }),
-    ];
-    let fits = s.dropKpa <= limits.maxLineDropKpa / 2;
-    if (!fits)
-      why.push(
-        R("drop over half the {limit} line budget", {
-          limit: { value: limits.maxLineDropKpa, quantity: "pressureDrop" },
-        }),
-      );
-    if (s.dash !== undefined && Number.isFinite(feedDash) && s.dash < feedDash) {
-      fits = false;
-      why.push(
-        R("{ports} ports, smaller than the {feed} feed", {
-          ports: { value: s.dash, quantity: "anDash" },
-          feed: { value: feedDash, quantity: "anDash" },
-        }),
-      );
-    }
-    const eth = ethanolWhy(p);
-    if (eth) {
-      fits = false;
-      why.push(eth);
-    }
-    why.push(stockNote(p, 1));
-    return {
-      role: "filter",
-      part: p,
-      quantity: 1,
-      fits,
-      score: (fits ? 0 : 1000) + s.dropKpa + tieBreak(p, 1),
-      why,
-      figure: s.dropKpa,
-    };
-  });
+  // Two filters, two roles (docs/calculations.md §4.5): a coarse strainer before the pump (its
+  // drop is on the suction side, so the caution level for a pre-pump drop is its budget) and a
+  // fine filter after it (half the line budget). 30 µm parts the two (common practice, no source).
+  const filterCandidates = (role: "pre-filter" | "filter"): Draft[] =>
+    of("filter")
+      .filter((p) => {
+        const micron = (p.specs as { micron: number }).micron;
+        return role === "pre-filter" ? micron >= STRAINER_MICRON : micron < STRAINER_MICRON;
+      })
+      .map((p) => {
+        const s = p.specs as { micron: number; dropKpa: number; dash?: number };
+        const why = [
+          R(`${s.micron} µm, {drop} drop`, {
+            drop: { value: s.dropKpa, quantity: "pressureDrop" },
+          }),
+        ];
+        let fits: boolean;
+        if (role === "pre-filter") {
+          fits = s.dropKpa <= PRE_PUMP_FILTER_CAUTION_KPA;
+          if (!fits)
+            why.push(
+              R("over the {limit} a pump's inlet side takes", {
+                limit: { value: PRE_PUMP_FILTER_CAUTION_KPA, quantity: "pressureDrop" },
+              }),
+            );
+        } else {
+          fits = s.dropKpa <= limits.maxLineDropKpa / 2;
+          if (!fits)
+            why.push(
+              R("drop over half the {limit} line budget", {
+                limit: { value: limits.maxLineDropKpa, quantity: "pressureDrop" },
+              }),
+            );
+        }
+        if (s.dash !== undefined && Number.isFinite(feedDash) && s.dash < feedDash) {
+          fits = false;
+          why.push(
+            R("{ports} ports, smaller than the {feed} feed", {
+              ports: { value: s.dash, quantity: "anDash" },
+              feed: { value: feedDash, quantity: "anDash" },
+            }),
+          );
+        }
+        const eth = ethanolWhy(p);
+        if (eth) {
+          fits = false;
+          why.push(eth);
+        }
+        why.push(stockNote(p, 1));
+        return {
+          role,
+          part: p,
+          quantity: 1,
+          fits,
+          score: (fits ? 0 : 1000) + s.dropKpa + tieBreak(p, 1),
+          why,
+          figure: s.dropKpa,
+        };
+      });
 
   // The one rule the build sheet's warning follows too (lib/calc flexSensorAdvice, §1).
   const flex = flexSensorAdvice(input.fuel);
@@ -474,7 +499,18 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
         needed: true,
         candidates: sorted(lineCandidates("return")),
       },
-      { role: "filter", label: "Filter", needed: true, candidates: sorted(filters) },
+      {
+        role: "pre-filter",
+        label: "Pre-pump strainer",
+        needed: true,
+        candidates: sorted(filterCandidates("pre-filter")),
+      },
+      {
+        role: "filter",
+        label: "Post-pump filter",
+        needed: true,
+        candidates: sorted(filterCandidates("filter")),
+      },
       {
         role: "sensor",
         label: "Ethanol content sensor",
@@ -519,7 +555,15 @@ export function applyKit(
         },
       };
     }
-    // A catalog filter is the fine one, after the pump (docs/calculations.md §4.5).
+    // Each filter feeds its own input (docs/calculations.md §4.5).
+    if (c.role === "pre-filter")
+      next = {
+        ...next,
+        filters: {
+          ...next.filters,
+          prePumpDropKpa: (c.part.specs as { dropKpa: number }).dropKpa,
+        },
+      };
     if (c.role === "filter")
       next = {
         ...next,

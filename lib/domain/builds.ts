@@ -19,6 +19,9 @@ export const KIT_ROLES = [
   "regulator",
   "feed-line",
   "return-line",
+  /** Before the pump: a coarse strainer (30 µm and up). */
+  "pre-filter",
+  /** After the pump: the fine filter (below 30 µm). Kept as "filter" for choices stored before. */
   "filter",
   "sensor",
 ] as const;
@@ -29,7 +32,8 @@ export const KIT_ROLE_LABELS: Record<KitRole, string> = {
   regulator: "regulator",
   "feed-line": "feed line",
   "return-line": "return line",
-  filter: "filter",
+  "pre-filter": "pre-pump strainer",
+  filter: "post-pump filter",
   sensor: "ethanol content sensor",
 };
 /** A catalog part chosen for a build, with the figures it was chosen on. */

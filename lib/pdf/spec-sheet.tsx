@@ -373,6 +373,11 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
                 : `${ASPIRATION_LABELS[input.engine.aspiration].toLowerCase()}, ${q("pressure", input.engine.maxBoostKpa)} boost`}
               ; redline {q("speed", input.engine.redlineRpm)}
             </Text>
+            <Text>
+              {pdfText(
+                `Idle: ${q("speed", input.engine.idleRpm)}, manifold ${q("pressureAbs", input.engine.idleManifoldKpaAbs)}, volumetric efficiency ${q("ratio", input.engine.idleVolumetricEfficiency)}; intake air ${q("temperature", input.engine.intakeTempC)}, ambient ${q("pressureAbs", input.engine.ambientKpaAbs)}`,
+              )}
+            </Text>
           </View>
           <View style={s.col}>
             <Text style={s.h2}>Fuel and blend range</Text>

@@ -54,5 +54,7 @@ export function quoteEmail(d: QuoteEmailData): { subject: string; text: string }
     "Fuel system work must be done and checked by qualified people, to your local codes.",
     `— ${d.shopName}`,
   ].join("\n");
-  return { subject: `${d.shopName}: quote ${label} for your fuel system`, text };
+  // A parts-only quote sizes no fuel system: its subject says parts.
+  const about = d.buildTitle ? "for your fuel system" : "for the parts you asked about";
+  return { subject: `${d.shopName}: quote ${label} ${about}`, text };
 }

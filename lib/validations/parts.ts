@@ -325,7 +325,12 @@ export function checkSpecs(
   if (r.success) return { ok: true, specs: r.data as Record<string, unknown> };
   const issues = r.error.issues.map((i) => ({
     path: SPEC_COLUMN[String(i.path[0])] ?? String(i.path[0] ?? "specs"),
-    message: specMessage(String(i.path[0]), i.message),
+    // A curve's own finding (a repeated pressure, a flow rising with pressure) names the curve
+    // by its voltage and the point: said as it is, not as the cell's general format.
+    message:
+      i.path[0] === "curves" && i.code === "custom" && i.path.length > 2
+        ? `Flow curve: ${i.message}`
+        : specMessage(String(i.path[0]), i.message),
   }));
   // A table's several faults read as one hint, said once.
   const seen = new Set<string>();
@@ -481,7 +486,7 @@ const SPEC_HINT: Record<string, string> = {
   ratingFluidDensityKgPerL:
     "test_fluid_kg_l needs the rating fluid's density in kg/L (0.6 to 1.1), or a blank",
   curves:
-    "pump_curve needs curves like “13.5V 300:340 500:290” (kPa:L/h), at least two points each",
+    "Flow curve needs curves like “13.5V 300:340 500:290” (kPa:L/h), at least two points each",
   deadTime:
     "dead_time_ms needs a table like “12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72” (kPa:ms): voltages rising, the same rising pressures for each, 0 to 10 ms",
   mounting: "mounting must be in-tank or inline",

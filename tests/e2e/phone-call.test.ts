@@ -72,10 +72,14 @@ describe("the phone call: from a new caller to a quote in their inbox", () => {
     await you.fill(page.getByLabel("Model"), "GT Wagon");
     const power = page.getByLabel(/^Power goal \((hp|kW)\)$/);
     const hp = (await page.locator('label[for="f-power"]').innerText()).includes("hp");
-    // The counter's units: 3.0 L = 183 cu in (1 in³ = 16.387064 cm³, NIST SP 811 B.8).
-    await you.fill(page.getByLabel(`Displacement (${hp ? "cu in" : "L"})`), hp ? "183" : "3.0");
-    await you.fill(page.getByLabel("Cylinders"), "6");
-    await you.pick(page.getByLabel("Aspiration"), "Turbocharged");
+    // The engine as the caller names it fills displacement, cylinders and aspiration, the
+    // displacement in the counter's units: 3.0 L = 183 cu in (1 in³ = 16.387064 cm³, NIST SP 811 B.8).
+    await you.fill(page.getByLabel("Engine (as the caller names it)"), "3.0 turbo inline-six");
+    await expect
+      .poll(() => page.getByLabel(`Displacement (${hp ? "cu in" : "L"})`).inputValue())
+      .toBe(hp ? "183" : "3");
+    expect(await page.getByLabel("Cylinders").inputValue()).toBe("6");
+    expect(await page.getByLabel("Aspiration").inputValue()).toBe("turbo");
     // 450 hp ≈ 336 kW (1 hp = 745.699872 W, NIST SP 811 B.8).
     await you.fill(power, hp ? "450" : "336");
     await you.pick(page.getByLabel("Fuel"), "E85 (51–83 % ethanol)");
@@ -101,7 +105,7 @@ describe("the phone call: from a new caller to a quote in their inbox", () => {
     await tuner.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => tuner.getByText(/Saved as version \d+/).count()).toBe(1);
     await tctx.close();
-    const [sized] = await sql`select status from builds where id = ${buildId}`;
+    const [sized] = await sql`select status, inputs from builds where id = ${buildId}`;
     expect(sized!.status).toBe("sized");
 
     // Back at the counter: the kit, the quote (labour comes with it), send.
@@ -110,10 +114,15 @@ describe("the phone call: from a new caller to a quote in their inbox", () => {
     await expect
       .poll(() => page.getByText(/Best (fit|in stock)/).count(), { timeout: 15000 })
       .toBeGreaterThan(0);
-    await you.click(page.getByRole("button", { name: "Use these parts" }));
+    // The counter's choice goes on the quote only: the page says so, the tuner's sizing stays.
+    expect(await page.getByTestId("kit-quote-only").innerText()).toMatch(/quote only/);
+    await you.click(page.getByRole("button", { name: "Use these parts for the quote" }));
     await expect
-      .poll(() => page.getByText(/Parts written into the build as version \d+/).count())
+      .poll(() => page.getByText(/Parts kept for the quote \(version \d+\)/).count())
       .toBe(1);
+    const [afterKit] = await sql`select inputs, parts from builds where id = ${buildId}`;
+    expect(afterKit!.inputs).toEqual(sized!.inputs);
+    expect((afterKit!.parts as unknown[]).length).toBeGreaterThan(0);
     await you.click(page.getByRole("button", { name: "Create quote from the chosen parts" }));
     await page.waitForURL(/\/quotes\/[0-9a-f-]{36}$/);
     const label = (await page.getByRole("heading", { level: 1 }).innerText()).replace("Quote ", "");

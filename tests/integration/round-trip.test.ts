@@ -150,6 +150,28 @@ describe("load → save unchanged → the stored row is byte for byte the same",
     }
   });
 
+  it("the seeded build saved with the editor's default drive type filled in: nothing written", async () => {
+    // Build 0002 names no drive type; the editor's select shows the default (manual) and sends it.
+    const id = "10000000-0000-4000-8000-000000000002";
+    const before = await buildState(id);
+    const b = (await request(tuner, "GET", `/api/v1/builds/${id}`)).json.build;
+    expect(b.inputs.target.driveType).toBeUndefined();
+    const save = {
+      version: b.version,
+      title: b.title,
+      status: b.status,
+      inputs: { ...b.inputs, target: { ...b.inputs.target, driveType: "manual" } },
+    };
+    const patched = await request(tuner, "PATCH", `/api/v1/builds/${id}`, save);
+    expect(patched.status).toBe(200);
+    expect(patched.json.build.version).toBe(b.version);
+    expect(await buildState(id)).toEqual(before);
+    const saveRef = ref("lib/builds/build-actions.ts", "saveBuildAction", `/builds/${id}`);
+    const state = await act(tuner, saveRef, { id, ...save });
+    expect(state).toMatchObject({ ok: true, data: { build: { id, version: b.version } } });
+    expect(await buildState(id)).toEqual(before);
+  });
+
   it("builds: choosing the kit the build already has makes no new revision", async () => {
     const made = await request(tuner, "POST", "/api/v1/builds", {
       customerId,

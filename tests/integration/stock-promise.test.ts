@@ -271,6 +271,29 @@ describe("the kit's ranking does not move after 'Use these parts'", () => {
       order: r.candidates.map((c) => `${c.part.sku}×${c.quantity}:${c.fits ? "fits" : "no"}`),
     }));
 
+  it("the counter's choice goes on the quote only: the tuner's sizing stays, the parts are kept", async () => {
+    const [demo] =
+      await sql`select inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId: CUSTOMER_ID,
+      title: `${tag} counter kit`,
+      inputs: demo!.inputs,
+    });
+    const id = made.json.build.id as string;
+    const kit = (await request(counter, "GET", `/api/v1/builds/${id}/kit`)).json as Kit;
+    // The counter picks the smallest injector there is, fitting or not.
+    const injectors = kit.roles.find((r) => r.role === "injector")!.candidates;
+    const smallest = injectors[injectors.length - 1]!;
+    const chose = await request(counter, "POST", `/api/v1/builds/${id}/kit`, {
+      version: kit.buildVersion,
+      parts: [{ role: "injector", partId: smallest.part.id, quantity: smallest.quantity }],
+    });
+    expect(chose.status).toBe(200);
+    const [row] = await sql`select inputs, parts from builds where id = ${id}`;
+    expect(row!.inputs).toEqual(made.json.build.inputs);
+    expect(row!.parts).toEqual([expect.objectContaining({ partId: smallest.part.id })]);
+  });
+
   it("the same order before and after choosing the best fits, and after the build's quote holds them", async () => {
     const [demo] =
       await sql`select inputs from builds where id = '10000000-0000-4000-8000-000000000002'`;
@@ -294,7 +317,7 @@ describe("the kit's ranking does not move after 'Use these parts'", () => {
         : [];
     });
     expect(picks.map((p) => p.role)).toEqual(expect.arrayContaining(["injector", "pump"]));
-    const chose = await request(counter, "POST", `/api/v1/builds/${id}/kit`, {
+    const chose = await request(tuner, "POST", `/api/v1/builds/${id}/kit`, {
       version: first.buildVersion,
       parts: picks,
     });
@@ -308,7 +331,7 @@ describe("the kit's ranking does not move after 'Use these parts'", () => {
     expect(ranking(after)).toEqual(ranking(first));
 
     // Choosing again from the new ranking keeps it too (the basis is the first one).
-    const again = await request(counter, "POST", `/api/v1/builds/${id}/kit`, {
+    const again = await request(tuner, "POST", `/api/v1/builds/${id}/kit`, {
       version: after.buildVersion,
       parts: picks.filter((p) => p.role !== "filter"),
     });

@@ -203,6 +203,36 @@ describe("kit recommendation", () => {
   });
 });
 
+describe("kit filters: a strainer before the pump, a fine filter after it (docs/calculations.md §4.5)", () => {
+  // The tester's catalog: a 100 µm strainer with -10 ports, 10 µm filters with -10 and -8 ports.
+  const strainer = part("filter", { micron: 100, dropKpa: 2, dash: 10, ethanolOk: true });
+  const fine = part("filter", { micron: 10, dropKpa: 4, dash: 10, ethanolOk: true });
+  const fineSmall = part("filter", { micron: 10, dropKpa: 5, dash: 6, ethanolOk: true });
+  const build = FuelSystemInputSchema.parse(boostedSix);
+  const kit = recommendKit(build, [strainer, fine, fineSmall]);
+  const role = (r: string) => kit.roles.find((x) => x.role === r)!;
+
+  it("offers the strainer as the pre-pump role and the fine filters as the post-pump role", () => {
+    expect(role("pre-filter").label).toBe("Pre-pump strainer");
+    expect(role("pre-filter").candidates.map((c) => c.part.id)).toEqual([strainer.id]);
+    expect(role("pre-filter").candidates[0]!.fits).toBe(true);
+    expect(role("filter").label).toBe("Post-pump filter");
+    // Best post-pump fit is the 10 µm filter, not the strainer.
+    expect(role("filter").candidates[0]!.part.id).toBe(fine.id);
+    expect(role("filter").candidates[0]!.fits).toBe(true);
+    expect(role("filter").candidates.map((c) => c.part.id)).not.toContain(strainer.id);
+  });
+
+  it("each choice feeds its own input", () => {
+    const next = applyKit(build, [
+      { role: "pre-filter", part: strainer, quantity: 1 },
+      { role: "filter", part: fine, quantity: 1 },
+    ]);
+    expect(next.filters.prePumpDropKpa).toBe(2);
+    expect(next.filters.postPumpDropKpa).toBe(4);
+  });
+});
+
 describe("quote totals in integer cents", () => {
   it("a hand-worked quote: line discount, then tax once on the net", () => {
     // By hand: 6 × 109.00 = 654.00; 5 × 29.00 = 145.00; 5 h × 120.00 = 600.00 less 10 % = 540.00.

@@ -85,6 +85,13 @@ describe("the quote e-mail", () => {
     expect(text).not.toContain("set your password");
   });
 
+  it("a parts-only quote's subject speaks of parts, not of a fuel system", () => {
+    const { subject, text } = quoteEmail({ ...data, buildTitle: null });
+    expect(subject).toBe("Test Shop: quote Q-0007-r2 for the parts you asked about");
+    expect(subject).not.toContain("fuel system");
+    expect(text).toContain("Here is quote Q-0007-r2, valid until 31 Jan 2099.");
+  });
+
   it("a customer without a sign-in gets the invitation first, then the quote's link", () => {
     const { text } = quoteEmail({ ...data, invite: "https://app.test/accept-invitation/abc" });
     const invite = text.indexOf("https://app.test/accept-invitation/abc");

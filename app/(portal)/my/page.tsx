@@ -16,6 +16,7 @@ import {
   jobLabel,
 } from "@/lib/domain/operations";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "My builds" };
 
@@ -73,7 +74,8 @@ export default async function MyBuildsPage() {
                 </Link>
                 <p className="text-sm text-ink-600">
                   {QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]} ·{" "}
-                  {formatMoney(q.totalMinor, q.currency)} · valid until {q.validUntil}
+                  {formatMoney(q.totalMinor, q.currency)} · valid until{" "}
+                  {formatCalendarDate(q.validUntil)}
                 </p>
               </li>
             ))}

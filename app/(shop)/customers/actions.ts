@@ -24,7 +24,9 @@ import { VehicleAddSchema, VehicleIdSchema, VehicleUpdateSchema } from "@/lib/va
 export const createCustomerAction = memberAction(CustomerSchema, async (m, input) => {
   const c = await createCustomer(m, input);
   revalidatePath(PATHS.customers);
-  return { ok: true, message: `Customer ${c.name} added`, data: { id: c.id } };
+  // The new customer's own address, so a reload stays on their page (a push from the browser
+  // after the action raced the list's refresh and left /customers in the address bar).
+  redirect(PATHS.customer(c.id));
 });
 
 /**

@@ -9,6 +9,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 import { QuoteListQuery, type QuoteListFilters } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quotes" };
@@ -112,7 +113,7 @@ export default async function QuotesPage({
                     {QUOTE_STATUS_LABELS[quoteStatusOn(q, today)]}
                   </td>
                   <td className="figure px-4 py-2 whitespace-nowrap" data-label="Valid until">
-                    {q.validUntil}
+                    {formatCalendarDate(q.validUntil)}
                   </td>
                   <td className="figure px-4 py-2 text-right whitespace-nowrap" data-label="Total">
                     {formatMoney(q.totalMinor, q.currency)}

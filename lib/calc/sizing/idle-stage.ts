@@ -10,7 +10,7 @@ import {
 } from "../injectors";
 import { RATING_FLUID } from "./blend-ends";
 import type { SizingContext } from "./context";
-import type { InjectorOperatingPoint } from "./injector-stage";
+import { commandedPulseSteps, type InjectorOperatingPoint } from "./injector-stage";
 import type { BlendEnd } from "./result";
 
 export interface IdleStage {
@@ -31,11 +31,12 @@ export interface IdleStage {
  * across the injector at idle manifold pressure; the opening and commanded pulse.
  */
 export function idleStage(
-  { input, t }: SizingContext,
+  ctx: SizingContext,
   op: InjectorOperatingPoint,
   lean: BlendEnd,
   leanProps: FuelBlend,
 ): IdleStage {
+  const { input, t } = ctx;
   const { engine, injectors, regulator } = input;
   const manifoldGaugeKpa = gaugeFromAbsKpa(engine.idleManifoldKpaAbs, engine.ambientKpaAbs);
   const dpIdle = injectorDifferentialPressureKpa({
@@ -89,6 +90,8 @@ export function idleStage(
     quantity: "time",
   });
   const deadMs = op.dead(dpIdle);
+  if (deadMs !== null)
+    commandedPulseSteps(ctx, "idle", dpIdle, deadMs, effectiveMs, effectiveMs + deadMs);
   return {
     manifoldGaugeKpa,
     dpIdle,

@@ -99,7 +99,12 @@ export function redlinePulse(
 }
 
 /** The working step of the pulse at redline, at the worse end of the blend. */
-export function redlinePulseStep({ input, t }: SizingContext, worst: BlendEnd): void {
+export function redlinePulseStep(
+  ctx: SizingContext,
+  worst: BlendEnd,
+  op: InjectorOperatingPoint,
+): void {
+  const { input, t } = ctx;
   t.add({
     id: "pulse-redline",
     label: "Effective pulse width at {rpm} ({ethanol})",
@@ -114,5 +119,52 @@ export function redlinePulseStep({ input, t }: SizingContext, worst: BlendEnd): 
     ],
     value: worst.pulseWidthRedline.effectiveMs,
     quantity: "time",
+  });
+  const p = worst.pulseWidthRedline;
+  if (p.deadTimeMs !== null && p.commandedMs !== null)
+    commandedPulseSteps(ctx, "redline", op.dpOp, p.deadTimeMs, p.effectiveMs, p.commandedMs);
+}
+
+/**
+ * The working steps of a commanded pulse: the dead time read off the injector's table at the
+ * voltage the injectors see and the pressure across them (§3.5), then opening + dead time (§3.4).
+ */
+export function commandedPulseSteps(
+  { input, t }: SizingContext,
+  where: "idle" | "redline",
+  dp: number,
+  deadMs: number,
+  effectiveMs: number,
+  commandedMs: number,
+): void {
+  const at = where === "idle" ? "at idle" : "at redline";
+  t.add({
+    id: `dead-time-${where}`,
+    label: `Injector dead time ${at}`,
+    formula:
+      "the injector's dead-time table read at the voltage at the injectors and the pressure across them",
+    inputs: [
+      {
+        label: "voltage at the injectors",
+        value: input.electrical.injectorVoltage,
+        quantity: "voltage",
+      },
+      { label: "pressure across", value: dp, quantity: "pressure" },
+    ],
+    value: deadMs,
+    quantity: "time",
+    decimals: 2,
+  });
+  t.add({
+    id: `pulse-${where}-commanded`,
+    label: `Commanded pulse width ${at}`,
+    formula: "effective opening time + dead time",
+    inputs: [
+      { label: "opening time", value: effectiveMs, quantity: "time", decimals: 2 },
+      { label: "dead time", value: deadMs, quantity: "time", decimals: 2 },
+    ],
+    value: commandedMs,
+    quantity: "time",
+    decimals: 2,
   });
 }

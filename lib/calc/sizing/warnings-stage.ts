@@ -1,6 +1,6 @@
 // Reference: docs/calculations.md §7.2, §7.3 (stage "warnings" of §7).
 import { flexSensorAdvice } from "../blend";
-import { deadTimeMs, type DutyBand } from "../injectors";
+import { cycleTimeMs, deadTimeMs, type DutyBand } from "../injectors";
 import { AN_SIZES } from "../lines";
 import type { PumpFlow } from "../pumps";
 import type { FigureParams } from "../quantities";
@@ -139,6 +139,23 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
       {
         pulse: { value: idle.commandedMs ?? idle.effectiveMs, quantity: "time" },
         min: { value: injectors.minPulseWidthMs, quantity: "time" },
+      },
+    );
+  }
+  // At idle the pulse must also fit in the engine's cycle: a pulse as long as the cycle leaves
+  // the injector open all the time (static), so the idle mixture is not controlled (§3.7).
+  const idleCycleMs = cycleTimeMs(engine.idleRpm);
+  const idlePulseMs = idle.commandedMs ?? idle.effectiveMs;
+  if (idlePulseMs >= idleCycleMs) {
+    warn(
+      "idle-injector-static",
+      "danger",
+      "At idle the injectors would have to stay open for {pulse}, longer than the {cycle} cycle at {rpm}: they would be static and the idle mixture out of control.",
+      "Check the idle inputs (manifold pressure, volumetric efficiency, idle speed), or fit larger injectors or more of them.",
+      {
+        pulse: { value: idlePulseMs, quantity: "time" },
+        cycle: { value: idleCycleMs, quantity: "time" },
+        rpm: { value: engine.idleRpm, quantity: "speed" },
       },
     );
   }

@@ -6,16 +6,19 @@ import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
+import { L_PER_CU_IN } from "@/lib/calc/constants";
 import { ASPIRATION_LABELS, MEASURED_AT_LABELS } from "@/lib/calc/registry";
 import type { UnitSystem } from "@/lib/calc/units";
 import { FUEL_CHOICE_LABELS, FUEL_CHOICES } from "@/lib/domain/builds";
+import { engineFromText } from "@/lib/domain/engine-text";
 
 import { createDraftBuildAction } from "./actions";
 
 export interface DraftCustomer {
   id: string;
   name: string;
-  vehicles: { id: string; label: string }[];
+  /** `engine`: the vehicle's engine as the caller named it, read for the engine fields. */
+  vehicles: { id: string; label: string; engine?: string | null }[];
 }
 
 /**
@@ -44,6 +47,20 @@ export function DraftBuildForm({
   const [vehicle, setVehicle] = useState<string | null>(v.vehicleId ?? null);
   // A customer without vehicles starts with the new vehicle's fields open.
   const chosen = vehicle ?? (vehicles[0]?.id || "new");
+  // The engine fields start from what the vehicle's engine text says (editable).
+  const [newEngine, setNewEngine] = useState<string>(v["vehicle.engine"] ?? "");
+  const engineText =
+    chosen === "new" ? newEngine : (vehicles.find((x) => x.id === chosen)?.engine ?? "");
+  const guess = engineFromText(engineText);
+  const guessKey = `${chosen}:${JSON.stringify(guess)}`;
+  const guessed = Object.keys(guess).length > 0;
+  // The guess is in litres; the field is in the person's units (whole cubic inches).
+  const guessedDisplacement =
+    guess.displacementL === undefined
+      ? undefined
+      : units === "imperial"
+        ? String(Math.round(guess.displacementL / L_PER_CU_IN))
+        : String(guess.displacementL);
   return (
     <form
       // Sent by hand, not as the form's `action`: React resets a form after its action, and the
@@ -121,6 +138,7 @@ export function DraftBuildForm({
                 name="vehicle.engine"
                 autoComplete="off"
                 defaultValue={v["vehicle.engine"]}
+                onChange={(ev) => setNewEngine(ev.target.value)}
                 error={e["vehicle.engine"]}
               />
             </div>
@@ -136,26 +154,34 @@ export function DraftBuildForm({
       </fieldset>
       <fieldset className="grid gap-3 rounded-lg border border-ink-200 p-4 sm:grid-cols-3">
         <legend className="px-1 font-semibold">Engine</legend>
+        {guessed ? (
+          <p className="text-sm text-ink-700 sm:col-span-3" data-testid="engine-prefill">
+            Filled in from the engine “{engineText}”: check them with the caller.
+          </p>
+        ) : null}
         <Field
+          key={`d-${guessKey}`}
           label={`Displacement (${displacementUnit})`}
           name="displacement"
           inputMode="decimal"
           autoComplete="off"
-          defaultValue={v.displacement}
+          defaultValue={v.displacement ?? guessedDisplacement}
           error={e.displacement}
         />
         <Field
+          key={`c-${guessKey}`}
           label="Cylinders"
           name="cylinders"
           inputMode="numeric"
           autoComplete="off"
-          defaultValue={v.cylinders}
+          defaultValue={v.cylinders ?? guess.cylinders?.toString()}
           error={e.cylinders}
         />
         <SelectField
+          key={`a-${guessKey}`}
           label="Aspiration"
           name="aspiration"
-          defaultValue={v.aspiration ?? ""}
+          defaultValue={v.aspiration ?? guess.aspiration ?? ""}
           error={e.aspiration}
         >
           <option value="">Choose…</option>

@@ -40,7 +40,11 @@ export default async function NewBuildPage({
             customers={customers.map((c) => ({
               id: c.id,
               name: c.name,
-              vehicles: c.vehicles.map((v) => ({ id: v.id, label: vehicleText(v) })),
+              vehicles: c.vehicles.map((v) => ({
+                id: v.id,
+                label: vehicleText(v),
+                engine: v.engine,
+              })),
             }))}
             customerId={customer}
             units={units}

@@ -14,6 +14,7 @@ import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { formatCalendarDate } from "@/lib/format/dates";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 import { presentQuote } from "@/lib/quotes/quote-presentation";
@@ -111,13 +112,13 @@ export default async function MyQuotePage({
           className="mb-4 rounded-md border-l-4 border-caution-600 bg-caution-50 px-3 py-2 text-sm font-medium text-ink-800"
           data-testid="expired"
         >
-          This quote was valid until {qt.validUntil} and can no longer be accepted. Ask the shop for
-          a new one.
+          This quote was valid until {formatCalendarDate(qt.validUntil)} and can no longer be
+          accepted. Ask the shop for a new one.
         </p>
       ) : null}
       <p className="mb-4 text-ink-700">
         <span data-testid="my-quote-status">{QUOTE_STATUS_LABELS[status]}</span> · valid until{" "}
-        {qt.validUntil}
+        {formatCalendarDate(qt.validUntil)}
         {q.buildTitle ? ` · ${q.buildTitle}` : ""}
       </p>
       <QuoteLinesTable presented={presented} />

@@ -41,6 +41,7 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
         currency={s?.settings.currency ?? "USD"}
         canChoose={can(m.role, "kit:choose")}
         canQuote={can(m.role, "quotes:write")}
+        quoteOnly={!can(m.role, "builds:write")}
         units={units}
       />
       <SafetyNote />
