@@ -63,9 +63,7 @@ describe("the build sheet after the tester's findings", () => {
     expect(await page.getByLabel("Idle manifold pressure (psia)").inputValue()).toBe("5.1");
     expect(await page.getByLabel("Idle volumetric efficiency").inputValue()).toBe("0.8");
     expect(await page.getByLabel("Intake air temperature (°F)").inputValue()).toBe("86");
-    expect(await page.getByLabel("Ambient (barometric) pressure (psia)").inputValue()).toBe(
-      "14.7",
-    );
+    expect(await page.getByLabel("Ambient (barometric) pressure (psia)").inputValue()).toBe("14.7");
 
     // The pulses are commanded ones, with the dead time and the voltage it was read at.
     const note = page.getByTestId("pulse-note");
@@ -82,9 +80,7 @@ describe("the build sheet after the tester's findings", () => {
     // To metric (the tester's path): the idle fields convert, the defaults of the parts switched
     // off come out as their canonical values.
     await page.getByRole("radio", { name: /Metric/ }).click();
-    await expect
-      .poll(() => page.getByLabel("Intake air temperature (°C)").inputValue())
-      .toBe("30");
+    await expect.poll(() => page.getByLabel("Intake air temperature (°C)").inputValue()).toBe("30");
     expect(await page.getByLabel("Idle manifold pressure (kPa abs)").inputValue()).toBe("35");
     await page.getByLabel("Check the regulator's bypass (return) capacity").check();
     expect(await page.getByLabel("Bypass flow (rated) (L/h)").inputValue()).toBe("400");
