@@ -31,6 +31,16 @@ const fixtures: Record<string, string> = {
   "/accept-invitation/[id]": `/accept-invitation/${randomUUID()}`, // an invitation that is gone
   // Linked from a build's revisions once it has two; the demo builds start with one.
   "/builds/[id]/compare": `/builds/${DEMO_BUILD}/compare?from=1&to=1`,
+  // The demo shop has no job, invoice or purchase order yet: a gone one shows the not-found
+  // page, which must fit as well (the pages with records are walked by after-deposit's tests).
+  "/jobs/[id]": `/jobs/${randomUUID()}`,
+  "/invoices/[id]": `/invoices/${randomUUID()}`,
+  "/purchasing/orders/[id]": `/purchasing/orders/${randomUUID()}`,
+};
+/** The same for the customer's portal. */
+const portalFixtures: Record<string, string> = {
+  "/my/jobs/[id]": `/my/jobs/${randomUUID()}`,
+  "/my/invoices/[id]": `/my/invoices/${randomUUID()}`,
 };
 
 beforeAll(async () => {
@@ -158,6 +168,7 @@ describe("phone (390 px) and tablet (768 px): every page as every role", () => {
     await signInAs(page, "customer");
     const portal = pages.filter((p) => p.audience === "portal");
     const { urls, missing } = await urlsFor(ctx.request, portal, {
+      fixtures: portalFixtures,
       rendered: (url) => renderedLinks(page, url),
     });
     expect(missing).toEqual([]);
