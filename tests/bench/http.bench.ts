@@ -216,6 +216,7 @@ if (soak) {
   for (const n of [1, 16, 64]) {
     const app = rows.find((r) => r.case === CASES[0]!.name && r.conns === n)!;
     const route = rows.find((r) => r.case === bareRoute && r.conns === n)!;
+    if (!app || !route) continue;
     const floor = bareRows.find((r) => r.conns === n)!;
     console.log(
       `calc API at ${n} connection(s): ${app["req/s"]} req/s = ${(app["req/s"] / route["req/s"]).toFixed(2)}× the bare route (${route["req/s"]} req/s; goal ≥ 0.8×), ${((100 * app["req/s"]) / floor["req/s"]).toFixed(0)} % of bare node:http (${floor["req/s"]} req/s); errors ${app.errors}`,
