@@ -51,9 +51,10 @@ describe("parts counter", () => {
       .poll(() => page.getByText("Best fit").count(), { timeout: 15000 })
       .toBeGreaterThan(0);
     await page.screenshot({ path: "test-results/screenshots/kit.png", fullPage: true });
-    await page.getByRole("button", { name: "Use these parts" }).click();
+    // The counter's choice goes on the quote; the tuner's sizing stays as it is.
+    await page.getByRole("button", { name: "Use these parts for the quote" }).click();
     await expect
-      .poll(() => page.getByText(/Parts written into the build as version \d+/).count())
+      .poll(() => page.getByText(/Parts kept for the quote \(version \d+\)/).count())
       .toBe(1);
     await page.getByRole("button", { name: "Create quote from the chosen parts" }).click();
     await page.waitForURL(/\/quotes\/[0-9a-f-]{36}$/);

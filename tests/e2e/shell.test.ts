@@ -31,9 +31,21 @@ const navLabels = (page: Page) =>
 
 describe("demo sign-ins", () => {
   it.each([
-    ["owner", ["Builds", "Customers", "Parts", "Quotes", "Tools", "Settings"], "/builds"],
-    ["tuner", ["Builds", "Customers", "Parts", "Quotes", "Tools", "Settings"], "/builds"],
-    ["counter", ["Builds", "Customers", "Parts", "Quotes", "Tools", "Settings"], "/builds"],
+    [
+      "owner",
+      ["Builds", "Customers", "Parts", "Quotes", "Jobs", "Purchasing", "Tools", "Settings"],
+      "/builds",
+    ],
+    [
+      "tuner",
+      ["Builds", "Customers", "Parts", "Quotes", "Jobs", "Purchasing", "Tools", "Settings"],
+      "/builds",
+    ],
+    [
+      "counter",
+      ["Builds", "Customers", "Parts", "Quotes", "Jobs", "Purchasing", "Tools", "Settings"],
+      "/builds",
+    ],
     ["customer", ["My builds"], "/my"],
   ])("%s sees their navigation", async (role, expected, landing) => {
     const ctx = await newClient(browser);

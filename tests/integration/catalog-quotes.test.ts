@@ -363,7 +363,8 @@ describe("kit recommendation on a build", () => {
       ).status,
     ).toBe(422);
     expect(await fingerprint(["builds", "build_revisions"])).toBe(before);
-    const chose = await request(counter, "POST", `/api/v1/builds/${buildId}/kit`, {
+    // The tuner's choice re-sizes the build (a counter's goes on the quote only: kit-commands).
+    const chose = await request(tuner, "POST", `/api/v1/builds/${buildId}/kit`, {
       version: kit.json.buildVersion,
       parts: [
         { role: "injector", partId: best.part.id, quantity: best.quantity },
