@@ -123,6 +123,8 @@ describe("every figure in the reader's units", () => {
         .toBeGreaterThan(10);
       pages.push(["build sheet", await mainText(page)]);
       // Chart ticks: the number, a space, the unit ("55 gal/h", never "55gal/h").
+      // The charts load as they scroll near the screen: go to them first.
+      await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
       const ticks = page.locator(".recharts-cartesian-axis-tick-value");
       await expect.poll(() => ticks.count(), { timeout: 15000 }).toBeGreaterThan(10);
       const tickTexts = await ticks.allTextContents();
