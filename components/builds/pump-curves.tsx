@@ -96,7 +96,7 @@ function CurvePoints({
           <Button
             type="button"
             variant="ghost"
-            aria-label={`Remove ${whose.toLowerCase()}flow curve ${curve + 1}`}
+            aria-label={`Remove curve ${curve + 1}${pump === 0 ? "" : " of the second pump"}`}
             onClick={onRemove}
           >
             Remove curve

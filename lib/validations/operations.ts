@@ -69,7 +69,13 @@ export const PurchaseOrderCreateSchema = z.object({
       }),
     )
     .min(1, "Add at least one line")
-    .max(200, "At most 200 lines"),
+    .max(200, "At most 200 lines")
+    // The order's total is kept in a 32-bit column of minor units.
+    .refine(
+      (lines) =>
+        lines.reduce((t, l) => t + l.quantity * (l.unitCostMinor ?? 0), 0) <= 2_147_483_647,
+      { message: "The lines add up to more than an order can hold: split it" },
+    ),
 });
 export type PurchaseOrderCreate = z.output<typeof PurchaseOrderCreateSchema>;
 
