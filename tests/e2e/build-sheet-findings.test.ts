@@ -41,6 +41,8 @@ afterAll(async () => {
 });
 
 async function open(page: Page) {
+  // The tuner follows the shop's units (imperial in the demo shop), whatever an earlier suite chose.
+  await sql`update "user" set unit_system = null where email = 'tuner@demo.fuelwright.test'`;
   await signInAs(page, "tuner");
   await page.goto(`${BASE_URL}/builds/${buildId}`);
   await expect
