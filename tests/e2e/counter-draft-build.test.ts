@@ -135,8 +135,16 @@ describe("the counter takes a caller's goal", () => {
     await expect.poll(() => tuner.getByText("Saved as version 2").count()).toBe(1);
     const [after] = await sql`select status, tuner_id from builds where id = ${id}`;
     expect(after).toMatchObject({ status: "sized", tuner_id: "demo-user-tuner" });
+    // Sized, it leaves the queue (it stays in the builds list itself).
     await tuner.goto("/builds");
-    expect(await tuner.getByText(tag).count()).toBe(0);
+    await expect
+      .poll(() =>
+        tuner
+          .getByRole("region", { name: /need(s)? sizing/ })
+          .getByText(tag)
+          .count(),
+      )
+      .toBe(0);
     await ctx.close();
     await tctx.close();
   });
