@@ -259,10 +259,33 @@ export const PumpCurveSchema = z
     }
   });
 
+/** A pump's curves: one per voltage, up to eight. */
+export const PumpCurvesSchema = z
+  .array(PumpCurveSchema)
+  .min(1, "A pump needs at least one flow curve")
+  .max(8)
+  .superRefine((curves, ctx) => {
+    // One curve per voltage: between two curves the flow is interpolated by voltage.
+    const seen = new Map<number, number>();
+    curves.forEach((c, j) => {
+      const first = seen.get(c.voltage);
+      if (first === undefined) return void seen.set(c.voltage, j);
+      ctx.addIssue({
+        code: "custom",
+        path: [j, "voltage"],
+        message: `Curve ${j + 1} is at the voltage of curve ${first + 1} (${c.voltage} V): give each curve its own voltage`,
+        params: {
+          template: `Curve ${j + 1} is at the voltage of curve ${first + 1} ({voltage}): give each curve its own voltage`,
+          figures: { voltage: { value: c.voltage, quantity: "voltage" } },
+        },
+      });
+    });
+  });
+
 export const PumpSchema = z.object({
   label: z.string().max(120).optional(),
   quantity: int("Pump quantity", 1, 4).default(1),
-  curves: z.array(PumpCurveSchema).min(1, "A pump needs at least one flow curve").max(8),
+  curves: PumpCurvesSchema,
   /** A boost-switched stage runs from this boost up; left out, the pump runs all the time. */
   switchOnBoostKpa: num("Switch-on boost", 0, 500, "kPa").optional(),
 });

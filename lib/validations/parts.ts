@@ -1,7 +1,7 @@
 import { z } from "zod";
 
 import { type Part } from "@/db/schema/catalog";
-import { DeadTimeTableSchema, PumpCurveSchema, REGULATOR_TYPES } from "@/lib/calc";
+import { DeadTimeTableSchema, PumpCurvesSchema, REGULATOR_TYPES } from "@/lib/calc";
 import { minorToPlain, parseMoney } from "@/lib/catalog/money";
 import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
@@ -23,7 +23,7 @@ export const SPEC_SCHEMAS = {
     deadTime: DeadTimeTableSchema.optional(),
   }),
   pump: z.object({
-    curves: z.array(PumpCurveSchema).min(1).max(8),
+    curves: PumpCurvesSchema,
     currentA: z.number().min(0).max(80).optional(),
     mounting: z.enum(["in-tank", "inline"]),
     ethanolOk: z.boolean(),

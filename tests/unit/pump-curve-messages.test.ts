@@ -50,6 +50,19 @@ describe("pump curve messages (build editor and part editor)", () => {
     );
   });
 
+  it("two curves at one voltage are refused at the second curve's voltage, never thrown later", () => {
+    const first = boostedSix.pumps[0]!.curves[0]!;
+    const r = FuelSystemInputSchema.safeParse({
+      ...boostedSix,
+      pumps: [{ quantity: 1, curves: [first, { ...first }] }],
+    });
+    expect(r.success).toBe(false);
+    const messages = issueMessages(r.error!.issues, "metric");
+    expect(messages["pumps.0.curves.1.voltage"]).toMatch(
+      /^Curve 2 is at the voltage of curve 1 \(\d+(\.\d+)? V\): give each curve its own voltage$/,
+    );
+  });
+
   it("the part editor's flow curve field says the same, not the cell's internal name", () => {
     const curve = (points: { pressureKpa: number; flowLPerH: number }[]) =>
       checkSpecs("pump", {
