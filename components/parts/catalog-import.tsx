@@ -17,7 +17,7 @@ interface PreviewRow {
   category: string;
   priceMinor: number;
   stock: number;
-  action: "add" | "update";
+  action: "add" | "update" | "unchanged";
 }
 interface RowError {
   line: number;
@@ -147,7 +147,8 @@ export function CatalogImport({ currency }: { currency: string }) {
           <h2 id="imp-preview" className="font-semibold">
             Preview: {preview.preview.length} rows read (
             {preview.preview.filter((r) => r.action === "add").length} new,{" "}
-            {preview.preview.filter((r) => r.action === "update").length} updates)
+            {preview.preview.filter((r) => r.action === "update").length} updates,{" "}
+            {preview.preview.filter((r) => r.action === "unchanged").length} unchanged)
           </h2>
           {preview.ignoredColumns.length ? (
             <p className="text-sm text-caution-700">

@@ -147,22 +147,24 @@ export async function deletePart(shopId: string, id: string) {
   if (rows.length === 0) throw new NotFound("That part");
 }
 
-/** Which SKUs of a list the shop has already (the import preview marks them "update"). */
-export async function existingSkus(shopId: string, skus: string[]) {
-  if (skus.length === 0) return new Set<string>();
-  const rows = await db
-    .select({ sku: parts.sku })
-    .from(parts)
-    .where(
-      and(
-        eq(parts.shopId, shopId),
-        inArray(
-          sql`lower(${parts.sku})`,
-          skus.map((s) => s.toLowerCase()),
-        ),
-      ),
-    );
-  return new Set(rows.map((r) => r.sku.toLowerCase()));
+/**
+ * The shop's parts with these SKUs (exactly as spelt: the SKU index is case-sensitive, and an
+ * import matches it the same way), by SKU. Within `tx` with `lock`, the rows are locked.
+ */
+export async function partsBySku(
+  shopId: string,
+  skus: string[],
+  { tx = db as Tx | typeof db, lock = false } = {},
+) {
+  const stored = new Map<string, Part>();
+  for (let i = 0; i < skus.length; i += 1000) {
+    const q = tx
+      .select()
+      .from(parts)
+      .where(and(eq(parts.shopId, shopId), inArray(parts.sku, skus.slice(i, i + 1000))));
+    for (const p of await (lock ? q.for("update") : q)) stored.set(p.sku, p);
+  }
+  return stored;
 }
 
 /**
@@ -176,15 +178,7 @@ export async function importPartsWith(
   build: (stored: Map<string, Part>) => PartColumns[],
 ) {
   return db.transaction(async (tx) => {
-    const stored = new Map<string, Part>();
-    for (let i = 0; i < skus.length; i += 1000) {
-      const found = await tx
-        .select()
-        .from(parts)
-        .where(and(eq(parts.shopId, shopId), inArray(parts.sku, skus.slice(i, i + 1000))))
-        .for("update");
-      for (const p of found) stored.set(p.sku, p);
-    }
+    const stored = await partsBySku(shopId, skus, { tx, lock: true });
     return upsertParts(tx, shopId, build(stored));
   });
 }

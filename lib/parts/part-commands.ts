@@ -1,9 +1,11 @@
 import "server-only";
 
+import { isDeepStrictEqual } from "node:util";
+
 import {
-  existingSkus,
   importPartsWith,
   createPart as insertPart,
+  partsBySku,
   deletePart as removePart,
   updatePartWith,
   type PartColumns,
@@ -68,7 +70,8 @@ export interface ImportPreviewRow {
   category: string;
   priceMinor: number;
   stock: number;
-  action: "add" | "update";
+  /** "unchanged": the SKU is in the catalog and the row would change none of its columns. */
+  action: "add" | "update" | "unchanged";
 }
 export interface CatalogImport {
   preview: ImportPreviewRow[];
@@ -95,6 +98,23 @@ const FIELD_OF_COLUMN = {
   restock_on: "restockOn",
 } as const satisfies Record<string, keyof PartColumns>;
 
+/** The columns an import writes (a known SKU whose row holds them all is left alone). */
+const IMPORTED_COLUMNS = [
+  "category",
+  "brand",
+  "name",
+  "priceMinor",
+  "costMinor",
+  "stock",
+  "reorderLevel",
+  "leadTimeDays",
+  "restockOn",
+  "specs",
+] as const satisfies (keyof PartColumns & keyof Part)[];
+
+const sameColumns = (row: PartColumns, was: Part) =>
+  IMPORTED_COLUMNS.every((c) => isDeepStrictEqual(row[c] ?? null, was[c] ?? null));
+
 /**
  * Reads a catalog CSV and, unless `dryRun` or any row is bad, upserts every row by SKU in one
  * transaction. A SKU already in the catalog changes only in the columns the file has: a column
@@ -107,60 +127,61 @@ export async function importCatalog(
 ): Promise<CatalogImport> {
   authorize(member, "parts:write");
   const parsed = parseCatalogCsv(input.csv);
-  const known = await existingSkus(
-    member.shopId,
-    parsed.rows.map((r) => r.sku),
-  );
-  const preview = parsed.rows.map((r): ImportPreviewRow => ({
-    line: r.line,
-    sku: r.sku,
-    name: r.name,
-    brand: r.brand,
-    category: r.category,
-    priceMinor: r.priceMinor,
-    stock: r.stock,
-    action: known.has(r.sku.toLowerCase()) ? "update" : "add",
-  }));
-  const out = { preview, ignoredColumns: parsed.ignoredColumns, errors: parsed.errors };
-  if (parsed.errors.length || input.dryRun) return out;
   const fileFields = Object.entries(FIELD_OF_COLUMN)
     .filter(([col]) => parsed.columns.includes(col))
     .map(([, field]) => field);
   const covered = specKeysOfColumns(parsed.columns);
-  const counts = await importPartsWith(
-    member.shopId,
-    parsed.rows.map((r) => r.sku),
-    (stored) =>
-      parsed.rows.map(({ line, ...row }): PartColumns => {
-        const was = stored.get(row.sku);
-        if (!was) return row;
-        const merged: PartColumns = {
-          sku: was.sku,
-          category: was.category,
-          brand: was.brand,
-          name: was.name,
-          priceMinor: was.priceMinor,
-          costMinor: was.costMinor,
-          stock: was.stock,
-          reorderLevel: was.reorderLevel,
-          leadTimeDays: was.leadTimeDays,
-          restockOn: was.restockOn,
-          specs: was.specs as Record<string, unknown>,
-        };
-        for (const f of fileFields) Object.assign(merged, { [f]: row[f] });
-        if (row.category !== was.category) return { ...merged, specs: row.specs };
-        const specs = checkSpecs(
-          row.category,
-          mergeSpecs(row.category, merged.specs, { values: row.specs, covered }),
+  // The row to write for each line: a known SKU is the stored part with the file's columns merged in.
+  const merge = (stored: Map<string, Part>) =>
+    parsed.rows.map(({ line, ...row }): PartColumns => {
+      const was = stored.get(row.sku);
+      if (!was) return row;
+      const merged: PartColumns = {
+        sku: was.sku,
+        category: was.category,
+        brand: was.brand,
+        name: was.name,
+        priceMinor: was.priceMinor,
+        costMinor: was.costMinor,
+        stock: was.stock,
+        reorderLevel: was.reorderLevel,
+        leadTimeDays: was.leadTimeDays,
+        restockOn: was.restockOn,
+        specs: was.specs as Record<string, unknown>,
+      };
+      for (const f of fileFields) Object.assign(merged, { [f]: row[f] });
+      if (row.category !== was.category) return { ...merged, specs: row.specs };
+      const specs = checkSpecs(
+        row.category,
+        mergeSpecs(row.category, merged.specs, { values: row.specs, covered }),
+      );
+      if (!specs.ok)
+        throw new Invalid(
+          `Line ${line}: with the stored data of ${row.sku} its specification is not valid`,
+          specs.issues.map((i) => ({ path: `${line}.${i.path}`, message: i.message })),
+          "invalid_rows",
         );
-        if (!specs.ok)
-          throw new Invalid(
-            `Line ${line}: with the stored data of ${row.sku} its specification is not valid`,
-            specs.issues.map((i) => ({ path: `${line}.${i.path}`, message: i.message })),
-            "invalid_rows",
-          );
-        return { ...merged, specs: specs.specs };
-      }),
-  );
+      return { ...merged, specs: specs.specs };
+    });
+  const skus = parsed.rows.map((r) => r.sku);
+  const stored = await partsBySku(member.shopId, skus);
+  // The preview says what the import would do: a row equal to the stored part is "unchanged".
+  const rows = parsed.errors.length ? [] : merge(stored);
+  const preview = parsed.rows.map((r, k): ImportPreviewRow => {
+    const was = stored.get(r.sku);
+    return {
+      line: r.line,
+      sku: r.sku,
+      name: r.name,
+      brand: r.brand,
+      category: r.category,
+      priceMinor: r.priceMinor,
+      stock: r.stock,
+      action: !was ? "add" : rows[k] && sameColumns(rows[k], was) ? "unchanged" : "update",
+    };
+  });
+  const out = { preview, ignoredColumns: parsed.ignoredColumns, errors: parsed.errors };
+  if (parsed.errors.length || input.dryRun) return out;
+  const counts = await importPartsWith(member.shopId, skus, merge);
   return { ...out, ...counts };
 }

@@ -70,7 +70,15 @@ describe("catalog CSV import", () => {
     expect(await fingerprint(["parts"])).toBe(before);
     const done = await csvPost(counter, `\uFEFF${csv}`);
     expect(done.json).toMatchObject({ added: 2, updated: 0 });
-    const again = await csvPost(counter, csv.replace("249.50", "259.00"));
+    // The preview of the second file says what it will do: the pump's price changes, the hose is
+    // as stored.
+    const second = csv.replace("249.50", "259.00");
+    const dry2 = await csvPost(counter, second, true);
+    expect(dry2.json.preview.map((p: { action: string }) => p.action)).toEqual([
+      "update",
+      "unchanged",
+    ]);
+    const again = await csvPost(counter, second);
     // Only the pump's price changed: the hose, equal to what is stored, is not written again.
     expect(again.json).toMatchObject({ added: 0, updated: 1, unchanged: 1 });
     const [p] =
