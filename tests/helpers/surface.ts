@@ -62,6 +62,16 @@ export const ROUTES: Record<string, Cell> = {
     call: () => ({ path: "/api/bench/size", body: {} }),
     expect: "404 404 404 404 404 404",
   },
+  // Any /api address no route answers: a JSON 404 for everyone (tests/integration/unknown-api).
+  ...Object.fromEntries(
+    (["GET", "POST", "PUT", "PATCH", "DELETE"] as const).map((m) => [
+      `${m} /api/[...unknown]`,
+      {
+        call: () => ({ path: "/api/v1/no-such-thing", ...(m === "GET" ? {} : { body: {} }) }),
+        expect: "404 404 404 404 404 404",
+      } satisfies Cell,
+    ]),
+  ),
   "GET /api/auth/[...all]": {
     call: () => ({ path: "/api/auth/get-session" }),
     expect: "ok ok ok ok ok ok",

@@ -171,6 +171,9 @@ const BODY: Record<
   { schema: z.ZodType; base?: (f: Fx) => unknown; skip?: (p: Path) => boolean }
 > = {
   "POST /api/v1/builds": { schema: BuildCreateSchema },
+  // No route at the address: whatever the body, a JSON 404 (never the HTML page).
+  "PUT /api/[...unknown]": { schema: z.object({ x: z.string().optional() }) },
+  "PATCH /api/[...unknown]": { schema: z.object({ x: z.string().optional() }) },
   "PATCH /api/v1/builds/[id]": { schema: BuildSaveSchema, skip: isId },
   "POST /api/v1/builds/[id]/kit": { schema: KitChoiceSchema, skip: isId },
   "POST /api/v1/builds/[id]/share-links": { schema: ShareLinkDaysSchema },
