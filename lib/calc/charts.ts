@@ -144,7 +144,7 @@ export interface ChartAxis {
 /** A chart's data, in the reader's units: one row per x, one column per line. */
 export interface BoostChart {
   title: string;
-  /** One sentence saying what the chart shows (screen readers; the PDF's note when nothing is drawn). */
+  /** One sentence, no full stop, saying what the chart shows (screen readers; the PDF's note). */
   summary: string;
   x: ChartAxis;
   y: ChartAxis;
@@ -227,10 +227,10 @@ export function fuelPressureChart(result: FuelSystemResult, units: UnitSystem): 
         ? "1:1 boost-referenced regulator"
         : `rising-rate regulator ${formatValue("risingRate", result.regulator.risingRateRatio, units)}`;
   const summary = !top
-    ? "No fuel pressure worked out for this build."
+    ? "No fuel pressure worked out for this build"
     : rows.length < 2
-      ? `No boost range: with a ${regulator} the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them.`
-      : `With a ${regulator}, at ${formatValue("pressure", top.boostKpa, units)} boost the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them.`;
+      ? `No boost range: with a ${regulator} the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them`
+      : `With a ${regulator}, at ${formatValue("pressure", top.boostKpa, units)} boost the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them`;
   return {
     title: "Fuel pressure against boost",
     summary,
@@ -274,10 +274,10 @@ export function pumpBoostChart(result: FuelSystemResult, units: UnitSystem): Boo
   const margin = formatValue("percent", result.pump.marginPct, units, 0);
   const summary =
     rows.length === 0
-      ? "No pump supply worked out for this build."
+      ? "No pump supply worked out for this build"
       : rows.length < 2
-        ? `No boost range: the pumps supply ${formatValue("volumeFlow", result.pump.supplyLPerH, units)} against a demand of ${formatValue("volumeFlow", result.pump.demandLPerH, units)} (margin ${margin}).`
-        : `The pump margin is at its lowest, ${margin}, at ${formatValue("pressure", result.pump.worstMarginBoostKpa, units)} boost.`;
+        ? `No boost range: the pumps supply ${formatValue("volumeFlow", result.pump.supplyLPerH, units)} against a demand of ${formatValue("volumeFlow", result.pump.demandLPerH, units)} (margin ${margin})`
+        : `The pump margin is at its lowest, ${margin}, at ${formatValue("pressure", result.pump.worstMarginBoostKpa, units)} boost`;
   return {
     title: "Pump supply and demand against boost",
     summary,

@@ -135,11 +135,11 @@ export function PdfBoostChart({ chart, width = 250 }: { chart: BoostChart; width
             ) : null}
           </View>
           <Text style={s.muted}>
-            {pdfText(`${x.label} (${x.unit}) across, ${y.label} (${y.unit}) up. ${chart.summary}`)}
+            {pdfText(`${x.label} (${x.unit}) across, ${y.label} (${y.unit}) up. ${chart.summary}.`)}
           </Text>
         </>
       ) : (
-        <Text style={s.muted}>{pdfText(chart.summary)}</Text>
+        <Text style={s.muted}>{pdfText(`${chart.summary}.`)}</Text>
       )}
     </View>
   );
