@@ -1,4 +1,4 @@
-// Reference: docs/calculations.md §7.
+// Reference: docs/calculations.md §7.4.
 import { fuelBlend } from "./fuel";
 import {
   injectorDifferentialPressureKpa,
