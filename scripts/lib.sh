@@ -1,4 +1,4 @@
-# Shared set-up for `npm start` and `npm test`: installs what is missing, runs a private
+# Shared set-up for `npm start`, `npm test` and the benchmarks: installs what is missing, runs a private
 # PostgreSQL cluster on loopback, and the local mail sink. Source it; do not run it.
 
 FW_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
@@ -172,4 +172,33 @@ build_if_needed() {
   fi
   say "building the app (next build)…"
   node node_modules/next/dist/bin/next build || die "next build failed"
+}
+
+# bench_database NAME PORT — the benchmarks' own cluster NAME on 127.0.0.1:PORT with the database
+# fuelwright_bench (DATABASE_URL), the app's secrets and stand-in addresses for a bench server on
+# port 3300, migrated and seeded with the demo shop (npm run bench:http, bench:ui).
+bench_database() {
+  local name="$1" port="$2"
+  pg_start "$name" "$port"
+  pg_ensure_db "$port" fuelwright_bench
+  export DATABASE_URL="postgres://fuelwright@127.0.0.1:$port/fuelwright_bench"
+  ensure_secret BETTER_AUTH_SECRET bench-auth-secret
+  ensure_secret STRIPE_WEBHOOK_SECRET bench-payments-webhook-secret whsec_
+  export APP_URL="http://127.0.0.1:3300" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
+  migrate_and_seed
+}
+
+# bench_server — the production build in .next-bench (built again when a source is newer than it)
+# started on 127.0.0.1:3300 (log: .data/bench-server.log, stopped by stop_all); returns once it answers.
+bench_server() {
+  cd "$FW_ROOT"
+  export NEXT_DIST_DIR=.next-bench
+  if [ ! -f .next-bench/BUILD_ID ] || [ -n "$(find app components lib db proxy.ts next.config.ts -newer .next-bench/BUILD_ID -type f -print -quit)" ]; then
+    say "building for the benchmark (.next-bench)…"
+    node node_modules/next/dist/bin/next build >/dev/null || die "build failed"
+  fi
+  port_busy 3300 && die "port 3300 is taken"
+  NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p 3300 > .data/bench-server.log 2>&1 &
+  FW_PIDS+=($!)
+  wait_http "http://127.0.0.1:3300/api/health" 60 || die "bench server did not come up (.data/bench-server.log)"
 }

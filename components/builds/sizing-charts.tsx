@@ -17,7 +17,8 @@ import {
   converter,
   dutyAcrossEthanol,
   dutyAcrossRpm,
-  formatValue,
+  fuelPressureChart,
+  pumpBoostChart,
   pumpSupplyCurve,
   toShown,
   type FuelSystemResult,
@@ -50,6 +51,66 @@ function Chart({
   );
 }
 
+/**
+ * Pump supply against the engine's demand, with one x marked: the one chart drawn against boost
+ * and against outlet pressure. ResponsiveContainer hands its measured size to the chart it wraps;
+ * this component stands in that place, so it takes `width`/`height` and passes them on (recharts
+ * also reads them from the container's context; passed on, the chart draws outside one too).
+ */
+export function SupplyDemandChart({
+  rows,
+  xUnit,
+  yUnit,
+  marker,
+  width,
+  height,
+}: {
+  rows: { x: number; supply: number; demand: number }[];
+  xUnit: string;
+  yUnit: string;
+  marker: { x: number; label: string } | null;
+  width?: number;
+  height?: number;
+}) {
+  return (
+    <LineChart
+      data={rows}
+      width={width}
+      height={height}
+      margin={{ left: 0, right: 8, top: 4, bottom: 4 }}
+    >
+      <CartesianGrid stroke="#e6eaee" />
+      <XAxis
+        dataKey="x"
+        type="number"
+        domain={[0, "dataMax"]}
+        tickFormatter={axisTick(xUnit)}
+        tick={{ fontSize: 11 }}
+      />
+      <YAxis tickFormatter={axisTick(yUnit)} tick={{ fontSize: 11 }} width={64} />
+      <Tooltip />
+      <Legend />
+      {marker ? (
+        <ReferenceLine
+          x={marker.x}
+          stroke={INK}
+          strokeDasharray="2 2"
+          label={{ value: marker.label, fontSize: 11 }}
+        />
+      ) : null}
+      <Line dataKey="supply" name="supply" stroke={COPPER} dot={false} isAnimationActive={false} />
+      <Line
+        dataKey="demand"
+        name="demand"
+        stroke={DANGER}
+        strokeDasharray="5 3"
+        dot={false}
+        isAnimationActive={false}
+      />
+    </LineChart>
+  );
+}
+
 /** Duty across engine speed and across ethanol content; pump supply against pressure. */
 export function SizingCharts({
   input,
@@ -74,28 +135,13 @@ export function SizingCharts({
     duty: +p.dutyPct.toFixed(1),
   }));
   const pump = pumpSupplyCurve(input, result, 20).map((p) => ({
-    p: P(p.pressureKpa),
+    x: P(p.pressureKpa),
     supply: F(p.supplyLPerH),
     demand: F(p.demandLPerH),
   }));
-  const boost = result.regulator.pressureVsBoost.map((p) => ({
-    boost: P(p.boostKpa),
-    rail: P(p.railKpa),
-    manifold: P(p.boostKpa),
-    across: P(p.differentialKpa),
-  }));
-  const top = result.regulator.pressureVsBoost.at(-1);
-  const staged = result.pump.supplyVsBoost.map((p) => ({
-    boost: P(p.boostKpa),
-    supply: F(p.supplyLPerH),
-    demand: F(p.demandLPerH),
-  }));
-  const regulatorName =
-    result.regulator.type === "fixed"
-      ? "fixed regulator"
-      : result.regulator.risingRateRatio === 1
-        ? "1:1 boost-referenced regulator"
-        : `rising-rate regulator ${formatValue("risingRate", result.regulator.risingRateRatio, units)}`;
+  // The charts against boost: the spec sheet draws the same data (lib/calc/charts.ts).
+  const pressure = fuelPressureChart(result, units);
+  const staged = pumpBoostChart(result, units);
   const danger = result.limits.dutyDangerPct;
   return (
     <div className="space-y-4" data-testid="sizing-charts">
@@ -156,22 +202,19 @@ export function SizingCharts({
           <Line dataKey="duty" name="duty" stroke={COPPER} dot isAnimationActive={false} />
         </LineChart>
       </Chart>
-      {boost.length > 1 && top ? (
-        <Chart
-          title="Fuel pressure against boost"
-          summary={`With a ${regulatorName}, at ${formatValue("pressure", top.boostKpa, units)} boost the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them`}
-        >
-          <LineChart data={boost} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+      {pressure.drawable ? (
+        <Chart title={pressure.title} summary={pressure.summary}>
+          <LineChart data={pressure.rows} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
             <CartesianGrid stroke="#e6eaee" />
             <XAxis
-              dataKey="boost"
+              dataKey="x"
               type="number"
               domain={[0, "dataMax"]}
-              tickFormatter={axisTick(pu)}
+              tickFormatter={axisTick(pressure.x.unit)}
               tick={{ fontSize: 11 }}
               name="boost"
             />
-            <YAxis tickFormatter={axisTick(pu)} tick={{ fontSize: 11 }} width={64} />
+            <YAxis tickFormatter={axisTick(pressure.y.unit)} tick={{ fontSize: 11 }} width={64} />
             <Tooltip />
             <Legend />
             <Line
@@ -199,85 +242,26 @@ export function SizingCharts({
           </LineChart>
         </Chart>
       ) : null}
-      {staged.length > 1 ? (
-        <Chart
-          title="Pump supply and demand against boost"
-          summary={`The pump margin is at its lowest, ${formatValue("percent", result.pump.marginPct, units, 0)}, at ${formatValue("pressure", result.pump.worstMarginBoostKpa, units)} boost`}
-        >
-          <LineChart data={staged} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
-            <CartesianGrid stroke="#e6eaee" />
-            <XAxis
-              dataKey="boost"
-              type="number"
-              domain={[0, "dataMax"]}
-              tickFormatter={axisTick(pu)}
-              tick={{ fontSize: 11 }}
-            />
-            <YAxis tickFormatter={axisTick(fu)} tick={{ fontSize: 11 }} width={64} />
-            <Tooltip />
-            <Legend />
-            <ReferenceLine
-              x={P(result.pump.worstMarginBoostKpa)}
-              stroke={INK}
-              strokeDasharray="2 2"
-              label={{ value: "least margin", fontSize: 11 }}
-            />
-            <Line
-              dataKey="supply"
-              name="supply"
-              stroke={COPPER}
-              dot={false}
-              isAnimationActive={false}
-            />
-            <Line
-              dataKey="demand"
-              name="demand"
-              stroke={DANGER}
-              strokeDasharray="5 3"
-              dot={false}
-              isAnimationActive={false}
-            />
-          </LineChart>
+      {staged.drawable ? (
+        <Chart title={staged.title} summary={staged.summary}>
+          <SupplyDemandChart
+            rows={staged.rows as { x: number; supply: number; demand: number }[]}
+            xUnit={staged.x.unit}
+            yUnit={staged.y.unit}
+            marker={staged.marker}
+          />
         </Chart>
       ) : null}
       <Chart
         title="Pump supply against pressure"
         summary={`Supply ${F(result.pump.supplyLPerH)} ${fu} against demand ${F(result.pump.demandLPerH)} ${fu} at ${P(result.pump.outletPressureKpa)} ${pu}`}
       >
-        <LineChart data={pump} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
-          <CartesianGrid stroke="#e6eaee" />
-          <XAxis
-            dataKey="p"
-            type="number"
-            domain={[0, "dataMax"]}
-            tickFormatter={axisTick(pu)}
-            tick={{ fontSize: 11 }}
-          />
-          <YAxis tickFormatter={axisTick(fu)} tick={{ fontSize: 11 }} width={64} />
-          <Tooltip />
-          <Legend />
-          <ReferenceLine
-            x={P(result.pump.outletPressureKpa)}
-            stroke={INK}
-            strokeDasharray="2 2"
-            label={{ value: "working", fontSize: 11 }}
-          />
-          <Line
-            dataKey="supply"
-            name="supply"
-            stroke={COPPER}
-            dot={false}
-            isAnimationActive={false}
-          />
-          <Line
-            dataKey="demand"
-            name="demand"
-            stroke={DANGER}
-            strokeDasharray="5 3"
-            dot={false}
-            isAnimationActive={false}
-          />
-        </LineChart>
+        <SupplyDemandChart
+          rows={pump}
+          xUnit={pu}
+          yUnit={fu}
+          marker={{ x: P(result.pump.outletPressureKpa), label: "working" }}
+        />
       </Chart>
     </div>
   );

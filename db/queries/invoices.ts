@@ -17,6 +17,7 @@ import { Conflict, NotFound } from "@/lib/domain/errors";
 import { invoiceBalance, invoiceTotals, taxInside, type ChargeLine } from "@/lib/domain/jobs";
 
 import { nextShopNumber, type Tx } from "./counters";
+import { sameLines, totalColumns } from "./document-lines";
 
 const invoiceSelect = {
   invoice: invoices,
@@ -145,10 +146,7 @@ export async function insertInvoice(
         customerId: job.customerId,
         currency: q!.currency,
         taxRateBp: q!.taxRateBp,
-        subtotalMinor: t.subtotalMinor,
-        discountMinor: t.discountMinor,
-        taxMinor: t.taxMinor,
-        totalMinor: t.totalMinor,
+        ...totalColumns(t),
         depositMinor: t.depositMinor,
         createdBy: userId,
       })
@@ -204,34 +202,17 @@ export async function updateInvoiceDraft(
     let lines = v.lines;
     if (lines) {
       // Lines equal to the stored ones (in order) are not written again.
-      const key = (l: ChargeLine) =>
-        JSON.stringify([
-          l.kind,
-          l.partId ?? null,
-          l.sku ?? null,
-          l.description,
-          l.quantityMilli,
-          l.unitPriceMinor,
-          l.discountBp,
-        ]);
       const stored = await tx
         .select()
         .from(invoiceLines)
         .where(eq(invoiceLines.invoiceId, id))
         .orderBy(asc(invoiceLines.position));
-      if (stored.length === lines.length && stored.every((s, i) => key(s) === key(lines![i]!)))
-        lines = undefined;
+      if (sameLines(stored, lines)) lines = undefined;
     }
     let totals = {};
     if (lines) {
       await writeLines(tx, shopId, id, lines);
-      const t = invoiceTotals(lines, inv.taxRateBp, inv.depositMinor);
-      totals = {
-        subtotalMinor: t.subtotalMinor,
-        discountMinor: t.discountMinor,
-        taxMinor: t.taxMinor,
-        totalMinor: t.totalMinor,
-      };
+      totals = totalColumns(invoiceTotals(lines, inv.taxRateBp, inv.depositMinor));
     } else if (notes === inv.notes) return inv;
     const [done] = await tx
       .update(invoices)

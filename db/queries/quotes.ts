@@ -9,7 +9,6 @@ import {
   quoteLines,
   quoteMessages,
   quotes,
-  shopCounters,
   shopSettings,
 } from "@/db/schema";
 import { quoteTotals } from "@/lib/catalog/quote-totals";
@@ -26,9 +25,10 @@ import {
 import { calendarDay } from "@/lib/format/dates";
 import { parseQuoteNumber, type QuoteLineInput } from "@/lib/validations/quotes";
 
+import { nextShopNumber, type Tx } from "./counters";
+import { sameLines, totalColumns } from "./document-lines";
 import { escapeLike } from "./like";
 
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 export type { QuoteLineInput };
 export type QuoteRow = typeof quotes.$inferSelect;
 
@@ -51,19 +51,6 @@ async function lockQuote(tx: Tx, shopId: string, id: string): Promise<QuoteRow> 
     .limit(1);
   if (!q) throw new NotFound("That quote");
   return q;
-}
-
-/** The next number of a per-shop counter, inside the caller's transaction (row-locked: no gaps, no duplicates). */
-async function nextNumber(tx: Tx, shopId: string, name: string): Promise<number> {
-  const [row] = await tx
-    .insert(shopCounters)
-    .values({ shopId, name, value: 1 })
-    .onConflictDoUpdate({
-      target: [shopCounters.shopId, shopCounters.name],
-      set: { value: sql`${shopCounters.value} + 1` },
-    })
-    .returning({ value: shopCounters.value });
-  return row!.value;
 }
 
 async function writeLines(
@@ -105,13 +92,7 @@ async function writeLines(
       })),
     );
   }
-  const t = quoteTotals(lines, taxRateBp);
-  return {
-    subtotalMinor: t.subtotalMinor,
-    discountMinor: t.discountMinor,
-    taxMinor: t.taxMinor,
-    totalMinor: t.totalMinor,
-  };
+  return totalColumns(quoteTotals(lines, taxRateBp));
 }
 
 /** A new draft quote with the next number of the shop (the command checked customer and parts). */
@@ -138,7 +119,7 @@ export async function insertQuote(
       .from(shopSettings)
       .where(eq(shopSettings.shopId, shopId))
       .limit(1);
-    const number = await nextNumber(tx, shopId, "quote");
+    const number = await nextShopNumber(tx, shopId, "quote");
     const [q] = await tx
       .insert(quotes)
       .values({
@@ -288,26 +269,6 @@ export async function getQuote(shopId: string, id: string, portalUserId?: string
   return { ...row, lines, messages };
 }
 
-/** A line as it is compared: what a person edits, in the stored shape. */
-const lineKey = (l: {
-  kind: string;
-  partId?: string | null;
-  sku?: string | null;
-  description: string;
-  quantityMilli: number;
-  unitPriceMinor: number;
-  discountBp: number;
-}) =>
-  JSON.stringify([
-    l.kind,
-    l.partId ?? null,
-    l.sku ?? null,
-    l.description,
-    l.quantityMilli,
-    l.unitPriceMinor,
-    l.discountBp,
-  ]);
-
 /** Do the quote's stored lines (in order) differ from these? */
 async function linesDiffer(tx: Tx, shopId: string, quoteId: string, lines: QuoteLineInput[]) {
   const stored = await tx
@@ -315,7 +276,7 @@ async function linesDiffer(tx: Tx, shopId: string, quoteId: string, lines: Quote
     .from(quoteLines)
     .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.quoteId, quoteId)))
     .orderBy(asc(quoteLines.position));
-  return stored.length !== lines.length || stored.some((s, i) => lineKey(s) !== lineKey(lines[i]!));
+  return !sameLines(stored, lines);
 }
 
 /**

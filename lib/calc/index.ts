@@ -107,7 +107,16 @@ export {
 export type { SizingLimits } from "./size";
 export { PRE_PUMP_FILTER_CAUTION_KPA } from "./sizing/warnings-stage";
 export type { FuelSystemResult, BlendEnd, PulseWidth, LineResult } from "./size";
-export { dutyAcrossRpm, dutyAcrossEthanol, pumpSupplyCurve, sizingAnswer } from "./charts";
+export {
+  dutyAcrossRpm,
+  dutyAcrossEthanol,
+  pumpSupplyCurve,
+  sizingAnswer,
+  niceTicks,
+  fuelPressureChart,
+  pumpBoostChart,
+} from "./charts";
+export type { BoostChart, ChartAxis } from "./charts";
 export type { TraceStep, Warning, Severity } from "./types";
 export * from "./quantities";
 export * from "./registry";

@@ -22,8 +22,10 @@ import {
   formatTraceStep,
   formatValue,
   formatWarning,
+  fuelPressureChart,
   LIMIT_LABELS,
   LIMITED_BY_LABELS,
+  pumpBoostChart,
   pumpSupplyCurve,
   REGULATOR_LABELS,
   SEVERITY_LABELS,
@@ -41,6 +43,7 @@ import { formatDate } from "@/lib/format/dates";
 import { SAFETY_POINTS, SAFETY_TITLE } from "@/lib/safety";
 import type { SheetSession } from "@/lib/tune/tune-session";
 
+import { PdfBoostChart } from "./boost-charts";
 import { base, COPPER, Letterhead, MUTED, pdfText, type PdfShop } from "./common";
 
 const s = {
@@ -477,6 +480,11 @@ function SpecSheet({ d }: { d: SpecSheetData }) {
               },
             ]}
           />
+        </View>
+
+        <View style={[s.row, { marginTop: 6 }]} wrap={false}>
+          <PdfBoostChart chart={fuelPressureChart(r, units)} />
+          <PdfBoostChart chart={pumpBoostChart(r, units)} />
         </View>
 
         {d.verification ? (

@@ -4,6 +4,7 @@ import { randomBytes } from "node:crypto";
 
 import { getBuild } from "@/db/queries/builds";
 import { getCustomer } from "@/db/queries/customers";
+import { sameLines } from "@/db/queries/document-lines";
 import { getPartsByIds } from "@/db/queries/parts";
 import {
   expireQuotes,
@@ -163,22 +164,10 @@ export async function createQuote(member: Member, input: QuoteCreate): Promise<Q
 
 /** The stored quote already says what the edit says (an absent field says nothing). */
 function unchanged(q: NonNullable<Awaited<ReturnType<typeof getQuote>>>, edit: QuoteFields) {
-  const line = (l: QuoteLineInput | (typeof q.lines)[number]) =>
-    JSON.stringify([
-      l.kind,
-      l.partId ?? null,
-      l.sku ?? null,
-      l.description,
-      l.quantityMilli,
-      l.unitPriceMinor,
-      l.discountBp,
-    ]);
   return (
     (edit.validUntil === undefined || edit.validUntil === q.quote.validUntil) &&
     (edit.notes === undefined || edit.notes === (q.quote.notes ?? "")) &&
-    (edit.lines === undefined ||
-      (edit.lines.length === q.lines.length &&
-        edit.lines.every((l, i) => line(l) === line(q.lines[i]!))))
+    (edit.lines === undefined || sameLines(q.lines, edit.lines))
   );
 }
 
