@@ -1,6 +1,6 @@
 "use client";
 
-import { useSyncExternalStore } from "react";
+import { useLayoutEffect, useRef, useState } from "react";
 
 import {
   FuelSystemInputSchema,
@@ -161,11 +161,25 @@ function sameRecord(a: Record<string, string>, b: Record<string, string>) {
   return ka.every((k) => a[k] === b[k]);
 }
 
-/** One slice of the live sizing; the component re-renders only when that slice changes. */
+/**
+ * One slice of the live sizing; the component re-renders only when that slice changes. Kept in
+ * React state (set from the store's notice, in the keystroke's own event) rather than read with
+ * useSyncExternalStore: a store read that way and changed during a deferred render (the charts)
+ * makes React finish that render synchronously, so a keystroke would wait for the charts.
+ */
 export function useLive<V extends Values, T>(store: LiveSizing<V>, select: (s: LiveState) => T): T {
-  return useSyncExternalStore(
-    store.subscribe,
-    () => select(store.get()),
-    () => select(store.get()),
-  );
+  const [value, setValue] = useState(() => select(store.get()));
+  const selectRef = useRef(select);
+  useLayoutEffect(() => {
+    selectRef.current = select;
+  });
+  useLayoutEffect(() => {
+    const check = () => {
+      const next = selectRef.current(store.get());
+      setValue(() => next);
+    };
+    check();
+    return store.subscribe(check);
+  }, [store]);
+  return value;
 }
