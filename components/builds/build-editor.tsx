@@ -4,15 +4,18 @@ import dynamic from "next/dynamic";
 import {
   createContext,
   memo,
+  useCallback,
   useContext,
   useDeferredValue,
   useEffect,
+  useLayoutEffect,
   useMemo,
   useRef,
   useState,
   useTransition,
+  type SelectHTMLAttributes,
 } from "react";
-import { useForm, useWatch, type UseFormRegister } from "react-hook-form";
+import { useForm, useWatch, type Control, type UseFormRegister } from "react-hook-form";
 
 import { ChartPlaceholder, WhenVisible } from "@/components/charts/when-visible";
 import { Button } from "@/components/ui/button";
@@ -34,10 +37,8 @@ import {
   FUEL_CLASS_LABELS,
   FuelSystemInputSchema,
   inputField,
-  issueMessages,
   parseNumberText,
   shopBsfcFor,
-  sizeParsedFuelSystem,
   toShown,
   unitOf,
   type FuelSystemInput,
@@ -55,14 +56,13 @@ import {
 import { setUnitsAction } from "@/lib/preferences/preference-actions";
 import {
   DEFAULT_DRIVE_TYPE,
-  effectiveInputs,
   type DriveType,
   type SizingSettings,
 } from "@/lib/sizing/effective-inputs";
-import { BuildCreateSchema } from "@/lib/validations/builds";
 
 import { DeadTimeGrid } from "./dead-time-grid";
 import { FiguresAnnouncer } from "./figures-announcer";
+import { LiveSizing, useLive, type LiveState } from "./live-sizing";
 import { PinnedSummary } from "./pinned-summary";
 import { PumpCurves } from "./pump-curves";
 import { ResultsPanel } from "./results-panel";
@@ -164,7 +164,6 @@ const toNumber = (v: unknown) =>
       ? v
       : parseNumberText(String(v));
 const idOf = (name: string) => `b-${name.replace(/\./g, "-")}`;
-const driveTypeOf = (v: Values): DriveType => v.target?.driveType ?? DEFAULT_DRIVE_TYPE;
 
 /** Form values (shown units, optional parts kept while switched off) → the canonical inputs. */
 function inputsOf(values: Values, units: UnitSystem, baseline: FuelSystemInput): FuelSystemInput {
@@ -241,12 +240,16 @@ function Section({
   title,
   children,
   toggle,
+  when,
 }: {
   title: string;
   children?: React.ReactNode;
   toggle?: React.ReactNode;
+  /** The fields show only while this optional part is switched on. */
+  when?: { control: Control<Values>; part: Optional };
 }) {
   const locked = useContext(LockedLabel);
+  const fields = children ? <div className="mt-2 grid gap-3 sm:grid-cols-2">{children}</div> : null;
   return (
     <fieldset className="rounded-lg border border-ink-200 bg-white p-4">
       <legend className="px-1 font-display text-lg font-semibold">
@@ -258,7 +261,13 @@ function Section({
         ) : null}
       </legend>
       {toggle}
-      {children ? <div className="mt-2 grid gap-3 sm:grid-cols-2">{children}</div> : null}
+      {when ? (
+        <Included control={when.control} part={when.part}>
+          {fields}
+        </Included>
+      ) : (
+        fields
+      )}
     </fieldset>
   );
 }
@@ -268,14 +277,16 @@ function NumberField({
   name,
   label,
   unit,
-  error,
+  store,
 }: {
   register: UseFormRegister<Values>;
   name: string;
   label: string;
   unit: string;
-  error?: string;
+  store: LiveSizing<Values>;
 }) {
+  // Re-renders when its own message changes, not on every keystroke elsewhere.
+  const error = useLive(store, (s) => s.errors[name]);
   return (
     <UnitNumberField
       id={idOf(name)}
@@ -297,13 +308,14 @@ function StatusControl({
   register,
   status,
   facts,
-  error,
+  store,
 }: {
   register: UseFormRegister<Values>;
   status: BuildStatus;
   facts: BuildStatusFacts;
-  error?: string;
+  store: LiveSizing<Values>;
 }) {
+  const error = useLive(store, (s) => s.errors.status);
   const moves = statusMoves(status, facts);
   const blocked = moves.filter((m) => !m.allowed);
   const describedBy = [error ? "b-status-err" : "", blocked.length ? "b-status-blocked" : ""]
@@ -400,61 +412,56 @@ export function BuildEditor(props: {
     status: props.status,
   });
   const [pending, start] = useTransition();
-  const { register, control, reset, getValues, setValue } = useForm<Values>({
+  const { register, control, reset, getValues, setValue, subscribe } = useForm<Values>({
     defaultValues: valuesOf(initialInputs, props.units, props.title, props.status),
   });
-  const values = useWatch({ control }) as Values;
-
-  const inputs = useMemo(
-    () => inputsOf(values, units, baseline.inputs),
-    [values, units, baseline.inputs],
+  // The live sizing lives outside React's render: the form's changes feed it, and each part of
+  // the page reads only its slice (live-sizing.ts). Nothing here watches the whole form, so a
+  // keystroke does not re-render the inputs.
+  const toInputs = useCallback(
+    (v: Values, u: UnitSystem) => inputsOf(v, u, baseline.inputs),
+    [baseline.inputs],
   );
-  // The build's own inputs (what a save sends) and, with the shop's settings, what is sized.
-  const parsed = useMemo(() => FuelSystemInputSchema.safeParse(inputs), [inputs]);
-  const effective = useMemo(
+  const [store] = useState(
     () =>
-      parsed.success
-        ? FuelSystemInputSchema.safeParse(effectiveInputs(props.sizingSettings, parsed.data))
-        : null,
-    [parsed, props.sizingSettings],
+      new LiveSizing<Values>(
+        { units, settings: props.sizingSettings, toInputs },
+        getValues() as Values,
+      ),
   );
-  const result = useMemo(
-    () => (effective?.success ? sizeParsedFuelSystem(effective.data) : null),
-    [effective],
+  useEffect(
+    () =>
+      subscribe({
+        formState: { values: true },
+        callback: ({ values }) => store.update(values as Values),
+      }),
+    [subscribe, store],
   );
-  const sized = useMemo(
-    () => (result && effective?.success ? { input: effective.data, result } : null),
-    [result, effective],
-  );
-  const later = useDeferredValue(sized);
+  const serverErrors = saved && !saved.ok ? saved.fieldErrors : undefined;
+  // Units, settings, the baseline or a refused save's messages changed: the store follows.
+  const configured = useRef({ units, settings: props.sizingSettings, toInputs, serverErrors });
+  useLayoutEffect(() => {
+    const c = configured.current;
+    if (
+      c.units === units &&
+      c.settings === props.sizingSettings &&
+      c.toInputs === toInputs &&
+      c.serverErrors === serverErrors
+    )
+      return;
+    configured.current = { units, settings: props.sizingSettings, toInputs, serverErrors };
+    store.configure(configured.current, getValues() as Values);
+  }, [store, units, props.sizingSettings, toInputs, serverErrors, getValues]);
+
   const baselineJson = useMemo(
     () => stableJson(FuelSystemInputSchema.safeParse(baseline.inputs).data ?? baseline.inputs),
     [baseline.inputs],
   );
-  const dirty =
-    values.title !== baseline.title ||
-    values.status !== baseline.status ||
-    !parsed.success ||
-    stableJson(parsed.data) !== baselineJson;
-  const titleCheck = useMemo(
-    () => BuildCreateSchema.shape.title.safeParse(values.title ?? ""),
-    [values.title],
-  );
-  // Field messages in the person's units, named by the registry's labels.
-  const errors = useMemo(() => {
-    const out: Record<string, string> = parsed.success
-      ? {}
-      : issueMessages(parsed.error.issues, units);
-    // A value the build states that clashes with a shop setting (a caution level above the
-    // shop's danger level) shows where it was typed.
-    if (effective && !effective.success)
-      for (const [k, v] of Object.entries(issueMessages(effective.error.issues, units)))
-        out[k] ??= v;
-    if (!titleCheck.success) out.title = titleCheck.error.issues[0]!.message;
-    for (const [k, v] of Object.entries((saved && !saved.ok && saved.fieldErrors) || {}))
-      if (v[0]) out[k.replace(/^inputs\./, "")] ??= v[0];
-    return out;
-  }, [parsed, effective, titleCheck, saved, units]);
+  /** Whether the form differs from the last saved version, worked out now (for a save). */
+  const dirtyNow = () => {
+    const s = store.get();
+    return isDirty(s, baseline, baselineJson);
+  };
   const formRef = useRef<HTMLFormElement>(null);
   /** Moves the focus to the first highlighted field, in the order of the sheet. */
   const focusFirstInvalid = () =>
@@ -466,9 +473,6 @@ export function BuildEditor(props: {
     if (saved && !saved.ok && saved.fieldErrors && Object.keys(saved.fieldErrors).length)
       focusFirstInvalid();
   }, [saved]);
-
-  // Unsaved changes are not lost by leaving the page by accident (a reload or an in-app link).
-  useLeaveGuard(dirty && !props.readOnly);
 
   const switchUnits = (next: UnitSystem) => {
     if (next === units) return;
@@ -503,7 +507,10 @@ export function BuildEditor(props: {
       current.title,
       current.status,
     );
-    reset({ ...shown, include: current.include });
+    const toShownValues = { ...shown, include: current.include };
+    configured.current = { ...configured.current, units: next };
+    store.configure({ units: next }, toShownValues);
+    reset(toShownValues);
     setUnits(next);
     void setUnitsAction(initialActionState, { units: next });
   };
@@ -530,11 +537,13 @@ export function BuildEditor(props: {
 
   const save = () =>
     start(async () => {
-      if (!dirty) {
+      if (!dirtyNow()) {
         setSaved({ ok: true, message: `Nothing to save: no changes, still version ${version}` });
         return;
       }
       const v = getValues();
+      const { inputs } = store.get();
+      const parsed = FuelSystemInputSchema.safeParse(inputs);
       const res = await saveBuildAction(initialActionState, {
         id: props.buildId,
         version,
@@ -570,7 +579,7 @@ export function BuildEditor(props: {
         name={name}
         label={label ?? f.short ?? f.label}
         unit={entryUnitOf(f.quantity!, units)}
-        error={errors[name]}
+        store={store}
       />
     );
   };
@@ -579,11 +588,12 @@ export function BuildEditor(props: {
   const select = (name: string, given?: { label: string; options: [string, string][] }) => {
     const f = inputField(name);
     return (
-      <SelectField
+      <LiveSelectField
         key={name}
+        store={store}
+        field={name}
         label={given?.label ?? f?.short ?? f?.label ?? name}
         id={idOf(name)}
-        error={errors[name]}
         {...register(name as never)}
       >
         {(given?.options ?? Object.entries(f?.options ?? {})).map(([v, l]) => (
@@ -591,7 +601,7 @@ export function BuildEditor(props: {
             {l}
           </option>
         ))}
-      </SelectField>
+      </LiveSelectField>
     );
   };
   const toggle = (key: Optional, label: string) => (
@@ -604,36 +614,22 @@ export function BuildEditor(props: {
       {label}
     </label>
   );
-  const anPicker = (side: "feed" | "return") => {
-    const idMm = inputs.lines?.[side]?.insideDiameterMm;
-    const match = AN_SIZES.find(
-      (s) => idMm !== undefined && Math.abs(s.typicalHoseIdMm - idMm) < 0.05,
-    );
-    return (
-      <SelectField
-        label="Hose size"
-        id={`b-${side}-an`}
-        value={match ? String(match.dash) : ""}
-        onChange={(e) => {
-          const s = AN_SIZES.find((x) => String(x.dash) === e.target.value);
-          if (s)
-            setValue(
-              `lines.${side}.insideDiameterMm` as never,
-              toShown("diameter", s.typicalHoseIdMm, units) as never,
-              { shouldDirty: true },
-            );
-        }}
-      >
-        <option value="">Other (type the inside diameter)</option>
-        {AN_SIZES.map((s) => (
-          <option key={s.dash} value={s.dash}>
-            {formatValue("anDash", s.dash, units)} (typical hose ID{" "}
-            {formatValue("diameter", s.typicalHoseIdMm, units)})
-          </option>
-        ))}
-      </SelectField>
-    );
-  };
+  const anPicker = (side: "feed" | "return") => (
+    <AnPicker
+      side={side}
+      store={store}
+      units={units}
+      onPick={(mm) =>
+        setValue(
+          `lines.${side}.insideDiameterMm` as never,
+          toShown("diameter", mm, units) as never,
+          {
+            shouldDirty: true,
+          },
+        )
+      }
+    />
+  );
   const lineFields = (side: "feed" | "return") => [
     <div key={`${side}-an`} className="sm:col-span-2">
       {anPicker(side)}
@@ -642,8 +638,6 @@ export function BuildEditor(props: {
     num(`lines.${side}.lengthM`),
     num(`lines.${side}.fittingsK`),
   ];
-  const inc = values.include ?? NONE_INCLUDED;
-  const conflictChanges = conflict ? diffInputs(inputs, conflict.inputs, units) : [];
 
   const changes = resized ? [] : (props.settingsChanges ?? []);
   return (
@@ -700,7 +694,8 @@ export function BuildEditor(props: {
           noValidate
           onSubmit={(e) => {
             e.preventDefault();
-            if (parsed.success && effective?.success && titleCheck.success) save();
+            const live = store.get();
+            if (live.sized && live.titleOk) save();
             else {
               setSaved({ ok: false, message: "Check the highlighted fields" });
               focusFirstInvalid();
@@ -708,7 +703,7 @@ export function BuildEditor(props: {
           }}
         >
           {/* On a narrow screen the key figures stay pinned above the inputs as they scroll. */}
-          <PinnedSummary result={result} units={units} resultsId="results" />
+          <LivePinnedSummary store={store} units={units} />
           <fieldset
             disabled={props.readOnly}
             aria-describedby={
@@ -721,24 +716,13 @@ export function BuildEditor(props: {
                 <label htmlFor="b-title" className="block text-sm font-medium text-ink-700">
                   Title
                 </label>
-                <input
-                  id="b-title"
-                  aria-invalid={Boolean(errors.title)}
-                  aria-describedby={errors.title ? "b-title-err" : undefined}
-                  className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600"
-                  {...register("title")}
-                />
-                {errors.title ? (
-                  <p id="b-title-err" role="alert" className="mt-1 text-sm text-danger-700">
-                    ✕ {errors.title}
-                  </p>
-                ) : null}
+                <TitleInput store={store} {...register("title")} />
               </div>
               <StatusControl
                 register={register}
                 status={baseline.status}
                 facts={props.statusFacts}
-                error={errors.status}
+                store={store}
               />
             </div>
           </fieldset>
@@ -770,19 +754,7 @@ export function BuildEditor(props: {
               {select("target.driveType")}
               <div>
                 {num("target.drivetrainLossPct")}
-                {values.target?.drivetrainLossPct === undefined ||
-                String(values.target?.drivetrainLossPct) === "" ? (
-                  <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
-                    Blank: the shop&apos;s{" "}
-                    {formatValue(
-                      "percent",
-                      props.sizingSettings.drivetrainLossPct[driveTypeOf(values)],
-                      units,
-                      0,
-                    )}{" "}
-                    for this drive.
-                  </p>
-                ) : null}
+                <LossFromShop control={control} settings={props.sizingSettings} units={units} />
               </div>
             </Section>
             <Section title="Fuel and blend range">
@@ -792,13 +764,9 @@ export function BuildEditor(props: {
               {num("fuel.bsfcEthanolVolPct")}
               {num("fuel.targetLambda")}
               <ShopBsfcOffer
-                row={shopBsfcFor(
-                  props.shopBsfc ?? [],
-                  Number(inputs.fuel?.ethanolMaxVolPct),
-                  inputs.engine?.aspiration ?? "na",
-                )}
+                store={store}
+                shopBsfc={props.shopBsfc ?? []}
                 units={units}
-                current={inputs.fuel?.bsfcGPerKwh}
                 onUse={(g, ethanolVolPct) => {
                   setValue("fuel.bsfcGPerKwh" as never, toShown("bsfc", g, units) as never, {
                     shouldDirty: true,
@@ -823,18 +791,23 @@ export function BuildEditor(props: {
               {num("injectors.ratedPressureKpa")}
               {num("injectors.minPulseWidthMs")}
               {num("injectors.ratingFluidDensityKgPerL")}
-              {inc.deadTime ? (
+              <Included control={control} part="deadTime">
                 <div className="sm:col-span-2">
-                  <DeadTimeGrid
-                    control={control as never}
-                    register={register as never}
-                    setValue={setValue as never}
-                    pressureUnit={unitOf("pressure", units)}
-                    errors={errors}
-                    toNumber={toNumber}
+                  <LiveErrors
+                    store={store}
+                    render={(errors) => (
+                      <DeadTimeGrid
+                        control={control as never}
+                        register={register as never}
+                        setValue={setValue as never}
+                        pressureUnit={unitOf("pressure", units)}
+                        errors={errors}
+                        toNumber={toNumber}
+                      />
+                    )}
                   />
                 </div>
-              ) : null}
+              </Included>
             </Section>
             <Section
               title="Regulator"
@@ -846,17 +819,24 @@ export function BuildEditor(props: {
             >
               {select("regulator.type")}
               {num("regulator.basePressureKpa")}
-              {values.regulator?.type !== "fixed" ? num("regulator.risingRateRatio") : null}
-              {inc.bypass
-                ? [num("regulator.bypass.flowLPerH"), num("regulator.bypass.atPressureKpa")]
-                : null}
+              <NotFixed control={control}>{num("regulator.risingRateRatio")}</NotFixed>
+              <Included control={control} part="bypass">
+                {num("regulator.bypass.flowLPerH")}
+                {num("regulator.bypass.atPressureKpa")}
+              </Included>
             </Section>
             <Section title="Pump">
               {num("pumps.0.quantity")}
-              <PumpCurves pump={0} control={control as never} num={num} errors={errors} />
+              <LiveErrors
+                store={store}
+                render={(errors) => (
+                  <PumpCurves pump={0} control={control as never} num={num} errors={errors} />
+                )}
+              />
             </Section>
             <Section
               title="Second pump"
+              when={{ control, part: "pump2" }}
               toggle={
                 <div className="mb-1">
                   {toggle(
@@ -866,19 +846,14 @@ export function BuildEditor(props: {
                 </div>
               }
             >
-              {inc.pump2
-                ? [
-                    num("pumps.1.quantity"),
-                    num("pumps.1.switchOnBoostKpa"),
-                    <PumpCurves
-                      key="pump2-curves"
-                      pump={1}
-                      control={control as never}
-                      num={num}
-                      errors={errors}
-                    />,
-                  ]
-                : null}
+              {num("pumps.1.quantity")}
+              {num("pumps.1.switchOnBoostKpa")}
+              <LiveErrors
+                store={store}
+                render={(errors) => (
+                  <PumpCurves pump={1} control={control as never} num={num} errors={errors} />
+                )}
+              />
             </Section>
             <Section
               title="Electrical"
@@ -890,37 +865,42 @@ export function BuildEditor(props: {
             >
               {num("electrical.voltageAtPump")}
               {num("electrical.injectorVoltage")}
-              {inc.wiring
-                ? [
-                    num("electrical.wiring.sourceVoltage"),
-                    num("electrical.wiring.gaugeAwg"),
-                    num("electrical.wiring.roundTripLengthM"),
-                    num("electrical.wiring.currentA"),
-                  ]
-                : null}
+              <Included control={control} part="wiring">
+                {num("electrical.wiring.sourceVoltage")}
+                {num("electrical.wiring.gaugeAwg")}
+                {num("electrical.wiring.roundTripLengthM")}
+                {num("electrical.wiring.currentA")}
+              </Included>
             </Section>
             <Section title="Filters">
               {num("filters.prePumpDropKpa")}
               {num("filters.postPumpDropKpa")}
             </Section>
-            <Section title="Feed line" toggle={toggle("feed", "Size the feed line (tank to rail)")}>
-              {inc.feed ? lineFields("feed") : null}
+            <Section
+              title="Feed line"
+              when={{ control, part: "feed" }}
+              toggle={toggle("feed", "Size the feed line (tank to rail)")}
+            >
+              {lineFields("feed")}
             </Section>
             <Section
               title="Return line"
+              when={{ control, part: "return" }}
               toggle={toggle("return", "Size the return line (regulator to tank)")}
             >
-              {inc.return ? lineFields("return") : null}
+              {lineFields("return")}
             </Section>
             {!props.readOnly ? (
               <div className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3">
                 <Button type="submit" disabled={pending}>
                   {pending ? "Saving…" : "Save build"}
                 </Button>
-                <span className="figure text-sm text-ink-600">
-                  version {version}
-                  {dirty ? " · unsaved changes" : ""}
-                </span>
+                <VersionNote
+                  store={store}
+                  version={version}
+                  baseline={baseline}
+                  baselineJson={baselineJson}
+                />
                 <FormStatus ok={saved?.ok} message={saved?.message} />
                 {conflict ? (
                   <div className="w-full text-sm text-caution-700" data-testid="conflict">
@@ -930,26 +910,7 @@ export function BuildEditor(props: {
                       are still here; nothing was overwritten. Reload to take theirs, then re-apply
                       yours.
                     </p>
-                    {conflictChanges.length > 0 ? (
-                      <table className="mt-2 w-full text-left text-ink-800">
-                        <thead>
-                          <tr>
-                            <th scope="col">Field</th>
-                            <th scope="col">Yours</th>
-                            <th scope="col">Theirs (saved)</th>
-                          </tr>
-                        </thead>
-                        <tbody>
-                          {conflictChanges.map((c) => (
-                            <tr key={c.path}>
-                              <td>{c.label}</td>
-                              <td className="figure">{c.before}</td>
-                              <td className="figure">{c.after}</td>
-                            </tr>
-                          ))}
-                        </tbody>
-                      </table>
-                    ) : null}
+                    <ConflictChanges store={store} theirs={conflict.inputs} units={units} />
                   </div>
                 ) : null}
               </div>
@@ -958,26 +919,260 @@ export function BuildEditor(props: {
         </form>
       </LockedLabel.Provider>
       <div id="results" className="min-w-0 scroll-mt-4">
-        <FiguresAnnouncer result={result} units={units} />
-        <ResultsPanel result={result} units={units} />
-        {later ? <LaterFigures input={later.input} result={later.result} units={units} /> : null}
+        <LiveResults store={store} units={units} />
       </div>
     </div>
   );
 }
 
+/** Whether the form differs from the last saved version (title, status or what the inputs parse to). */
+function isDirty(
+  s: Pick<LiveState, "title" | "status" | "inputs">,
+  baseline: { title: string; status: BuildStatus },
+  baselineJson: string,
+) {
+  if (s.title !== baseline.title || s.status !== baseline.status) return true;
+  const parsed = FuelSystemInputSchema.safeParse(s.inputs);
+  return !parsed.success || stableJson(parsed.data) !== baselineJson;
+}
+
+/**
+ * "version 3 · unsaved changes", and the guard that keeps unsaved changes from being lost by
+ * leaving the page by accident (a reload or an in-app link). Worked out from a deferred value:
+ * the parse it takes runs after the keystroke's figures are on screen.
+ */
+function VersionNote({
+  store,
+  version,
+  baseline,
+  baselineJson,
+}: {
+  store: LiveSizing<Values>;
+  version: number;
+  baseline: { title: string; status: BuildStatus };
+  baselineJson: string;
+}) {
+  const title = useLive(store, (s) => s.title);
+  const status = useLive(store, (s) => s.status);
+  const inputs = useDeferredValue(useLive(store, (s) => s.inputs));
+  const inputsChanged = useMemo(
+    () =>
+      isDirty({ title: baseline.title, status: baseline.status, inputs }, baseline, baselineJson),
+    [inputs, baseline, baselineJson],
+  );
+  const dirty = title !== baseline.title || status !== baseline.status || inputsChanged;
+  useLeaveGuard(dirty);
+  return (
+    <span className="figure text-sm text-ink-600">
+      version {version}
+      {dirty ? " · unsaved changes" : ""}
+    </span>
+  );
+}
+
+/** The results beside the inputs: the key figures on the keystroke, the rest a beat behind. */
+function LiveResults({ store, units }: { store: LiveSizing<Values>; units: UnitSystem }) {
+  const result = useLive(store, (s) => s.result);
+  const sized = useLive(store, (s) => s.sized);
+  const later = useDeferredValue(sized);
+  return (
+    <>
+      <FiguresAnnouncer result={result} units={units} />
+      <ResultsPanel result={result} units={units} workingFrom={later?.result ?? null} />
+      {later ? <LaterFigures input={later.input} result={later.result} units={units} /> : null}
+    </>
+  );
+}
+
+function LivePinnedSummary({ store, units }: { store: LiveSizing<Values>; units: UnitSystem }) {
+  const result = useLive(store, (s) => s.result);
+  return <PinnedSummary result={result} units={units} resultsId="results" />;
+}
+
+function TitleInput({
+  store,
+  ...input
+}: { store: LiveSizing<Values> } & React.InputHTMLAttributes<HTMLInputElement> & {
+    ref?: React.Ref<HTMLInputElement>;
+  }) {
+  const error = useLive(store, (s) => s.errors.title);
+  return (
+    <>
+      <input
+        id="b-title"
+        aria-invalid={Boolean(error)}
+        aria-describedby={error ? "b-title-err" : undefined}
+        className="mt-1 block w-full rounded-md border border-ink-300 bg-white px-3 py-2 font-display text-xl font-semibold aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger-600"
+        {...input}
+      />
+      {error ? (
+        <p id="b-title-err" role="alert" className="mt-1 text-sm text-danger-700">
+          ✕ {error}
+        </p>
+      ) : null}
+    </>
+  );
+}
+
+function LiveSelectField({
+  store,
+  field,
+  ...props
+}: {
+  store: LiveSizing<Values>;
+  /** The field's path, whose message it shows. */
+  field: string;
+  label: string;
+  id: string;
+  children: React.ReactNode;
+} & SelectHTMLAttributes<HTMLSelectElement> & { ref?: React.Ref<HTMLSelectElement> }) {
+  const error = useLive(store, (s) => s.errors[field]);
+  return <SelectField error={error} {...props} />;
+}
+
+/** The form's messages by path, for the grids that mark many cells (dead time, pump curves). */
+function LiveErrors({
+  store,
+  render,
+}: {
+  store: LiveSizing<Values>;
+  render: (errors: Record<string, string>) => React.ReactNode;
+}) {
+  return <>{render(useLive(store, (s) => s.errors))}</>;
+}
+
+/** Its fields while an optional part of the build is switched on. */
+function Included({
+  control,
+  part,
+  children,
+}: {
+  control: Control<Values>;
+  part: Optional;
+  children: React.ReactNode;
+}) {
+  const on = useWatch({ control, name: `include.${part}` });
+  return on ? <>{children}</> : null;
+}
+
+/** Fields that mean something only with a boost-referenced regulator. */
+function NotFixed({ control, children }: { control: Control<Values>; children: React.ReactNode }) {
+  const type = useWatch({ control, name: "regulator.type" });
+  return type !== "fixed" ? <>{children}</> : null;
+}
+
+/** Under a blank drivetrain loss: the shop's figure for the drive type chosen. */
+function LossFromShop({
+  control,
+  settings,
+  units,
+}: {
+  control: Control<Values>;
+  settings: SizingSettings;
+  units: UnitSystem;
+}) {
+  const [loss, drive] = useWatch({
+    control,
+    name: ["target.drivetrainLossPct", "target.driveType"],
+  });
+  if (loss !== undefined && String(loss) !== "") return null;
+  return (
+    <p className="mt-1 text-sm text-ink-600" data-testid="loss-from-shop">
+      Blank: the shop&apos;s{" "}
+      {formatValue("percent", settings.drivetrainLossPct[drive ?? DEFAULT_DRIVE_TYPE], units, 0)}{" "}
+      for this drive.
+    </p>
+  );
+}
+
+/** The hose size picker of a line: picks the typical inside diameter of an AN size. */
+function AnPicker({
+  side,
+  store,
+  units,
+  onPick,
+}: {
+  side: "feed" | "return";
+  store: LiveSizing<Values>;
+  units: UnitSystem;
+  onPick: (insideDiameterMm: number) => void;
+}) {
+  const idMm = useLive(store, (s) => s.inputs.lines?.[side]?.insideDiameterMm);
+  const match = AN_SIZES.find(
+    (s) => idMm !== undefined && Math.abs(s.typicalHoseIdMm - idMm) < 0.05,
+  );
+  return (
+    <SelectField
+      label="Hose size"
+      id={`b-${side}-an`}
+      value={match ? String(match.dash) : ""}
+      onChange={(e) => {
+        const s = AN_SIZES.find((x) => String(x.dash) === e.target.value);
+        if (s) onPick(s.typicalHoseIdMm);
+      }}
+    >
+      <option value="">Other (type the inside diameter)</option>
+      {AN_SIZES.map((s) => (
+        <option key={s.dash} value={s.dash}>
+          {formatValue("anDash", s.dash, units)} (typical hose ID{" "}
+          {formatValue("diameter", s.typicalHoseIdMm, units)})
+        </option>
+      ))}
+    </SelectField>
+  );
+}
+
+/** On a stale save: yours beside theirs, field by field. */
+function ConflictChanges({
+  store,
+  theirs,
+  units,
+}: {
+  store: LiveSizing<Values>;
+  theirs: FuelSystemInput;
+  units: UnitSystem;
+}) {
+  const inputs = useLive(store, (s) => s.inputs);
+  const changes = diffInputs(inputs, theirs, units);
+  if (changes.length === 0) return null;
+  return (
+    <table className="mt-2 w-full text-left text-ink-800">
+      <thead>
+        <tr>
+          <th scope="col">Field</th>
+          <th scope="col">Yours</th>
+          <th scope="col">Theirs (saved)</th>
+        </tr>
+      </thead>
+      <tbody>
+        {changes.map((c) => (
+          <tr key={c.path}>
+            <td>{c.label}</td>
+            <td className="figure">{c.before}</td>
+            <td className="figure">{c.after}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 /** "Use this shop's measured BSFC (n builds)": the shop's own figure beside the rule of thumb. */
 function ShopBsfcOffer({
-  row,
+  store,
+  shopBsfc,
   units,
-  current,
   onUse,
 }: {
-  row: ShopBsfcRow | null;
+  store: LiveSizing<Values>;
+  shopBsfc: ShopBsfcRow[];
   units: UnitSystem;
-  current?: number;
   onUse: (gPerKwh: number, ethanolVolPct: number) => void;
 }) {
+  const ethanolMax = useLive(store, (s) => s.inputs.fuel?.ethanolMaxVolPct);
+  const aspiration = useLive(store, (s) => s.inputs.engine?.aspiration);
+  const current = useLive(store, (s) => s.inputs.fuel?.bsfcGPerKwh);
+  const row = shopBsfcFor(shopBsfc, Number(ethanolMax), aspiration ?? "na");
   const fmt = (g: number) => formatValue("bsfc", g, units, units === "metric" ? 0 : 2);
   if (!row) {
     return (

@@ -1,15 +1,8 @@
-import {
-  CEILING_SEVERITY_LABELS,
-  DUTY_BAND_LABELS,
-  formatNumber,
-  formatValue,
-  formatWarning,
-  resultField,
-  SEVERITY_LABELS,
-  unitOf,
-  type FuelSystemResult,
-  type UnitSystem,
-} from "@/lib/calc";
+import type { FuelSystemResult, UnitSystem } from "@/lib/calc";
+import { CEILING_SEVERITY_LABELS, DUTY_BAND_LABELS } from "@/lib/calc/code-labels";
+import { formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
+import { formatNumber, formatValue, unitOf } from "@/lib/calc/quantities";
+import { resultField } from "@/lib/calc/registry";
 
 export type Level = "ok" | "info" | "caution" | "danger";
 

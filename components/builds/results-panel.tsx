@@ -1,22 +1,18 @@
 "use client";
 
+import { memo } from "react";
+
 import { Signal } from "@/components/ui/status";
+import type { FuelSystemResult, UnitSystem } from "@/lib/calc";
 import {
-  AN_SIZES,
   CEILING_SEVERITY_LABELS,
   DUTY_BAND_LABELS,
-  formatNumber,
-  formatResult,
-  formatTraceStep,
-  formatValue,
-  formatWarning,
   LIMITED_BY_LABELS,
-  resultField,
-  SEVERITY_LABELS,
-  unitOf,
-  type FuelSystemResult,
-  type UnitSystem,
-} from "@/lib/calc";
+} from "@/lib/calc/code-labels";
+import { AN_SIZES } from "@/lib/calc/lines";
+import { formatTraceStep, formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
+import { formatNumber, formatValue, unitOf } from "@/lib/calc/quantities";
+import { formatResult, resultField } from "@/lib/calc/registry";
 
 function Figure({
   label,
@@ -49,14 +45,51 @@ function split(path: string, value: number, units: UnitSystem, decimals?: number
   };
 }
 
+/** The working steps, folded away; re-rendered only when the result they list changes. */
+const Working = memo(function Working({
+  result,
+  units,
+}: {
+  result: FuelSystemResult;
+  units: UnitSystem;
+}) {
+  return (
+    <details className="rounded-lg border border-ink-200 bg-white p-5">
+      <summary className="cursor-pointer font-semibold">How these numbers were worked out</summary>
+      <ol className="mt-3 space-y-3 text-sm" data-testid="working">
+        {result.trace.map((raw) => {
+          const s = formatTraceStep(raw, units);
+          return (
+            <li key={s.id}>
+              <p className="font-medium">
+                {s.label} = <span className="figure">{s.value}</span>
+              </p>
+              <p className="text-ink-600">
+                {s.formula}: {s.inputs.join(", ")}
+              </p>
+            </li>
+          );
+        })}
+      </ol>
+    </details>
+  );
+});
+
 export function ResultsPanel({
   result,
   error,
   units = "metric",
+  workingFrom,
 }: {
   result: FuelSystemResult | null;
   error?: string;
   units?: UnitSystem;
+  /**
+   * The result whose working steps to list (folded away under "How these numbers were worked
+   * out"): the editor passes a deferred one, so a keystroke does not format every step again.
+   * Left out: `result`'s.
+   */
+  workingFrom?: FuelSystemResult | null;
 }) {
   if (!result) {
     return (
@@ -223,26 +256,7 @@ export function ResultsPanel({
           })}
         </ul>
       </section>
-      <details className="rounded-lg border border-ink-200 bg-white p-5">
-        <summary className="cursor-pointer font-semibold">
-          How these numbers were worked out
-        </summary>
-        <ol className="mt-3 space-y-3 text-sm" data-testid="working">
-          {r.trace.map((raw) => {
-            const s = formatTraceStep(raw, units);
-            return (
-              <li key={s.id}>
-                <p className="font-medium">
-                  {s.label} = <span className="figure">{s.value}</span>
-                </p>
-                <p className="text-ink-600">
-                  {s.formula}: {s.inputs.join(", ")}
-                </p>
-              </li>
-            );
-          })}
-        </ol>
-      </details>
+      <Working result={workingFrom === undefined ? r : (workingFrom ?? r)} units={units} />
     </div>
   );
 }

@@ -1,11 +1,6 @@
-import {
-  BSFC_SOURCE_LABELS,
-  DRIVE_TYPE_LABELS,
-  formatValue,
-  type FuelSystemResult,
-  type ParsedFuelSystemInput,
-  type UnitSystem,
-} from "@/lib/calc";
+import type { FuelSystemResult, ParsedFuelSystemInput, UnitSystem } from "@/lib/calc";
+import { BSFC_SOURCE_LABELS, DRIVE_TYPE_LABELS } from "@/lib/calc/code-labels";
+import { formatValue } from "@/lib/calc/quantities";
 
 /**
  * The settings behind the figures beside it: limits, drivetrain loss and fuel properties as the

@@ -1,41 +1,27 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
-import {
-  CartesianGrid,
-  Legend,
-  Line,
-  LineChart,
-  ResponsiveContainer,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from "recharts";
 import useSWR from "swr";
 
-import { axisTick } from "@/components/charts/axis-ticks";
 import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import {
-  formatValue,
-  formatWarning,
-  SEVERITY_LABELS,
-  toShown,
-  unitOf,
-  type UnitSystem,
-  type Warning,
-} from "@/lib/calc";
+import type { UnitSystem, Warning } from "@/lib/calc";
+import { formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
+import { formatValue, toShown, unitOf } from "@/lib/calc/quantities";
 import { analyseDatalogAction, verifyDatalogAction } from "@/lib/dyno/dyno-actions";
 import { fetcher } from "@/lib/fetcher";
 
-import { axisLabel, tooltipValue } from "./tune-chart";
-
-const COPPER = "#b3592c";
-const INK = "#44505c";
-const TEAL = "#1f7a5a";
+// The pull's chart: the charting library loads when an analysis has a chart to show.
+const PullChart = dynamic(() => import("./pull-chart").then((m) => m.PullChart), {
+  ssr: false,
+  loading: () => (
+    <div className="h-72 rounded-lg border border-dashed border-ink-200 bg-white" aria-hidden />
+  ),
+});
 
 export interface LogItem {
   id: string;
@@ -69,7 +55,7 @@ interface Analysis {
   targetLambda: number;
   predictedPeakDutyPct: number;
 }
-interface Point {
+export interface Point {
   rpm: number;
   dutyMeasured: number | null;
   dutyPredicted: number | null;
@@ -532,119 +518,5 @@ function Figure({ label, value }: { label: string; value: string }) {
       <p className="text-sm text-ink-600">{label}</p>
       <p className="figure font-semibold">{value}</p>
     </div>
-  );
-}
-
-function PullChart({ points, units }: { points: Point[]; units: UnitSystem }) {
-  const shown = points.map((p) => ({
-    ...p,
-    fuelDiff: p.fuelDiffKpa === null ? null : toShown("pressure", p.fuelDiffKpa, units),
-  }));
-  return (
-    <figure className="rounded-lg border border-ink-200 bg-white p-4" data-testid="pull-chart">
-      <figcaption className="mb-2 font-semibold">
-        The pull: duty measured and predicted, lambda and its target, fuel-pressure differential
-      </figcaption>
-      <div className="h-72" role="img" aria-label="Chart of the pull against engine speed">
-        <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={shown} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
-            <CartesianGrid stroke="#e6eaee" />
-            <XAxis
-              dataKey="rpm"
-              type="number"
-              domain={["dataMin", "dataMax"]}
-              tickFormatter={axisTick("rpm")}
-              tick={{ fontSize: 11 }}
-            />
-            <YAxis
-              yAxisId="duty"
-              tick={{ fontSize: 11 }}
-              width={48}
-              label={{ value: "duty (%)", angle: -90, position: "insideLeft", fontSize: 11 }}
-            />
-            <YAxis
-              yAxisId="lambda"
-              orientation="right"
-              domain={[0.6, 1.1]}
-              tick={{ fontSize: 11 }}
-              width={44}
-              label={{ value: "lambda (λ)", angle: 90, position: "insideRight", fontSize: 11 }}
-            />
-            {/* Fuel ΔP on an axis of its own, in the reader's pressure unit (never the duty axis). */}
-            <YAxis
-              yAxisId="kpa"
-              orientation="right"
-              domain={[0, "dataMax"]}
-              tick={{ fontSize: 11 }}
-              width={52}
-              label={{
-                value: axisLabel({ label: "fuel ΔP", quantity: "pressure" }, units),
-                angle: 90,
-                position: "insideRight",
-                fontSize: 11,
-              }}
-            />
-            <Tooltip
-              labelFormatter={(rpm) => formatValue("speed", Number(rpm), units)}
-              formatter={(value, name, item) => [
-                tooltipValue(
-                  value,
-                  String(item.dataKey) === "fuelDiff"
-                    ? "pressure"
-                    : String(item.dataKey).startsWith("lambda")
-                      ? "lambda"
-                      : "percent",
-                  units,
-                ),
-                name,
-              ]}
-            />
-            <Legend />
-            <Line
-              yAxisId="duty"
-              dataKey="dutyMeasured"
-              name="duty measured"
-              stroke={COPPER}
-              dot={false}
-              isAnimationActive={false}
-            />
-            <Line
-              yAxisId="duty"
-              dataKey="dutyPredicted"
-              name="duty predicted"
-              stroke={COPPER}
-              strokeDasharray="5 3"
-              dot={false}
-              isAnimationActive={false}
-            />
-            <Line
-              yAxisId="lambda"
-              dataKey="lambda"
-              name="lambda"
-              stroke={INK}
-              dot={false}
-              isAnimationActive={false}
-            />
-            <Line
-              yAxisId="lambda"
-              dataKey="lambdaTarget"
-              name="lambda target"
-              stroke={INK}
-              strokeDasharray="2 2"
-              dot={false}
-              isAnimationActive={false}
-            />
-            <Line
-              yAxisId="kpa"
-              dataKey="fuelDiff"
-              name={`fuel ΔP (${unitOf("pressure", units)})`}
-              stroke={TEAL}
-              dot={false}
-              isAnimationActive={false}
-            />
-          </LineChart>
-        </ResponsiveContainer>
-      </div>
-    </figure>
   );
 }

@@ -6,8 +6,8 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { FormStatus } from "@/components/ui/status";
 import { api } from "@/lib/api-client";
+import { CSV_COLUMNS } from "@/lib/catalog/flat-part";
 import { formatMoney } from "@/lib/catalog/money";
-import { CSV_COLUMNS } from "@/lib/validations/parts";
 
 interface PreviewRow {
   line: number;

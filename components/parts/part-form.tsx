@@ -9,6 +9,7 @@ import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import type { UnitSystem } from "@/lib/calc/units";
+import { CSV_COLUMNS, flatOf, type FlatPart } from "@/lib/catalog/flat-part";
 import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 import { createPartAction, deletePartAction, updatePartAction } from "@/lib/parts/part-actions";
 import {
@@ -18,7 +19,6 @@ import {
   partShown,
   partUnit,
 } from "@/lib/parts/part-units";
-import { CSV_COLUMNS, flatOf, type FlatPart } from "@/lib/validations/parts";
 
 type StoredPart = Parameters<typeof flatOf>[0] & { version: number };
 

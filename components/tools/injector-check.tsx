@@ -4,15 +4,9 @@ import { useState } from "react";
 
 import { SelectField } from "@/components/ui/field";
 import { Signal } from "@/components/ui/status";
-import {
-  converter,
-  DRIVE_TYPES,
-  formatValue,
-  fromShown,
-  shownText,
-  type Quantity,
-  type UnitSystem,
-} from "@/lib/calc";
+import type { Quantity, UnitSystem } from "@/lib/calc";
+import { DRIVE_TYPES } from "@/lib/calc/input-codes";
+import { converter, formatValue, fromShown, shownText } from "@/lib/calc/quantities";
 import { DRIVE_TYPE_LABELS } from "@/lib/calc/registry";
 import type { DriveType, SizingSettings } from "@/lib/sizing/effective-inputs";
 import { quickInjectorCheck } from "@/lib/sizing/quick-check";

@@ -1,5 +1,5 @@
 // Reference: docs/calculations.md §9.
-import type { ASPIRATIONS, REGULATOR_TYPES } from "./schema";
+import type { ASPIRATIONS, REGULATOR_TYPES } from "./input-codes";
 
 /**
  * The labels of the sizing's codes, apart from the registry so that a page which only names a

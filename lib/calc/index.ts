@@ -121,6 +121,8 @@ export type { TraceStep, Warning, Severity } from "./types";
 export * from "./quantities";
 export * from "./registry";
 export * from "./messages";
+export * from "./issue-messages";
+export * from "./input-bounds";
 export { parseDatalog, datalogDelimiter, DatalogError, DATALOG_MAX_COLUMNS } from "./datalog";
 export type { Datalog } from "./datalog";
 export { analyzePull, sampleDutyPct, flowFromDuty } from "./dyno";

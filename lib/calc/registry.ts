@@ -1,5 +1,4 @@
 // Reference: docs/calculations.md §9.
-import { z } from "zod";
 
 import {
   ASPIRATION_LABELS,
@@ -13,6 +12,7 @@ import {
   MEASURED_AT_LABELS,
   REGULATOR_LABELS,
 } from "./code-labels";
+import { ASPIRATIONS, REGULATOR_TYPES } from "./input-codes";
 import {
   converter,
   formatValue,
@@ -21,7 +21,6 @@ import {
   toShown,
   type Quantity,
 } from "./quantities";
-import { ASPIRATIONS, FuelSystemInputSchema, REGULATOR_TYPES } from "./schema";
 import type { UnitSystem } from "./units";
 
 export {
@@ -576,36 +575,6 @@ export const formatInput = (path: string, value: unknown, system: UnitSystem): s
 /** A result figure as a person reads it, in their unit system. */
 export const formatResult = (path: string, value: unknown, system: UnitSystem): string =>
   formatField(resultField(path), value, system);
-
-interface Bounds {
-  min?: number;
-  max?: number;
-}
-let boundsCache: Map<string, Bounds> | null = null;
-
-/** The lowest and highest value the schema allows at an input path, from its JSON Schema. */
-export function inputBounds(path: string): Bounds | undefined {
-  if (!boundsCache) {
-    boundsCache = new Map();
-    const walk = (node: unknown, p: string) => {
-      if (!node || typeof node !== "object") return;
-      const n = node as Record<string, unknown>;
-      if (n.type === "number" || n.type === "integer") {
-        boundsCache!.set(p, {
-          min: typeof n.minimum === "number" ? n.minimum : undefined,
-          max: typeof n.maximum === "number" ? n.maximum : undefined,
-        });
-      }
-      if (n.properties && typeof n.properties === "object")
-        for (const [k, v] of Object.entries(n.properties)) walk(v, p ? `${p}.${k}` : k);
-      if (n.items) walk(n.items, p ? `${p}.*` : "*");
-      for (const key of ["anyOf", "oneOf", "allOf"] as const)
-        if (Array.isArray(n[key])) for (const v of n[key] as unknown[]) walk(v, p);
-    };
-    walk(z.toJSONSchema(FuelSystemInputSchema, { io: "input", unrepresentable: "any" }), "");
-  }
-  return boundsCache.get(path.replace(/(^|\.)\d+(?=\.|$)/g, "$1*"));
-}
 
 /**
  * Converts every number of an inputs object between canonical and shown units (a deep copy).

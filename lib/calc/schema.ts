@@ -1,6 +1,8 @@
 // Reference: docs/calculations.md §8 (defaults: §3.5, §3.7).
 import { z } from "zod";
 
+import { ASPIRATIONS, DRIVE_TYPES, REGULATOR_TYPES } from "./input-codes";
+
 /**
  * The one set of input schemas for the sizing: forms, server actions and the JSON API all use
  * these. Units are canonical: kW, kPa gauge, cc/min, L/h, g/kWh, V, mm, m.
@@ -25,10 +27,7 @@ const num = (label: string, min: number, max: number, unit = "") => {
 const int = (label: string, min: number, max: number) =>
   num(label, min, max).int(`${label} must be a whole number`);
 
-export const ASPIRATIONS = ["na", "turbo", "supercharged"] as const;
-/** How the power reaches the wheels; a shop keeps a drivetrain loss for each. */
-export const DRIVE_TYPES = ["manual", "automatic", "awd"] as const;
-export const REGULATOR_TYPES = ["boost-referenced", "fixed"] as const;
+export { ASPIRATIONS, DRIVE_TYPES, REGULATOR_TYPES };
 
 export const EngineSchema = z
   .object(

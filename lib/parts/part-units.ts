@@ -8,7 +8,7 @@ import {
   type Quantity,
 } from "@/lib/calc/quantities";
 import type { UnitSystem } from "@/lib/calc/units";
-import type { FlatPart } from "@/lib/validations/parts";
+import type { FlatPart } from "@/lib/catalog/flat-part";
 
 /**
  * The part form in the viewer's units. A part's columns are canonical (kPa, cc/min, L/h, mm,

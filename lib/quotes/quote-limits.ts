@@ -4,7 +4,7 @@ import {
   QUOTE_LINE_PRICE_MAX_MINOR,
   QUOTE_LINE_QTY_MAX_MILLI,
   QUOTE_SUBTOTAL_MAX_MINOR,
-} from "@/lib/validations/column-bounds";
+} from "@/lib/validations/column-limits";
 
 /**
  * What one quote holds, said the way a person reads it: the limits of a line's quantity and

@@ -1,13 +1,30 @@
 import { z } from "zod";
 
-import { type Part } from "@/db/schema/catalog";
 import { DeadTimeTableSchema, PumpCurvesSchema, REGULATOR_TYPES } from "@/lib/calc";
+import {
+  CSV_COLUMNS,
+  formatDeadTime,
+  formatPumpCurve,
+  parseDeadTime,
+  parsePumpCurve,
+  type FlatPart,
+} from "@/lib/catalog/flat-part";
 import { minorToPlain, parseMoney } from "@/lib/catalog/money";
 import type { FieldIssue } from "@/lib/domain/errors";
 import { PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 
 import { calendarDate, editVersion, INT4_MAX } from "./column-bounds";
 import { searchText } from "./search";
+
+export {
+  CSV_COLUMNS,
+  flatOf,
+  formatDeadTime,
+  formatPumpCurve,
+  parseDeadTime,
+  parsePumpCurve,
+  type FlatPart,
+} from "@/lib/catalog/flat-part";
 
 /** The specification each category carries (canonical units, as lib/calc uses them). */
 export const SPEC_SCHEMAS = {
@@ -56,43 +73,6 @@ export const SPEC_SCHEMAS = {
   other: z.object({}),
 } satisfies Record<PartCategory, z.ZodType>;
 
-/**
- * A part as one flat row: the columns of the catalog CSV and the fields of the part form.
- * Everything arrives as text; blanks are "not given".
- */
-export const CSV_COLUMNS = [
-  "sku",
-  "category",
-  "brand",
-  "name",
-  "price",
-  "cost",
-  "stock",
-  "reorder_level",
-  "lead_time_days",
-  "restock_on",
-  "flow_cc_min",
-  "rated_kpa",
-  "min_pulse_ms",
-  "impedance",
-  "connector",
-  "ethanol_ok",
-  "dead_time_ms",
-  "pump_curve",
-  "current_a",
-  "mounting",
-  "regulator_type",
-  "min_kpa",
-  "max_kpa",
-  "an_dash",
-  "inside_mm",
-  "material",
-  "micron",
-  "drop_kpa",
-  "test_fluid_kg_l",
-] as const;
-export type FlatPart = Partial<Record<(typeof CSV_COLUMNS)[number], string>>;
-
 const blank = (v: string | undefined) => v === undefined || v.trim() === "";
 const intText = (label: string) =>
   z
@@ -100,77 +80,6 @@ const intText = (label: string) =>
     .trim()
     .regex(/^\d{1,7}$/, `${label} must be a whole number of 0 or more`)
     .transform(Number);
-
-/** A number written in a table cell; anything else (a blank included) is NaN, which the schema refuses. */
-const cellNumber = (t: string | undefined) =>
-  t !== undefined && /^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*$/.test(t) ? Number(t) : NaN;
-
-/** "13.5V 300:340 500:290 | 12V 300:300" → pump curves (pressure kPa : flow L/h at each voltage). */
-export function parsePumpCurve(text: string) {
-  return text.split("|").map((seg) => {
-    const m = /^\s*(\d+(?:\.\d+)?)\s*V\s+(.+)$/i.exec(seg);
-    if (!m) return { voltage: NaN, points: [] };
-    const points = m[2]!
-      .trim()
-      .split(/\s+/)
-      .map((p) => {
-        const [pk, fl, extra] = p.split(":");
-        return extra === undefined
-          ? { pressureKpa: cellNumber(pk), flowLPerH: cellNumber(fl) }
-          : { pressureKpa: NaN, flowLPerH: NaN };
-      });
-    return { voltage: Number(m[1]), points };
-  });
-}
-/**
- * "12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72" → an injector's dead-time table: one segment
- * per voltage (rising), each with `pressure kPa : dead time ms` at the same pressures (rising).
- * A cell that does not have that shape gives a table the schema refuses (with the hint below).
- */
-export function parseDeadTime(text: string) {
-  const rows = text.split("|").map((seg) => {
-    const m = /^\s*(\d+(?:\.\d+)?)\s*V\s+(.+)$/i.exec(seg);
-    if (!m) return null;
-    const points = m[2]!
-      .trim()
-      .split(/\s+/)
-      .map((p) => {
-        const [pk, ms, extra] = p.split(":");
-        return extra === undefined ? [cellNumber(pk), cellNumber(ms)] : [NaN, NaN];
-      });
-    return { voltage: Number(m[1]), points };
-  });
-  const first = rows[0]?.points.map(([p]) => p!) ?? [];
-  const same = rows.every(
-    (r) => r && r.points.length === first.length && r.points.every(([p], i) => p === first[i]),
-  );
-  if (!same) return { voltages: [], pressuresKpa: [], deadTimeMs: [] };
-  return {
-    voltages: rows.map((r) => r!.voltage),
-    pressuresKpa: first,
-    deadTimeMs: rows.map((r) => r!.points.map(([, ms]) => ms!)),
-  };
-}
-export function formatDeadTime(t: {
-  voltages: number[];
-  pressuresKpa: number[];
-  deadTimeMs: number[][];
-}): string {
-  return t.voltages
-    .map(
-      (v, i) =>
-        `${v}V ${t.pressuresKpa.map((p, j) => `${p}:${t.deadTimeMs[i]?.[j] ?? ""}`).join(" ")}`,
-    )
-    .join(" | ");
-}
-
-export function formatPumpCurve(
-  curves: { voltage: number; points: { pressureKpa: number; flowLPerH: number }[] }[],
-): string {
-  return curves
-    .map((c) => `${c.voltage}V ${c.points.map((p) => `${p.pressureKpa}:${p.flowLPerH}`).join(" ")}`)
-    .join(" | ");
-}
 
 const money = (label: string, required: boolean) =>
   z
@@ -500,62 +409,6 @@ const SPEC_HINT: Record<string, string> = {
 };
 const specMessage = (field: string, fallback: string) =>
   SPEC_HINT[field] ?? `${SPEC_COLUMN[field] ?? field}: ${fallback}`;
-
-const isDeadTime = (v: unknown): v is Parameters<typeof formatDeadTime>[0] =>
-  Boolean(v) && typeof v === "object" && Array.isArray((v as { voltages?: unknown }).voltages);
-
-/** A stored part → a flat row (CSV export, the edit form). */
-export function flatOf(
-  p: Pick<
-    Part,
-    | "sku"
-    | "category"
-    | "brand"
-    | "name"
-    | "priceMinor"
-    | "costMinor"
-    | "stock"
-    | "reorderLevel"
-    | "leadTimeDays"
-    | "restockOn"
-    | "specs"
-  >,
-): FlatPart {
-  const s = p.specs as Record<string, unknown>;
-  const str = (v: unknown) => (v === undefined || v === null ? "" : String(v));
-  const yn = (v: unknown) => (v === undefined ? "" : v ? "yes" : "no");
-  return {
-    sku: p.sku,
-    category: p.category,
-    brand: p.brand,
-    name: p.name,
-    price: minorToPlain(p.priceMinor),
-    cost: minorToPlain(p.costMinor),
-    stock: String(p.stock),
-    reorder_level: String(p.reorderLevel),
-    lead_time_days: p.leadTimeDays === null ? "" : String(p.leadTimeDays),
-    restock_on: p.restockOn ?? "",
-    flow_cc_min: str(s.ratedFlowCcPerMin),
-    rated_kpa: str(s.ratedPressureKpa),
-    min_pulse_ms: str(s.minPulseWidthMs),
-    impedance: str(s.impedance),
-    connector: str(s.connector),
-    ethanol_ok: yn(s.ethanolOk),
-    dead_time_ms: isDeadTime(s.deadTime) ? formatDeadTime(s.deadTime) : "",
-    pump_curve: Array.isArray(s.curves) ? formatPumpCurve(s.curves as never) : "",
-    current_a: str(s.currentA),
-    mounting: str(s.mounting),
-    regulator_type: p.category === "regulator" ? str(s.type) : "",
-    min_kpa: str(s.minPressureKpa),
-    max_kpa: str(s.maxPressureKpa),
-    an_dash: str(s.dash),
-    inside_mm: str(s.insideDiameterMm),
-    material: str(s.material),
-    micron: str(s.micron),
-    drop_kpa: str(s.dropKpa),
-    test_fluid_kg_l: str(s.ratingFluidDensityKgPerL),
-  };
-}
 
 export const PartListQuery = z.object({
   q: searchText().optional(),

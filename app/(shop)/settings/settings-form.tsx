@@ -6,7 +6,10 @@ import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import { ETHANOL, formatNumber, GASOLINE, unitOf, type UnitSystem } from "@/lib/calc";
+import type { UnitSystem } from "@/lib/calc";
+import { GASOLINE } from "@/lib/calc/constants";
+import { ETHANOL } from "@/lib/calc/fuel";
+import { formatNumber, unitOf } from "@/lib/calc/quantities";
 import { PAPER_SIZE_LABELS, PAPER_SIZES } from "@/lib/domain/documents";
 
 import { updateSettingsAction } from "./actions";
