@@ -8,6 +8,7 @@ import {
   PurchaseOrderCreateSchema,
   PurchaseOrderReceiveSchema,
   SupplierCreateSchema,
+  SupplierUpdateSchema,
 } from "@/lib/validations/operations";
 
 import {
@@ -15,6 +16,7 @@ import {
   createSupplier,
   receivePurchaseOrder,
   sendPurchaseOrder,
+  updateSupplier,
 } from "./purchasing-commands";
 
 /** The server actions of suppliers and purchase orders (staff): adapters over the commands. */
@@ -26,13 +28,21 @@ export const createSupplierAction = memberAction(SupplierCreateSchema, async (m,
   return s;
 });
 
-/** { supplierId, lines } → the new draft purchase order. */
+/** { id, version?, …fields, parts? } → the supplier as saved (`parts`: the whole list). */
+export const updateSupplierAction = memberAction(SupplierUpdateSchema, async (m, input) => {
+  const s = await updateSupplier(m, input);
+  revalidatePath("/purchasing");
+  revalidatePath(`/purchasing/suppliers/${input.id}`);
+  return s;
+});
+
+/** { supplierId, lines } → the new draft purchase order (its `id` at the top, for the screen to open it). */
 export const createPurchaseOrderAction = memberAction(
   PurchaseOrderCreateSchema,
   async (m, input) => {
     const po = await createPurchaseOrder(m, input);
     revalidatePath("/purchasing");
-    return po;
+    return { ...po, id: po.po.id };
   },
 );
 

@@ -187,7 +187,7 @@ async function tellAboutReceipt(
         (r) => `${r.quantity} × ${bySku.get(r.partId)?.sku ?? "part"}`,
       ),
       jobsReady: readyLabels,
-      link: `${appUrl}/purchase-orders/${po.po.id}`,
+      link: `${appUrl}/purchasing/orders/${po.po.id}`,
     },
   );
 }

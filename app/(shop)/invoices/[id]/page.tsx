@@ -5,6 +5,7 @@ import { notFound } from "next/navigation";
 import { ActionButton } from "@/components/operations/action-button";
 import { CreditNoteForm } from "@/components/operations/credit-note-form";
 import { InvoiceBody } from "@/components/operations/invoice-body";
+import { InvoiceEditor } from "@/components/operations/invoice-editor";
 import { MailLog } from "@/components/operations/mail-log";
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getInvoice } from "@/db/queries/invoices";
@@ -43,11 +44,42 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
       </PageHeader>
       <p className="mb-4 text-ink-800">
         {inv.customerName}{" "}
-        <Signal level={i.status === "draft" ? "info" : i.status === "paid" ? "ok" : "caution"}>
+        <Signal
+          level={i.status === "draft" ? "info" : i.status === "paid" ? "ok" : "caution"}
+          testId="invoice-status"
+        >
           {INVOICE_STATUS_LABELS[i.status]}
         </Signal>
       </p>
-      <InvoiceBody inv={inv} />
+      {i.status === "draft" && write ? (
+        <section aria-labelledby="edit-h">
+          <h2 id="edit-h" className="mb-1 text-lg font-semibold text-ink-900">
+            Before it is issued
+          </h2>
+          <p className="mb-3 text-sm text-ink-600">
+            Say what was actually fitted and the labour used; the deposit paid is deducted.
+          </p>
+          <InvoiceEditor
+            id={i.id}
+            version={i.version}
+            currency={i.currency}
+            taxRateBp={i.taxRateBp}
+            depositMinor={i.depositMinor}
+            notes={i.notes ?? ""}
+            lines={inv.lines.map((l) => ({
+              kind: l.kind,
+              partId: l.partId,
+              sku: l.sku,
+              description: l.description,
+              quantityMilli: l.quantityMilli,
+              unitPriceMinor: l.unitPriceMinor,
+              discountBp: l.discountBp,
+            }))}
+          />
+        </section>
+      ) : (
+        <InvoiceBody inv={inv} />
+      )}
       {i.status === "draft" && write ? (
         <section className="mt-6">
           <p className="mb-2 text-sm text-ink-600">

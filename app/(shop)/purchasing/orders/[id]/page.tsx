@@ -47,7 +47,7 @@ export default async function PurchaseOrderPage({ params }: { params: Promise<{ 
       </PageHeader>
       <p className="mb-4 text-ink-800">
         {po.supplierName}{" "}
-        <Signal level={po.po.status === "received" ? "ok" : "info"}>
+        <Signal level={po.po.status === "received" ? "ok" : "info"} testId="po-status">
           {PO_STATUS_LABELS[po.po.status]}
         </Signal>
       </p>
