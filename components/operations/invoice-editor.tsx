@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 
+import { ActionButton } from "@/components/operations/action-button";
 import { CellInput } from "@/components/operations/cell-input";
 import { Button, LinkButton } from "@/components/ui/button";
 import { TextAreaField } from "@/components/ui/field";
@@ -17,7 +18,7 @@ import {
   parseMoney,
   parseScaled,
 } from "@/lib/catalog/money";
-import { editInvoiceAction } from "@/lib/invoices/invoice-actions";
+import { editInvoiceAction, issueInvoiceAction } from "@/lib/invoices/invoice-actions";
 import {
   quantityTooLarge,
   quoteLimitMessages,
@@ -54,6 +55,8 @@ interface CatalogPart {
 }
 type EditorProps = {
   id: string;
+  /** Who the issued invoice is e-mailed to (named in the note beside "Issue"). */
+  customerName: string;
   version: number;
   currency: string;
   taxRateBp: number;
@@ -213,187 +216,208 @@ function InvoiceEditorForm({
   };
 
   return (
-    <form
-      noValidate
-      aria-label="Draft invoice"
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
-      className="space-y-4"
-    >
-      <table className="table-cards w-full text-left text-sm" data-testid="invoice-editor">
-        <thead className="bg-ink-100 text-ink-700">
-          <tr>
-            <th scope="col" className="px-2 py-2">
-              Line
-            </th>
-            <th scope="col" className="px-2 py-2 text-right">
-              Quantity
-            </th>
-            <th scope="col" className="px-2 py-2 text-right">
-              Unit price
-            </th>
-            <th scope="col" className="px-2 py-2 text-right">
-              Discount %
-            </th>
-            <th scope="col" className="px-2 py-2 text-right">
-              Line total
-            </th>
-            <th scope="col" className="px-2 py-2">
-              <span className="sr-only">Remove</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.length === 0 ? (
+    <>
+      <form
+        noValidate
+        aria-label="Draft invoice"
+        onSubmit={(e) => {
+          e.preventDefault();
+          save();
+        }}
+        className="space-y-4"
+      >
+        <table className="table-cards w-full text-left text-sm" data-testid="invoice-editor">
+          <thead className="bg-ink-100 text-ink-700">
             <tr>
-              <td colSpan={6} className="px-2 py-3 text-ink-600">
-                No lines: add a part below, or reload to start again from the job.
-              </td>
+              <th scope="col" className="px-2 py-2">
+                Line
+              </th>
+              <th scope="col" className="px-2 py-2 text-right">
+                Quantity
+              </th>
+              <th scope="col" className="px-2 py-2 text-right">
+                Unit price
+              </th>
+              <th scope="col" className="px-2 py-2 text-right">
+                Discount %
+              </th>
+              <th scope="col" className="px-2 py-2 text-right">
+                Line total
+              </th>
+              <th scope="col" className="px-2 py-2">
+                <span className="sr-only">Remove</span>
+              </th>
             </tr>
-          ) : null}
-          {rows.map((r, i) => (
-            <tr key={r.key} className="border-t border-ink-100 align-top">
-              <td className="card-wide px-2 py-2">
-                <CellInput
-                  id={`inv-${r.key}-description`}
-                  label={`Line ${i + 1}: description`}
-                  value={r.description}
-                  maxLength={200}
-                  onChange={(e) => change(r.key, { description: e.target.value })}
-                  error={errorOf(r, "description")}
-                />
-                {r.sku ? <span className="mt-1 block text-xs text-ink-600">{r.sku}</span> : null}
-              </td>
-              <td className="px-2 py-2" data-label={`Quantity (${QTY_LABEL[r.kind]})`}>
-                <CellInput
-                  id={`inv-${r.key}-qty`}
-                  label={`Line ${i + 1}: ${QTY_LABEL[r.kind]}`}
-                  inputMode="decimal"
-                  className="text-right"
-                  value={r.qty}
-                  onChange={(e) => change(r.key, { qty: e.target.value })}
-                  error={errorOf(r, "qty")}
-                />
-              </td>
-              <td className="px-2 py-2" data-label="Unit price">
-                <CellInput
-                  id={`inv-${r.key}-price`}
-                  label={`Line ${i + 1}: unit price`}
-                  inputMode="decimal"
-                  className="text-right"
-                  value={r.price}
-                  onChange={(e) => change(r.key, { price: e.target.value })}
-                  error={errorOf(r, "price")}
-                />
-              </td>
-              <td className="px-2 py-2" data-label="Discount %">
-                <CellInput
-                  id={`inv-${r.key}-discount`}
-                  label={`Line ${i + 1}: discount %`}
-                  inputMode="decimal"
-                  className="text-right"
-                  value={r.discount}
-                  onChange={(e) => change(r.key, { discount: e.target.value })}
-                  error={errorOf(r, "discount")}
-                />
-              </td>
-              <td className="figure px-2 py-2 text-right" data-label="Line total">
-                {shown.lines[i]!.lineTotal}
-              </td>
-              <td className="px-2 py-2 text-right">
-                <LinkButton
-                  aria-label={`Remove line ${i + 1}: ${r.description}`}
-                  onClick={() => {
-                    setOutcome(null);
-                    setRows(rows.filter((x) => x.key !== r.key));
-                  }}
-                >
-                  Remove
-                </LinkButton>
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={6} className="px-2 py-3 text-ink-600">
+                  No lines: add a part below, or reload to start again from the job.
+                </td>
+              </tr>
+            ) : null}
+            {rows.map((r, i) => (
+              <tr key={r.key} className="border-t border-ink-100 align-top">
+                <td className="card-wide px-2 py-2">
+                  <CellInput
+                    id={`inv-${r.key}-description`}
+                    label={`Line ${i + 1}: description`}
+                    value={r.description}
+                    maxLength={200}
+                    onChange={(e) => change(r.key, { description: e.target.value })}
+                    error={errorOf(r, "description")}
+                  />
+                  {r.sku ? <span className="mt-1 block text-xs text-ink-600">{r.sku}</span> : null}
+                </td>
+                <td className="px-2 py-2" data-label={`Quantity (${QTY_LABEL[r.kind]})`}>
+                  <CellInput
+                    id={`inv-${r.key}-qty`}
+                    label={`Line ${i + 1}: ${QTY_LABEL[r.kind]}`}
+                    inputMode="decimal"
+                    className="text-right"
+                    value={r.qty}
+                    onChange={(e) => change(r.key, { qty: e.target.value })}
+                    error={errorOf(r, "qty")}
+                  />
+                </td>
+                <td className="px-2 py-2" data-label="Unit price">
+                  <CellInput
+                    id={`inv-${r.key}-price`}
+                    label={`Line ${i + 1}: unit price`}
+                    inputMode="decimal"
+                    className="text-right"
+                    value={r.price}
+                    onChange={(e) => change(r.key, { price: e.target.value })}
+                    error={errorOf(r, "price")}
+                  />
+                </td>
+                <td className="px-2 py-2" data-label="Discount %">
+                  <CellInput
+                    id={`inv-${r.key}-discount`}
+                    label={`Line ${i + 1}: discount %`}
+                    inputMode="decimal"
+                    className="text-right"
+                    value={r.discount}
+                    onChange={(e) => change(r.key, { discount: e.target.value })}
+                    error={errorOf(r, "discount")}
+                  />
+                </td>
+                <td className="figure px-2 py-2 text-right" data-label="Line total">
+                  {shown.lines[i]!.lineTotal}
+                </td>
+                <td className="px-2 py-2 text-right">
+                  <LinkButton
+                    aria-label={`Remove line ${i + 1}: ${r.description}`}
+                    onClick={() => {
+                      setOutcome(null);
+                      setRows(rows.filter((x) => x.key !== r.key));
+                    }}
+                  >
+                    Remove
+                  </LinkButton>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
 
-      <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
-        label="Add a part that was fitted"
-        placeholder="Type a SKU, name or brand"
-        url={(q) => `/api/v1/parts?${new URLSearchParams({ q, sort: "name", limit: "8" })}`}
-        options={(r) =>
-          r.parts.map((p) => ({
-            id: p.id,
-            label: `${p.sku} — ${p.brand} ${p.name}`,
-            detail: money(p.priceMinor),
-            value: p,
-          }))
-        }
-        empty="No part matches; try another SKU, name or brand"
-        onPick={(p) => {
-          setOutcome(null);
-          setAdded(added + 1);
-          setRows([
-            ...rows,
-            toRow(
-              {
-                kind: "part",
-                partId: p.id,
-                sku: p.sku,
-                description: `${p.brand} ${p.name}`,
-                quantityMilli: 1000,
-                unitPriceMinor: p.priceMinor,
-                discountBp: 0,
-              },
-              `a${added}`,
-            ),
-          ]);
-        }}
-      />
+        <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
+          label="Add a part that was fitted"
+          placeholder="Type a SKU, name or brand"
+          url={(q) => `/api/v1/parts?${new URLSearchParams({ q, sort: "name", limit: "8" })}`}
+          options={(r) =>
+            r.parts.map((p) => ({
+              id: p.id,
+              label: `${p.sku} — ${p.brand} ${p.name}`,
+              detail: money(p.priceMinor),
+              value: p,
+            }))
+          }
+          empty="No part matches; try another SKU, name or brand"
+          onPick={(p) => {
+            setOutcome(null);
+            setAdded(added + 1);
+            setRows([
+              ...rows,
+              toRow(
+                {
+                  kind: "part",
+                  partId: p.id,
+                  sku: p.sku,
+                  description: `${p.brand} ${p.name}`,
+                  quantityMilli: 1000,
+                  unitPriceMinor: p.priceMinor,
+                  discountBp: 0,
+                },
+                `a${added}`,
+              ),
+            ]);
+          }}
+        />
 
-      <dl className="ml-auto max-w-sm space-y-1 text-sm" data-testid="invoice-editor-totals">
-        <div className="flex justify-between gap-4">
-          <dt>Subtotal</dt>
-          <dd className="figure">{shown.subtotal}</dd>
-        </div>
-        <div className="flex justify-between gap-4">
-          <dt>{shown.taxLabel}</dt>
-          <dd className="figure">{shown.tax}</dd>
-        </div>
-        <div className="flex justify-between gap-4 font-semibold">
-          <dt>Total</dt>
-          <dd className="figure">{shown.total}</dd>
-        </div>
-        <div className="flex justify-between gap-4">
-          <dt>Deposit paid</dt>
-          <dd className="figure">{formatDeduction(props.depositMinor, props.currency)}</dd>
-        </div>
-        <div className="flex justify-between gap-4 border-t border-copper-600 pt-1 font-semibold">
-          <dt>{balance < 0 ? "Owed to the customer" : "Balance due"}</dt>
-          <dd className="figure">{money(Math.abs(balance))}</dd>
-        </div>
-      </dl>
+        <dl className="ml-auto max-w-sm space-y-1 text-sm" data-testid="invoice-editor-totals">
+          <div className="flex justify-between gap-4">
+            <dt>Subtotal</dt>
+            <dd className="figure">{shown.subtotal}</dd>
+          </div>
+          <div className="flex justify-between gap-4">
+            <dt>{shown.taxLabel}</dt>
+            <dd className="figure">{shown.tax}</dd>
+          </div>
+          <div className="flex justify-between gap-4 font-semibold">
+            <dt>Total</dt>
+            <dd className="figure">{shown.total}</dd>
+          </div>
+          <div className="flex justify-between gap-4">
+            <dt>Deposit paid</dt>
+            <dd className="figure">{formatDeduction(props.depositMinor, props.currency)}</dd>
+          </div>
+          <div className="flex justify-between gap-4 border-t border-copper-600 pt-1 font-semibold">
+            <dt>{balance < 0 ? "Owed to the customer" : "Balance due"}</dt>
+            <dd className="figure">{money(Math.abs(balance))}</dd>
+          </div>
+        </dl>
 
-      <TextAreaField
-        name="notes"
-        id="inv-notes"
-        label="Notes (printed on the invoice)"
-        value={notes}
-        maxLength={2000}
-        rows={2}
-        onChange={(e) => {
-          setOutcome(null);
-          setNotes(e.target.value);
-        }}
-        error={state.fieldErrors?.notes}
-      />
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending} aria-busy={pending}>
-          {pending ? "Saving…" : "Save draft"}
-        </Button>
-        <FormStatus ok={outcome?.ok} message={outcome?.message} />
-      </div>
-    </form>
+        <TextAreaField
+          name="notes"
+          id="inv-notes"
+          label="Notes (printed on the invoice)"
+          value={notes}
+          maxLength={2000}
+          rows={2}
+          onChange={(e) => {
+            setOutcome(null);
+            setNotes(e.target.value);
+          }}
+          error={state.fieldErrors?.notes}
+        />
+        <div className="flex flex-wrap items-center gap-3">
+          <Button type="submit" disabled={pending} aria-busy={pending}>
+            {pending ? "Saving…" : "Save draft"}
+          </Button>
+          <FormStatus ok={outcome?.ok} message={outcome?.message} />
+        </div>
+      </form>
+      <section className="mt-6" aria-labelledby="issue-h">
+        <h3 id="issue-h" className="sr-only">
+          Issue
+        </h3>
+        <p className="mb-2 text-sm text-ink-600">
+          {dirty
+            ? "Save the draft first: the invoice is issued as saved."
+            : `Issuing numbers the invoice and e-mails it to ${props.customerName} with a link to pay; after that it is never edited (a credit note corrects it).`}
+        </p>
+        {/* Offered only for the draft as saved: never with unsaved edits or a save under way. */}
+        <ActionButton
+          action={issueInvoiceAction}
+          payload={{ id: props.id, version: props.version }}
+          label="Issue and e-mail"
+          busyLabel="Issuing…"
+          disabled={dirty || pending}
+          confirm="Issue this invoice? It is numbered, e-mailed and cannot be edited afterwards."
+        />
+      </section>
+    </>
   );
 }

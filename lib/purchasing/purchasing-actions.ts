@@ -5,6 +5,7 @@ import { revalidatePath } from "next/cache";
 import { memberAction } from "@/lib/actions/member-action";
 import {
   IdSchema,
+  PurchaseOrderCancelSchema,
   PurchaseOrderCreateSchema,
   PurchaseOrderReceiveSchema,
   SupplierCreateSchema,
@@ -12,6 +13,7 @@ import {
 } from "@/lib/validations/operations";
 
 import {
+  cancelPurchaseOrder,
   createPurchaseOrder,
   createSupplier,
   receivePurchaseOrder,
@@ -52,6 +54,17 @@ export const sendPurchaseOrderAction = memberAction(IdSchema, async (m, input) =
   revalidatePath(`/purchasing/orders/${input.id}`);
   return po;
 });
+
+/** { id, version } of an order nothing was received against → cancelled; back to the reorder list. */
+export const cancelPurchaseOrderAction = memberAction(
+  PurchaseOrderCancelSchema,
+  async (m, input) => {
+    const po = await cancelPurchaseOrder(m, input);
+    revalidatePath(`/purchasing/orders/${input.id}`);
+    revalidatePath("/purchasing");
+    return { ...po, id: po.po.id };
+  },
+);
 
 /** { id, lines: [{ lineId, quantity }] } → stock in, back-orders filled in acceptance order. */
 export const receivePurchaseOrderAction = memberAction(

@@ -77,8 +77,7 @@ async function newPart(sku: string, name: string, stock: number, priceMinor: num
 
 describe("a whole job after the deposit", () => {
   it("quote accepted → deposit → PO for the back-order → received → fitted → invoice → balance paid → receipt", async () => {
-    // ---- Set-up: two parts of its own (one on the shelf, one not), a supplier of the missing
-    // one, and a sent quote for the demo portal customer: 1 × filter A (in stock), 2 × filter B
+    // ---- Set-up: two parts of its own (one on the shelf, one not) and a quote for the demo portal customer: 1 × filter A (in stock), 2 × filter B
     // (none on the shelf) and 1.5 h of labour.
     const skuA = `${tag}-A`;
     const skuB = `${tag}-B`;
@@ -86,14 +85,6 @@ describe("a whole job after the deposit", () => {
     const partB = await newPart(skuB, `Pre-pump strainer ${tag}`, 0, 3000); // 30.00
     const supplierName = `Wholejob Supply ${tag}`;
     const supplierEmail = `orders-${tag.toLowerCase()}@supplier.fuelwright.test`;
-    const sup = await request(api, "POST", "/api/v1/suppliers", {
-      name: supplierName,
-      email: supplierEmail,
-      leadTimeDays: 4,
-      parts: [{ partId: partB, supplierSku: `SUP-${tag}`, costMinor: 1400 }],
-    });
-    expect(sup.status, JSON.stringify(sup.json)).toBe(201);
-
     const made = await request(api, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID });
     expect(made.status).toBe(201);
     const q = made.json.quote as { id: string; version: number; number: number };
@@ -176,15 +167,66 @@ describe("a whole job after the deposit", () => {
     expect(await stockOf(partA)).toEqual({ stock: 3, reserved: 1 });
     expect(await stockOf(partB)).toEqual({ stock: 0, reserved: 0 });
 
+    // ---- The counter adds the strainer's supplier on screen: name, e-mail, lead time, then
+    // (on the supplier's own page) their SKU and our cost; a wrong field says so by itself.
+    await counter.goto("/purchasing");
+    await counter.getByLabel("Supplier", { exact: true }).fill(supplierName);
+    await counter.getByLabel("Orders e-mail").fill(supplierEmail);
+    await counter.getByLabel("Lead time (days)").fill("4");
+    await counter.getByRole("button", { name: "Add supplier" }).click();
+    await counter.waitForURL(/\/purchasing\/suppliers\/[0-9a-f-]{36}$/);
+    const addPart = counter.getByRole("combobox", { name: "Add a part they sell" });
+    await addPart.fill(skuB);
+    await counter.getByRole("option", { name: new RegExp(skuB) }).click();
+    await counter.getByLabel(/^Their SKU for/).fill(`SUP-${tag}`);
+    await counter.getByLabel(/^Cost of/).fill("14,00x");
+    await counter.getByLabel("Lead time (days)").fill("four");
+    await counter.getByRole("button", { name: "Save supplier" }).click();
+    await poll(() => counter.getByRole("alert").allInnerTexts()).toEqual(
+      expect.arrayContaining([
+        expect.stringContaining("A whole number of days from 0 to 3650"),
+        expect.stringContaining("A cost such as 12.50"),
+      ]),
+    );
+    await counter.getByLabel("Lead time (days)").fill("4");
+    await counter.getByLabel(/^Cost of/).fill("14.00");
+    await counter.getByRole("button", { name: "Save supplier" }).click();
+    await poll(() => counter.getByText(/^✓ Saved$/).count()).toBe(1);
+    const sup = await request(api, "GET", `/api/v1/suppliers/${counter.url().split("/").pop()}`);
+    expect(sup.json.supplier).toMatchObject({
+      name: supplierName,
+      email: supplierEmail,
+      leadTimeDays: 4,
+      parts: [{ partId: partB, supplierSku: `SUP-${tag}`, costMinor: 1400 }],
+    });
+
     // ---- Purchasing: the strainer is on the reorder list; the counter orders it.
     await counter.goto("/purchasing");
     const row = counter.getByTestId("reorder-list").getByRole("row").filter({ hasText: skuB });
     // Back-ordered 2, nothing on order: order 2.
     await poll(() => row.locator("td").nth(1).innerText()).toBe("2");
     expect(await row.locator("td").last().innerText()).toBe("2");
-    await counter
-      .getByRole("button", { name: `Make a purchase order for ${supplierName} (1 part)` })
-      .click();
+    const makeOrder = counter.getByRole("button", {
+      name: `Make a purchase order for ${supplierName} (1 part)`,
+    });
+    // A first order is made by mistake and cancelled (after a confirmation): the strainer is
+    // back on the reorder list with nothing on order.
+    await makeOrder.click();
+    await counter.waitForURL(/\/purchasing\/orders\/[0-9a-f-]{36}$/);
+    let asked = "";
+    counter.once("dialog", (d) => {
+      asked = d.message();
+    });
+    await counter.getByRole("button", { name: "Cancel this order" }).click();
+    await poll(() => counter.getByTestId("po-status").innerText()).toBe("Cancelled");
+    expect(asked).toMatch(/^Cancel PO-\d{4}\? What it was for goes back on the reorder list/);
+    expect(await counter.getByRole("button", { name: "Cancel this order" }).count()).toBe(0);
+    expect(await counter.getByRole("button", { name: "Receive", exact: true }).count()).toBe(0);
+    await counter.goto("/purchasing");
+    await poll(() => row.locator("td").last().innerText()).toBe("2");
+    expect(await stockOf(partB)).toEqual({ stock: 0, reserved: 0 });
+
+    await makeOrder.click();
     await counter.waitForURL(/\/purchasing\/orders\/[0-9a-f-]{36}$/);
     const poId = counter.url().split("/").pop()!;
     const poLabelText = (await counter.getByRole("heading", { level: 1 }).innerText()).replace(
@@ -241,8 +283,29 @@ describe("a whole job after the deposit", () => {
     expect(i.subtotalMinor).toBe(30500);
     expect(i.depositMinor).toBe(depositMinor);
     expect(i.balanceMinor).toBe(i.totalMinor - depositMinor);
-    const ledger = await counter.getByTestId("invoice-ledger").innerText();
-    expect(ledger).toContain("Deposit paid");
+    // The draft is edited before it goes: the labour line says 2 h; a price that is no price
+    // is marked on its own field; a note for the customer is saved.
+    const totals = counter.getByTestId("invoice-editor-totals");
+    expect(await totals.innerText()).toContain("Deposit paid");
+    expect(await counter.getByLabel("Line 3: hours").inputValue()).toBe("2");
+    await counter.getByLabel("Line 3: unit price").fill("a hundred");
+    await counter.getByRole("button", { name: "Save draft" }).click();
+    await poll(() => counter.getByText("Check the fields marked").count()).toBe(1);
+    expect(await counter.getByLabel("Line 3: unit price").getAttribute("aria-invalid")).toBe(
+      "true",
+    );
+    await counter.getByLabel("Line 3: unit price").fill("100.00");
+    await counter
+      .getByLabel("Notes (printed on the invoice)")
+      .fill(`Fitted and leak-checked ${tag}`);
+    await counter.getByRole("button", { name: "Save draft" }).click();
+    await poll(() => counter.getByText("Draft saved").count()).toBe(1);
+    const edited = (await request(api, "GET", `/api/v1/invoices/${invoiceId}`)).json.invoice;
+    expect(edited).toMatchObject({
+      notes: `Fitted and leak-checked ${tag}`,
+      subtotalMinor: 30500,
+      version: i.version + 1,
+    });
     await counter.getByRole("button", { name: "Issue and e-mail" }).click();
     await poll(() => counter.getByTestId("invoice-status").innerText()).toBe("Issued");
     const invoiceLabelText = (await counter.getByRole("heading", { level: 1 }).innerText()).replace(
@@ -253,8 +316,11 @@ describe("a whole job after the deposit", () => {
     const invMail = await waitForMail(CUSTOMER_EMAIL, new RegExp(`invoice ${invoiceLabelText}`));
     expect(invMail.text).toContain("Deposit paid");
     expect(inspectPdf(attachment(invMail, /\.pdf$/)).text).toContain(invoiceLabelText);
-    // An issued invoice offers no edit, only a credit note.
+    // An issued invoice offers no edit, only a credit note; it reads the deposit and the note.
     expect(await counter.getByRole("button", { name: "Issue and e-mail" }).count()).toBe(0);
+    expect(await counter.getByRole("button", { name: "Save draft" }).count()).toBe(0);
+    expect(await counter.getByTestId("invoice-ledger").innerText()).toContain("Deposit paid");
+    expect(await counter.getByTestId("invoice-notes").innerText()).toContain(tag);
     expect(await counter.getByRole("button", { name: "Raise credit note" }).count()).toBe(1);
 
     // ---- The customer pays the balance in the portal (the link in the e-mail), on the phone.

@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { ActionButton } from "@/components/operations/action-button";
 import { CreditNoteForm } from "@/components/operations/credit-note-form";
 import { InvoiceBody } from "@/components/operations/invoice-body";
 import { InvoiceEditor } from "@/components/operations/invoice-editor";
@@ -14,7 +13,6 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { INVOICE_STATUS_LABELS, invoiceLabel, jobLabel } from "@/lib/domain/operations";
 import { idOrNotFound } from "@/lib/ids";
-import { issueInvoiceAction } from "@/lib/invoices/invoice-actions";
 
 export const metadata: Metadata = { title: "Invoice" };
 
@@ -61,6 +59,7 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
           </p>
           <InvoiceEditor
             id={i.id}
+            customerName={inv.customerName}
             version={i.version}
             currency={i.currency}
             taxRateBp={i.taxRateBp}
@@ -80,21 +79,6 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
       ) : (
         <InvoiceBody inv={inv} />
       )}
-      {i.status === "draft" && write ? (
-        <section className="mt-6">
-          <p className="mb-2 text-sm text-ink-600">
-            Issuing numbers the invoice and e-mails it to {inv.customerName} with a link to pay;
-            after that it is never edited (a credit note corrects it).
-          </p>
-          <ActionButton
-            action={issueInvoiceAction}
-            payload={{ id: i.id, version: i.version }}
-            label="Issue and e-mail"
-            busyLabel="Issuing…"
-            confirm="Issue this invoice? It is numbered, e-mailed and cannot be edited afterwards."
-          />
-        </section>
-      ) : null}
       {i.status !== "draft" && write ? (
         <section className="mt-8" aria-labelledby="cn-h">
           <h2 id="cn-h" className="mb-2 text-lg font-semibold text-ink-900">
