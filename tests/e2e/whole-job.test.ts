@@ -188,6 +188,10 @@ describe("a whole job after the deposit", () => {
         expect.stringContaining("A cost such as 12.50"),
       ]),
     );
+    // The supplier's page fits a phone, its messages included.
+    await counter.setViewportSize({ width: 390, height: 844 });
+    await noWiderThan(counter, 390);
+    await counter.setViewportSize({ width: 1280, height: 900 });
     await counter.getByLabel("Lead time (days)").fill("4");
     await counter.getByLabel(/^Cost of/).fill("14.00");
     await counter.getByRole("button", { name: "Save supplier" }).click();
@@ -294,6 +298,13 @@ describe("a whole job after the deposit", () => {
     expect(await counter.getByLabel("Line 3: unit price").getAttribute("aria-invalid")).toBe(
       "true",
     );
+    await counter.setViewportSize({ width: 390, height: 844 });
+    await noWiderThan(counter, 390);
+    await counter.screenshot({
+      path: "test-results/whole-job-draft-invoice-390.png",
+      fullPage: true,
+    });
+    await counter.setViewportSize({ width: 1280, height: 900 });
     await counter.getByLabel("Line 3: unit price").fill("100.00");
     await counter
       .getByLabel("Notes (printed on the invoice)")
