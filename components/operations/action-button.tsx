@@ -23,6 +23,7 @@ export function ActionButton({
   goTo,
   openUrl,
   variant = "primary",
+  disabled = false,
 }: {
   action: Action;
   payload: unknown;
@@ -32,6 +33,8 @@ export function ActionButton({
   goTo?: string;
   openUrl?: boolean;
   variant?: "primary" | "secondary";
+  /** Not offered now (the reason is said beside it by the caller). */
+  disabled?: boolean;
 }) {
   const router = useRouter();
   const [pending, start] = useTransition();
@@ -50,7 +53,7 @@ export function ActionButton({
   };
   return (
     <div className="flex flex-wrap items-center gap-3">
-      <Button variant={variant} onClick={run} disabled={pending} aria-busy={pending}>
+      <Button variant={variant} onClick={run} disabled={pending || disabled} aria-busy={pending}>
         {pending ? (busyLabel ?? "Working…") : label}
       </Button>
       <FormStatus ok={state.ok} message={state.ok ? undefined : state.message} />

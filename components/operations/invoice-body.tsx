@@ -42,6 +42,11 @@ export function InvoiceBody({ inv }: { inv: InvoiceRow }) {
           </dd>
         </div>
       </dl>
+      {i.notes ? (
+        <p className="mt-4 text-sm whitespace-pre-line text-ink-800" data-testid="invoice-notes">
+          {i.notes}
+        </p>
+      ) : null}
     </>
   );
 }

@@ -7,28 +7,34 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
+import { parseNumberText } from "@/lib/calc/number-text";
 import { createSupplierAction } from "@/lib/purchasing/purchasing-actions";
 
-/** A new supplier: name, where orders are e-mailed, and their usual lead time. */
+/** A new supplier: name, where orders are e-mailed, and their usual lead time; then its page. */
 export function SupplierForm() {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [v, setV] = useState({ name: "", email: "", leadTimeDays: "" });
   const [state, setState] = useState<ActionState>(initialActionState);
+  const [daysError, setDaysError] = useState<string>();
   const submit = (e: React.FormEvent) => {
     e.preventDefault();
+    // A lead time that is no whole number is said so here, never sent as blank.
+    const days = v.leadTimeDays.trim() === "" ? null : parseNumberText(v.leadTimeDays);
+    const badDays = days !== null && !(Number.isInteger(days) && days >= 0 && days <= 3650);
+    setDaysError(badDays ? "A whole number of days from 0 to 3650" : undefined);
+    if (badDays) return;
     start(async () => {
-      const days = v.leadTimeDays.trim() === "" ? null : Number(v.leadTimeDays);
       const res = await createSupplierAction(initialActionState, {
         name: v.name,
         email: v.email,
-        leadTimeDays: days !== null && Number.isFinite(days) ? days : null,
+        leadTimeDays: days,
       });
       setState(res);
-      if (res.ok) {
-        setV({ name: "", email: "", leadTimeDays: "" });
-        router.refresh();
-      }
+      // Next, their SKUs and costs for our parts: on the new supplier's own page.
+      const id = (res.data as { id?: string } | undefined)?.id;
+      if (res.ok && id) router.push(`/purchasing/suppliers/${id}`);
+      else if (res.ok) router.refresh();
     });
   };
   return (
@@ -59,7 +65,7 @@ export function SupplierForm() {
         inputMode="numeric"
         value={v.leadTimeDays}
         onChange={(e) => setV({ ...v, leadTimeDays: e.target.value })}
-        error={state.fieldErrors?.leadTimeDays}
+        error={daysError ?? state.fieldErrors?.leadTimeDays}
       />
       <Button type="submit" disabled={pending} aria-busy={pending}>
         {pending ? "Adding…" : "Add supplier"}

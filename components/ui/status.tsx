@@ -16,9 +16,12 @@ export function FormStatus({ ok, message }: { ok?: boolean; message?: string }) 
 export function Signal({
   level,
   children,
+  testId,
 }: {
   level: "ok" | "info" | "caution" | "danger";
   children: ReactNode;
+  /** `data-testid` of the text (without the symbol), for tests that read a record's status. */
+  testId?: string;
 }) {
   const map = {
     ok: ["bg-ok-50 text-ok-700 ring-ok-600/30", "✓"],
@@ -32,7 +35,7 @@ export function Signal({
       className={`inline-flex items-center gap-1 rounded px-2 py-0.5 text-xs font-semibold ring-1 ${cls}`}
     >
       <span aria-hidden="true">{sym}</span>
-      {children}
+      {testId ? <span data-testid={testId}>{children}</span> : children}
     </span>
   );
 }

@@ -408,6 +408,46 @@ export async function markPurchaseOrderSent(shopId: string, id: string) {
     );
 }
 
+/**
+ * Cancels an order in one transaction, if it is still the version the person saw and nothing
+ * was received against it (its lines locked); else Conflict, nothing written. Its units stop
+ * counting as on order, so the back-orders they were for are on the reorder list again.
+ */
+export async function cancelPurchaseOrderRow(
+  shopId: string,
+  id: string,
+  version: number,
+): Promise<PurchaseOrder> {
+  return db.transaction(async (tx) => {
+    const [po] = await tx
+      .select()
+      .from(purchaseOrders)
+      .where(and(eq(purchaseOrders.shopId, shopId), eq(purchaseOrders.id, id)))
+      .for("update")
+      .limit(1);
+    if (!po) throw new NotFound("That purchase order");
+    if (po.version !== version)
+      throw new Conflict(
+        `Someone changed this purchase order meanwhile (now version ${po.version}); it was not cancelled`,
+        "conflict",
+        po,
+      );
+    const lines = await tx
+      .select({ receivedQty: purchaseOrderLines.receivedQty })
+      .from(purchaseOrderLines)
+      .where(eq(purchaseOrderLines.purchaseOrderId, id))
+      .for("update");
+    if ((po.status !== "draft" && po.status !== "sent") || lines.some((l) => l.receivedQty > 0))
+      throw new Conflict("This purchase order can no longer be cancelled", "not_cancellable", po);
+    const [done] = await tx
+      .update(purchaseOrders)
+      .set({ status: "cancelled", version: po.version + 1, updatedAt: new Date() })
+      .where(eq(purchaseOrders.id, id))
+      .returning();
+    return done!;
+  });
+}
+
 /** What a receipt did: the lines it filled and the jobs it moved. */
 export interface ReceiptOutcome {
   po: PurchaseOrder;

@@ -96,6 +96,17 @@ export function poStatusAfterReceipt(lines: PoLineState[]): PoStatus {
   return all ? "received" : any ? "partly_received" : "sent";
 }
 
+/**
+ * Why an order cannot be cancelled, or null when it can: only a draft or sent order that has
+ * received nothing (what arrived stays booked against its order).
+ */
+export function cancelRefusal(status: PoStatus, lines: PoLineState[]): string | null {
+  if (status === "cancelled") return "This purchase order is cancelled already";
+  if (status === "received" || status === "partly_received" || lines.some((l) => l.receivedQty > 0))
+    return "Parts were received against this purchase order; it can no longer be cancelled";
+  return null;
+}
+
 /** A quote line waiting for stock: what it wants, what it holds, when its quote was accepted. */
 export interface BackOrder {
   lineId: string;

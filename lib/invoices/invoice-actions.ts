@@ -7,12 +7,14 @@ import {
   CreditNoteCreateSchema,
   IdSchema,
   InvoiceCreateSchema,
+  InvoiceEditSchema,
   InvoiceIssueSchema,
 } from "@/lib/validations/operations";
 
 import {
   createCreditNote,
   createInvoice,
+  editInvoice,
   issueInvoice,
   startBalancePayment,
 } from "./invoice-commands";
@@ -31,6 +33,13 @@ export const createInvoiceAction = memberAction(InvoiceCreateSchema, async (m, i
   const inv = invoiceData(await createInvoice(m, input));
   revalidateInvoice(inv.id);
   revalidatePath(`/jobs/${input.jobId}`);
+  return inv;
+});
+
+/** { id, version, lines?, notes? } of a draft → the draft as saved (an issued one: 422 invoice_issued). */
+export const editInvoiceAction = memberAction(InvoiceEditSchema, async (m, input) => {
+  const inv = invoiceData(await editInvoice(m, input));
+  revalidateInvoice(inv.id);
   return inv;
 });
 

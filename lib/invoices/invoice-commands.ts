@@ -9,6 +9,7 @@ import {
   type InvoiceRow,
 } from "@/db/queries/invoices";
 import { getJob } from "@/db/queries/jobs";
+import { getPartsByIds } from "@/db/queries/parts";
 import { listInvoicePayments, recordPendingPayment } from "@/db/queries/payments";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
@@ -63,6 +64,15 @@ export async function editInvoice(m: Member, input: InvoiceEdit) {
   if (input.lines) {
     const too = quoteSizeIssue(input.lines, inv.invoice.currency);
     if (too) throw Invalid.field("lines", too);
+    // A part line names a part of this shop's catalog.
+    const named = [...new Set(input.lines.flatMap((l) => (l.partId ? [l.partId] : [])))];
+    const known = new Set((await getPartsByIds(m.shopId, named)).map((p) => p.id));
+    const issues = input.lines.flatMap((l, i) =>
+      l.partId && !known.has(l.partId)
+        ? [{ path: `lines.${i}.partId`, message: "That part is not in this shop's catalog" }]
+        : [],
+    );
+    if (issues.length) throw new Invalid(issues[0]!.message, issues);
   }
   await updateInvoiceDraft(m.shopId, input.id, input.version, {
     notes: input.notes,

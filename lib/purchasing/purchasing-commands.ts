@@ -3,6 +3,7 @@ import "server-only";
 import { getJob } from "@/db/queries/jobs";
 import { getPartsByIds } from "@/db/queries/parts";
 import {
+  cancelPurchaseOrderRow,
   deleteSupplier as deleteSupplierRow,
   getPurchaseOrder,
   getSupplier,
@@ -17,11 +18,12 @@ import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Invalid, InvalidTransition, NotFound, Unavailable } from "@/lib/domain/errors";
 import { jobLabel, PO_RECEIVABLE, poLabel } from "@/lib/domain/operations";
-import { receiptIssues } from "@/lib/domain/purchasing";
+import { cancelRefusal, receiptIssues } from "@/lib/domain/purchasing";
 import { serverEnv } from "@/lib/env";
 import { deliverNotice, notifyShop } from "@/lib/notices/notice-commands";
 import { noticeFiles } from "@/lib/notices/notice-files";
 import type {
+  PurchaseOrderCancel,
   PurchaseOrderCreate,
   PurchaseOrderReceive,
   SupplierCreate,
@@ -115,6 +117,21 @@ export async function sendPurchaseOrder(m: Member, input: { id: string }) {
 }
 
 /**
+ * Cancels an order nothing was received against (a draft, or one sent to the supplier): its
+ * units no longer count as on order, so what they were for is back on the reorder list. An order
+ * with anything received is refused (422 `not_cancellable`), a stale version is a 409.
+ */
+export async function cancelPurchaseOrder(m: Member, input: PurchaseOrderCancel) {
+  authorize(m, "purchasing:write");
+  const po = await getPurchaseOrder(m.shopId, input.id);
+  if (!po) throw new NotFound("That purchase order");
+  const refused = cancelRefusal(po.po.status, po.lines);
+  if (refused) throw new InvalidTransition(refused, "not_cancellable");
+  await cancelPurchaseOrderRow(m.shopId, po.po.id, input.version);
+  return (await getPurchaseOrder(m.shopId, po.po.id))!;
+}
+
+/**
  * Receives stock against an order, in part or in full: each line at most what is outstanding
  * (422 with the line's field otherwise). Then tells the customers of jobs that got parts (parts
  * arrived, or ready to fit) and the shop's subscribers.
@@ -187,7 +204,7 @@ async function tellAboutReceipt(
         (r) => `${r.quantity} × ${bySku.get(r.partId)?.sku ?? "part"}`,
       ),
       jobsReady: readyLabels,
-      link: `${appUrl}/purchase-orders/${po.po.id}`,
+      link: `${appUrl}/purchasing/orders/${po.po.id}`,
     },
   );
 }

@@ -90,6 +90,10 @@ export type PurchaseOrderReceive = z.output<typeof PurchaseOrderReceiveSchema>;
 
 export const IdSchema = z.object({ id: z.uuid() });
 
+/** Cancelling an order: the version the person saw (a stale one is a 409, nothing cancelled). */
+export const PurchaseOrderCancelSchema = z.object({ id: z.uuid(), version: versionNumber() });
+export type PurchaseOrderCancel = z.output<typeof PurchaseOrderCancelSchema>;
+
 export const JobOpenSchema = z.object({ quoteId: z.uuid("Choose a quote") });
 
 export const JobFitSchema = z.object({

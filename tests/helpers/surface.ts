@@ -37,6 +37,8 @@ export interface Fx {
   doomedSupplier: string;
   purchaseOrder: string;
   purchaseOrderLine: string;
+  /** A draft purchase order the cancel route and action cancel. */
+  doomedPurchaseOrder: string;
   /** A quote of the portal customer with its deposit paid (no job yet). */
   paidQuote: string;
   /** The portal customer's job, fitted and invoiced; and one ready to fit. */
@@ -365,6 +367,13 @@ export const ROUTES: Record<string, Cell> = {
     call: (f) => ({
       path: `/api/v1/purchase-orders/${f.purchaseOrder}/receive`,
       body: { lines: [{ lineId: f.purchaseOrderLine, quantity: 1 }] },
+    }),
+    expect: "401 ok 403 ok 403 404",
+  },
+  "POST /api/v1/purchase-orders/[id]/cancel": {
+    call: (f) => ({
+      path: `/api/v1/purchase-orders/${f.doomedPurchaseOrder}/cancel`,
+      body: { version: 1 },
     }),
     expect: "401 ok 403 ok 403 404",
   },
@@ -735,6 +744,12 @@ export const ACTIONS: Record<string, ActionCell> = {
     args: (f) => [prev, { jobId: f.job }],
     expect: "401 ok 403 ok 403 422",
   },
+  "lib/invoices/invoice-actions.ts#editInvoiceAction": {
+    page: (f) => `/invoices/${f.invoice}`,
+    // The fixture invoice is issued: allowed callers get 422 invoice_issued, nothing written.
+    args: (f) => [prev, { id: f.invoice, version: 1, notes: "Matrix (action)" }],
+    expect: "401 ok 403 ok 403 404",
+  },
   "lib/invoices/invoice-actions.ts#issueInvoiceAction": {
     page: (f) => `/invoices/${f.invoice}`,
     args: (f) => [prev, { id: f.invoice, version: 1 }],
@@ -754,6 +769,17 @@ export const ACTIONS: Record<string, ActionCell> = {
     page: () => "/purchasing",
     args: () => [prev, { name: "Matrix supplier (action)" }],
     expect: "401 ok 403 ok 403 ok",
+  },
+  "lib/purchasing/purchasing-actions.ts#updateSupplierAction": {
+    page: (f) => `/purchasing/suppliers/${f.supplier}`,
+    args: (f) => [prev, { id: f.supplier, notes: "Matrix (action)" }],
+    expect: "401 ok 403 ok 403 404",
+  },
+  "lib/purchasing/purchasing-actions.ts#cancelPurchaseOrderAction": {
+    page: (f) => `/purchasing/orders/${f.doomedPurchaseOrder}`,
+    // The route's row cancelled it first (version 2): the owner's call is then a 422.
+    args: (f) => [prev, { id: f.doomedPurchaseOrder, version: 2 }],
+    expect: "401 ok 403 ok 403 404",
   },
   "lib/purchasing/purchasing-actions.ts#createPurchaseOrderAction": {
     page: () => "/purchasing",
@@ -931,6 +957,10 @@ async function operationsFixtures(
     supplierId: supplier.json.supplier.id,
     lines: [{ partId: part, quantity: 1000 }],
   });
+  const doomedPo = await request(counter, "POST", "/api/v1/purchase-orders", {
+    supplierId: supplier.json.supplier.id,
+    lines: [{ partId: part, quantity: 1 }],
+  });
   /** A quote of the portal customer with one labour line, its deposit recorded paid. */
   const paidQuote = async () => {
     const q = await request(counter, "POST", "/api/v1/quotes", { customerId: portalCustomer });
@@ -967,6 +997,7 @@ async function operationsFixtures(
       supplier.status,
       doomedSupplier.status,
       po.status,
+      doomedPo.status,
       job.status,
       ready.status,
       fitted.status,
@@ -974,7 +1005,7 @@ async function operationsFixtures(
       issued.status,
     ],
     "operations fixtures",
-  ).toEqual([201, 201, 201, 201, 201, 200, 201, 200]);
+  ).toEqual([201, 201, 201, 201, 201, 201, 200, 201, 200]);
   const [mail] =
     await sql`select id from mail_log where record_id = ${inv.json.invoice.id} limit 1`;
   return {
@@ -982,6 +1013,7 @@ async function operationsFixtures(
     doomedSupplier: doomedSupplier.json.supplier.id as string,
     purchaseOrder: po.json.purchaseOrder.po.id as string,
     purchaseOrderLine: po.json.purchaseOrder.lines[0].id as string,
+    doomedPurchaseOrder: doomedPo.json.purchaseOrder.po.id as string,
     paidQuote: open,
     job: job.json.job.id as string,
     readyJob: ready.json.job.id as string,

@@ -246,6 +246,89 @@ describe("purchase orders and back-orders", () => {
     expect(await held(madeFirst)).toEqual([0]);
   });
 
+  it("a purchase order is cancelled only while nothing is received; its back-orders are on the reorder list again", async () => {
+    const p = await part(0);
+    const q = await acceptedQuote(p, 2);
+    const row = async () =>
+      (await request(counter, "GET", "/api/v1/reorder-list")).json.parts.find(
+        (r: { partId: string }) => r.partId === p.id,
+      );
+    expect(await row()).toMatchObject({ backOrdered: 2, onOrder: 0, suggested: 2 });
+    const po = await orderOf(p.id, 2);
+    expect(await row()).toMatchObject({ backOrdered: 2, onOrder: 2, suggested: 0 });
+    const [{ version }] =
+      (await sql`select version from purchase_orders where id = ${po.po.id}`) as unknown as [
+        { version: number },
+      ];
+
+    // Not by the tuner, not with a stale version: nothing changes.
+    const tables = ["purchase_orders", "purchase_order_lines", "parts", "quote_lines"];
+    const before = await fingerprint(tables);
+    expect(
+      (await request(tuner, "POST", `/api/v1/purchase-orders/${po.po.id}/cancel`, { version }))
+        .status,
+    ).toBe(403);
+    const stale = await request(counter, "POST", `/api/v1/purchase-orders/${po.po.id}/cancel`, {
+      version: version + 5,
+    });
+    expect(stale.status).toBe(409);
+    expect(stale.json.current).toMatchObject({ id: po.po.id, status: "draft" });
+    const noVersion = await request(
+      counter,
+      "POST",
+      `/api/v1/purchase-orders/${po.po.id}/cancel`,
+      {},
+    );
+    expect(noVersion.status).toBe(422);
+    expect(noVersion.json.error.issues[0].path).toBe("version");
+    expect(await fingerprint(tables)).toBe(before);
+
+    // Cancelled: nothing counts as on order, so the back-order is to order again.
+    const done = await request(counter, "POST", `/api/v1/purchase-orders/${po.po.id}/cancel`, {
+      version,
+    });
+    expect(done.status, JSON.stringify(done.json)).toBe(200);
+    expect(done.json.purchaseOrder.po).toMatchObject({ status: "cancelled", version: version + 1 });
+    expect(await row()).toMatchObject({ backOrdered: 2, onOrder: 0, suggested: 2 });
+    expect(await stockOf(p.id)).toEqual({ stock: 0, reserved: 0 });
+    expect(await held(q)).toEqual([0]);
+    // A cancelled order receives nothing and is not cancelled twice.
+    const late = await request(counter, "POST", `/api/v1/purchase-orders/${po.po.id}/receive`, {
+      lines: [{ lineId: po.lines[0]!.id, quantity: 1 }],
+    });
+    expect(late.status).toBe(422);
+    const twice = await request(counter, "POST", `/api/v1/purchase-orders/${po.po.id}/cancel`, {
+      version: version + 1,
+    });
+    expect(twice.status).toBe(422);
+    expect(twice.json.error.code).toBe("not_cancellable");
+    expect(await stockOf(p.id)).toEqual({ stock: 0, reserved: 0 });
+
+    // An order with one unit received stays: 422, nothing written.
+    const again = await orderOf(p.id, 2);
+    const got = await request(counter, "POST", `/api/v1/purchase-orders/${again.po.id}/receive`, {
+      lines: [{ lineId: again.lines[0]!.id, quantity: 1 }],
+    });
+    expect(got.status).toBe(200);
+    const [{ version: v2 }] =
+      (await sql`select version from purchase_orders where id = ${again.po.id}`) as unknown as [
+        { version: number },
+      ];
+    const before2 = await fingerprint(tables);
+    const refused = await request(
+      counter,
+      "POST",
+      `/api/v1/purchase-orders/${again.po.id}/cancel`,
+      {
+        version: v2,
+      },
+    );
+    expect(refused.status).toBe(422);
+    expect(refused.json.error).toMatchObject({ code: "not_cancellable" });
+    expect(refused.json.error.message).toContain("received");
+    expect(await fingerprint(tables)).toBe(before2);
+  });
+
   it("suppliers and purchase orders are staff only; the tuner reads but does not write them", async () => {
     expect((await request(customer, "GET", "/api/v1/suppliers")).status).toBe(403);
     expect((await request(customer, "GET", "/api/v1/purchase-orders")).status).toBe(403);

@@ -451,6 +451,126 @@ describe("load → save unchanged → the stored row is byte for byte the same",
     expect(await rowText("invoices", inv.id)).toBe(invBefore);
   });
 
+  it("the supplier form and the draft invoice editor, through their actions as the screens fill them: the same again writes nothing", async () => {
+    const [part] = await sql`select id from parts where shop_id = ${SHOP} order by sku limit 1`;
+    // A supplier with every field the form shows left blank but the name, and one with all set.
+    for (const fields of [
+      { name: `Round trip form supply ${tag}` },
+      {
+        name: `Round trip full supply ${tag}`,
+        contactName: "Dana Okafor",
+        email: `rt-form-${tag.toLowerCase()}@supplier.example.test`,
+        phone: "+1 201 555 0199",
+        leadTimeDays: 0,
+        notes: "Ships Tuesdays\nCall first",
+        parts: [{ partId: part!.id, supplierSku: "RT-F1", costMinor: 1999 }],
+      },
+    ]) {
+      const made = await request(counter, "POST", "/api/v1/suppliers", fields);
+      expect(made.status).toBe(201);
+      const id = made.json.supplier.id as string;
+      const before = await rowText("suppliers", id);
+      const partsBefore =
+        await sql`select p::text as t from supplier_parts p where supplier_id = ${id} order by part_id`;
+      const s = (await request(counter, "GET", `/api/v1/suppliers/${id}`)).json.supplier;
+      // What components/operations/supplier-editor.tsx sends for a form left as loaded.
+      const state = await act(
+        counter,
+        ref(
+          "lib/purchasing/purchasing-actions.ts",
+          "updateSupplierAction",
+          `/purchasing/suppliers/${id}`,
+        ),
+        {
+          id,
+          version: s.version,
+          name: s.name,
+          contactName: s.contactName ?? "",
+          email: s.email ?? "",
+          phone: s.phone ?? "",
+          leadTimeDays: s.leadTimeDays,
+          notes: s.notes ?? "",
+          parts: s.parts.map(
+            (p: { partId: string; supplierSku: string; costMinor: number | null }) => ({
+              partId: p.partId,
+              supplierSku: p.supplierSku,
+              costMinor: p.costMinor,
+            }),
+          ),
+        },
+      );
+      expect(state, JSON.stringify(state)).toMatchObject({ ok: true });
+      expect(await rowText("suppliers", id)).toBe(before);
+      expect(
+        await sql`select p::text as t from supplier_parts p where supplier_id = ${id} order by part_id`,
+      ).toEqual(partsBefore);
+    }
+
+    // A draft invoice with a part line, a discounted labour line and a note, saved as loaded.
+    const [q] =
+      await sql`insert into quotes (shop_id, number, customer_id, status, currency, tax_rate_bp, valid_until, accepted_at)
+      values (${SHOP}, 900000 + floor(random() * 90000)::int, ${customerId}, 'deposit_paid', 'USD', 825, '2099-01-01', now()) returning id`;
+    await sql`insert into quote_lines (shop_id, quote_id, position, kind, description, quantity_milli, unit_price_minor, discount_bp)
+      values (${SHOP}, ${q!.id}, 1, 'labour', 'Round trip labour', 1250, 12000, 750)`;
+    // One unit on the shelf for the fitting to issue.
+    await sql`update parts set stock = stock + 1 where id = ${part!.id}`;
+    const job = await request(counter, "POST", "/api/v1/jobs", { quoteId: q!.id });
+    await request(tuner, "POST", `/api/v1/jobs/${job.json.job.id}/fit`, {
+      version: job.json.job.version,
+      parts: [{ partId: part!.id, quantity: 1 }],
+      labourMilli: 1250,
+    });
+    const raised = await request(counter, "POST", "/api/v1/invoices", { jobId: job.json.job.id });
+    expect(raised.status, JSON.stringify(raised.json)).toBe(201);
+    const invId = raised.json.invoice.id as string;
+    const noted = await request(counter, "PATCH", `/api/v1/invoices/${invId}`, {
+      version: raised.json.invoice.version,
+      notes: "Leak-checked\nTorqued to spec",
+    });
+    expect(noted.status).toBe(200);
+    const inv = noted.json.invoice;
+    const invBefore = await rowText("invoices", invId);
+    const linesBefore =
+      await sql`select l::text as t from invoice_lines l where invoice_id = ${invId} order by position`;
+    // What components/operations/invoice-editor.tsx sends for a draft left as loaded.
+    const saved = await act(
+      counter,
+      ref("lib/invoices/invoice-actions.ts", "editInvoiceAction", `/invoices/${invId}`),
+      {
+        id: invId,
+        version: inv.version,
+        notes: inv.notes,
+        lines: inv.lines.map(
+          (l: {
+            kind: string;
+            partId: string | null;
+            sku: string | null;
+            description: string;
+            quantityMilli: number;
+            unitPriceMinor: number;
+            discountBp: number;
+          }) => ({
+            kind: l.kind,
+            partId: l.partId,
+            sku: l.sku,
+            description: l.description.trim(),
+            quantityMilli: l.quantityMilli,
+            unitPriceMinor: l.unitPriceMinor,
+            discountBp: l.discountBp,
+          }),
+        ),
+      },
+    );
+    expect(saved, JSON.stringify(saved)).toMatchObject({
+      ok: true,
+      data: { version: inv.version },
+    });
+    expect(await rowText("invoices", invId)).toBe(invBefore);
+    expect(
+      await sql`select l::text as t from invoice_lines l where invoice_id = ${invId} order by position`,
+    ).toEqual(linesBefore);
+  });
+
   it("shop settings, through the settings form as the page fills it, in both unit systems", async () => {
     const names = [
       ...Object.keys(SEED_SETTINGS_FORM),

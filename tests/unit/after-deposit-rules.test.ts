@@ -12,6 +12,7 @@ import {
 } from "@/lib/domain/jobs";
 import { creditNoteLabel, invoiceLabel, jobLabel, poLabel } from "@/lib/domain/operations";
 import {
+  cancelRefusal,
   poStatusAfterReceipt,
   receiptIssues,
   releaseBackOrders,
@@ -87,6 +88,20 @@ describe("receiving against a purchase order", () => {
         { id: "b", quantity: 2, receivedQty: 2 },
       ]),
     ).toBe("received");
+  });
+});
+
+describe("cancelling a purchase order", () => {
+  const none = [{ id: "l1", quantity: 3, receivedQty: 0 }];
+  it("is allowed for a draft or sent order that received nothing", () => {
+    expect(cancelRefusal("draft", none)).toBeNull();
+    expect(cancelRefusal("sent", none)).toBeNull();
+  });
+  it("is refused once anything arrived, and for an order already cancelled", () => {
+    expect(cancelRefusal("sent", [{ id: "l1", quantity: 3, receivedQty: 1 }])).toMatch(/received/);
+    expect(cancelRefusal("partly_received", none)).toMatch(/received/);
+    expect(cancelRefusal("received", none)).toMatch(/received/);
+    expect(cancelRefusal("cancelled", none)).toMatch(/cancelled already/);
   });
 });
 

@@ -147,7 +147,12 @@ export default async function PurchasingPage() {
           <ul className="mb-4 divide-y divide-ink-100 rounded-lg border border-ink-200 bg-white text-sm">
             {suppliers.map((s) => (
               <li key={s.id} className="px-4 py-2">
-                <span className="font-medium text-ink-800">{s.name}</span>
+                <Link
+                  href={`/purchasing/suppliers/${s.id}`}
+                  className="font-medium text-copper-700 underline"
+                >
+                  {s.name}
+                </Link>
                 <span className="block break-all text-ink-600">
                   {[s.email, s.leadTimeDays !== null ? `${s.leadTimeDays} days` : null]
                     .filter(Boolean)

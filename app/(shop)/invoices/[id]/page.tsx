@@ -2,9 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { ActionButton } from "@/components/operations/action-button";
 import { CreditNoteForm } from "@/components/operations/credit-note-form";
 import { InvoiceBody } from "@/components/operations/invoice-body";
+import { InvoiceEditor } from "@/components/operations/invoice-editor";
 import { MailLog } from "@/components/operations/mail-log";
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getInvoice } from "@/db/queries/invoices";
@@ -13,7 +13,6 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { INVOICE_STATUS_LABELS, invoiceLabel, jobLabel } from "@/lib/domain/operations";
 import { idOrNotFound } from "@/lib/ids";
-import { issueInvoiceAction } from "@/lib/invoices/invoice-actions";
 
 export const metadata: Metadata = { title: "Invoice" };
 
@@ -43,26 +42,43 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
       </PageHeader>
       <p className="mb-4 text-ink-800">
         {inv.customerName}{" "}
-        <Signal level={i.status === "draft" ? "info" : i.status === "paid" ? "ok" : "caution"}>
+        <Signal
+          level={i.status === "draft" ? "info" : i.status === "paid" ? "ok" : "caution"}
+          testId="invoice-status"
+        >
           {INVOICE_STATUS_LABELS[i.status]}
         </Signal>
       </p>
-      <InvoiceBody inv={inv} />
       {i.status === "draft" && write ? (
-        <section className="mt-6">
-          <p className="mb-2 text-sm text-ink-600">
-            Issuing numbers the invoice and e-mails it to {inv.customerName} with a link to pay;
-            after that it is never edited (a credit note corrects it).
+        <section aria-labelledby="edit-h">
+          <h2 id="edit-h" className="mb-1 text-lg font-semibold text-ink-900">
+            Before it is issued
+          </h2>
+          <p className="mb-3 text-sm text-ink-600">
+            Say what was actually fitted and the labour used; the deposit paid is deducted.
           </p>
-          <ActionButton
-            action={issueInvoiceAction}
-            payload={{ id: i.id, version: i.version }}
-            label="Issue and e-mail"
-            busyLabel="Issuing…"
-            confirm="Issue this invoice? It is numbered, e-mailed and cannot be edited afterwards."
+          <InvoiceEditor
+            id={i.id}
+            customerName={inv.customerName}
+            version={i.version}
+            currency={i.currency}
+            taxRateBp={i.taxRateBp}
+            depositMinor={i.depositMinor}
+            notes={i.notes ?? ""}
+            lines={inv.lines.map((l) => ({
+              kind: l.kind,
+              partId: l.partId,
+              sku: l.sku,
+              description: l.description,
+              quantityMilli: l.quantityMilli,
+              unitPriceMinor: l.unitPriceMinor,
+              discountBp: l.discountBp,
+            }))}
           />
         </section>
-      ) : null}
+      ) : (
+        <InvoiceBody inv={inv} />
+      )}
       {i.status !== "draft" && write ? (
         <section className="mt-8" aria-labelledby="cn-h">
           <h2 id="cn-h" className="mb-2 text-lg font-semibold text-ink-900">

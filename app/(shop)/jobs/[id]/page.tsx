@@ -8,6 +8,7 @@ import { QuantityForm } from "@/components/operations/quantity-form";
 import { PageHeader, Signal } from "@/components/ui/status";
 import { getJob } from "@/db/queries/jobs";
 import { mailOf } from "@/db/queries/mail-log";
+import { getQuote } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { JOB_STATUS_LABELS, jobLabel } from "@/lib/domain/operations";
@@ -24,8 +25,15 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
   const id = idOrNotFound((await params).id);
   const j = await getJob(m.shopId, id);
   if (!j) notFound();
-  const mail = await mailOf(m.shopId, [id]);
   const job = j.job;
+  const [mail, quote] = await Promise.all([
+    mailOf(m.shopId, [id]),
+    getQuote(m.shopId, job.quoteId),
+  ]);
+  // The fit form starts the labour at what the quote sold (thousandths of an hour → hours).
+  const quotedLabourMilli = (quote?.lines ?? [])
+    .filter((l) => l.kind === "labour")
+    .reduce((t, l) => t + l.quantityMilli, 0);
   const parts = j.lines.filter((l) => l.partId);
   return (
     <>
@@ -39,7 +47,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
         <Link href={`/quotes/${job.quoteId}`} className="figure text-copper-700 underline">
           {quoteLabel(j.quoteNumber, j.quoteRevision)}
         </Link>{" "}
-        <Signal level={job.status === "waiting_parts" ? "caution" : "ok"}>
+        <Signal level={job.status === "waiting_parts" ? "caution" : "ok"} testId="job-status">
           {JOB_STATUS_LABELS[job.status]}
         </Signal>
       </p>
@@ -106,7 +114,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
               label: `${l.description} (units)`,
               start: l.allocatedQty,
             }))}
-            labourHours={2}
+            labourHours={quotedLabourMilli / 1000}
             confirm="Mark this job fitted? Stock is issued and the build moves to fitted."
             submitLabel="Mark fitted"
           />

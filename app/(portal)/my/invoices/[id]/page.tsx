@@ -54,7 +54,9 @@ export default async function MyInvoicePage({
         </div>
       </PageHeader>
       {note ? <FormStatus ok={note.ok} message={note.text} /> : null}
-      <p className="mb-4 text-ink-800">{INVOICE_STATUS_LABELS[i.status]}</p>
+      <p className="mb-4 text-ink-800" data-testid="my-invoice-status">
+        {INVOICE_STATUS_LABELS[i.status]}
+      </p>
       <InvoiceBody inv={inv} />
       {i.status === "issued" && due > 0 ? (
         <div className="mt-6 rounded-lg border border-copper-100 bg-copper-50 p-4">

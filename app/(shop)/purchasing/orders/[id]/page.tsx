@@ -12,8 +12,10 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { PO_RECEIVABLE, PO_STATUS_LABELS, poLabel } from "@/lib/domain/operations";
+import { cancelRefusal } from "@/lib/domain/purchasing";
 import { idOrNotFound } from "@/lib/ids";
 import {
+  cancelPurchaseOrderAction,
   receivePurchaseOrderAction,
   sendPurchaseOrderAction,
 } from "@/lib/purchasing/purchasing-actions";
@@ -30,6 +32,8 @@ export default async function PurchaseOrderPage({ params }: { params: Promise<{ 
   const write = can(m.role, "purchasing:write");
   const money = (v: number) => formatMoney(v, po.po.currency);
   const open = po.lines.filter((l) => l.receivedQty < l.quantity);
+  const label = poLabel(po.po.number);
+  const mayCancel = write && cancelRefusal(po.po.status, po.lines) === null;
   return (
     <>
       <PageHeader title={`Purchase order ${poLabel(po.po.number)}`}>
@@ -47,7 +51,12 @@ export default async function PurchaseOrderPage({ params }: { params: Promise<{ 
       </PageHeader>
       <p className="mb-4 text-ink-800">
         {po.supplierName}{" "}
-        <Signal level={po.po.status === "received" ? "ok" : "info"}>
+        <Signal
+          level={
+            po.po.status === "received" ? "ok" : po.po.status === "cancelled" ? "caution" : "info"
+          }
+          testId="po-status"
+        >
           {PO_STATUS_LABELS[po.po.status]}
         </Signal>
       </p>
@@ -90,17 +99,39 @@ export default async function PurchaseOrderPage({ params }: { params: Promise<{ 
         </table>
       </div>
       <p className="mt-2 text-right text-sm font-semibold">Total {money(po.po.totalMinor)}</p>
-      {write && po.po.status === "draft" ? (
-        <section className="mt-6">
-          <ActionButton
-            action={sendPurchaseOrderAction}
-            payload={{ id: po.po.id }}
-            label="E-mail to the supplier"
-            busyLabel="Sending…"
-            confirm={`E-mail ${poLabel(po.po.number)} to ${po.supplierName}?`}
-            variant="secondary"
-          />
+      {(write && po.po.status === "draft") || mayCancel ? (
+        <section className="mt-6 flex flex-wrap items-start gap-3">
+          {write && po.po.status === "draft" ? (
+            <ActionButton
+              action={sendPurchaseOrderAction}
+              payload={{ id: po.po.id }}
+              label="E-mail to the supplier"
+              busyLabel="Sending…"
+              confirm={`E-mail ${label} to ${po.supplierName}?`}
+              variant="secondary"
+            />
+          ) : null}
+          {mayCancel ? (
+            <ActionButton
+              action={cancelPurchaseOrderAction}
+              payload={{ id: po.po.id, version: po.po.version }}
+              label="Cancel this order"
+              busyLabel="Cancelling…"
+              confirm={`Cancel ${label}?${po.po.status === "sent" ? ` ${po.supplierName} already has it: tell them too.` : ""} What it was for goes back on the reorder list; this cannot be undone.`}
+              variant="secondary"
+            />
+          ) : null}
         </section>
+      ) : null}
+      {po.po.status === "cancelled" ? (
+        <p className="mt-6 text-sm text-ink-700">
+          This order is cancelled: nothing is received against it, and what it was for is back on
+          the{" "}
+          <Link href="/purchasing" className="text-copper-700 underline">
+            reorder list
+          </Link>
+          .
+        </p>
       ) : null}
       {write && PO_RECEIVABLE.includes(po.po.status) && open.length ? (
         <section className="mt-8" aria-labelledby="recv-h">
