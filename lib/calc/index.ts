@@ -149,7 +149,12 @@ export {
   powerAtBoostKw,
   predictNextStep,
   preparePull,
+  mergeTuneLimits,
+  nextOverride,
+  sameLimit,
   summarizePull,
+  TUNE_LIMIT_KEYS,
+  TuneLimitsOverrideSchema,
   TuneLimitsSchema,
 } from "./tune";
 export type {
@@ -159,7 +164,9 @@ export type {
   NextStep,
   PowerMeasuredAt,
   StepTarget,
+  TuneLimitKey,
   TuneLimits,
+  TuneLimitsOverride,
   TunePoint,
   TunePullSummary,
 } from "./tune";
