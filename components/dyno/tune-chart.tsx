@@ -134,6 +134,20 @@ export function TuneChart({
   });
   const data = [...rows.values()].sort((a, b) => a.rpm! - b.rpm!);
   const quantityOf = (key: string) => CHANNELS.get(key.split(":")[1] ?? "")?.quantity ?? "ratio";
+  // No pull shown logged either channel: say so rather than draw empty axes.
+  const logged = data.some((r) => Object.entries(r).some(([k, v]) => k !== "rpm" && v !== null));
+  if (!logged)
+    return (
+      <figure
+        className="rounded-lg border border-ink-200 bg-white p-3"
+        data-testid={`tune-chart-${group.id}`}
+      >
+        <figcaption className="text-sm font-semibold">{group.title}</figcaption>
+        <p className="mt-1 text-sm text-ink-600">
+          Not logged in the pulls shown: no {group.left.label} or {group.right.label} column.
+        </p>
+      </figure>
+    );
   return (
     <figure
       className="rounded-lg border border-ink-200 bg-white p-3"
@@ -195,7 +209,7 @@ export function TuneChart({
                 name,
               ]}
             />
-            <Legend wrapperStyle={{ fontSize: 11 }} />
+            <Legend verticalAlign="top" wrapperStyle={{ fontSize: 11, paddingBottom: 4 }} />
             {pulls.flatMap((p, i) =>
               [group.left, group.right].map((c, side) => (
                 <Line

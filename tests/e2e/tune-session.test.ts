@@ -102,15 +102,20 @@ describe("tune session", () => {
   }, 300_000);
 });
 
-/** A logger whose column names the guess cannot read (invented): rpm and duty must be chosen. */
-const ODD_LOG = [
-  "Tick,Crank Spd,Inj Open,WB1,Mnf P",
-  "s,1/min,%,λ,psi",
-  ...Array.from({ length: 21 }, (_, i) => {
-    const rpm = 3000 + i * 200;
-    return `${i},${rpm},${(30 + i * 2).toFixed(1)},0.86,${(i * 0.6).toFixed(1)}`;
-  }),
-].join("\n");
+/**
+ * A logger whose column names the guess cannot read (invented): rpm and duty must be chosen. A
+ * column named for the run keeps it a logger the shop has not mapped before (mappings are
+ * remembered per header set, and other suites use the same test database).
+ */
+const oddLog = (run: string) =>
+  [
+    `Tick,Crank Spd,Inj Open,WB1,Mnf P,Run ${run}`,
+    "s,1/min,%,λ,psi,",
+    ...Array.from({ length: 21 }, (_, i) => {
+      const rpm = 3000 + i * 200;
+      return `${i},${rpm},${(30 + i * 2).toFixed(1)},0.86,${(i * 0.6).toFixed(1)},1`;
+    }),
+  ].join("\n");
 
 describe("tune session, as a tuner in each unit system on a phone", () => {
   it("places an unreadable log by its columns, edits a pull, reads the limits' sources, and shows no raw figure", async () => {
@@ -140,13 +145,11 @@ describe("tune session, as a tuner in each unit system on a phone", () => {
         const form = session.getByRole("form", { name: "Add a pull" });
 
         // 1. A log the guess cannot place: the columns are offered, the file stays chosen.
-        await form
-          .getByLabel("Pull log (CSV)")
-          .setInputFiles({
-            name: "odd-logger.csv",
-            mimeType: "text/csv",
-            buffer: Buffer.from(ODD_LOG),
-          });
+        await form.getByLabel("Pull log (CSV)").setInputFiles({
+          name: "odd-logger.csv",
+          mimeType: "text/csv",
+          buffer: Buffer.from(oddLog(`${units}-${Date.now().toString(36)}`)),
+        });
         await form.getByLabel("Ethanol content (%)").fill("85");
         await form.getByLabel("Power measured at").selectOption("crank");
         await form.getByRole("button", { name: "Add pull" }).click();
@@ -228,7 +231,23 @@ describe("tune session, as a tuner in each unit system on a phone", () => {
         await limits.getByRole("button", { name: "Save for this build" }).click();
         await expect.poll(() => limits.getByText("Nothing to save").count()).toBe(1);
 
-        // 4. The screen as read: no NaN, no float tails, a unit on every axis and tooltip,
+        // 4. A log without power says so instead of drawing empty axes; a second pull with every
+        // channel (placed by the guess) fills the charts.
+        await expect(page.getByTestId("tune-chart-power").innerText()).resolves.toMatch(
+          /Not logged in the pulls shown: no power or torque column/,
+        );
+        const full = THREE_PULLS[2];
+        await form
+          .getByLabel("Pull log (CSV)")
+          .setInputFiles({ name: full.name, mimeType: "text/csv", buffer: Buffer.from(full.csv) });
+        await form.getByLabel("Ethanol content (%)").fill("85");
+        await form.getByLabel("Power measured at").selectOption("wheel");
+        await form.getByRole("button", { name: "Add pull" }).click();
+        await expect
+          .poll(() => session.getByText(`${full.name} added`).count(), { timeout: 30000 })
+          .toBe(1);
+
+        // 5. The screen as read: no NaN, no float tails, a unit on every axis and tooltip,
         // nothing wider than the phone.
         const text = await session.innerText();
         expect(text).not.toMatch(/NaN|undefined|Infinity/);
@@ -237,14 +256,16 @@ describe("tune session, as a tuner in each unit system on a phone", () => {
           const c = page.getByTestId(`tune-chart-${chart}`);
           await c.scrollIntoViewIfNeeded();
           await expect.poll(() => c.locator(".recharts-yAxis").count(), { timeout: 15000 }).toBe(2);
-          const ticks = await c.locator(".recharts-cartesian-axis-tick-value").allInnerTexts();
+          const ticks = await c.locator(".recharts-cartesian-axis-tick-value").allTextContents();
           expect(ticks.length).toBeGreaterThan(0);
           for (const t of ticks) expect(t, `${chart} tick`).not.toMatch(/\d\.\d{4,}|NaN/);
-          const labels = (await c.locator(".recharts-label").allInnerTexts()).join(" | ");
+          const labels = (await c.locator(".recharts-label").allTextContents()).join(" | ");
           expect(labels, chart).toMatch(/engine speed \(rpm\)/);
           expect(labels.match(/\([^)]+\)/g)?.length ?? 0, chart).toBeGreaterThanOrEqual(3);
-          const box = (await c.locator(".recharts-surface").first().boundingBox())!;
-          await page.mouse.move(box.x + box.width * 0.6, box.y + box.height * 0.4);
+          const surface = c.locator(".recharts-wrapper").first();
+          const box = (await surface.boundingBox())!;
+          await surface.hover({ position: { x: box.width * 0.5, y: box.height * 0.4 } });
+          await page.mouse.move(box.x + box.width * 0.6, box.y + box.height * 0.4, { steps: 4 });
           const tip = c.locator(".recharts-tooltip-wrapper");
           await expect
             .poll(() => tip.innerText().catch(() => ""), { timeout: 5000 })
