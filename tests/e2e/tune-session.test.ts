@@ -332,8 +332,9 @@ describe("tune session, as a tuner in each unit system on a phone", () => {
       await expect
         .poll(() => editor.getByTestId("limit-source-maxDutyPct").innerText(), { timeout: 15000 })
         .toBe("From: shop default");
-      // A tuner reads them on Settings but cannot change them.
-      const tctx = await newClient(browser);
+      // A tuner reads them on Settings (on a phone: nothing wider than the screen) but cannot
+      // change them.
+      const tctx = await newClient(browser, { width: 390, height: 844 });
       const tpage = await tctx.newPage();
       await signInAs(tpage, "tuner");
       await tpage.goto("/settings");
@@ -341,6 +342,12 @@ describe("tune session, as a tuner in each unit system on a phone", () => {
       await expect.poll(() => ro.count(), { timeout: 30000 }).toBe(1);
       expect(await ro.getByRole("button", { name: "Save the shop's limits" }).count()).toBe(0);
       await expect(ro.getByLabel(/Maximum injector duty/).isDisabled()).resolves.toBe(true);
+      await expect(ro.getByTestId("limit-source-maxDutyPct").innerText()).resolves.toBe(
+        "From: shop default",
+      );
+      expect(await tpage.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+        390,
+      );
       await tctx.close();
     } finally {
       await sql`update shop_settings set tune_limits = ${shop!.tune_limits === null ? null : sql.json(shop!.tune_limits)} where shop_id = 'demo-shop-ridgeback'`;
