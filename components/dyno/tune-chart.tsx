@@ -233,13 +233,29 @@ export function TuneChart({
                   x={o.rpm}
                   stroke={COLOURS[i % COLOURS.length]}
                   strokeDasharray="2 2"
-                  label={{ value: `over: ${o.label}`, fontSize: 10, position: "insideTop" }}
                 />
               )),
             )}
           </LineChart>
         </ResponsiveContainer>
       </div>
+      {/* The marks' words below the plot: inside it, two limits near one speed wrote over each other. */}
+      {pulls.some((p) => p.overAt.length) ? (
+        <ul className="mt-1 space-y-0.5 text-xs text-ink-700" aria-label="Limits crossed">
+          {pulls.flatMap((p, i) =>
+            p.overAt.map((o) => (
+              <li key={`${p.key}-${o.label}-${o.rpm}`} className="flex items-center gap-1.5">
+                <span
+                  aria-hidden
+                  className="inline-block w-4 border-t-2 border-dashed"
+                  style={{ borderColor: COLOURS[i % COLOURS.length] }}
+                />
+                over: {o.label} — {p.label} at {formatValue("speed", o.rpm, units)}
+              </li>
+            )),
+          )}
+        </ul>
+      ) : null}
     </figure>
   );
 }
