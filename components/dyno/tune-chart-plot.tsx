@@ -23,7 +23,7 @@ import {
   type UnitSystem,
 } from "@/lib/calc";
 
-import { axisLabel, CHART_GROUPS, tooltipValue, type ChartPull } from "./tune-chart";
+import { axisLabel, CHART_GROUPS, tickText, tooltipValue, type ChartPull } from "./tune-chart";
 
 const COLOURS = ["#b3592c", "#1f5f8b", "#1f7a5a", "#7a3f8f", "#44505c", "#a1431b"];
 const CHANNELS = new Map(CHART_GROUPS.flatMap((g) => [g.left, g.right]).map((c) => [c.id, c]));
@@ -54,6 +54,20 @@ export function TuneChartPlot({
   });
   const data = [...rows.values()].sort((a, b) => a.rpm! - b.rpm!);
   const quantityOf = (key: string) => CHANNELS.get(key.split(":")[1] ?? "")?.quantity ?? "ratio";
+  // No pull shown logged either channel: say so rather than draw empty axes.
+  const logged = data.some((r) => Object.entries(r).some(([k, v]) => k !== "rpm" && v !== null));
+  if (!logged)
+    return (
+      <figure
+        className="rounded-lg border border-ink-200 bg-white p-3"
+        data-testid={`tune-chart-${group.id}`}
+      >
+        <figcaption className="text-sm font-semibold">{group.title}</figcaption>
+        <p className="mt-1 text-sm text-ink-600">
+          Not logged in the pulls shown: no {group.left.label} or {group.right.label} column.
+        </p>
+      </figure>
+    );
   return (
     <figure
       className="rounded-lg border border-ink-200 bg-white p-3"
@@ -84,6 +98,7 @@ export function TuneChartPlot({
             <YAxis
               yAxisId="left"
               tick={{ fontSize: 11 }}
+              tickFormatter={tickText(group.left.quantity, units)}
               width={52}
               domain={["auto", "auto"]}
               label={{
@@ -97,6 +112,7 @@ export function TuneChartPlot({
               yAxisId="right"
               orientation="right"
               tick={{ fontSize: 11 }}
+              tickFormatter={tickText(group.right.quantity, units)}
               width={52}
               domain={["auto", "auto"]}
               label={{
@@ -113,7 +129,7 @@ export function TuneChartPlot({
                 name,
               ]}
             />
-            <Legend wrapperStyle={{ fontSize: 11 }} />
+            <Legend verticalAlign="top" wrapperStyle={{ fontSize: 11, paddingBottom: 4 }} />
             {pulls.flatMap((p, i) =>
               [group.left, group.right].map((c, side) => (
                 <Line
@@ -137,13 +153,29 @@ export function TuneChartPlot({
                   x={o.rpm}
                   stroke={COLOURS[i % COLOURS.length]}
                   strokeDasharray="2 2"
-                  label={{ value: `over: ${o.label}`, fontSize: 10, position: "insideTop" }}
                 />
               )),
             )}
           </LineChart>
         </ResponsiveContainer>
       </div>
+      {/* The marks' words below the plot: inside it, two limits near one speed wrote over each other. */}
+      {pulls.some((p) => p.overAt.length) ? (
+        <ul className="mt-1 space-y-0.5 text-xs text-ink-700" aria-label="Limits crossed">
+          {pulls.flatMap((p, i) =>
+            p.overAt.map((o) => (
+              <li key={`${p.key}-${o.label}-${o.rpm}`} className="flex items-center gap-1.5">
+                <span
+                  aria-hidden
+                  className="inline-block w-4 border-t-2 border-dashed"
+                  style={{ borderColor: COLOURS[i % COLOURS.length] }}
+                />
+                over: {o.label} — {p.label} at {formatValue("speed", o.rpm, units)}
+              </li>
+            )),
+          )}
+        </ul>
+      ) : null}
     </figure>
   );
 }

@@ -77,6 +77,18 @@ export function axisLabel(c: { label: string; quantity: Quantity }, units: UnitS
   return u ? `${c.label} (${u})` : c.label;
 }
 
+/**
+ * An axis tick at the quantity's precision in the reader's units ("8.7", "0.86", "1742"): never a
+ * float's tail such as 0.8200000000000001. The unit is in the axis's label.
+ */
+export function tickText(quantity: Quantity, units: UnitSystem) {
+  const d = converter(quantity, units).decimals;
+  return (v: number | string) => {
+    const n = Number(v);
+    return Number.isFinite(n) ? String(Number(n.toFixed(d))) : "";
+  };
+}
+
 /** A charted value back to its quantity's own words: "54.1 psi", "λ 0.86" (never 54.149184…). */
 export function tooltipValue(shown: unknown, quantity: Quantity, units: UnitSystem) {
   if (typeof shown !== "number" || !Number.isFinite(shown)) return "—";

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useState, useTransition } from "react";
+import { useRef, useState, useTransition } from "react";
 import useSWR from "swr";
 
 import { Button, LinkButton } from "@/components/ui/button";
@@ -20,6 +20,7 @@ import {
   type LimitCheck,
   type LimitStatus,
   type NextStep,
+  type TuneLimitKey,
   type TuneLimits,
   type TunePoint,
   type TunePullSummary,
@@ -28,13 +29,21 @@ import {
 } from "@/lib/calc";
 import { fetcher } from "@/lib/fetcher";
 import {
+  pullFromText,
+  pullText,
+  pullTextErrors,
+  type PullFields,
+  type PullText,
+} from "@/lib/tune/pull-form";
+import {
   deleteTunePullAction,
   nextPowerStepAction,
   updateTunePullAction,
 } from "@/lib/tune/tune-actions";
 
 import { CHART_GROUPS, TuneChart, type ChartPull } from "./tune-chart";
-import { TuneLimitsEditor } from "./tune-limits-editor";
+import { cleanMapping, TuneColumnPicker, type PickerMapping } from "./tune-column-picker";
+import { TuneLimitsEditor, type LimitSource } from "./tune-limits-editor";
 
 interface PullView {
   id: string;
@@ -55,7 +64,9 @@ interface PullView {
 interface Session {
   limits: TuneLimits;
   limitsSource: "build" | "shop" | "library";
+  limitSources: Record<TuneLimitKey, LimitSource>;
   shopLimits: TuneLimits;
+  shopLimitsSource: "shop" | "library";
   pulls: PullView[];
   next: { from: string; step: NextStep } | { from: null; reason: string };
 }
@@ -80,7 +91,7 @@ function uploadPull(
   file: File,
   query: URLSearchParams,
   onProgress: (pct: number) => void,
-): Promise<{ ok: boolean; body: { cutShort?: boolean; error?: { message: string } } }> {
+): Promise<{ ok: boolean; body: UploadBody }> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", `/api/v1/builds/${buildId}/tune/pulls?${query.toString()}`);
@@ -184,7 +195,7 @@ export function TuneSession({
         The pulls of this build in order. Power logged at the hubs or wheels is carried to the crank
         with the build&apos;s drivetrain loss before BSFC is worked out. Limits:{" "}
         {data.limitsSource === "build"
-          ? "this build's own"
+          ? `this build's own where it sets them, else ${data.shopLimitsSource === "shop" ? "the shop's defaults" : "Fuelwright's defaults"}`
           : data.limitsSource === "shop"
             ? "the shop's defaults"
             : "Fuelwright's defaults"}
@@ -226,10 +237,13 @@ export function TuneSession({
         onAsk={setNext}
       />
       <TuneLimitsEditor
+        scope="build"
         buildId={buildId}
         units={units}
         limits={data.limits}
-        source={data.limitsSource}
+        sources={data.limitSources}
+        base={data.shopLimits}
+        baseSource={data.shopLimitsSource}
         canWrite={canWrite}
         canSetShopLimits={canSetShopLimits}
         onSaved={() => mutate()}
@@ -237,6 +251,30 @@ export function TuneSession({
     </section>
   );
 }
+
+interface UploadBody {
+  cutShort?: boolean;
+  error?: { code?: string; message: string; issues?: { path: string; message: string }[] };
+  current?: { columns: string[]; units: string[]; mapping: PickerMapping; remembered: boolean };
+}
+
+/** A log the mapping could not place, held while the tuner chooses its columns. */
+interface Placing {
+  file: File;
+  columns: string[];
+  units: string[];
+  mapping: PickerMapping;
+  remembered: boolean;
+  issues: Record<string, string>;
+}
+
+/** The field a pull's field error belongs to on the add form (`boostTargetKpa` → boostTarget). */
+const ADD_FIELD: Record<string, string> = {
+  ethanolPct: "ethanolPct",
+  boostTargetKpa: "boostTarget",
+  powerMeasuredAt: "powerMeasuredAt",
+  notes: "notes",
+};
 
 function AddPull({
   buildId,
@@ -247,27 +285,41 @@ function AddPull({
   units: UnitSystem;
   onAdded: () => void;
 }) {
+  const formRef = useRef<HTMLFormElement>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [status, setStatus] = useState<{ ok: boolean; message: string } | null>(null);
-  const pressure = converter("pressure", units);
-  const onSubmit = async (e: React.FormEvent<HTMLFormElement>) => {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    const file = form.get("log");
-    if (!(file instanceof File) || !file.size)
-      return setStatus({ ok: false, message: "Choose the pull's log (CSV)" });
-    if (file.size > 20 * 1024 * 1024)
-      return setStatus({ ok: false, message: "The log is larger than 20 MB" });
-    const q = new URLSearchParams();
-    q.set("ethanolPct", String(form.get("ethanolPct") ?? ""));
-    q.set("powerMeasuredAt", String(form.get("powerMeasuredAt") ?? ""));
-    const boost = String(form.get("boostTarget") ?? "").trim();
-    if (boost) {
-      const n = parseNumberText(boost);
-      q.set("boostTargetKpa", Number.isFinite(n) ? String(pressure.from(n)) : boost);
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
+  const [placing, setPlacing] = useState<Placing | null>(null);
+
+  /** Sends the file with the form's fields (and a mapping, from the column picker). */
+  const send = async (file: File, mapping?: PickerMapping) => {
+    const form = new FormData(formRef.current!);
+    const text: PullText = {
+      ethanolPct: String(form.get("ethanolPct") ?? ""),
+      boostTarget: String(form.get("boostTarget") ?? ""),
+      notes: String(form.get("notes") ?? "").trim(),
+      powerMeasuredAt: String(form.get("powerMeasuredAt") ?? ""),
+    };
+    const local = pullTextErrors(text, units);
+    if (Object.keys(local).length) {
+      setFieldErrors(
+        Object.fromEntries(Object.entries(local).map(([k, v]) => [ADD_FIELD[k] ?? k, v])),
+      );
+      return setStatus({ ok: false, message: "Some fields are not valid: see the fields marked" });
     }
-    const notes = String(form.get("notes") ?? "").trim();
-    if (notes) q.set("notes", notes);
+    setFieldErrors({});
+    const q = new URLSearchParams();
+    const values = pullFromText(text, units, {
+      ethanolPct: NaN,
+      boostTargetKpa: null,
+      notes: "",
+      powerMeasuredAt: "wheel",
+    });
+    q.set("ethanolPct", String(values.ethanolPct));
+    q.set("powerMeasuredAt", text.powerMeasuredAt);
+    if (values.boostTargetKpa !== null) q.set("boostTargetKpa", String(values.boostTargetKpa));
+    if (text.notes) q.set("notes", text.notes);
+    if (mapping) q.set("mapping", JSON.stringify(cleanMapping(mapping)));
     setStatus(null);
     setProgress(0);
     const r = await uploadPull(buildId, file, q, setProgress);
@@ -275,47 +327,122 @@ function AddPull({
     if (r.ok) {
       setStatus({
         ok: true,
-        message: `${file.name} added${r.body.cutShort ? " — the file stops mid-row, so its partial last row was left out" : ""}`,
+        message: `${file.name} added${r.body.cutShort ? " — the file stops mid-row, so its partial last row was left out" : ""}${mapping ? "; its columns are remembered for this logger" : ""}`,
       });
-      (e.target as HTMLFormElement).reset();
+      setPlacing(null);
+      formRef.current?.reset();
       onAdded();
-    } else setStatus({ ok: false, message: r.body.error?.message ?? "The pull was not added" });
+      return;
+    }
+    const issues = r.body.error?.issues ?? [];
+    const byField = Object.fromEntries(
+      issues.filter((i) => ADD_FIELD[i.path]).map((i) => [ADD_FIELD[i.path]!, i.message]),
+    );
+    // Mapping issues (`mapping.duty.column`) go to their channel in the column picker.
+    const byChannel = Object.fromEntries(
+      issues
+        .filter((i) => i.path.startsWith("mapping."))
+        .map((i) => [i.path.split(".")[1]!, i.message]),
+    );
+    setFieldErrors(byField);
+    const cur = r.body.current;
+    if (r.body.error?.code === "unplaced_log" && cur)
+      setPlacing({
+        file,
+        columns: cur.columns,
+        units: cur.units,
+        mapping: placing?.mapping ?? cur.mapping,
+        remembered: cur.remembered,
+        issues: byChannel,
+      });
+    else if (placing) setPlacing({ ...placing, issues: byChannel });
+    setStatus({ ok: false, message: r.body.error?.message ?? "The pull was not added" });
+  };
+
+  const onSubmit = async (e: React.FormEvent<HTMLFormElement>) => {
+    e.preventDefault();
+    const file = new FormData(e.currentTarget).get("log");
+    if (!(file instanceof File) || !file.size) {
+      setFieldErrors({ log: "Choose the pull's log (CSV)" });
+      return setStatus({ ok: false, message: "Choose the pull's log (CSV)" });
+    }
+    if (file.size > 20 * 1024 * 1024) {
+      setFieldErrors({ log: "The log is larger than 20 MB" });
+      return setStatus({ ok: false, message: "The log is larger than 20 MB" });
+    }
+    setPlacing(null);
+    await send(file);
   };
   return (
-    <form
-      onSubmit={onSubmit}
-      className="grid gap-3 rounded-lg border border-ink-200 bg-white p-4 sm:grid-cols-2 lg:grid-cols-5"
-      aria-label="Add a pull"
-    >
-      <Field label="Pull log (CSV)" name="log" type="file" accept=".csv,text/csv,text/plain" />
-      <Field
-        label="Ethanol content (%)"
-        name="ethanolPct"
-        inputMode="decimal"
-        defaultValue="85"
-        required
-      />
-      <Field
-        label={`Boost target (${unitOf("pressure", units)})`}
-        name="boostTarget"
-        inputMode="decimal"
-        hint="Blank: not stated"
-      />
-      <SelectField label="Power measured at" name="powerMeasuredAt" defaultValue="wheel">
-        <option value="wheel">the wheels</option>
-        <option value="hub">the hubs</option>
-        <option value="crank">the crank (engine dyno)</option>
-      </SelectField>
-      <Field label="Notes" name="notes" maxLength={2000} />
-      <div className="flex items-center gap-3 sm:col-span-2 lg:col-span-5">
-        <Button type="submit" disabled={progress !== null}>
-          {progress !== null ? `Uploading… ${progress} %` : "Add pull"}
-        </Button>
-        <div aria-live="polite">
-          {status ? <FormStatus ok={status.ok} message={status.message} /> : null}
+    <div className="space-y-3">
+      <form
+        ref={formRef}
+        onSubmit={onSubmit}
+        noValidate
+        className="grid gap-3 rounded-lg border border-ink-200 bg-white p-4 sm:grid-cols-2 lg:grid-cols-5"
+        aria-label="Add a pull"
+      >
+        <Field
+          label="Pull log (CSV)"
+          name="log"
+          type="file"
+          accept=".csv,text/csv,text/plain"
+          error={fieldErrors.log}
+          onChange={() => setPlacing(null)}
+        />
+        <Field
+          label="Ethanol content (%)"
+          name="ethanolPct"
+          inputMode="decimal"
+          defaultValue="85"
+          required
+          error={fieldErrors.ethanolPct}
+        />
+        <Field
+          label={`Boost target (${unitOf("pressure", units)})`}
+          name="boostTarget"
+          inputMode="decimal"
+          hint="Blank: not stated"
+          error={fieldErrors.boostTarget}
+        />
+        <SelectField
+          label="Power measured at"
+          name="powerMeasuredAt"
+          defaultValue="wheel"
+          error={fieldErrors.powerMeasuredAt}
+        >
+          <option value="wheel">the wheels</option>
+          <option value="hub">the hubs</option>
+          <option value="crank">the crank (engine dyno)</option>
+        </SelectField>
+        <Field label="Notes" name="notes" maxLength={2000} error={fieldErrors.notes} />
+        <div className="flex flex-wrap items-center gap-3 sm:col-span-2 lg:col-span-5">
+          <Button type="submit" disabled={progress !== null}>
+            {progress !== null ? `Uploading… ${progress} %` : "Add pull"}
+          </Button>
+          <div aria-live="polite">
+            {status ? <FormStatus ok={status.ok} message={status.message} /> : null}
+          </div>
         </div>
-      </div>
-    </form>
+      </form>
+      {placing ? (
+        <TuneColumnPicker
+          fileName={placing.file.name}
+          columns={placing.columns}
+          units={placing.units}
+          mapping={placing.mapping}
+          remembered={placing.remembered}
+          issues={placing.issues}
+          pending={progress !== null}
+          onChange={(mapping) => setPlacing({ ...placing, mapping })}
+          onRetry={() => void send(placing.file, placing.mapping)}
+          onCancel={() => {
+            setPlacing(null);
+            setStatus(null);
+          }}
+        />
+      ) : null}
+    </div>
   );
 }
 
@@ -336,6 +463,7 @@ function PullList({
 }) {
   const [pending, start] = useTransition();
   const [confirming, setConfirming] = useState<string | null>(null);
+  const [editing, setEditing] = useState<string | null>(null);
   const [message, setMessage] = useState<{ ok: boolean; message: string } | null>(null);
   const run = (fn: () => Promise<{ ok: boolean; message?: string }>, done: string) =>
     start(async () => {
@@ -446,8 +574,31 @@ function PullList({
                   })}
                 </ul>
               </details>
-              {canWrite ? (
+              {canWrite && editing === p.id ? (
+                <PullEditor
+                  pull={p}
+                  units={units}
+                  onDone={(saved) => {
+                    setEditing(null);
+                    if (saved) {
+                      setMessage({ ok: true, message: saved });
+                      onChanged();
+                    }
+                  }}
+                />
+              ) : null}
+              {canWrite && editing !== p.id ? (
                 <div className="mt-2 flex flex-wrap items-center gap-3 text-sm">
+                  <LinkButton
+                    disabled={pending}
+                    onClick={() => {
+                      setMessage(null);
+                      setEditing(p.id);
+                    }}
+                    aria-label={`Edit pull ${p.position}`}
+                  >
+                    Edit
+                  </LinkButton>
                   <LinkButton
                     disabled={pending}
                     onClick={() =>
@@ -506,6 +657,127 @@ function PullList({
         })}
       </ol>
     </div>
+  );
+}
+
+const PULL_FIELD: Record<string, keyof PullText> = {
+  ethanolPct: "ethanolPct",
+  boostTargetKpa: "boostTarget",
+  notes: "notes",
+  powerMeasuredAt: "powerMeasuredAt",
+};
+
+/**
+ * A pull's own fields on screen: fuel, boost target, where power was measured, notes. Figures in
+ * the reader's units; one left as shown is saved exactly as loaded, so an unchanged save writes
+ * nothing. A new fuel or power site measures the log again; the checks follow on the next read.
+ */
+function PullEditor({
+  pull,
+  units,
+  onDone,
+}: {
+  pull: PullView;
+  units: UnitSystem;
+  onDone: (saved: string | null) => void;
+}) {
+  const loaded: PullFields = {
+    ethanolPct: pull.ethanolPct,
+    boostTargetKpa: pull.boostTargetKpa,
+    notes: pull.notes,
+    powerMeasuredAt: pull.powerMeasuredAt,
+  };
+  const [text, setText] = useState<PullText>(() => pullText(loaded, units));
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [pending, start] = useTransition();
+  const id = (f: string) => `pull-${pull.id}-${f}`;
+  const set = (k: keyof PullText) => (e: { target: { value: string } }) =>
+    setText((t) => ({ ...t, [k]: e.target.value }));
+  const save = (e: React.FormEvent) => {
+    e.preventDefault();
+    const local = pullTextErrors(text, units);
+    setErrors(Object.fromEntries(Object.entries(local).map(([k, v]) => [PULL_FIELD[k] ?? k, v])));
+    if (Object.keys(local).length) {
+      setMessage("Some fields are not valid: see the fields marked");
+      // The first invalid field takes the focus.
+      const first = Object.keys(local)[0]!;
+      document.getElementById(id(PULL_FIELD[first] ?? first))?.focus();
+      return;
+    }
+    if (JSON.stringify(text) === JSON.stringify(pullText(loaded, units)))
+      return onDone(`Nothing to save on pull ${pull.position}`);
+    start(async () => {
+      const r = await updateTunePullAction(initialActionState, {
+        id: pull.id,
+        ...pullFromText(text, units, loaded),
+      });
+      if (r.ok) return onDone(`Pull ${pull.position} saved`);
+      setErrors(
+        Object.fromEntries(
+          Object.entries(r.fieldErrors ?? {}).map(([k, v]) => [PULL_FIELD[k] ?? k, v.join(" ")]),
+        ),
+      );
+      setMessage(r.message ?? "The pull was not saved");
+    });
+  };
+  return (
+    <form
+      onSubmit={save}
+      noValidate
+      aria-label={`Edit pull ${pull.position}`}
+      className="mt-3 grid gap-3 border-t border-ink-100 pt-3 sm:grid-cols-2"
+    >
+      <Field
+        id={id("ethanolPct")}
+        label="Ethanol content (%)"
+        name="ethanolPct"
+        inputMode="decimal"
+        value={text.ethanolPct}
+        onChange={set("ethanolPct")}
+        error={errors.ethanolPct}
+      />
+      <Field
+        id={id("boostTarget")}
+        label={`Boost target (${unitOf("pressure", units)})`}
+        name="boostTarget"
+        inputMode="decimal"
+        value={text.boostTarget}
+        onChange={set("boostTarget")}
+        hint="Blank: not stated"
+        error={errors.boostTarget}
+      />
+      <SelectField
+        id={id("powerMeasuredAt")}
+        label="Power measured at"
+        name="powerMeasuredAt"
+        value={text.powerMeasuredAt}
+        onChange={set("powerMeasuredAt")}
+        error={errors.powerMeasuredAt}
+      >
+        <option value="wheel">the wheels</option>
+        <option value="hub">the hubs</option>
+        <option value="crank">the crank (engine dyno)</option>
+      </SelectField>
+      <Field
+        id={id("notes")}
+        label="Notes"
+        name="notes"
+        maxLength={2000}
+        value={text.notes}
+        onChange={set("notes")}
+        error={errors.notes}
+      />
+      <div className="flex flex-wrap items-center gap-3 sm:col-span-2">
+        <Button type="submit" disabled={pending}>
+          {pending ? "Saving…" : "Save pull"}
+        </Button>
+        <Button type="button" variant="secondary" onClick={() => onDone(null)} disabled={pending}>
+          Cancel
+        </Button>
+        <div aria-live="polite">{message ? <FormStatus ok={false} message={message} /> : null}</div>
+      </div>
+    </form>
   );
 }
 

@@ -2,7 +2,7 @@ import { and, asc, eq, sql } from "drizzle-orm";
 
 import { db } from "@/db";
 import { datalogMappings, datalogs, shopSettings, tunePulls, tuneSessions } from "@/db/schema";
-import type { TuneLimits } from "@/lib/calc";
+import type { TuneLimits, TuneLimitsOverride } from "@/lib/calc";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 import { differs, differsFromExcluded } from "./unchanged";
@@ -125,6 +125,16 @@ export async function deleteTunePull(shopId: string, id: string) {
   });
 }
 
+/** The shop's default limits as stored (null: the library's). */
+export async function shopTuneLimits(shopId: string) {
+  const [shop] = await db
+    .select({ limits: shopSettings.tuneLimits })
+    .from(shopSettings)
+    .where(eq(shopSettings.shopId, shopId))
+    .limit(1);
+  return shop?.limits ?? null;
+}
+
 /** The build's own limits (null: none, the shop's apply) and the shop's defaults (null: the library's). */
 export async function tuneLimitsOf(shopId: string, buildId: string) {
   const [build] = await db
@@ -132,20 +142,15 @@ export async function tuneLimitsOf(shopId: string, buildId: string) {
     .from(tuneSessions)
     .where(and(eq(tuneSessions.shopId, shopId), eq(tuneSessions.buildId, buildId)))
     .limit(1);
-  const [shop] = await db
-    .select({ limits: shopSettings.tuneLimits })
-    .from(shopSettings)
-    .where(eq(shopSettings.shopId, shopId))
-    .limit(1);
-  return { build: build?.limits ?? null, shop: shop?.limits ?? null };
+  return { build: build?.limits ?? null, shop: await shopTuneLimits(shopId) };
 }
 
-/** The build's own limits (null: back to the shop's); the same again writes nothing. */
+/** The build's own limit fields (null: back to the shop's); the same again writes nothing. */
 export async function saveBuildTuneLimits(
   shopId: string,
   buildId: string,
   userId: string,
-  limits: TuneLimits | null,
+  limits: TuneLimitsOverride | null,
 ) {
   await db
     .insert(tuneSessions)

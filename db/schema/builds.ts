@@ -19,7 +19,7 @@ import type {
   FuelSystemResult,
   ParsedFuelSystemInput,
   PowerMeasuredAt,
-  TuneLimits,
+  TuneLimitsOverride,
   TunePoint,
   TunePullSummary,
   Warning,
@@ -182,7 +182,10 @@ export const datalogMappings = pgTable(
   (t) => [primaryKey({ columns: [t.shopId, t.headerKey] })],
 );
 
-/** A build's tune session: its own limits (null: the shop's, shop_settings.tune_limits). */
+/**
+ * A build's tune session: its own limits, only the fields it sets apart (null or a field left
+ * out: the shop's, shop_settings.tune_limits).
+ */
 export const tuneSessions = pgTable(
   "tune_sessions",
   {
@@ -192,7 +195,7 @@ export const tuneSessions = pgTable(
     buildId: uuid("build_id")
       .notNull()
       .references(() => builds.id, { onDelete: "cascade" }),
-    limits: jsonb("limits").$type<TuneLimits>(),
+    limits: jsonb("limits").$type<TuneLimitsOverride>(),
     updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -160,7 +160,12 @@ export {
   powerAtBoostKw,
   predictNextStep,
   preparePull,
+  mergeTuneLimits,
+  nextOverride,
+  sameLimit,
   summarizePull,
+  TUNE_LIMIT_KEYS,
+  TuneLimitsOverrideSchema,
   TuneLimitsSchema,
 } from "./tune";
 export type {
@@ -170,7 +175,9 @@ export type {
   NextStep,
   PowerMeasuredAt,
   StepTarget,
+  TuneLimitKey,
   TuneLimits,
+  TuneLimitsOverride,
   TunePoint,
   TunePullSummary,
 } from "./tune";

@@ -38,36 +38,52 @@ export const LambdaTargetSchema = z.object({
   lambda: n("Target lambda", 0.6, 1.3),
 });
 
-/** The limits a pull is judged against: the shop's defaults, or a build's own. */
-export const TuneLimitsSchema = z
-  .object({
-    lambdaTargets: z
-      .array(LambdaTargetSchema)
-      .min(1, "Give at least one lambda target")
-      .max(12, "At most 12 rows in the lambda table"),
-    /** How much leaner than the target a pull may run before it is "over". */
-    lambdaLeanAllowance: n("Lean allowance", 0, 0.2),
-    maxDutyPct: n("Maximum duty", 50, 100, " %"),
-    maxEgtC: n("Maximum EGT", 300, 1200, " °C"),
-    maxEgtSpreadC: n("Maximum EGT spread", 5, 400, " °C"),
-    maxBackPressureRatio: n("Maximum exhaust-to-boost pressure ratio", 1, 4),
-    /** The compressor map's limit; null: not known, not checked. */
-    maxTurboRpm: n("Maximum turbo speed", 10000, 400000, " rpm").nullable(),
-    /** Within this share below a maximum, a pull is "near" it. */
-    nearPct: n("Near band", 0, 25, " %"),
-  })
-  .superRefine((l, ctx) => {
-    const seen = new Set<number>();
-    l.lambdaTargets.forEach((r, i) => {
-      if (seen.has(r.boostKpa))
-        ctx.addIssue({
-          code: "custom",
-          path: ["lambdaTargets", i, "boostKpa"],
-          message: "Each row of the lambda table needs its own boost",
-        });
-      seen.add(r.boostKpa);
-    });
+/** The limits a pull is judged against, field by field (the lambda table is one field). */
+const TuneLimitsShape = z.object({
+  lambdaTargets: z
+    .array(LambdaTargetSchema)
+    .min(1, "Give at least one lambda target")
+    .max(12, "At most 12 rows in the lambda table"),
+  /** How much leaner than the target a pull may run before it is "over". */
+  lambdaLeanAllowance: n("Lean allowance", 0, 0.2),
+  maxDutyPct: n("Maximum duty", 50, 100, " %"),
+  maxEgtC: n("Maximum EGT", 300, 1200, " °C"),
+  maxEgtSpreadC: n("Maximum EGT spread", 5, 400, " °C"),
+  maxBackPressureRatio: n("Maximum exhaust-to-boost pressure ratio", 1, 4),
+  /** The compressor map's limit; null: not known, not checked. */
+  maxTurboRpm: n("Maximum turbo speed", 10000, 400000, " rpm").nullable(),
+  /** Within this share below a maximum, a pull is "near" it. */
+  nearPct: n("Near band", 0, 25, " %"),
+});
+
+function distinctBoosts(rows: { boostKpa: number }[] | undefined, ctx: z.RefinementCtx) {
+  const seen = new Set<number>();
+  rows?.forEach((r, i) => {
+    if (seen.has(r.boostKpa))
+      ctx.addIssue({
+        code: "custom",
+        path: ["lambdaTargets", i, "boostKpa"],
+        message: "Each row of the lambda table needs its own boost",
+      });
+    seen.add(r.boostKpa);
   });
+}
+
+/** The limits a pull is judged against: the shop's defaults, or a build's own. */
+export const TuneLimitsSchema = TuneLimitsShape.superRefine((l, ctx) =>
+  distinctBoosts(l.lambdaTargets, ctx),
+);
+/**
+ * A build's own limits: only the fields it sets apart from the shop's (the rest follow the
+ * shop's defaults, and change with them).
+ */
+export const TuneLimitsOverrideSchema = TuneLimitsShape.partial().superRefine((l, ctx) =>
+  distinctBoosts(l.lambdaTargets, ctx),
+);
+export type TuneLimitsOverride = z.output<typeof TuneLimitsOverrideSchema>;
+export type TuneLimitKey = keyof z.output<typeof TuneLimitsShape>;
+/** Every field of the limits, in the editor's order. */
+export const TUNE_LIMIT_KEYS = Object.keys(TuneLimitsShape.shape) as TuneLimitKey[];
 export type TuneLimits = z.output<typeof TuneLimitsSchema>;
 
 /**
@@ -91,6 +107,49 @@ export const DEFAULT_TUNE_LIMITS: TuneLimits = {
   maxTurboRpm: null,
   nearPct: 5,
 };
+
+/** Do two values of one limit field say the same (the lambda table row by row)? */
+export function sameLimit<K extends TuneLimitKey>(a: TuneLimits[K], b: TuneLimits[K]): boolean {
+  if (Array.isArray(a) && Array.isArray(b))
+    return (
+      a.length === b.length &&
+      a.every((r, i) => r.boostKpa === b[i]!.boostKpa && r.lambda === b[i]!.lambda)
+    );
+  return a === b;
+}
+
+/**
+ * The limits in force: the build's own fields over the base (the shop's defaults, else the
+ * library's).
+ * @example mergeTuneLimits(DEFAULT_TUNE_LIMITS, { maxDutyPct: 85 }).maxDutyPct // 85
+ */
+export function mergeTuneLimits(base: TuneLimits, own: TuneLimitsOverride | null): TuneLimits {
+  const out = { ...base } as Record<TuneLimitKey, unknown>;
+  for (const k of TUNE_LIMIT_KEYS) if (own && own[k] !== undefined) out[k] = own[k];
+  return out as TuneLimits;
+}
+
+/**
+ * A build's own fields after an edit: a field sent as it is in force keeps what the build had
+ * (own or the shop's), a changed field is the build's own unless it equals the base again; null
+ * when nothing is the build's own.
+ * @example nextOverride(DEFAULT_TUNE_LIMITS, null, { maxDutyPct: 85 }) // { maxDutyPct: 85 }
+ */
+export function nextOverride(
+  base: TuneLimits,
+  own: TuneLimitsOverride | null,
+  sent: TuneLimitsOverride,
+): TuneLimitsOverride | null {
+  const inForce = mergeTuneLimits(base, own);
+  const out: Record<string, unknown> = {};
+  for (const k of TUNE_LIMIT_KEYS) {
+    const v = sent[k];
+    if (v === undefined || sameLimit(v as never, inForce[k] as never)) {
+      if (own && own[k] !== undefined) out[k] = own[k];
+    } else if (!sameLimit(v as never, base[k] as never)) out[k] = v;
+  }
+  return Object.keys(out).length ? (out as TuneLimitsOverride) : null;
+}
 
 /**
  * Crank power from a power measured at the hubs or wheels, with the build's drivetrain loss

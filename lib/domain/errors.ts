@@ -72,17 +72,22 @@ export class InvalidTransition extends DomainError {
   }
 }
 
-/** The input breaks a rule its schema cannot state (an unknown customer, an empty quote). */
-export class Invalid extends DomainError {
+/**
+ * The input breaks a rule its schema cannot state (an unknown customer, an empty quote).
+ * `current` carries what the caller needs to put it right, when useful (a log the mapping could
+ * not place: its columns and the mapping tried).
+ */
+export class Invalid<T = unknown> extends DomainError {
   constructor(
     message: string,
     readonly issues: FieldIssue[] = [],
     readonly code: string = "invalid_input",
+    readonly current?: T,
   ) {
     super(message);
   }
   /** One field is wrong: `Invalid.field("customerId", "That customer is not in this shop")`. */
-  static field(path: string, message: string, code = "invalid_input"): Invalid {
+  static field(path: string, message: string, code = "invalid_input"): Invalid<never> {
     return new Invalid(message, [{ path, message }], code);
   }
 }

@@ -32,7 +32,7 @@ export interface ErrorDescription {
   code: string;
   message: string;
   issues: FieldIssue[];
-  /** On a conflict: the record as it is now. */
+  /** On a conflict: the record as it is now; on some refusals, what puts the input right. */
   current?: unknown;
   headers?: Record<string, string>;
 }
@@ -66,7 +66,8 @@ export function describeError(err: unknown): ErrorDescription {
       return { ...base, status: 409, current: err.current, issues: err.issues };
     if (err instanceof InvalidTransition)
       return { ...base, status: 422, issues: [{ path: err.path, message: err.message }] };
-    if (err instanceof Invalid) return { ...base, status: 422, issues: err.issues };
+    if (err instanceof Invalid)
+      return { ...base, status: 422, issues: err.issues, current: err.current };
     if (err instanceof RateLimited)
       return { ...base, status: 429, headers: { "Retry-After": String(err.retryAfter) } };
     if (err instanceof Unavailable) {

@@ -45,6 +45,8 @@ export function shopSettingsView(name: string, s: ShopSettings) {
     labourRate: s.labourRateMinor / 100,
     depositPct: s.depositBp / 100,
     quoteValidDays: s.quoteValidDays,
+    /** The shop's default tune limits (null: the library's, DEFAULT_TUNE_LIMITS). */
+    tuneLimits: s.tuneLimits ?? null,
     updatedAt: s.updatedAt.toISOString(),
   };
 }
@@ -58,7 +60,9 @@ export function settingsFormValues(
   system: UnitSystem,
 ): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const [k, x] of Object.entries(v)) out[k] = x === null || x === undefined ? "" : String(x);
+  for (const [k, x] of Object.entries(v))
+    if (typeof x !== "object" || x === null)
+      out[k] = x === null || x === undefined ? "" : String(x);
   for (const [k, s] of Object.entries(SHOWN_SETTINGS))
     out[k] = shownText(s.quantity, v[k as ShownSetting], system);
   out.shownUnits = system;

@@ -8,10 +8,17 @@ import { authorize } from "@/lib/auth/permissions";
 import { Invalid, NotFound } from "@/lib/domain/errors";
 import type { ImageInfo } from "@/lib/images/logo";
 import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
-import { DUTY_ORDER_MESSAGE, type ShopSettingsSchema } from "@/lib/validations/settings";
+import { shopLimitsAfter } from "@/lib/tune/limits";
+import {
+  DUTY_ORDER_MESSAGE,
+  type ShopSettingsPatchSchema,
+  type ShopSettingsSchema,
+} from "@/lib/validations/settings";
 
 export type ShopSettingsInput = z.output<typeof ShopSettingsSchema>;
-export type ShopSettingsPatch = Partial<ShopSettingsInput>;
+export type ShopSettingsPatch = Partial<ShopSettingsInput> & {
+  tuneLimits?: z.output<typeof ShopSettingsPatchSchema>["tuneLimits"];
+};
 
 /** The shop's settings as the form and the API show them (any staff member reads them). */
 export async function readShopSettings(member: Member): Promise<ShopSettingsView> {
@@ -44,8 +51,15 @@ export async function saveShopSettings(
   const picked = Object.fromEntries(
     COLUMNS_BY_NAME.flatMap((k) => (input[k] === undefined ? [] : [[k, input[k]]])),
   );
+  // The tune limits: the fields sent over the shop's; the library's defaults saved as they are
+  // stay the library's (nothing written).
+  const limits =
+    input.tuneLimits === undefined
+      ? { write: false, limits: null }
+      : shopLimitsAfter(current.settings.tuneLimits, input.tuneLimits);
   await updateShopSettings(member.shopId, shopName, {
     ...picked,
+    ...(limits.write ? { tuneLimits: limits.limits } : {}),
     ...(taxRatePct === undefined ? {} : { taxRateBp: Math.round(taxRatePct * 100) }),
     ...(labourRate === undefined ? {} : { labourRateMinor: Math.round(labourRate * 100) }),
     ...(depositPct === undefined ? {} : { depositBp: Math.round(depositPct * 100) }),

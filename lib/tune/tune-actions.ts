@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 
 import { memberAction } from "@/lib/actions/member-action";
+import { PATHS } from "@/lib/cache-tags";
 import {
   NextPowerStepSchema,
   TuneLimitsSaveSchema,
@@ -27,10 +28,14 @@ export const deleteTunePullAction = memberAction(TunePullRefSchema, (m, input) =
   deleteTunePull(m, input),
 );
 
-/** The session's limits editor: the build's own limits, or (owner) the shop's defaults. */
+/**
+ * The limits editors: the build's own limits (the session's), or — the owner, from the session
+ * or the Settings page — the shop's defaults.
+ */
 export const saveTuneLimitsAction = memberAction(TuneLimitsSaveSchema, async (m, input) => {
   const out = await saveTuneLimits(m, input);
-  revalidatePath(`/builds/${input.buildId}/dyno`);
+  if (input.buildId) revalidatePath(`/builds/${input.buildId}/dyno`);
+  if (input.scope === "shop") revalidatePath(PATHS.settings);
   return out;
 });
 

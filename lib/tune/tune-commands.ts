@@ -12,13 +12,15 @@ import {
   insertTunePull,
   saveBuildTuneLimits,
   saveShopTuneLimits,
+  shopTuneLimits,
+  tuneLimitsOf,
   updateTunePull as updatePullRow,
 } from "@/db/queries/tune";
 import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { buildData, type BuildResult } from "@/lib/builds/build-data";
 import { readStoredInputs, sizeForSave, storedEffectiveInputs } from "@/lib/builds/stored-inputs";
-import { DatalogError, headerKey, parseDatalog } from "@/lib/calc";
+import { DatalogError, headerKey, nextOverride, parseDatalog } from "@/lib/calc";
 import { Invalid, NotFound } from "@/lib/domain/errors";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import { deleteObject, getObject, putObject } from "@/lib/storage";
@@ -30,7 +32,7 @@ import type {
   TunePullUploadSchema,
 } from "@/lib/validations/tune";
 
-import { measurePull, placeLog } from "./tune-session";
+import { limitsInForce, measurePull, placeLog, shopLimitsAfter } from "./tune-session";
 
 function parse(csv: string) {
   try {
@@ -128,15 +130,30 @@ export async function deleteTunePull(m: Member, input: z.output<typeof TunePullR
 }
 
 /**
- * The build's own limits (null: back to the shop's), or with `scope: "shop"` the shop's
- * defaults (the owner's, like every setting).
+ * The build's own limits: the fields sent, kept only where they stand apart from the shop's
+ * (a field sent as it is in force keeps its source; null: every field back to the shop's). With
+ * `scope: "shop"` the shop's defaults (the owner's, like every setting): the fields sent over
+ * the shop's, null back to the library's. Nothing changed writes nothing.
  */
 export async function saveTuneLimits(m: Member, input: z.output<typeof TuneLimitsSaveSchema>) {
   authorize(m, input.scope === "shop" ? "settings:update" : "datalogs:upload");
-  if (!(await getBuild(m.shopId, input.buildId))) throw new NotFound("That build");
-  if (input.scope === "shop") await saveShopTuneLimits(m.shopId, input.limits);
-  else await saveBuildTuneLimits(m.shopId, input.buildId, m.user.id, input.limits);
-  return { scope: input.scope, limits: input.limits };
+  if (input.scope === "shop") {
+    const next = shopLimitsAfter(await shopTuneLimits(m.shopId), input.limits);
+    if (next.write) await saveShopTuneLimits(m.shopId, next.limits);
+    const after = limitsInForce({ build: null, shop: next.limits });
+    return { scope: input.scope, limits: after.limits, sources: after.sources };
+  }
+  const buildId = input.buildId;
+  if (!buildId) throw Invalid.field("buildId", "Name the build whose limits these are");
+  if (!(await getBuild(m.shopId, buildId))) throw new NotFound("That build");
+  const stored = await tuneLimitsOf(m.shopId, buildId);
+  const now = limitsInForce(stored);
+  const own = input.limits === null ? null : nextOverride(now.base, now.own, input.limits);
+  // No row and nothing of its own: nothing to write (an unchanged save stays unchanged).
+  if (own !== null || stored.build !== null)
+    await saveBuildTuneLimits(m.shopId, buildId, m.user.id, own);
+  const after = limitsInForce({ build: own, shop: stored.shop });
+  return { scope: input.scope, limits: after.limits, sources: after.sources };
 }
 
 /**

@@ -12,12 +12,16 @@ import {
   DEFAULT_TUNE_LIMITS,
   fuelBlend,
   mappingProblems,
+  mergeTuneLimits,
   predictNextStep,
   preparePull,
+  sameLimit,
   samplesFromLog,
   sizeParsedFuelSystem,
   suggestMapping,
   summarizePull,
+  TUNE_LIMIT_KEYS,
+  TuneLimitsOverrideSchema,
   TuneLimitsSchema,
   type Datalog,
   type DatalogMapping,
@@ -26,33 +30,44 @@ import {
   type ParsedFuelSystemInput,
   type PowerMeasuredAt,
   type StepTarget,
+  type TuneLimitKey,
   type TuneLimits,
+  type TuneLimitsOverride,
 } from "@/lib/calc";
 import { Invalid, NotFound } from "@/lib/domain/errors";
 
-/** Which source the session's limits came from. */
-export type LimitsSource = "build" | "shop" | "library";
+import { limitsInForce } from "./limits";
 
-/** The limits in force for a build: its own, else the shop's, else the library's. */
-export function limitsInForce(stored: { build: unknown; shop: unknown }): {
-  limits: TuneLimits;
-  source: LimitsSource;
-} {
-  const b = TuneLimitsSchema.safeParse(stored.build);
-  if (stored.build && b.success) return { limits: b.data, source: "build" };
-  const s = TuneLimitsSchema.safeParse(stored.shop);
-  if (stored.shop && s.success) return { limits: s.data, source: "shop" };
-  return { limits: DEFAULT_TUNE_LIMITS, source: "library" };
+export { limitsInForce, shopLimitsAfter, type LimitsSource } from "./limits";
+
+/**
+ * What a tuner needs to place a log by hand, carried by the 422 `unplaced_log` (`current`): the
+ * log's columns with their units row, the mapping tried (the one sent, remembered or guessed, as
+ * far as it went) and whether it was the one remembered for this logger.
+ */
+export interface UnplacedLog {
+  columns: string[];
+  units: string[];
+  mapping: Partial<DatalogMapping>;
+  remembered: boolean;
 }
 
 /**
  * The mapping a new pull's log is read with: the one sent, else the shop's remembered mapping for
  * this logger's header set, else a guess from the headers. A log it cannot place is refused with
- * a message naming the column (or the channel no column was found for); nothing is stored.
+ * a message naming the column (or the channel no column was found for), and the log's columns so
+ * the screen can offer them; nothing is stored.
  */
 export function placeLog(log: Datalog, mapping: unknown, remembered: boolean): DatalogMapping {
-  const parsed = DatalogMappingSchema.safeParse(mapping ?? suggestMapping(log));
+  const tried = mapping ?? suggestMapping(log);
+  const parsed = DatalogMappingSchema.safeParse(tried);
   const cols = log.headers.map((h) => `"${h}"`).join(", ");
+  const current: UnplacedLog = {
+    columns: log.headers,
+    units: log.headers.map((_, i) => log.units[i] ?? ""),
+    mapping: (tried && typeof tried === "object" ? tried : {}) as Partial<DatalogMapping>,
+    remembered,
+  };
   if (!parsed.success) {
     const first = parsed.error.issues[0]!;
     const channel = String(first.path[0] ?? "");
@@ -63,9 +78,10 @@ export function placeLog(log: Datalog, mapping: unknown, remembered: boolean): D
           ? "injector duty or pulse width"
           : channel;
     throw new Invalid(
-      `No column of this log reads as ${what} (its columns: ${cols}). Name it in the mapping and upload again`,
+      `No column of this log reads as ${what} (its columns: ${cols}). Choose its column and try again`,
       [{ path: `mapping.${first.path.join(".")}`, message: first.message }],
       "unplaced_log",
+      current,
     );
   }
   const problems = mappingProblems(parsed.data, log.headers);
@@ -76,6 +92,7 @@ export function placeLog(log: Datalog, mapping: unknown, remembered: boolean): D
         .join(", ")}, which this log does not have (its columns: ${cols})`,
       problems.map((p) => ({ path: `mapping.${p.path}`, message: p.message })),
       "unplaced_log",
+      current,
     );
   // A named column with no number in it cannot be placed either.
   const empty = mappedColumns(parsed.data).find((c) => {
@@ -87,6 +104,7 @@ export function placeLog(log: Datalog, mapping: unknown, remembered: boolean): D
       `The column "${empty.column}" (mapped as ${empty.as}) holds no numbers`,
       [{ path: `mapping.${empty.path}`, message: `The column "${empty.column}" holds no numbers` }],
       "unplaced_log",
+      current,
     );
   return parsed.data;
 }
@@ -121,6 +139,12 @@ export function measurePull(
         `The column "${mapping.rpm}" (engine speed) has no usable speed in any row`,
         [{ path: "mapping.rpm", message: "No row has an engine speed" }],
         "unplaced_log",
+        {
+          columns: log.headers,
+          units: log.headers.map((_, i) => log.units[i] ?? ""),
+          mapping,
+          remembered: false,
+        } satisfies UnplacedLog,
       );
     const summary = summarizePull(
       points,
@@ -173,8 +197,7 @@ export async function tuneSession(
   const row = await getBuild(shopId, buildId);
   if (!row) throw new NotFound("That build");
   const stored = await tuneLimitsOf(shopId, buildId);
-  const { limits, source } = limitsInForce(stored);
-  const shopLimits = limitsInForce({ build: null, shop: stored.shop }).limits;
+  const { limits, source, sources, base: shopLimits, baseSource } = limitsInForce(stored);
   const pulls: PullView[] = (await listTunePulls(shopId, buildId)).map(
     ({ pull: p, fileName, verifiedAt }) => ({
       id: p.id,
@@ -199,7 +222,11 @@ export async function tuneSession(
     buildId,
     limits,
     limitsSource: source,
+    /** Where each field of `limits` comes from: this build, the shop's defaults or the library's. */
+    limitSources: sources,
+    /** What the build's limits start from (the shop's defaults, else the library's). */
     shopLimits,
+    shopLimitsSource: baseSource,
     pulls,
     next: nextStep(row.build, pulls, limits, step),
   };

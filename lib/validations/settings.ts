@@ -2,6 +2,7 @@ import { z } from "zod";
 
 import { parseNumberText } from "@/lib/calc/number-text";
 import { converter, formatValue, type Quantity } from "@/lib/calc/quantities";
+import { TuneLimitsOverrideSchema } from "@/lib/calc/tune";
 import type { UnitSystem } from "@/lib/calc/units";
 import { isCountryCode } from "@/lib/domain/countries";
 import { canonicalTimeZone, PAPER_SIZES } from "@/lib/domain/documents";
@@ -213,15 +214,17 @@ export const ShopSettingsSchema = ShopSettingsFields.refine(
 
 /**
  * A change through the API: any of the settings by the form's names, the others kept; a name
- * that is no setting is a field error. Rules across fields (caution below danger) are checked
- * by the command on the settings as they will be.
+ * that is no setting is a field error. `tuneLimits` are the shop's default tune limits: any of
+ * their fields over those in force, null back to the library's. Rules across fields (caution
+ * below danger) are checked by the command on the settings as they will be.
  */
 export const ShopSettingsPatchSchema = ShopSettingsFields.partial()
+  .extend({ tuneLimits: TuneLimitsOverrideSchema.nullable().optional() })
   .loose()
   .superRefine(
     (v, ctx) => {
       for (const k of Object.keys(v))
-        if (!Object.hasOwn(ShopSettingsFields.shape, k))
+        if (!Object.hasOwn(ShopSettingsFields.shape, k) && k !== "tuneLimits")
           ctx.addIssue({ code: "custom", path: [k], message: `${k} is not a shop setting` });
     },
     // Named beside the other fields' errors, not only once they are right.

@@ -4,7 +4,7 @@ import {
   DatalogMappingSchema,
   numberFromField,
   POWER_MEASURED_AT,
-  TuneLimitsSchema,
+  TuneLimitsOverrideSchema,
 } from "@/lib/calc";
 
 /** A number from a form field, a query parameter (text) or a JSON body (number). */
@@ -63,11 +63,14 @@ export const TunePullUpdateSchema = z.object(
 
 export const TunePullRefSchema = z.object({ id: z.uuid("Unknown pull") });
 
-/** The build's own limits (null: back to the shop's), or — the owner — the shop's defaults. */
+/**
+ * The build's own limits (any of the fields; null: back to the shop's), or — the owner, with
+ * `scope: "shop"` and no build needed — the shop's defaults (null: back to the library's).
+ */
 export const TuneLimitsSaveSchema = z.object(
   {
-    buildId: z.uuid("Unknown build"),
-    limits: TuneLimitsSchema.nullable(),
+    buildId: z.uuid("Unknown build").optional(),
+    limits: TuneLimitsOverrideSchema.nullable(),
     scope: z.enum(["build", "shop"], { error: "Scope is build or shop" }).default("build"),
   },
   { error: "Send { limits }" },

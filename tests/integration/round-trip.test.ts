@@ -1,13 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { initialActionState } from "@/lib/actions/state";
+import { DEFAULT_TUNE_LIMITS, type TuneLimits } from "@/lib/calc/tune";
 import { formatPhone } from "@/lib/format/phone";
+import { limitsFromText, limitsText } from "@/lib/tune/limits-form";
+import { pullFromText, pullText, type PullFields } from "@/lib/tune/pull-form";
 import { flatOf } from "@/lib/validations/parts";
 
 import { actionManifest, callAction, formOf, type ActionRef } from "../helpers/actions";
 import { fingerprint, makeOtherShop, sql } from "../helpers/db";
 import { BASE_URL, getBytes, request, signIn, type Client } from "../helpers/http";
 import { solidPng } from "../helpers/png";
+import { THREE_PULLS } from "../helpers/pulls";
 import { SEED_SETTINGS_FORM } from "../helpers/surface";
 
 /**
@@ -602,6 +606,121 @@ describe("load → save unchanged → the stored row is byte for byte the same",
       expect([await settingsRow(), await orgRow()], units).toEqual(before);
     }
     await sql`update "user" set unit_system = null where id = ${otherShop.userId}`;
+  });
+
+  it("tune pulls and tune limits, through their editors' fields in both unit systems and PATCH", async () => {
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId,
+      title: `${tag} tune round trip`,
+      inputs: demoInputs,
+    });
+    expect(made.status).toBe(201);
+    const buildId = made.json.build.id as string;
+    const spec = THREE_PULLS[2];
+    const up = await fetch(
+      `${BASE_URL}/api/v1/builds/${buildId}/tune/pulls?ethanolPct=85&boostTargetKpa=61.37&powerMeasuredAt=hub&notes=${encodeURIComponent("Second gear, E85")}`,
+      {
+        method: "POST",
+        body: spec.csv,
+        headers: {
+          cookie: tuner.cookie,
+          "x-forwarded-for": tuner.ip,
+          origin: BASE_URL,
+          "content-type": "text/csv",
+        },
+      },
+    );
+    expect(up.status, await up.clone().text()).toBe(201);
+    const pullId = ((await up.json()) as { pull: { id: string } }).pull.id;
+    // The build's own limits with more digits than the editor shows (a unit round trip could
+    // drift them: 60 kPa once came back as 59.98 from psi).
+    await sql`insert into tune_sessions (shop_id, build_id, limits) values (${SHOP}, ${buildId},
+      ${sql.json({
+        lambdaTargets: [
+          { boostKpa: 0, lambda: 0.905 },
+          { boostKpa: 61.37, lambda: 0.8612 },
+        ],
+        maxEgtC: 937.4,
+      })})`;
+    const pullRef = ref(
+      "lib/tune/tune-actions.ts",
+      "updateTunePullAction",
+      `/builds/${buildId}/dyno`,
+    );
+    const limitsRef = ref(
+      "lib/tune/tune-actions.ts",
+      "saveTuneLimitsAction",
+      `/builds/${buildId}/dyno`,
+    );
+    const pullRow = () => rowText("tune_pulls", pullId);
+    const sessionRow = () => rowText("tune_sessions", buildId, "build_id");
+    const shopRow = () => rowText("shop_settings", otherShop.shopId, "shop_id");
+    for (const units of ["metric", "imperial"] as const) {
+      const s = (await request(tuner, "GET", `/api/v1/builds/${buildId}/tune`)).json as {
+        limits: TuneLimits;
+        pulls: PullFields[];
+      };
+      const p = s.pulls[0]!;
+      // The pull editor as the screen fills it and saves it untouched.
+      const before = await pullRow();
+      const shown = pullText(p, units);
+      expect(shown.boostTarget).toBe(units === "metric" ? "61" : "8.9");
+      expect(
+        await act(tuner, pullRef, { id: pullId, ...pullFromText(shown, units, p) }),
+      ).toMatchObject({ ok: true });
+      expect(await pullRow(), units).toBe(before);
+      // The limits editor: the build's own fields and the shop's, untouched.
+      const sessionBefore = await sessionRow();
+      const text = limitsText(s.limits, units);
+      expect(
+        await act(tuner, limitsRef, {
+          buildId,
+          scope: "build",
+          limits: limitsFromText(text, units, s.limits),
+        }),
+      ).toMatchObject({ ok: true });
+      expect(await sessionRow(), units).toBe(sessionBefore);
+      // Settings, the owner of a shop with no limits of its own: the library's saved as shown
+      // stay the library's (nothing written); then with the shop's own, unchanged again.
+      for (const stored of [null, { ...DEFAULT_TUNE_LIMITS, maxEgtSpreadC: 77.7 }]) {
+        await sql`update shop_settings set tune_limits = ${stored === null ? null : sql.json(stored)} where shop_id = ${otherShop.shopId}`;
+        const shopBefore = await shopRow();
+        const inForce = stored ?? DEFAULT_TUNE_LIMITS;
+        expect(
+          await act(other, limitsRef, {
+            scope: "shop",
+            limits: limitsFromText(limitsText(inForce, units), units, inForce),
+          }),
+        ).toMatchObject({ ok: true });
+        expect(await shopRow(), units).toBe(shopBefore);
+      }
+    }
+    // PATCH with the same fields writes nothing either.
+    const p = (await request(tuner, "GET", `/api/v1/builds/${buildId}/tune`)).json.pulls[0];
+    const before = [await pullRow(), await sessionRow()];
+    expect(
+      (
+        await request(tuner, "PATCH", `/api/v1/tune-pulls/${pullId}`, {
+          ethanolPct: p.ethanolPct,
+          boostTargetKpa: p.boostTargetKpa,
+          notes: p.notes,
+          powerMeasuredAt: p.powerMeasuredAt,
+        })
+      ).status,
+    ).toBe(200);
+    const limits = (await request(tuner, "GET", `/api/v1/builds/${buildId}/tune`)).json.limits;
+    expect(
+      (await request(tuner, "PATCH", `/api/v1/builds/${buildId}/tune`, { limits })).status,
+    ).toBe(200);
+    expect([await pullRow(), await sessionRow()]).toEqual(before);
+    const shopBefore = await shopRow();
+    const shopLimits = (await request(other, "GET", "/api/v1/shop/settings")).json.settings
+      .tuneLimits;
+    expect(
+      (await request(other, "PATCH", "/api/v1/shop/settings", { tuneLimits: shopLimits })).status,
+    ).toBe(200);
+    expect(await shopRow()).toBe(shopBefore);
+    await sql`update shop_settings set tune_limits = null where shop_id = ${otherShop.shopId}`;
   });
 
   it("a member's role, a person's units and the shop's logo: the same again writes nothing", async () => {

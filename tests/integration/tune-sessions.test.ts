@@ -187,6 +187,128 @@ describe("tune sessions", () => {
     expect(await fingerprint(["datalogs", "tune_pulls", "datalog_mappings"])).toBe(before);
   });
 
+  it("offers an unplaced log's columns, takes it again with the tuner's mapping, and remembers that for the logger", async () => {
+    // A logger of our own invention whose names the guess cannot read.
+    const csv = [
+      "Tick,Crank Spd,Inj Open,WB1,Mnf P",
+      "s,1/min,%,λ,psi",
+      ...Array.from({ length: 21 }, (_, i) => {
+        const rpm = 3000 + i * 200;
+        return `${i},${rpm},${(30 + i * 2).toFixed(1)},0.86,${(i * 0.6).toFixed(1)}`;
+      }),
+    ].join("\n");
+    const before = await fingerprint(["datalogs", "tune_pulls", "datalog_mappings"]);
+    const r = await addPull(tuner, csv, { ethanolPct: 85, powerMeasuredAt: "crank" }, "odd.csv");
+    expect(r.status).toBe(422);
+    const body = (await r.json()) as {
+      error: { code: string; message: string };
+      current: { columns: string[]; units: string[]; remembered: boolean };
+    };
+    expect(body.error.code).toBe("unplaced_log");
+    expect(body.error.message).toContain('"Crank Spd"');
+    // The log's columns and their units row, for the screen's column picker.
+    expect(body.current.columns).toEqual(["Tick", "Crank Spd", "Inj Open", "WB1", "Mnf P"]);
+    expect(body.current.units).toEqual(["s", "1/min", "%", "λ", "psi"]);
+    expect(body.current.remembered).toBe(false);
+    expect(await fingerprint(["datalogs", "tune_pulls", "datalog_mappings"])).toBe(before);
+    // A mapping that still lacks duty: named on its field, nothing stored.
+    const half = await addPull(tuner, csv, {
+      ethanolPct: 85,
+      powerMeasuredAt: "crank",
+      mapping: JSON.stringify({ rpm: "Crank Spd" }),
+    });
+    expect(half.status).toBe(422);
+    const halfBody = (await half.json()) as { error: { issues: { path: string }[] } };
+    expect(halfBody.error.issues.map((i) => i.path)).toContain("mapping.duty");
+    expect(await fingerprint(["datalogs", "tune_pulls", "datalog_mappings"])).toBe(before);
+    // The same file with the tuner's columns: added.
+    const mapping = {
+      rpm: "Crank Spd",
+      duty: { column: "Inj Open", kind: "duty_pct" },
+      mixture: { column: "WB1", kind: "lambda" },
+      boost: { column: "Mnf P", kind: "gauge", unit: "psi" },
+    };
+    const ok = await addPull(
+      tuner,
+      csv,
+      { ethanolPct: 85, powerMeasuredAt: "crank", mapping: JSON.stringify(mapping) },
+      "odd.csv",
+    );
+    expect(ok.status, await ok.clone().text()).toBe(201);
+    // The next log of that logger places itself.
+    const again = await addPull(
+      tuner,
+      csv,
+      { ethanolPct: 85, powerMeasuredAt: "crank" },
+      "odd2.csv",
+    );
+    expect(again.status, await again.clone().text()).toBe(201);
+    const s = await session();
+    const added = s.pulls.slice(-2);
+    expect(added.map((p) => p.ethanolPct)).toEqual([85, 85]);
+    for (const p of added) await request(tuner, "DELETE", `/api/v1/tune-pulls/${p.id}`);
+  });
+
+  it("judges limits field by field: the build's own over the shop's defaults (Settings API, owner only)", async () => {
+    const limitsNow = async () =>
+      (await request(tuner, "GET", `/api/v1/builds/${BUILD}/tune`)).json as {
+        limits: Record<string, unknown>;
+        limitSources: Record<string, string>;
+        limitsSource: string;
+      };
+    // The shop's defaults through the settings API: the owner only, any of the fields.
+    expect(
+      (await request(tuner, "PATCH", "/api/v1/shop/settings", { tuneLimits: { maxDutyPct: 85 } }))
+        .status,
+    ).toBe(403);
+    const set = await request(owner, "PATCH", "/api/v1/shop/settings", {
+      tuneLimits: { maxDutyPct: 85 },
+    });
+    expect(set.status).toBe(200);
+    expect(set.json.settings.tuneLimits.maxDutyPct).toBe(85);
+    expect(set.json.settings.tuneLimits.maxEgtC).toBe(950);
+    const bad = await request(owner, "PATCH", "/api/v1/shop/settings", {
+      tuneLimits: { maxEgtC: 5000 },
+    });
+    expect(bad.status).toBe(422);
+    expect(bad.json.error.issues[0].path).toBe("tuneLimits.maxEgtC");
+    // The same again writes nothing.
+    const settingsBefore = await fingerprint(["shop_settings"]);
+    expect(
+      (await request(owner, "PATCH", "/api/v1/shop/settings", { tuneLimits: { maxDutyPct: 85 } }))
+        .status,
+    ).toBe(200);
+    expect(await fingerprint(["shop_settings"])).toBe(settingsBefore);
+
+    // The build sets only its EGT: that field is its own, the rest the shop's.
+    const own = await request(tuner, "PATCH", `/api/v1/builds/${BUILD}/tune`, {
+      limits: { maxEgtC: 900 },
+    });
+    expect(own.status).toBe(200);
+    let l = await limitsNow();
+    expect(l.limitSources.maxEgtC).toBe("build");
+    expect(l.limitSources.maxDutyPct).toBe("shop");
+    expect(l.limitsSource).toBe("build");
+    expect(l.limits.maxDutyPct).toBe(85);
+    // The shop changes its duty: the build follows, its own EGT stays.
+    await request(owner, "PATCH", "/api/v1/shop/settings", { tuneLimits: { maxDutyPct: 88 } });
+    l = await limitsNow();
+    expect([l.limits.maxDutyPct, l.limits.maxEgtC]).toEqual([88, 900]);
+    // Sent back to the shop's value: the field follows the shop again.
+    await request(tuner, "PATCH", `/api/v1/builds/${BUILD}/tune`, { limits: { maxEgtC: 950 } });
+    l = await limitsNow();
+    expect(l.limitSources.maxEgtC).toBe("shop");
+    expect(l.limitsSource).toBe("shop");
+    // Back to the library's.
+    expect(
+      (await request(owner, "PATCH", "/api/v1/shop/settings", { tuneLimits: null })).status,
+    ).toBe(200);
+    expect((await limitsNow()).limitsSource).toBe("library");
+    expect((await request(owner, "GET", "/api/v1/shop/settings")).json.settings.tuneLimits).toBe(
+      null,
+    );
+  });
+
   it("excludes a pull (the next step moves back) and deletes one with its log", async () => {
     const ex = await request(tuner, "PATCH", `/api/v1/tune-pulls/${ids[2]}`, { excluded: true });
     expect(ex.status).toBe(200);

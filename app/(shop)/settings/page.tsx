@@ -22,10 +22,12 @@ import {
   shopSettingsView,
   type ShopSettingsView,
 } from "@/lib/shop/settings-view";
+import { limitsInForce } from "@/lib/tune/limits";
 
 import { LogoUpload } from "./logo-upload";
 import { InviteForm, MemberRow } from "./members";
 import { SettingsForm } from "./settings-form";
+import { ShopTuneLimits } from "./tune-limits";
 
 export const metadata: Metadata = { title: "Settings" };
 
@@ -41,6 +43,7 @@ export default async function SettingsPage() {
   const s = await getShopSettings(m.shopId);
   if (!s) notFound();
   const owner = can(m.role, "members:manage");
+  const tune = limitsInForce({ build: null, shop: s.settings.tuneLimits });
   const [members, invitations, logo, measured, units, notices] = await Promise.all([
     listMembers(m.shopId),
     owner ? listPendingInvitations(m.shopId) : Promise.resolve([]),
@@ -134,6 +137,30 @@ export default async function SettingsPage() {
           ) : null}
         </section>
       </div>
+      <section
+        aria-labelledby="tune-limits"
+        className="mt-8 rounded-lg border border-ink-200 bg-white p-5"
+      >
+        <h2 id="tune-limits" className="text-xl font-semibold">
+          Tune limits
+        </h2>
+        <p className="mt-1 text-sm text-ink-600">
+          What every build&apos;s dyno pulls are judged against unless the build sets its own:
+          lambda against boost, injector duty, exhaust gas temperature and its spread between
+          cylinders, exhaust-to-boost pressure, turbo speed.{" "}
+          {tune.baseSource === "shop"
+            ? "These are the shop's own."
+            : "These are Fuelwright's defaults until the owner saves the shop's."}{" "}
+          {!can(m.role, "settings:update") ? "Only the owner can change these." : ""}
+        </p>
+        <ShopTuneLimits
+          units={units}
+          limits={tune.limits}
+          sources={tune.sources}
+          source={tune.baseSource}
+          canWrite={can(m.role, "settings:update")}
+        />
+      </section>
       <section
         aria-labelledby="measured-bsfc"
         className="mt-8 rounded-lg border border-ink-200 bg-white p-5"
