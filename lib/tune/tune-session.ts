@@ -14,6 +14,7 @@ import {
   mappingProblems,
   predictNextStep,
   preparePull,
+  pressureReadingNotes,
   samplesFromLog,
   sizeParsedFuelSystem,
   suggestMapping,
@@ -133,7 +134,8 @@ export function measurePull(
       pull.powerMeasuredAt,
       drivetrainLossPct,
     );
-    return { points, logNotes: notes, summary, drivetrainLossPct };
+    const logNotes = [...notes, ...pressureReadingNotes(mapping, points)];
+    return { points, logNotes, summary, drivetrainLossPct };
   } catch (e) {
     if (e instanceof CalcInputError || e instanceof DatalogError)
       throw new Invalid(e.message, [{ path: "(body)", message: e.message }], "bad_datalog");
