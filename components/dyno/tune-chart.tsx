@@ -134,7 +134,7 @@ export function TuneChart({
         aria-label={`${group.title} against engine speed, ${pulls.map((p) => p.label).join(", ")}`}
       >
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ left: 4, right: 4, top: 4, bottom: 16 }}>
+          <LineChart data={data} margin={{ left: 4, right: 4, top: 4, bottom: 4 }}>
             <CartesianGrid stroke="#e6eaee" />
             <XAxis
               dataKey="rpm"
@@ -142,12 +142,8 @@ export function TuneChart({
               domain={["dataMin", "dataMax"]}
               tick={{ fontSize: 11 }}
               tickFormatter={(v: number) => formatNumber("speed", v, units)}
-              label={{
-                value: "engine speed (rpm)",
-                position: "insideBottom",
-                offset: -10,
-                fontSize: 11,
-              }}
+              height={40}
+              label={{ value: "engine speed (rpm)", position: "insideBottom", fontSize: 11 }}
             />
             <YAxis
               yAxisId="left"
@@ -181,7 +177,7 @@ export function TuneChart({
                 name,
               ]}
             />
-            <Legend wrapperStyle={{ fontSize: 11 }} />
+            <Legend wrapperStyle={{ fontSize: 11, paddingTop: 6 }} />
             {pulls.flatMap((p, i) =>
               [group.left, group.right].map((c, side) => (
                 <Line
@@ -205,13 +201,47 @@ export function TuneChart({
                   x={o.rpm}
                   stroke={COLOURS[i % COLOURS.length]}
                   strokeDasharray="2 2"
-                  label={{ value: `over: ${o.label}`, fontSize: 10, position: "insideTop" }}
                 />
               )),
             )}
           </LineChart>
         </ResponsiveContainer>
       </div>
+      <OverMarks pulls={pulls} units={units} />
     </figure>
+  );
+}
+
+/**
+ * What the dashed marks are, under the chart rather than on it (labels on the marks overlapped at
+ * 390 px): per pull and engine speed, the limits crossed there.
+ */
+export function OverMarks({ pulls, units }: { pulls: ChartPull[]; units: UnitSystem }) {
+  const marks = pulls.flatMap((p, i) => {
+    const at = new Map<number, string[]>();
+    for (const o of p.overAt) at.set(o.rpm, [...(at.get(o.rpm) ?? []), o.label]);
+    return [...at.entries()]
+      .sort((a, b) => a[0] - b[0])
+      .map(([rpm, labels]) => ({ key: `${p.key}-${rpm}`, i, pull: p.label, rpm, labels }));
+  });
+  if (!marks.length) return null;
+  return (
+    <ul
+      className="mt-2 space-y-0.5 text-xs text-ink-700"
+      aria-label="Limits crossed (dashed marks)"
+    >
+      {marks.map((m) => (
+        <li key={m.key} className="flex items-baseline gap-1.5">
+          <span
+            aria-hidden
+            className="inline-block w-4 shrink-0 border-t-2 border-dashed"
+            style={{ borderColor: COLOURS[m.i % COLOURS.length] }}
+          />
+          <span>
+            {m.pull} at {formatValue("speed", m.rpm, units)}: over {m.labels.join(", ")}
+          </span>
+        </li>
+      ))}
+    </ul>
   );
 }
