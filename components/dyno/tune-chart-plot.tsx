@@ -170,7 +170,7 @@ export function TuneChartPlot({
                   className="inline-block w-4 border-t-2 border-dashed"
                   style={{ borderColor: COLOURS[i % COLOURS.length] }}
                 />
-                over: {o.label} — {p.label} at {formatValue("speed", o.rpm, units)}
+                {p.label} at {formatValue("speed", o.rpm, units)}: over {o.label}
               </li>
             )),
           )}

@@ -35,12 +35,15 @@ import {
   type PullFields,
   type PullText,
 } from "@/lib/tune/pull-form";
+import type { StepBasis } from "@/lib/tune/step-target";
 import {
   deleteTunePullAction,
   nextPowerStepAction,
   updateTunePullAction,
 } from "@/lib/tune/tune-actions";
 
+import { limitName, pullBadge } from "./limit-badge";
+import { basisText, type StepAsk } from "./step-basis";
 import { CHART_GROUPS, TuneChart, type ChartPull } from "./tune-chart";
 import { cleanMapping, TuneColumnPicker, type PickerMapping } from "./tune-column-picker";
 import { TuneLimitsEditor, type LimitSource } from "./tune-limits-editor";
@@ -68,7 +71,7 @@ interface Session {
   shopLimits: TuneLimits;
   shopLimitsSource: "shop" | "library";
   pulls: PullView[];
-  next: { from: string; step: NextStep } | { from: null; reason: string };
+  next: { from: string; step: NextStep; basis?: StepBasis } | { from: null; reason: string };
 }
 
 const STATUS: Record<LimitStatus, { level: "ok" | "info" | "caution" | "danger"; text: string }> = {
@@ -119,21 +122,6 @@ function uploadPull(
   });
 }
 
-/** The worst status of a pull's checks, for the list. */
-function worstOf(checks: LimitCheck[]): LimitCheck | null {
-  const rank: Record<LimitStatus, number> = {
-    over: 3,
-    near: 2,
-    within: 1,
-    "no-data": 0,
-    "not-set": 0,
-  };
-  return checks.reduce<LimitCheck | null>(
-    (w, c) => (!w || rank[c.status] > rank[w.status] ? c : w),
-    null,
-  );
-}
-
 /**
  * A build's tune session on its dyno page: add pulls in order (fuel, boost target, where power
  * was measured, notes, the log), overlay any of them, each pull's limits with their reasons,
@@ -155,10 +143,11 @@ export function TuneSession({
   /** Where this build's power target is measured (the next step's target is said the same way). */
   targetMeasuredAt: "wheel" | "crank";
 }) {
-  const [next, setNext] = useState<{ boost?: string; power?: string }>({});
+  const [next, setNext] = useState<StepAsk>({ by: "boost" });
   const query = new URLSearchParams();
   if (next.boost) query.set("nextBoostKpa", next.boost);
   else if (next.power) query.set("nextPowerKw", next.power);
+  else if (next.by) query.set("nextBy", next.by);
   const key = `/api/v1/builds/${buildId}/tune${query.size ? `?${query}` : ""}`;
   const { data, error, mutate } = useSWR<Session>(key, fetcher);
   const [overlay, setOverlay] = useState<Set<string> | null>(null);
@@ -184,7 +173,7 @@ export function TuneSession({
       points: p.points,
       overAt: p.checks
         .filter((c) => c.status === "over" && c.atRpm !== null)
-        .map((c) => ({ rpm: c.atRpm!, label: LIMIT_LABELS[c.key].toLowerCase() })),
+        .map((c) => ({ rpm: c.atRpm!, label: limitName(c.key) })),
     }));
   return (
     <section aria-labelledby="tune-heading" className="mb-8 space-y-4" data-testid="tune-session">
@@ -362,9 +351,14 @@ function AddPull({
   const onSubmit = async (e: React.FormEvent<HTMLFormElement>) => {
     e.preventDefault();
     const file = new FormData(e.currentTarget).get("log");
-    if (!(file instanceof File) || !file.size) {
+    if (!(file instanceof File) || (!file.size && !file.name)) {
       setFieldErrors({ log: "Choose the pull's log (CSV)" });
       return setStatus({ ok: false, message: "Choose the pull's log (CSV)" });
+    }
+    if (!file.size) {
+      const empty = `The file "${file.name}" is empty: it holds no log. Choose the pull's log (CSV)`;
+      setFieldErrors({ log: empty });
+      return setStatus({ ok: false, message: empty });
     }
     if (file.size > 20 * 1024 * 1024) {
       setFieldErrors({ log: "The log is larger than 20 MB" });
@@ -477,7 +471,7 @@ function PullList({
       <div aria-live="polite">{message ? <FormStatus {...message} /> : null}</div>
       <ol className="space-y-3" aria-label="Pulls in order">
         {pulls.map((p) => {
-          const worst = worstOf(p.checks);
+          const badge = pullBadge(p.checks);
           const s = p.summary;
           return (
             <li
@@ -504,11 +498,9 @@ function PullList({
                 </span>
                 <span className="text-sm break-all text-ink-600">{p.fileName}</span>
                 {p.excluded ? <Signal level="info">Excluded</Signal> : null}
-                {worst ? (
-                  <Signal level={STATUS[worst.status].level}>
-                    {worst.status === "over" || worst.status === "near"
-                      ? `${STATUS[worst.status].text}: ${LIMIT_LABELS[worst.key].toLowerCase()}`
-                      : "Within every limit logged"}
+                {badge ? (
+                  <Signal level={STATUS[badge.status].level}>
+                    <span data-testid="pull-badge">{badge.text}</span>
                   </Signal>
                 ) : null}
               </div>
@@ -794,7 +786,7 @@ function NextStepPanel({
   buildId: string;
   canCopy: boolean;
   targetMeasuredAt: "wheel" | "crank";
-  onAsk: (q: { boost?: string; power?: string }) => void;
+  onAsk: (q: StepAsk) => void;
 }) {
   const [kind, setKind] = useState<"boost" | "power">("boost");
   const [text, setText] = useState("");
@@ -802,7 +794,7 @@ function NextStepPanel({
   const q = kind === "boost" ? "pressure" : "power";
   const ask = (e: React.FormEvent) => {
     e.preventDefault();
-    if (!text.trim()) return onAsk({});
+    if (!text.trim()) return onAsk({ by: kind });
     const n = parseNumberText(text);
     if (!Number.isFinite(n)) return setFieldError("Enter a number");
     setFieldError(undefined);
@@ -837,7 +829,7 @@ function NextStepPanel({
           value={text}
           onChange={(e) => setText(e.target.value)}
           error={fieldError}
-          hint="Blank: the build's target, else 20 kPa more boost"
+          hint={`Blank: the build's ${kind === "boost" ? "boost" : "power"} target`}
         />
         <Button type="submit" variant="secondary">
           Predict
@@ -854,6 +846,11 @@ function NextStepPanel({
               <strong>{formatValue("power", n.step.crankKw, units)}</strong> at the crank and{" "}
               <strong>{formatValue("pressure", n.step.boostKpa, units)}</strong> boost —
             </p>
+            {n.basis ? (
+              <p className="text-xs text-ink-600" data-testid="next-step-basis">
+                {basisText(n.basis, from?.position ?? 0, units)}
+              </p>
+            ) : null}
             <dl className="mt-2 grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
               <StepFigure
                 label="Injector duty"

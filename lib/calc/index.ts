@@ -131,10 +131,13 @@ export {
   DatalogMappingSchema,
   MAX_EGT_COLUMNS,
   headerKey,
+  EXHAUST_MIN_ABSOLUTE_KPA,
   mappingProblems,
+  pressureReference,
   samplesFromLog,
   suggestMapping,
 } from "./log-mapping";
+export { pressureReadingNotes } from "./tune-pressure";
 export type { DatalogMapping } from "./log-mapping";
 export {
   shopBsfcTable,
@@ -148,6 +151,7 @@ export {
 export type { BsfcPoint, ShopBsfcRow, FuelClass, AspirationClass } from "./shop-bsfc";
 export {
   BACK_PRESSURE_MIN_BOOST_KPA,
+  backPressurePoints,
   checkLimits,
   crankPowerKw,
   DEFAULT_TUNE_LIMITS,

@@ -184,6 +184,34 @@ function cylinderOf(h: string): number {
   return n ? Number(n[1]) : Number.MAX_SAFE_INTEGER;
 }
 
+/** Below this (kPa) a pressure cannot be absolute in an exhaust manifold: the atmosphere at about 3000 m (ISA, from memory). */
+export const EXHAUST_MIN_ABSOLUTE_KPA = 70;
+
+/**
+ * Whether a pressure column reads gauge or absolute, decided as a tuner would (docs/calculations.md
+ * §6.5): its name or units row first ("psia", "abs", "kPa(a)" → absolute; "psig", "gauge" → gauge);
+ * then its readings (a negative reading is gauge; an exhaust manifold never runs below the
+ * atmosphere, so an exhaust reading under 70 kPa is gauge); else `otherwise` (boost: gauge, MAP:
+ * absolute, exhaust: the boost's reference).
+ * @example pressureReference(parseDatalog("RPM,EMAP\n3000,12\n"), "EMAP", "kPa", { exhaust: true, otherwise: "absolute" }) // { kind: "gauge", reason: "readings" }
+ */
+export function pressureReference(
+  log: Datalog,
+  header: string,
+  unit: keyof typeof KPA_PER,
+  how: { exhaust: boolean; otherwise: "gauge" | "absolute" },
+): { kind: "gauge" | "absolute"; reason: "name" | "readings" | "otherwise" } {
+  const i = log.headers.indexOf(header);
+  const text = `${header} ${i >= 0 ? (log.units[i] ?? "") : ""}`;
+  if (/gauge|psig|\bbarg\b|kpa ?\(?g\b|\(g\)/i.test(text)) return { kind: "gauge", reason: "name" };
+  if (/\babs\b|absolute|psia|\bbara\b|kpa ?\(?a\b|\(a\)/i.test(text))
+    return { kind: "absolute", reason: "name" };
+  const floor = how.exhaust ? EXHAUST_MIN_ABSOLUTE_KPA : 0;
+  if (i >= 0 && log.rows.some((r) => typeof r[i] === "number" && r[i]! * KPA_PER[unit] < floor))
+    return { kind: "gauge", reason: "readings" };
+  return { kind: how.otherwise, reason: "otherwise" };
+}
+
 /** A first guess from the headers and units row, for a logger the shop has not mapped yet. */
 export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   const find = (re: RegExp) => log.headers.find((h) => re.test(h));
@@ -212,8 +240,18 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   const notIntake = (h: string) => /exhaust|\bemap\b|\begt\b|temp|back ?press/i.test(h);
   const map = log.headers.find((h) => /\bmap\b|manifold/i.test(h) && !notIntake(h));
   const boost = log.headers.find((h) => /boost/i.test(h) && !notIntake(h));
-  if (boost) out.boost = { column: boost, kind: "gauge", unit: pu(boost) };
-  else if (map) out.boost = { column: map, kind: "absolute", unit: pu(map) };
+  if (boost)
+    out.boost = {
+      column: boost,
+      kind: pressureReference(log, boost, pu(boost), { exhaust: false, otherwise: "gauge" }).kind,
+      unit: pu(boost),
+    };
+  else if (map)
+    out.boost = {
+      column: map,
+      kind: pressureReference(log, map, pu(map), { exhaust: false, otherwise: "absolute" }).kind,
+      unit: pu(map),
+    };
   const fp = find(/fuel ?(press|pres|pressure)|\bfp\b|rail/i);
   if (fp)
     out.fuelPressure = {
@@ -236,11 +274,11 @@ export function suggestMapping(log: Datalog): Partial<DatalogMapping> {
   if (emap)
     out.exhaustPressure = {
       column: emap,
-      kind:
-        /abs|psia|\bemap\b/i.test(`${emap} ${unitOf(emap)}`) &&
-        !/gauge|psig/i.test(`${emap} ${unitOf(emap)}`)
-          ? "absolute"
-          : "gauge",
+      // Read on the boost's reference unless the column says otherwise (§6.5).
+      kind: pressureReference(log, emap, pu(emap), {
+        exhaust: true,
+        otherwise: out.boost?.kind ?? "gauge",
+      }).kind,
       unit: pu(emap),
     };
   const turbo = find(/turbo ?(shaft )?speed|shaft ?speed|\btss\b|turbo ?rpm/i);

@@ -59,7 +59,7 @@ export type Quantity =
   | "torque"
   /** Turbocharger shaft speed, rpm. */
   | "turboSpeed"
-  /** Absolute pressure over absolute pressure (exhaust manifold to boost), printed "1.45:1". */
+  /** Gauge pressure over gauge pressure (exhaust manifold to boost), printed "1.45:1". */
   | "pressureRatio"
   /** Ignition timing, degrees of crank before top dead centre. */
   | "timing"
@@ -269,7 +269,7 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
   },
   pressureRatio: {
     name: "pressure ratio",
-    canonical: ":1 absolute",
+    canonical: ":1 gauge",
     ...same({ unit: ":1", gap: "", decimals: 2 }),
   },
   timing: {

@@ -89,8 +89,8 @@ export type TuneLimits = z.output<typeof TuneLimitsSchema>;
 /**
  * The limits a shop starts with (common practice, no source): λ 0.90 off boost richening to
  * 0.86 at 60 kPa, 0.80 at 150 kPa and 0.78 at 250 kPa; 0.03 leaner allowed; 90 % duty;
- * 950 °C EGT and 80 °C between cylinders; exhaust manifold at most 2.0 times the intake
- * manifold (absolute); turbo speed not checked until the shop names its compressor's limit.
+ * 950 °C EGT and 80 °C between cylinders; exhaust manifold pressure at most 2.0 times the
+ * boost, both gauge (the trade's "2:1 drive pressure"); turbo speed not checked until the shop names its compressor's limit.
  */
 export const DEFAULT_TUNE_LIMITS: TuneLimits = {
   lambdaTargets: [
@@ -455,6 +455,18 @@ const loaded = (p: TunePoint) =>
 /** The exhaust-to-boost ratio is judged from this much boost up: off boost it means nothing. */
 export const BACK_PRESSURE_MIN_BOOST_KPA = 20;
 
+/**
+ * The points whose exhaust-to-boost ratio is judged: both logged, at least 20 kPa boost and at
+ * least half the pull's peak boost (while the turbo spools the exhaust side leads, and a ratio of
+ * gauge pressures over a small boost figure means little).
+ */
+export function backPressurePoints(points: TunePoint[]): TunePoint[] {
+  const both = points.filter((p) => finite(p.exhaustKpa) && finite(p.boostKpa));
+  const peak = both.reduce((m, p) => Math.max(m, p.boostKpa!), 0);
+  const from = Math.max(BACK_PRESSURE_MIN_BOOST_KPA, peak / 2);
+  return both.filter((p) => p.boostKpa! >= from);
+}
+
 function maximum(
   key: LimitKey,
   worst: { value: number; rpm: number; extra?: FigureParams } | null,
@@ -511,7 +523,8 @@ function maximum(
 /**
  * Each limit judged on a pull: within, near (within `nearPct` below a maximum; for lambda,
  * leaner than the target by more than half the allowance) or over, with where and by how much.
- * Lambda and the EGT spread are judged under load only; the pressure ratio from 20 kPa boost.
+ * Lambda and the EGT spread are judged under load only; the pressure ratio (exhaust over boost,
+ * both gauge) from 20 kPa boost and half the pull's peak boost up (`backPressurePoints`).
  * @example checkLimits(points, DEFAULT_TUNE_LIMITS).find((c) => c.key === "duty") // { status: "near", atRpm: 7000, … }
  */
 export function checkLimits(points: TunePoint[], limits: TuneLimits): LimitCheck[] {
@@ -641,19 +654,14 @@ export function checkLimits(points: TunePoint[], limits: TuneLimits): LimitCheck
   );
 
   const ratio = worstOf(
-    points
-      .filter(
-        (p) =>
-          finite(p.exhaustKpa) && finite(p.boostKpa) && p.boostKpa >= BACK_PRESSURE_MIN_BOOST_KPA,
-      )
-      .map((p) => ({
-        value: (p.exhaustKpa! + ATMOSPHERE_KPA) / (p.boostKpa! + ATMOSPHERE_KPA),
-        rpm: p.rpm,
-        extra: {
-          exhaust: { value: p.exhaustKpa!, quantity: "pressure" },
-          boost: { value: p.boostKpa!, quantity: "pressure" },
-        } as FigureParams,
-      })),
+    backPressurePoints(points).map((p) => ({
+      value: p.exhaustKpa! / p.boostKpa!,
+      rpm: p.rpm,
+      extra: {
+        exhaust: { value: p.exhaustKpa!, quantity: "pressure" },
+        boost: { value: p.boostKpa!, quantity: "pressure" },
+      } as FigureParams,
+    })),
   );
   const backPressure = maximum(
     "backPressure",
@@ -663,9 +671,10 @@ export function checkLimits(points: TunePoint[], limits: TuneLimits): LimitCheck
     "pressureRatio",
     "ratio",
     {
-      over: "Exhaust manifold {exhaust} against {boost} boost at {rpm}: {measured}, past the {limit} limit — the turbine is choking.",
-      near: "Exhaust manifold {exhaust} against {boost} boost at {rpm}: {measured}, near the {limit} limit.",
-      within: "Highest exhaust-to-boost ratio {measured} at {rpm}; the limit is {limit}.",
+      over: "Exhaust manifold {exhaust} against {boost} boost (both gauge) at {rpm}: {measured}, past the {limit} limit — the turbine is choking.",
+      near: "Exhaust manifold {exhaust} against {boost} boost (both gauge) at {rpm}: {measured}, near the {limit} limit.",
+      within:
+        "Highest exhaust-to-boost ratio {measured} (exhaust {exhaust} against {boost} boost, both gauge) at {rpm}; the limit is {limit}.",
     },
   );
 

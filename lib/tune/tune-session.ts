@@ -15,6 +15,7 @@ import {
   mergeTuneLimits,
   predictNextStep,
   preparePull,
+  pressureReadingNotes,
   sameLimit,
   samplesFromLog,
   sizeParsedFuelSystem,
@@ -29,7 +30,6 @@ import {
   type NextStep,
   type ParsedFuelSystemInput,
   type PowerMeasuredAt,
-  type StepTarget,
   type TuneLimitKey,
   type TuneLimits,
   type TuneLimitsOverride,
@@ -37,6 +37,7 @@ import {
 import { Invalid, NotFound } from "@/lib/domain/errors";
 
 import { limitsInForce } from "./limits";
+import { stepTarget, type StepAsked, type StepBasis } from "./step-target";
 
 export { limitsInForce, shopLimitsAfter, type LimitsSource } from "./limits";
 
@@ -157,7 +158,8 @@ export function measurePull(
       pull.powerMeasuredAt,
       drivetrainLossPct,
     );
-    return { points, logNotes: notes, summary, drivetrainLossPct };
+    const logNotes = [...notes, ...pressureReadingNotes(mapping, points)];
+    return { points, logNotes, summary, drivetrainLossPct };
   } catch (e) {
     if (e instanceof CalcInputError || e instanceof DatalogError)
       throw new Invalid(e.message, [{ path: "(body)", message: e.message }], "bad_datalog");
@@ -189,11 +191,7 @@ export interface PullView {
  * order with its checks, and the next step predicted from the last pull that is not excluded and
  * logged power (`step`: a boost or crank power; none: the build's target, else 20 kPa more boost).
  */
-export async function tuneSession(
-  shopId: string,
-  buildId: string,
-  step?: { boostKpa?: number; crankKw?: number },
-) {
+export async function tuneSession(shopId: string, buildId: string, step?: StepAsked) {
   const row = await getBuild(shopId, buildId);
   if (!row) throw new NotFound("That build");
   const stored = await tuneLimitsOf(shopId, buildId);
@@ -236,8 +234,8 @@ function nextStep(
   build: Build,
   pulls: PullView[],
   limits: TuneLimits,
-  step: { boostKpa?: number; crankKw?: number } = {},
-): { from: string; step: NextStep } | { from: null; reason: string } {
+  step: StepAsked = {},
+): { from: string; step: NextStep; basis: StepBasis } | { from: null; reason: string } {
   const last = [...pulls]
     .reverse()
     .find((p) => !p.excluded && p.summary.measuredBsfc && p.summary.peakPower);
@@ -250,28 +248,25 @@ function nextStep(
     };
   const input = storedEffectiveInputs(build);
   const bsfc = last.summary.measuredBsfc!;
-  const boostNow = last.summary.peakBoostKpa ?? last.boostTargetKpa ?? 0;
-  let target: StepTarget;
-  if (step.boostKpa !== undefined) target = { boostKpa: step.boostKpa };
-  else if (step.crankKw !== undefined) target = { crankKw: step.crankKw };
-  else {
-    const wanted =
-      input.target.measuredAt === "crank"
-        ? input.target.powerKw
-        : input.target.powerKw / (1 - (input.target.drivetrainLossPct ?? 15) / 100);
-    target =
-      wanted > bsfc.powerKw * 1.01 || input.engine.aspiration === "na"
-        ? { crankKw: Math.max(wanted, bsfc.powerKw * 1.05) }
-        : { boostKpa: Math.min(500, Math.max(0, boostNow) + 20) };
-  }
+  const boostNow = Math.max(0, last.summary.peakBoostKpa ?? last.boostTargetKpa ?? 0);
+  const wantedKw =
+    input.target.measuredAt === "crank"
+      ? input.target.powerKw
+      : input.target.powerKw / (1 - (input.target.drivetrainLossPct ?? 15) / 100);
+  const { target, basis } = stepTarget(
+    { aspiration: input.engine.aspiration, maxBoostKpa: input.engine.maxBoostKpa, wantedKw },
+    { crankKw: bsfc.powerKw, boostKpa: boostNow },
+    step,
+  );
   try {
     return {
       from: last.id,
+      basis,
       step: predictNextStep(
         input,
         {
           crankKw: bsfc.powerKw,
-          boostKpa: Math.max(0, boostNow),
+          boostKpa: boostNow,
           bsfcGPerKwh: bsfc.gPerKwh,
           ethanolPct: last.ethanolPct,
         },

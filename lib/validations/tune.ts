@@ -76,10 +76,12 @@ export const TuneLimitsSaveSchema = z.object(
   { error: "Send { limits }" },
 );
 
-/** `GET /api/v1/builds/:id/tune?nextBoostKpa=…` or `?nextPowerKw=…` (crank): the step to predict. */
+/** `GET /api/v1/builds/:id/tune?nextBoostKpa=…`, `?nextPowerKw=…` (crank) or `?nextBy=boost|power` (the build's target): the step to predict. */
 export const TuneSessionQuery = z.object({
   nextBoostKpa: number("Next boost", 0, 500, "kPa").optional(),
   nextPowerKw: number("Next power target", 1, 5000, "kW").optional(),
+  /** Neither given: step by the build's boost target or by its power target (none: as before). */
+  nextBy: z.enum(["boost", "power"], { error: "Step by boost or power" }).optional(),
 });
 
 /** "Copy as next power step": a new build from this one with a new power target (the build's own terms). */

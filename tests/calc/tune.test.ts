@@ -7,6 +7,7 @@ import {
   DatalogMappingSchema,
   DEFAULT_TUNE_LIMITS,
   fillTemplate,
+  formatWarning,
   FuelSystemInputSchema,
   lambdaTargetAt,
   mappingProblems,
@@ -14,6 +15,7 @@ import {
   powerAtBoostKw,
   predictNextStep,
   preparePull,
+  pressureReadingNotes,
   samplesFromLog,
   suggestMapping,
   summarizePull,
@@ -195,13 +197,13 @@ describe("EGT, spread, back-pressure and turbo speed", () => {
     expect(p.points[0]!.egtC).toHaveLength(10);
   });
 
-  it("computes the exhaust-to-boost ratio on absolute pressures from 20 kPa boost", () => {
-    // Worked by hand: exhaust 1.2 × 150 = 180 kPa gauge against 150 → (180 + 101.325) / (150 + 101.325) = 1.1194.
+  it("computes the exhaust-to-boost ratio on gauge pressures from half the peak boost", () => {
+    // Worked by hand: exhaust 1.2 × 150 = 180 kPa gauge against 150 kPa gauge → 180 / 150 = 1.20.
     const p = preparePull(pull(), crank);
     const within = check(checkLimits(p.points, limits()), "backPressure");
     expect(within.status).toBe("within");
-    expect(within.measured!.value).toBeCloseTo(281.325 / 251.325, 9);
-    // A choking turbine: 450 kPa against 150 → 551.325 / 251.325 = 2.1937, 0.1937 past 2.0.
+    expect(within.measured!.value).toBeCloseTo(1.2, 9);
+    // A choking turbine: 450 kPa against 150 → 3.00, 1.00 past 2.0.
     const choke = preparePull(
       pull((rpm) => (rpm === 6800 ? { exhaustKpa: 450 } : {})),
       crank,
@@ -209,7 +211,74 @@ describe("EGT, spread, back-pressure and turbo speed", () => {
     const over = check(checkLimits(choke.points, limits()), "backPressure");
     expect(over.status).toBe("over");
     expect(over.atRpm).toBe(6800);
-    expect(over.by!.value).toBeCloseTo(551.325 / 251.325 - 2, 9);
+    expect(over.by!.value).toBeCloseTo(1, 9);
+    // While the turbo spools (boost under half the peak, 75 kPa) the exhaust leads: not judged.
+    // Worked by hand: at 3500 rpm boost is 150 × 0.1875 = 28.1 kPa, exhaust 80 kPa → 2.84:1.
+    const spool = preparePull(
+      pull((rpm) => (rpm === 3500 ? { exhaustKpa: 80 } : {})),
+      crank,
+    );
+    expect(check(checkLimits(spool.points, limits()), "backPressure").status).toBe("within");
+  });
+
+  it("reads EMAP on the boost's reference and says which reading it used", () => {
+    // The tester's log: "Boost (kPa)" and "EMAP (kPa)", both gauge; EMAP starts below the
+    // atmosphere (so it cannot be absolute). Worked by hand: 219 / 166 = 1.319; 410 / 293 = 1.399.
+    const csv = [
+      "RPM,Injector Duty,Boost (kPa),EMAP (kPa)",
+      "3000,40,10,18",
+      "5000,60,166,219",
+      "7000,80,293,410",
+    ].join("\n");
+    const log = parseDatalog(csv);
+    const guess = suggestMapping(log);
+    expect(guess.boost).toMatchObject({ column: "Boost (kPa)", kind: "gauge" });
+    expect(guess.exhaustPressure).toMatchObject({ column: "EMAP (kPa)", kind: "gauge" });
+    const m = DatalogMappingSchema.parse(guess);
+    const p = preparePull(samplesFromLog(log, m), crank);
+    const ratio = check(checkLimits(p.points, limits()), "backPressure");
+    expect(ratio.measured!.value).toBeCloseTo(410 / 293, 9);
+    expect(ratio.atRpm).toBe(7000);
+    expect(fillTemplate(ratio.message, ratio.params, "metric")).toBe(
+      "Highest exhaust-to-boost ratio 1.40:1 (exhaust 410 kPa against 293 kPa boost, both gauge) at 7000 rpm; the limit is 2.00:1.",
+    );
+    const notes = pressureReadingNotes(m, p.points);
+    expect(notes.map((n) => n.code)).toEqual(["pull-pressure-reference"]);
+    expect(formatWarning(notes[0]!, "metric").message).toBe(
+      'Exhaust manifold pressure "EMAP (kPa)" was read as gauge and boost "Boost (kPa)" as gauge: the exhaust-to-boost ratio compares both as gauge pressures.',
+    );
+    // With no reading under the atmosphere, EMAP follows the boost's reference (gauge here)…
+    const high = parseDatalog("RPM,Duty,Boost (kPa),EMAP (kPa)\n5000,60,166,219\n");
+    expect(suggestMapping(high).exhaustPressure!.kind).toBe("gauge");
+    // …and an absolute MAP's (absolute); a column that says psia or psig says so itself.
+    const map = parseDatalog("RPM,Duty,MAP (kPa),EMAP (kPa)\n5000,60,267,320\n");
+    expect(suggestMapping(map).exhaustPressure!.kind).toBe("absolute");
+    const said = parseDatalog("RPM,Duty,Boost,EMAP\nrpm,%,psi,psia\n5000,60,24,46\n");
+    expect(suggestMapping(said).exhaustPressure!.kind).toBe("absolute");
+    const gauge = parseDatalog("RPM,Duty,MAP,Drive Pressure\nrpm,%,psia,psig\n5000,60,38,31\n");
+    expect(suggestMapping(gauge).exhaustPressure!.kind).toBe("gauge");
+    // A MAP column reading below zero is gauge (vacuum on a gauge), whatever its name says.
+    const vac = parseDatalog("RPM,Duty,MAP\n1000,5,-60\n5000,60,150\n");
+    expect(suggestMapping(vac).boost!.kind).toBe("gauge");
+  });
+
+  it("notes an exhaust reading below the boost at boost as implausible", () => {
+    // EMAP mapped as absolute though it logs gauge: 219 kPa read as absolute is 219 − 101.325 =
+    // 117.675 kPa gauge against 166 kPa boost → 0.709:1 (worked by hand).
+    const log = parseDatalog("RPM,Duty,Boost (kPa),EMAP (kPa)\n3000,40,40,120\n5000,60,166,219\n");
+    const m = DatalogMappingSchema.parse({
+      ...suggestMapping(log),
+      exhaustPressure: { column: "EMAP (kPa)", kind: "absolute", unit: "kPa" },
+    });
+    const p = preparePull(samplesFromLog(log, m), crank);
+    const notes = pressureReadingNotes(m, p.points).map((n) => formatWarning(n, "metric"));
+    expect(notes[0]!.message).toMatch(
+      /"EMAP \(kPa\)" was read as absolute .* and boost "Boost \(kPa\)" as gauge/,
+    );
+    expect(notes[1]!.severity).toBe("caution");
+    expect(notes[1]!.message).toBe(
+      "At 5000 rpm the exhaust manifold read 118 kPa against 166 kPa boost, 0.71:1: below 1:1 at boost is not plausible on a turbo engine (the turbine needs more pressure before it than the compressor makes).",
+    );
   });
 
   it("checks turbo speed only against a limit the shop named", () => {

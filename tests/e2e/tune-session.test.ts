@@ -38,6 +38,23 @@ describe("tune session", () => {
     const session = page.getByTestId("tune-session");
     await expect.poll(() => session.getByText("No pulls yet").count(), { timeout: 30000 }).toBe(1);
     const form = session.getByRole("form", { name: "Add a pull" });
+    // An empty CSV is named as empty, not as "no file chosen".
+    await form
+      .getByLabel("Pull log (CSV)")
+      .setInputFiles({ name: "blank.csv", mimeType: "text/csv", buffer: Buffer.alloc(0) });
+    await form.getByRole("button", { name: "Add pull" }).click();
+    await expect
+      .poll(() => form.getByText('The file "blank.csv" is empty').count(), { timeout: 10000 })
+      .toBe(1);
+    const empty = await request(
+      tuner,
+      "POST",
+      `/api/v1/builds/${id}/tune/pulls?ethanolPct=85&powerMeasuredAt=wheel`,
+      "",
+      { "content-type": "text/csv", "x-file-name": "blank.csv" },
+    );
+    expect(empty.status).toBe(400);
+    expect(empty.json.error.message).toBe('The file "blank.csv" is empty');
     // The tuner's own unit system (the shop's imperial unless they chose metric): the boost field says.
     const imperial = /psi/.test(await form.getByText(/^Boost target/).innerText());
     for (const p of THREE_PULLS) {
@@ -70,7 +87,9 @@ describe("tune session", () => {
     expect(lambda).toMatch(/Within Lambda against the boost table: on the table/);
     // Pull 3 crossed the EGT spread, and says where, by how much and why.
     const third = page.getByTestId("pull-3");
-    await expect(third.getByText("Over: egt spread between cylinders").count()).resolves.toBe(1);
+    await expect(third.getByTestId("pull-badge").innerText()).resolves.toBe(
+      "Over: EGT spread between cylinders",
+    );
     await third.getByText("Limits and what was done to the log").click();
     const spread = (await third.getByTestId("limit-egtSpread").innerText()).replace(/\s+/g, " ");
     // 100 °C between cylinders is 180 °F; 80 °C allowed is 144 °F, 20 °C over is 36 °F (× 1.8).
@@ -84,7 +103,7 @@ describe("tune session", () => {
       .poll(() =>
         page
           .getByTestId("tune-chart-power")
-          .getByText(/over: egt spread/)
+          .getByText(/at 6000 rpm: over EGT spread between cylinders/)
           .count(),
       )
       .toBeGreaterThan(0);
@@ -97,6 +116,14 @@ describe("tune session", () => {
         : /^the (injectors|fuel pump|feed line), at \d+ kW$/,
     );
     await expect(next.getByText("Injector duty").count()).resolves.toBe(1);
+    // Blank boost means exactly the build's boost target (the demo build's, from its inputs).
+    const target = (demo!.inputs as { engine: { maxBoostKpa: number } }).engine.maxBoostKpa;
+    await expect(next.getByTestId("next-step-basis").innerText()).resolves.toMatch(
+      /^At the build's boost target, exactly/,
+    );
+    await expect(next.innerText()).resolves.toContain(
+      imperial ? `${psi(target)} psi boost` : `${target} kPa boost`,
+    );
     await page.screenshot({ path: "test-results/screenshots/tune-session.png", fullPage: true });
     await ctx.close();
   }, 300_000);

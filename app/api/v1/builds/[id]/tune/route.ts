@@ -7,17 +7,22 @@ import { tuneSession } from "@/lib/tune/tune-session";
 import { TuneLimitsSaveSchema, TuneSessionQuery } from "@/lib/validations/tune";
 
 /**
- * GET ?nextBoostKpa=… or ?nextPowerKw=… (crank) — the build's tune session: the limits in force
- * (and whose), every pull in order with its points, summary and limit checks, and the next step
- * predicted from the last pull that logged power (none asked: the build's target power, else
- * 20 kPa more boost).
+ * GET ?nextBoostKpa=… or ?nextPowerKw=… (crank) or ?nextBy=boost|power — the build's tune session:
+ * the limits in force (and whose), every pull in order with its points, summary and limit checks,
+ * and the next step predicted from the last pull that logged power, with `basis` saying where its
+ * target came from (`nextBy=boost`: exactly the build's boost target; `power`: its power target;
+ * none asked: the build's target power, else 20 kPa more boost).
  */
 export const GET = handle<IdCtx>(async (req, ctx) => {
   const m = await requireMember("datalogs:read");
   const id = await uuidParam(ctx, "That build");
   const q = TuneSessionQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
   return Response.json(
-    await tuneSession(m.shopId, id, { boostKpa: q.nextBoostKpa, crankKw: q.nextPowerKw }),
+    await tuneSession(m.shopId, id, {
+      boostKpa: q.nextBoostKpa,
+      crankKw: q.nextPowerKw,
+      by: q.nextBy,
+    }),
   );
 });
 

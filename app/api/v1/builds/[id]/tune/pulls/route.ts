@@ -23,6 +23,12 @@ function json(text: string | null): unknown {
   }
 }
 
+/** How a message names the upload: `file "pull 3.csv"` (an empty file says which was chosen). */
+function logName(fileName: string | null): string {
+  const name = fileName?.replace(/["\\]/g, "").trim().slice(0, 120);
+  return name ? `file "${name}"` : "log file";
+}
+
 /**
  * POST ?ethanolPct=85&boostTargetKpa=100&powerMeasuredAt=wheel&notes=…[&mapping={…}] with the
  * CSV as the body (`x-file-name` its name) — adds a pull to the build's tune session, last in
@@ -42,7 +48,7 @@ export const POST = handle<IdCtx>(async (req, ctx) => {
     notes: q.get("notes") ?? undefined,
     mapping: json(q.get("mapping")),
     fileName: req.headers.get("x-file-name") ?? undefined,
-    csv: await readText(req, MAX_BYTES, "datalog"),
+    csv: await readText(req, MAX_BYTES, logName(req.headers.get("x-file-name"))),
   });
   return Response.json(await addTunePull(m, input), { status: 201 });
 }, CSV_UPLOAD);
