@@ -113,6 +113,7 @@ export function ResultsPanel({
             "Smallest rating",
             "injector.requiredRatedFlowCcPerMin",
             r.injector.requiredRatedFlowCcPerMin,
+            "smallest-rating",
           )}
           {redline.commandedMs === null
             ? fig(
