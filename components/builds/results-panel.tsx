@@ -146,6 +146,7 @@ export function ResultsPanel({
             "Smallest rating",
             "injector.requiredRatedFlowCcPerMin",
             r.injector.requiredRatedFlowCcPerMin,
+            "smallest-rating",
           )}
           {redline.commandedMs === null
             ? fig(

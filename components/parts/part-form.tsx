@@ -121,7 +121,7 @@ export function PartForm({
       Object.fromEntries(
         Object.entries(res.fieldErrors ?? {}).map(([path, msgs]) => [
           path,
-          msgs.map((msg) => partFieldMessage(path, msg, units)).join(" "),
+          [...new Set(msgs.map((msg) => partFieldMessage(path, msg, units, category)))].join(" "),
         ]),
       ),
     );

@@ -410,13 +410,21 @@ function QuoteEditorForm({
                 <td className="card-wide px-3 py-2">
                   {editable ? (
                     <>
-                      <input
+                      {/* One line of text that wraps to its full length (a phone shows every
+                          word): a box that grows with its content, Enter taking no new line. */}
+                      <textarea
                         id={fieldId(i, "description")}
                         aria-label={`Line ${i + 1} description`}
                         {...invalidProps(i, "description")}
-                        className="w-full rounded-md border border-ink-300 px-2 py-1 aria-[invalid=true]:border-danger-600"
+                        rows={1}
+                        className="block [field-sizing:content] w-full resize-none rounded-md border border-ink-300 px-2 py-1 aria-[invalid=true]:border-danger-600"
                         value={r.description}
-                        onChange={(e) => setRow(i, { description: e.target.value })}
+                        onKeyDown={(e) => {
+                          if (e.key === "Enter") e.preventDefault();
+                        }}
+                        onChange={(e) =>
+                          setRow(i, { description: e.target.value.replace(/[\r\n]+/g, " ") })
+                        }
                       />
                       <FieldMessage
                         id={`${fieldId(i, "description")}-error`}

@@ -80,7 +80,8 @@ export function InjectorCheck({
     }
     const start = k === "loss" ? undefined : START[k];
     const v = fromShown(FIELDS[k].q, typed, units, start);
-    if (k === "count" && !Number.isInteger(v)) errors[k] = "Whole injectors only";
+    if (k === "count" && !Number.isInteger(v))
+      errors[k] = `${FIELDS[k].what} must be a whole number`;
     else if (v < FIELDS[k].min || v > FIELDS[k].max) errors[k] = range(k);
     else canonical[k] = v;
   }

@@ -1,17 +1,22 @@
 "use client";
 
-import { useSyncExternalStore } from "react";
+import { createContext, useContext, type ReactNode } from "react";
 
 import { formatDate, formatDateTime, type DateInput } from "@/lib/format/dates";
 
-const subscribe = () => () => {};
-const browserZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
-const serverZone = () => null;
+const ShopTimeZoneContext = createContext<string>("UTC");
 
 /**
- * An instant shown in the viewer's own time zone. The server cannot know that zone, so the
- * first paint (and any reader without JavaScript) gets UTC, marked as such; after hydration
- * the browser's zone replaces it.
+ * The shop's time zone (an IANA name, a shop setting) for every `<LocalTime>` beneath: the
+ * staff and portal frames and the share page put it around their pages.
+ */
+export function ShopTimeZone({ zone, children }: { zone: string; children: ReactNode }) {
+  return <ShopTimeZoneContext.Provider value={zone}>{children}</ShopTimeZoneContext.Provider>;
+}
+
+/**
+ * An instant as a person reads it, in the shop's time zone (from `<ShopTimeZone>`; UTC outside
+ * one) whatever the browser's zone: the server and the browser draw the same text.
  */
 export function LocalTime({
   value,
@@ -22,16 +27,12 @@ export function LocalTime({
   kind?: "date" | "datetime";
   className?: string;
 }) {
-  const zone = useSyncExternalStore(subscribe, browserZone, serverZone);
+  const zone = useContext(ShopTimeZoneContext);
   const iso = new Date(value).toISOString();
   const text =
-    kind === "date"
-      ? zone
-        ? formatDate(iso, { timeZone: zone })
-        : `${formatDate(iso)} UTC`
-      : formatDateTime(iso, { timeZone: zone ?? "UTC" });
+    kind === "date" ? formatDate(iso, { timeZone: zone }) : formatDateTime(iso, { timeZone: zone });
   return (
-    <time dateTime={iso} title={formatDateTime(iso)} className={className} suppressHydrationWarning>
+    <time dateTime={iso} className={className}>
       {text}
     </time>
   );

@@ -8,24 +8,24 @@ import { ASPIRATIONS, DRIVE_TYPES, REGULATOR_TYPES } from "./input-codes";
  * these. Units are canonical: kW, kPa gauge, cc/min, L/h, g/kWh, V, mm, m.
  */
 
-const num = (label: string, min: number, max: number, unit = "") => {
+const num = (label: string, min: number, max: number, unit = "", whole = false) => {
   const u = unit ? ` ${unit}` : "";
-  return z
-    .number({
-      // A number too large to hold (Infinity: "1e400", or 1e308 psi once in kPa) is past the
-      // limits, and says them; text that is no number says so.
-      error: (iss) =>
-        iss.input === undefined
-          ? `${label} is required`
-          : typeof iss.input === "number" && !Number.isNaN(iss.input)
-            ? `${label} must be between ${min} and ${max}${u}`
-            : `${label} must be a number`,
-    })
+  const n = z.number({
+    // A number too large to hold (Infinity: "1e400", or 1e308 psi once in kPa) is past the
+    // limits, and says them; text that is no number says so.
+    error: (iss) =>
+      iss.input === undefined
+        ? `${label} is required`
+        : typeof iss.input === "number" && !Number.isNaN(iss.input)
+          ? `${label} must be between ${min} and ${max}${u}`
+          : `${label} must be a number`,
+  });
+  // A whole-number field says so first: 0.5 injectors is no count, whatever the bounds.
+  return (whole ? n.int(`${label} must be a whole number`) : n)
     .min(min, `${label} must be between ${min} and ${max}${u}`)
     .max(max, `${label} must be between ${min} and ${max}${u}`);
 };
-const int = (label: string, min: number, max: number) =>
-  num(label, min, max).int(`${label} must be a whole number`);
+const int = (label: string, min: number, max: number) => num(label, min, max, "", true);
 
 export { ASPIRATIONS, DRIVE_TYPES, REGULATOR_TYPES };
 

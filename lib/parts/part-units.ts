@@ -166,19 +166,49 @@ export function partHints(units: UnitSystem) {
   const pu = converter("pressure", units).unit;
   const fu = converter("volumeFlow", units).unit;
   return {
-    rated_kpa: `${formatValue("pressure", 300, units)} (3 bar) is the usual rating pressure`,
+    rated_kpa: `${formatValue("pressure", 300, units)} is the usual rating pressure`,
     test_fluid_kg_l: `e.g. ${n("density", 0.684, units)} for n-heptane; blank: rated with the fuel itself`,
     dead_time_ms: `e.g. 12V ${p(300)}:0.85 ${p(500)}:0.95 | 14V ${p(300)}:0.65 ${p(500)}:0.72 (${pu}:ms); blank clears it`,
     pump_curve: `e.g. 13.5V ${p(300)}:${f(340)} ${p(500)}:${f(290)} | 12V ${p(300)}:${f(300)} (${pu}:${fu})`,
   } satisfies Partial<Record<keyof FlatPart, string>>;
 }
 
+/** Port sizes by category (lib/validations/parts.ts#SPEC_SCHEMAS: a regulator's 4 to 16). */
+const dashMessage = (category?: string) =>
+  category === "regulator" || category === "filter"
+    ? `Port size must be a whole AN dash size from ${category === "regulator" ? "4 to 16" : "3 to 20"}`
+    : "AN dash size must be a whole number from 3 to 20";
+
+/**
+ * The columns without a unit to convert, said by the field's label (the server's messages name
+ * the CSV column, which the import keeps): every message for them reads as the one rule.
+ */
+const PLAIN_MESSAGES = {
+  min_pulse_ms: "Minimum pulse width must be between 0.1 and 10 ms",
+  current_a: "Current draw must be between 0 and 80 A",
+  micron: "Rating must be between 1 and 500 µm",
+  an_dash: dashMessage,
+  impedance: "Impedance must be high or low",
+  mounting: "Mounting must be in-tank or inline",
+  regulator_type: "Type must be boost-referenced or fixed",
+  ethanol_ok: "Rated for ethanol must be yes or no",
+  connector: "Connector must be at most 40 characters",
+  material: "Material must be at most 40 characters",
+} satisfies Partial<Record<keyof FlatPart, string | ((category?: string) => string)>>;
+
 /**
  * A field error of the part form as the viewer reads it: the server's messages for the
  * unit-bearing columns name the CSV column and canonical units, so the form says the field's
  * bounds or table shape in the viewer's units instead; any other message is kept.
  */
-export function partFieldMessage(k: string, message: string, units: UnitSystem): string {
+export function partFieldMessage(
+  k: string,
+  message: string,
+  units: UnitSystem,
+  category?: string,
+): string {
+  const plain = PLAIN_MESSAGES[k as keyof typeof PLAIN_MESSAGES];
+  if (plain) return typeof plain === "function" ? plain(category) : plain;
   const says = /kPa|cc\/min|L\/h|\bmm\b|kg\/L|must be a number|needs/.test(message);
   if (isNumberColumn(k) && says) {
     const b = BOUNDS[k];

@@ -59,19 +59,19 @@ export const SpecSheetQuery = z.object({ version: versionParam().optional() });
 
 /** A number from a form field (text) or a JSON body (number); a blank field is no number. */
 const asNumber = numberFromField;
-const goalNumber = (label: string, min: number, max: number, unit: string) =>
-  z.preprocess(
+const goalNumber = (label: string, min: number, max: number, unit: string, whole = false) => {
+  const n = z.number({
+    error: (iss) =>
+      iss.input === undefined ? `Enter the ${label.toLowerCase()}` : `${label} must be a number`,
+  });
+  // A whole-number field says so first (before its bounds): 0.5 cylinders is no count.
+  return z.preprocess(
     asNumber,
-    z
-      .number({
-        error: (iss) =>
-          iss.input === undefined
-            ? `Enter the ${label.toLowerCase()}`
-            : `${label} must be a number`,
-      })
+    (whole ? n.int(`${label} must be a whole number`) : n)
       .min(min, `${label} must be between ${min} and ${max} ${unit}`.trim())
       .max(max, `${label} must be between ${min} and ${max} ${unit}`.trim()),
   );
+};
 
 /**
  * The caller's goal, as the counter takes it on the phone (canonical units: L, kW): the engine
@@ -81,9 +81,7 @@ const goalNumber = (label: string, min: number, max: number, unit: string) =>
 export const BuildGoalSchema = z.object(
   {
     displacementL: goalNumber("Displacement", 0.1, 20, "L"),
-    cylinders: goalNumber("Cylinders", 1, 16, "").pipe(
-      z.number().int("Cylinders must be a whole number"),
-    ),
+    cylinders: goalNumber("Cylinders", 1, 16, "", true),
     aspiration: z.enum(ASPIRATIONS, { error: "Choose the aspiration" }),
     powerKw: goalNumber("Power goal", 1, 5000, "kW"),
     measuredAt: z

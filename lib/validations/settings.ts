@@ -12,11 +12,13 @@ import { ROLES } from "@/lib/domain/roles";
 const asNumber = (v: unknown) =>
   typeof v === "string" && v.trim() !== "" ? parseNumberText(v) : v;
 
-const n = (label: string, min: number, max: number, unit = "") =>
+const n = (label: string, min: number, max: number, unit = "", whole = "") =>
   z.preprocess(
     asNumber,
-    z
-      .number({ error: `${label} must be a number` })
+    (whole
+      ? z.number({ error: `${label} must be a number` }).int(whole)
+      : z.number({ error: `${label} must be a number` })
+    )
       .min(min, `${label} must be between ${min} and ${max}${unit && ` ${unit}`}`)
       .max(max, `${label} must be between ${min} and ${max}${unit && ` ${unit}`}`),
   );
@@ -88,9 +90,7 @@ export const ShopSettingsFields = z.object({
   ethanolStoichAfr: nOrLibrary("Ethanol stoichiometric AFR", 8, 10),
   labourRate: n("Labour rate", 0, 100_000),
   depositPct: n("Deposit", 0, 100),
-  quoteValidDays: n("Quote validity", 1, 365).pipe(
-    z.number().int("Quote validity is a whole number of days"),
-  ),
+  quoteValidDays: n("Quote validity", 1, 365, "", "Quote validity is a whole number of days"),
 });
 
 export const DUTY_ORDER_MESSAGE = "Danger duty must not be below caution duty";

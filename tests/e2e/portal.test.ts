@@ -79,6 +79,9 @@ describe("customer portal", () => {
       .first()
       .click();
     await page.waitForURL(`**/my/quotes/${quoteId}`);
+    // Before accepting, the deposit asked is on the page beside the total (as on the PDF).
+    const asked = await page.getByTestId("deposit-asked").innerText();
+    expect(asked).toMatch(/Deposit on acceptance: \d+(\.\d+)?\s?%\s\(\D*[\d,.]+\) of the total/);
     await page.getByRole("button", { name: "Accept quote" }).click();
     await expect.poll(() => page.getByTestId("my-quote-status").innerText()).toBe("Accepted");
     await page.getByRole("button", { name: /^Pay deposit/ }).click();

@@ -2,6 +2,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { sizeParsedFuelSystem, type FuelSystemInput, type FuelSystemResult } from "@/lib/calc";
+import { formatDateTime } from "@/lib/format/dates";
 import { parsedEffectiveInputs, sizingSettingsOf } from "@/lib/sizing/effective-inputs";
 
 import { boostedSix } from "../calc/fixtures";
@@ -107,6 +108,44 @@ describe("the live editor uses the shop's settings", () => {
     await expect.poll(note).toContain("10 % drivetrain loss (all-wheel drive)");
     await expect.poll(() => page.getByTestId("loss-from-shop").count()).toBe(0);
     await page.screenshot({ path: "test-results/screenshots/editor-shop-settings.png" });
+    await ctx.close();
+  });
+
+  it("every time is read in the shop's zone, whatever the browser's (a Tokyo browser)", async () => {
+    const ctx = await newClient(browser, undefined, "Asia/Tokyo");
+    const page = await ctx.newPage();
+    await signIn(page);
+    await page.goto(`/builds/${newer.id}`);
+    await editorReady(page);
+    const [rev] = await sql`select created_at from build_revisions
+                            where build_id = ${newer.id} and version = 1`;
+    // The shop's zone is Pacific/Auckland (CHANGED_SETTINGS); Tokyo is GMT+9.
+    const shopTime = formatDateTime(rev!.created_at, { timeZone: "Pacific/Auckland" });
+    const tokyoTime = formatDateTime(rev!.created_at, { timeZone: "Asia/Tokyo" });
+    expect(shopTime).not.toBe(tokyoTime);
+    await expect.poll(() => page.locator("main").innerText()).toContain(shopTime);
+    const main = await page.locator("main").innerText();
+    expect(main).not.toContain(tokyoTime);
+    expect(main).not.toMatch(/GMT\+9|\d{2}:\d{2} UTC/);
+    await page.goto(`/builds/${newer.id}/revisions/1`);
+    await expect.poll(() => page.locator("main").innerText()).toContain(`saved ${shopTime}`);
+    await ctx.close();
+  });
+
+  it("the parts kit of a build sized under older settings says so", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await signIn(page);
+    await page.goto(`/builds/${older}/kit`);
+    const notice = page.getByTestId("settings-changed");
+    await expect.poll(() => notice.count()).toBe(1);
+    const text = await notice.innerText();
+    expect(text).toContain("sized with the shop's settings of the time");
+    expect(text).toMatch(/Design duty: 80 % → 75 %/);
+    // A build sized with today's settings has no such note.
+    await page.goto(`/builds/${newer.id}/kit`);
+    await page.getByRole("heading", { level: 1 }).waitFor();
+    expect(await page.getByTestId("settings-changed").count()).toBe(0);
     await ctx.close();
   });
 

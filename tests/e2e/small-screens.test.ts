@@ -287,6 +287,28 @@ describe("key columns stay on a phone's screen", () => {
     const d = (await description.boundingBox())!;
     expect(d.width).toBeGreaterThan(250);
     expect(d.x + d.width).toBeLessThanOrEqual(PHONE.width);
+    // Every line's description is whole on screen: the box wraps its text, nothing cut off.
+    const cut = await page
+      .locator('[aria-label$=" description"]')
+      .evaluateAll((els) =>
+        els
+          .filter((e) => e.scrollWidth > e.clientWidth + 1 || e.scrollHeight > e.clientHeight + 1)
+          .map((e) => (e as HTMLTextAreaElement).value),
+      );
+    expect(cut).toEqual([]);
+    // The header: "Menu · <section>" does not run under "Sign out".
+    const menu = (await page.getByTestId("nav-menu").boundingBox())!;
+    const signOut = (await page.getByRole("button", { name: "Sign out" }).boundingBox())!;
+    const overlaps =
+      menu.x < signOut.x + signOut.width &&
+      signOut.x < menu.x + menu.width &&
+      menu.y < signOut.y + signOut.height &&
+      signOut.y < menu.y + menu.height;
+    expect(overlaps).toBe(false);
+    expect(menu.x + menu.width).toBeLessThanOrEqual(PHONE.width);
+    expect(
+      await page.getByTestId("nav-menu").evaluate((e) => e.scrollWidth <= e.clientWidth + 1),
+    ).toBe(true);
     const price = page.getByLabel("Line 1 unit price");
     const p = (await price.boundingBox())!;
     expect(p.width).toBeGreaterThan(80);

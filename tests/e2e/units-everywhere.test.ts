@@ -108,6 +108,13 @@ describe("every figure in the reader's units", () => {
     await expect
       .poll(() => page.getByTestId("warnings").innerText())
       .toMatch(/Fit injectors rated at least [\d.]+ lb\/h at 43\.5 psi/); // 300 kPa = 43.5 psi
+    // One figure, one rounding: the warning's rating is the "Smallest rating" beside it.
+    const needed = /rated at least ([\d.]+) lb\/h/.exec(
+      await page.getByTestId("warnings").innerText(),
+    )![1]!;
+    expect((await page.getByTestId("smallest-rating").innerText()).replace(/\s+/g, " ")).toContain(
+      `${needed} lb/h`,
+    );
     await expect.poll(() => page.getByTestId("warnings").innerText()).toMatch(/psi at full boost/);
     await page.getByRole("button", { name: "Save build" }).click();
     await expect.poll(() => page.getByText("Saved as version 2").count()).toBe(1);

@@ -146,6 +146,10 @@ describe("the settings page in the viewer's units", () => {
       expect(await page.getByText(/BSFC gasoline NA must be between/).innerText()).toContain(
         imp ? "between 0.247 lb/hp/h and 1.972 lb/hp/h" : "between 150 g/kWh and 1200 g/kWh",
       );
+      // The refused field has the focus, as in the build editor.
+      await expect
+        .poll(() => page.evaluate(() => document.activeElement?.getAttribute("name")))
+        .toBe("bsfcGasolineNa");
 
       // A BSFC typed in the viewer's units is stored canonical: 0.55 lb/hp/h = 334.55 g/kWh.
       await page
@@ -158,6 +162,13 @@ describe("the settings page in the viewer's units", () => {
       expect(row!.bsfc_gasoline_na).toBeCloseTo(imp ? 0.55 * 608.277 : 335, 1);
       // The line drop nobody touched is what it was.
       expect(row!.max_line_drop_kpa).toBe(14);
+      // Saving again with nothing changed writes nothing, and says so.
+      const [was] = await sql`select updated_at from shop_settings where shop_id = ${shop.shopId}`;
+      await page.getByRole("button", { name: "Save settings" }).click();
+      await expect.poll(() => page.getByText("Nothing to save").count()).toBe(1);
+      expect(await page.getByText("Shop settings saved").count()).toBe(0);
+      const [now] = await sql`select updated_at from shop_settings where shop_id = ${shop.shopId}`;
+      expect(now!.updated_at).toEqual(was!.updated_at);
 
       const text = (await page.locator("main").innerText()).replace(UNIT_CHOICES, "");
       expect(offending(text, imp ? METRIC_ONLY : IMPERIAL_ONLY)).toEqual([]);

@@ -24,11 +24,14 @@ let ipCounter = Math.floor(Math.random() * 60000);
 export async function newClient(
   browser: Browser,
   viewport = { width: 1280, height: 900 },
+  /** The browser's own time zone (an IANA name); the machine's when left out. */
+  timezoneId?: string,
 ): Promise<BrowserContext> {
   ipCounter++;
   return browser.newContext({
     baseURL: BASE_URL,
     viewport,
+    ...(timezoneId ? { timezoneId } : {}),
     extraHTTPHeaders: {
       "x-forwarded-for": `172.${16 + (Math.floor(ipCounter / 62500) % 16)}.${Math.floor(ipCounter / 250) % 250}.${(ipCounter % 250) + 1}`,
     },

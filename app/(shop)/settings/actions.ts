@@ -16,7 +16,11 @@ import {
 
 /** The settings form: typed in the viewer's units, saved canonical (a value left as shown kept). */
 export const updateSettingsAction = memberAction(ShopSettingsFormSchema, async (m, input) => {
-  await saveShopSettings(m, settingsFromShown(input, await readShopSettings(m)));
+  const before = await readShopSettings(m);
+  const after = await saveShopSettings(m, settingsFromShown(input, before));
+  // A save that changes nothing writes nothing (not even `updatedAt`), and says so.
+  if (JSON.stringify(after) === JSON.stringify(before))
+    return { ok: true, message: "Nothing to save" };
   revalidatePath(PATHS.settings);
   return { ok: true, message: "Shop settings saved" };
 });

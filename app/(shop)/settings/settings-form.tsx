@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionState } from "react";
+import { useActionState, useEffect, useRef } from "react";
 
 import { Button } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
@@ -61,6 +61,12 @@ export function SettingsForm({
   units: UnitSystem;
 }) {
   const [state, action, pending] = useActionState(updateSettingsAction, initialActionState);
+  const formRef = useRef<HTMLFormElement>(null);
+  // A refused save goes to the first highlighted field, once its message is drawn.
+  useEffect(() => {
+    if (state.ok || !state.fieldErrors || Object.keys(state.fieldErrors).length === 0) return;
+    formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus();
+  }, [state]);
   const v = { ...initial, ...state.values };
   const e = state.fieldErrors ?? {};
   const num = (name: string, label: string, unit: string) => (
@@ -90,7 +96,7 @@ export function SettingsForm({
   const density = unitOf("density", units);
   const libDensity = (kgPerL: number) => formatNumber("density", kgPerL, units);
   return (
-    <form action={action} noValidate className="mt-4" aria-label="Shop defaults">
+    <form ref={formRef} action={action} noValidate className="mt-4" aria-label="Shop defaults">
       {/* The units the figures below are typed in (the page's, not the "Units" being chosen). */}
       <input type="hidden" name="shownUnits" value={units} />
       <fieldset disabled={readOnly} className="space-y-6">

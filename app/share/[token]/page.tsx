@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 
-import { LocalTime } from "@/components/ui/local-time";
+import { LocalTime, ShopTimeZone } from "@/components/ui/local-time";
 import { getBuild } from "@/db/queries/builds";
 import { checkShareToken } from "@/db/queries/shares";
 import { getShopSettings } from "@/db/queries/shops";
@@ -47,7 +47,11 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
         Download the spec sheet (PDF)
       </a>
       <p className="mt-2 text-sm text-ink-600">
-        This link works until <LocalTime value={check.link.expiresAt} />.
+        This link works until{" "}
+        <ShopTimeZone zone={shop?.settings.timeZone ?? "UTC"}>
+          <LocalTime value={check.link.expiresAt} />
+        </ShopTimeZone>
+        .
       </p>
       <p className="mt-6 text-sm text-ink-600">
         Fuel burns: have the system fitted and checked by qualified people, following local codes.

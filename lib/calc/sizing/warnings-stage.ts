@@ -74,7 +74,8 @@ export function sizingWarnings({ input, limits }: SizingContext, f: SizingFacts)
   const biggerInjector =
     "Fit injectors rated at least {needRating} at {ratedPressure}, add injectors, or raise the base pressure.";
   const injectorFix = {
-    needRating: { value: Math.ceil(needRating), quantity: "injectorFlow" as const },
+    // The same figure as the "Smallest rating" beside it, rounded the same way in every unit.
+    needRating: { value: needRating, quantity: "injectorFlow" as const },
     ratedPressure: { value: injectors.ratedPressureKpa, quantity: "pressure" as const },
   };
   const duty0 = { value: dutyMax, quantity: "percent" as const, decimals: 0 };

@@ -17,7 +17,7 @@ import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/do
 import { formatCalendarDate } from "@/lib/format/dates";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
-import { presentQuote } from "@/lib/quotes/quote-presentation";
+import { formatRateBp, presentQuote } from "@/lib/quotes/quote-presentation";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
 export const metadata: Metadata = { title: "My quote" };
@@ -58,7 +58,8 @@ export default async function MyQuotePage({
   // A replaced revision points only to a newer one the shop has sent (never to a draft).
   const newer =
     latest && latest.revision > qt.revision && latest.status !== "draft" ? latest : null;
-  const deposit = depositOf(qt.totalMinor, settings?.settings.depositBp ?? 3000);
+  const depositBp = settings?.settings.depositBp ?? 3000;
+  const deposit = depositOf(qt.totalMinor, depositBp);
   return (
     <>
       <PageHeader title={`Quote ${quoteLabel(qt.number, qt.revision)}`}>
@@ -133,6 +134,16 @@ export default async function MyQuotePage({
           {p.paidAt ? <LocalTime value={p.paidAt} /> : null}.
         </p>
       ))}
+      {status === "sent" && deposit > 0 ? (
+        // What accepting asks for, read before the customer accepts (as the quote PDF says it).
+        <p className="mt-4 text-sm text-ink-800" data-testid="deposit-asked">
+          Deposit on acceptance:{" "}
+          <span className="figure font-semibold">
+            {formatRateBp(depositBp)} ({money(deposit)})
+          </span>{" "}
+          of the total {money(qt.totalMinor)}; the shop orders the parts once it is paid.
+        </p>
+      ) : null}
       {status === "sent" ? (
         <QuoteDecision id={qt.id} holds={stock?.summary ?? null} />
       ) : status === qt.status && qt.statusChangedAt ? (
