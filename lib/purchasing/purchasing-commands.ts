@@ -21,6 +21,7 @@ import { receiptIssues } from "@/lib/domain/purchasing";
 import { serverEnv } from "@/lib/env";
 import { deliverNotice, notifyShop } from "@/lib/notices/notice-commands";
 import { noticeFiles } from "@/lib/notices/notice-files";
+import { ledgerPdfName, purchaseOrderSheetTitle } from "@/lib/pdf/ledger-sheet-data";
 import type {
   PurchaseOrderCreate,
   PurchaseOrderReceive,
@@ -100,7 +101,7 @@ export async function sendPurchaseOrder(m: Member, input: { id: string }) {
       supplierName: po.supplierContact ?? po.supplierName,
       po: label,
       lines: po.lines.map((l) => `${l.quantity} × ${l.supplierSku ?? l.sku} — ${l.description}`),
-      attachments: files ? [`${label}.pdf`] : [],
+      attachments: files ? [ledgerPdfName(purchaseOrderSheetTitle(po.po.number))] : [],
     },
     files,
   );
