@@ -390,10 +390,11 @@ export async function seed(url: string) {
   try {
     const hash = await hashPassword(DEMO_PASSWORD);
     await db.transaction(async (tx) => {
-      await tx
+      const newShop = await tx
         .insert(schema.organization)
         .values({ id: DEMO_SHOP_ID, name: "Ridgeback Fuel & Dyno", slug: "ridgeback-fuel-dyno" })
-        .onConflictDoNothing();
+        .onConflictDoNothing()
+        .returning({ id: schema.organization.id });
       await tx
         .insert(schema.shopSettings)
         .values({
@@ -434,6 +435,13 @@ export async function seed(url: string) {
           })
           .onConflictDoNothing();
       }
+      // The owner hears the shop's notices, as at sign-up; only when the shop is made, so a later
+      // seed never turns back on what the owner turned off in Settings.
+      if (newShop.length)
+        await tx
+          .insert(schema.shopNoticeSubscribers)
+          .values({ shopId: DEMO_SHOP_ID, userId: DEMO_USERS.find((u) => u.role === "owner")!.id })
+          .onConflictDoNothing();
       for (const c of CUSTOMERS)
         await tx
           .insert(schema.customers)

@@ -101,7 +101,11 @@ export async function insertInvoice(
   shopId: string,
   userId: string,
   jobId: string,
-  lines: (job: typeof jobs.$inferSelect, quoteOther: ChargeLine[]) => ChargeLine[],
+  lines: (
+    job: typeof jobs.$inferSelect,
+    quoteOther: ChargeLine[],
+    quotedMilli: ReadonlyMap<string, number>,
+  ) => ChargeLine[],
 ): Promise<Invoice> {
   return db.transaction(async (tx) => {
     const [job] = await tx
@@ -134,6 +138,7 @@ export async function insertInvoice(
           unitPriceMinor: l.unitPriceMinor,
           discountBp: l.discountBp,
         })),
+      new Map(other.filter((l) => l.kind === "part").map((l) => [l.id, l.quantityMilli])),
     );
     const deposit = await depositPaid(tx, shopId, job.quoteId);
     const t = invoiceTotals(charged, q!.taxRateBp, deposit);

@@ -71,6 +71,21 @@ export async function getJob(shopId: string, id: string, portalUserId?: string) 
 }
 export type JobRow = NonNullable<Awaited<ReturnType<typeof getJob>>>;
 
+/**
+ * What the fit form starts from: the quote's currency and the labour hours it sold, in
+ * thousandths (its first labour line, the one the invoice bills at its rate; null: no labour).
+ */
+export async function quoteFitFacts(shopId: string, quoteId: string) {
+  const rows = await db
+    .select({ currency: quotes.currency, labourMilli: quoteLines.quantityMilli })
+    .from(quotes)
+    .leftJoin(quoteLines, and(eq(quoteLines.quoteId, quotes.id), eq(quoteLines.kind, "labour")))
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.id, quoteId)))
+    .orderBy(asc(quoteLines.position))
+    .limit(1);
+  return { currency: rows[0]?.currency ?? "USD", labourMilli: rows[0]?.labourMilli ?? null };
+}
+
 /** The job of a quote, if it has one. */
 export async function jobOfQuote(shopId: string, quoteId: string) {
   const [j] = await db

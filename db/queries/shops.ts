@@ -3,7 +3,15 @@ import { randomBytes, randomUUID } from "node:crypto";
 import { and, eq, gt, isNull, sql } from "drizzle-orm";
 
 import { db } from "@/db";
-import { customers, invitation, member, organization, shopSettings, user } from "@/db/schema";
+import {
+  customers,
+  invitation,
+  member,
+  organization,
+  shopNoticeSubscribers,
+  shopSettings,
+  user,
+} from "@/db/schema";
 import { DEFAULT_BSFC } from "@/lib/calc";
 import { NotFound } from "@/lib/domain/errors";
 
@@ -28,7 +36,10 @@ export function slugify(name: string): string {
   );
 }
 
-/** Creates a shop with its settings and makes the user its owner, in one transaction. */
+/**
+ * Creates a shop with its settings and makes the user its owner, opted in to the shop's notices,
+ * in one transaction.
+ */
 export async function createShopWithOwner(
   userId: string,
   shopName: string,
@@ -40,6 +51,8 @@ export async function createShopWithOwner(
     await tx.insert(organization).values({ id, name: shopName, slug });
     await tx.insert(shopSettings).values({ shopId: id, ...NEW_SHOP_SETTINGS });
     await tx.insert(member).values({ id: randomUUID(), organizationId: id, userId, role: "owner" });
+    // The owner hears of accepted quotes, payments and receipts from the start (Settings turns it off).
+    await tx.insert(shopNoticeSubscribers).values({ shopId: id, userId });
     return id;
   });
 }

@@ -114,15 +114,31 @@ export interface ChargeLine {
 }
 
 /**
- * The invoice's lines from a fitted job: each part line as fitted (units × the quoted price and
+ * What a part line bills, in thousandths, for the whole units fitted. Stock moves in whole units
+ * (part of a unit is a unit), but a quote may sell part of one (1.5 m of hose): the units fitted
+ * up to the quoted ones bill at most the quoted quantity, and each unit beyond it bills whole.
+ *
+ * @example billedMilli(2, 2, 1500) // → 1500: fitted as quoted, billed as quoted
+ * @example billedMilli(1, 2, 1500) // → 1000: one unit fitted
+ * @example billedMilli(3, 2, 1500) // → 2500: the quoted 1.5 and one more
+ */
+export function billedMilli(fitted: number, unitsWanted: number, quotedMilli: number | null) {
+  if (quotedMilli === null) return fitted * 1000;
+  return Math.min(fitted * 1000, quotedMilli) + Math.max(0, fitted - unitsWanted) * 1000;
+}
+
+/**
+ * The invoice's lines from a fitted job: each part line as fitted (the quoted quantity for the
+ * quoted units — `quotedMilli` by quote line, see `billedMilli` — at the quoted price and
  * discount; a part not fitted is left out; an extra part at its catalog price), the labour line
- * at the quoted rate for the hours used (the quote's hours when none are given), and the
- * quote's fees as quoted.
+ * at the quoted rate for the hours used, exactly (the quote's hours when none are given), and
+ * the quote's fees as quoted.
  */
 export function invoiceLinesFromJob(
   job: { labourMilli: number | null },
   lines: (JobLineState & { fittedQty: number | null })[],
   quoteOther: ChargeLine[],
+  quotedMilli: ReadonlyMap<string, number> = new Map(),
 ): ChargeLine[] {
   const out: ChargeLine[] = [];
   for (const l of lines) {
@@ -133,7 +149,11 @@ export function invoiceLinesFromJob(
       partId: l.partId,
       sku: l.sku,
       description: l.description,
-      quantityMilli: units * 1000,
+      quantityMilli: billedMilli(
+        units,
+        l.quantity,
+        l.quoteLineId ? (quotedMilli.get(l.quoteLineId) ?? null) : null,
+      ),
       unitPriceMinor: l.unitPriceMinor,
       discountBp: l.discountBp,
     });

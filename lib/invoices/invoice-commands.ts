@@ -20,6 +20,7 @@ import { serverEnv } from "@/lib/env";
 import { deliverNotice } from "@/lib/notices/notice-commands";
 import { noticeFiles } from "@/lib/notices/notice-files";
 import { confirmCheckoutReturn, openCheckout } from "@/lib/payments/payment-commands";
+import { invoiceSheetTitle, ledgerPdfName } from "@/lib/pdf/ledger-sheet-data";
 import { quoteSizeIssue } from "@/lib/quotes/quote-limits";
 import type { CreditNoteCreate, InvoiceEdit } from "@/lib/validations/operations";
 
@@ -46,8 +47,8 @@ export async function createInvoice(m: Member, input: { jobId: string }) {
       "not_fitted",
       "jobId",
     );
-  const inv = await insertInvoice(m.shopId, m.user.id, job.job.id, (j, other) =>
-    invoiceLinesFromJob(j, job.lines, other),
+  const inv = await insertInvoice(m.shopId, m.user.id, job.job.id, (j, other, quoted) =>
+    invoiceLinesFromJob(j, job.lines, other, quoted),
   );
   return invoiceOf(m, inv.id);
 }
@@ -119,7 +120,7 @@ export async function issueInvoice(m: Member, input: { id: string; version: numb
       balanceMinor: inv.ledger.balanceMinor,
       currency: inv.invoice.currency,
       link: `${serverEnv().APP_URL}/my/invoices/${input.id}`,
-      attachments: files ? [`${label}.pdf`] : [],
+      attachments: files ? [ledgerPdfName(invoiceSheetTitle(inv.invoice.number))] : [],
     },
     files,
   );

@@ -53,7 +53,7 @@ export async function invoiceSheetData(
   return {
     shop,
     paper,
-    title: `Invoice ${invoiceLabel(i.number)}`,
+    title: invoiceSheetTitle(i.number),
     headLines: [
       `${INVOICE_STATUS_LABELS[i.status]}${i.issuedAt ? ` · issued ${formatDate(i.issuedAt, { timeZone })}` : ""}`,
       `Job J-${String(inv.jobNumber).padStart(4, "0")} · quote ${quoteLabel(inv.quoteNumber, inv.quoteRevision)}`,
@@ -64,18 +64,26 @@ export async function invoiceSheetData(
       lines: inv.customerEmail ? [inv.customerEmail] : [],
     },
     columns: [
-      { label: "Item", width: "46%" },
-      { label: "Qty", width: "10%", num: true },
-      { label: "Unit price", width: "14%", num: true },
-      { label: "Discount", width: "14%", num: true },
-      { label: "Line total", width: "16%", num: true },
+      // As the quote's PDF: the discount column says the rate and the amount taken off.
+      { label: "Item", width: "38%" },
+      { label: "Qty", width: "8%", num: true },
+      { label: "Unit price", width: "15%", num: true },
+      { label: "Discount", width: "22%", num: true },
+      { label: "Line total", width: "17%", num: true },
     ],
     rows: p.lines.map((l) => ({
-      cells: [l.description, l.quantity, l.unitPrice, l.discountRate ?? "-", l.lineTotal],
+      cells: [
+        l.description,
+        l.quantity,
+        l.unitPrice,
+        l.discountRate ? l.discount : "-",
+        l.lineTotal,
+      ],
       note: l.sku,
     })),
     figures: [
       { label: "Subtotal", value: p.subtotal },
+      ...(p.discountNote ? [{ label: p.discountNote, value: "" }] : []),
       { label: p.taxLabel, value: p.tax },
       { label: "Total", value: p.total },
       { label: "Deposit paid", value: formatDeduction(i.depositMinor, i.currency) },
@@ -109,7 +117,7 @@ export async function purchaseOrderSheetData(shopId: string, id: string): Promis
   return {
     shop,
     paper,
-    title: `Purchase order ${poLabel(po.po.number)}`,
+    title: purchaseOrderSheetTitle(po.po.number),
     headLines: [
       `${PO_STATUS_LABELS[po.po.status]} · made ${formatDate(po.po.createdAt, { timeZone })}`,
     ],
@@ -141,4 +149,9 @@ export async function purchaseOrderSheetData(shopId: string, id: string): Promis
   };
 }
 
+/** The sheet's title, which names its PDF file too. */
+export const invoiceSheetTitle = (n: number | null) => `Invoice ${invoiceLabel(n)}`;
+export const purchaseOrderSheetTitle = (n: number) => `Purchase order ${poLabel(n)}`;
+
+/** The PDF's file name, the same in the download, the attachment and the e-mail that names it. */
 export const ledgerPdfName = (title: string) => `${title.replace(/[^\w.-]+/g, "-")}.pdf`;

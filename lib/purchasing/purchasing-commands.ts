@@ -22,6 +22,7 @@ import { cancelRefusal, receiptIssues } from "@/lib/domain/purchasing";
 import { serverEnv } from "@/lib/env";
 import { deliverNotice, notifyShop } from "@/lib/notices/notice-commands";
 import { noticeFiles } from "@/lib/notices/notice-files";
+import { ledgerPdfName, purchaseOrderSheetTitle } from "@/lib/pdf/ledger-sheet-data";
 import type {
   PurchaseOrderCancel,
   PurchaseOrderCreate,
@@ -102,7 +103,7 @@ export async function sendPurchaseOrder(m: Member, input: { id: string }) {
       supplierName: po.supplierContact ?? po.supplierName,
       po: label,
       lines: po.lines.map((l) => `${l.quantity} × ${l.supplierSku ?? l.sku} — ${l.description}`),
-      attachments: files ? [`${label}.pdf`] : [],
+      attachments: files ? [ledgerPdfName(purchaseOrderSheetTitle(po.po.number))] : [],
     },
     files,
   );

@@ -74,36 +74,46 @@ export const SPEC_SCHEMAS = {
 } satisfies Record<PartCategory, z.ZodType>;
 
 const blank = (v: string | undefined) => v === undefined || v.trim() === "";
+/**
+ * A flat field given as a JSON number (`"stock": 1` through the API) reads as the text it would
+ * be in a form or a CSV cell (`"1"`), so the same checks and messages apply to both.
+ */
+const numberAsText = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((v) => (typeof v === "number" && Number.isFinite(v) ? String(v) : v), schema);
 const intText = (label: string) =>
-  z
-    .string({ error: `${label} is required` })
-    .trim()
-    .regex(/^\d{1,7}$/, `${label} must be a whole number of 0 or more`)
-    .transform(Number);
+  numberAsText(
+    z
+      .string({ error: `${label} is required` })
+      .trim()
+      .regex(/^\d{1,7}$/, `${label} must be a whole number of 0 or more`)
+      .transform(Number),
+  );
 
 const money = (label: string, required: boolean) =>
-  z
-    .string()
-    .optional()
-    .transform((v, ctx) => {
-      if (blank(v)) {
-        if (required) ctx.addIssue({ code: "custom", message: `${label} is required` });
-        return 0;
-      }
-      const m = parseMoney(v!);
-      if (m === null) {
-        ctx.addIssue({ code: "custom", message: `${label} must be an amount like 349.00` });
-        return 0;
-      }
-      if (m > INT4_MAX) {
-        ctx.addIssue({
-          code: "custom",
-          message: `${label} must be at most ${minorToPlain(INT4_MAX)}`,
-        });
-        return 0;
-      }
-      return m;
-    });
+  numberAsText(
+    z
+      .string({ error: `${label} must be an amount like 349.00` })
+      .optional()
+      .transform((v, ctx) => {
+        if (blank(v)) {
+          if (required) ctx.addIssue({ code: "custom", message: `${label} is required` });
+          return 0;
+        }
+        const m = parseMoney(v!);
+        if (m === null) {
+          ctx.addIssue({ code: "custom", message: `${label} must be an amount like 349.00` });
+          return 0;
+        }
+        if (m > INT4_MAX) {
+          ctx.addIssue({
+            code: "custom",
+            message: `${label} must be at most ${minorToPlain(INT4_MAX)}`,
+          });
+          return 0;
+        }
+        return m;
+      }),
+  );
 
 /** A spec column as it arrives: text (a number or yes/no from a JSON client is taken as text). */
 const specCell = (col: string, max: number) =>
@@ -272,33 +282,37 @@ export const PartFieldsSchema = z.object({
   price: money("Price", true),
   cost: money("Cost", false),
   stock: intText("Stock"),
-  reorder_level: z
-    .string()
-    .optional()
-    .transform((v, ctx) => {
-      if (blank(v)) return 0;
-      if (!/^\d{1,7}$/.test(v!.trim()))
-        ctx.addIssue({
-          code: "custom",
-          message: "Reorder level must be a whole number of 0 or more",
-        });
-      return Number(v);
-    }),
-  lead_time_days: z
-    .string()
-    .optional()
-    .transform((v, ctx): number | null => {
-      if (blank(v)) return null;
-      const t = v!.trim();
-      if (!/^\d{1,4}$/.test(t) || Number(t) > LEAD_TIME_MAX_DAYS) {
-        ctx.addIssue({
-          code: "custom",
-          message: `Lead time must be a whole number of days, 0 to ${LEAD_TIME_MAX_DAYS}`,
-        });
-        return null;
-      }
-      return Number(t);
-    }),
+  reorder_level: numberAsText(
+    z
+      .string({ error: "Reorder level must be a whole number of 0 or more" })
+      .optional()
+      .transform((v, ctx) => {
+        if (blank(v)) return 0;
+        if (!/^\d{1,7}$/.test(v!.trim()))
+          ctx.addIssue({
+            code: "custom",
+            message: "Reorder level must be a whole number of 0 or more",
+          });
+        return Number(v);
+      }),
+  ),
+  lead_time_days: numberAsText(
+    z
+      .string({ error: `Lead time must be a whole number of days, 0 to ${LEAD_TIME_MAX_DAYS}` })
+      .optional()
+      .transform((v, ctx): number | null => {
+        if (blank(v)) return null;
+        const t = v!.trim();
+        if (!/^\d{1,4}$/.test(t) || Number(t) > LEAD_TIME_MAX_DAYS) {
+          ctx.addIssue({
+            code: "custom",
+            message: `Lead time must be a whole number of days, 0 to ${LEAD_TIME_MAX_DAYS}`,
+          });
+          return null;
+        }
+        return Number(t);
+      }),
+  ),
   restock_on: z
     .string()
     .optional()

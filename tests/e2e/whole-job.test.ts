@@ -260,10 +260,12 @@ describe("a whole job after the deposit", () => {
     const tuner = await pageAs("tuner");
     await tuner.goto(`/jobs/${jobId}`);
     expect(await tuner.getByTestId("job-status").innerText()).toBe("Ready to fit");
-    expect(await tuner.getByLabel(`Wholejob Inline filter ${tag} (units)`).inputValue()).toBe("1");
-    expect(await tuner.getByLabel(`Wholejob Pre-pump strainer ${tag} (units)`).inputValue()).toBe(
-      "2",
-    );
+    expect(
+      await tuner.getByLabel(`Wholejob Inline filter ${tag} (units fitted)`).inputValue(),
+    ).toBe("1");
+    expect(
+      await tuner.getByLabel(`Wholejob Pre-pump strainer ${tag} (units fitted)`).inputValue(),
+    ).toBe("2");
     // The labour starts at what was quoted.
     const labour = tuner.getByLabel("Labour used (hours)");
     expect(await labour.inputValue()).toBe("1.5");

@@ -528,13 +528,17 @@ describe("a whole job: fitted, invoiced, paid", () => {
     expect(subjects.some((s) => /invoice .* to pay/.test(s))).toBe(true);
     // And each is logged once on its record, sent.
     const log =
-      await sql`select notice, status from mail_log where record_id in (${job.id}, ${inv.id}) order by created_at`;
+      await sql`select notice, status from mail_log where record_id in (${job.id}, ${inv.id}) and "to" = ${CUSTOMER_EMAIL} order by created_at`;
     expect(log.map((r) => `${r.notice}:${r.status}`)).toEqual([
       "ready_to_fit:sent",
       "fitted:sent",
       "invoice:sent",
       "balance_receipt:sent",
     ]);
+    // The owner (opted in to the shop's notices from the start) hears of the balance once.
+    const shop =
+      await sql`select notice, status from mail_log where record_id = ${inv.id} and "to" = 'owner@demo.fuelwright.test'`;
+    expect(shop.map((r) => `${r.notice}:${r.status}`)).toEqual(["staff_payment_received:sent"]);
   });
 });
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 
 import {
+  billedMilli,
   fitPlan,
   fitShortages,
   invoiceBalance,
@@ -222,6 +223,22 @@ describe("invoices", () => {
       depositMinor: 12000,
       dueMinor: 31300,
     });
+  });
+
+  it("bills fractional hours and a fractional quoted quantity exactly, never rounded to whole units", () => {
+    // Quoted: 1.5 m of hose (stock moves in whole metres: 2 are held and issued) and 1.5 h.
+    const quoted = new Map([["ql-h", 1500]]);
+    const hose = { ...line("h", "hose", 2), fittedQty: 2 };
+    const [part, work] = invoiceLinesFromJob({ labourMilli: 1500 }, [hose], [labour], quoted);
+    expect(part!.quantityMilli).toBe(1500);
+    expect(work!.quantityMilli).toBe(1500);
+    // 1.5 × 100.00 + 1.5 h × 120.00 = 330.00 (not 2 × 100.00 + 2 h × 120.00 = 440.00).
+    expect(invoiceTotals([part!, work!], 0, 0).totalMinor).toBe(33000);
+    // One whole metre fitted bills one; one more than quoted bills the quoted 1.5 and one whole.
+    expect(billedMilli(1, 2, 1500)).toBe(1000);
+    expect(billedMilli(3, 2, 1500)).toBe(2500);
+    // A part not from the quote (an extra) bills its whole units.
+    expect(billedMilli(2, 2, null)).toBe(2000);
   });
 
   it("keeps the quoted hours when none are given", () => {

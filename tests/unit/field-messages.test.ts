@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 
 import { newBuildInputs } from "@/lib/builds/defaults";
 import { FuelSystemInputSchema } from "@/lib/calc";
-import { issueMessages } from "@/lib/calc/messages";
+import { issueMessages } from "@/lib/calc/issue-messages";
 import { partFieldMessage, partHints } from "@/lib/parts/part-units";
 import { BuildGoalSchema } from "@/lib/validations/builds";
 import { checkSpecs } from "@/lib/validations/parts";

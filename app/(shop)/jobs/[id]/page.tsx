@@ -3,12 +3,11 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { ActionButton } from "@/components/operations/action-button";
+import { FitForm } from "@/components/operations/fit-form";
 import { MailLog } from "@/components/operations/mail-log";
-import { QuantityForm } from "@/components/operations/quantity-form";
 import { PageHeader, Signal } from "@/components/ui/status";
-import { getJob } from "@/db/queries/jobs";
+import { getJob, quoteFitFacts } from "@/db/queries/jobs";
 import { mailOf } from "@/db/queries/mail-log";
-import { getQuote } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { JOB_STATUS_LABELS, jobLabel } from "@/lib/domain/operations";
@@ -16,6 +15,7 @@ import { quoteLabel } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { createInvoiceAction } from "@/lib/invoices/invoice-actions";
 import { fitJobAction } from "@/lib/jobs/job-actions";
+import { formatQuoteQuantity } from "@/lib/quotes/quote-presentation";
 
 export const metadata: Metadata = { title: "Job" };
 
@@ -25,15 +25,11 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
   const id = idOrNotFound((await params).id);
   const j = await getJob(m.shopId, id);
   if (!j) notFound();
-  const job = j.job;
-  const [mail, quote] = await Promise.all([
+  const [mail, { labourMilli, currency }] = await Promise.all([
     mailOf(m.shopId, [id]),
-    getQuote(m.shopId, job.quoteId),
+    quoteFitFacts(m.shopId, j.job.quoteId),
   ]);
-  // The fit form starts the labour at what the quote sold (thousandths of an hour → hours).
-  const quotedLabourMilli = (quote?.lines ?? [])
-    .filter((l) => l.kind === "labour")
-    .reduce((t, l) => t + l.quantityMilli, 0);
+  const job = j.job;
   const parts = j.lines.filter((l) => l.partId);
   return (
     <>
@@ -104,19 +100,18 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
               : "Every part is in. Say what was actually fitted and the labour used."}{" "}
             Stock is taken off the shelf and the build moves to fitted with these parts.
           </p>
-          <QuantityForm
-            kind="fit"
+          <FitForm
             action={fitJobAction}
             id={job.id}
             version={job.version}
-            rows={parts.map((l) => ({
-              key: l.partId!,
-              label: `${l.description} (units)`,
+            lines={parts.map((l) => ({
+              partId: l.partId!,
+              description: l.description,
+              sku: l.sku,
               start: l.allocatedQty,
             }))}
-            labourHours={quotedLabourMilli / 1000}
-            confirm="Mark this job fitted? Stock is issued and the build moves to fitted."
-            submitLabel="Mark fitted"
+            labourHours={labourMilli === null ? null : formatQuoteQuantity(labourMilli)}
+            currency={currency}
           />
         </section>
       ) : null}
