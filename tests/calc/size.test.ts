@@ -150,9 +150,10 @@ describe("sizeFuelSystem, worked by hand with the formulas of calc-spec §2–§
     const stat = at(120);
     expect(stat.injector.dutyBand).toBe("static");
     const w = stat.warnings.find((x) => x.code === "injector-static")!;
-    // The rating to fit is a figure of the warning, formatted in the reader's units.
+    // The rating to fit is a figure of the warning, formatted in the reader's units: the same
+    // figure as the "Smallest rating" beside it (rounded once, where it is shown).
     expect(w.params.needRating).toEqual({
-      value: Math.ceil(stat.injector.requiredRatedFlowCcPerMin),
+      value: stat.injector.requiredRatedFlowCcPerMin,
       quantity: "injectorFlow",
     });
     expect(formatWarning(w, "metric").fix).toMatch(/at least \d+ cc\/min at 300 kPa/);
