@@ -68,10 +68,10 @@ describe("not-found pages in the browser", () => {
   });
 });
 
-describe("times in the viewer's zone", () => {
-  it("a build's revisions show their save time in the browser's zone, UTC on the wire", async () => {
+describe("times in the shop's zone", () => {
+  it("a build's revisions show their save time in the shop's zone whatever the browser's, UTC on the wire", async () => {
     const [row] =
-      await sql`select b.id, r.created_at from builds b join build_revisions r on r.build_id = b.id where b.shop_id = 'demo-shop-ridgeback' order by r.created_at limit 1`;
+      await sql`select b.id, r.created_at, s.time_zone from builds b join build_revisions r on r.build_id = b.id join shop_settings s on s.shop_id = b.shop_id where b.shop_id = 'demo-shop-ridgeback' order by r.created_at limit 1`;
     const ctx = await client(1280, "Asia/Kolkata"); // UTC+5:30 all year, no summer time
     const page = await ctx.newPage();
     await signInAs(page, "counter");
@@ -79,7 +79,12 @@ describe("times in the viewer's zone", () => {
     const first = page.locator("#revs ~ ol time").first();
     const iso = await first.getAttribute("datetime");
     expect(iso).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
-    await expect.poll(() => first.innerText()).toMatch(/GMT\+5:30$/);
+    expect(new Date(iso!).getTime()).toBe(new Date(row!.created_at).getTime());
+    // The shop's zone (a shop setting), not the browser's Kolkata.
+    await expect
+      .poll(() => first.innerText())
+      .toBe(formatDateTime(iso!, { timeZone: row!.time_zone ?? "UTC" }));
+    expect(await first.innerText()).not.toMatch(/GMT\+5:30$/);
     await ctx.close();
   });
 });
