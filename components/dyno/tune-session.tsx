@@ -356,9 +356,11 @@ function AddPull({
       return setStatus({ ok: false, message: "Choose the pull's log (CSV)" });
     }
     if (!file.size) {
-      const empty = `The file "${file.name}" is empty: it holds no log. Choose the pull's log (CSV)`;
-      setFieldErrors({ log: empty });
-      return setStatus({ ok: false, message: empty });
+      setFieldErrors({ log: "This file is empty: choose the pull's log (CSV)" });
+      return setStatus({
+        ok: false,
+        message: `The file "${file.name}" is empty: it holds no log. Choose the pull's log (CSV)`,
+      });
     }
     if (file.size > 20 * 1024 * 1024) {
       setFieldErrors({ log: "The log is larger than 20 MB" });

@@ -3,6 +3,8 @@ import { mkdirSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { formatDateTime } from "@/lib/format/dates";
+
 import { BASE_URL, launchBrowser, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
 

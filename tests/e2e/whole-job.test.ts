@@ -67,10 +67,11 @@ const noWiderThan = async (page: Page, width: number) =>
     width,
   );
 
+// Valid filter specs: the catalog CSV round trip (integration/round-trip) exports every part.
 async function newPart(sku: string, name: string, stock: number, priceMinor: number) {
   const [p] =
     await sql`insert into parts (shop_id, sku, category, brand, name, price_minor, cost_minor, stock, lead_time_days, specs)
-    values (${SHOP}, ${sku}, 'filter', 'Wholejob', ${name}, ${priceMinor}, ${Math.round(priceMinor / 2)}, ${stock}, 7, ${sql.json({ micron: 10 })})
+    values (${SHOP}, ${sku}, 'filter', 'Wholejob', ${name}, ${priceMinor}, ${Math.round(priceMinor / 2)}, ${stock}, 7, ${sql.json({ micron: 10, dropKpa: 5, ethanolOk: true })})
     returning id`;
   return p!.id as string;
 }
