@@ -15,7 +15,6 @@ import { quoteTotals } from "@/lib/catalog/quote-totals";
 import { allocate, freeOf } from "@/lib/catalog/stock";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 import {
-  isoDay,
   QUOTE_EDITABLE,
   QUOTE_HOLDS_STOCK,
   QUOTE_LAPSES,
@@ -193,8 +192,9 @@ export async function listQuotes(
     buildId?: string;
     q?: string;
     sort?: keyof typeof LIST_ORDER;
-    today?: string;
-  } = {},
+    /** The shop's calendar day (lib/shop/shop-zone#shopToday), for the status filter. */
+    today: string;
+  },
 ) {
   return db
     .select({
@@ -221,7 +221,7 @@ export async function listQuotes(
         opts.portalUserId
           ? and(eq(customers.userId, opts.portalUserId), ne(quotes.status, "draft"))
           : undefined,
-        opts.status ? statusOn(opts.status, opts.today ?? isoDay()) : undefined,
+        opts.status ? statusOn(opts.status, opts.today) : undefined,
         opts.buildId ? eq(quotes.buildId, opts.buildId) : undefined,
         opts.q ? searchOf(opts.q) : undefined,
       ),
@@ -599,9 +599,12 @@ export async function recordQuoteSent(
 /**
  * Sent or accepted quotes past their date become expired (accepted ones release their stock),
  * in one transaction: one shop's, or every shop's when no shop is named (the clock's sweep).
- * Rows another transaction holds are left to it. Returns the expired ids.
+ * "Past" is judged on each shop's own calendar: the instant `at` read in the shop's time zone
+ * (a quote valid until the 3rd is still open at 5 pm on the 3rd in Los Angeles, when it is
+ * already the 4th in UTC). Rows another transaction holds are left to it. Returns the expired ids.
  */
-export async function expireQuotes(today: string, shopId?: string): Promise<string[]> {
+export async function expireQuotes(at: Date, shopId?: string): Promise<string[]> {
+  const shopDay = sql`(${at.toISOString()}::timestamptz at time zone coalesce((select ${shopSettings.timeZone} from ${shopSettings} where ${shopSettings.shopId} = ${quotes.shopId}), 'UTC'))::date`;
   return db.transaction(async (tx) => {
     const due = await tx
       .select()
@@ -610,7 +613,7 @@ export async function expireQuotes(today: string, shopId?: string): Promise<stri
         and(
           shopId ? eq(quotes.shopId, shopId) : undefined,
           inArray(quotes.status, ["sent", "accepted"]),
-          lt(quotes.validUntil, today),
+          lt(quotes.validUntil, shopDay),
         ),
       )
       .orderBy(asc(quotes.id))

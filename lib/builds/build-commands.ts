@@ -24,7 +24,7 @@ import {
   type BuildStatus,
 } from "@/lib/domain/builds";
 import { Invalid, InvalidTransition, NotFound } from "@/lib/domain/errors";
-import { isoDay } from "@/lib/domain/quotes";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { DEFAULT_DRIVE_TYPE } from "@/lib/sizing/effective-inputs";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 import type {
@@ -208,7 +208,11 @@ export async function restoreRevision(
 /** Refuses a move to `to` that the workflow or its precondition does not allow now. */
 function statusRule(shopId: string, buildId: string, to: BuildStatus): StatusCheck {
   return async (from, tx) => {
-    const why = refusedMove(from, to, await buildStatusFacts(shopId, buildId, isoDay(), tx));
+    const why = refusedMove(
+      from,
+      to,
+      await buildStatusFacts(shopId, buildId, await shopToday(shopId), tx),
+    );
     if (why) throw new InvalidTransition(why);
   };
 }

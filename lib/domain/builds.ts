@@ -105,7 +105,7 @@ export interface BuildStatusFacts {
   quotes: readonly { status: QuoteStatus; validUntil: string }[];
   /** A dyno log of this build was marked verified after the build was last a draft. */
   verifiedLog: boolean;
-  /** YYYY-MM-DD (UTC): the day quote validity is judged on (lib/domain/quotes.ts#isoDay). */
+  /** YYYY-MM-DD on the shop's calendar: the day quote validity is judged on (lib/shop/shop-zone#shopToday). */
   today: string;
 }
 

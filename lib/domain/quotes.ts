@@ -1,5 +1,7 @@
 /** The quote's vocabulary: statuses, the moves between them, line kinds, payments, labels. */
 
+import { calendarDay } from "@/lib/format/dates";
+
 export const QUOTE_STATUSES = [
   "draft",
   "sent",
@@ -47,8 +49,11 @@ export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = {
   superseded: "Replaced by a revision",
 };
 
-/** A day as YYYY-MM-DD in UTC: the day a quote's validity is judged on (as expireDueQuotes does). */
-export const isoDay = (at: Date = new Date()) => at.toISOString().slice(0, 10);
+/**
+ * A day as YYYY-MM-DD on the shop's calendar (its time zone): the day a quote's validity is
+ * judged on, as the clock's sweep (expireQuotes) judges it. Server code asks `shopToday`.
+ */
+export const isoDay = (at: Date = new Date(), timeZone = "UTC") => calendarDay(at, timeZone);
 
 /** Statuses whose validity still runs: an open offer, and an acceptance awaiting its deposit. */
 export const QUOTE_LAPSES: readonly QuoteStatus[] = ["sent", "accepted"];

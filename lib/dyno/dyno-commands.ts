@@ -24,7 +24,7 @@ import {
 import { DatalogError, headerKey, mappingProblems, parseDatalog } from "@/lib/calc";
 import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
 import { Conflict, Invalid, NotFound } from "@/lib/domain/errors";
-import { isoDay } from "@/lib/domain/quotes";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { putObject } from "@/lib/storage";
 import { limitsInForce } from "@/lib/tune/tune-session";
 import type {
@@ -121,7 +121,9 @@ export async function verifyBuildWithDatalog(
   if (!row) throw new NotFound("That build");
   const b = row.build;
   // The same rule as the status control's (lib/domain/builds.ts): this log is the verified log.
-  if (!canVerifyWithLog(b.status, await buildStatusFacts(m.shopId, b.id, isoDay())))
+  if (
+    !canVerifyWithLog(b.status, await buildStatusFacts(m.shopId, b.id, await shopToday(m.shopId)))
+  )
     throw new Conflict(
       `Only a fitted build is verified; this one is ${STATUS_LABELS[b.status].toLowerCase()}`,
       "invalid_transition",

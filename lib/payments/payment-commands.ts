@@ -19,9 +19,10 @@ import type { Member } from "@/lib/auth/member";
 import { authorize } from "@/lib/auth/permissions";
 import { Conflict, Invalid, NotFound, Unavailable } from "@/lib/domain/errors";
 import { invoiceLabel } from "@/lib/domain/operations";
-import { isoDay, pastValidity, quoteLabel } from "@/lib/domain/quotes";
+import { pastValidity, quoteLabel } from "@/lib/domain/quotes";
 import { serverEnv } from "@/lib/env";
 import { deliverNotice, notifyShop } from "@/lib/notices/notice-commands";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 import { depositOf } from "./deposit";
 import { payments } from "./provider";
@@ -68,7 +69,7 @@ export async function startDeposit(
         : "Accept the quote before paying its deposit",
       "not_awaiting_deposit",
     );
-  if (pastValidity(q.quote, isoDay()))
+  if (pastValidity(q.quote, await shopToday(shopId)))
     throw new Conflict(
       `This quote was valid until ${q.quote.validUntil}; its deposit can no longer be paid. Ask the shop for a new one`,
       "quote_expired",

@@ -38,7 +38,7 @@ export async function quoteSheetData(
   const paid = payments.find((p) => p.status === "paid");
   // As of today: past its date a sent or accepted quote prints as expired, asking no deposit.
   const stored = opts.asSent && qt.status === "draft" ? { ...qt, status: "sent" as const } : qt;
-  const shown = quoteStatusOn(stored, isoDay());
+  const shown = quoteStatusOn(stored, isoDay(new Date(), timeZone));
   const showDeposit =
     depositBp > 0 && ["sent", "accepted", "deposit_paid", "ordered"].includes(shown);
   return {

@@ -29,7 +29,6 @@ import {
   type FieldIssue,
 } from "@/lib/domain/errors";
 import {
-  isoDay,
   pastValidity,
   QUOTE_EDITABLE,
   QUOTE_NEXT,
@@ -47,6 +46,7 @@ import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
 import { cachedPdf } from "@/lib/pdf/render-cache";
 import { renderSpecSheet } from "@/lib/pdf/spec-sheet";
 import { pdfFileName, specSheetData } from "@/lib/pdf/spec-sheet-data";
+import { shopToday } from "@/lib/shop/shop-zone";
 import type { QuoteCreate, QuoteEdit, QuoteLineInput } from "@/lib/validations/quotes";
 
 import { quoteEmail } from "./quote-email";
@@ -266,7 +266,7 @@ export async function sendQuote(
   if (q.lines.length === 0)
     throw new Invalid("Add at least one line before sending the quote", [], "empty_quote");
   // A quote sent past its date could not be accepted: nothing is sent that the customer cannot take up.
-  if (q.quote.validUntil < isoDay())
+  if (q.quote.validUntil < (await shopToday(shopId)))
     throw q.quote.status === "draft"
       ? Invalid.field("validUntil", "Valid until is in the past; set a later date before sending")
       : new InvalidTransition(
@@ -334,7 +334,7 @@ export async function changeQuoteStatus(
     throw new InvalidTransition(
       `A quote cannot go from ${QUOTE_STATUS_LABELS[q.status]} to ${QUOTE_STATUS_LABELS[input.status]}`,
     );
-  if (!quoteMovesOn(q, isoDay()).includes(input.status))
+  if (!quoteMovesOn(q, await shopToday(member.shopId)).includes(input.status))
     throw new InvalidTransition(
       `This quote was valid until ${q.validUntil}: it can no longer be accepted, declined or paid. Mark it expired, or ${q.status === "sent" ? "edit it to make a new revision to send" : "revise it"}.`,
       "quote_expired",
@@ -380,7 +380,7 @@ export async function respondToQuote(
     );
   if (q.status !== "sent")
     throw new Conflict("This quote is no longer open for a decision", "not_open");
-  if (pastValidity(q, isoDay()))
+  if (pastValidity(q, await shopToday(member.shopId)))
     throw new Conflict(
       `This quote was valid until ${q.validUntil} and can no longer be accepted or declined; ask the shop for a new one`,
       "quote_expired",
@@ -422,5 +422,5 @@ async function tellShopOfAnswer(member: Member, q: QuoteRow) {
  * answer to it is refused.
  */
 export async function sweepExpiredQuotes(now: Date = new Date()): Promise<{ expired: string[] }> {
-  return { expired: await expireQuotes(isoDay(now)) };
+  return { expired: await expireQuotes(now) };
 }

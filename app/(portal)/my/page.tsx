@@ -15,17 +15,18 @@ import {
   JOB_STATUS_LABELS,
   jobLabel,
 } from "@/lib/domain/operations";
-import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatCalendarDate } from "@/lib/format/dates";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "My builds" };
 
 export default async function MyBuildsPage() {
   const m = await requirePageMember("portal:view");
-  const today = isoDay(); // a quote past its date shows as expired before the sweep writes it
+  const today = await shopToday(m.shopId); // a quote past its date shows as expired before the sweep writes it
   const [builds, quotes, jobs, invoices] = await Promise.all([
     listBuildsOfPortalUser(m.shopId, m.user.id),
-    listQuotes(m.shopId, { portalUserId: m.user.id }),
+    listQuotes(m.shopId, { portalUserId: m.user.id, today }),
     listJobs(m.shopId, m.user.id),
     listInvoices(m.shopId, m.user.id),
   ]);

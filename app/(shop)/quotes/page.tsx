@@ -8,8 +8,9 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
-import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatCalendarDate } from "@/lib/format/dates";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { QuoteListQuery, type QuoteListFilters } from "@/lib/validations/quotes";
 
 export const metadata: Metadata = { title: "Quotes" };
@@ -34,7 +35,7 @@ export default async function QuotesPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const m = await requirePageMember("quotes:read");
-  const today = isoDay(); // a quote past its date shows as expired before the sweep writes it
+  const today = await shopToday(m.shopId); // a quote past its date shows as expired before the sweep writes it
   const filters = filtersOf(await searchParams);
   const filtered = Boolean(filters.q || filters.status);
   const quotes = await listQuotes(m.shopId, { ...filters, today });

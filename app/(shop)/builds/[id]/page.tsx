@@ -15,9 +15,9 @@ import { diffInputs } from "@/lib/builds/diff";
 import { readStoredInputs, storedSizingSettings } from "@/lib/builds/stored-inputs";
 import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
-import { isoDay } from "@/lib/domain/quotes";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { idOrNotFound } from "@/lib/ids";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { effectiveInputs } from "@/lib/sizing/effective-inputs";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 
@@ -31,7 +31,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const [revisions, bsfcRows, statusFacts, today, units] = await Promise.all([
     listRevisions(m.shopId, id),
     shopBsfc(m.shopId),
-    buildStatusFacts(m.shopId, id, isoDay()),
+    shopToday(m.shopId).then((day) => buildStatusFacts(m.shopId, id, day)),
     shopSizingSettings(m.shopId),
     unitSystemOf(m.user.id, m.shopId),
   ]);

@@ -11,9 +11,10 @@ import { formatMoney } from "@/lib/catalog/money";
 import { customerFormContext } from "@/lib/customers/form-context";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { countryName } from "@/lib/domain/countries";
-import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatPhone } from "@/lib/format/phone";
 import { idOrNotFound } from "@/lib/ids";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 import { CustomerForm } from "../customer-form";
 import { DeleteCustomer } from "./delete-customer";
@@ -35,7 +36,7 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
     can(m.role, "quotes:read") ? customerQuotes(m.shopId, c.id) : Promise.resolve([]),
     can(m.role, "quotes:read") ? customerPayments(m.shopId, c.id) : Promise.resolve([]),
   ]);
-  const today = isoDay();
+  const today = await shopToday(m.shopId);
   const phone = formatPhone(c.phone, context.shopCountry);
   const place = [c.city, c.region, c.postcode].filter(Boolean).join(", ");
   const address = [

@@ -13,10 +13,11 @@ import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
-import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { diffQuotes } from "@/lib/quotes/quote-diff";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "Quote" };
 
@@ -33,7 +34,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   if (!q) notFound();
   const canWrite = can(m.role, "quotes:write");
   const qt = q.quote;
-  const today = isoDay();
+  const today = await shopToday(m.shopId);
   const shown = quoteStatusOn(qt, today);
   const [payments, latest, stock, seen, settings] = await Promise.all([
     listPayments(m.shopId, qt.id),

@@ -1,10 +1,11 @@
 import { listQuotes } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
-import { isoDay, quoteStatusOn } from "@/lib/domain/quotes";
+import { quoteStatusOn } from "@/lib/domain/quotes";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { createQuote } from "@/lib/quotes/quote-commands";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { QuoteCreateSchema, QuoteListQuery } from "@/lib/validations/quotes";
 
 /**
@@ -14,7 +15,7 @@ import { QuoteCreateSchema, QuoteListQuery } from "@/lib/validations/quotes";
 export const GET = handle(async (req) => {
   const m = await requireMember("quotes:view");
   const filters = QuoteListQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
-  const today = isoDay();
+  const today = await shopToday(m.shopId);
   const quotes = await listQuotes(m.shopId, {
     ...filters,
     today,

@@ -13,12 +13,13 @@ import { getQuote, latestRevision } from "@/db/queries/quotes";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { formatMoney } from "@/lib/catalog/money";
-import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
+import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { formatCalendarDate } from "@/lib/format/dates";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 import { formatRateBp, presentQuote } from "@/lib/quotes/quote-presentation";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "My quote" };
 
@@ -46,7 +47,7 @@ export default async function MyQuotePage({
   if (!q) notFound();
   const qt = q.quote;
   // As of today, whatever is stored: past its date a sent or accepted quote is expired.
-  const status = quoteStatusOn(qt, isoDay());
+  const status = quoteStatusOn(qt, await shopToday(m.shopId));
   const money = (v: number) => formatMoney(v, qt.currency);
   const presented = presentQuote(qt, q.lines);
   const [settings, paid, latest, stock] = await Promise.all([

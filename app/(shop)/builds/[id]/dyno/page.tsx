@@ -12,8 +12,8 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import { canVerifyWithLog, STATUS_LABELS } from "@/lib/domain/builds";
-import { isoDay } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
+import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "Dyno verification" };
 
@@ -29,7 +29,7 @@ export default async function DynoPage({ params }: { params: Promise<{ id: strin
   if (!row) notFound();
   const [logs, facts, units] = await Promise.all([
     listDatalogs(m.shopId, id),
-    buildStatusFacts(m.shopId, id, isoDay()),
+    shopToday(m.shopId).then((day) => buildStatusFacts(m.shopId, id, day)),
     unitSystemOf(m.user.id, m.shopId),
   ]);
   const status = row.build.status;

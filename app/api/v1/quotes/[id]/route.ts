@@ -2,12 +2,13 @@ import { getQuote } from "@/db/queries/quotes";
 import { requireMember } from "@/lib/auth/member";
 import { ownRecordsOnly } from "@/lib/auth/permissions";
 import { NotFound } from "@/lib/domain/errors";
-import { isoDay, quoteStatusOn } from "@/lib/domain/quotes";
+import { quoteStatusOn } from "@/lib/domain/quotes";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { editQuote } from "@/lib/quotes/quote-commands";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { shopToday } from "@/lib/shop/shop-zone";
 import { QuoteEditSchema } from "@/lib/validations/quotes";
 
 /**
@@ -23,7 +24,7 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
   if (!q) throw new NotFound("That quote");
-  const stock = STOCK_SHOWN.includes(quoteStatusOn(q.quote, isoDay()))
+  const stock = STOCK_SHOWN.includes(quoteStatusOn(q.quote, await shopToday(m.shopId)))
     ? await quoteStock(m.shopId, q.quote.status, q.lines)
     : null;
   return Response.json({ ...q, stock });
