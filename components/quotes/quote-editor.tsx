@@ -85,7 +85,7 @@ const ACTION_LABELS: Partial<Record<QuoteStatus, string>> = {
   accepted: "Mark accepted",
   declined: "Mark declined",
   expired: "Mark expired",
-  deposit_paid: "Record deposit paid",
+  deposit_paid: "Record deposit taken at the counter",
   ordered: "Mark ordered",
 };
 
@@ -99,11 +99,13 @@ type EditorProps = {
   revision: number;
   version: number;
   status: QuoteStatus;
-  /** YYYY-MM-DD (UTC) as the server sees it: the day validity is judged on. */
+  /** YYYY-MM-DD on the shop's calendar: the day validity is judged on. */
   today: string;
   currency: string;
   taxRateBp: number;
   validUntil: string;
+  /** The deposit the shop's terms ask on this quote's total, in minor units. */
+  depositMinor: number;
   notes: string;
   lines: EditorLine[];
   /** The shop's labour rate (minor units an hour): what "Add labour" charges. */
@@ -698,6 +700,13 @@ function QuoteEditorForm({
                 if (
                   (s === "declined" || s === "expired") &&
                   !window.confirm(`${ACTION_LABELS[s]}? Stock held for it is released.`)
+                )
+                  return;
+                if (
+                  s === "deposit_paid" &&
+                  !window.confirm(
+                    `Record a deposit of ${money(props.depositMinor)} taken at the counter (cash or the shop's card terminal)? It is recorded as paid now and the customer is sent a receipt.`,
+                  )
                 )
                   return;
                 run(s, `Quote is now ${QUOTE_STATUS_LABELS[s].toLowerCase()}`, () =>

@@ -45,6 +45,8 @@ export async function recordPendingPayment(v: {
   createdBy: string;
   kind?: PaymentKind;
   invoiceId?: string;
+  /** "stripe" (the default) or "counter": taken by the shop in person (recordCounterDeposit). */
+  provider?: string;
 }) {
   const [row] = await db.insert(payments).values(v).onConflictDoNothing().returning();
   return row;

@@ -1,5 +1,7 @@
 import "server-only";
 
+import { randomUUID } from "node:crypto";
+
 import type Stripe from "stripe";
 
 import { getInvoice } from "@/db/queries/invoices";
@@ -98,6 +100,67 @@ export async function startDeposit(
       createdBy: member.user.id,
     });
   return { url: open.url, amountMinor };
+}
+
+/**
+ * The deposit on a staff member's accepted quote taken at the counter (cash or the shop's card
+ * terminal): a payment of exactly the deposit the shop asks (worked out here, never given by the
+ * caller) is recorded paid, by whom and when, and the quote moves to "deposit paid" in the same
+ * transaction — so a quote is never "deposit paid" without the payment that paid it, and the
+ * invoice deducts what was taken. The customer's receipt and the shop's notice follow, once.
+ */
+export async function recordCounterDeposit(
+  member: Member,
+  quoteId: string,
+): Promise<{ amountMinor: number }> {
+  authorize(member, "quotes:write");
+  const { shopId } = member;
+  const q = await getQuote(shopId, quoteId);
+  if (!q) throw new NotFound("That quote");
+  if (q.quote.status !== "accepted")
+    throw new Conflict(
+      q.quote.status === "deposit_paid"
+        ? "The deposit on this quote is already paid"
+        : "Only an accepted quote takes a deposit",
+      "not_awaiting_deposit",
+    );
+  if (pastValidity(q.quote, await shopToday(shopId)))
+    throw new Conflict(
+      `This quote was valid until ${q.quote.validUntil}; its deposit can no longer be taken. Revise it or make a new one`,
+      "quote_expired",
+    );
+  const settings = await getShopSettings(shopId);
+  const amountMinor = depositOf(
+    q.quote.totalMinor,
+    settings?.settings.depositBp ?? DEFAULT_DEPOSIT_BP,
+  );
+  if (amountMinor <= 0) throw new Invalid("This quote asks for no deposit", [], "no_deposit");
+  const sessionId = `counter_${randomUUID()}`;
+  const currency = q.quote.currency;
+  await recordPendingPayment({
+    shopId,
+    quoteId,
+    checkoutSessionId: sessionId,
+    amountMinor,
+    currency,
+    createdBy: member.user.id,
+    provider: "counter",
+  });
+  const r = await confirmPayment(
+    {
+      checkoutSessionId: sessionId,
+      shopId,
+      quoteId,
+      invoiceId: "",
+      reference: quoteId,
+      amountMinor,
+      currency: currency.toUpperCase(),
+    },
+    `counter:${member.user.id}`,
+  );
+  if (r !== "paid") throw new Conflict("The deposit could not be recorded; reload and try again");
+  await paymentNotices(sessionId);
+  return { amountMinor };
 }
 
 /**

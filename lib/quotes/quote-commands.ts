@@ -41,6 +41,7 @@ import {
 import { serverEnv } from "@/lib/env";
 import { sendMail } from "@/lib/mail";
 import { notifyShop } from "@/lib/notices/notice-commands";
+import { recordCounterDeposit } from "@/lib/payments/payment-commands";
 import { renderQuoteSheet } from "@/lib/pdf/quote-sheet";
 import { quotePdfName, quoteSheetData } from "@/lib/pdf/quote-sheet-data";
 import { cachedPdf } from "@/lib/pdf/render-cache";
@@ -321,7 +322,8 @@ export async function sendQuote(
  * Moves a quote one step along its workflow (QUOTE_NEXT): accepting holds its parts' stock,
  * declining or expiring an accepted quote releases it. Once past its valid-until day (judged
  * now, whatever the stored status) it is no longer accepted, declined or paid (422
- * quote_expired). Asking for the status it has changes nothing.
+ * quote_expired). Asking for the status it has changes nothing. "Deposit paid" records the
+ * deposit taken at the counter as a payment (recordCounterDeposit) with the move.
  */
 export async function changeQuoteStatus(
   member: Member,
@@ -339,6 +341,12 @@ export async function changeQuoteStatus(
       `This quote was valid until ${q.validUntil}: it can no longer be accepted, declined or paid. Mark it expired, or ${q.status === "sent" ? "edit it to make a new revision to send" : "revise it"}.`,
       "quote_expired",
     );
+  // "Deposit paid" is a payment, never a bare status: the deposit taken at the counter is
+  // recorded (its amount worked out by the shop's terms) and the quote moves with it.
+  if (input.status === "deposit_paid") {
+    await recordCounterDeposit(member, q.id);
+    return (await quoteOf(member, q.id)).quote;
+  }
   const done = await setQuoteStatus(member.shopId, q.id, {
     from: q.status,
     to: input.status,

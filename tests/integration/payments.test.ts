@@ -501,3 +501,57 @@ describe("portal invitation", () => {
     expect(page.text).toContain("Customer");
   });
 });
+
+describe("a deposit taken at the counter", () => {
+  it("is a payment of the shop's deposit, recorded by the counter with the move; once", async () => {
+    const q = await acceptedQuote(41235);
+    const [terms] =
+      await sql`select deposit_bp from shop_settings where shop_id = 'demo-shop-ridgeback'`;
+    // The deposit is the shop's share of the total, rounded half-up to the cent
+    // (lib/payments/deposit.ts; common practice, no source).
+    const expected = Math.round((q.total_minor * terms!.deposit_bp) / 10_000);
+    const r = await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, {
+      status: "deposit_paid",
+      amountMinor: 1, // the caller never names the amount
+    });
+    expect(r.status).toBe(200); // the stray amount is ignored: the shop's terms set it
+    const paid = await sql`select * from payments where quote_id = ${q.id}`;
+    expect(paid).toHaveLength(1);
+    expect(paid[0]).toMatchObject({
+      provider: "counter",
+      status: "paid",
+      amount_minor: expected,
+      kind: "deposit",
+    });
+    expect(paid[0]!.paid_at).not.toBeNull();
+    const [by] =
+      await sql`select u.email from "user" u where u.id = ${paid[0]!.created_by as string}`;
+    expect(by!.email).toBe("counter@demo.fuelwright.test");
+    const [after] = await sql`select status from quotes where id = ${q.id}`;
+    expect(after!.status).toBe("deposit_paid");
+
+    // Asking again changes nothing: no second payment.
+    const before = await fingerprint(TABLES);
+    const twice = await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, {
+      status: "deposit_paid",
+    });
+    expect(twice.status).toBe(200);
+    expect(await fingerprint(TABLES)).toBe(before);
+
+    // The shop's page shows what was taken, where.
+    const page = await request(counter, "GET", `/quotes/${q.id}`);
+    expect(page.text).toMatch(/deposit paid<!-- --> at the counter|deposit paid at the counter/);
+  });
+
+  it("cannot be recorded on a quote the customer has not accepted", async () => {
+    const q = (await request(counter, "POST", "/api/v1/quotes", { customerId: CUSTOMER_ID })).json
+      .quote;
+    const before = await fingerprint(TABLES);
+    const r = await request(counter, "POST", `/api/v1/quotes/${q.id}/status`, {
+      status: "deposit_paid",
+    });
+    expect(r.status).toBeGreaterThanOrEqual(400);
+    expect(r.status).toBeLessThan(500);
+    expect(await fingerprint(TABLES)).toBe(before);
+  });
+});

@@ -15,6 +15,7 @@ import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
+import { depositOf } from "@/lib/payments/deposit";
 import { diffQuotes } from "@/lib/quotes/quote-diff";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 import { shopToday } from "@/lib/shop/shop-zone";
@@ -111,6 +112,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         currency={qt.currency}
         taxRateBp={qt.taxRateBp}
         validUntil={qt.validUntil}
+        depositMinor={depositOf(qt.totalMinor, settings?.settings.depositBp ?? 3000)}
         notes={qt.notes ?? ""}
         lines={q.lines.map((l) => ({
           kind: l.kind,
@@ -145,6 +147,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
               <li key={p.id}>
                 <span className="figure">{formatMoney(p.amountMinor, p.currency)}</span> —{" "}
                 {PAYMENT_LABELS[p.status]}
+                {p.provider === "counter" ? " at the counter" : ""}
                 {p.paidAt ? (
                   <>
                     {" "}
