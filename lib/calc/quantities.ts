@@ -53,6 +53,8 @@ export type Quantity =
   | "length"
   | "diameter"
   | "roughness"
+  /** A filter's rating, µm in both systems (the trade's "10 micron" in the US too). */
+  | "filterRating"
   | "temperature"
   /** A difference of temperatures (EGT spread between cylinders), °C: no offset in °F. */
   | "temperatureDiff"
@@ -229,6 +231,11 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     canonical: "mm",
     metric: metric("mm", 4),
     imperial: { unit: "in", decimals: 5, to: (x) => x / MM_PER_IN, from: (x) => x * MM_PER_IN },
+  },
+  filterRating: {
+    name: "filter rating",
+    canonical: "µm",
+    ...same({ unit: "µm", decimals: 0 }),
   },
   temperature: {
     name: "temperature",
