@@ -144,11 +144,12 @@ describe("every figure in the reader's units", () => {
       const displacement = system === "imperial" ? "Displacement (cu in)" : "Displacement (L)";
       expect(await page.getByLabel(displacement, { exact: true }).count()).toBe(1);
       // … and air per cylinder and fuel per injection in grains (three decimals: 0.2–1.5 gr of
-      // fuel to three figures) or mg, in the working steps and the spec sheet alike.
+      // fuel to three figures) or mg, in the working steps and the spec sheet alike (where a
+      // line may break before the figure).
       const small =
         system === "imperial"
-          ? [/fuel per injection \d+\.\d{3} gr/, /air per cylinder \d+\.\d{3} gr/]
-          : [/fuel per injection \d+\.\d{2} mg/, /air per cylinder \d+\.\d mg/];
+          ? [/fuel per injection\s+\d+\.\d{3} gr/, /air per cylinder\s+\d+\.\d{3} gr/]
+          : [/fuel per injection\s+\d+\.\d{2} mg/, /air per cylinder\s+\d+\.\d mg/];
       const working = await page.getByTestId("working").innerText();
       for (const re of small) expect(working).toMatch(re);
       await page.goto(`${url}/revisions/2`);
