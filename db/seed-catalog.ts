@@ -32,7 +32,9 @@ const injector = (flow: number, price: number, stock: number, minPw: number) =>
     sku: `HF-INJ-${flow}`,
     category: "injector",
     brand: "Halvorsen Flow",
-    name: `${flow} cc/min high-impedance injector`,
+    // A series number, as the pumps have, not a flow in one unit system: the name reaches
+    // quotes and spec sheets as typed, the flow is a spec shown in the reader's units.
+    name: `Series ${flow} high-impedance injector`,
     priceMinor: price,
     stock,
     reorderLevel: 8,

@@ -6,6 +6,7 @@ import useSWR from "swr";
 
 import { SelectField } from "@/components/ui/field";
 import { EmptyState, Signal } from "@/components/ui/status";
+import { formatValue } from "@/lib/calc/quantities";
 import { BUILD_STATUSES, STATUS_LABELS, type BuildStatus } from "@/lib/domain/builds";
 import { fetcher } from "@/lib/fetcher";
 
@@ -26,6 +27,8 @@ interface Page {
 }
 
 const dutyLevel = (d: number) => (d >= 90 ? "danger" : d > 80 ? "caution" : "ok");
+/** A whole percentage through the registry (the same in both unit systems). */
+const percent = (x: number) => formatValue("percent", x, "metric", 0);
 
 /** The builds table: searched, filtered and paged through GET /api/v1/builds. */
 export function BuildsTable({
@@ -169,7 +172,7 @@ export function BuildsTable({
                     {b.dutyPct === null || b.status === "needs_sizing" ? (
                       "—"
                     ) : (
-                      <Signal level={dutyLevel(b.dutyPct)}>{b.dutyPct.toFixed(0)} %</Signal>
+                      <Signal level={dutyLevel(b.dutyPct)}>{percent(b.dutyPct)}</Signal>
                     )}
                   </td>
                   <td
@@ -183,7 +186,7 @@ export function BuildsTable({
                       <Signal
                         level={b.marginPct < 0 ? "danger" : b.marginPct < 25 ? "caution" : "ok"}
                       >
-                        {b.marginPct.toFixed(0)} %
+                        {percent(b.marginPct)}
                       </Signal>
                     )}
                   </td>

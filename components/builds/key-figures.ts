@@ -1,7 +1,7 @@
 import type { FuelSystemResult, UnitSystem } from "@/lib/calc";
 import { CEILING_SEVERITY_LABELS, DUTY_BAND_LABELS } from "@/lib/calc/code-labels";
 import { formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
-import { formatNumber, formatValue, unitOf } from "@/lib/calc/quantities";
+import { formatNumber, formatValue, ownDecimals, unitOf } from "@/lib/calc/quantities";
 import { resultField } from "@/lib/calc/registry";
 
 export type Level = "ok" | "info" | "caution" | "danger";
@@ -25,7 +25,7 @@ const RANK: Record<Level, number> = { ok: 0, info: 1, caution: 2, danger: 3 };
 function figure(path: string, value: number, units: UnitSystem) {
   const f = resultField(path);
   const q = f?.quantity ?? "ratio";
-  return `${formatNumber(q, value, units, f?.decimals)} ${unitOf(q, units)}`.trim();
+  return `${formatNumber(q, value, units, ownDecimals(q, units, f?.decimals))} ${unitOf(q, units)}`.trim();
 }
 
 /**

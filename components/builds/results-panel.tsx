@@ -11,7 +11,7 @@ import {
 } from "@/lib/calc/code-labels";
 import { AN_SIZES } from "@/lib/calc/lines";
 import { formatTraceStep, formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
-import { formatNumber, formatValue, unitOf } from "@/lib/calc/quantities";
+import { formatNumber, formatValue, ownDecimals, unitOf } from "@/lib/calc/quantities";
 import { formatResult, resultField } from "@/lib/calc/registry";
 
 function Figure({
@@ -40,7 +40,7 @@ function split(path: string, value: number, units: UnitSystem, decimals?: number
   const f = resultField(path);
   const q = f?.quantity ?? "ratio";
   return {
-    value: formatNumber(q, value, units, decimals ?? f?.decimals),
+    value: formatNumber(q, value, units, decimals ?? ownDecimals(q, units, f?.decimals)),
     unit: unitOf(q, units),
   };
 }

@@ -17,6 +17,7 @@ import {
   converter,
   dutyAcrossEthanol,
   dutyAcrossRpm,
+  formatValue,
   fuelPressureChart,
   pumpBoostChart,
   pumpSupplyCurve,
@@ -147,7 +148,7 @@ export function SizingCharts({
     <div className="space-y-4" data-testid="sizing-charts">
       <Chart
         title="Duty across engine speed"
-        summary={`Duty rises to ${result.injector.dutyPct.toFixed(0)} % at ${input.engine.redlineRpm} rpm`}
+        summary={`Duty rises to ${formatValue("percent", result.injector.dutyPct, units, 0)} at ${formatValue("speed", input.engine.redlineRpm, units)}`}
       >
         <LineChart data={rpm} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
           <CartesianGrid stroke="#e6eaee" />

@@ -7,6 +7,12 @@
 
 /** 1 lb = 0.45359237 kg exactly (NIST SP 811). */
 export const KG_PER_LB = 0.45359237;
+/**
+ * 1 grain = 1/7000 lb = 64.79891 mg exactly (the international yard and pound agreement of 1959,
+ * which made 1 lb = 0.45359237 kg; NIST SP 811 B.8: grain = 6.479 891 E−05 kg, exact).
+ */
+export const GRAINS_PER_LB = 7000;
+export const MG_PER_GRAIN = 64.79891;
 /** 1 US gallon = 3.785411784 L exactly (NIST SP 811). */
 export const L_PER_US_GAL = 3.785411784;
 /** 1 in = 25.4 mm exactly (NIST SP 811). */

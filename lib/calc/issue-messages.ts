@@ -8,6 +8,7 @@ import {
   fillTemplate,
   formatNumber,
   formatValue,
+  ownDecimals,
   QUANTITIES,
   type FigureParams,
 } from "./quantities";
@@ -62,10 +63,10 @@ export function issueMessage(issue: IssueLike, system: UnitSystem): string {
     const trim = (t: string) => t.replace(/(\.\d*?)0+(?=\D*$)/, "$1").replace(/\.(?=\D*$)/, "");
     const low = trim(
       spec.prefix
-        ? formatValue(q, b.min, system, field.decimals)
-        : formatNumber(q, b.min, system, field.decimals),
+        ? formatValue(q, b.min, system, ownDecimals(q, system, field.decimals))
+        : formatNumber(q, b.min, system, ownDecimals(q, system, field.decimals)),
     );
-    const high = trim(formatValue(q, b.max, system, field.decimals));
+    const high = trim(formatValue(q, b.max, system, ownDecimals(q, system, field.decimals)));
     return `${field.label} must be between ${low} and ${high}`;
   }
   return issue.message;

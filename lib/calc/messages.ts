@@ -1,5 +1,11 @@
 // Reference: docs/calculations.md §7.3.
-import { fillTemplate, formatLabelled, formatValue, type FigureParams } from "./quantities";
+import {
+  fillTemplate,
+  formatLabelled,
+  formatValue,
+  ownDecimals,
+  type FigureParams,
+} from "./quantities";
 import { inputField } from "./registry";
 import type { Severity, TraceStep, Warning } from "./types";
 import type { UnitSystem } from "./units";
@@ -71,10 +77,23 @@ export function formatTraceStep(step: TraceStep, system: UnitSystem): FormattedS
   return {
     id: step.id,
     label: fillTemplate(step.label, step.params, system),
-    value: formatValue(step.quantity, step.value, system, step.decimals),
+    value: formatValue(
+      step.quantity,
+      step.value,
+      system,
+      ownDecimals(step.quantity, system, step.decimals),
+    ),
     formula: system === "imperial" && step.formulaImperial ? step.formulaImperial : step.formula,
     inputs: step.inputs
       .filter((i) => !i.only || i.only === system)
-      .map((i) => formatLabelled(i.label, i.quantity, i.value, system, i.decimals)),
+      .map((i) =>
+        formatLabelled(
+          i.label,
+          i.quantity,
+          i.value,
+          system,
+          ownDecimals(i.quantity, system, i.decimals),
+        ),
+      ),
   };
 }

@@ -7,6 +7,7 @@ import {
   L_PER_CU_IN,
   L_PER_US_GAL,
   M_PER_FT,
+  MG_PER_GRAIN,
   MM_PER_IN,
   NM_PER_LBF_FT,
 } from "./constants";
@@ -52,6 +53,8 @@ export type Quantity =
   | "length"
   | "diameter"
   | "roughness"
+  /** A filter's rating, µm in both systems (the trade's "10 micron" in the US too). */
+  | "filterRating"
   | "temperature"
   /** A difference of temperatures (EGT spread between cylinders), °C: no offset in °F. */
   | "temperatureDiff"
@@ -69,8 +72,8 @@ export type Quantity =
   | "displacement"
   | "volume"
   /**
-   * Air or fuel per cylinder or per injection, mg in both systems: ECUs and tuning software
-   * work in mg per injection in the US too, so imperial keeps it (and every label says "mg").
+   * Air or fuel per cylinder or per injection, mg (grains in imperial: 1 gr = 64.79891 mg, so
+   * tens of mg of fuel read 0.2–1.5 gr and hundreds of mg of air a few grains).
    */
   | "mass"
   | "voltage"
@@ -229,6 +232,11 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     metric: metric("mm", 4),
     imperial: { unit: "in", decimals: 5, to: (x) => x / MM_PER_IN, from: (x) => x * MM_PER_IN },
   },
+  filterRating: {
+    name: "filter rating",
+    canonical: "µm",
+    ...same({ unit: "µm", decimals: 0 }),
+  },
   temperature: {
     name: "temperature",
     canonical: "°C",
@@ -316,7 +324,18 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
       from: (x) => volumeToL(x, IMP.volume),
     },
   },
-  mass: { name: "mass", canonical: "mg", ...same({ unit: "mg", decimals: 1 }) },
+  mass: {
+    name: "mass",
+    canonical: "mg",
+    metric: metric("mg", 1),
+    // Three decimals: 0.648 gr (42 mg of fuel) to three significant figures, 2.844 gr of air.
+    imperial: {
+      unit: "gr",
+      decimals: 3,
+      to: (x) => x / MG_PER_GRAIN,
+      from: (x) => x * MG_PER_GRAIN,
+    },
+  },
   voltage: { name: "voltage", canonical: "V", ...same({ unit: "V", decimals: 1 }) },
   current: { name: "current", canonical: "A", ...same({ unit: "A", decimals: 1 }) },
   wireGauge: { name: "wire gauge", canonical: "AWG", ...same({ unit: "AWG", decimals: 0 }) },
@@ -444,11 +463,27 @@ export function formatLabelled(
   return `${label} ${named ? value.slice(prefix.length) : value}`;
 }
 
+/**
+ * A figure's own precision (a registry field's or a working step's `decimals`) is said in the
+ * metric unit: it holds where the reader's system shows that unit (a percentage, a time) and
+ * gives way to the system's own precision where that system has a unit of its own (fuel per
+ * injection: 13.54 mg, but 0.209 gr).
+ */
+export function ownDecimals(
+  q: Quantity,
+  system: UnitSystem,
+  decimals: number | undefined,
+): number | undefined {
+  return decimals !== undefined && QUANTITIES[q][system].unit === QUANTITIES[q].metric.unit
+    ? decimals
+    : undefined;
+}
+
 /** A number with its quantity: how warnings and working steps carry their figures. */
 export interface Figure {
   value: number;
   quantity: Quantity;
-  /** Overrides the quantity's precision (for units that are the same in both systems). */
+  /** Overrides the quantity's precision where the reader sees the metric unit (`ownDecimals`). */
   decimals?: number;
 }
 
@@ -464,7 +499,9 @@ export function fillTemplate(
   if (!params) return template;
   return template.replace(/\{(\w+)\}/g, (whole, name: string) => {
     const f = params[name];
-    return f ? formatValue(f.quantity, f.value, system, f.decimals) : whole;
+    return f
+      ? formatValue(f.quantity, f.value, system, ownDecimals(f.quantity, system, f.decimals))
+      : whole;
   });
 }
 

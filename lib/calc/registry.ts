@@ -17,6 +17,7 @@ import {
   converter,
   formatValue,
   fromShown,
+  ownDecimals,
   QUANTITIES,
   toShown,
   type Quantity,
@@ -559,7 +560,12 @@ export function formatField(
   if (value === undefined || value === null) return "—";
   if (typeof value === "number") {
     return field?.quantity
-      ? formatValue(field.quantity, value, system, field.decimals)
+      ? formatValue(
+          field.quantity,
+          value,
+          system,
+          ownDecimals(field.quantity, system, field.decimals),
+        )
       : Number.isFinite(value)
         ? String(value)
         : "—";

@@ -28,7 +28,7 @@ export function specSummary(
     case "line":
       return `${v("anDash", s.dash)} · ${v("diameter", s.insideDiameterMm)} ID${s.material ? ` · ${s.material}` : ""}${e}`;
     case "filter":
-      return `${s.micron} µm · ${v("pressureDrop", s.dropKpa)} drop${e}`;
+      return `${v("filterRating", s.micron)} · ${v("pressureDrop", s.dropKpa)} drop${e}`;
     case "fitting":
       return typeof s.dash === "number" ? v("anDash", s.dash) : "";
     case "sensor":

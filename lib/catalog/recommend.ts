@@ -371,7 +371,8 @@ export function recommendKit(input: ParsedFuelSystemInput, parts: CatalogPart[])
       .map((p) => {
         const s = p.specs as { micron: number; dropKpa: number; dash?: number };
         const why = [
-          R(`${s.micron} µm, {drop} drop`, {
+          R("{rating}, {drop} drop", {
+            rating: { value: s.micron, quantity: "filterRating" },
             drop: { value: s.dropKpa, quantity: "pressureDrop" },
           }),
         ];

@@ -16,9 +16,9 @@ afterAll(async () => {
  * A figure in a unit of one system only: a number, then the unit. "m" and "in" count only after a
  * number, being words too. The same lists as tests/unit/registry.test.ts.
  */
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C|mg)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F|gr)(?![\w/])/;
 /**
  * An internal field path or code where a label belongs: camelCase names (units such as kPa are not), "›" paths, and a code
  * standing alone in a table cell (the words themselves appear in sentences).
@@ -143,8 +143,15 @@ describe("every figure in the reader's units", () => {
       // The engine's size as the reader's trade says it (cu in; L in metric) …
       const displacement = system === "imperial" ? "Displacement (cu in)" : "Displacement (L)";
       expect(await page.getByLabel(displacement, { exact: true }).count()).toBe(1);
-      // … and fuel per injection in mg in both systems (as ECUs take it), said so each time.
-      expect(await page.getByTestId("working").innerText()).toMatch(/fuel per injection [\d.]+ mg/);
+      // … and air per cylinder and fuel per injection in grains (three decimals: 0.2–1.5 gr of
+      // fuel to three figures) or mg, in the working steps and the spec sheet alike (where a
+      // line may break before the figure).
+      const small =
+        system === "imperial"
+          ? [/fuel per injection\s+\d+\.\d{3} gr/, /air per cylinder\s+\d+\.\d{3} gr/]
+          : [/fuel per injection\s+\d+\.\d{2} mg/, /air per cylinder\s+\d+\.\d mg/];
+      const working = await page.getByTestId("working").innerText();
+      for (const re of small) expect(working).toMatch(re);
       await page.goto(`${url}/revisions/2`);
       pages.push(["revision 2", await mainText(page)]);
       await page.goto(`${url}/compare?from=1&to=2`);
@@ -157,6 +164,7 @@ describe("every figure in the reader's units", () => {
       expect(pdf.status()).toBe(200);
       const sheet = inspectPdf(Buffer.from(await pdf.body())).text;
       expect(sheet).toContain("How these numbers were worked out");
+      for (const re of small) expect(sheet).toMatch(re);
       pages.push(["spec sheet", sheet]);
       for (const [name, text] of pages) {
         expect(text, name).toMatch(own);

@@ -11,9 +11,9 @@ import { makeSettingsShop } from "../helpers/settings-shop";
  * shop's design duty (75 %) and manual drivetrain loss (10 %).
  */
 
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|L|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|L|bar|°C|mg)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|in|ft|ft\/s|°F|gr)(?![\w/])/;
 /** The settings page's unit and paper selects name both systems on purpose. */
 const UNIT_CHOICES =
   /(Imperial \(hp, psi, lb\/h, gal\)|Metric \(kW, kPa, cc\/min, L\)|US Letter \(8\.5 × 11 in\)|A4 \(210 × 297 mm\))/g;

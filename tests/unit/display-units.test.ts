@@ -1,7 +1,18 @@
+import convert from "convert-units";
 import { describe, expect, it } from "vitest";
 
 import { compareKeyFigures, diffInputs, flatten, stableJson } from "@/lib/builds/diff";
-import { converter, convertInputs, quantityOf, toShown } from "@/lib/calc";
+import {
+  converter,
+  convertInputs,
+  formatValue,
+  fromShown,
+  GRAINS_PER_LB,
+  KG_PER_LB,
+  MG_PER_GRAIN,
+  quantityOf,
+  toShown,
+} from "@/lib/calc";
 
 import { boostedSix } from "../calc/fixtures";
 
@@ -17,6 +28,31 @@ describe("display units", () => {
     expect(toShown("temperature", 0, "imperial")).toBe(32);
     // US gallon = 3.785411784 L exactly (NIST SP 811 B.8).
     expect(converter("volumeFlow", "imperial").from(1)).toBeCloseTo(3.785411784, 6);
+  });
+
+  it("small masses in grains: 1 gr = 64.79891 mg exactly", () => {
+    // 1 grain = 1/7000 lb and 1 lb = 0.45359237 kg, both exact since the international yard and
+    // pound agreement of 1959; NIST SP 811 (2008) B.8: grain = 6.479 891 E−05 kg.
+    expect(MG_PER_GRAIN * GRAINS_PER_LB).toBeCloseTo(KG_PER_LB * 1_000_000, 6);
+    expect(converter("mass", "imperial").from(1)).toBe(64.79891);
+    expect(converter("mass", "imperial").to(64.79891)).toBe(1);
+    expect(converter("mass", "metric").unit).toBe("mg");
+    expect(converter("mass", "imperial").unit).toBe("gr");
+    // convert-units has no grain: its pound (453.592 g) times 7000 agrees to five figures.
+    expect(converter("mass", "imperial").to(1000)).toBeCloseTo(
+      convert(1000).from("mg").to("lb") * 7000,
+      3,
+    );
+    // 42 mg of fuel = 0.648 gr; 184.3 mg of air = 2.844 gr (by hand, ÷ 64.79891).
+    expect(formatValue("mass", 42, "imperial")).toBe("0.648 gr");
+    expect(formatValue("mass", 184.3, "imperial")).toBe("2.844 gr");
+    expect(formatValue("mass", 184.3, "metric")).toBe("184.3 mg");
+    // A mass typed in grains is kept to 0.01 mg (one digit more than metric shows) and shows
+    // back as typed; a value nobody changed comes back exactly.
+    const typed = fromShown("mass", 0.648, "imperial");
+    expect(typed).toBe(41.99);
+    expect(toShown("mass", typed, "imperial")).toBe(0.648);
+    expect(fromShown("mass", toShown("mass", 13.537, "imperial"), "imperial", 13.537)).toBe(13.537);
   });
 
   it("metric is the canonical form", () => {

@@ -4,6 +4,7 @@ import { z } from "zod";
 import { newBuildInputs } from "@/lib/builds/defaults";
 import {
   formatLabelled,
+  formatResult,
   formatTraceStep,
   formatValue,
   formatWarning,
@@ -28,9 +29,9 @@ import { boostedSix, naFour } from "../calc/fixtures";
  * A figure printed in a unit of one system only: a number, then the unit (the imperial ones are
  * never printed in metric, and back). "m" and "in" count only after a number: they are words too.
  */
-const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C)(?![\w/])/;
+const METRIC_ONLY = /\d\s?(kPa|kW|cc\/min|L\/h|g\/min|g\/kWh|kg\/L|mm|m\/s|m|L|bar|°C|mg)(?![\w/])/;
 const IMPERIAL_ONLY =
-  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F)(?![\w/])/;
+  /\d\s?(psi|psia|hp|lb\/h|gal\/h|gal|lb\/hp\/h|lb\/gal|cu in|in|ft|ft\/s|°F|gr)(?![\w/])/;
 
 /** Leaves of a JSON Schema by dotted path (array items as `*`), with their node. */
 function schemaLeaves(
@@ -226,13 +227,27 @@ describe("warnings and working steps carry their figures as data", () => {
     }
   });
 
-  it("says displacement in cu in to an imperial reader and fuel per injection in mg to both", () => {
+  it("says displacement in cu in and air and fuel per injection in grains to an imperial reader", () => {
     // 5.7 L = 347.8 cu in (1 in³ = 16.387064 cm³ exactly, NIST SP 811 B.8).
     expect(formatValue("displacement", 5.7, "imperial")).toBe("348 cu in");
     expect(formatValue("displacement", 5.7, "metric")).toBe("5.7 L");
     expect(inputField("engine.displacementL")?.quantity).toBe("displacement");
-    for (const system of ["metric", "imperial"] as const)
-      expect(texts(results[0]![1], system).join("\n")).toMatch(/fuel per injection [\d.]+ mg/);
+    expect(texts(results[0]![1], "metric").join("\n")).toMatch(/fuel per injection \d+\.\d\d mg/);
+    expect(texts(results[0]![1], "metric").join("\n")).toMatch(/air per cylinder \d+\.\d mg/);
+    // In grains, three decimals: three significant figures for tens of mg of fuel.
+    const imperial = texts(results[0]![1], "imperial").join("\n");
+    expect(imperial).toMatch(/fuel per injection 0\.\d{3} gr/);
+    expect(imperial).toMatch(/air per cylinder \d+\.\d{3} gr/);
+    // … and the working's constant is the grain's: 1 lb/h = 7000 gr per 3 600 000 ms, so one grain
+    // takes 514.3 ms (1 lb = 7000 gr, international yard and pound agreement of 1959).
+    expect(imperial).toContain("× 514.3 (ms per gr at 1 lb/h)");
+    // The registry's figure: 13.54 mg in metric (its own two decimals), 0.209 gr in imperial.
+    expect(formatResult("injector.pulseWidthIdle.fuelPerInjectionMg", 13.54, "metric")).toBe(
+      "13.54 mg",
+    );
+    expect(formatResult("injector.pulseWidthIdle.fuelPerInjectionMg", 13.54, "imperial")).toBe(
+      "0.209 gr",
+    );
   });
 
   it("prints counts as whole numbers and figures at their precision", () => {

@@ -73,7 +73,7 @@ export function idleStage(
     params: { ethanol: { value: lean.ethanolVolPct, quantity: "ethanol" } },
     formula: "fuel per injection ÷ (density × injector flow at idle pressure) × 60",
     formulaImperial:
-      "fuel per injection ÷ (injector flow at idle pressure × density ÷ rating fluid density) × 7.937 (ms per mg at 1 lb/h)",
+      "fuel per injection ÷ (injector flow at idle pressure × density ÷ rating fluid density) × 514.3 (ms per gr at 1 lb/h)",
     inputs: [
       { label: "air per cylinder", value: idleFuel.airMg, quantity: "mass" },
       { label: "fuel per injection", value: fuelPerInjectionMg, quantity: "mass", decimals: 2 },
