@@ -26,6 +26,8 @@ export const db: Db = new Proxy({} as Db, {
   get(_t, prop) {
     globalForDb.fuelwrightDb ??= connect();
     const value = Reflect.get(globalForDb.fuelwrightDb, prop);
+    // `$client` is postgres.js's own `sql` (a function with methods such as `unsafe`): as it is.
+    if (prop === "$client") return value;
     return typeof value === "function" ? value.bind(globalForDb.fuelwrightDb) : value;
   },
 });

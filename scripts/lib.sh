@@ -174,22 +174,28 @@ build_if_needed() {
   node node_modules/next/dist/bin/next build || die "next build failed"
 }
 
-# bench_database NAME PORT — the benchmarks' own cluster NAME on 127.0.0.1:PORT with the database
-# fuelwright_bench (DATABASE_URL), the app's secrets and stand-in addresses for a bench server on
-# port 3300, migrated and seeded with the demo shop (npm run bench:http, bench:ui).
+# bench_port PORT — PORT moved by FW_PORT_OFFSET (0 by default), so that benchmarks of two
+# checkouts can run side by side: bench cluster 54397(+N), bench server 3300(+N).
+bench_port() { printf '%s' $(( $1 + ${FW_PORT_OFFSET:-0} )); }
+
+# bench_database NAME PORT — the benchmarks' own cluster NAME on 127.0.0.1:PORT(+offset) with the
+# database fuelwright_bench (DATABASE_URL), the app's secrets and stand-in addresses for a bench
+# server on port 3300(+offset), migrated and seeded with the demo shop (npm run bench:http, bench:ui).
 bench_database() {
-  local name="$1" port="$2"
+  local name="$1" port
+  port="$(bench_port "$2")"
+  export BENCH_BASE_URL="http://127.0.0.1:$(bench_port 3300)"
   pg_start "$name" "$port"
   pg_ensure_db "$port" fuelwright_bench
   export DATABASE_URL="postgres://fuelwright@127.0.0.1:$port/fuelwright_bench"
   ensure_secret BETTER_AUTH_SECRET bench-auth-secret
   ensure_secret STRIPE_WEBHOOK_SECRET bench-payments-webhook-secret whsec_
-  export APP_URL="http://127.0.0.1:3300" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
+  export APP_URL="$BENCH_BASE_URL" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
   migrate_and_seed
 }
 
 # bench_server — the production build in .next-bench (built again when a source is newer than it)
-# started on 127.0.0.1:3300 (log: .data/bench-server.log, stopped by stop_all); returns once it answers.
+# started on 127.0.0.1:3300(+offset) (log: .data/bench-server.log, stopped by stop_all); returns once it answers.
 bench_server() {
   cd "$FW_ROOT"
   export NEXT_DIST_DIR=.next-bench
@@ -197,8 +203,9 @@ bench_server() {
     say "building for the benchmark (.next-bench)…"
     node node_modules/next/dist/bin/next build >/dev/null || die "build failed"
   fi
-  port_busy 3300 && die "port 3300 is taken"
-  NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p 3300 > .data/bench-server.log 2>&1 &
+  local port; port="$(bench_port 3300)"
+  port_busy "$port" && die "port $port is taken (another checkout's benchmark? set FW_PORT_OFFSET)"
+  NODE_ENV=production node ${BENCH_NODE_FLAGS:-} node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$port" > .data/bench-server.log 2>&1 &
   FW_PIDS+=($!)
-  wait_http "http://127.0.0.1:3300/api/health" 60 || die "bench server did not come up (.data/bench-server.log)"
+  wait_http "http://127.0.0.1:$port/api/health" 60 || die "bench server did not come up (.data/bench-server.log)"
 }

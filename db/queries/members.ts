@@ -1,7 +1,8 @@
 import { and, asc, desc, eq, gt, sql } from "drizzle-orm";
+import { PgDialect } from "drizzle-orm/pg-core";
 
 import { db } from "@/db";
-import { invitation, member, organization, session, user } from "@/db/schema";
+import { invitation, member, organization, session, shopSettings, user } from "@/db/schema";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 /**
@@ -174,6 +175,26 @@ export async function removeMember(shopId: string, memberId: string): Promise<vo
   });
 }
 
+/** The shop settings columns the sizing reads (lib/sizing/effective-inputs.ts#ShopSizingColumns). */
+export interface SessionShopSizing {
+  designDutyPct: number;
+  dutyCautionPct: number;
+  dutyDangerPct: number;
+  minPumpMarginPct: number;
+  maxLineDropKpa: number;
+  bsfcGasolineNa: number;
+  bsfcGasolineBoosted: number;
+  bsfcE85Na: number;
+  bsfcE85Boosted: number;
+  lossManualPct: number;
+  lossAutomaticPct: number;
+  lossAwdPct: number;
+  gasolineDensityKgPerL: number | null;
+  gasolineStoichAfr: number | null;
+  ethanolDensityKgPerL: number | null;
+  ethanolStoichAfr: number | null;
+}
+
 /** A session found by its token, with its person and the membership it acts with (if any). */
 export interface SessionMemberRow {
   expiresAt: Date;
@@ -183,24 +204,47 @@ export interface SessionMemberRow {
   role: string | null;
   shopId: string | null;
   shopName: string | null;
+  /**
+   * The sizing columns of that shop's settings row, read in the same round trip (so the sizing
+   * route needs no second one); null when the shop has no settings row or there is no shop.
+   */
+  shopSizing: SessionShopSizing | null;
+}
+
+interface SessionMemberSqlRow {
+  expires_at: Date | string;
+  user_id: string;
+  user_name: string;
+  user_email: string;
+  role: string | null;
+  shop_id: string | null;
+  shop_name: string | null;
+  /** json_build_object of the sizing columns (a string if the driver leaves json unparsed), or null. */
+  shop_sizing: SessionShopSizing | string | null;
 }
 
 /**
- * The session of `token`, its person and membership (as `sessionMembership` chooses it) in one
- * round trip — the look-up every signed-in request makes first. Null when no session has it.
+ * The look-up's text, rendered once with `$1` for the token: it is sent as a named prepared
+ * statement (parsed and planned once per connection) and drizzle does not build it again on
+ * every request — this query runs before every signed-in request's own work.
  */
-export async function sessionMemberByToken(token: string): Promise<SessionMemberRow | null> {
-  const rows = await db.execute<{
-    expires_at: Date | string;
-    user_id: string;
-    user_name: string;
-    user_email: string;
-    role: string | null;
-    shop_id: string | null;
-    shop_name: string | null;
-  }>(sql`
+let sessionMemberSql: string | undefined;
+function sessionMemberText(): string {
+  sessionMemberSql ??= new PgDialect().sqlToQuery(sql`
     select s.expires_at, u.id as user_id, u.name as user_name, u.email as user_email,
-           m.role, m.shop_id, m.shop_name
+           m.role, m.shop_id, m.shop_name,
+           case when ss.shop_id is null then null else json_build_object(
+             'designDutyPct', ss.design_duty_pct, 'dutyCautionPct', ss.duty_caution_pct,
+             'dutyDangerPct', ss.duty_danger_pct, 'minPumpMarginPct', ss.min_pump_margin_pct,
+             'maxLineDropKpa', ss.max_line_drop_kpa,
+             'bsfcGasolineNa', ss.bsfc_gasoline_na, 'bsfcGasolineBoosted', ss.bsfc_gasoline_boosted,
+             'bsfcE85Na', ss.bsfc_e85_na, 'bsfcE85Boosted', ss.bsfc_e85_boosted,
+             'lossManualPct', ss.loss_manual_pct, 'lossAutomaticPct', ss.loss_automatic_pct,
+             'lossAwdPct', ss.loss_awd_pct,
+             'gasolineDensityKgPerL', ss.gasoline_density_kg_per_l,
+             'gasolineStoichAfr', ss.gasoline_stoich_afr,
+             'ethanolDensityKgPerL', ss.ethanol_density_kg_per_l,
+             'ethanolStoichAfr', ss.ethanol_stoich_afr) end as shop_sizing
     from ${session} s
     join ${user} u on u.id = s.user_id
     left join lateral (
@@ -212,8 +256,22 @@ export async function sessionMemberByToken(token: string): Promise<SessionMember
       order by mm.created_at asc
       limit 1
     ) m on true
-    where s.token = ${token}
-    limit 1`);
+    left join ${shopSettings} ss on ss.shop_id = m.shop_id
+    where s.token = ${"$token"}
+    limit 1`).sql;
+  return sessionMemberSql;
+}
+
+/**
+ * The session of `token`, its person, membership (as `sessionMembership` chooses it) and the
+ * sizing part of that shop's settings in one round trip — the look-up every signed-in request
+ * makes first. Null when no session has it. Nothing here is cached: a revoked session or a
+ * changed setting shows on the very next request, whichever instance wrote it.
+ */
+export async function sessionMemberByToken(token: string): Promise<SessionMemberRow | null> {
+  const rows = await db.$client.unsafe<SessionMemberSqlRow[]>(sessionMemberText(), [token], {
+    prepare: true,
+  });
   const r = rows[0];
   if (!r) return null;
   return {
@@ -224,5 +282,9 @@ export async function sessionMemberByToken(token: string): Promise<SessionMember
     role: r.role,
     shopId: r.shop_id,
     shopName: r.shop_name,
+    shopSizing:
+      typeof r.shop_sizing === "string"
+        ? (JSON.parse(r.shop_sizing) as SessionShopSizing)
+        : r.shop_sizing,
   };
 }

@@ -2,6 +2,16 @@ import "server-only";
 
 import { createHmac, timingSafeEqual } from "node:crypto";
 
+import { LRUCache } from "lru-cache";
+
+/**
+ * Cookie values whose signature has been checked, with their token: a signed-in client sends the
+ * same cookie on every request, and the HMAC (with its key set-up) was a measurable part of each
+ * request's own cost (docs/performance.md). Only the pure check is remembered — the value and
+ * secret decide it alone — never whether the session exists: that is read on every request.
+ */
+const verified = new LRUCache<string, { secret: string; token: string }>({ max: 5000 });
+
 /**
  * The session token a request carries in the auth library's signed cookie, or null when it
  * carries none or its signature does not verify. The cookie holds `token.signature`, the
@@ -16,6 +26,8 @@ export function signedSessionToken(
 ): string | null {
   const raw = cookieValue(cookieHeader, cookieName);
   if (!raw) return null;
+  const known = verified.get(raw);
+  if (known && known.secret === secret) return known.token;
   const dot = raw.lastIndexOf(".");
   if (dot < 1) return null;
   const token = raw.slice(0, dot);
@@ -24,6 +36,7 @@ export function signedSessionToken(
   const expected = createHmac("sha256", secret).update(token).digest();
   const given = Buffer.from(signature, "base64");
   if (given.length !== expected.length || !timingSafeEqual(given, expected)) return null;
+  verified.set(raw, { secret, token });
   return token;
 }
 

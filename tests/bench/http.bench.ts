@@ -13,7 +13,9 @@ import postgres from "postgres";
 
 import { FuelSystemInputSchema, sizingAnswer } from "../../lib/calc";
 
-const BASE = "http://127.0.0.1:3300";
+const BASE = process.env.BENCH_BASE_URL ?? "http://127.0.0.1:3300";
+// The bare node:http floor listens 90 ports above the bench server (3390 with no offset).
+const BARE_PORT = Number(new URL(BASE).port) + 90;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
 const soak = process.argv.includes("--soak");
 const sql = postgres(process.env.DATABASE_URL!, { max: 2, onnotice: () => {} });
@@ -132,17 +134,21 @@ function bareServer() {
     });
   });
   return new Promise<{ url: string; close: () => void }>((resolve) =>
-    server.listen(3390, "127.0.0.1", () =>
-      resolve({ url: "http://127.0.0.1:3390/", close: () => server.close() }),
+    server.listen(BARE_PORT, "127.0.0.1", () =>
+      resolve({ url: `http://127.0.0.1:${BARE_PORT}/`, close: () => server.close() }),
     ),
   );
 }
 
 /** Resident memory (MiB) of the server process and its children. */
 function serverRssMiB(): number {
-  const pids = execFileSync("pgrep", ["-f", "next start -H 127.0.0.1 -p 3300|next-server"], {
-    encoding: "utf8",
-  })
+  const pids = execFileSync(
+    "pgrep",
+    ["-f", `next start -H 127.0.0.1 -p ${new URL(BASE).port}|next-server`],
+    {
+      encoding: "utf8",
+    },
+  )
     .trim()
     .split("\n")
     .filter(Boolean);

@@ -17,15 +17,37 @@ const tokenOf = (c: Client) =>
   decodeURIComponent(/session_token=([^;]+)/.exec(c.cookie)![1]!).split(".")[0]!;
 
 describe("the cost of being signed in", () => {
-  it("one round trip finds the session, the person and the membership", async () => {
-    // The sizing route reads the session (1) and the shop's sizing settings (1), nothing else.
+  it("one round trip finds the session, the person, the membership and the shop's sizing settings", async () => {
+    // The sizing route's one query reads the session with the shop's sizing settings, nothing else.
     const r = await request(tuner, "POST", "/api/v1/calc/size", boostedSix);
     expect(r.status).toBe(200);
-    expect(trips(r.headers)).toBe(2);
+    expect(trips(r.headers)).toBe(1);
     // Signed out: the cookie-less request never reaches the database.
     const out = await request(null, "POST", "/api/v1/calc/size", boostedSix);
     expect(out.status).toBe(401);
     expect(trips(out.headers)).toBe(0);
+  });
+
+  it("the sizing reads the shop's settings as they are now: a change made elsewhere shows on the next request", async () => {
+    // Written straight into the database, as another instance of the app would: nothing cached.
+    const [shop] = await sql<{ shop_id: string; design_duty_pct: number }[]>`
+      select ss.shop_id, ss.design_duty_pct from shop_settings ss
+      join member m on m.organization_id = ss.shop_id
+      join "user" u on u.id = m.user_id
+      where u.email = 'tuner@demo.fuelwright.test'`;
+    const before = shop!.design_duty_pct;
+    const body = { ...boostedSix, limits: undefined };
+    try {
+      for (const duty of [before === 71 ? 72 : 71, before === 73 ? 74 : 73]) {
+        await sql`update shop_settings set design_duty_pct = ${duty} where shop_id = ${shop!.shop_id}`;
+        const r = await request(tuner, "POST", "/api/v1/calc/size", body);
+        expect(r.status).toBe(200);
+        expect(r.json.inputs.limits.designDutyPct).toBe(duty);
+        expect(trips(r.headers)).toBe(1);
+      }
+    } finally {
+      await sql`update shop_settings set design_duty_pct = ${before} where shop_id = ${shop!.shop_id}`;
+    }
   });
 
   it("a forged or altered cookie is nobody, and costs no query", async () => {

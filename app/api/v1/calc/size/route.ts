@@ -1,9 +1,8 @@
-import { requireMember } from "@/lib/auth/member";
+import { requireSizingMember } from "@/lib/auth/member";
 import { FuelSystemInputSchema, sizingAnswer } from "@/lib/calc";
 import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { parsedEffectiveInputs } from "@/lib/sizing/effective-inputs";
-import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 
 /**
  * POST /api/v1/calc/size — a FuelSystemInput in canonical units → the sizing result and chart
@@ -11,8 +10,9 @@ import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
  * type, fuel properties) for every value the body leaves out; `inputs` is what was sized.
  */
 export const POST = handle(async (req) => {
-  const m = await requireMember("calc:use");
+  // One round trip: the session query reads the shop's sizing settings too.
+  const { sizing } = await requireSizingMember("calc:use");
   const body = FuelSystemInputSchema.parse(await readJson(req));
-  const inputs = parsedEffectiveInputs(await shopSizingSettings(m.shopId), body);
+  const inputs = parsedEffectiveInputs(sizing, body);
   return Response.json({ ...sizingAnswer(inputs), inputs });
 });
