@@ -79,7 +79,7 @@ describe("authorization coverage", () => {
     starts.forEach((m, i) => {
       const body = src.slice(m.index, starts[i + 1]?.index ?? src.length);
       const checked =
-        /requireMember\(\s*"[a-z]+:[a-z]+"/.test(body) ||
+        /require(?:Sizing)?Member\(\s*"[a-z]+:[a-z]+"/.test(body) ||
         commands.some((c) => new RegExp(`\\b${c}\\(`).test(body));
       expect(checked, `${m[1]} in ${f}`).toBe(true);
     });
