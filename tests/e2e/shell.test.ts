@@ -233,5 +233,5 @@ describe("sign-up", () => {
     await p2.waitForURL("**/builds");
     await expect.poll(() => p2.getByTestId("who").innerText()).toContain("Lindqvist Fuel Lab");
     await guest.close();
-  });
+  }, 180_000); // two e-mails and a dozen pages
 });
