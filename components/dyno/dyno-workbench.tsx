@@ -9,9 +9,10 @@ import { Button } from "@/components/ui/button";
 import { SelectField } from "@/components/ui/field";
 import { FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import type { UnitSystem, Warning } from "@/lib/calc";
 import { formatWarning, SEVERITY_LABELS } from "@/lib/calc/messages";
 import { formatValue, toShown, unitOf } from "@/lib/calc/quantities";
+import type { Warning } from "@/lib/calc/types";
+import type { UnitSystem } from "@/lib/calc/units";
 import { analyseDatalogAction, verifyDatalogAction } from "@/lib/dyno/dyno-actions";
 import { fetcher } from "@/lib/fetcher";
 

@@ -1,4 +1,5 @@
-import { LIMIT_LABELS, type LimitCheck, type LimitKey } from "@/lib/calc/tune";
+import type { LimitCheck } from "@/lib/calc/tune";
+import { LIMIT_LABELS, type LimitKey } from "@/lib/calc/tune-labels";
 
 /** A limit's name inside a sentence: "injector duty", "EGT spread between cylinders". */
 export function limitName(key: LimitKey): string {

@@ -19,9 +19,9 @@ import {
   toShown,
   unitOf,
   type Quantity,
-  type TunePoint,
-  type UnitSystem,
-} from "@/lib/calc";
+} from "@/lib/calc/quantities";
+import type { TunePoint } from "@/lib/calc/tune";
+import type { UnitSystem } from "@/lib/calc/units";
 
 import { axisLabel, CHART_GROUPS, tickText, tooltipValue, type ChartPull } from "./tune-chart";
 

@@ -9,9 +9,9 @@ import {
   toShown,
   unitOf,
   type Quantity,
-  type TunePoint,
-  type UnitSystem,
-} from "@/lib/calc";
+} from "@/lib/calc/quantities";
+import type { TunePoint } from "@/lib/calc/tune";
+import type { UnitSystem } from "@/lib/calc/units";
 
 /** One pull as the chart draws it. */
 export interface ChartPull {

@@ -8,25 +8,20 @@ import { Button, LinkButton } from "@/components/ui/button";
 import { Field, SelectField } from "@/components/ui/field";
 import { EmptyState, FormStatus, Signal } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import {
-  converter,
-  fillTemplate,
-  formatNumber,
-  formatValue,
-  formatWarning,
-  LIMIT_LABELS,
-  parseNumberText,
-  unitOf,
-  type LimitCheck,
-  type LimitStatus,
-  type NextStep,
-  type TuneLimitKey,
-  type TuneLimits,
-  type TunePoint,
-  type TunePullSummary,
-  type UnitSystem,
-  type Warning,
-} from "@/lib/calc";
+import { formatWarning } from "@/lib/calc/messages";
+import { parseNumberText } from "@/lib/calc/number-text";
+import { converter, fillTemplate, formatNumber, formatValue, unitOf } from "@/lib/calc/quantities";
+import type {
+  LimitCheck,
+  NextStep,
+  TuneLimitKey,
+  TuneLimits,
+  TunePoint,
+  TunePullSummary,
+} from "@/lib/calc/tune";
+import { LIMIT_LABELS, type LimitStatus } from "@/lib/calc/tune-labels";
+import type { Warning } from "@/lib/calc/types";
+import type { UnitSystem } from "@/lib/calc/units";
 import { fetcher } from "@/lib/fetcher";
 import {
   pullFromText,

@@ -2,15 +2,10 @@
 
 import { useState } from "react";
 
-import {
-  converter,
-  ethanolFromFlexSensorHz,
-  fillTemplate,
-  formatValue,
-  volumeToAdd,
-  VolumeToAddSchema,
-  type UnitSystem,
-} from "@/lib/calc";
+import { ethanolFromFlexSensorHz, volumeToAdd, type VolumeToAddQuery } from "@/lib/calc/blend";
+import { volumeToAddIssues } from "@/lib/calc/blend-bounds";
+import { converter, fillTemplate, formatValue } from "@/lib/calc/quantities";
+import type { UnitSystem } from "@/lib/calc/units";
 
 import { NumInput, toNum } from "./num-input";
 
@@ -38,16 +33,18 @@ export function BlendMixer({ units }: { units: UnitSystem }) {
   };
   const vol = (l: number) => formatValue("volume", l, units);
   const set = (k: keyof typeof f) => (v: string) => setF((s) => ({ ...s, [k]: v }));
-  const parsed = VolumeToAddSchema.safeParse({
+  const query = {
     tankVolumeL: litres(f.tankVolumeL),
     tankEthanolVolPct: toNum(f.tankEthanolVolPct),
     addedEthanolVolPct: toNum(f.addedEthanolVolPct),
     targetEthanolVolPct: toNum(f.targetEthanolVolPct),
     tankCapacityL: litres(f.tankCapacityL),
-  });
-  const err = (k: string) => {
-    if (parsed.success) return undefined;
-    const issue = parsed.error.issues.find((i) => i.path[0] === k);
+  };
+  // The schema's messages without the schema library (lib/calc/blend-bounds.ts).
+  const issues = volumeToAddIssues(query);
+  const valid = Object.keys(issues).length === 0;
+  const err = (k: keyof typeof issues) => {
+    const issue = issues[k];
     if (!issue) return undefined;
     // The schema's bounds are in litres; volumes are said in the person's units.
     if (k === "tankVolumeL" || k === "tankCapacityL") {
@@ -57,9 +54,10 @@ export function BlendMixer({ units }: { units: UnitSystem }) {
         ? `Enter ${what.toLowerCase()}`
         : `${what} must be between ${vol(min)} and ${vol(100000)}`;
     }
-    return issue.message;
+    return issue;
   };
-  const result = parsed.success ? volumeToAdd(parsed.data) : null;
+  // No issues: every required figure is there and within its limits.
+  const result = valid ? volumeToAdd(query as VolumeToAddQuery) : null;
   const hz = toNum(f.hz);
   const sensor =
     hz === undefined

@@ -4,11 +4,11 @@ import { useState } from "react";
 
 import { SelectField } from "@/components/ui/field";
 import { Signal } from "@/components/ui/status";
-import type { Quantity, UnitSystem } from "@/lib/calc";
 import { DRIVE_TYPES } from "@/lib/calc/input-codes";
-import { converter, formatValue, fromShown, shownText } from "@/lib/calc/quantities";
+import { converter, formatValue, fromShown, shownText, type Quantity } from "@/lib/calc/quantities";
 import { DRIVE_TYPE_LABELS } from "@/lib/calc/registry";
-import type { DriveType, SizingSettings } from "@/lib/sizing/effective-inputs";
+import type { UnitSystem } from "@/lib/calc/units";
+import type { DriveType, SizingSettings } from "@/lib/sizing/fill-inputs";
 import { quickInjectorCheck } from "@/lib/sizing/quick-check";
 
 import { NumInput, toNum } from "./num-input";

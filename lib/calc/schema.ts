@@ -1,6 +1,7 @@
 // Reference: docs/calculations.md §8 (defaults: §3.5, §3.7).
 import { z } from "zod";
 
+import { VOLUME_TO_ADD_FIELDS, type FieldBound } from "./blend-bounds";
 import { ASPIRATIONS, DRIVE_TYPES, REGULATOR_TYPES } from "./input-codes";
 
 /**
@@ -410,12 +411,15 @@ export const BlendMixSchema = z.object({
     .max(50, "At most 50 fills"),
 });
 
+/** Built from `blend-bounds.ts`, which the tools page checks with in the browser. */
+const bound = (f: FieldBound) => num(f.label, f.min, f.max, f.unit);
+const V = VOLUME_TO_ADD_FIELDS;
 export const VolumeToAddSchema = z.object({
-  tankVolumeL: num("Fuel in the tank", 0, 100000, "L"),
-  tankEthanolVolPct: num("Ethanol content in the tank", 0, 100, "%"),
-  addedEthanolVolPct: num("Ethanol content of the added fuel", 0, 100, "%"),
-  targetEthanolVolPct: num("Target ethanol content", 0, 100, "%"),
-  tankCapacityL: num("Tank capacity", 0.1, 100000, "L").optional(),
+  tankVolumeL: bound(V.tankVolumeL),
+  tankEthanolVolPct: bound(V.tankEthanolVolPct),
+  addedEthanolVolPct: bound(V.addedEthanolVolPct),
+  targetEthanolVolPct: bound(V.targetEthanolVolPct),
+  tankCapacityL: bound(V.tankCapacityL).optional(),
 });
 
 export const FillSplitSchema = z.object({

@@ -14,6 +14,7 @@ import { crankPowerFromWheel } from "./power";
 import type { Figure, FigureParams } from "./quantities";
 import type { ParsedFuelSystemInput } from "./schema";
 import { sizeParsedFuelSystem } from "./size";
+import { LIMIT_KEYS, LIMIT_LABELS, type LimitKey, type LimitStatus } from "./tune-labels";
 import type { Warning } from "./types";
 
 /**
@@ -414,25 +415,8 @@ export function summarizePull(
   };
 }
 
-export const LIMIT_KEYS = [
-  "lambda",
-  "duty",
-  "egt",
-  "egtSpread",
-  "backPressure",
-  "turboSpeed",
-] as const;
-export type LimitKey = (typeof LIMIT_KEYS)[number];
-export type LimitStatus = "within" | "near" | "over" | "no-data" | "not-set";
-
-export const LIMIT_LABELS: Record<LimitKey, string> = {
-  lambda: "Lambda against the boost table",
-  duty: "Injector duty",
-  egt: "Exhaust gas temperature",
-  egtSpread: "EGT spread between cylinders",
-  backPressure: "Exhaust-to-boost pressure ratio",
-  turboSpeed: "Turbo speed",
-};
+export { LIMIT_KEYS, LIMIT_LABELS };
+export type { LimitKey, LimitStatus };
 
 /** One limit judged on one pull: where the pull came closest (or went furthest past), and why. */
 export interface LimitCheck {

@@ -1,15 +1,15 @@
+import { fuelBlend } from "@/lib/calc/fuel";
 import {
-  crankPowerFromWheel,
-  DEFAULT_LIMITS,
-  defaultBsfc,
-  fuelBlend,
   injectorDutyPct,
   injectorFlowAtPressure,
   requiredInjectorFlowCcPerMin,
-  type FuelSystemInput,
-} from "@/lib/calc";
+} from "@/lib/calc/injectors";
+import { crankPowerFromWheel, defaultBsfc } from "@/lib/calc/power";
+import type { FuelSystemInput } from "@/lib/calc/schema";
+import { DEFAULT_LIMITS } from "@/lib/calc/sizing/context";
 
-import { effectiveInputs, type DriveType, type SizingSettings } from "./effective-inputs";
+// The browser runs this: the narrow modules, not the barrel or the settings' schema.
+import { effectiveInputs, type DriveType, type SizingSettings } from "./fill-inputs";
 
 /**
  * The quick injector check of the tools page (pure: the browser runs it as the user types). A

@@ -182,4 +182,56 @@ describe("sign-up", () => {
     expect(m).toMatchObject({ role: "owner", name: "Brandt Boost Works" });
     await ctx.close();
   });
+  it("signs in only once confirmed; a forgotten password is reset through the e-mailed link", async () => {
+    const ctx = await newClient(browser);
+    const page = await ctx.newPage();
+    await page.goto("/sign-up");
+    const form = page.getByRole("form", { name: "Sign up" });
+    const email = `freya.${Date.now()}@example.test`;
+    await form.getByLabel("Your name").fill("Freya Lindqvist");
+    await form.getByLabel("Shop name").fill("Lindqvist Fuel Lab");
+    await form.getByLabel("E-mail").fill(email);
+    await form.getByLabel("Password").fill("lindqvist-lab-2026");
+    await form.getByRole("button", { name: "Create shop account" }).click();
+    await page.waitForURL("**/check-email**");
+    const confirm = await waitForMail(email, /Confirm your e-mail/);
+
+    // Not confirmed yet: the sign-in page says what to do (the auth endpoint's code).
+    await page.goto("/sign-in");
+    const signInForm = page.getByRole("form", { name: "Sign in" });
+    await signInForm.getByRole("button", { name: "Sign in" }).click();
+    await expect.poll(() => signInForm.getByText("Enter a valid e-mail address").count()).toBe(1);
+    expect(await signInForm.getByText("Enter your password").count()).toBe(1);
+    await signIn(page, ` ${email.toUpperCase()} `, "lindqvist-lab-2026");
+    await expect.poll(() => page.getByText("Confirm your e-mail first").count()).toBe(1);
+    await page.goto(firstLink(confirm.text));
+    await page.waitForURL("**/builds");
+    await ctx.close();
+
+    const guest = await newClient(browser);
+    const p2 = await guest.newPage();
+    await p2.goto("/forgot-password");
+    await p2.getByLabel("E-mail").fill("not-an-address");
+    await p2.getByRole("button", { name: "Send reset link" }).click();
+    await expect.poll(() => p2.getByText("Enter a valid e-mail address").count()).toBe(1);
+    await p2.getByLabel("E-mail").fill(` ${email.toUpperCase()} `);
+    await p2.getByRole("button", { name: "Send reset link" }).click();
+    await expect.poll(() => p2.getByText("a reset link is on its way").count()).toBe(1);
+    const reset = await waitForMail(email, /Reset your Fuelwright password/);
+
+    await p2.goto(firstLink(reset.text));
+    await p2.waitForURL("**/reset-password**");
+    await p2.getByLabel("New password").fill("short");
+    await p2.getByRole("button", { name: "Set password" }).click();
+    await expect.poll(() => p2.getByText("Use at least 10 characters").count()).toBe(1);
+    await p2.getByLabel("New password").fill("lindqvist-new-pass-7");
+    await p2.getByRole("button", { name: "Set password" }).click();
+    await p2.waitForURL("**/sign-in?reset=1");
+    await signIn(p2, email, "lindqvist-lab-2026");
+    await expect.poll(() => p2.getByText("do not match").count()).toBe(1);
+    await signIn(p2, email, "lindqvist-new-pass-7");
+    await p2.waitForURL("**/builds");
+    await expect.poll(() => p2.getByTestId("who").innerText()).toContain("Lindqvist Fuel Lab");
+    await guest.close();
+  }, 180_000); // two e-mails and a dozen pages
 });

@@ -1,26 +1,27 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { checkResolver } from "@/components/ui/form-resolver";
 import { FormStatus } from "@/components/ui/status";
-import { authClient } from "@/lib/auth/client";
-import { ForgotPasswordSchema } from "@/lib/validations/auth";
+import { authRequest } from "@/lib/auth/auth-request";
+import { forgotPasswordMessages } from "@/lib/validations/form-checks";
 
 export default function ForgotPasswordPage() {
   const [sent, setSent] = useState(false);
-  const { register, handleSubmit, formState } = useForm<
-    z.input<typeof ForgotPasswordSchema>,
-    unknown,
-    z.output<typeof ForgotPasswordSchema>
-  >({ resolver: zodResolver(ForgotPasswordSchema) });
+  const { register, handleSubmit, formState } = useForm<{ email: string }>({
+    resolver: checkResolver(forgotPasswordMessages),
+    defaultValues: { email: "" },
+  });
   const onSubmit = handleSubmit(async ({ email }) => {
-    await authClient.requestPasswordReset({ email, redirectTo: "/reset-password" });
+    await authRequest("/request-password-reset", {
+      email: email.trim().toLowerCase(),
+      redirectTo: "/reset-password",
+    });
     setSent(true);
   });
   return (

@@ -1,30 +1,25 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { checkResolver } from "@/components/ui/form-resolver";
 import { FormStatus } from "@/components/ui/status";
-import { authClient } from "@/lib/auth/client";
-import { ResetPasswordSchema } from "@/lib/validations/auth";
+import { authRequest } from "@/lib/auth/auth-request";
+import { resetPasswordMessages } from "@/lib/validations/form-checks";
 
 export function ResetPasswordForm({ token }: { token: string }) {
   const router = useRouter();
   const [status, setStatus] = useState<string>();
-  const { register, handleSubmit, formState } = useForm<
-    z.input<typeof ResetPasswordSchema>,
-    unknown,
-    z.output<typeof ResetPasswordSchema>
-  >({
-    resolver: zodResolver(ResetPasswordSchema),
-    defaultValues: { token },
+  const { register, handleSubmit, formState } = useForm<{ token: string; password: string }>({
+    resolver: checkResolver(resetPasswordMessages),
+    defaultValues: { token, password: "" },
   });
   const onSubmit = handleSubmit(async (data) => {
-    const { error } = await authClient.resetPassword({
+    const { error } = await authRequest("/reset-password", {
       newPassword: data.password,
       token: data.token,
     });

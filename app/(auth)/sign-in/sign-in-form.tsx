@@ -1,30 +1,33 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { checkResolver } from "@/components/ui/form-resolver";
 import { FormStatus } from "@/components/ui/status";
-import { authClient } from "@/lib/auth/client";
-import { SignInSchema } from "@/lib/validations/auth";
+import { authRequest } from "@/lib/auth/auth-request";
+import { signInMessages } from "@/lib/validations/form-checks";
 
-type In = z.input<typeof SignInSchema>;
-type Out = z.output<typeof SignInSchema>;
+type In = { email: string; password: string };
 
 export function SignInForm() {
   const router = useRouter();
   const [status, setStatus] = useState<string>();
-  const { register, handleSubmit, formState } = useForm<In, unknown, Out>({
-    resolver: zodResolver(SignInSchema),
+  const { register, handleSubmit, formState } = useForm<In>({
+    resolver: checkResolver(signInMessages),
+    defaultValues: { email: "", password: "" },
   });
 
   const onSubmit = handleSubmit(async (data) => {
     setStatus(undefined);
-    const { error } = await authClient.signIn.email({ email: data.email, password: data.password });
+    // As SignInSchema gives it: the address trimmed and lower-cased.
+    const { error } = await authRequest("/sign-in/email", {
+      email: data.email.trim().toLowerCase(),
+      password: data.password,
+    });
     if (error) {
       if (error.status === 429) setStatus("Too many attempts. Wait ten seconds and try again.");
       else if (error.code === "EMAIL_NOT_VERIFIED")

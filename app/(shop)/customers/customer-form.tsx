@@ -1,23 +1,21 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { startTransition, useActionState, useEffect, useRef, useState } from "react";
 import { flushSync } from "react-dom";
 import { useForm } from "react-hook-form";
-import { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { EditConflict } from "@/components/ui/edit-conflict";
 import { Field, SelectField, TextAreaField } from "@/components/ui/field";
+import { checkResolver } from "@/components/ui/form-resolver";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState } from "@/lib/actions/state";
-import { CustomerSchema } from "@/lib/validations/customers";
+import { customerMessages, type CustomerFormValues } from "@/lib/validations/form-checks";
 
 import { createCustomerAction, updateCustomerAction } from "./actions";
 
-type In = z.input<typeof CustomerSchema>;
-type Out = z.output<typeof CustomerSchema>;
+type In = CustomerFormValues;
 type Stored = {
   id: string;
   version: number;
@@ -75,12 +73,9 @@ export function CustomerForm({
   const [overVersion, setOverVersion] = useState(0);
   const version = Math.max(overVersion, customer?.version ?? 0);
   const conflict = !state.ok && state.status === 409 ? (state.current as Stored) : null;
-  const { register, handleSubmit, formState, reset, setError, getValues } = useForm<
-    In,
-    unknown,
-    Out
-  >({
-    resolver: zodResolver(CustomerSchema),
+  const { register, handleSubmit, formState, reset, setError, getValues } = useForm<In>({
+    // CustomerSchema's messages without the schema library; the action parses with the schema.
+    resolver: checkResolver(customerMessages),
     defaultValues: {
       name: customer?.name ?? "",
       email: customer?.email ?? "",
