@@ -13,7 +13,7 @@ import postgres from "postgres";
 
 import { FuelSystemInputSchema, sizingAnswer } from "../../lib/calc";
 
-const BASE = "http://127.0.0.1:3300";
+const BASE = process.env.BENCH_BASE_URL ?? "http://127.0.0.1:3300";
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
 const soak = process.argv.includes("--soak");
 const sql = postgres(process.env.DATABASE_URL!, { max: 2, onnotice: () => {} });
@@ -140,9 +140,13 @@ function bareServer() {
 
 /** Resident memory (MiB) of the server process and its children. */
 function serverRssMiB(): number {
-  const pids = execFileSync("pgrep", ["-f", "next start -H 127.0.0.1 -p 3300|next-server"], {
-    encoding: "utf8",
-  })
+  const pids = execFileSync(
+    "pgrep",
+    ["-f", `next start -H 127.0.0.1 -p ${new URL(BASE).port}|next-server`],
+    {
+      encoding: "utf8",
+    },
+  )
     .trim()
     .split("\n")
     .filter(Boolean);
