@@ -177,9 +177,9 @@ build_if_needed() {
 # bench_database NAME PORT — the benchmarks' own cluster NAME on 127.0.0.1:PORT with the database
 # fuelwright_bench (DATABASE_URL), the app's secrets and stand-in addresses for a bench server on
 # port 3300, migrated and seeded with the demo shop (npm run bench:http, bench:ui). With
-# FW_PORT_OFFSET set, the cluster's port and the server's (FW_BENCH_APP_PORT) are moved by it, so
+# FW_PORT_OFFSET set, the cluster's port and the server's (3300) are moved by it, so
 # two checkouts can bench at once.
-FW_BENCH_APP_PORT=$((3300 + ${FW_PORT_OFFSET:-0}))
+bench_app_port() { printf '%s' "$((3300 + ${FW_PORT_OFFSET:-0}))"; }
 bench_database() {
   local name="$1" port="$(($2 + ${FW_PORT_OFFSET:-0}))"
   pg_start "$name" "$port"
@@ -187,12 +187,12 @@ bench_database() {
   export DATABASE_URL="postgres://fuelwright@127.0.0.1:$port/fuelwright_bench"
   ensure_secret BETTER_AUTH_SECRET bench-auth-secret
   ensure_secret STRIPE_WEBHOOK_SECRET bench-payments-webhook-secret whsec_
-  export APP_URL="http://127.0.0.1:$FW_BENCH_APP_PORT" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
+  export APP_URL="http://127.0.0.1:$(bench_app_port)" AUTH_RATE_LIMIT=off SMTP_URL="smtp://127.0.0.1:2599" S3_ENDPOINT="http://127.0.0.1:4599"
   migrate_and_seed
 }
 
 # bench_server — the production build in .next-bench (built again when a source is newer than it)
-# started on 127.0.0.1:$FW_BENCH_APP_PORT (log: .data/bench-server.log, stopped by stop_all); returns once it answers.
+# started on 127.0.0.1:3300 + FW_PORT_OFFSET (log: .data/bench-server.log, stopped by stop_all); returns once it answers.
 bench_server() {
   cd "$FW_ROOT"
   export NEXT_DIST_DIR=.next-bench
@@ -200,7 +200,8 @@ bench_server() {
     say "building for the benchmark (.next-bench)…"
     node node_modules/next/dist/bin/next build >/dev/null || die "build failed"
   fi
-  local port="$FW_BENCH_APP_PORT"
+  local port
+  port="$(bench_app_port)"
   port_busy "$port" && die "port $port is taken"
   NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$port" > .data/bench-server.log 2>&1 &
   FW_PIDS+=($!)
