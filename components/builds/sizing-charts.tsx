@@ -1,6 +1,6 @@
 "use client";
 
-import { memo, useEffect, useState } from "react";
+import { memo, useEffect, useMemo, useState } from "react";
 import { flushSync } from "react-dom";
 import {
   CartesianGrid,
@@ -28,6 +28,21 @@ import {
   type ParsedFuelSystemInput,
   type UnitSystem,
 } from "@/lib/calc";
+
+// Props the charting library compares by identity: the same objects every drawing, so a redraw
+// with new rows does not also re-register every axis, line and legend with it.
+const MARGIN = { left: 0, right: 8, top: 4, bottom: 4 };
+const TICK = { fontSize: 11 };
+const DATA_RANGE: [string, string] = ["dataMin", "dataMax"];
+const FROM_ZERO: [number, string] = [0, "dataMax"];
+const PERCENT_RANGE: [number, number] = [0, 100];
+const ticks = new Map<string, (value: number | string) => string>();
+/** The axis tick formatter of a unit, one function per unit. */
+function tickOf(unit: string) {
+  let f = ticks.get(unit);
+  if (!f) ticks.set(unit, (f = axisTick(unit)));
+  return f;
+}
 
 const INK = "#44505c";
 const COPPER = "#b3592c";
@@ -75,31 +90,23 @@ export function SupplyDemandChart({
   width?: number;
   height?: number;
 }) {
+  const markerText = marker?.label;
+  const markerLabel = useMemo(() => ({ value: markerText, fontSize: 11 }), [markerText]);
   return (
-    <LineChart
-      data={rows}
-      width={width}
-      height={height}
-      margin={{ left: 0, right: 8, top: 4, bottom: 4 }}
-    >
+    <LineChart data={rows} width={width} height={height} margin={MARGIN}>
       <CartesianGrid stroke="#e6eaee" />
       <XAxis
         dataKey="x"
         type="number"
-        domain={[0, "dataMax"]}
-        tickFormatter={axisTick(xUnit)}
-        tick={{ fontSize: 11 }}
+        domain={FROM_ZERO}
+        tickFormatter={tickOf(xUnit)}
+        tick={TICK}
       />
-      <YAxis tickFormatter={axisTick(yUnit)} tick={{ fontSize: 11 }} width={64} />
+      <YAxis tickFormatter={tickOf(yUnit)} tick={TICK} width={64} />
       <Tooltip />
       <Legend />
       {marker ? (
-        <ReferenceLine
-          x={marker.x}
-          stroke={INK}
-          strokeDasharray="2 2"
-          label={{ value: marker.label, fontSize: 11 }}
-        />
+        <ReferenceLine x={marker.x} stroke={INK} strokeDasharray="2 2" label={markerLabel} />
       ) : null}
       <Line dataKey="supply" name="supply" stroke={COPPER} dot={false} isAnimationActive={false} />
       <Line
@@ -198,26 +205,25 @@ const DutyRpmChart = inTurn(function DutyRpmChart({
   rich: string;
   lean: string;
 }) {
+  const dangerLabel = useMemo(
+    () => ({ value: `${danger} %`, fontSize: 11, fill: DANGER }),
+    [danger],
+  );
   return (
     <Chart title="Duty across engine speed" summary={summary}>
-      <LineChart data={rows} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+      <LineChart data={rows} margin={MARGIN}>
         <CartesianGrid stroke="#e6eaee" />
         <XAxis
           dataKey="rpm"
           type="number"
-          domain={["dataMin", "dataMax"]}
-          tickFormatter={axisTick("rpm")}
-          tick={{ fontSize: 11 }}
+          domain={DATA_RANGE}
+          tickFormatter={tickOf("rpm")}
+          tick={TICK}
         />
-        <YAxis tickFormatter={axisTick("%")} tick={{ fontSize: 11 }} width={48} />
+        <YAxis tickFormatter={tickOf("%")} tick={TICK} width={48} />
         <Tooltip />
         <Legend />
-        <ReferenceLine
-          y={danger}
-          stroke={DANGER}
-          strokeDasharray="4 4"
-          label={{ value: `${danger} %`, fontSize: 11, fill: DANGER }}
-        />
+        <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" label={dangerLabel} />
         <Line dataKey="rich" name={rich} stroke={COPPER} dot={false} isAnimationActive={false} />
         <Line
           dataKey="lean"
@@ -246,16 +252,16 @@ const DutyEthanolChart = inTurn(function DutyEthanolChart({
 }) {
   return (
     <Chart title="Duty across ethanol content" summary="Duty at the target power from E0 to E100">
-      <LineChart data={rows} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+      <LineChart data={rows} margin={MARGIN}>
         <CartesianGrid stroke="#e6eaee" />
         <XAxis
           dataKey="e"
           type="number"
-          domain={[0, 100]}
-          tickFormatter={axisTick("%")}
-          tick={{ fontSize: 11 }}
+          domain={PERCENT_RANGE}
+          tickFormatter={tickOf("%")}
+          tick={TICK}
         />
-        <YAxis tickFormatter={axisTick("%")} tick={{ fontSize: 11 }} width={48} />
+        <YAxis tickFormatter={tickOf("%")} tick={TICK} width={48} />
         <Tooltip />
         <ReferenceLine y={danger} stroke={DANGER} strokeDasharray="4 4" />
         <ReferenceLine x={from} stroke={INK} strokeDasharray="2 2" />
@@ -269,17 +275,17 @@ const DutyEthanolChart = inTurn(function DutyEthanolChart({
 const PressureChart = inTurn(function PressureChart({ chart }: { chart: BoostChart }) {
   return (
     <Chart title={chart.title} summary={chart.summary}>
-      <LineChart data={chart.rows} margin={{ left: 0, right: 8, top: 4, bottom: 4 }}>
+      <LineChart data={chart.rows} margin={MARGIN}>
         <CartesianGrid stroke="#e6eaee" />
         <XAxis
           dataKey="x"
           type="number"
-          domain={[0, "dataMax"]}
-          tickFormatter={axisTick(chart.x.unit)}
-          tick={{ fontSize: 11 }}
+          domain={FROM_ZERO}
+          tickFormatter={tickOf(chart.x.unit)}
+          tick={TICK}
           name="boost"
         />
-        <YAxis tickFormatter={axisTick(chart.y.unit)} tick={{ fontSize: 11 }} width={64} />
+        <YAxis tickFormatter={tickOf(chart.y.unit)} tick={TICK} width={64} />
         <Tooltip />
         <Legend />
         <Line dataKey="rail" name="rail" stroke={COPPER} dot={false} isAnimationActive={false} />
