@@ -99,7 +99,29 @@ export function ResultsPanel({
       </div>
     );
   }
-  const r = result;
+  return (
+    // Not a live region: the editor's FiguresAnnouncer says what changed, not the whole panel.
+    <div className="space-y-4">
+      <Figures result={result} units={units} />
+      <Working
+        result={workingFrom === undefined ? result : (workingFrom ?? result)}
+        units={units}
+      />
+    </div>
+  );
+}
+
+/**
+ * The figures of a result: re-rendered only when the result or the units change (the editor's
+ * deferred render, which brings the working steps up to date, leaves them as they are).
+ */
+const Figures = memo(function Figures({
+  result: r,
+  units,
+}: {
+  result: FuelSystemResult;
+  units: UnitSystem;
+}) {
   const band = { ok: "ok", caution: "caution", danger: "danger", static: "danger" } as const;
   const fig = (
     label: string,
@@ -126,8 +148,7 @@ export function ResultsPanel({
   const ceiling = split("powerCeiling.kw", r.powerCeiling.kw, units);
   const headroom = r.powerCeiling.headroomPct;
   return (
-    // Not a live region: the editor's FiguresAnnouncer says what changed, not the whole panel.
-    <div className="space-y-4">
+    <>
       <section className="rounded-lg border border-ink-200 bg-white p-5">
         <h2 className="text-lg font-semibold">Injectors</h2>
         <dl className="mt-3 grid grid-cols-2 gap-4 sm:grid-cols-3">
@@ -257,7 +278,6 @@ export function ResultsPanel({
           })}
         </ul>
       </section>
-      <Working result={workingFrom === undefined ? r : (workingFrom ?? r)} units={units} />
-    </div>
+    </>
   );
-}
+});

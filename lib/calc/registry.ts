@@ -593,6 +593,8 @@ export function convertInputs<T>(
   direction: "toShown" | "toCanonical",
   original?: unknown,
 ): T {
+  // Metric shows canonical units: a plain deep copy, without working out a path per value.
+  if (system === "metric") return copyPlain(value) as T;
   const walk = (v: unknown, path: string, orig: unknown): unknown => {
     if (Array.isArray(v))
       return v.map((x, i) =>
@@ -609,12 +611,33 @@ export function convertInputs<T>(
       return out;
     }
     if (typeof v !== "number" || !Number.isFinite(v)) return v;
-    const q = quantityOf(path);
-    if (!q || system === "metric") return v;
+    const q = cachedQuantityOf(path);
+    if (!q) return v;
     const c = converter(q, system);
     if (c.to === converter(q, "metric").to) return v;
     if (direction === "toShown") return toShown(q, v, system);
     return fromShown(q, v, system, typeof orig === "number" ? orig : undefined);
   };
   return walk(value, "", original) as T;
+}
+
+/** `quantityOf`, remembered per path: the form converts its sixty values on every keystroke. */
+const quantities = new Map<string, Quantity | undefined>();
+function cachedQuantityOf(path: string): Quantity | undefined {
+  if (quantities.has(path)) return quantities.get(path);
+  const q = quantityOf(path);
+  if (quantities.size > 2000) quantities.clear();
+  quantities.set(path, q);
+  return q;
+}
+
+/** A deep copy of arrays and objects (what `convertInputs` returns in metric). */
+function copyPlain(v: unknown): unknown {
+  if (Array.isArray(v)) return v.map(copyPlain);
+  if (v && typeof v === "object") {
+    const out: Record<string, unknown> = {};
+    for (const k in v) out[k] = copyPlain((v as Record<string, unknown>)[k]);
+    return out;
+  }
+  return v;
 }

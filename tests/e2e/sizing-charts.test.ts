@@ -39,10 +39,13 @@ beforeAll(async () => {
     import { createRoot } from "react-dom/client";
     import { SizingCharts } from "@/components/builds/sizing-charts";
     import { FuelSystemInputSchema, sizeParsedFuelSystem } from "@/lib/calc";
-    const input = FuelSystemInputSchema.parse(window.__input);
-    createRoot(document.getElementById("root")).render(
-      <SizingCharts input={input} result={sizeParsedFuelSystem(input)} units={window.__units} />,
-    );`;
+    const root = createRoot(document.getElementById("root"));
+    // Drawn again with other inputs, as the build sheet does while someone types.
+    window.__draw = (inputs, units) => {
+      const input = FuelSystemInputSchema.parse(inputs);
+      root.render(<SizingCharts input={input} result={sizeParsedFuelSystem(input)} units={units} />);
+    };
+    window.__draw(window.__input, window.__units);`;
   const out = await build({
     stdin: { contents: entry, resolveDir: root, loader: "tsx" },
     bundle: true,
@@ -159,4 +162,56 @@ describe("the build sheet's charts", () => {
       await page.close();
     });
   }
+
+  it("a change redraws only the charts whose curves it moves; the same inputs again redraw none", async () => {
+    const page = await draw(staged, "metric");
+    // Which figures' drawings change from now on (any node, attribute or text inside them).
+    const watch = () =>
+      page.evaluate(() => {
+        const w = window as unknown as { __changed: string[]; __observers?: MutationObserver[] };
+        w.__observers?.forEach((o) => o.disconnect());
+        w.__changed = [];
+        w.__observers = [...document.querySelectorAll("figure")].map((f) => {
+          const caption = f.querySelector("figcaption")!.textContent!;
+          const o = new MutationObserver(() => {
+            if (!w.__changed.includes(caption)) w.__changed.push(caption);
+          });
+          o.observe(f, { subtree: true, childList: true, attributes: true, characterData: true });
+          return o;
+        });
+      });
+    const changed = () =>
+      page.evaluate(() => (window as unknown as { __changed: string[] }).__changed.toSorted());
+    const redraw = (inputs: FuelSystemInput) =>
+      page.evaluate(
+        (i) =>
+          (window as unknown as { __draw: (i: unknown, u: string) => void }).__draw(i, "metric"),
+        inputs,
+      );
+
+    // The target power: the duty and the demand move; the fuel pressure against boost does not.
+    await watch();
+    await redraw({ ...staged, target: { ...staged.target, powerKw: staged.target.powerKw + 40 } });
+    const moved = [
+      "Duty across engine speed",
+      "Duty across ethanol content",
+      "Pump supply against pressure",
+      "Pump supply and demand against boost",
+    ];
+    await expect.poll(changed).toEqual(moved);
+    await page.waitForTimeout(300);
+    expect(await changed()).toEqual(moved);
+
+    // The same inputs as new objects (a keystroke in the title): no chart is drawn again.
+    await watch();
+    await redraw({ ...staged, target: { ...staged.target, powerKw: staged.target.powerKw + 40 } });
+    await page.waitForTimeout(300);
+    expect(await changed()).toEqual([]);
+
+    // And back: every chart the first change moved is drawn as it was.
+    await watch();
+    await redraw(staged);
+    await expect.poll(changed).toEqual(moved);
+    await page.close();
+  });
 });

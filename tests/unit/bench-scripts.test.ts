@@ -30,6 +30,7 @@ const VARS = [
   "BENCH_SEED_ONLY",
   "NEXT_DIST_DIR",
   "NODE_ENV",
+  "BENCH_BASE_URL",
 ];
 
 const STUBS = `
@@ -47,7 +48,7 @@ stop_all() { log stop_all; }
 say() { log say "$*"; }
 `;
 
-function play(script: string, args: string[] = []): string[] {
+function play(script: string, args: string[] = [], extra: Record<string, string> = {}): string[] {
   const dir = mkdtempSync(join(tmpdir(), "fw-bench-"));
   mkdirSync(join(dir, "scripts"));
   mkdirSync(join(dir, "bin"));
@@ -66,6 +67,7 @@ function play(script: string, args: string[] = []): string[] {
   const env = {
     PATH: `${join(dir, "bin")}:/usr/bin:/bin`,
     TRACE: trace,
+    ...extra,
   } as unknown as NodeJS.ProcessEnv;
   execFileSync("bash", [join(dir, "scripts", script), ...args], { env, cwd: dir });
   return readFileSync(trace, "utf8")
@@ -102,7 +104,7 @@ describe("the benchmarks' shared set-up", () => {
           ? `${l} ${e} NEXT_DIST_DIR=.next-bench${l.includes(" start ") ? " NODE_ENV=production" : ""}`
           : l,
       ),
-      `node node_modules/.bin/tsx tests/bench/http.bench.ts --soak ${e} NEXT_DIST_DIR=.next-bench`,
+      `node node_modules/.bin/tsx tests/bench/http.bench.ts --soak ${e} NEXT_DIST_DIR=.next-bench BENCH_BASE_URL=http://127.0.0.1:3300`,
       "stop_all",
     ]);
   });
@@ -124,8 +126,19 @@ describe("the benchmarks' shared set-up", () => {
           ? `${l} ${e} NEXT_DIST_DIR=.next-bench${l.includes(" start ") ? " NODE_ENV=production" : ""}`
           : l,
       ),
-      `node node_modules/.bin/tsx tests/bench/ui.bench.ts ${e} NEXT_DIST_DIR=.next-bench`,
+      `node node_modules/.bin/tsx tests/bench/ui.bench.ts ${e} NEXT_DIST_DIR=.next-bench BENCH_BASE_URL=http://127.0.0.1:3300`,
       "stop_all",
     ]);
+  });
+
+  it("with FW_PORT_OFFSET, the cluster and the server move by it (two checkouts bench at once)", () => {
+    const trace = play("bench-ui.sh", [], { FW_PORT_OFFSET: "40" });
+    expect(trace).toContain("pg_start bench-ui 54438");
+    expect(trace).toContain("port_busy 3340");
+    expect(trace).toContain("wait_http http://127.0.0.1:3340/api/health 60");
+    expect(trace.at(-2)).toMatch(/^node node_modules\/.bin\/tsx tests\/bench\/ui.bench.ts /);
+    expect(trace.at(-2)).toContain("APP_URL=http://127.0.0.1:3340 ");
+    expect(trace.at(-2)).toContain("BENCH_BASE_URL=http://127.0.0.1:3340");
+    expect(trace.at(-2)).toContain("127.0.0.1:54438/fuelwright_bench");
   });
 });
