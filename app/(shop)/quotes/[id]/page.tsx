@@ -15,6 +15,7 @@ import { can } from "@/lib/auth/permissions";
 import { formatMoney } from "@/lib/catalog/money";
 import { isoDay, QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
+import { editedLine } from "@/lib/quotes/line-rows";
 import { diffQuotes } from "@/lib/quotes/quote-diff";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 
@@ -111,15 +112,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         taxRateBp={qt.taxRateBp}
         validUntil={qt.validUntil}
         notes={qt.notes ?? ""}
-        lines={q.lines.map((l) => ({
-          kind: l.kind,
-          partId: l.partId,
-          sku: l.sku,
-          description: l.description,
-          quantityMilli: l.quantityMilli,
-          unitPriceMinor: l.unitPriceMinor,
-          discountBp: l.discountBp,
-        }))}
+        lines={q.lines.map(editedLine)}
         labourRateMinor={settings?.settings.labourRateMinor ?? 12000}
         canWrite={canWrite}
         customerEmail={q.customerEmail}
