@@ -66,6 +66,7 @@ import { LiveSizing, useLive, type LiveState } from "./live-sizing";
 import { PinnedSummary } from "./pinned-summary";
 import { PumpCurves } from "./pump-curves";
 import { ResultsPanel } from "./results-panel";
+import { SettingsChangedNote } from "./settings-changed-note";
 import { SizingSettingsNote } from "./sizing-settings-note";
 import { UnitToggle } from "./unit-toggle";
 
@@ -642,28 +643,12 @@ export function BuildEditor(props: {
   const changes = resized ? [] : (props.settingsChanges ?? []);
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-      {changes.length > 0 ? (
-        <div
-          role="status"
-          data-testid="settings-changed"
-          className="rounded-lg border border-caution-600 bg-caution-50 p-4 text-sm text-ink-800 lg:col-span-2"
-        >
-          <p className="font-semibold">
-            ▲ Version {version} was sized with the shop&apos;s settings of the time.
-          </p>
-          <p className="mt-1">
-            Today&apos;s settings change what is sized; the figures on this page use today&apos;s,
-            the saved version and its spec sheet keep the old ones:
-          </p>
-          <ul className="mt-1 list-inside list-disc">
-            {changes.map((c) => (
-              <li key={c.path}>
-                {c.label}: <span className="figure">{c.before}</span> →{" "}
-                <span className="figure">{c.after}</span>
-              </li>
-            ))}
-          </ul>
-          {!props.readOnly ? (
+      <SettingsChangedNote
+        changes={changes}
+        className="lg:col-span-2"
+        heading={<>Version {version} was sized with the shop&apos;s settings of the time.</>}
+        action={
+          !props.readOnly ? (
             <Button
               type="button"
               variant="secondary"
@@ -673,9 +658,12 @@ export function BuildEditor(props: {
             >
               Re-size with today&apos;s settings
             </Button>
-          ) : null}
-        </div>
-      ) : null}
+          ) : null
+        }
+      >
+        Today&apos;s settings change what is sized; the figures on this page use today&apos;s, the
+        saved version and its spec sheet keep the old ones:
+      </SettingsChangedNote>
       {props.readOnly && props.readOnlyReason ? (
         <p
           id="b-readonly-note"

@@ -5,54 +5,32 @@ import { useState, useTransition } from "react";
 
 import { ActionButton } from "@/components/operations/action-button";
 import { CellInput } from "@/components/operations/cell-input";
+import { BalanceRow, LedgerRow } from "@/components/operations/ledger-rows";
 import { Button, LinkButton } from "@/components/ui/button";
 import { TextAreaField } from "@/components/ui/field";
 import { useLeaveGuard } from "@/components/ui/leave-guard";
 import { SearchCombobox } from "@/components/ui/search-combobox";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
-import {
-  formatMoney,
-  formatScaled,
-  minorToPlain,
-  parseMoney,
-  parseScaled,
-} from "@/lib/catalog/money";
+import { formatMoney } from "@/lib/catalog/money";
 import { editInvoiceAction, issueInvoiceAction } from "@/lib/invoices/invoice-actions";
 import {
-  quantityTooLarge,
-  quoteLimitMessages,
-  quoteSizeIssue,
-  unitPriceTooLarge,
-} from "@/lib/quotes/quote-limits";
+  draftLine,
+  LINE_FIELDS,
+  lineIssues,
+  lineRowOf,
+  parseLineRow,
+  partLineRow,
+  serverLineField,
+  type EditedLine,
+  type LineRow,
+} from "@/lib/quotes/line-rows";
+import { quoteLimitMessages, quoteSizeIssue } from "@/lib/quotes/quote-limits";
+import type { PricedPart } from "@/lib/quotes/quote-lines";
 import { formatDeduction, presentQuote } from "@/lib/quotes/quote-presentation";
 
-export interface InvoiceEditorLine {
-  kind: "part" | "labour" | "fee";
-  partId: string | null;
-  sku: string | null;
-  description: string;
-  quantityMilli: number;
-  unitPriceMinor: number;
-  discountBp: number;
-}
-interface Row {
-  key: string;
-  kind: InvoiceEditorLine["kind"];
-  partId: string | null;
-  sku: string | null;
-  description: string;
-  qty: string;
-  price: string;
-  discount: string;
-}
-interface CatalogPart {
-  id: string;
-  sku: string;
-  brand: string;
-  name: string;
-  priceMinor: number;
-}
+/** A row as typed, with a key of its own (rows are added and removed). */
+type Row = LineRow & { key: string };
 type EditorProps = {
   id: string;
   /** Who the issued invoice is e-mailed to (named in the note beside "Issue"). */
@@ -62,27 +40,10 @@ type EditorProps = {
   taxRateBp: number;
   depositMinor: number;
   notes: string;
-  lines: InvoiceEditorLine[];
+  lines: EditedLine[];
 };
 
-const toRow = (l: InvoiceEditorLine, key: string): Row => ({
-  key,
-  kind: l.kind,
-  partId: l.partId,
-  sku: l.sku,
-  description: l.description,
-  qty: formatScaled(l.quantityMilli, 3),
-  price: minorToPlain(l.unitPriceMinor),
-  discount: formatScaled(l.discountBp, 2),
-});
 const QTY_LABEL = { part: "units", labour: "hours", fee: "quantity" } as const;
-/** The schema's names of a line's fields → the editor's. */
-const FIELD_OF: Record<string, "description" | "qty" | "price" | "discount"> = {
-  description: "description",
-  quantityMilli: "qty",
-  unitPriceMinor: "price",
-  discountBp: "discount",
-};
 
 /**
  * A draft invoice before it is issued: the lines actually fitted (quantity, price, discount;
@@ -108,7 +69,7 @@ function InvoiceEditorForm({
 }) {
   const router = useRouter();
   const [pending, start] = useTransition();
-  const [initial] = useState(() => props.lines.map((l, i) => toRow(l, `l${i}`)));
+  const [initial] = useState(() => props.lines.map((l, i) => ({ key: `l${i}`, ...lineRowOf(l) })));
   const [added, setAdded] = useState(0);
   const [rows, setRows] = useState<Row[]>(initial);
   const [notes, setNotes] = useState(props.notes);
@@ -120,35 +81,16 @@ function InvoiceEditorForm({
     notes !== props.notes || JSON.stringify(strip(rows)) !== JSON.stringify(strip(initial));
   useLeaveGuard(dirty && !pending);
 
-  const parsed = rows.map((r) => ({
-    quantityMilli: parseScaled(r.qty, 3),
-    unitPriceMinor: parseMoney(r.price),
-    discountBp: r.discount.trim() === "" ? 0 : parseScaled(r.discount, 2),
-  }));
-  const local: Record<string, string> = {};
-  rows.forEach((r, i) => {
-    const p = parsed[i]!;
-    if (!r.description.trim()) local[`${r.key}.description`] = "Describe the line";
-    if (p.quantityMilli === null || p.quantityMilli <= 0)
-      local[`${r.key}.qty`] = `Above 0, up to 3 decimals, ${limits.quantity.toLowerCase()}`;
-    else if (quantityTooLarge(p.quantityMilli)) local[`${r.key}.qty`] = limits.quantity;
-    if (p.unitPriceMinor === null || p.unitPriceMinor < 0)
-      local[`${r.key}.price`] = `A price like 12.50, ${limits.unitPrice.toLowerCase()}`;
-    else if (unitPriceTooLarge(p.unitPriceMinor)) local[`${r.key}.price`] = limits.unitPrice;
-    if (p.discountBp === null || p.discountBp > 10000)
-      local[`${r.key}.discount`] = "From 0 to 100 %";
-  });
+  const parsed = rows.map(parseLineRow);
+  const local: Record<string, string> = Object.fromEntries(
+    rows.flatMap((r, i) => lineIssues(r, parsed[i]!, limits).map(([f, m]) => [`${r.key}.${f}`, m])),
+  );
   const errors = { ...serverErrors, ...local };
   const errorOf = (r: Row, f: string) => errors[`${r.key}.${f}`];
   const good = Object.keys(local).length === 0;
-  const lines: InvoiceEditorLine[] = rows.map((r, i) => ({
-    kind: r.kind,
-    partId: r.partId,
-    sku: r.sku,
+  const lines: EditedLine[] = rows.map((r, i) => ({
+    ...draftLine(r, parsed[i]!),
     description: r.description.trim(),
-    quantityMilli: parsed[i]!.quantityMilli ?? 0,
-    unitPriceMinor: parsed[i]!.unitPriceMinor ?? 0,
-    discountBp: Math.min(parsed[i]!.discountBp ?? 0, 10000),
   }));
   const shown = presentQuote({ currency: props.currency, taxRateBp: props.taxRateBp }, lines);
   const sizeIssue = good
@@ -165,12 +107,31 @@ function InvoiceEditorForm({
     );
   };
 
+  /** A row's quantity, unit price or discount: its card label `column`, read as "Line 1: `name`". */
+  const numberCell = (
+    r: Row,
+    i: number,
+    f: "qty" | "price" | "discount",
+    column: string,
+    name: string,
+  ) => (
+    <td className="px-2 py-2" data-label={column}>
+      <CellInput
+        id={`inv-${r.key}-${f}`}
+        label={`Line ${i + 1}: ${name}`}
+        inputMode="decimal"
+        className="text-right"
+        value={r[f]}
+        onChange={(e) => change(r.key, { [f]: e.target.value })}
+        error={errorOf(r, f)}
+      />
+    </td>
+  );
+
   const save = () => {
     if (!good || sizeIssue) {
       const first = rows.flatMap((r) =>
-        ["description", "qty", "price", "discount"]
-          .filter((f) => local[`${r.key}.${f}`])
-          .map((f) => `inv-${r.key}-${f}`),
+        LINE_FIELDS.filter((f) => local[`${r.key}.${f}`]).map((f) => `inv-${r.key}-${f}`),
       )[0];
       if (first) document.getElementById(first)?.focus();
       setOutcome({ ok: false, message: sizeIssue ?? "Check the fields marked" });
@@ -197,10 +158,9 @@ function InvoiceEditorForm({
       // "lines.2.unitPriceMinor" → that row's price cell.
       const mapped: Record<string, string> = {};
       for (const [path, msgs] of Object.entries(res.fieldErrors ?? {})) {
-        const m = /^lines\.(\d+)\.(\w+)$/.exec(path);
-        const row = m ? rows[Number(m[1])] : undefined;
-        const f = m ? FIELD_OF[m[2]!] : undefined;
-        if (row && f) mapped[`${row.key}.${f}`] = msgs.join(" ");
+        const at = serverLineField(path);
+        const row = at ? rows[at.index] : undefined;
+        if (row && at) mapped[`${row.key}.${at.field}`] = msgs.join(" ");
       }
       setServerErrors(mapped);
       const first = Object.keys(mapped)[0];
@@ -270,39 +230,9 @@ function InvoiceEditorForm({
                   />
                   {r.sku ? <span className="mt-1 block text-xs text-ink-600">{r.sku}</span> : null}
                 </td>
-                <td className="px-2 py-2" data-label={`Quantity (${QTY_LABEL[r.kind]})`}>
-                  <CellInput
-                    id={`inv-${r.key}-qty`}
-                    label={`Line ${i + 1}: ${QTY_LABEL[r.kind]}`}
-                    inputMode="decimal"
-                    className="text-right"
-                    value={r.qty}
-                    onChange={(e) => change(r.key, { qty: e.target.value })}
-                    error={errorOf(r, "qty")}
-                  />
-                </td>
-                <td className="px-2 py-2" data-label="Unit price">
-                  <CellInput
-                    id={`inv-${r.key}-price`}
-                    label={`Line ${i + 1}: unit price`}
-                    inputMode="decimal"
-                    className="text-right"
-                    value={r.price}
-                    onChange={(e) => change(r.key, { price: e.target.value })}
-                    error={errorOf(r, "price")}
-                  />
-                </td>
-                <td className="px-2 py-2" data-label="Discount %">
-                  <CellInput
-                    id={`inv-${r.key}-discount`}
-                    label={`Line ${i + 1}: discount %`}
-                    inputMode="decimal"
-                    className="text-right"
-                    value={r.discount}
-                    onChange={(e) => change(r.key, { discount: e.target.value })}
-                    error={errorOf(r, "discount")}
-                  />
-                </td>
+                {numberCell(r, i, "qty", `Quantity (${QTY_LABEL[r.kind]})`, QTY_LABEL[r.kind])}
+                {numberCell(r, i, "price", "Unit price", "unit price")}
+                {numberCell(r, i, "discount", "Discount %", "discount %")}
                 <td className="figure px-2 py-2 text-right" data-label="Line total">
                   {shown.lines[i]!.lineTotal}
                 </td>
@@ -322,7 +252,7 @@ function InvoiceEditorForm({
           </tbody>
         </table>
 
-        <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
+        <SearchCombobox<{ parts: PricedPart[] }, PricedPart>
           label="Add a part that was fitted"
           placeholder="Type a SKU, name or brand"
           url={(q) => `/api/v1/parts?${new URLSearchParams({ q, sort: "name", limit: "8" })}`}
@@ -338,45 +268,20 @@ function InvoiceEditorForm({
           onPick={(p) => {
             setOutcome(null);
             setAdded(added + 1);
-            setRows([
-              ...rows,
-              toRow(
-                {
-                  kind: "part",
-                  partId: p.id,
-                  sku: p.sku,
-                  description: `${p.brand} ${p.name}`,
-                  quantityMilli: 1000,
-                  unitPriceMinor: p.priceMinor,
-                  discountBp: 0,
-                },
-                `a${added}`,
-              ),
-            ]);
+            setRows([...rows, { key: `a${added}`, ...partLineRow(p) }]);
           }}
         />
 
         <dl className="ml-auto max-w-sm space-y-1 text-sm" data-testid="invoice-editor-totals">
-          <div className="flex justify-between gap-4">
-            <dt>Subtotal</dt>
-            <dd className="figure">{shown.subtotal}</dd>
-          </div>
-          <div className="flex justify-between gap-4">
-            <dt>{shown.taxLabel}</dt>
-            <dd className="figure">{shown.tax}</dd>
-          </div>
-          <div className="flex justify-between gap-4 font-semibold">
-            <dt>Total</dt>
-            <dd className="figure">{shown.total}</dd>
-          </div>
-          <div className="flex justify-between gap-4">
-            <dt>Deposit paid</dt>
-            <dd className="figure">{formatDeduction(props.depositMinor, props.currency)}</dd>
-          </div>
-          <div className="flex justify-between gap-4 border-t border-copper-600 pt-1 font-semibold">
-            <dt>{balance < 0 ? "Owed to the customer" : "Balance due"}</dt>
-            <dd className="figure">{money(Math.abs(balance))}</dd>
-          </div>
+          <LedgerRow label="Subtotal">{shown.subtotal}</LedgerRow>
+          <LedgerRow label={shown.taxLabel}>{shown.tax}</LedgerRow>
+          <LedgerRow label="Total" className="font-semibold">
+            {shown.total}
+          </LedgerRow>
+          <LedgerRow label="Deposit paid">
+            {formatDeduction(props.depositMinor, props.currency)}
+          </LedgerRow>
+          <BalanceRow balanceMinor={balance} currency={props.currency} />
         </dl>
 
         <TextAreaField

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useState, useTransition, type InputHTMLAttributes } from "react";
 
 import { CellInput } from "@/components/operations/cell-input";
 import { Button, LinkButton } from "@/components/ui/button";
@@ -47,6 +47,33 @@ interface CatalogPart {
   name: string;
   costMinor: number | null;
 }
+
+/**
+ * The two inputs of a part's row: its key in the row, its path in the schema (and so its id and
+ * name), the column it stands in and what a screen reader calls it.
+ */
+const ROW_INPUTS = [
+  {
+    key: "supplierSku",
+    path: "supplierSku",
+    column: "Their SKU",
+    label: (part: string) => `Their SKU for ${part}`,
+    input: { maxLength: 60 },
+  },
+  {
+    key: "cost",
+    path: "costMinor",
+    column: "Cost",
+    label: (part: string) => `Cost of ${part}`,
+    input: { className: "text-right", inputMode: "decimal" },
+  },
+] as const satisfies readonly {
+  key: "supplierSku" | "cost";
+  path: string;
+  column: string;
+  label: (part: string) => string;
+  input: Partial<InputHTMLAttributes<HTMLInputElement>>;
+}[];
 
 const fieldsOf = (s: EditedSupplier) => ({
   name: s.name,
@@ -107,6 +134,14 @@ function SupplierEditorForm({
     setRows(rows.map((r, j) => (j === i ? { ...r, ...patch } : r)));
   };
   const err = (path: string) => local[path] ?? state.fieldErrors?.[path];
+  /** A supplier field's id (focused when it is the first one wrong), name, value and message. */
+  const field = (k: keyof typeof v) => ({
+    id: `sup-${k}`,
+    name: k,
+    value: v[k],
+    onChange: set(k),
+    error: err(k),
+  });
 
   const save = (version: number) => {
     const bad: Record<string, string> = {};
@@ -172,62 +207,12 @@ function SupplierEditorForm({
       aria-label="Supplier"
     >
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field
-          id="sup-name"
-          name="name"
-          label="Supplier"
-          value={v.name}
-          maxLength={120}
-          onChange={set("name")}
-          error={err("name")}
-        />
-        <Field
-          id="sup-contactName"
-          name="contactName"
-          label="Contact"
-          value={v.contactName}
-          maxLength={200}
-          onChange={set("contactName")}
-          error={err("contactName")}
-        />
-        <Field
-          id="sup-email"
-          name="email"
-          label="Orders e-mail"
-          type="email"
-          value={v.email}
-          onChange={set("email")}
-          error={err("email")}
-        />
-        <Field
-          id="sup-phone"
-          name="phone"
-          label="Phone"
-          type="tel"
-          value={v.phone}
-          maxLength={40}
-          onChange={set("phone")}
-          error={err("phone")}
-        />
-        <Field
-          id="sup-leadTimeDays"
-          name="leadTimeDays"
-          label="Lead time (days)"
-          inputMode="numeric"
-          value={v.leadTimeDays}
-          onChange={set("leadTimeDays")}
-          error={err("leadTimeDays")}
-        />
-        <TextAreaField
-          id="sup-notes"
-          name="notes"
-          label="Notes"
-          value={v.notes}
-          maxLength={2000}
-          rows={2}
-          onChange={set("notes")}
-          error={err("notes")}
-        />
+        <Field {...field("name")} label="Supplier" maxLength={120} />
+        <Field {...field("contactName")} label="Contact" maxLength={200} />
+        <Field {...field("email")} label="Orders e-mail" type="email" />
+        <Field {...field("phone")} label="Phone" type="tel" maxLength={40} />
+        <Field {...field("leadTimeDays")} label="Lead time (days)" inputMode="numeric" />
+        <TextAreaField {...field("notes")} label="Notes" maxLength={2000} rows={2} />
       </div>
 
       <fieldset className="space-y-3">
@@ -258,29 +243,19 @@ function SupplierEditorForm({
               {rows.map((r, i) => (
                 <tr key={r.partId} className="border-t border-ink-100 align-top">
                   <td className="py-2 pr-2 text-ink-800">{r.label}</td>
-                  <td className="py-2 pr-2" data-label="Their SKU">
-                    <CellInput
-                      id={`sup-parts.${i}.supplierSku`}
-                      name={`parts.${i}.supplierSku`}
-                      label={`Their SKU for ${r.label}`}
-                      value={r.supplierSku}
-                      maxLength={60}
-                      onChange={(e) => setRow(i, { supplierSku: e.target.value })}
-                      error={err(`parts.${i}.supplierSku`)}
-                    />
-                  </td>
-                  <td className="py-2 pr-2" data-label="Cost">
-                    <CellInput
-                      id={`sup-parts.${i}.costMinor`}
-                      name={`parts.${i}.costMinor`}
-                      label={`Cost of ${r.label}`}
-                      className="text-right"
-                      inputMode="decimal"
-                      value={r.cost}
-                      onChange={(e) => setRow(i, { cost: e.target.value })}
-                      error={err(`parts.${i}.costMinor`)}
-                    />
-                  </td>
+                  {ROW_INPUTS.map((c) => (
+                    <td key={c.path} className="py-2 pr-2" data-label={c.column}>
+                      <CellInput
+                        id={`sup-parts.${i}.${c.path}`}
+                        name={`parts.${i}.${c.path}`}
+                        label={c.label(r.label)}
+                        {...c.input}
+                        value={r[c.key]}
+                        onChange={(e) => setRow(i, { [c.key]: e.target.value })}
+                        error={err(`parts.${i}.${c.path}`)}
+                      />
+                    </td>
+                  ))}
                   <td className="py-2">
                     <LinkButton
                       onClick={() => {

@@ -9,7 +9,7 @@ import { Field, SelectField } from "@/components/ui/field";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
 import type { UnitSystem } from "@/lib/calc/units";
-import { CSV_COLUMNS, flatOf, type FlatPart } from "@/lib/catalog/flat-part";
+import { CSV_COLUMNS, flatOf, type FlatPart, type StoredPartFields } from "@/lib/catalog/flat-part";
 import { CATEGORY_LABELS, PART_CATEGORIES, type PartCategory } from "@/lib/domain/parts";
 import { createPartAction, deletePartAction, updatePartAction } from "@/lib/parts/part-actions";
 import {
@@ -20,7 +20,7 @@ import {
   partUnit,
 } from "@/lib/parts/part-units";
 
-type StoredPart = Parameters<typeof flatOf>[0] & { version: number };
+type StoredPart = StoredPartFields & { version: number };
 
 /** The spec fields each category shows, in the viewer's units: [column, label, hint]. */
 function specFields(units: UnitSystem): Record<PartCategory, [keyof FlatPart, string, string?][]> {

@@ -3,17 +3,12 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 
+import { QuoteTotalsFoot } from "@/components/quotes/quote-totals";
 import { Button } from "@/components/ui/button";
 import { SearchCombobox } from "@/components/ui/search-combobox";
 import { FormStatus } from "@/components/ui/status";
 import { initialActionState, type ActionState } from "@/lib/actions/state";
-import {
-  formatMoney,
-  formatScaled,
-  minorToPlain,
-  parseMoney,
-  parseScaled,
-} from "@/lib/catalog/money";
+import { formatMoney, minorToPlain } from "@/lib/catalog/money";
 import {
   pastValidity,
   QUOTE_STATUS_LABELS,
@@ -23,45 +18,29 @@ import {
 } from "@/lib/domain/quotes";
 import { formatCalendarDate } from "@/lib/format/dates";
 import {
+  draftLine,
+  LINE_FIELDS,
+  lineIssues,
+  lineRowOf,
+  parseLineRow,
+  partLineRow,
+  serverLineField,
+  type EditedLine,
+  type LineField,
+  type LineRow as Row,
+} from "@/lib/quotes/line-rows";
+import {
   changeQuoteStatusAction,
   editQuoteAction,
   reviseQuoteAction,
   sendQuoteAction,
 } from "@/lib/quotes/quote-actions";
-import {
-  quantityTooLarge,
-  quoteLimitMessages,
-  quoteSizeIssue,
-  unitPriceTooLarge,
-} from "@/lib/quotes/quote-limits";
-import { LABOUR_DESCRIPTION } from "@/lib/quotes/quote-lines";
+import { quoteLimitMessages, quoteSizeIssue } from "@/lib/quotes/quote-limits";
+import { LABOUR_DESCRIPTION, type PricedPart } from "@/lib/quotes/quote-lines";
 import { presentQuote } from "@/lib/quotes/quote-presentation";
 
-export interface EditorLine {
-  kind: "part" | "labour" | "fee";
-  partId: string | null;
-  sku: string | null;
-  description: string;
-  quantityMilli: number;
-  unitPriceMinor: number;
-  discountBp: number;
-}
-interface Row {
-  kind: EditorLine["kind"];
-  partId: string | null;
-  sku: string | null;
-  description: string;
-  qty: string;
-  price: string;
-  discount: string;
-}
 /** What the part search answers (GET /api/v1/parts), as far as a line needs it. */
-interface CatalogPart {
-  id: string;
-  sku: string;
-  brand: string;
-  name: string;
-  priceMinor: number;
+interface CatalogPart extends PricedPart {
   stock: number;
   reserved: number;
 }
@@ -69,15 +48,6 @@ interface CatalogPart {
 const freeText = (free: number) =>
   free > 0 ? `${free} free` : free < 0 ? `${-free} short` : "none free";
 
-const toRow = (l: EditorLine): Row => ({
-  kind: l.kind,
-  partId: l.partId,
-  sku: l.sku,
-  description: l.description,
-  qty: formatScaled(l.quantityMilli, 3),
-  price: minorToPlain(l.unitPriceMinor),
-  discount: formatScaled(l.discountBp, 2),
-});
 const cell =
   "figure w-full rounded-md border border-ink-300 bg-white px-2 py-1 text-right aria-[invalid=true]:border-danger-600";
 
@@ -107,7 +77,7 @@ type EditorProps = {
   /** The deposit the shop's terms ask on this quote's total, in minor units. */
   depositMinor: number;
   notes: string;
-  lines: EditorLine[];
+  lines: EditedLine[];
   /** The shop's labour rate (minor units an hour): what "Add labour" charges. */
   labourRateMinor: number;
   canWrite: boolean;
@@ -115,14 +85,7 @@ type EditorProps = {
 };
 type Outcome = { ok: boolean; message: string } | null;
 
-/** The fields of one line the editor marks; the schema's keys they stand for. */
-type LineField = "description" | "qty" | "price" | "discount";
-const FIELD_OF: Record<string, LineField> = {
-  description: "description",
-  quantityMilli: "qty",
-  unitPriceMinor: "price",
-  discountBp: "discount",
-};
+/** What a message calls each field of a line. */
 const FIELD_NAMES: Record<LineField, string> = {
   description: "description",
   qty: "quantity",
@@ -164,7 +127,7 @@ function QuoteEditorForm({
 }: EditorProps & { outcome: Outcome; setOutcome: (o: Outcome) => void }) {
   const router = useRouter();
   const editable = props.canWrite && (props.status === "draft" || props.status === "sent");
-  const [rows, setRows] = useState<Row[]>(props.lines.map(toRow));
+  const [rows, setRows] = useState<Row[]>(props.lines.map(lineRowOf));
   const [validUntil, setValidUntil] = useState(props.validUntil);
   const [notes, setNotes] = useState(props.notes);
   const [pending, start] = useTransition();
@@ -173,48 +136,27 @@ function QuoteEditorForm({
   const [serverErrors, setServerErrors] = useState<LineErrors>({});
   const limits = quoteLimitMessages(props.currency);
 
-  const parsed = rows.map((r) => ({
-    quantityMilli: parseScaled(r.qty, 3),
-    unitPriceMinor: parseMoney(r.price),
-    discountBp: r.discount.trim() === "" ? 0 : parseScaled(r.discount, 2),
-  }));
+  const parsed = rows.map(parseLineRow);
+  // With no problems these are exactly the lines to save.
+  const lines = rows.map((r, i) => draftLine(r, parsed[i]!));
   // The same presentation as the PDF, the portal and the e-mail (a line being typed counts as 0).
-  const shown = presentQuote(
-    { currency: props.currency, taxRateBp: props.taxRateBp },
-    parsed.map((p, i) => ({
-      kind: rows[i]!.kind,
-      sku: rows[i]!.sku,
-      description: rows[i]!.description,
-      quantityMilli: p.quantityMilli ?? 0,
-      unitPriceMinor: p.unitPriceMinor ?? 0,
-      discountBp: Math.min(p.discountBp ?? 0, 10000),
-    })),
-  );
+  const shown = presentQuote({ currency: props.currency, taxRateBp: props.taxRateBp }, lines);
   // Each line's fields as the person typed them, checked here with the limits the server keeps
   // (a message saying the limit, money in the quote's currency), plus what the server said.
   const lineErrors: LineErrors = {
     ...serverErrors,
-    ...Object.fromEntries(rows.flatMap((r, i) => checkLine(r, parsed[i]!, limits, i))),
+    ...Object.fromEntries(
+      rows.flatMap((r, i) => lineIssues(r, parsed[i]!, limits).map(([f, m]) => [`${i}.${f}`, m])),
+    ),
   };
   const errorOf = (i: number, f: LineField) => lineErrors[`${i}.${f}`];
   const linesGood = Object.keys(lineErrors).length === 0;
-  const sizeMessage = linesGood
-    ? quoteSizeIssue(
-        parsed.map((p) => ({
-          quantityMilli: p.quantityMilli!,
-          unitPriceMinor: p.unitPriceMinor!,
-          discountBp: p.discountBp ?? 0,
-        })),
-        props.currency,
-      )
-    : null;
+  const sizeMessage = linesGood ? quoteSizeIssue(lines, props.currency) : null;
   const allGood = linesGood && !sizeMessage;
   /** "Line 1 unit price: At most $1,000,000.00" for the first field wrong, focused. */
   const firstError = (errors: LineErrors) => {
     const first = rows
-      .flatMap((_, i) =>
-        (["description", "qty", "price", "discount"] as const).map((f) => [i, f] as const),
-      )
+      .flatMap((_, i) => LINE_FIELDS.map((f) => [i, f] as const))
       .find(([i, f]) => errors[`${i}.${f}`]);
     if (!first) return null;
     const [i, f] = first;
@@ -241,6 +183,21 @@ function QuoteEditorForm({
       Object.fromEntries(Object.entries(e).filter(([k]) => !k.startsWith(`${i}.`))),
     );
   };
+  /** Line i's quantity, unit price or discount input, named "Line 1 unit price", and its message. */
+  const numberInput = (i: number, f: "qty" | "price" | "discount") => (
+    <>
+      <input
+        id={fieldId(i, f)}
+        aria-label={`Line ${i + 1} ${FIELD_NAMES[f]}`}
+        {...invalidProps(i, f)}
+        inputMode="decimal"
+        className={cell}
+        value={rows[i]![f]}
+        onChange={(e) => setRow(i, { [f]: e.target.value })}
+      />
+      <FieldMessage id={`${fieldId(i, f)}-error`} text={errorOf(i, f)} />
+    </>
+  );
   /** Lines added or removed renumber them: what the server said no longer points anywhere. */
   const changeRows = (f: (rs: Row[]) => Row[]) => {
     setRows(f);
@@ -259,15 +216,6 @@ function QuoteEditorForm({
       return;
     }
     start(async () => {
-      const lines = rows.map((r, i) => ({
-        kind: r.kind,
-        partId: r.partId,
-        sku: r.sku,
-        description: r.description,
-        quantityMilli: parsed[i]!.quantityMilli!,
-        unitPriceMinor: parsed[i]!.unitPriceMinor!,
-        discountBp: parsed[i]!.discountBp ?? 0,
-      }));
       const res = await editQuoteAction(initialActionState, {
         id: props.id,
         version: props.version,
@@ -288,9 +236,8 @@ function QuoteEditorForm({
       // A line's field the server refused (lines.0.unitPriceMinor): marked on that line.
       const fromServer: LineErrors = {};
       for (const [path, messages] of Object.entries(res.fieldErrors ?? {})) {
-        const m = /^lines\.(\d+)\.(\w+)$/.exec(path);
-        const f = m && Object.hasOwn(FIELD_OF, m[2]!) ? FIELD_OF[m[2]!] : undefined;
-        if (m && f && Number(m[1]) < rows.length) fromServer[`${m[1]}.${f}`] = messages[0]!;
+        const at = serverLineField(path);
+        if (at && at.index < rows.length) fromServer[`${at.index}.${at.field}`] = messages[0]!;
       }
       setServerErrors(fromServer);
       const first = focusFirst(fromServer);
@@ -344,7 +291,7 @@ function QuoteEditorForm({
   };
 
   const dirty =
-    JSON.stringify(rows) !== JSON.stringify(props.lines.map(toRow)) ||
+    JSON.stringify(rows) !== JSON.stringify(props.lines.map(lineRowOf)) ||
     validUntil !== props.validUntil ||
     notes !== props.notes;
 
@@ -442,40 +389,11 @@ function QuoteEditorForm({
                   </span>
                 </td>
                 <td className="px-3 py-2 text-right" data-label="Qty">
-                  {editable ? (
-                    <>
-                      <input
-                        id={fieldId(i, "qty")}
-                        aria-label={`Line ${i + 1} quantity`}
-                        {...invalidProps(i, "qty")}
-                        inputMode="decimal"
-                        className={cell}
-                        value={r.qty}
-                        onChange={(e) => setRow(i, { qty: e.target.value })}
-                      />
-                      <FieldMessage id={`${fieldId(i, "qty")}-error`} text={errorOf(i, "qty")} />
-                    </>
-                  ) : (
-                    r.qty
-                  )}
+                  {editable ? numberInput(i, "qty") : r.qty}
                 </td>
                 <td className="px-3 py-2 text-right" data-label="Unit price">
                   {editable ? (
-                    <>
-                      <input
-                        id={fieldId(i, "price")}
-                        aria-label={`Line ${i + 1} unit price`}
-                        {...invalidProps(i, "price")}
-                        inputMode="decimal"
-                        className={cell}
-                        value={r.price}
-                        onChange={(e) => setRow(i, { price: e.target.value })}
-                      />
-                      <FieldMessage
-                        id={`${fieldId(i, "price")}-error`}
-                        text={errorOf(i, "price")}
-                      />
-                    </>
+                    numberInput(i, "price")
                   ) : (
                     <span className="figure">{shown.lines[i]!.unitPrice}</span>
                   )}
@@ -483,19 +401,7 @@ function QuoteEditorForm({
                 <td className="px-3 py-2 text-right" data-label="Discount %">
                   {editable ? (
                     <>
-                      <input
-                        id={fieldId(i, "discount")}
-                        aria-label={`Line ${i + 1} discount`}
-                        {...invalidProps(i, "discount")}
-                        inputMode="decimal"
-                        className={cell}
-                        value={r.discount}
-                        onChange={(e) => setRow(i, { discount: e.target.value })}
-                      />
-                      <FieldMessage
-                        id={`${fieldId(i, "discount")}-error`}
-                        text={errorOf(i, "discount")}
-                      />
+                      {numberInput(i, "discount")}
                       {shown.lines[i]!.discountAmount ? (
                         <span className="figure block text-xs text-ink-600">
                           {shown.lines[i]!.discountAmount}
@@ -528,37 +434,7 @@ function QuoteEditorForm({
               </tr>
             ))}
           </tbody>
-          <tfoot className="border-t border-ink-200 text-right" data-testid="quote-totals">
-            <tr>
-              <td colSpan={4} className="px-3 py-1">
-                Subtotal
-              </td>
-              <td className="figure px-3 py-1" data-testid="quote-subtotal">
-                {shown.subtotal}
-              </td>
-            </tr>
-            {shown.discountNote ? (
-              <tr>
-                <td colSpan={5} className="px-3 py-1 text-xs text-ink-600">
-                  {shown.discountNote}
-                </td>
-              </tr>
-            ) : null}
-            <tr>
-              <td colSpan={4} className="px-3 py-1">
-                {shown.taxLabel}
-              </td>
-              <td className="figure px-3 py-1">{shown.tax}</td>
-            </tr>
-            <tr className="font-semibold">
-              <td colSpan={4} className="px-3 py-1">
-                Total
-              </td>
-              <td className="figure px-3 py-1" data-testid="quote-total">
-                {shown.total}
-              </td>
-            </tr>
-          </tfoot>
+          <QuoteTotalsFoot presented={shown} testId="quote-totals" />
         </table>
       </div>
       {!linesGood && editable ? (
@@ -588,20 +464,7 @@ function QuoteEditorForm({
               }))
             }
             empty="No part matches; try another SKU, name or brand"
-            onPick={(p) =>
-              changeRows((rs) => [
-                ...rs,
-                {
-                  kind: "part",
-                  partId: p.id,
-                  sku: p.sku,
-                  description: `${p.brand} ${p.name}`,
-                  qty: "1",
-                  price: minorToPlain(p.priceMinor),
-                  discount: "0",
-                },
-              ])
-            }
+            onPick={(p) => changeRows((rs) => [...rs, partLineRow(p)])}
           />
           <Button type="button" variant="secondary" onClick={addLabour}>
             {labourAt >= 0 ? "Labour hours" : "Add labour"}
@@ -750,23 +613,4 @@ function FieldMessage({ id, text }: { id: string; text?: string }) {
       {text}
     </span>
   ) : null;
-}
-
-/** One line's own problems as [`${i}.${field}`, message] pairs, the limits said as money. */
-function checkLine(
-  r: Row,
-  p: { quantityMilli: number | null; unitPriceMinor: number | null; discountBp: number | null },
-  limits: ReturnType<typeof quoteLimitMessages>,
-  i: number,
-): [string, string][] {
-  const out: [string, string][] = [];
-  if (!r.description.trim()) out.push([`${i}.description`, "Describe the line"]);
-  if (p.quantityMilli === null || p.quantityMilli === 0)
-    out.push([`${i}.qty`, `Above 0, up to 3 decimals, ${limits.quantity.toLowerCase()}`]);
-  else if (quantityTooLarge(p.quantityMilli)) out.push([`${i}.qty`, limits.quantity]);
-  if (p.unitPriceMinor === null)
-    out.push([`${i}.price`, `A price like 12.50, ${limits.unitPrice.toLowerCase()}`]);
-  else if (unitPriceTooLarge(p.unitPriceMinor)) out.push([`${i}.price`, limits.unitPrice]);
-  if (p.discountBp === null || p.discountBp > 10000) out.push([`${i}.discount`, "From 0 to 100 %"]);
-  return out;
 }

@@ -1,3 +1,4 @@
+import { QuoteTotalsFoot } from "@/components/quotes/quote-totals";
 import type { PresentedQuote } from "@/lib/quotes/quote-presentation";
 
 /**
@@ -56,37 +57,7 @@ export function QuoteLinesTable({ presented: p }: { presented: PresentedQuote })
             </tr>
           ))}
         </tbody>
-        <tfoot className="border-t border-ink-200 text-right">
-          <tr>
-            <td colSpan={4} className="px-3 py-1">
-              Subtotal
-            </td>
-            <td className="figure px-3 py-1" data-testid="quote-subtotal">
-              {p.subtotal}
-            </td>
-          </tr>
-          {p.discountNote ? (
-            <tr>
-              <td colSpan={5} className="px-3 py-1 text-xs text-ink-600">
-                {p.discountNote}
-              </td>
-            </tr>
-          ) : null}
-          <tr>
-            <td colSpan={4} className="px-3 py-1">
-              {p.taxLabel}
-            </td>
-            <td className="figure px-3 py-1">{p.tax}</td>
-          </tr>
-          <tr className="font-semibold">
-            <td colSpan={4} className="px-3 py-1">
-              Total
-            </td>
-            <td className="figure px-3 py-1" data-testid="quote-total">
-              {p.total}
-            </td>
-          </tr>
-        </tfoot>
+        <QuoteTotalsFoot presented={p} />
       </table>
     </div>
   );

@@ -1,6 +1,6 @@
 import Papa from "papaparse";
 
-import type { Part } from "@/db/schema/catalog";
+import type { StoredPartFields } from "@/lib/catalog/flat-part";
 import { neutraliseCell, undoNeutralisedCell } from "@/lib/format/csv";
 import {
   CSV_COLUMNS,
@@ -113,22 +113,7 @@ export function parseCatalogCsv(text: string): ParsedCatalog {
  * The catalog as CSV, with the same columns the import reads; a text cell a spreadsheet would
  * run as a formula starts with `'` (the import takes it off), numbers are left as they are.
  */
-export function catalogCsv(
-  parts: Pick<
-    Part,
-    | "sku"
-    | "category"
-    | "brand"
-    | "name"
-    | "priceMinor"
-    | "costMinor"
-    | "stock"
-    | "reorderLevel"
-    | "leadTimeDays"
-    | "restockOn"
-    | "specs"
-  >[],
-): string {
+export function catalogCsv(parts: StoredPartFields[]): string {
   return Papa.unparse({
     fields: [...CSV_COLUMNS],
     data: parts.map((p) => {

@@ -49,21 +49,35 @@ const cellNumber = (t: string | undefined) =>
   t !== undefined && /^\s*[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?\s*$/.test(t) ? Number(t) : NaN;
 
 /** "13.5V 300:340 500:290 | 12V 300:300" → pump curves (pressure kPa : flow L/h at each voltage). */
-export function parsePumpCurve(text: string) {
+/**
+ * The segments of a per-voltage cell ("13.5V 300:340 500:290 | 12V 300:300"), each its voltage
+ * and its `a:b` pairs as numbers (a pair of any other shape: [NaN, NaN]); a segment that does
+ * not start with a voltage is null. The pump curve and dead-time cells are both written so.
+ */
+function voltageSegments(text: string) {
   return text.split("|").map((seg) => {
     const m = /^\s*(\d+(?:\.\d+)?)\s*V\s+(.+)$/i.exec(seg);
-    if (!m) return { voltage: NaN, points: [] };
+    if (!m) return null;
     const points = m[2]!
       .trim()
       .split(/\s+/)
-      .map((p) => {
-        const [pk, fl, extra] = p.split(":");
-        return extra === undefined
-          ? { pressureKpa: cellNumber(pk), flowLPerH: cellNumber(fl) }
-          : { pressureKpa: NaN, flowLPerH: NaN };
+      .map((p): [number, number] => {
+        const [a, b, extra] = p.split(":");
+        return extra === undefined ? [cellNumber(a), cellNumber(b)] : [NaN, NaN];
       });
     return { voltage: Number(m[1]), points };
   });
+}
+
+export function parsePumpCurve(text: string) {
+  return voltageSegments(text).map((seg) =>
+    seg
+      ? {
+          voltage: seg.voltage,
+          points: seg.points.map(([pressureKpa, flowLPerH]) => ({ pressureKpa, flowLPerH })),
+        }
+      : { voltage: NaN, points: [] },
+  );
 }
 /**
  * "12V 300:0.85 500:0.95 | 14V 300:0.65 500:0.72" → an injector's dead-time table: one segment
@@ -71,18 +85,7 @@ export function parsePumpCurve(text: string) {
  * A cell that does not have that shape gives a table the schema refuses (with the hint below).
  */
 export function parseDeadTime(text: string) {
-  const rows = text.split("|").map((seg) => {
-    const m = /^\s*(\d+(?:\.\d+)?)\s*V\s+(.+)$/i.exec(seg);
-    if (!m) return null;
-    const points = m[2]!
-      .trim()
-      .split(/\s+/)
-      .map((p) => {
-        const [pk, ms, extra] = p.split(":");
-        return extra === undefined ? [cellNumber(pk), cellNumber(ms)] : [NaN, NaN];
-      });
-    return { voltage: Number(m[1]), points };
-  });
+  const rows = voltageSegments(text);
   const first = rows[0]?.points.map(([p]) => p!) ?? [];
   const same = rows.every(
     (r) => r && r.points.length === first.length && r.points.every(([p], i) => p === first[i]),
@@ -118,23 +121,24 @@ export function formatPumpCurve(
 const isDeadTime = (v: unknown): v is Parameters<typeof formatDeadTime>[0] =>
   Boolean(v) && typeof v === "object" && Array.isArray((v as { voltages?: unknown }).voltages);
 
+/** What of a stored part its flat row is made from (the CSV export, the edit form). */
+export type StoredPartFields = Pick<
+  Part,
+  | "sku"
+  | "category"
+  | "brand"
+  | "name"
+  | "priceMinor"
+  | "costMinor"
+  | "stock"
+  | "reorderLevel"
+  | "leadTimeDays"
+  | "restockOn"
+  | "specs"
+>;
+
 /** A stored part → a flat row (CSV export, the edit form). */
-export function flatOf(
-  p: Pick<
-    Part,
-    | "sku"
-    | "category"
-    | "brand"
-    | "name"
-    | "priceMinor"
-    | "costMinor"
-    | "stock"
-    | "reorderLevel"
-    | "leadTimeDays"
-    | "restockOn"
-    | "specs"
-  >,
-): FlatPart {
+export function flatOf(p: StoredPartFields): FlatPart {
   const s = p.specs as Record<string, unknown>;
   const str = (v: unknown) => (v === undefined || v === null ? "" : String(v));
   const yn = (v: unknown) => (v === undefined ? "" : v ? "yes" : "no");

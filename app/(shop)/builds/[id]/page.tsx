@@ -11,14 +11,13 @@ import { buildStatusFacts, getBuild, listRevisions } from "@/db/queries/builds";
 import { unitSystemOf } from "@/db/queries/preferences";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { diffInputs } from "@/lib/builds/diff";
-import { readStoredInputs, storedSizingSettings } from "@/lib/builds/stored-inputs";
+import { settingsChangesOf } from "@/lib/builds/settings-changes";
+import { readStoredInputs } from "@/lib/builds/stored-inputs";
 import type { FuelSystemInput } from "@/lib/calc";
 import { STATUS_LABELS } from "@/lib/domain/builds";
 import { shopBsfc } from "@/lib/dyno/log-analysis";
 import { idOrNotFound } from "@/lib/ids";
 import { shopToday } from "@/lib/shop/shop-zone";
-import { effectiveInputs } from "@/lib/sizing/effective-inputs";
 import { shopSizingSettings } from "@/lib/sizing/shop-sizing";
 
 export const metadata: Metadata = { title: "Build sheet" };
@@ -41,11 +40,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
   const writes = can(m.role, "builds:write");
   const inputs = readStoredInputs(b);
   // What today's settings would change in what is sized (nothing: the build is up to date).
-  const settingsChanges = diffInputs(
-    effectiveInputs(storedSizingSettings(b), inputs),
-    effectiveInputs(today, inputs),
-    units,
-  );
+  const settingsChanges = settingsChangesOf(b, today, units);
   return (
     <>
       <div className="mb-4 flex flex-wrap items-end justify-between gap-3">

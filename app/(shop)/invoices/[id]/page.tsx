@@ -13,6 +13,7 @@ import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
 import { INVOICE_STATUS_LABELS, invoiceLabel, jobLabel } from "@/lib/domain/operations";
 import { idOrNotFound } from "@/lib/ids";
+import { editedLine } from "@/lib/quotes/line-rows";
 
 export const metadata: Metadata = { title: "Invoice" };
 
@@ -65,15 +66,7 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
             taxRateBp={i.taxRateBp}
             depositMinor={i.depositMinor}
             notes={i.notes ?? ""}
-            lines={inv.lines.map((l) => ({
-              kind: l.kind,
-              partId: l.partId,
-              sku: l.sku,
-              description: l.description,
-              quantityMilli: l.quantityMilli,
-              unitPriceMinor: l.unitPriceMinor,
-              discountBp: l.discountBp,
-            }))}
+            lines={inv.lines.map(editedLine)}
           />
         </section>
       ) : (

@@ -16,6 +16,7 @@ import { formatMoney } from "@/lib/catalog/money";
 import { QUOTE_STATUS_LABELS, quoteLabel, quoteStatusOn } from "@/lib/domain/quotes";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
+import { editedLine } from "@/lib/quotes/line-rows";
 import { diffQuotes } from "@/lib/quotes/quote-diff";
 import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
 import { shopToday } from "@/lib/shop/shop-zone";
@@ -114,15 +115,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         validUntil={qt.validUntil}
         depositMinor={depositOf(qt.totalMinor, settings?.settings.depositBp ?? 3000)}
         notes={qt.notes ?? ""}
-        lines={q.lines.map((l) => ({
-          kind: l.kind,
-          partId: l.partId,
-          sku: l.sku,
-          description: l.description,
-          quantityMilli: l.quantityMilli,
-          unitPriceMinor: l.unitPriceMinor,
-          discountBp: l.discountBp,
-        }))}
+        lines={q.lines.map(editedLine)}
         labourRateMinor={settings?.settings.labourRateMinor ?? 12000}
         canWrite={canWrite}
         customerEmail={q.customerEmail}

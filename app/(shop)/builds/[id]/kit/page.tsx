@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
+import { SettingsChangedNote } from "@/components/builds/settings-changed-note";
 import { KitPicker } from "@/components/kit/kit-picker";
 import { SafetyNote } from "@/components/tools/safety-note";
 import { PageHeader } from "@/components/ui/status";
@@ -10,10 +11,9 @@ import { unitSystemOf } from "@/db/queries/preferences";
 import { getShopSettings } from "@/db/queries/shops";
 import { requirePageMember } from "@/lib/auth/member";
 import { can } from "@/lib/auth/permissions";
-import { diffInputs } from "@/lib/builds/diff";
-import { readStoredInputs, storedSizingSettings } from "@/lib/builds/stored-inputs";
+import { settingsChangesOf } from "@/lib/builds/settings-changes";
 import { idOrNotFound } from "@/lib/ids";
-import { effectiveInputs, sizingSettingsOf } from "@/lib/sizing/effective-inputs";
+import { sizingSettingsOf } from "@/lib/sizing/effective-inputs";
 
 export const metadata: Metadata = { title: "Parts kit" };
 
@@ -28,14 +28,7 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
   ]);
   // The kit sizes with today's settings: a build sized under others says so, as its sheet does.
   const b = row.build;
-  const inputs = readStoredInputs(b);
-  const changes = s
-    ? diffInputs(
-        effectiveInputs(storedSizingSettings(b), inputs),
-        effectiveInputs(sizingSettingsOf(s.settings), inputs),
-        units,
-      )
-    : [];
+  const changes = s ? settingsChangesOf(b, sizingSettingsOf(s.settings), units) : [];
   return (
     <>
       <PageHeader title={`Parts kit — ${row.build.title}`}>
@@ -49,33 +42,22 @@ export default async function KitPage({ params }: { params: Promise<{ id: string
         limit. Parts rank by fit, not by stock: one that is not all on the shelf says so, with the
         day it is expected, and the ranking stays the same after you use the parts.
       </p>
-      {changes.length > 0 ? (
-        <div
-          role="status"
-          data-testid="settings-changed"
-          className="mb-4 rounded-lg border border-caution-600 bg-caution-50 p-4 text-sm text-ink-800"
-        >
-          <p className="font-semibold">
-            ▲ Version {b.version} of this build was sized with the shop&apos;s settings of the time.
-          </p>
-          <p className="mt-1">
-            The parts below are checked with today&apos;s settings, which size it differently; the
-            saved version and its spec sheet keep the old ones. Re-size it on the{" "}
-            <Link href={`/builds/${id}`} className="text-copper-700 underline">
-              build sheet
-            </Link>{" "}
-            to bring them in step:
-          </p>
-          <ul className="mt-1 list-inside list-disc">
-            {changes.map((c) => (
-              <li key={c.path}>
-                {c.label}: <span className="figure">{c.before}</span> →{" "}
-                <span className="figure">{c.after}</span>
-              </li>
-            ))}
-          </ul>
-        </div>
-      ) : null}
+      <SettingsChangedNote
+        changes={changes}
+        className="mb-4"
+        heading={
+          <>
+            Version {b.version} of this build was sized with the shop&apos;s settings of the time.
+          </>
+        }
+      >
+        The parts below are checked with today&apos;s settings, which size it differently; the saved
+        version and its spec sheet keep the old ones. Re-size it on the{" "}
+        <Link href={`/builds/${id}`} className="text-copper-700 underline">
+          build sheet
+        </Link>{" "}
+        to bring them in step:
+      </SettingsChangedNote>
       <KitPicker
         buildId={id}
         currency={s?.settings.currency ?? "USD"}
