@@ -30,7 +30,6 @@ const VARS = [
   "BENCH_SEED_ONLY",
   "NEXT_DIST_DIR",
   "NODE_ENV",
-  "BENCH_BASE_URL",
 ];
 
 const STUBS = `
@@ -104,7 +103,7 @@ describe("the benchmarks' shared set-up", () => {
           ? `${l} ${e} NEXT_DIST_DIR=.next-bench${l.includes(" start ") ? " NODE_ENV=production" : ""}`
           : l,
       ),
-      `node node_modules/.bin/tsx tests/bench/http.bench.ts --soak ${e} NEXT_DIST_DIR=.next-bench BENCH_BASE_URL=http://127.0.0.1:3300`,
+      `node node_modules/.bin/tsx tests/bench/http.bench.ts --soak ${e} NEXT_DIST_DIR=.next-bench`,
       "stop_all",
     ]);
   });
@@ -126,7 +125,7 @@ describe("the benchmarks' shared set-up", () => {
           ? `${l} ${e} NEXT_DIST_DIR=.next-bench${l.includes(" start ") ? " NODE_ENV=production" : ""}`
           : l,
       ),
-      `node node_modules/.bin/tsx tests/bench/ui.bench.ts ${e} NEXT_DIST_DIR=.next-bench BENCH_BASE_URL=http://127.0.0.1:3300`,
+      `node node_modules/.bin/tsx tests/bench/ui.bench.ts ${e} NEXT_DIST_DIR=.next-bench`,
       "stop_all",
     ]);
   });
@@ -138,7 +137,6 @@ describe("the benchmarks' shared set-up", () => {
     expect(trace).toContain("wait_http http://127.0.0.1:3340/api/health 60");
     expect(trace.at(-2)).toMatch(/^node node_modules\/.bin\/tsx tests\/bench\/ui.bench.ts /);
     expect(trace.at(-2)).toContain("APP_URL=http://127.0.0.1:3340 ");
-    expect(trace.at(-2)).toContain("BENCH_BASE_URL=http://127.0.0.1:3340");
     expect(trace.at(-2)).toContain("127.0.0.1:54438/fuelwright_bench");
   });
 });
