@@ -20,7 +20,7 @@ export function FormStatus({ ok, message }: { ok?: boolean; message?: string }) 
       tabIndex={-1}
       aria-live="polite"
       data-testid="form-status"
-      className={`min-h-6 text-sm font-medium focus:outline-none ${ok ? "text-ok-700" : "text-danger-700"}`}
+      className={`min-h-6 text-sm font-medium ${ok ? "text-ok-700" : "text-danger-700"}`}
     >
       {message ? (ok ? "✓ " : "✕ ") + message : ""}
     </p>
