@@ -11,12 +11,11 @@ import { useEffect, useRef } from "react";
  */
 export function RouteFocus() {
   const pathname = usePathname();
-  const first = useRef(true);
+  // The path last seen (not a "first run" flag: React's strict mode runs an effect twice).
+  const last = useRef(pathname);
   useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
+    if (last.current === pathname) return;
+    last.current = pathname;
     const active = document.activeElement;
     if (!active || active === document.body)
       document.getElementById("main")?.focus({ preventScroll: true });
