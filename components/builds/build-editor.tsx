@@ -682,6 +682,7 @@ export function BuildEditor(props: {
           noValidate
           onSubmit={(e) => {
             e.preventDefault();
+            if (pending) return;
             const live = store.get();
             if (live.sized && live.titleOk) save();
             else {
@@ -690,7 +691,7 @@ export function BuildEditor(props: {
             }
           }}
         >
-          {/* On a narrow screen the key figures stay pinned above the inputs as they scroll. */}
+          {/* The key figures stay pinned above the inputs as they scroll, at every width. */}
           <LivePinnedSummary store={store} units={units} />
           <fieldset
             disabled={props.readOnly}
@@ -879,8 +880,16 @@ export function BuildEditor(props: {
               {lineFields("return")}
             </Section>
             {!props.readOnly ? (
-              <div className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3">
-                <Button type="submit" disabled={pending}>
+              <div
+                data-sticky-bar="bottom"
+                className="sticky bottom-0 flex flex-wrap items-center gap-4 border-t border-ink-200 bg-ink-50 py-3"
+              >
+                {/* Not `disabled` while saving: a disabled button drops the focus to the page. */}
+                <Button
+                  type="submit"
+                  aria-disabled={pending}
+                  className="aria-disabled:cursor-not-allowed aria-disabled:bg-ink-300"
+                >
                   {pending ? "Saving…" : "Save build"}
                 </Button>
                 <VersionNote

@@ -1,15 +1,21 @@
 "use client";
 
+import { useEffect, useRef, type RefObject } from "react";
+
 import { Signal } from "@/components/ui/status";
 import type { FuelSystemResult, UnitSystem } from "@/lib/calc";
 
 import { keyFigures } from "./key-figures";
 
 /**
- * The build sheet's key figures pinned to the top of the screen while the inputs scroll by, on
- * screens where the results sit below the inputs (under 1024 px): duty, pump margin, power
- * ceiling and the worst warning, with a jump to the full results. Fed the result the editor
- * already has; hidden on paper and on wide screens (the results stand beside the inputs there).
+ * The build sheet's key figures pinned to the top of the screen while the inputs scroll by, at
+ * every width (on a wide screen the full results stand beside the inputs but scroll away with
+ * the page): duty, pump margin, power ceiling and the worst warning, with a jump to the full
+ * results. Fed the result the editor already has; hidden on paper.
+ *
+ * It also keeps the focused field clear of the sticky bars: the page's scroll padding is the
+ * height of this bar at the top and of the form's `data-sticky-bar="bottom"` (the "Save build"
+ * bar) at the bottom, so Tab and Shift+Tab scroll a field fully into view.
  */
 export function PinnedSummary({
   result,
@@ -21,13 +27,16 @@ export function PinnedSummary({
   /** The id of the full results, for the "All results" link. */
   resultsId: string;
 }) {
+  const ref = useRef<HTMLElement>(null);
+  useStickyScrollPadding(ref);
   const figures = result ? keyFigures(result, units) : null;
   const warning = figures?.find((f) => f.key === "warning");
   return (
     <aside
+      ref={ref}
       aria-label="Key figures"
       data-testid="pinned-summary"
-      className="sticky top-0 z-20 -mx-4 mb-4 border-b border-ink-200 bg-white/95 px-4 py-2 shadow-sm backdrop-blur-sm lg:hidden print:hidden"
+      className="sticky top-0 z-20 -mx-4 mb-4 border-b border-ink-200 bg-white/95 px-4 py-2 shadow-sm backdrop-blur-sm print:hidden"
     >
       {figures ? (
         <>
@@ -67,4 +76,33 @@ export function PinnedSummary({
       )}
     </aside>
   );
+}
+
+/** Sets the page's scroll padding to the heights of the sticky bars while they are on screen. */
+function useStickyScrollPadding(top: RefObject<HTMLElement | null>) {
+  useEffect(() => {
+    const bar = top.current;
+    if (!bar) return;
+    const root = document.documentElement;
+    const bottom = () =>
+      bar.closest("form")?.querySelector<HTMLElement>('[data-sticky-bar="bottom"]');
+    const measure = () => {
+      // A little room beyond the bars, so the focus ring shows too.
+      root.style.scrollPaddingTop = `${Math.ceil(bar.getBoundingClientRect().height) + 8}px`;
+      const b = bottom();
+      root.style.scrollPaddingBottom = b
+        ? `${Math.ceil(b.getBoundingClientRect().height) + 8}px`
+        : "";
+    };
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(bar);
+    const b = bottom();
+    if (b) observer.observe(b);
+    return () => {
+      observer.disconnect();
+      root.style.scrollPaddingTop = "";
+      root.style.scrollPaddingBottom = "";
+    };
+  }, [top]);
 }

@@ -6,7 +6,8 @@ const cell =
 /**
  * An input inside a table cell: named for screen readers by `label` (the column header says it
  * to the eye; below 640 px the card's `data-label`), its message under it, tied by
- * aria-describedby.
+ * aria-describedby. On paper a controlled input prints as its text in full (a long line
+ * description wraps instead of being cut off at the box's edge).
  */
 export function CellInput({
   id,
@@ -26,9 +27,12 @@ export function CellInput({
         aria-label={label}
         aria-invalid={Boolean(msg)}
         aria-describedby={msg ? `${id}-err` : undefined}
-        className={`${cell} ${className}`}
+        className={`${cell} ${className} ${typeof rest.value === "string" ? "print:hidden" : ""}`}
         {...rest}
       />
+      {typeof rest.value === "string" ? (
+        <span className={`print-only figure ${className}`}>{rest.value}</span>
+      ) : null}
       {msg ? (
         <p id={`${id}-err`} role="alert" className="mt-1 text-xs font-medium text-danger-700">
           <span aria-hidden="true">✕ </span>

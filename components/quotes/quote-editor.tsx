@@ -450,7 +450,7 @@ function QuoteEditorForm({
         </p>
       ) : null}
       {editable ? (
-        <div className="flex flex-wrap items-end gap-3">
+        <div className="flex flex-wrap items-end gap-3 print:hidden">
           <SearchCombobox<{ parts: CatalogPart[] }, CatalogPart>
             label="Add a part"
             placeholder="Type a SKU, name or brand"
@@ -505,7 +505,8 @@ function QuoteEditorForm({
             className="mt-1 rounded-md border border-ink-300 bg-white px-3 py-2"
           />
         </div>
-        <div>
+        {/* An empty notes box is an editing aid: not printed. */}
+        <div className={notes.trim() ? undefined : "print:hidden"}>
           <label htmlFor="q-notes" className="block text-sm font-medium text-ink-700">
             Notes for the customer
           </label>

@@ -8,6 +8,7 @@ import { ROLE_LABELS } from "@/lib/domain/roles";
 import { Logo } from "./logo";
 import { navFor } from "./nav-items";
 import { NavLinks } from "./nav-links";
+import { RouteFocus } from "./route-focus";
 import { SignOutButton } from "./sign-out-button";
 
 /**
@@ -51,6 +52,7 @@ export function AppFrame({
         <main id="main" tabIndex={-1} className="mx-auto max-w-7xl px-4 py-6 focus:outline-none">
           {children}
         </main>
+        <RouteFocus />
       </div>
     </ShopTimeZone>
   );

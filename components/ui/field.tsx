@@ -101,8 +101,10 @@ export function TextAreaField({
 }: Common & TextareaHTMLAttributes<HTMLTextAreaElement>) {
   const id = rest.id ?? `f-${name}`;
   const has = Boolean(error && error.length);
+  // An empty box is an editing aid: not printed (a filled one prints its whole text).
+  const empty = typeof rest.value === "string" && rest.value.trim() === "";
   return (
-    <div>
+    <div className={empty ? "print:hidden" : undefined}>
       <label htmlFor={id} className="block text-sm font-medium text-ink-700">
         {label}
       </label>

@@ -75,7 +75,8 @@ export function SearchCombobox<R, T>({
           : `${list.length} found; ↓ and Enter to choose`;
 
   return (
-    <div className="relative w-full max-w-xl">
+    // A search is an editing aid: not printed.
+    <div className="relative w-full max-w-xl print:hidden">
       <label htmlFor={`${id}-input`} className="block text-sm font-medium text-ink-700">
         {label}
       </label>

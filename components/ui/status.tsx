@@ -1,16 +1,6 @@
 import type { ReactNode } from "react";
 
-/** Form status line, announced to screen readers. */
-export function FormStatus({ ok, message }: { ok?: boolean; message?: string }) {
-  return (
-    <p
-      aria-live="polite"
-      className={`min-h-6 text-sm font-medium ${ok ? "text-ok-700" : "text-danger-700"}`}
-    >
-      {message ? (ok ? "✓ " : "✕ ") + message : ""}
-    </p>
-  );
-}
+export { FormStatus } from "./form-status";
 
 /** Signal badge: colour plus a symbol plus a word, never colour alone. */
 export function Signal({

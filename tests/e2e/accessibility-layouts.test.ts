@@ -285,6 +285,158 @@ describe("keyboard and screen readers on the build sheet", () => {
   });
 });
 
+describe("the build sheet's sticky bars and the focus (issue 21)", () => {
+  /**
+   * Tabs (or Shift+Tabs) through the build sheet's form and returns each focused control that
+   * is not fully visible between the pinned key figures and the "Save build" bar.
+   */
+  const hiddenByBars = async (page: Page, key: "Tab" | "Shift+Tab", most: number) => {
+    const hidden: string[] = [];
+    for (let i = 0; i < most; i++) {
+      await page.keyboard.press(key);
+      const where = await page.evaluate(() => {
+        const el = document.activeElement as HTMLElement | null;
+        const form = document.querySelector('form[aria-label="Build inputs"]');
+        if (!el || !form?.contains(el)) return "out";
+        const pinned = document.querySelector('[data-testid="pinned-summary"]')!;
+        const bar = document.querySelector('[data-sticky-bar="bottom"]')!;
+        if (pinned.contains(el) || bar.contains(el)) return null;
+        const r = el.getBoundingClientRect();
+        const top = Math.max(0, pinned.getBoundingClientRect().bottom);
+        const bottom = Math.min(window.innerHeight, bar.getBoundingClientRect().top);
+        return r.top >= top - 1 && r.bottom <= bottom + 1
+          ? null
+          : `${el.id || el.getAttribute("aria-label") || el.tagName} at ${Math.round(r.top)}–${Math.round(r.bottom)}, clear between ${Math.round(top)} and ${Math.round(bottom)}`;
+      });
+      if (where === "out") break;
+      if (where) hidden.push(where);
+    }
+    return hidden;
+  };
+
+  it.each([
+    ["390", PHONE],
+    ["768", TABLET],
+    ["1280", { width: 1280, height: 800 }],
+  ] as const)(
+    "at %s px every control the Tab and Shift+Tab reach is fully visible between the pinned figures and the save bar",
+    async (_name, viewport) => {
+      const ctx = await newClient(browser, viewport);
+      const page = await ctx.newPage();
+      await signInAs(page, "tuner");
+      await page.goto(BUILD);
+      await hydrated(page);
+      await page.locator("#b-title").focus();
+      const forward = await hiddenByBars(page, "Tab", 200);
+      expect(forward, "hidden under a sticky bar on Tab").toEqual([]);
+      // Back up from the save bar to the top.
+      await page.getByRole("button", { name: "Save build" }).focus();
+      const backward = await hiddenByBars(page, "Shift+Tab", 200);
+      expect(backward, "hidden under a sticky bar on Shift+Tab").toEqual([]);
+      await ctx.close();
+    },
+    300_000,
+  );
+
+  it("at 1280 px the key figures stay in view at the last section and follow the typing", async () => {
+    const ctx = await newClient(browser, { width: 1280, height: 800 });
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.goto(BUILD);
+    await hydrated(page);
+    const voltage = page.getByLabel(/^Voltage at the pump/);
+    await page.getByRole("group", { name: /Return line/ }).scrollIntoViewIfNeeded();
+    await page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
+    const pinned = page.getByTestId("pinned-summary");
+    const inView = () =>
+      pinned.evaluate((el) => {
+        const r = el.getBoundingClientRect();
+        return r.top >= 0 && r.bottom <= window.innerHeight && r.height > 0;
+      });
+    expect(await inView(), "the key figures are on screen at the end of the sheet").toBe(true);
+    const margin = () => page.getByTestId("pinned-margin").innerText();
+    const before = await margin();
+    await voltage.fill("9");
+    await expect.poll(margin).not.toBe(before);
+    expect(await inView()).toBe(true);
+    await ctx.close();
+  });
+
+  it("after a save and after a copy by keyboard, the focus stays in the page (not back at the top)", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "tuner");
+    await page.getByRole("link", { name: "New build" }).click();
+    await page.getByLabel("Customer").selectOption({ label: "Harriet Quill" });
+    await page.getByLabel("Title").fill(`Focus check ${Date.now()}`);
+    await page.getByRole("button", { name: "Create build sheet" }).click();
+    await page.waitForURL(/\/builds\/[0-9a-f-]{36}$/);
+    const url = page.url();
+    await hydrated(page);
+    await page.getByLabel("Drivetrain loss (%)").fill("14");
+    const save = page.getByRole("button", { name: "Save build" });
+    await save.focus();
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.getByText("Saved as version 2").count()).toBe(1);
+    const focused = () =>
+      page.evaluate(() => {
+        const el = document.activeElement;
+        if (!el || el === document.body) return "body";
+        return el.tagName === "BUTTON"
+          ? `button ${el.textContent}`
+          : el.getAttribute("data-testid") === "form-status"
+            ? "status"
+            : el.id || el.tagName;
+      });
+    await expect.poll(focused).toMatch(/^(button Save build|status)$/);
+    await page.keyboard.press("Tab");
+    expect(await focused(), "the next Tab goes on from the save bar").not.toBe("skip-link");
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).not.toBe(
+      "Skip to content",
+    );
+
+    await page.getByRole("button", { name: "Copy as next power step" }).focus();
+    await page.keyboard.press("Enter");
+    await page.waitForURL((u) => /\/builds\/[0-9a-f-]{36}$/.test(u.pathname) && u.href !== url);
+    await hydrated(page);
+    await expect.poll(focused).not.toBe("body");
+    await page.keyboard.press("Tab");
+    expect(
+      await page.evaluate(() => document.activeElement?.textContent?.trim()),
+      "the next Tab stays in the page",
+    ).not.toBe("Skip to content");
+    await ctx.close();
+  });
+});
+
+/** What shows as a control on paper (the page is emulating print). */
+const printedChrome = (page: Page) =>
+  page.evaluate(() => {
+    const shown = (el: Element) => {
+      const r = el.getBoundingClientRect();
+      return r.width > 0 && r.height > 0 && getComputedStyle(el).visibility !== "hidden";
+    };
+    const found: string[] = [];
+    for (const b of document.querySelectorAll("button, [role=combobox], [role=search]"))
+      if (shown(b)) found.push(`control: ${b.textContent?.trim() || b.getAttribute("aria-label")}`);
+    for (const a of document.querySelectorAll("a"))
+      if (shown(a) && /PDF|^New (quote|build)/.test(a.textContent?.trim() ?? ""))
+        found.push(`link: ${a.textContent?.trim()}`);
+    for (const f of document.querySelectorAll<HTMLInputElement | HTMLTextAreaElement>(
+      "input:not([type=hidden]), select, textarea",
+    )) {
+      if (!shown(f)) continue;
+      const s = getComputedStyle(f);
+      const name = f.id || f.getAttribute("aria-label") || f.tagName;
+      if (s.appearance !== "none" || parseFloat(s.borderTopWidth) > 0)
+        found.push(`chrome: ${name}`);
+      if (f instanceof HTMLTextAreaElement && !f.value.trim()) found.push(`empty box: ${name}`);
+      if (f.scrollWidth > f.clientWidth + 1 || f.scrollHeight > f.clientHeight + 1)
+        found.push(`cut off: ${name}`);
+    }
+    return found;
+  });
+
 describe("print", () => {
   it("the build sheet, the customer page and a quote print without the menu or sticky bars, the sheet on at most 3 pages", async () => {
     const ctx = await newClient(browser);
@@ -324,8 +476,24 @@ describe("print", () => {
           expect(pdf.text).toMatch(/Power ceiling/);
           expect(pdf.text).toMatch(/Warnings/);
           expect(pdf.text).toMatch(/Duty at E/);
+          // The results come first, then the inputs (issue 21).
+          expect(pdf.text.indexOf("Power ceiling")).toBeLessThan(pdf.text.indexOf("Idle and air"));
+          expect(pdf.text.indexOf("Warnings")).toBeLessThan(pdf.text.indexOf("Idle and air"));
+          expect(pdf.pages, `${name} on ${format}`).toBeLessThanOrEqual(2);
         }
       }
+      // On paper: no buttons, no PDF or "New …" links, no searches, no empty boxes, and every
+      // field shows its value as text (no border, arrow or picker) in full.
+      expect(await printedChrome(page), `${name} in print`).toEqual([]);
+    }
+    // A draft invoice too.
+    const [inv] =
+      await sql`select id from invoices where shop_id = 'demo-shop-ridgeback' and number is null limit 1`;
+    if (inv) {
+      await page.goto(`/invoices/${inv.id}`);
+      await page.getByRole("heading", { level: 1 }).waitFor();
+      await page.waitForLoadState("networkidle");
+      expect(await printedChrome(page), "invoice in print").toEqual([]);
     }
     console.log("printed pages:", JSON.stringify(pages));
     await ctx.close();

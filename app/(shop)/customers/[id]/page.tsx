@@ -52,7 +52,7 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
           {can(m.role, "quotes:write") ? (
             <Link
               href={`/quotes/new?customer=${c.id}`}
-              className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700"
+              className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700 print:hidden"
             >
               New quote
             </Link>
@@ -92,7 +92,7 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
               {can(m.role, "builds:draft") ? (
                 <Link
                   href={`/builds/new?customer=${c.id}`}
-                  className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700"
+                  className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700 print:hidden"
                 >
                   New build
                 </Link>

@@ -32,7 +32,7 @@ export default async function InvoicePage({ params }: { params: Promise<{ id: st
         <div className="flex flex-wrap items-center gap-3">
           <a
             href={`/api/v1/invoices/${i.id}/pdf`}
-            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
+            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100 print:hidden"
           >
             Invoice (PDF)
           </a>

@@ -53,7 +53,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         <div className="flex items-center gap-3">
           <a
             href={`/api/v1/quotes/${qt.id}/pdf`}
-            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100"
+            className="rounded-md border border-ink-300 bg-white px-3 py-1.5 text-sm font-medium text-ink-800 hover:bg-ink-100 print:hidden"
           >
             Quote PDF
           </a>
