@@ -105,14 +105,16 @@ export class LiveSizing<V extends Values> {
     if (force || key !== this.inputsKey) {
       this.inputsKey = key;
       const parsed = safeEffective(settings, inputs);
-      if (parsed.success) {
+      const boost = boostMissing(inputs);
+      if (parsed.success && !boost) {
         result = sizeParsedFuelSystem(parsed.data);
         sized = { input: parsed.data, result };
         schemaErrors = {};
       } else {
         result = null;
         sized = null;
-        schemaErrors = issueMessages(parsed.error.issues, units);
+        schemaErrors = parsed.success ? {} : issueMessages(parsed.error.issues, units);
+        if (boost) schemaErrors["engine.maxBoostKpa"] ??= boost;
       }
     }
     const title = values.title ?? "";
@@ -153,6 +155,19 @@ function safeEffective(settings: SizingSettings, inputs: FuelSystemInput) {
     // A shape effectiveInputs cannot read (no target or fuel): the schema says what is missing.
     return FuelSystemInputSchema.safeParse(inputs);
   }
+}
+
+/**
+ * A blank boost on a turbocharged or supercharged engine: the schema reads a missing boost as 0
+ * (right for the API and a naturally aspirated engine), but a person who cleared the field has
+ * not said the engine makes no boost — the sheet asks rather than sizing it at 0.
+ */
+export function boostMissing(inputs: FuelSystemInput): string | undefined {
+  const e = (inputs as { engine?: { aspiration?: unknown; maxBoostKpa?: unknown } }).engine;
+  if (!e || e.aspiration === undefined || e.aspiration === "na") return undefined;
+  return e.maxBoostKpa === undefined || e.maxBoostKpa === null || Number.isNaN(e.maxBoostKpa)
+    ? "Boost is required for a turbocharged or supercharged engine"
+    : undefined;
 }
 
 function sameRecord(a: Record<string, string>, b: Record<string, string>) {

@@ -10,6 +10,7 @@ import type { ImageInfo } from "@/lib/images/logo";
 import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-view";
 import { shopLimitsAfter } from "@/lib/tune/limits";
 import {
+  DESIGN_ORDER_MESSAGE,
   DUTY_ORDER_MESSAGE,
   type ShopSettingsPatchSchema,
   type ShopSettingsSchema,
@@ -46,6 +47,15 @@ export async function saveShopSettings(
     throw Invalid.field(
       input.dutyDangerPct !== undefined ? "dutyDangerPct" : "dutyCautionPct",
       DUTY_ORDER_MESSAGE,
+    );
+  const design = input.designDutyPct ?? current.settings.designDutyPct;
+  const touched = (["designDutyPct", "dutyCautionPct"] as const).filter(
+    (k) => input[k] !== undefined,
+  );
+  if (touched.length > 0 && design > caution)
+    throw new Invalid(
+      DESIGN_ORDER_MESSAGE,
+      touched.map((path) => ({ path, message: DESIGN_ORDER_MESSAGE })),
     );
   const { shopName, taxRatePct, labourRate, depositPct, address, phone } = input;
   const picked = Object.fromEntries(

@@ -94,6 +94,9 @@ export const ShopSettingsFields = z.object({
 });
 
 export const DUTY_ORDER_MESSAGE = "Danger duty must not be below caution duty";
+/** Injectors sized to a design duty above the caution level would always be flagged. */
+export const DESIGN_ORDER_MESSAGE =
+  "Design duty must not be above caution duty (injectors sized to it would always show a caution)";
 
 /**
  * The settings a person reads and types in their own units (the rest are %, days, money or

@@ -191,11 +191,14 @@ if (soak) {
   );
 } else {
   const rows = [];
-  // Warm-up: every route compiled, caches and pools filled.
+  // Warm-up: every route compiled, caches and pools filled, and each route's code run long
+  // enough for the JIT to have compiled it (BENCH_WARMUP_S seconds a case, 2 by default): a
+  // case measured on colder code than the next one would compare the JIT, not the routes.
   // BENCH_ONLY (a regular expression) runs only the cases it matches, e.g. "calc|bench".
   const only = process.env.BENCH_ONLY ? new RegExp(process.env.BENCH_ONLY) : null;
   const cases = CASES.filter((c) => !only || only.test(c.name));
-  for (const c of cases) await run(c, 4, 2);
+  const warmup = Number(process.env.BENCH_WARMUP_S ?? 2);
+  for (const c of cases) await run(c, 4, warmup);
   for (const c of cases) for (const n of [1, 16, 64]) rows.push(row(c.name, n, await run(c, n)));
   const bare = await bareServer();
   const bareRows = [];

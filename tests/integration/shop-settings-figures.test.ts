@@ -412,6 +412,17 @@ describe("shop settings reach every figure", () => {
     const order = await request(owner, "PATCH", "/api/v1/shop/settings", { dutyCautionPct: 95 });
     expect(order.status).toBe(422);
     expect(order.json.error.issues[0].path).toBe("dutyCautionPct");
+    // Design duty above the caution level (75 here): injectors sized to it would always show a
+    // caution, so it is refused at whichever of the two the request names (common practice, no source).
+    for (const [body, path] of [
+      [{ designDutyPct: 80 }, "designDutyPct"],
+      [{ dutyCautionPct: 70 }, "dutyCautionPct"],
+    ] as const) {
+      const above = await request(owner, "PATCH", "/api/v1/shop/settings", body);
+      expect(above.status, JSON.stringify(body)).toBe(422);
+      expect(above.json.error.issues.map((i: { path: string }) => i.path)).toEqual([path]);
+      expect(above.json.error.message).toMatch(/Design duty must not be above caution duty/);
+    }
     const zone = await request(owner, "PATCH", "/api/v1/shop/settings", {
       timeZone: "europe/berlin",
       gasolineDensityKgPerL: null,
