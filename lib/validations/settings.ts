@@ -47,7 +47,7 @@ export const ShopSettingsFields = z.object({
     .trim()
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter currency code such as USD"),
-  taxRatePct: n("Tax rate", 0, 30),
+  taxRatePct: n("Tax rate", 0, 30, "%"),
   units: z.enum(["metric", "imperial"], { error: "Choose metric or imperial" }),
   /** ISO 3166-1 alpha-2: customers' phone numbers are read as from here; left out: kept. */
   country: z
@@ -75,21 +75,21 @@ export const ShopSettingsFields = z.object({
   bsfcGasolineBoosted: n("BSFC gasoline boosted", 150, 1200, "g/kWh"),
   bsfcE85Na: n("BSFC E85 NA", 150, 1200, "g/kWh"),
   bsfcE85Boosted: n("BSFC E85 boosted", 150, 1200, "g/kWh"),
-  designDutyPct: n("Design duty", 50, 95),
-  dutyCautionPct: n("Caution duty", 50, 100),
-  dutyDangerPct: n("Danger duty", 50, 100),
-  minPumpMarginPct: n("Minimum pump margin", 0, 200),
+  designDutyPct: n("Design duty", 50, 95, "%"),
+  dutyCautionPct: n("Caution duty", 50, 100, "%"),
+  dutyDangerPct: n("Danger duty", 50, 100, "%"),
+  minPumpMarginPct: n("Minimum pump margin", 0, 200, "%"),
   maxLineDropKpa: n("Line drop limit", 1, 100, "kPa"),
-  lossManualPct: n("Manual drivetrain loss", 0, 50),
-  lossAutomaticPct: n("Automatic drivetrain loss", 0, 50),
-  lossAwdPct: n("AWD drivetrain loss", 0, 50),
+  lossManualPct: n("Manual drivetrain loss", 0, 50, "%"),
+  lossAutomaticPct: n("Automatic drivetrain loss", 0, 50, "%"),
+  lossAwdPct: n("AWD drivetrain loss", 0, 50, "%"),
   // The same ranges as a build's own fuel properties (lib/calc/schema.ts#FuelPropertiesSchema).
   gasolineDensityKgPerL: nOrLibrary("Gasoline density", 0.68, 0.8, "kg/L"),
   gasolineStoichAfr: nOrLibrary("Gasoline stoichiometric AFR", 13, 15.5),
   ethanolDensityKgPerL: nOrLibrary("Ethanol density", 0.75, 0.83, "kg/L"),
   ethanolStoichAfr: nOrLibrary("Ethanol stoichiometric AFR", 8, 10),
   labourRate: n("Labour rate", 0, 100_000),
-  depositPct: n("Deposit", 0, 100),
+  depositPct: n("Deposit", 0, 100, "%"),
   quoteValidDays: n("Quote validity", 1, 365, "", "Quote validity is a whole number of days"),
 });
 
