@@ -115,13 +115,18 @@ describe("keyboard only", () => {
           (await sql`select count(*)::int as n from customers where name = ${name}`)[0]!.n,
       )
       .toBe(1);
-    // The focused control always shows where it is.
+    // Saving opens the new customer's page; the focus goes to its content, never back to the
+    // top of the page, and the next Tab reaches a control that shows where it is.
+    await page.waitForURL(/\/customers\/[0-9a-f-]{36}$/);
+    await expect.poll(() => page.evaluate(() => document.activeElement?.id ?? "")).toBe("main");
+    await page.keyboard.press("Tab");
     const outline = await page.evaluate(() => {
       const el = document.activeElement as HTMLElement | null;
-      if (!el || el === document.body) return "none-focused";
+      if (!el || el === document.body || el.id === "main") return "none-focused";
       const s = getComputedStyle(el);
       return `${s.outlineStyle} ${s.boxShadow}`;
     });
+    expect(outline).not.toBe("none-focused");
     expect(outline).not.toBe("none none");
     await ctx.close();
   });
