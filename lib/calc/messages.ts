@@ -88,7 +88,8 @@ export function formatTraceStep(step: TraceStep, system: UnitSystem): FormattedS
       .filter((i) => !i.only || i.only === system)
       .map((i) =>
         formatLabelled(
-          i.label,
+          // Saved before it was renamed: the BSFC, not the lambda (a figure in g/kWh or lb/hp/h).
+          i.label === "at reference lambda" ? "rule-of-thumb BSFC" : i.label,
           i.quantity,
           i.value,
           system,

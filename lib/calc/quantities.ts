@@ -90,6 +90,8 @@ export type Quantity =
   | "afr"
   /** Times, ms. */
   | "time"
+  /** Hours of work (a quote's or an invoice's labour line), printed "1.5 h". */
+  | "hours"
   | "speed"
   | "frequency"
   /** Whole things: injectors, cylinders, pumps. */
@@ -370,6 +372,8 @@ export const QUANTITIES: Record<Quantity, QuantitySpec> = {
     ...same({ unit: ":1", gap: "", decimals: 1 }),
   },
   time: { name: "time", canonical: "ms", ...same({ unit: "ms", decimals: 2 }) },
+  // Quotes take hours to three decimals; a figure prints with the decimals it has (1.5 h).
+  hours: { name: "hours of work", canonical: "h", ...same({ unit: "h", decimals: 3 }) },
   speed: { name: "engine speed", canonical: "rpm", ...same({ unit: "rpm", decimals: 0 }) },
   frequency: { name: "frequency", canonical: "Hz", ...same({ unit: "Hz", decimals: 0 }) },
   count: {

@@ -20,7 +20,7 @@ export interface PresentedLine {
   kind: PresentableLine["kind"];
   sku: string | null;
   description: string;
-  /** "1.5" (hours or pieces, up to three decimals). */
+  /** "1.5 h" for labour (through the quantity registry), "2" pieces (up to three decimals). */
   quantity: string;
   /** "$120.00" a unit. */
   unitPrice: string;
@@ -59,6 +59,24 @@ export function formatRateBp(bp: number): string {
 /** A quantity in thousandths as shown on a quote: 1500 → "1.5". */
 export const formatQuoteQuantity = (quantityMilli: number) => formatScaled(quantityMilli, 3);
 
+/**
+ * A line's quantity with its unit where it has one: labour in hours through the quantity
+ * registry with the decimals it has (1500 → "1.5 h", 2000 → "2 h"); parts and fees as counts.
+ */
+export function formatLineQuantity(kind: PresentableLine["kind"], quantityMilli: number): string {
+  if (kind !== "labour") return formatQuoteQuantity(quantityMilli);
+  const decimals =
+    quantityMilli % 1000 === 0
+      ? 0
+      : quantityMilli % 100 === 0
+        ? 1
+        : quantityMilli % 10 === 0
+          ? 2
+          : 3;
+  // Hours are the same in both unit systems.
+  return formatValue("hours", quantityMilli / 1000, "metric", decimals);
+}
+
 /** Money taken off, with a true minus sign: 1800 → "−$18.00". */
 export const formatDeduction = (minor: number, currency: string) =>
   `−${formatMoney(minor, currency)}`;
@@ -87,7 +105,7 @@ export function presentQuote(
         kind: l.kind,
         sku: l.sku,
         description: l.description,
-        quantity: formatQuoteQuantity(l.quantityMilli),
+        quantity: formatLineQuantity(l.kind, l.quantityMilli),
         unitPrice: money(l.unitPriceMinor),
         discountRate: rate,
         discountAmount: amount,

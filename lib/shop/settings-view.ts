@@ -3,6 +3,7 @@ import type { z } from "zod";
 import type { ShopSettings } from "@/db/schema";
 import { fromShown, shownText } from "@/lib/calc/quantities";
 import type { UnitSystem } from "@/lib/calc/units";
+import { OLD_ZONE_NAMES } from "@/lib/domain/time-zones";
 import {
   SHOWN_SETTINGS,
   type ShopSettingsFormInput,
@@ -65,6 +66,10 @@ export function settingsFormValues(
       out[k] = x === null || x === undefined ? "" : String(x);
   for (const [k, s] of Object.entries(SHOWN_SETTINGS))
     out[k] = shownText(s.quantity, v[k as ShownSetting], system);
+  // A zone stored under an old name (before names were checked) is offered under its new one.
+  out.timeZone = Object.hasOwn(OLD_ZONE_NAMES, v.timeZone)
+    ? OLD_ZONE_NAMES[v.timeZone]!
+    : v.timeZone;
   out.shownUnits = system;
   return out;
 }

@@ -11,7 +11,7 @@ import { shopSettingsView, type ShopSettingsView } from "@/lib/shop/settings-vie
 import { shopLimitsAfter } from "@/lib/tune/limits";
 import {
   DESIGN_ORDER_MESSAGE,
-  DUTY_ORDER_MESSAGE,
+  dutyOrderIssue,
   type ShopSettingsPatchSchema,
   type ShopSettingsSchema,
 } from "@/lib/validations/settings";
@@ -43,11 +43,15 @@ export async function saveShopSettings(
   if (!current) throw new NotFound("The shop's settings");
   const caution = input.dutyCautionPct ?? current.settings.dutyCautionPct;
   const danger = input.dutyDangerPct ?? current.settings.dutyDangerPct;
-  if (caution > danger)
-    throw Invalid.field(
-      input.dutyDangerPct !== undefined ? "dutyDangerPct" : "dutyCautionPct",
-      DUTY_ORDER_MESSAGE,
+  if (caution > danger) {
+    // On the field sent; both sent: the caution level (the message says why).
+    const issue = dutyOrderIssue(
+      { caution: input.dutyCautionPct !== undefined, danger: input.dutyDangerPct !== undefined },
+      caution,
+      danger,
     );
+    throw Invalid.field(issue.path, issue.message);
+  }
   const design = input.designDutyPct ?? current.settings.designDutyPct;
   const touched = (["designDutyPct", "dutyCautionPct"] as const).filter(
     (k) => input[k] !== undefined,

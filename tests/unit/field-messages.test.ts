@@ -37,8 +37,9 @@ describe("field messages say the field and the rule", () => {
     expect(goal.error?.issues.find((i) => i.path[0] === "cylinders")?.message).toBe(
       "Cylinders must be a whole number",
     );
-    const days = ShopSettingsPatchSchema.safeParse({ quoteValidDays: "0.5" });
-    expect(days.error?.issues[0]?.message).toBe("Quote validity is a whole number of days");
+    // Named as the settings form labels it ("Quotes valid for … days"); JSON numbers in the API.
+    const days = ShopSettingsPatchSchema.safeParse({ quoteValidDays: 0.5 });
+    expect(days.error?.issues[0]?.message).toBe("Quotes valid for is a whole number of days");
   });
 
   it("every spec field of every part category is named by its label", () => {

@@ -176,7 +176,10 @@ describe("settings", () => {
     const err = await saveShopSettings(as("owner"), { dutyCautionPct: 95 }).catch((e) => e);
     expect(err).toBeInstanceOf(Invalid);
     expect((err as Invalid).issues).toEqual([
-      { path: "dutyCautionPct", message: "Danger duty must not be below caution duty" },
+      {
+        path: "dutyCautionPct",
+        message: "Caution above (95 %) must not be higher than Danger above (90 %)",
+      },
     ]);
     expect(q.updateShopSettings).toHaveBeenCalledTimes(1);
   });

@@ -75,7 +75,7 @@ describe("the quote e-mail", () => {
     expect(subject).toBe("Test Shop: quote Q-0007-r2 for your fuel system");
     expect(text).toContain("Here is quote Q-0007-r2 for Turbo six, valid until 31 Jan 2099.");
     // 1.5 h × 120.00 = 180.00; + 8.25 % = 14.85 → 194.85 (by hand).
-    expect(text).toContain("1.5 × Fitting");
+    expect(text).toContain("1.5 h × Fitting");
     expect(text).toContain("$120.00 each: $180.00");
     expect(text).toContain("Subtotal $180.00");
     expect(text).toContain("Tax (8.25 %) $14.85");

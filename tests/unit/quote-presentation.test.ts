@@ -40,7 +40,8 @@ describe("one presentation of a quote", () => {
       lineTotal: "$162.00",
     });
     expect(p.lines[1]).toMatchObject({
-      quantity: "1.5",
+      // Labour in hours, with its unit (the quantity registry's "h").
+      quantity: "1.5 h",
       unitPrice: "$120.00",
       discountRate: null,
       discount: "—",

@@ -68,22 +68,43 @@ describe("the settings form's validation", () => {
         bsfcE85Na: "lots",
       });
       expect(r.success).toBe(false);
+      // No loaded levels sent: as if both were changed, the caution level is marked, saying why.
       expect(paths(r)).toEqual(
-        expect.arrayContaining(["currency", "taxRatePct", "dutyDangerPct", "bsfcE85Na"]),
+        expect.arrayContaining(["currency", "taxRatePct", "dutyCautionPct", "bsfcE85Na"]),
       );
-      expect(r.error!.issues.find((i) => i.path[0] === "dutyDangerPct")?.message).toBe(
-        DUTY_ORDER_MESSAGE,
+      expect(paths(r)).not.toContain("dutyDangerPct");
+      expect(r.error!.issues.find((i) => i.path[0] === "dutyCautionPct")?.message).toBe(
+        `Caution above (95 %) must not be higher than Danger above (85 %); both were changed, so the caution level is marked: the duty bands start from it`,
       );
+    });
+
+    it(`${system}: caution above danger is marked on the level the person changed`, () => {
+      const loaded = { loadedDutyCautionPct: "80", loadedDutyDangerPct: "90" };
+      const caution = ShopSettingsFormSchema.safeParse({
+        ...form,
+        ...loaded,
+        dutyCautionPct: "95",
+      });
+      expect(paths(caution)).toEqual(["dutyCautionPct"]);
+      expect(caution.error!.issues[0]!.message).toBe(
+        "Caution above (95 %) must not be higher than Danger above (90 %)",
+      );
+      const danger = ShopSettingsFormSchema.safeParse({ ...form, ...loaded, dutyDangerPct: "70" });
+      expect(paths(danger)).toEqual(["dutyDangerPct"]);
+      expect(danger.error!.issues[0]!.message).toBe(
+        "Danger above (70 %) must not be lower than Caution above (80 %)",
+      );
+      expect(DUTY_ORDER_MESSAGE).toBe("Caution above must not be higher than Danger above");
     });
   }
 
   it("states the bounds in the units the page showed", () => {
     // 150–1200 g/kWh = 0.2466–1.9728 lb/hp·h (608.277 g/kWh per lb/hp·h), rounded inwards.
     expect(shownSettingBounds("bsfcGasolineNa", "imperial").message).toBe(
-      "BSFC gasoline NA must be between 0.247 lb/hp/h and 1.972 lb/hp/h",
+      "Gasoline, NA (BSFC) must be between 0.247 lb/hp/h and 1.972 lb/hp/h",
     );
     expect(shownSettingBounds("bsfcGasolineNa", "metric").message).toBe(
-      "BSFC gasoline NA must be between 150 g/kWh and 1200 g/kWh",
+      "Gasoline, NA (BSFC) must be between 150 g/kWh and 1200 g/kWh",
     );
     const r = ShopSettingsFormSchema.safeParse({ ...IMPERIAL, bsfcGasolineNa: "300" });
     expect(r.error!.issues[0]!.message).toContain("lb/hp/h");

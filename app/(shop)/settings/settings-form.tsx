@@ -11,42 +11,10 @@ import { GASOLINE } from "@/lib/calc/constants";
 import { ETHANOL } from "@/lib/calc/fuel";
 import { formatNumber, unitOf } from "@/lib/calc/quantities";
 import { PAPER_SIZE_LABELS, PAPER_SIZES } from "@/lib/domain/documents";
+import { SETTING_LABELS, SETTING_SECTIONS, type SettingName } from "@/lib/domain/shop-settings";
+import { TIME_ZONES } from "@/lib/domain/time-zones";
 
 import { updateSettingsAction } from "./actions";
-
-/** Suggestions for the time-zone field (any IANA name is taken). */
-const TIME_ZONES = [
-  "UTC",
-  "America/New_York",
-  "America/Chicago",
-  "America/Denver",
-  "America/Phoenix",
-  "America/Los_Angeles",
-  "America/Anchorage",
-  "Pacific/Honolulu",
-  "America/Toronto",
-  "America/Vancouver",
-  "America/Mexico_City",
-  "America/Sao_Paulo",
-  "Europe/London",
-  "Europe/Dublin",
-  "Europe/Lisbon",
-  "Europe/Paris",
-  "Europe/Berlin",
-  "Europe/Madrid",
-  "Europe/Rome",
-  "Europe/Stockholm",
-  "Europe/Warsaw",
-  "Europe/Helsinki",
-  "Africa/Johannesburg",
-  "Asia/Dubai",
-  "Asia/Kolkata",
-  "Asia/Singapore",
-  "Asia/Tokyo",
-  "Australia/Perth",
-  "Australia/Sydney",
-  "Pacific/Auckland",
-];
 
 export function SettingsForm({
   initial,
@@ -69,10 +37,11 @@ export function SettingsForm({
   }, [state]);
   const v = { ...initial, ...state.values };
   const e = state.fieldErrors ?? {};
-  const num = (name: string, label: string, unit: string) => (
+  /** A number field, labelled from the settings' labels (lib/domain/shop-settings.ts). */
+  const num = (name: SettingName, unit: string) => (
     <Field
       key={name}
-      label={`${label} (${unit})`}
+      label={`${SETTING_LABELS[name].label} (${unit})`}
       name={name}
       inputMode="decimal"
       defaultValue={v[name]}
@@ -80,10 +49,10 @@ export function SettingsForm({
     />
   );
   /** A fuel property the library knows: its value (in the viewer's units) as the hint. */
-  const lib = (name: string, label: string, unit: string, library: string) => (
+  const lib = (name: SettingName, unit: string, library: string) => (
     <Field
       key={name}
-      label={`${label} (${unit})`}
+      label={`${SETTING_LABELS[name].label} (${unit})`}
       name={name}
       inputMode="decimal"
       defaultValue={v[name]}
@@ -99,13 +68,31 @@ export function SettingsForm({
     <form ref={formRef} action={action} noValidate className="mt-4" aria-label="Shop defaults">
       {/* The units the figures below are typed in (the page's, not the "Units" being chosen). */}
       <input type="hidden" name="shownUnits" value={units} />
+      {/* The duty levels as loaded: a refusal of their order marks the one the person changed. */}
+      <input type="hidden" name="loadedDutyCautionPct" value={initial.dutyCautionPct ?? ""} />
+      <input type="hidden" name="loadedDutyDangerPct" value={initial.dutyDangerPct ?? ""} />
       <fieldset disabled={readOnly} className="space-y-6">
         <div className="grid gap-4 sm:grid-cols-2">
-          <Field label="Shop name" name="shopName" defaultValue={v.shopName} error={e.shopName} />
-          <Field label="Phone" name="phone" defaultValue={v.phone} error={e.phone} />
-          <Field label="Address" name="address" defaultValue={v.address} error={e.address} />
+          <Field
+            label={SETTING_LABELS.shopName.label}
+            name="shopName"
+            defaultValue={v.shopName}
+            error={e.shopName}
+          />
+          <Field
+            label={SETTING_LABELS.phone.label}
+            name="phone"
+            defaultValue={v.phone}
+            error={e.phone}
+          />
+          <Field
+            label={SETTING_LABELS.address.label}
+            name="address"
+            defaultValue={v.address}
+            error={e.address}
+          />
           <SelectField
-            label="Country"
+            label={SETTING_LABELS.country.label}
             name="country"
             defaultValue={v.country}
             error={e.country}
@@ -118,19 +105,24 @@ export function SettingsForm({
             ))}
           </SelectField>
           <Field
-            label="Currency"
+            label={SETTING_LABELS.currency.label}
             name="currency"
             defaultValue={v.currency}
             error={e.currency}
             hint="Three letters, e.g. USD or EUR."
           />
-          {num("taxRatePct", "Tax rate", "%")}
-          <SelectField label="Units" name="units" defaultValue={v.units} error={e.units}>
+          {num("taxRatePct", "%")}
+          <SelectField
+            label={SETTING_LABELS.units.label}
+            name="units"
+            defaultValue={v.units}
+            error={e.units}
+          >
             <option value="imperial">Imperial (hp, psi, lb/h, gal)</option>
             <option value="metric">Metric (kW, kPa, cc/min, L)</option>
           </SelectField>
           <SelectField
-            label="Paper for PDFs"
+            label={SETTING_LABELS.paperSize.label}
             name="paperSize"
             defaultValue={v.paperSize}
             error={e.paperSize}
@@ -142,11 +134,11 @@ export function SettingsForm({
             ))}
           </SelectField>
           <Field
-            label="Time zone"
+            label={SETTING_LABELS.timeZone.label}
             name="timeZone"
             defaultValue={v.timeZone}
             error={e.timeZone}
-            hint="For dates on quotes, spec sheets and e-mails, e.g. America/Chicago or Europe/Berlin."
+            hint="For dates on quotes, spec sheets and e-mails: a place's zone from the list, e.g. America/Chicago or Europe/Berlin, or UTC."
             list="time-zones"
             autoComplete="off"
           />
@@ -157,61 +149,41 @@ export function SettingsForm({
           </datalist>
         </div>
         <fieldset className="grid gap-4 sm:grid-cols-2">
-          <legend className="mb-2 font-semibold">BSFC rules of thumb</legend>
-          {num("bsfcGasolineNa", "Gasoline, NA", bsfc)}
-          {num("bsfcGasolineBoosted", "Gasoline, boosted", bsfc)}
-          {num("bsfcE85Na", "E85, NA", bsfc)}
-          {num("bsfcE85Boosted", "E85, boosted", bsfc)}
+          <legend className="mb-2 font-semibold">{SETTING_SECTIONS.bsfc}</legend>
+          {num("bsfcGasolineNa", bsfc)}
+          {num("bsfcGasolineBoosted", bsfc)}
+          {num("bsfcE85Na", bsfc)}
+          {num("bsfcE85Boosted", bsfc)}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
-          <legend className="mb-2 font-semibold">Duty and margins</legend>
-          {num("designDutyPct", "Design duty", "%")}
-          {num("dutyCautionPct", "Caution above", "%")}
-          {num("dutyDangerPct", "Danger above", "%")}
-          {num("minPumpMarginPct", "Minimum pump margin", "%")}
-          {num("maxLineDropKpa", "Line drop limit", unitOf("pressureDrop", units))}
+          <legend className="mb-2 font-semibold">{SETTING_SECTIONS.duty}</legend>
+          {num("designDutyPct", "%")}
+          {num("dutyCautionPct", "%")}
+          {num("dutyDangerPct", "%")}
+          {num("minPumpMarginPct", "%")}
+          {num("maxLineDropKpa", unitOf("pressureDrop", units))}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
-          <legend className="mb-2 font-semibold">Drivetrain loss</legend>
-          {num("lossManualPct", "Manual", "%")}
-          {num("lossAutomaticPct", "Automatic", "%")}
-          {num("lossAwdPct", "AWD", "%")}
+          <legend className="mb-2 font-semibold">{SETTING_SECTIONS.loss}</legend>
+          {num("lossManualPct", "%")}
+          {num("lossAutomaticPct", "%")}
+          {num("lossAwdPct", "%")}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-2">
-          <legend className="mb-2 font-semibold">Fuel properties</legend>
+          <legend className="mb-2 font-semibold">{SETTING_SECTIONS.fuel}</legend>
           <p className="text-sm text-ink-600 sm:col-span-2">
             Blank: the calculation library&apos;s value. A build may state its own.
           </p>
-          {lib(
-            "gasolineDensityKgPerL",
-            "Gasoline density",
-            density,
-            libDensity(GASOLINE.densityKgPerL),
-          )}
-          {lib(
-            "gasolineStoichAfr",
-            "Gasoline stoichiometric AFR",
-            "AFR",
-            GASOLINE.stoichAfr.toFixed(2),
-          )}
-          {lib(
-            "ethanolDensityKgPerL",
-            "Ethanol density",
-            density,
-            libDensity(ETHANOL.densityKgPerL),
-          )}
-          {lib(
-            "ethanolStoichAfr",
-            "Ethanol stoichiometric AFR",
-            "AFR",
-            ETHANOL.stoichAfr.toFixed(2),
-          )}
+          {lib("gasolineDensityKgPerL", density, libDensity(GASOLINE.densityKgPerL))}
+          {lib("gasolineStoichAfr", "AFR", GASOLINE.stoichAfr.toFixed(2))}
+          {lib("ethanolDensityKgPerL", density, libDensity(ETHANOL.densityKgPerL))}
+          {lib("ethanolStoichAfr", "AFR", ETHANOL.stoichAfr.toFixed(2))}
         </fieldset>
         <fieldset className="grid gap-4 sm:grid-cols-3">
-          <legend className="mb-2 font-semibold">Quotes</legend>
-          {num("labourRate", "Labour rate", `${v.currency || "money"} per hour`)}
-          {num("depositPct", "Deposit asked on acceptance", "%")}
-          {num("quoteValidDays", "Quotes valid for", "days")}
+          <legend className="mb-2 font-semibold">{SETTING_SECTIONS.quotes}</legend>
+          {num("labourRate", `${v.currency || "money"} per hour`)}
+          {num("depositPct", "%")}
+          {num("quoteValidDays", "days")}
         </fieldset>
         {!readOnly ? (
           <div className="flex items-center gap-4">

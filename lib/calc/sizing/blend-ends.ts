@@ -75,7 +75,9 @@ function bsfcAtEnd(
     formula:
       "gasoline and E85 rules of thumb, linear in ethanol %, × reference lambda ÷ target lambda",
     inputs: [
-      { label: "at reference lambda", value: est.atReferenceGPerKwh, quantity: "bsfc" },
+      // The rule of thumb's BSFC (taken at the reference lambda, named next): a label that ends
+      // in a word of its own, so the figure never reads as the lambda's ("… lambda 0.800 lb/hp/h").
+      { label: "rule-of-thumb BSFC", value: est.atReferenceGPerKwh, quantity: "bsfc" },
       { label: "reference lambda", value: est.referenceLambda, quantity: "lambda" },
       {
         label: "target lambda",
