@@ -142,8 +142,10 @@ describe("the settings page in the viewer's units", () => {
       // Out of bounds: said in the viewer's units (150–1200 g/kWh = 0.247–1.972 lb/hp/h).
       await bsfc.fill(imp ? "2.5" : "2000");
       await page.getByRole("button", { name: "Save settings" }).click();
-      await expect.poll(() => page.getByText(/BSFC gasoline NA must be between/).count()).toBe(1);
-      expect(await page.getByText(/BSFC gasoline NA must be between/).innerText()).toContain(
+      await expect
+        .poll(() => page.getByText(/Gasoline, NA \(BSFC\) must be between/).count())
+        .toBe(1);
+      expect(await page.getByText(/Gasoline, NA \(BSFC\) must be between/).innerText()).toContain(
         imp ? "between 0.247 lb/hp/h and 1.972 lb/hp/h" : "between 150 g/kWh and 1200 g/kWh",
       );
       // The refused field has the focus, as in the build editor.

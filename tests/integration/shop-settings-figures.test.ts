@@ -319,7 +319,7 @@ describe("shop settings reach every figure", () => {
     );
     expect(doc.flat).toContain(`Valid until ${formatCalendarDate(quote.validUntil)}`);
     // Labour at the shop's rate, tax and deposit at its percentages (formatMoney: en-US, EUR).
-    expect(doc.flat).toMatch(/Fuel system fitting and setup 2 €95\.50/);
+    expect(doc.flat).toMatch(/Fuel system fitting and setup 2 h €95\.50/);
     expect(doc.flat).toContain("Tax (19 %)");
     expect(doc.flat).toContain("A deposit of 35 %");
 
@@ -421,7 +421,7 @@ describe("shop settings reach every figure", () => {
       const above = await request(owner, "PATCH", "/api/v1/shop/settings", body);
       expect(above.status, JSON.stringify(body)).toBe(422);
       expect(above.json.error.issues.map((i: { path: string }) => i.path)).toEqual([path]);
-      expect(above.json.error.message).toMatch(/Design duty must not be above caution duty/);
+      expect(above.json.error.message).toMatch(/Design duty must not be higher than Caution above/);
     }
     const zone = await request(owner, "PATCH", "/api/v1/shop/settings", {
       timeZone: "europe/berlin",
