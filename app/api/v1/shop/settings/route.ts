@@ -12,8 +12,9 @@ export const GET = handle(async () => {
 
 /**
  * PATCH — change any of the settings (owner): `{ designDutyPct: 75, bsfcE85Boosted: 520 }`;
- * those not sent keep their value, a blank or null fuel property goes back to the library's.
- * Validated like the form → `{ settings }` as they are now.
+ * those not sent keep their value, a null fuel property goes back to the library's. Numbers are
+ * JSON numbers ("72" is a 422 on its field); otherwise validated like the form → `{ settings }`
+ * as they are now.
  */
 export const PATCH = handle(async (req) => {
   const m = await requireMember("settings:update");
