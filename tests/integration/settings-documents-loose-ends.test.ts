@@ -175,7 +175,8 @@ describe("documents", () => {
     expect(saved.status, JSON.stringify(saved.json)).toBe(200);
     // 1.5 h × 120.00 = 180.00 (by hand).
     const pdf = await pdfText(`/api/v1/quotes/${q.id}/pdf`);
-    expect(pdf).toMatch(/Fuel system fitting 1\.5 h /);
+    // pdftotext's layout may close the narrow gap before the unit ("1.5h"); drawn, it is "1.5 h".
+    expect(pdf).toMatch(/Fuel system fitting 1\.5 ?h /);
   });
 
   it("the BSFC working step names the BSFC, not the lambda, in both unit systems", async () => {
