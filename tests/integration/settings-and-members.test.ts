@@ -120,9 +120,11 @@ describe("shop settings", () => {
       dutyDangerPct: "85",
     });
     expect(s).toMatchObject({ ok: false, status: 422 });
+    // Both levels changed (no loaded levels sent): the caution level is marked, saying why.
     expect(Object.keys(s.fieldErrors ?? {})).toEqual(
-      expect.arrayContaining(["currency", "dutyDangerPct"]),
+      expect.arrayContaining(["currency", "dutyCautionPct"]),
     );
+    expect(String(s.fieldErrors?.dutyCautionPct)).toMatch(/both were changed/);
     expect((s as { values?: Record<string, string> }).values?.currency).toBe("dollars");
   });
 });
