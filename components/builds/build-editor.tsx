@@ -19,6 +19,7 @@ import { useForm, useWatch, type Control, type UseFormRegister } from "react-hoo
 
 import { ChartPlaceholder, WhenVisible } from "@/components/charts/when-visible";
 import { Button } from "@/components/ui/button";
+import { ConflictTable } from "@/components/ui/conflict-table";
 import { SelectField } from "@/components/ui/field";
 import { useLeaveGuard } from "@/components/ui/leave-guard";
 import { LocalTime } from "@/components/ui/local-time";
@@ -1130,27 +1131,15 @@ function ConflictChanges({
   units: UnitSystem;
 }) {
   const inputs = useLive(store, (s) => s.inputs);
-  const changes = diffInputs(inputs, theirs, units);
-  if (changes.length === 0) return null;
   return (
-    <table className="mt-2 w-full text-left text-ink-800">
-      <thead>
-        <tr>
-          <th scope="col">Field</th>
-          <th scope="col">Yours</th>
-          <th scope="col">Theirs (saved)</th>
-        </tr>
-      </thead>
-      <tbody>
-        {changes.map((c) => (
-          <tr key={c.path}>
-            <td>{c.label}</td>
-            <td className="figure">{c.before}</td>
-            <td className="figure">{c.after}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <ConflictTable
+      rows={diffInputs(inputs, theirs, units).map((c) => ({
+        key: c.path,
+        label: c.label,
+        yours: c.before,
+        theirs: c.after,
+      }))}
+    />
   );
 }
 

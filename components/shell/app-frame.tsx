@@ -39,7 +39,9 @@ export function AppFrame({
               aria-label="Main"
               className="order-last w-full min-w-0 sm:order-3 lg:order-none lg:w-auto lg:flex-1"
             >
-              <NavLinks items={navFor(member.role).map(({ href, label }) => ({ href, label }))} />
+              <NavLinks
+                items={navFor(member.role).map(({ href, label, also }) => ({ href, label, also }))}
+              />
             </nav>
             <div className="ml-auto flex items-center gap-3 text-sm">
               <span className="hidden text-ink-200 lg:inline" data-testid="who">

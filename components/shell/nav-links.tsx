@@ -4,24 +4,26 @@ import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 
+import { inSection, type NavItem } from "./nav-items";
+
 /** More links than this and a phone gets the "Menu" button instead of the links themselves. */
 const INLINE_ON_PHONE = 2;
 
 /**
  * The main nav's links, every one of them reachable at every width (none hidden off the end):
- * - below 640 px: a "Menu" button naming the section you are in; it opens a panel with every
+ * - below 640 px: a "Menu" button naming the section you are in (a page's own section, or the
+ *   one that claims it, as Jobs claims an invoice: `inSection`); it opens a panel with every
  *   link in two columns (Escape or choosing a link closes it);
  * - from 640 px: the links themselves, wrapping onto a second line when they do not fit.
  * A nav with few links (the customer's) shows them at every width.
  */
-export function NavLinks({ items }: { items: { href: string; label: string }[] }) {
+export function NavLinks({ items }: { items: Pick<NavItem, "href" | "label" | "also">[] }) {
   const path = usePathname();
   // Open on the page it was opened on: a link chosen (or Back) closes it.
   const [openOn, setOpenOn] = useState<string | null>(null);
   const open = openOn === path;
   const button = useRef<HTMLButtonElement>(null);
-  const isActive = (href: string) => path === href || path.startsWith(`${href}/`);
-  const current = items.find((i) => isActive(i.href));
+  const current = items.find((i) => inSection(i, path));
   const menu = items.length > INLINE_ON_PHONE;
 
   useEffect(() => {
@@ -57,7 +59,7 @@ export function NavLinks({ items }: { items: { href: string; label: string }[] }
       ) : null}
       <ul id="main-nav-links" className={list}>
         {items.map((i) => {
-          const active = isActive(i.href);
+          const active = i === current;
           return (
             <li key={i.href} className="shrink-0">
               <Link

@@ -96,6 +96,37 @@ export async function jobOfQuote(shopId: string, quoteId: string) {
   return j ?? null;
 }
 
+/**
+ * The job of a quote once it is fitted — its number, when, its lines as fitted and its invoice
+ * (if raised) — or null while the quote's parts are not yet issued (no job, or one not fitted).
+ */
+export async function fittedJobOfQuote(shopId: string, quoteId: string) {
+  const [row] = await db
+    .select({
+      id: jobs.id,
+      number: jobs.number,
+      fittedAt: jobs.fittedAt,
+      invoiceId: invoices.id,
+      invoiceNumber: invoices.number,
+      invoiceStatus: invoices.status,
+    })
+    .from(jobs)
+    .leftJoin(invoices, eq(invoices.jobId, jobs.id))
+    .where(and(eq(jobs.shopId, shopId), eq(jobs.quoteId, quoteId), eq(jobs.status, "fitted")))
+    .limit(1);
+  if (!row) return null;
+  const lines = await db
+    .select({
+      description: jobLines.description,
+      quantity: jobLines.quantity,
+      fittedQty: jobLines.fittedQty,
+    })
+    .from(jobLines)
+    .where(and(eq(jobLines.shopId, shopId), eq(jobLines.jobId, row.id)))
+    .orderBy(asc(jobLines.position));
+  return { ...row, lines };
+}
+
 /** Moves a build one step (quoted → ordered, ordered → fitted) inside the caller's transaction. */
 async function stepBuild(
   tx: Tx,

@@ -2,7 +2,16 @@ import { and, asc, desc, eq, gt, sql } from "drizzle-orm";
 import { PgDialect } from "drizzle-orm/pg-core";
 
 import { db } from "@/db";
-import { invitation, member, organization, session, shopSettings, user } from "@/db/schema";
+import {
+  invitation,
+  member,
+  organization,
+  session,
+  SHOP_SIZING_COLUMNS,
+  shopSettings,
+  user,
+  type ShopSizingColumns,
+} from "@/db/schema";
 import { Conflict, NotFound } from "@/lib/domain/errors";
 
 /**
@@ -175,26 +184,6 @@ export async function removeMember(shopId: string, memberId: string): Promise<vo
   });
 }
 
-/** The shop settings columns the sizing reads (lib/sizing/effective-inputs.ts#ShopSizingColumns). */
-export interface SessionShopSizing {
-  designDutyPct: number;
-  dutyCautionPct: number;
-  dutyDangerPct: number;
-  minPumpMarginPct: number;
-  maxLineDropKpa: number;
-  bsfcGasolineNa: number;
-  bsfcGasolineBoosted: number;
-  bsfcE85Na: number;
-  bsfcE85Boosted: number;
-  lossManualPct: number;
-  lossAutomaticPct: number;
-  lossAwdPct: number;
-  gasolineDensityKgPerL: number | null;
-  gasolineStoichAfr: number | null;
-  ethanolDensityKgPerL: number | null;
-  ethanolStoichAfr: number | null;
-}
-
 /** A session found by its token, with its person and the membership it acts with (if any). */
 export interface SessionMemberRow {
   expiresAt: Date;
@@ -208,7 +197,7 @@ export interface SessionMemberRow {
    * The sizing columns of that shop's settings row, read in the same round trip (so the sizing
    * route needs no second one); null when the shop has no settings row or there is no shop.
    */
-  shopSizing: SessionShopSizing | null;
+  shopSizing: ShopSizingColumns | null;
 }
 
 interface SessionMemberSqlRow {
@@ -220,7 +209,7 @@ interface SessionMemberSqlRow {
   shop_id: string | null;
   shop_name: string | null;
   /** json_build_object of the sizing columns (a string if the driver leaves json unparsed), or null. */
-  shop_sizing: SessionShopSizing | string | null;
+  shop_sizing: ShopSizingColumns | string | null;
 }
 
 /**
@@ -229,22 +218,14 @@ interface SessionMemberSqlRow {
  * every request — this query runs before every signed-in request's own work.
  */
 let sessionMemberSql: string | undefined;
+/** `'designDutyPct', ss.design_duty_pct, …`: every column of SHOP_SIZING_COLUMNS, by its key. */
+const sizingPairs = () =>
+  sql.raw(SHOP_SIZING_COLUMNS.map((k) => `'${k}', ss.${shopSettings[k].name}`).join(", "));
 function sessionMemberText(): string {
   sessionMemberSql ??= new PgDialect().sqlToQuery(sql`
     select s.expires_at, u.id as user_id, u.name as user_name, u.email as user_email,
            m.role, m.shop_id, m.shop_name,
-           case when ss.shop_id is null then null else json_build_object(
-             'designDutyPct', ss.design_duty_pct, 'dutyCautionPct', ss.duty_caution_pct,
-             'dutyDangerPct', ss.duty_danger_pct, 'minPumpMarginPct', ss.min_pump_margin_pct,
-             'maxLineDropKpa', ss.max_line_drop_kpa,
-             'bsfcGasolineNa', ss.bsfc_gasoline_na, 'bsfcGasolineBoosted', ss.bsfc_gasoline_boosted,
-             'bsfcE85Na', ss.bsfc_e85_na, 'bsfcE85Boosted', ss.bsfc_e85_boosted,
-             'lossManualPct', ss.loss_manual_pct, 'lossAutomaticPct', ss.loss_automatic_pct,
-             'lossAwdPct', ss.loss_awd_pct,
-             'gasolineDensityKgPerL', ss.gasoline_density_kg_per_l,
-             'gasolineStoichAfr', ss.gasoline_stoich_afr,
-             'ethanolDensityKgPerL', ss.ethanol_density_kg_per_l,
-             'ethanolStoichAfr', ss.ethanol_stoich_afr) end as shop_sizing
+           case when ss.shop_id is null then null else json_build_object(${sizingPairs()}) end as shop_sizing
     from ${session} s
     join ${user} u on u.id = s.user_id
     left join lateral (
@@ -284,7 +265,7 @@ export async function sessionMemberByToken(token: string): Promise<SessionMember
     shopName: r.shop_name,
     shopSizing:
       typeof r.shop_sizing === "string"
-        ? (JSON.parse(r.shop_sizing) as SessionShopSizing)
+        ? (JSON.parse(r.shop_sizing) as ShopSizingColumns)
         : r.shop_sizing,
   };
 }

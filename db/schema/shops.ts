@@ -140,6 +140,31 @@ export const vehicleRelations = relations(vehicles, ({ one }) => ({
 }));
 
 export type ShopSettings = typeof shopSettings.$inferSelect;
+
+/**
+ * The settings columns the sizing reads (`lib/sizing/fill-inputs.ts#sizingSettingsOf`), named
+ * once: the session look-up reads exactly these (db/queries/members.ts), and their type is the
+ * row's own. A new sizing column goes here and reaches both.
+ */
+export const SHOP_SIZING_COLUMNS = [
+  "designDutyPct",
+  "dutyCautionPct",
+  "dutyDangerPct",
+  "minPumpMarginPct",
+  "maxLineDropKpa",
+  "bsfcGasolineNa",
+  "bsfcGasolineBoosted",
+  "bsfcE85Na",
+  "bsfcE85Boosted",
+  "lossManualPct",
+  "lossAutomaticPct",
+  "lossAwdPct",
+  "gasolineDensityKgPerL",
+  "gasolineStoichAfr",
+  "ethanolDensityKgPerL",
+  "ethanolStoichAfr",
+] as const satisfies readonly (keyof ShopSettings)[];
+export type ShopSizingColumns = Pick<ShopSettings, (typeof SHOP_SIZING_COLUMNS)[number]>;
 export type Customer = typeof customers.$inferSelect;
 export type Vehicle = typeof vehicles.$inferSelect;
 

@@ -4,11 +4,8 @@ import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
 
-import {
-  sessionMemberByToken,
-  sessionMembership,
-  type SessionShopSizing,
-} from "@/db/queries/members";
+import { sessionMemberByToken, sessionMembership } from "@/db/queries/members";
+import type { ShopSizingColumns } from "@/db/schema";
 import { auth } from "@/lib/auth/server";
 import { Forbidden, Unauthorized } from "@/lib/domain/errors";
 import { isRole, type Role } from "@/lib/domain/roles";
@@ -36,7 +33,7 @@ export interface Member {
  */
 interface SessionLookup {
   member: Member | null;
-  shopSizing?: SessionShopSizing | null;
+  shopSizing?: ShopSizingColumns | null;
 }
 
 const sessionLookup = cache(async (): Promise<SessionLookup> => {

@@ -212,3 +212,24 @@ export function invoiceBalance(v: {
 export function taxInside(amountMinor: number, rateBp: number): number {
   return amountMinor - mulDivRound(amountMinor, 10_000, 10_000 + rateBp);
 }
+
+/**
+ * What a fitted job did with its quote's parts, in one sentence for the quote's pages (which
+ * then say no more about stock: the parts were issued). Lines in the job's order; a quoted part
+ * fitted in no unit is named as not fitted.
+ *
+ * @example fittedSummary([{ description: "Pump A", quantity: 1, fittedQty: 1 }]) // "Fitted: 1 × Pump A."
+ */
+export function fittedSummary(
+  lines: { description: string; quantity: number; fittedQty: number | null }[],
+): string {
+  const fitted = lines.filter((l) => (l.fittedQty ?? 0) > 0);
+  const left = lines.filter((l) => l.quantity > 0 && (l.fittedQty ?? 0) === 0);
+  const said = [
+    fitted.length
+      ? `Fitted: ${fitted.map((l) => `${l.fittedQty} × ${l.description}`).join(", ")}.`
+      : "No parts were fitted.",
+  ];
+  if (left.length) said.push(`Quoted, not fitted: ${left.map((l) => l.description).join(", ")}.`);
+  return said.join(" ");
+}

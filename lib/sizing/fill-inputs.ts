@@ -1,3 +1,4 @@
+import type { ShopSizingColumns } from "@/db/schema/shops";
 import type { DRIVE_TYPES } from "@/lib/calc/input-codes";
 import { DEFAULT_BSFC } from "@/lib/calc/power";
 import type { FuelSystemInput } from "@/lib/calc/schema";
@@ -63,25 +64,11 @@ export const LIBRARY_SIZING_SETTINGS: SizingSettings = {
   fuel: { gasoline: {}, ethanol: {} },
 };
 
-/** The shop settings columns the sizing reads (db/schema/shops.ts#shopSettings). */
-export interface ShopSizingColumns {
-  designDutyPct: number;
-  dutyCautionPct: number;
-  dutyDangerPct: number;
-  minPumpMarginPct: number;
-  maxLineDropKpa: number;
-  bsfcGasolineNa: number;
-  bsfcGasolineBoosted: number;
-  bsfcE85Na: number;
-  bsfcE85Boosted: number;
-  lossManualPct: number;
-  lossAutomaticPct: number;
-  lossAwdPct: number;
-  gasolineDensityKgPerL: number | null;
-  gasolineStoichAfr: number | null;
-  ethanolDensityKgPerL: number | null;
-  ethanolStoichAfr: number | null;
-}
+/**
+ * The shop settings columns the sizing reads: the settings row's own type, picked by
+ * `db/schema/shops.ts#SHOP_SIZING_COLUMNS` (a type only: nothing of the schema reaches a page).
+ */
+export type { ShopSizingColumns };
 
 const given = <T extends Record<string, number | null | undefined>>(o: T) =>
   Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null && v !== undefined)) as {

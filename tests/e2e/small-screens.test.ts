@@ -252,6 +252,32 @@ describe("the main nav on a phone and a tablet", () => {
   });
 });
 
+describe("the Menu button names the section of every staff page", () => {
+  it("on a phone, every staff page's Menu button says its section (an invoice's: Jobs)", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "owner");
+    const items = navFor("owner");
+    // Pages with no list of their own, and the section a person looks for them in.
+    const claimed: Record<string, string> = { "/invoices": "Jobs" };
+    const wrong: string[] = [];
+    for (const route of routesOf(["shop"])) {
+      const url = shopUrls.get(route);
+      if (!url) continue; // "finds a URL for every staff page" reports it
+      await page.goto(url);
+      const top = `/${route.split("/")[1]}`;
+      const want = items.find((i) => i.href === top)?.label ?? claimed[top];
+      const menu = page.getByTestId("nav-menu");
+      await menu.waitFor();
+      const text = (await menu.innerText()).replace(/\s+/g, " ").trim();
+      const named = /Menu ?· ?(.+)$/.exec(text)?.[1];
+      if (!want || named !== want) wrong.push(`${url}: “${text}”, wants ${want ?? "a section"}`);
+    }
+    expect(wrong).toEqual([]);
+    await ctx.close();
+  }, 600_000);
+});
+
 describe("key columns stay on a phone's screen", () => {
   /** The element's box lies within the screen's width, and it is not cut off by a scroller. */
   const onScreen = async (page: Page, testId: string) => {

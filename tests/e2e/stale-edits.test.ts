@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { launchBrowser, newClient, signInAs } from "../helpers/browser";
 import { sql } from "../helpers/db";
+import { request, signIn } from "../helpers/http";
 
 /**
  * Two tabs on the same record: the second save does not silently overwrite the first. It is
@@ -50,6 +51,10 @@ describe("stale edit forms", () => {
     expect(await conflict.getByRole("row", { name: /Phone/ }).innerText()).toContain(
       "+12015550101",
     );
+    // The one conflict table (components/ui/conflict-table.tsx), as the build sheet's below.
+    expect(
+      await conflict.getByTestId("conflict-table").getByRole("columnheader").allInnerTexts(),
+    ).toEqual(["Field", "Yours", "Theirs (saved)"]);
     expect(await formTwo.getByLabel("Notes").inputValue()).toBe("Typed in the second tab");
     const [kept] = await sql`select phone, notes, version from customers where id = ${c!.id}`;
     expect(kept).toEqual({ phone: "+12015550101", notes: null, version: 2 });
@@ -94,4 +99,44 @@ describe("stale edit forms", () => {
     expect(mine).toEqual({ name: "Two tab fitting", stock: 9, version: 3 });
     await ctx.close();
   });
+
+  it("build sheet: the second tab's conflict is the same table, yours beside theirs as typed", async () => {
+    const tuner = await signIn("tuner@demo.fuelwright.test");
+    const made = await request(tuner, "POST", "/api/v1/builds", {
+      customerId: "00000000-0000-4000-8000-000000000001", // a demo customer (db/seed.ts)
+      title: `${tag} two tab build`,
+    });
+    expect(made.status, JSON.stringify(made.json)).toBe(201);
+    const url = `/builds/${made.json.build.id}`;
+    const ctx = await newClient(browser);
+    const one = await ctx.newPage();
+    await signInAs(one, "tuner");
+    const two = await ctx.newPage();
+    for (const p of [one, two]) {
+      await p.goto(url);
+      await expect
+        .poll(() => p.getByLabel("Injectors (count)").inputValue(), { timeout: 30_000 })
+        .not.toBe("");
+    }
+    await one.getByLabel("Drivetrain loss (%)").fill("12");
+    await one.getByRole("button", { name: "Save build" }).click();
+    await expect.poll(() => one.getByText("Saved as version 2").count()).toBe(1);
+
+    await two.getByLabel("Injectors (count)").fill("8");
+    await two.getByRole("button", { name: "Save build" }).click();
+    const table = two.getByTestId("conflict").getByTestId("conflict-table");
+    await expect.poll(() => table.count()).toBe(1);
+    expect(await table.getByRole("columnheader").allInnerTexts()).toEqual([
+      "Field",
+      "Yours",
+      "Theirs (saved)",
+    ]);
+    // Left blank in this tab (the shop's), 12 % in theirs; the empty side reads "—".
+    expect(await table.getByRole("row", { name: /Drivetrain loss/ }).innerText()).toMatch(
+      /Drivetrain loss\s+—\s+12 %/,
+    );
+    expect(await two.getByLabel("Injectors (count)").inputValue()).toBe("8");
+    await two.screenshot({ path: `${shots}/build-stale-edit.png`, fullPage: true });
+    await ctx.close();
+  }, 300_000);
 });

@@ -4,7 +4,8 @@ import { calendarDay, formatCalendarDate } from "@/lib/format/dates";
 import { sweepExpiredQuotes } from "@/lib/quotes/quote-commands";
 
 import { sql } from "../helpers/db";
-import { request, signIn, type Client } from "../helpers/http";
+import { getBytes, request, signIn, type Client } from "../helpers/http";
+import { inspectPdf } from "../helpers/pdf";
 
 /**
  * Stock promised once (issue 19): accepting holds only free stock, per line; what cannot be held
@@ -178,6 +179,95 @@ describe("two quotes, one free unit", () => {
       `1 of 2 held; the other expected by ${expectedDay(5)}`,
     );
   });
+});
+
+describe("after the parts are fitted", () => {
+  it("the quote's pages say what was fitted and its job and invoice, never a stock promise; the API answers no stock; the PDF promises none", async () => {
+    const part = await pumpPart(1, 10);
+    const quoteId = await sentQuote(part);
+    expect((await accept(quoteId)).status).toBe(200);
+    expect(await heldOf(quoteId)).toEqual([1]);
+    // The deposit, paid through the fake checkout (its webhook confirms it).
+    const start = await request(customer, "POST", `/api/v1/quotes/${quoteId}/deposit`);
+    expect(start.status).toBe(200);
+    const session = new URL(start.json.url).pathname.split("/").pop()!;
+    const fake = process.env.PAYMENTS_FAKE_URL ?? "http://127.0.0.1:12121";
+    expect(
+      (await fetch(`${fake}/__fake/sessions/${session}/complete`, { method: "POST" })).status,
+    ).toBe(200);
+    const opened = await request(counter, "POST", "/api/v1/jobs", { quoteId });
+    expect(opened.status, JSON.stringify(opened.json)).toBe(201);
+    const job = opened.json.job as { id: string; number: number; version: number };
+    // While the job holds the pump, the quote still says it is held.
+    expect(await pageText(customer, `/my/quotes/${quoteId}`)).toContain("Parts held");
+
+    const fit = await request(tuner, "POST", `/api/v1/jobs/${job.id}/fit`, {
+      version: job.version,
+      parts: [{ partId: part.id, quantity: 1 }],
+      labourMilli: 1000,
+    });
+    expect(fit.status, JSON.stringify(fit.json)).toBe(200);
+    expect(await partRow(part.id)).toEqual({ stock: 0, reserved: 0 });
+    expect(await heldOf(quoteId)).toEqual([0]);
+
+    const jobLabel = `J-${String(job.number).padStart(4, "0")}`;
+    const fittedText = `Fitted: 1 × Testbrand ${part.name}.`;
+    const noPromise = (text: string) => {
+      for (const phrase of [
+        "in stock",
+        "back-ordered",
+        "Parts held",
+        "none held",
+        "Parts if",
+        "expected by",
+      ])
+        expect(text, phrase).not.toContain(phrase);
+    };
+    // The customer: what was fitted and their job, nothing about stock.
+    const portal = await pageText(customer, `/my/quotes/${quoteId}`);
+    noPromise(portal);
+    expect(portal).toContain("Parts fitted");
+    expect(portal).toContain(fittedText);
+    expect(portal).toContain(`Job ${jobLabel}`);
+    // The counter: the same.
+    const desk = await pageText(counter, `/quotes/${quoteId}`);
+    noPromise(desk);
+    expect(desk).toContain(fittedText);
+    // The API: no stock promise, what was fitted instead.
+    const api = await request(customer, "GET", `/api/v1/quotes/${quoteId}`);
+    expect(api.json.stock).toBeNull();
+    expect(api.json.fitted).toMatchObject({
+      jobNumber: job.number,
+      summary: fittedText,
+      invoice: null,
+    });
+
+    // Invoiced: the counter sees the draft; the customer only once it is issued.
+    const inv = await request(counter, "POST", "/api/v1/invoices", { jobId: job.id });
+    expect(inv.status, JSON.stringify(inv.json)).toBe(201);
+    expect(await pageText(counter, `/quotes/${quoteId}`)).toMatch(/Draft invoice \( ?draft ?\)/);
+    const beforeIssue = await pageText(customer, `/my/quotes/${quoteId}`);
+    expect(beforeIssue).not.toContain("Draft invoice");
+    expect(beforeIssue).not.toContain("INV-");
+    expect(
+      (await request(customer, "GET", `/api/v1/quotes/${quoteId}`)).json.fitted.invoice,
+    ).toBeNull();
+    const issued = await request(counter, "POST", `/api/v1/invoices/${inv.json.invoice.id}/issue`, {
+      version: inv.json.invoice.version,
+    });
+    expect(issued.status, JSON.stringify(issued.json)).toBe(200);
+    const invLabel = `INV-${String(issued.json.invoice.number).padStart(4, "0")}`;
+    const after = await pageText(customer, `/my/quotes/${quoteId}`);
+    noPromise(after);
+    expect(after).toMatch(new RegExp(`Invoice ${invLabel} \\( ?issued ?\\)`));
+
+    // The quote's PDF (as the customer downloads it) makes no stock promise either.
+    const pdf = await getBytes(customer, `/api/v1/quotes/${quoteId}/pdf`);
+    expect(pdf.status).toBe(200);
+    const text = inspectPdf(pdf.bytes).text.replace(/\s+/g, " ");
+    expect(text).toContain(`Testbrand ${part.name}`);
+    noPromise(text);
+  }, 600_000); // a dev server compiles the job, invoice and PDF routes on first use
 });
 
 describe("releasing exactly what was held", () => {

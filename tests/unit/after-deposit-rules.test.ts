@@ -4,6 +4,7 @@ import {
   billedMilli,
   fitPlan,
   fitShortages,
+  fittedSummary,
   invoiceBalance,
   invoiceLinesFromJob,
   invoiceTotals,
@@ -271,5 +272,21 @@ describe("invoices", () => {
       invoiceLabel(null),
       creditNoteLabel(1),
     ]).toEqual(["PO-0003", "J-0012", "INV-0007", "Draft invoice", "CN-0001"]);
+  });
+});
+
+describe("fittedSummary: what a fitted job's quote says instead of a stock promise", () => {
+  // Invented lines; the sentences are the product's own wording (common practice, no source).
+  it("names the units fitted, and a quoted part not fitted", () => {
+    expect(
+      fittedSummary([
+        { description: "Pump A", quantity: 1, fittedQty: 1 },
+        { description: "Filter B", quantity: 2, fittedQty: 0 },
+        { description: "Pump C", quantity: 0, fittedQty: 1 },
+      ]),
+    ).toBe("Fitted: 1 × Pump A, 1 × Pump C. Quoted, not fitted: Filter B.");
+    expect(fittedSummary([{ description: "Hose", quantity: 3, fittedQty: 0 }])).toBe(
+      "No parts were fitted. Quoted, not fitted: Hose.",
+    );
   });
 });

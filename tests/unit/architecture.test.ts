@@ -149,3 +149,10 @@ describe("layers", () => {
     expect(seen.has("service.ts")).toBe(false);
   });
 });
+
+describe("one component per shared piece of screen", () => {
+  it("the stale save's Field / Yours / Theirs (saved) table is written once (components/ui/conflict-table.tsx)", () => {
+    const writers = SOURCES.filter((f) => /\.tsx$/.test(f) && read(f).includes("Theirs (saved)"));
+    expect(writers).toEqual(["components/ui/conflict-table.tsx"]);
+  });
+});

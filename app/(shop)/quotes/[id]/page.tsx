@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
+import { PartsFitted } from "@/components/quotes/parts-fitted";
 import { QuoteEditor } from "@/components/quotes/quote-editor";
 import { RevisionChanges } from "@/components/quotes/revision-changes";
 import { StockPromise } from "@/components/quotes/stock-promise";
@@ -18,7 +19,7 @@ import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 import { editedLine } from "@/lib/quotes/line-rows";
 import { diffQuotes } from "@/lib/quotes/quote-diff";
-import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { quoteParts } from "@/lib/quotes/quote-stock";
 import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "Quote" };
@@ -38,10 +39,10 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const qt = q.quote;
   const today = await shopToday(m.shopId);
   const shown = quoteStatusOn(qt, today);
-  const [payments, latest, stock, seen, settings] = await Promise.all([
+  const [payments, latest, { stock, fitted }, seen, settings] = await Promise.all([
     listPayments(m.shopId, qt.id),
     qt.status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
-    STOCK_SHOWN.includes(shown) ? quoteStock(m.shopId, qt.status, q.lines) : null,
+    quoteParts(m.shopId, qt, shown, q.lines),
     // A later revision: the one before it is what the customer was sent.
     qt.revision > 1 ? getRevisionLines(m.shopId, qt.number, qt.revision - 1) : null,
     getShopSettings(m.shopId),
@@ -121,6 +122,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
         customerEmail={q.customerEmail}
       />
       {stock ? <StockPromise lines={q.lines} {...stock} audience="counter" /> : null}
+      {fitted ? <PartsFitted fitted={fitted} audience="counter" /> : null}
       <section
         aria-labelledby="q-pay"
         className="mt-6 rounded-lg border border-ink-200 bg-white p-5"

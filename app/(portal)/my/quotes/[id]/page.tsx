@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 
 import { DepositButton } from "@/components/portal/deposit-button";
 import { QuoteDecision } from "@/components/portal/quote-decision";
+import { PartsFitted } from "@/components/quotes/parts-fitted";
 import { QuoteLinesTable } from "@/components/quotes/quote-lines-table";
 import { StockPromise } from "@/components/quotes/stock-promise";
 import { LocalTime } from "@/components/ui/local-time";
@@ -18,7 +19,7 @@ import { formatCalendarDate } from "@/lib/format/dates";
 import { idOrNotFound } from "@/lib/ids";
 import { depositOf } from "@/lib/payments/deposit";
 import { formatRateBp, presentQuote } from "@/lib/quotes/quote-presentation";
-import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { quoteParts } from "@/lib/quotes/quote-stock";
 import { shopToday } from "@/lib/shop/shop-zone";
 
 export const metadata: Metadata = { title: "My quote" };
@@ -50,11 +51,11 @@ export default async function MyQuotePage({
   const status = quoteStatusOn(qt, await shopToday(m.shopId));
   const money = (v: number) => formatMoney(v, qt.currency);
   const presented = presentQuote(qt, q.lines);
-  const [settings, paid, latest, stock] = await Promise.all([
+  const [settings, paid, latest, { stock, fitted }] = await Promise.all([
     getShopSettings(m.shopId),
     listPayments(m.shopId, qt.id).then((ps) => ps.filter((p) => p.status === "paid")),
     status === "superseded" ? latestRevision(m.shopId, qt.number) : null,
-    STOCK_SHOWN.includes(status) ? quoteStock(m.shopId, qt.status, q.lines) : null,
+    quoteParts(m.shopId, qt, status, q.lines, { customer: true }),
   ]);
   // A replaced revision points only to a newer one the shop has sent (never to a draft).
   const newer =
@@ -126,6 +127,7 @@ export default async function MyQuotePage({
       <QuoteLinesTable presented={presented} />
       {qt.notes ? <p className="mt-4 text-sm text-ink-700">{qt.notes}</p> : null}
       {stock ? <StockPromise lines={q.lines} {...stock} audience="customer" /> : null}
+      {fitted ? <PartsFitted fitted={fitted} audience="customer" /> : null}
       {status === "accepted" && deposit > 0 ? (
         <DepositButton id={qt.id} amount={money(deposit)} />
       ) : null}

@@ -7,14 +7,15 @@ import { readJson } from "@/lib/http/body";
 import { handle } from "@/lib/http/handler";
 import { uuidParam, type IdCtx } from "@/lib/http/params";
 import { editQuote } from "@/lib/quotes/quote-commands";
-import { quoteStock, STOCK_SHOWN } from "@/lib/quotes/quote-stock";
+import { quoteParts } from "@/lib/quotes/quote-stock";
 import { shopToday } from "@/lib/shop/shop-zone";
 import { QuoteEditSchema } from "@/lib/validations/quotes";
 
 /**
  * GET — the quote with its lines and messages, and `stock`: per line what accepting it now would
  * hold and what is back-ordered until when (a quote that holds stock: what it holds); null for a
- * quote past offering (declined, expired, replaced).
+ * quote past offering (declined, expired, replaced) and for one whose job is fitted, where
+ * `fitted` says what was fitted (its job, when, its invoice); else `fitted` is null.
  */
 export const GET = handle<IdCtx>(async (_req, ctx) => {
   const m = await requireMember("quotes:view");
@@ -24,10 +25,14 @@ export const GET = handle<IdCtx>(async (_req, ctx) => {
     ownRecordsOnly(m.role) ? m.user.id : undefined,
   );
   if (!q) throw new NotFound("That quote");
-  const stock = STOCK_SHOWN.includes(quoteStatusOn(q.quote, await shopToday(m.shopId)))
-    ? await quoteStock(m.shopId, q.quote.status, q.lines)
-    : null;
-  return Response.json({ ...q, stock });
+  const { stock, fitted } = await quoteParts(
+    m.shopId,
+    q.quote,
+    quoteStatusOn(q.quote, await shopToday(m.shopId)),
+    q.lines,
+    { customer: ownRecordsOnly(m.role) },
+  );
+  return Response.json({ ...q, stock, fitted });
 });
 
 /**
