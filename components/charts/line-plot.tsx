@@ -206,8 +206,13 @@ const PlotBody = memo(function PlotBody({
             : m.value >= y.min - 1e-9 && m.value <= y.max + 1e-9;
         if (!Number.isFinite(m.value) || !inside) return null;
         const at = m.axis === "x" ? g.X(m.value) : g.Y(m.value);
-        // A label near the plot's right end goes on the line's left.
-        const flip = m.axis === "x" && at + (m.label?.length ?? 0) * CHAR + 4 > width;
+        // A limit's label sits at the plot's right end, above its line. A marked x's sits above
+        // the plot, right of its line (left of it near the right end), or just inside the plot
+        // where the y axis's title takes that room.
+        const chars = m.label?.length ?? 0;
+        const flip = m.axis === "x" && at + chars * CHAR + 4 > width;
+        const start = flip ? at - 4 - chars * CHAR : at + 4;
+        const yTitleEnd = (y.label.length + y.unit.length + 3) * CHAR + 8;
         return (
           <g key={`m${i}`} className="plot-mark">
             <line
@@ -224,7 +229,7 @@ const PlotBody = memo(function PlotBody({
                 className={`plot-mark-label ${FILL[m.tone]}`}
                 fontSize={FONT}
                 x={m.axis === "x" ? at + (flip ? -4 : 4) : right - 2}
-                y={m.axis === "x" ? top + 10 : at - 4}
+                y={m.axis === "x" ? (start < yTitleEnd ? top + 10 : top - 5) : at - 4}
                 textAnchor={m.axis === "x" && !flip ? "start" : "end"}
               >
                 {m.label}
