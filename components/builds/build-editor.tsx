@@ -71,8 +71,8 @@ import { SettingsChangedNote } from "./settings-changed-note";
 import { SizingSettingsNote } from "./sizing-settings-note";
 import { UnitToggle } from "./unit-toggle";
 
-// The charts' code (the charting library is most of this page's JavaScript) loads when the charts
-// scroll near the screen, after the sheet is usable.
+// The charts (plain SVG, components/charts/line-plot.tsx) load and draw when they scroll near the
+// screen, after the sheet is usable: their code stays out of the page's first load.
 const SizingCharts = dynamic(() => import("./sizing-charts").then((m) => m.SizingCharts), {
   ssr: false,
   loading: () => <ChartPlaceholder minHeight={CHARTS_HEIGHT} label="Loading the charts…" />,

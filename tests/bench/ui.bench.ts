@@ -5,6 +5,8 @@
  *   - the charts stop changing (the last change to the charts' SVG before the next keystroke).
  * Prints p50 / p95 / max of both. Figures only, no pass/fail. Goals (issue: speed you can feel):
  * key figures p95 under 16 ms, charts p95 under 100 ms, on the 2-core machine.
+ * Also prints the page's main-thread CPU per keystroke (CDP Performance.getMetrics, thread time:
+ * TaskDuration, of which ScriptDuration), which does not depend on how busy the machine is.
  */
 import { launchBrowser } from "../helpers/browser";
 
@@ -26,7 +28,7 @@ const field = page.locator("#b-target-powerKw");
 await field.waitFor();
 // The charts in view (they may load as they scroll in), then the field focused.
 await page.evaluate("window.scrollTo(0, document.body.scrollHeight)");
-await page.locator('[data-testid="sizing-charts"] .recharts-wrapper').first().waitFor();
+await page.locator('[data-testid="sizing-charts"] figure svg').first().waitFor();
 await page.waitForTimeout(500);
 
 // In-page probes, as text: the bundler that runs this file would name the functions it passes.
@@ -62,10 +64,21 @@ const start = (await field.inputValue()).replace(/\D/g, "") || "400";
 await field.fill(start);
 await page.waitForTimeout(GAP_MS);
 await page.evaluate("window.__bench.length = 0");
+const cdp = await page.context().newCDPSession(page);
+await cdp.send("Performance.enable", { timeDomain: "threadTicks" });
+const metrics = async () => {
+  const { metrics: m } = (await cdp.send("Performance.getMetrics")) as {
+    metrics: { name: string; value: number }[];
+  };
+  return Object.fromEntries(m.map((x) => [x.name, x.value])) as Record<string, number>;
+};
+const before = await metrics();
 for (let i = 0; i < KEYSTROKES; i++) {
   await page.keyboard.press(i % 2 === 0 ? "Backspace" : String((i >> 1) % 10));
   await page.waitForTimeout(GAP_MS);
 }
+const after = await metrics();
+const perKey = (name: string) => (((after[name] ?? 0) - (before[name] ?? 0)) * 1000) / KEYSTROKES;
 const samples = (await page.evaluate("window.__bench")) as {
   figures: number | null;
   charts: number | null;
@@ -88,4 +101,7 @@ const line = (name: string, xs: number[], goal: number) =>
 console.log(`build sheet, ${samples.length} keystrokes, ${GAP_MS} ms apart (${BASE})`);
 console.log(line("keystroke → key figures shown", figures, 16));
 console.log(line("keystroke → charts settled", charts, 100));
+console.log(
+  `main-thread CPU per keystroke: task ${perKey("TaskDuration").toFixed(1)} ms, of which script ${perKey("ScriptDuration").toFixed(1)} ms, layout ${perKey("LayoutDuration").toFixed(1)} ms, style ${perKey("RecalcStyleDuration").toFixed(1)} ms`,
+);
 if (missed) console.log(`${missed} keystroke(s) changed no key figure`);

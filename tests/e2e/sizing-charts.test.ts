@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   formatValue,
   FuelSystemInputSchema,
+  pumpBoostChart,
   sizeParsedFuelSystem,
   type FuelSystemInput,
   type UnitSystem,
@@ -18,8 +19,9 @@ import { launchBrowser } from "../helpers/browser";
 /**
  * The build sheet's charts (components/builds/sizing-charts.tsx) drawn by Chromium on their own:
  * the component bundled with esbuild into a blank page, no app server. What a reader sees —
- * captions, legends, the marked boosts, ticks in their units, one drawn line per series through
- * every point — and that each chart fills the box its container measured.
+ * captions, summaries, legends, the marked boosts and limits, axis titles and ticks in their
+ * units, one drawn line per series through every point, the readout of a point by keyboard and
+ * pointer — and that each drawing is as wide as its box (text at its own size, never scaled).
  */
 const root = fileURLToPath(new URL("../..", import.meta.url)).replace(/\/$/, "");
 
@@ -65,37 +67,39 @@ afterAll(async () => {
 
 async function draw(inputs: FuelSystemInput, units: UnitSystem): Promise<Page> {
   const page = await browser.newPage({ viewport: { width: 640, height: 900 } });
-  // The one Tailwind size the charts rely on: the box ResponsiveContainer measures.
+  // The Tailwind sizes the charts rely on: the drawing's height and full width.
   await page.setContent(
-    `<!doctype html><html><head><style>.h-56{height:224px}</style></head><body><div id="root" style="width:600px"></div></body></html>`,
+    `<!doctype html><html><head><style>.h-56{height:224px}.w-full{width:100%}.block{display:block}</style></head><body><div id="root" style="width:600px"></div></body></html>`,
   );
   await page.evaluate(([i, u]) => Object.assign(window, { __input: i, __units: u }), [
     inputs,
     units,
   ] as const);
   await page.addScriptTag({ content: script });
-  await expect.poll(() => page.locator("figure .recharts-line-curve").count()).toBeGreaterThan(7);
+  await expect.poll(() => page.locator("figure path.plot-line").count()).toBeGreaterThan(7);
   return page;
 }
 
-/** One figure as read: caption, its box's label, the chart's size and its box's, legend, marks, ticks, lines. */
+/** One figure as read: caption, its summary, the drawing's size and its box's, legend, marks, axis titles, ticks, lines. */
 async function figure(page: Page, caption: string) {
   const f = page.locator("figure", { has: page.locator("figcaption", { hasText: caption }) });
   expect(await f.count(), caption).toBe(1);
   return f.evaluate((el) => {
-    const box = el.querySelector("[role=img]")!;
-    const svg = el.querySelector(".recharts-wrapper > svg.recharts-surface")!;
+    const svg = el.querySelector(".plot-box > svg")!;
+    const described = document.getElementById(el.getAttribute("aria-describedby") ?? "");
     const texts = (sel: string) => [...el.querySelectorAll(sel)].map((n) => n.textContent ?? "");
+    const viewBox = (svg.getAttribute("viewBox") ?? "").split(" ").map(Number);
     return {
-      summary: box.getAttribute("aria-label"),
-      box: [Math.round(box.clientWidth), Math.round(box.clientHeight)],
-      svg: [Number(svg.getAttribute("width")), Number(svg.getAttribute("height"))],
-      legend: texts(".recharts-legend-item-text"),
-      marks: texts("text.recharts-label"),
-      xTicks: texts(".recharts-xAxis-tick-labels .recharts-cartesian-axis-tick-value"),
-      yTicks: texts(".recharts-yAxis-tick-labels .recharts-cartesian-axis-tick-value"),
+      summary: described?.textContent ?? null,
+      box: [Math.round(svg.clientWidth), Math.round(svg.clientHeight)],
+      svg: [viewBox[2], viewBox[3]],
+      legend: texts(".plot-legend-text"),
+      marks: texts(".plot-mark-label"),
+      titles: [...texts(".plot-x-title"), ...texts(".plot-y-title")],
+      xTicks: texts(".plot-x-tick"),
+      yTicks: texts(".plot-y-tick"),
       // Points per drawn line: the path's move plus its segments.
-      points: [...el.querySelectorAll(".recharts-line-curve")].map(
+      points: [...el.querySelectorAll("path.plot-line")].map(
         (p) => (p.getAttribute("d") ?? "").match(/[ML]/g)?.length ?? 0,
       ),
     };
@@ -122,10 +126,13 @@ describe("the build sheet's charts", () => {
         new RegExp(`^-?[\\d.]+\\u00a0${unit.replace("/", "\\/")}$`);
 
       const byBoost = await figure(page, "Pump supply and demand against boost");
-      // Each chart is as large as the box its container measured (the size reaches the chart).
+      // Each drawing is as large as its box (the viewBox follows the measured width: no scaling).
       expect(byBoost.svg).toEqual(byBoost.box);
       expect(byBoost.box[1]).toBe(224);
-      expect(byBoost.legend).toEqual(["demand", "supply"]);
+      // The legend in the lines' order (lib/calc/charts.ts), as the spec sheet prints it.
+      expect(byBoost.legend).toEqual(["supply", "demand"]);
+      // Axis titles name the quantity and the reader's unit.
+      expect(byBoost.titles).toEqual([`boost (${pu})`, `fuel flow (${fu})`]);
       expect(byBoost.marks).toEqual(["least margin"]);
       // 6 even points (0, 30 … 150 kPa) plus the one just before the stage switches on at 90
       // (docs/calculations.md §4.4).
@@ -140,7 +147,8 @@ describe("the build sheet's charts", () => {
 
       const byPressure = await figure(page, "Pump supply against pressure");
       expect(byPressure.svg).toEqual(byPressure.box);
-      expect(byPressure.legend).toEqual(["demand", "supply"]);
+      expect(byPressure.legend).toEqual(["supply", "demand"]);
+      expect(byPressure.titles).toEqual([`pump outlet pressure (${pu})`, `fuel flow (${fu})`]);
       expect(byPressure.marks).toEqual(["working"]);
       expect(byPressure.points).toEqual([20, 20]);
       expect(byPressure.summary).toMatch(
@@ -151,7 +159,8 @@ describe("the build sheet's charts", () => {
 
       const pressure = await figure(page, "Fuel pressure against boost");
       expect(pressure.svg).toEqual(pressure.box);
-      expect(pressure.legend).toEqual(["across the injector", "manifold", "rail"]);
+      expect(pressure.legend).toEqual(["rail", "across the injector", "manifold"]);
+      expect(pressure.titles).toEqual([`boost (${pu})`, `fuel pressure (${pu})`]);
       expect(pressure.marks).toEqual([]);
       expect(pressure.points).toEqual([2, 2, 2]);
       const top = r.regulator.pressureVsBoost.at(-1)!;
@@ -159,6 +168,42 @@ describe("the build sheet's charts", () => {
         `With a 1:1 boost-referenced regulator, at ${formatValue("pressure", top.boostKpa, units)} boost the rail holds ${formatValue("pressure", top.railKpa, units)} and the injectors see ${formatValue("pressure", top.differentialKpa, units)} across them`,
       );
       for (const t of [...pressure.xTicks, ...pressure.yTicks]) expect(t).toMatch(unitTick(pu));
+
+      // The duty charts: rpm and % on the axes, the danger duty marked as a reference line.
+      const danger = `danger ${r.limits.dutyDangerPct}\u00a0%`;
+      const rpm = await figure(page, "Duty across engine speed");
+      expect(rpm.svg).toEqual(rpm.box);
+      expect(rpm.titles).toEqual(["engine speed (rpm)", "injector duty (%)"]);
+      expect(rpm.marks).toEqual([danger]);
+      expect(rpm.points).toEqual([20, 20]);
+      for (const t of rpm.xTicks) expect(t).toMatch(unitTick("rpm"));
+      for (const t of rpm.yTicks) expect(t).toMatch(unitTick("%"));
+      const ethanol = await figure(page, "Duty across ethanol content");
+      expect(ethanol.titles).toEqual(["ethanol content (%)", "injector duty (%)"]);
+      expect(ethanol.marks[0]).toBe(danger);
+      expect(ethanol.points).toEqual([11]);
+
+      // The readout: the keyboard moves a cursor along the points, the pointer picks the nearest.
+      const rows = pumpBoostChart(r, units).rows;
+      const plot = page
+        .locator("figure", { hasText: "Pump supply and demand against boost" })
+        .locator(".plot-box");
+      const readout = plot.locator("xpath=..").locator(".plot-readout");
+      expect(await readout.getAttribute("aria-live")).toBe("polite");
+      const said = (row: (typeof rows)[number]) =>
+        `${row.x}\u00a0${pu}: supply ${+row.supply!.toFixed(1)}\u00a0${fu}, demand ${+row.demand!.toFixed(1)}\u00a0${fu}`;
+      await plot.focus();
+      await page.keyboard.press("End");
+      expect(await readout.textContent()).toBe(said(rows.at(-1)!));
+      await page.keyboard.press("ArrowLeft");
+      expect(await readout.textContent()).toBe(said(rows.at(-2)!));
+      await page.keyboard.press("Home");
+      expect(await readout.textContent()).toBe(said(rows[0]!));
+      await page.keyboard.press("Escape");
+      expect(await readout.textContent()).toBe("");
+      const area = (await plot.locator("svg").boundingBox())!;
+      await page.mouse.move(area.x + area.width - 2, area.y + area.height / 2);
+      expect(await readout.textContent()).toBe(said(rows.at(-1)!));
       await page.close();
     });
   }

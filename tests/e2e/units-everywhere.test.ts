@@ -132,7 +132,7 @@ describe("every figure in the reader's units", () => {
       // Chart ticks: the number, a space, the unit ("55 gal/h", never "55gal/h").
       // The charts load as they scroll near the screen: go to them first.
       await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
-      const ticks = page.locator(".recharts-cartesian-axis-tick-value");
+      const ticks = page.locator(".plot-x-tick, .plot-y-tick");
       await expect.poll(() => ticks.count(), { timeout: 15000 }).toBeGreaterThan(10);
       const tickTexts = await ticks.allTextContents();
       const flow = system === "imperial" ? "gal/h" : "L/h";

@@ -32,6 +32,12 @@ describe("chart ticks keep the number and its unit together", () => {
     expect(axisTick("")(20)).toBe("20");
   });
 
+  it("the build sheet's charts are plain SVG: no charting library in components/builds or components/charts", () => {
+    const files = ["components/builds", "components/charts"].flatMap((d) => walk(d));
+    expect(files).toContain(join("components", "charts", "line-plot.tsx"));
+    for (const f of files) expect(readFileSync(f, "utf8"), f).not.toMatch(/from "recharts"/);
+  });
+
   it("no axis passes recharts' own `unit` prop (it appends the unit after an ordinary space)", () => {
     const charts = ["app", "components"]
       .flatMap((d) => walk(d))

@@ -2,7 +2,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 
-import { SupplyDemandChart } from "@/components/builds/sizing-charts";
+import { LinePlot } from "@/components/charts/line-plot";
 import { FuelSystemInputSchema, sizeParsedFuelSystem, type FuelSystemInput } from "@/lib/calc";
 import { renderSpecSheet, type SpecSheetData } from "@/lib/pdf/spec-sheet";
 
@@ -84,22 +84,64 @@ describe("the spec sheet's charts against boost", () => {
   });
 });
 
-describe("the build sheet's supply-and-demand chart", () => {
-  it("passes the size it is given on to the chart it draws (as ResponsiveContainer gives it)", () => {
-    const html = renderToStaticMarkup(
-      createElement(SupplyDemandChart, {
-        rows: [
-          { x: 0, supply: 200, demand: 100 },
-          { x: 10, supply: 180, demand: 150 },
-        ],
-        xUnit: "psi",
-        yUnit: "gal/h",
-        marker: { x: 10, label: "least margin" },
-        width: 432,
-        height: 216,
-      }),
+describe("the build sheet's line plot (plain SVG, components/charts/line-plot.tsx)", () => {
+  // Hand-made data (no source needed: the drawing, not a figure, is checked).
+  const html = renderToStaticMarkup(
+    createElement(LinePlot, {
+      title: "Pump supply and demand against boost",
+      summary: "The pump margin is at its lowest at 10 psi boost",
+      x: { label: "boost", unit: "psi", min: 0, max: 20, ticks: [0, 10, 20], decimals: 0 },
+      y: { label: "fuel flow", unit: "gal/h", min: 0, max: 100, ticks: [0, 50, 100], decimals: 0 },
+      series: [
+        { key: "supply", label: "supply", tone: "copper" },
+        { key: "demand", label: "demand", tone: "danger", dashed: true },
+      ],
+      rows: [
+        { x: 0, supply: 80, demand: 40 },
+        { x: 10, supply: 70, demand: 55 },
+        { x: 20, supply: Number.NaN, demand: 70 },
+      ],
+      marks: [
+        { axis: "x", value: 10, label: "least margin", tone: "ink" },
+        { axis: "y", value: 500, label: "off the chart", tone: "danger" },
+      ],
+    }),
+  );
+  const points = (key: string) =>
+    [
+      ...(new RegExp(`data-series="${key}" d="([^"]*)"`).exec(html)?.[1] ?? "").matchAll(
+        /[ML]([\d.]+),([\d.]+)/g,
+      ),
+    ].map((m) => [Number(m[1]), Number(m[2])]);
+
+  it("one path per series through its finite points, more flow drawn higher", () => {
+    const supply = points("supply");
+    const demand = points("demand");
+    expect(supply).toHaveLength(2); // the NaN point is left out, never drawn as NaN
+    expect(demand).toHaveLength(3);
+    expect(html).not.toMatch(/NaN|Infinity/);
+    expect(supply[0]![0]).toBe(demand[0]![0]);
+    expect(supply[0]![1]).toBeLessThan(demand[0]![1]!); // 80 above 40 (SVG's y runs down)
+    expect(demand[1]![0]! - demand[0]![0]!).toBeCloseTo(demand[2]![0]! - demand[1]![0]!, 1);
+  });
+
+  it("ticks with a no-break space before their unit, axis titles, the marks inside the axes, the legend", () => {
+    expect(html).toContain(">0\u00a0psi<");
+    expect(html).toContain(">100\u00a0gal/h<");
+    expect(html).toContain(">boost (psi)<");
+    expect(html).toContain(">fuel flow (gal/h)<");
+    expect(html).toContain(">least margin<");
+    expect(html).not.toContain("off the chart");
+    expect([...html.matchAll(/class="plot-legend-text">([^<]*)</g)].map((m) => m[1])).toEqual([
+      "supply",
+      "demand",
+    ]);
+    // A figure named by its caption and described by its summary; the plot takes the focus.
+    expect(html).toMatch(
+      /<figure[^>]*aria-describedby="([^"]+)"[\s\S]*id="\1"[^>]*>The pump margin/,
     );
-    expect(html).toMatch(/class="recharts-wrapper"/);
-    expect(html).toMatch(/width:432px;height:216px/);
+    expect(html).toMatch(/<figcaption[^>]*>Pump supply and demand against boost</);
+    expect(html).toMatch(/tabindex="0" role="group"/);
+    expect(html).toMatch(/aria-live="polite"/);
   });
 });
