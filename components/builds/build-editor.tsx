@@ -6,7 +6,6 @@ import {
   memo,
   useCallback,
   useContext,
-  useDeferredValue,
   useEffect,
   useLayoutEffect,
   useMemo,
@@ -61,6 +60,7 @@ import {
   type SizingSettings,
 } from "@/lib/sizing/effective-inputs";
 
+import { useAfterPaint } from "./after-paint";
 import { DeadTimeGrid } from "./dead-time-grid";
 import { FiguresAnnouncer } from "./figures-announcer";
 import { LiveSizing, useLive, type LiveState } from "./live-sizing";
@@ -80,8 +80,8 @@ const SizingCharts = dynamic(() => import("./sizing-charts").then((m) => m.Sizin
 const CHARTS_HEIGHT = 1200;
 
 /**
- * The charts and the settings note follow the typing a beat behind the key figures (a deferred
- * value): a keystroke repaints the figures first, the charts when the browser has time.
+ * The charts and the settings note follow the typing a beat behind the key figures (`useAfterPaint`):
+ * a keystroke's figures are painted first, the charts after that frame.
  */
 const LaterFigures = memo(function LaterFigures({
   input,
@@ -936,8 +936,8 @@ function isDirty(
 
 /**
  * "version 3 · unsaved changes", and the guard that keeps unsaved changes from being lost by
- * leaving the page by accident (a reload or an in-app link). Worked out from a deferred value:
- * the parse it takes runs after the keystroke's figures are on screen.
+ * leaving the page by accident (a reload or an in-app link). Worked out after the paint
+ * (`useAfterPaint`): the parse it takes runs after the keystroke's figures are on screen.
  */
 function VersionNote({
   store,
@@ -952,7 +952,7 @@ function VersionNote({
 }) {
   const title = useLive(store, (s) => s.title);
   const status = useLive(store, (s) => s.status);
-  const inputs = useDeferredValue(useLive(store, (s) => s.inputs));
+  const inputs = useAfterPaint(useLive(store, (s) => s.inputs));
   const inputsChanged = useMemo(
     () =>
       isDirty({ title: baseline.title, status: baseline.status, inputs }, baseline, baselineJson),
@@ -972,7 +972,7 @@ function VersionNote({
 function LiveResults({ store, units }: { store: LiveSizing<Values>; units: UnitSystem }) {
   const result = useLive(store, (s) => s.result);
   const sized = useLive(store, (s) => s.sized);
-  const later = useDeferredValue(sized);
+  const later = useAfterPaint(sized);
   return (
     <>
       <FiguresAnnouncer result={result} units={units} />

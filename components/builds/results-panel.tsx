@@ -86,7 +86,8 @@ export function ResultsPanel({
   units?: UnitSystem;
   /**
    * The result whose working steps to list (folded away under "How these numbers were worked
-   * out"): the editor passes a deferred one, so a keystroke does not format every step again.
+   * out"): the editor passes one caught up after the paint, so a keystroke does not format every
+   * step again.
    * Left out: `result`'s.
    */
   workingFrom?: FuelSystemResult | null;
@@ -113,7 +114,7 @@ export function ResultsPanel({
 
 /**
  * The figures of a result: re-rendered only when the result or the units change (the editor's
- * deferred render, which brings the working steps up to date, leaves them as they are).
+ * render after the paint, which brings the working steps up to date, leaves them as they are).
  */
 const Figures = memo(function Figures({
   result: r,
