@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { navFor } from "@/components/shell/nav-items";
 
 import { BASE_URL, launchBrowser, newClient, signInAs } from "../helpers/browser";
+import { sql } from "../helpers/db";
 import { appPages, renderedLinks, urlsFor, type AppPage } from "../helpers/pages";
 
 /**
@@ -67,6 +68,7 @@ beforeAll(async () => {
 }, 600_000);
 afterAll(async () => {
   await browser?.close();
+  await sql.end();
 });
 
 /** What does not fit: the page's width, elements past the right edge, sideways scrollers, h1s. */
@@ -298,16 +300,13 @@ describe("key columns stay on a phone's screen", () => {
     for (const id of ["part-price", "part-stock"]) expect(await onScreen(page, id), id).toBe(true);
 
     // A draft quote in the editor: the description box is wide enough to read, prices typeable.
-    await page.goto("/quotes");
-    await page.getByTestId("quotes-table").waitFor();
-    const draft = page
-      .getByTestId("quotes-table")
-      .locator("tbody tr", { hasText: "Draft" })
-      .first()
-      .getByRole("link")
-      .first();
-    await draft.click();
-    await page.waitForURL(/\/quotes\/[0-9a-f-]{36}$/);
+    // The demo shop's first draft that has lines (other tests add drafts without any).
+    const [draft] = await sql<{ id: string }[]>`
+      select q.id from quotes q
+      where q.shop_id = 'demo-shop-ridgeback' and q.status = 'draft'
+        and exists (select 1 from quote_lines l where l.quote_id = q.id)
+      order by q.number limit 1`;
+    await page.goto(`/quotes/${draft!.id}`);
     const description = page.getByLabel("Line 1 description");
     await description.waitFor();
     const d = (await description.boundingBox())!;
