@@ -323,7 +323,7 @@ describe("a new revision shows what changed since the one the customer saw", () 
     expect(changes).toContain(
       `+ Added Counter pump ${tag} (${tag}-PMP): 1 × $180.00, discount 10 % (−$18.00) = $162.00`,
     );
-    expect(changes).toContain("~ Changed Fitting: qty 1 → 2; line total $120.00 → $240.00");
+    expect(changes).toContain("~ Changed Fitting: qty 1 h → 2 h; line total $120.00 → $240.00");
     expect(changes).toContain("Subtotal: $120.00 → $402.00");
     expect(changes).toContain("Total: $129.90 → $435.17");
     await page.context().close();
