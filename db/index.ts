@@ -5,6 +5,7 @@ import { serverEnv } from "@/lib/env";
 
 import { noteQuery } from "./query-count";
 import * as schema from "./schema";
+import { noteStatement } from "./session-cache";
 
 type Db = ReturnType<typeof drizzle<typeof schema>>;
 const globalForDb = globalThis as unknown as { fuelwrightDb?: Db; fuelwrightSql?: postgres.Sql };
@@ -15,7 +16,15 @@ function connect(): Db {
     idle_timeout: 20,
     connect_timeout: 5,
     onnotice: () => {},
-    ...(process.env.DB_QUERY_COUNT === "on" ? { debug: noteQuery } : {}),
+    // Every statement, as it is sent: a write to what a session look-up reads forgets the kept
+    // look-ups (db/session-cache.ts); the test servers also count them (db/query-count.ts).
+    debug:
+      process.env.DB_QUERY_COUNT === "on"
+        ? (connection, text) => {
+            noteStatement(text);
+            noteQuery(connection, text);
+          }
+        : (_connection, text) => noteStatement(text),
   });
   globalForDb.fuelwrightSql = sql;
   return drizzle(sql, { schema });

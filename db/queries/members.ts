@@ -12,7 +12,9 @@ import {
   user,
   type ShopSizingColumns,
 } from "@/db/schema";
+import { keptLookup } from "@/db/session-cache";
 import { Conflict, NotFound } from "@/lib/domain/errors";
+import { serverEnv } from "@/lib/env";
 
 /**
  * The membership a session acts with: the session's shop if it names one, else the person's
@@ -246,10 +248,15 @@ function sessionMemberText(): string {
 /**
  * The session of `token`, its person, membership (as `sessionMembership` chooses it) and the
  * sizing part of that shop's settings in one round trip — the look-up every signed-in request
- * makes first. Null when no session has it. Nothing here is cached: a revoked session or a
- * changed setting shows on the very next request, whichever instance wrote it.
+ * makes first. Null when no session has it. Kept in memory between requests (db/session-cache.ts)
+ * until anything it read changes: a revoked session or a changed setting shows on the writer's
+ * very next request, and on every other instance's once the database's notice has reached it.
  */
 export async function sessionMemberByToken(token: string): Promise<SessionMemberRow | null> {
+  return keptLookup(serverEnv().DATABASE_URL, token, () => readSessionMember(token));
+}
+
+async function readSessionMember(token: string): Promise<SessionMemberRow | null> {
   const rows = await db.$client.unsafe<SessionMemberSqlRow[]>(sessionMemberText(), [token], {
     prepare: true,
   });

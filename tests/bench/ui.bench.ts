@@ -1,14 +1,23 @@
 /**
  * UI benchmark (npm run bench:ui): Chromium types 200 keystrokes into the build sheet's target
- * power and measures, for each, from the keystroke's event to the next frame after
- *   - the key figures (duty, pump margin) show the new sizing, and
- *   - the charts stop changing (the last change to the charts' SVG before the next keystroke).
- * Prints p50 / p95 / max of both, and of the keystroke's own work: from its event to the key
- * figures changed in the page (before that next frame; "shown" adds the wait for the frame,
- * 0–16.7 ms at 60 Hz, depending on where in the frame the key fell). Figures only, no pass/fail. Goals (issue: speed you can feel):
- * key figures p95 under 16 ms, charts p95 under 100 ms, on the 2-core machine.
+ * power and prints p50 / p95 / max, from each keystroke's event (its timeStamp: when the browser
+ * made the event, before the page sees it), of
+ *   - key figures updated: the key figures (duty, pump margin) changed in the page — the
+ *     keystroke's whole work, browser included. Goal (issue: speed you can feel): p95 under
+ *     16 ms, one frame at 60 Hz;
+ *   - key figures on screen: the frame that paints them (its requestAnimationFrame callbacks,
+ *     which run just before its paint). That frame comes with the display's clock, 0–16.7 ms after the key whatever the
+ *     page does, so this cannot fall below the frame's own wait (p95 ≈ 15.9 ms at 60 Hz); what
+ *     the page controls is that the figures are in the first frame after their work, never a
+ *     later one — printed as "missed their frame";
+ *   - charts settled: the last change to the charts' SVG before the next keystroke, to the frame
+ *     after it. Goal: p95 under 100 ms.
+ * Keys are GAP_MS apart plus a random part of a frame, so that they fall anywhere in the
+ * display's frame, as a person's do (a fixed 250 ms is exactly 15 frames: every key would fall
+ * at the same point of its frame). Figures only, no pass/fail, on the 2-core machine.
  * Also prints the page's main-thread CPU per keystroke (CDP Performance.getMetrics, thread time:
  * TaskDuration, of which ScriptDuration), which does not depend on how busy the machine is.
+ * BENCH_SAMPLES_OUT=file.json keeps every keystroke's times.
  */
 import { launchBrowser } from "../helpers/browser";
 
@@ -17,6 +26,8 @@ const BUILD = process.env.BENCH_BUILD_ID ?? "10000000-0000-4000-8000-00000000000
 const KEYSTROKES = Number(process.env.BENCH_KEYSTROKES ?? 200);
 /** Time between keystrokes: long enough for the charts to settle, as a person typing slowly. */
 const GAP_MS = Number(process.env.BENCH_GAP_MS ?? 250);
+/** One frame at 60 Hz: each gap gets a random part of it. */
+const FRAME_MS = 1000 / 60;
 
 const browser = await launchBrowser();
 const page = await browser.newPage({ viewport: { width: 1440, height: 2400 } });
@@ -41,16 +52,28 @@ await page.evaluate(`(() => {
   const charts = document.querySelector('[data-testid="sizing-charts"]');
   document.addEventListener(
     "keydown",
-    (e) => w.__bench.push({ key: e.timeStamp, dom: null, figures: null, charts: null }),
+    (e) => w.__bench.push({ key: e.timeStamp, input: null, dom: null, figures: null, frame: null, charts: null }),
     { capture: true },
   );
-  // "Shown": the frame after the change (a requestAnimationFrame runs just before that paint).
+  document.addEventListener(
+    "input",
+    (e) => {
+      const c = w.__bench[w.__bench.length - 1];
+      if (c && c.input === null) c.input = e.timeStamp - c.key;
+    },
+    { capture: true },
+  );
+  // "On screen": the frame after the change (its requestAnimationFrame callbacks run just before
+  // its paint; their argument is the time the frame began).
   new MutationObserver(() => {
     const c = w.__bench[w.__bench.length - 1];
     if (c && c.figures === null) {
       c.figures = -1;
       c.dom = performance.now() - c.key;
-      requestAnimationFrame(() => (c.figures = performance.now() - c.key));
+      requestAnimationFrame((t) => {
+        c.figures = performance.now() - c.key;
+        c.frame = t - c.key;
+      });
     }
   }).observe(figures, { subtree: true, childList: true, characterData: true });
   new MutationObserver(() => {
@@ -78,34 +101,60 @@ const metrics = async () => {
 const before = await metrics();
 for (let i = 0; i < KEYSTROKES; i++) {
   await page.keyboard.press(i % 2 === 0 ? "Backspace" : String((i >> 1) % 10));
-  await page.waitForTimeout(GAP_MS);
+  await page.waitForTimeout(GAP_MS + Math.random() * FRAME_MS);
 }
 const after = await metrics();
 const perKey = (name: string) => (((after[name] ?? 0) - (before[name] ?? 0)) * 1000) / KEYSTROKES;
 const samples = (await page.evaluate("window.__bench")) as {
+  input: number | null;
   dom: number | null;
   figures: number | null;
+  frame: number | null;
   charts: number | null;
 }[];
+if (process.env.BENCH_SAMPLES_OUT) {
+  const { writeFileSync } = await import("node:fs");
+  writeFileSync(process.env.BENCH_SAMPLES_OUT, JSON.stringify(samples));
+}
 await browser.close();
 
 const pct = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b);
   return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)]!;
 };
-const figures = samples.map((s) => s.figures).filter((x): x is number => x !== null && x >= 0);
-const dom = samples.map((s) => s.dom).filter((x): x is number => x !== null && x >= 0);
+const done = samples.filter(
+  (
+    s,
+  ): s is {
+    input: number | null;
+    dom: number;
+    figures: number;
+    frame: number;
+    charts: number | null;
+  } => s.dom !== null && s.figures !== null && s.figures >= 0 && s.frame !== null,
+);
+const dom = done.map((s) => s.dom);
+// The frame that paints the figures: when its callbacks ran, just before its paint.
+const onScreen = done.map((s) => s.figures);
+// A frame that began more than one frame after the figures changed means one in between went by
+// without them (1 ms of slack for the clock's own jitter).
+const late = done.filter((s) => s.frame - s.dom > FRAME_MS + 1).length;
 const charts = samples.map((s) => s.charts).filter((x): x is number => x !== null && x >= 0);
-const missed = samples.length - figures.length;
+const missed = samples.length - done.length;
 const line = (name: string, xs: number[], goal?: number) =>
   `${name.padEnd(34)} p50 ${pct(xs, 50).toFixed(1).padStart(6)} ms  p95 ${pct(xs, 95).toFixed(1).padStart(6)} ms  max ${Math.max(
     ...xs,
   )
     .toFixed(1)
     .padStart(6)} ms${goal === undefined ? "" : `  (goal p95 < ${goal} ms)`}`;
-console.log(`build sheet, ${samples.length} keystrokes, ${GAP_MS} ms apart (${BASE})`);
-console.log(line("keystroke → key figures in the page", dom));
-console.log(line("keystroke → key figures shown", figures, 16));
+console.log(
+  `build sheet, ${samples.length} keystrokes, ${GAP_MS}–${Math.round(GAP_MS + FRAME_MS)} ms apart (${BASE})`,
+);
+console.log(line("keystroke → key figures updated", dom, 16));
+console.log(line("keystroke → key figures on screen", onScreen));
+console.log(
+  `  missed their frame (painted a frame or more after the one that followed their work): ${late} of ${done.length}`,
+);
 console.log(line("keystroke → charts settled", charts, 100));
 console.log(
   `main-thread CPU per keystroke: task ${perKey("TaskDuration").toFixed(1)} ms, of which script ${perKey("ScriptDuration").toFixed(1)} ms, layout ${perKey("LayoutDuration").toFixed(1)} ms, style ${perKey("RecalcStyleDuration").toFixed(1)} ms`,

@@ -76,3 +76,21 @@ export async function getBytes(client: Client | null, path: string) {
   });
   return { status: res.status, headers: res.headers, bytes: Buffer.from(await res.arrayBuffer()) };
 }
+
+/**
+ * `attempt` again and again until `done` says yes (its last answer), for at most `ms`: for a
+ * change written straight into the database, as another instance of the app would, which the
+ * app hears of through the database's notice (db/session-cache.ts) — milliseconds, not at once.
+ */
+export async function once<T>(
+  attempt: () => Promise<T>,
+  done: (answer: T) => boolean,
+  ms = 3000,
+): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const answer = await attempt();
+    if (done(answer) || Date.now() > end) return answer;
+    await new Promise((r) => setTimeout(r, 10));
+  }
+}

@@ -68,8 +68,18 @@ describe("two app instances on one database", () => {
       title: "Saved on instance A",
       version: cur.json.build.version + 1,
     });
-    // Signing out on B ends the session everywhere.
+    // Signing out on B ends the session everywhere: on B at once, on A as soon as the database's
+    // notice reaches it (A keeps session look-ups in memory, db/session-cache.ts) — tried for at
+    // most 3 s, and the session must stay ended.
     expect((await call(b.url, cookie, "POST", "/api/auth/sign-out", {}, origin)).status).toBe(200);
+    expect((await call(b.url, cookie, "GET", "/api/v1/builds", undefined, origin)).status).toBe(
+      401,
+    );
+    const end = Date.now() + 3000;
+    let onA = 0;
+    do onA = (await call(a.url, cookie, "GET", "/api/v1/builds", undefined, origin)).status;
+    while (onA !== 401 && Date.now() < end);
+    expect(onA).toBe(401);
     expect((await call(a.url, cookie, "GET", "/api/v1/builds", undefined, origin)).status).toBe(
       401,
     );
