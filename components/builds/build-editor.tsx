@@ -901,7 +901,11 @@ export function BuildEditor(props: {
                 />
                 <FormStatus ok={saved?.ok} message={saved?.message} />
                 {conflict ? (
-                  <div className="w-full text-sm text-caution-700" data-testid="conflict">
+                  <div
+                    className="w-full text-sm text-caution-700"
+                    data-testid="conflict"
+                    role="status"
+                  >
                     <p>
                       ▲ {conflict.updatedByName ?? "Someone"} saved version {conflict.version} (“
                       {conflict.title}”) at <LocalTime value={conflict.updatedAt} />. Your entries

@@ -9,7 +9,12 @@ import { once, request, signIn, type Client } from "../helpers/http";
 // session look-up is kept in memory between requests until anything it read changes
 // (db/session-cache.ts): a change this app makes shows on the very next request; one written
 // straight into the database, as another instance would, once the database's notice arrives.
-const trips = (h: Headers) => Number(h.get("x-db-round-trips"));
+const trips = (h: Headers) => {
+  const n = h.get("x-db-round-trips");
+  // Every answer says it, a refusal too: a missing header is not "no queries".
+  expect(n, "x-db-round-trips").toMatch(/^\d+$/);
+  return Number(n);
+};
 
 let tuner: Client;
 beforeAll(async () => {
