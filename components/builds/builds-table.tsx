@@ -149,7 +149,7 @@ export function BuildsTable({
             <tbody>
               {(data?.builds ?? []).map((b) => (
                 <tr key={b.id} className="border-t border-ink-100">
-                  <td className="px-4 py-2">
+                  <td className="min-w-32 px-4 py-2 [overflow-wrap:anywhere]">
                     <Link
                       href={`/builds/${b.id}`}
                       className="font-medium text-copper-700 underline"
@@ -158,7 +158,7 @@ export function BuildsTable({
                     </Link>
                     {b.vehicle ? <p className="text-xs text-ink-600">{b.vehicle}</p> : null}
                   </td>
-                  <td className="px-4 py-2" data-label="Customer">
+                  <td className="px-4 py-2 [overflow-wrap:anywhere]" data-label="Customer">
                     {b.customerName}
                   </td>
                   <td className="px-4 py-2" data-label="Tuner">

@@ -124,7 +124,7 @@ export function PartsTable({
             <tbody>
               {(data?.parts ?? []).map((p) => (
                 <tr key={p.id} className="border-t border-ink-100">
-                  <td className="figure px-4 py-2" data-label="SKU">
+                  <td className="figure px-4 py-2 [overflow-wrap:anywhere]" data-label="SKU">
                     {canEdit ? (
                       <Link href={`/parts/${p.id}`} className="text-copper-700 underline">
                         {p.sku}
@@ -133,7 +133,7 @@ export function PartsTable({
                       p.sku
                     )}
                   </td>
-                  <td className="px-4 py-2 font-medium sm:font-normal">
+                  <td className="min-w-32 px-4 py-2 font-medium [overflow-wrap:anywhere] sm:font-normal">
                     {p.name}
                     <p className="text-xs font-normal text-ink-600">{p.brand}</p>
                   </td>

@@ -44,8 +44,55 @@ const portalFixtures: Record<string, string> = {
   "/my/invoices/[id]": `/my/invoices/${randomUUID()}`,
 };
 
+/**
+ * The longest unbroken text the schemas take, in the demo shop's lists (a customer and their
+ * vehicle, a build, a part, a supplier): a person's long word must wrap, not widen the page.
+ * Copies of demo rows with those fields replaced; removed again after the walk.
+ */
+const LONG = "W".repeat(200);
+const longIds = {
+  customer: randomUUID(),
+  vehicle: randomUUID(),
+  build: randomUUID(),
+  part: randomUUID(),
+  supplier: randomUUID(),
+};
+async function addLongestText() {
+  const shop = "demo-shop-ridgeback";
+  const copy = (table: string, where: string, over: Record<string, unknown>) =>
+    sql.unsafe(
+      `insert into ${table} select (jsonb_populate_record(t, $1::text::jsonb)).* from ${table} t
+       where t.shop_id = '${shop}' ${where} limit 1`,
+      [JSON.stringify(over)],
+    );
+  const tag = longIds.customer.slice(0, 8);
+  // Lengths: lib/validations (customer name 120, vehicle model 80, build title 120, part name
+  // 200 and SKU 60, supplier name 120).
+  await copy("customers", "", {
+    id: longIds.customer,
+    name: LONG.slice(0, 120),
+    email: `long-${tag}@example.test`,
+    phone: null,
+  });
+  await copy("vehicles", "", {
+    id: longIds.vehicle,
+    customer_id: longIds.customer,
+    model: LONG.slice(0, 80),
+    vin: null,
+  });
+  await copy("builds", `and t.id = '${DEMO_BUILD}'`, {
+    id: longIds.build,
+    customer_id: longIds.customer,
+    title: LONG.slice(0, 120),
+  });
+  await copy("parts", "", { id: longIds.part, sku: `L${tag}${LONG}`.slice(0, 60), name: LONG });
+  // The demo shop starts with no supplier: this one is also the walk's supplier page.
+  await sql`insert into suppliers (id, shop_id, name) values (${longIds.supplier}, ${shop}, ${LONG.slice(0, 120)})`;
+}
+
 beforeAll(async () => {
   mkdirSync(shots, { recursive: true });
+  await addLongestText();
   browser = await launchBrowser();
   const ctx = await newClient(browser);
   const page = await ctx.newPage();
@@ -68,6 +115,11 @@ beforeAll(async () => {
 }, 600_000);
 afterAll(async () => {
   await browser?.close();
+  await sql`delete from builds where id = ${longIds.build}`;
+  await sql`delete from vehicles where id = ${longIds.vehicle}`;
+  await sql`delete from customers where id = ${longIds.customer}`;
+  await sql`delete from parts where id = ${longIds.part}`;
+  await sql`delete from suppliers where id = ${longIds.supplier}`;
   await sql.end();
 });
 
@@ -163,6 +215,40 @@ describe("phone (390 px) and tablet (768 px): every page as every role", () => {
     },
     900_000,
   );
+
+  it("the longest words the forms take wrap in the lists and on their own pages, at both widths", async () => {
+    const ctx = await newClient(browser, PHONE);
+    const page = await ctx.newPage();
+    await signInAs(page, "owner");
+    const word = "W".repeat(40);
+    for (const url of [
+      "/builds",
+      `/builds/${longIds.build}`,
+      "/parts",
+      `/parts/${longIds.part}`,
+      "/customers",
+      `/customers/${longIds.customer}`,
+      "/purchasing",
+      `/purchasing/suppliers/${longIds.supplier}`,
+    ]) {
+      for (const size of [PHONE, TABLET]) {
+        await page.setViewportSize(size);
+        await page.goto(url);
+        await page.waitForLoadState("networkidle");
+        // The long text is on the page (else this proves nothing) and the page is no wider.
+        expect(await page.locator("main").innerText(), url).toContain(word);
+        const m = await measure(page);
+        // As the walk: no wider than the screen, nothing scrolling sideways (what sticks out is
+        // said only as a clue: a table's visually hidden header row may).
+        expect({ url, width: m.scrollWidth, scrollers: m.scrollers }, m.past.join()).toEqual({
+          url,
+          width: size.width,
+          scrollers: [],
+        });
+      }
+    }
+    await ctx.close();
+  }, 300_000);
 
   it("the customer: every portal page fits (the quote page found from their list)", async () => {
     const ctx = await newClient(browser, PHONE);

@@ -85,7 +85,7 @@ export default async function CustomersPage({
                           {c.email ?? "No e-mail"}
                         </span>
                         {vehicles(c) ? (
-                          <span className="block text-xs text-ink-600 md:hidden">
+                          <span className="block text-xs [overflow-wrap:anywhere] text-ink-600 md:hidden">
                             {vehicles(c)}
                           </span>
                         ) : null}
@@ -96,7 +96,9 @@ export default async function CustomersPage({
                       <td className="px-4 py-2 whitespace-nowrap" data-testid="customer-phone">
                         {formatPhone(c.phone, context.shopCountry) || "—"}
                       </td>
-                      <td className="hidden px-4 py-2 md:table-cell">{vehicles(c) || "—"}</td>
+                      <td className="hidden px-4 py-2 [overflow-wrap:anywhere] md:table-cell">
+                        {vehicles(c) || "—"}
+                      </td>
                     </tr>
                   ))}
                 </tbody>

@@ -146,7 +146,7 @@ export default async function PurchasingPage() {
         ) : (
           <ul className="mb-4 divide-y divide-ink-100 rounded-lg border border-ink-200 bg-white text-sm">
             {suppliers.map((s) => (
-              <li key={s.id} className="px-4 py-2">
+              <li key={s.id} className="px-4 py-2 [overflow-wrap:anywhere]">
                 <Link
                   href={`/purchasing/suppliers/${s.id}`}
                   className="font-medium text-copper-700 underline"
