@@ -167,7 +167,7 @@ export function KitPicker({
                       onChange={() => setPick((p) => ({ ...p, [r.role]: key(c) }))}
                       aria-label={`${r.label}: ${c.quantity} × ${c.part.sku}`}
                     />
-                    <span>
+                    <span className="min-w-0 [overflow-wrap:anywhere]">
                       <span className="font-medium">
                         {c.quantity > 1 ? `${c.quantity} × ` : ""}
                         {c.part.brand} {c.part.name}

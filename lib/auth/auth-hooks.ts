@@ -106,9 +106,19 @@ async function guardOrganizationEndpoints(ctx: HookCtx) {
   }
 }
 
+/**
+ * A new password ends every other session the person has, as a reset does, whatever the caller
+ * asks (the auth library's change-password takes `revokeOtherSessions: false` otherwise).
+ */
+function revokeOnPasswordChange(ctx: HookCtx) {
+  if (ctx.path !== "/change-password" || !ctx.body || typeof ctx.body !== "object") return;
+  (ctx.body as Record<string, unknown>).revokeOtherSessions = true;
+}
+
 export const beforeAuthHook = createAuthMiddleware(async (ctx) => {
   await limitSignInAndSignUp(ctx);
   await guardOrganizationEndpoints(ctx);
+  revokeOnPasswordChange(ctx);
 });
 
 export const afterAuthHook = createAuthMiddleware(async (ctx) => {

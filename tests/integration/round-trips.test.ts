@@ -113,6 +113,24 @@ describe("the cost of being signed in", () => {
     }
   });
 
+  it("a password change ends the person's other sessions at once, whatever the caller asks", async () => {
+    const shop = await makeOtherShop();
+    const a = await signIn(shop.email, shop.password);
+    const b = await signIn(shop.email, shop.password);
+    expect((await request(b, "GET", "/api/v1/builds")).status).toBe(200);
+    const changed = await request(a, "POST", "/api/auth/change-password", {
+      currentPassword: shop.password,
+      newPassword: "a-new-password-42",
+      revokeOtherSessions: false,
+    });
+    expect(changed.status).toBe(200);
+    expect((await request(b, "GET", "/api/v1/builds")).status).toBe(401);
+    expect((await request(b, "POST", "/api/v1/calc/size", boostedSix)).status).toBe(401);
+    // The new password signs in; the old one no longer does.
+    await signIn(shop.email, "a-new-password-42");
+    await expect(signIn(shop.email, shop.password)).rejects.toThrow(/401/);
+  });
+
   it("a session revoked or expired elsewhere ends as soon as the database tells the app", async () => {
     const keep = async (c: Client) =>
       once(

@@ -49,7 +49,7 @@ export default async function BuildPage({ params }: { params: Promise<{ id: stri
           <h1 className="text-2xl font-bold text-ink-900">
             Build sheet<span className="sr-only">: {b.title}</span>
           </h1>
-          <p className="text-sm text-ink-600">
+          <p className="text-sm [overflow-wrap:anywhere] text-ink-600">
             <Link href={`/customers/${b.customerId}`} className="text-copper-700 underline">
               {row.customerName}
             </Link>

@@ -23,7 +23,7 @@ import { VehiclesPanel } from "./vehicles-panel";
 
 const PAYMENT_LABELS = { pending: "Pending", paid: "Paid", expired: "Expired" } as const;
 
-const card = "mt-6 rounded-lg border border-ink-200 bg-white p-5";
+const card = "mt-6 rounded-lg border border-ink-200 bg-white p-5 [overflow-wrap:anywhere]";
 
 export default async function CustomerPage({ params }: { params: Promise<{ id: string }> }) {
   const m = await requirePageMember("customers:read");
@@ -64,7 +64,7 @@ export default async function CustomerPage({ params }: { params: Promise<{ id: s
         {[phone, c.email, address.join(", ")].filter(Boolean).join(" · ") ||
           "No phone, e-mail or address yet."}
       </p>
-      <div className="grid gap-x-6 lg:grid-cols-2">
+      <div className="grid grid-cols-1 gap-x-6 lg:grid-cols-2">
         <div>
           <section aria-labelledby="cust-vehicles" className={card}>
             <h2 id="cust-vehicles" className="text-xl font-semibold">
