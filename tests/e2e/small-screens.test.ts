@@ -47,7 +47,8 @@ const portalFixtures: Record<string, string> = {
 /**
  * The longest unbroken text the schemas take, in the demo shop's lists (a customer and their
  * vehicle, a build, a part, a supplier): a person's long word must wrap, not widen the page.
- * Copies of demo rows with those fields replaced; removed again after the walk.
+ * Copies of demo rows with those fields replaced; removed again after the walk (with the portal
+ * customer's quote added below).
  */
 const LONG = "W".repeat(200);
 const longIds = {
@@ -56,7 +57,10 @@ const longIds = {
   build: randomUUID(),
   part: randomUUID(),
   supplier: randomUUID(),
+  quote: randomUUID(),
 };
+/** The demo customer who signs in to the portal (db/seed.ts). */
+const PORTAL_CUSTOMER = "00000000-0000-4000-8000-000000000001";
 async function addLongestText() {
   const shop = "demo-shop-ridgeback";
   const copy = (table: string, where: string, over: Record<string, unknown>) =>
@@ -86,6 +90,26 @@ async function addLongestText() {
     title: LONG.slice(0, 120),
   });
   await copy("parts", "", { id: longIds.part, sku: `L${tag}${LONG}`.slice(0, 60), name: LONG });
+  // The portal customer's own sent quote (a copy of the demo shop's sent one, lines and all),
+  // so the portal walk finds a quote page whatever other test files have or have not sent.
+  const [src] = await sql<{ id: string }[]>`
+    select id from quotes where shop_id = ${shop} and status = 'sent' order by created_at limit 1`;
+  await sql.unsafe(
+    `insert into quotes select (jsonb_populate_record(q, $1::text::jsonb)).* from quotes q where q.id = $2`,
+    [
+      JSON.stringify({
+        id: longIds.quote,
+        customer_id: PORTAL_CUSTOMER,
+        build_id: null,
+        number: 900_000 + Math.floor(Math.random() * 99_999),
+      }),
+      src!.id,
+    ],
+  );
+  await sql.unsafe(
+    `insert into quote_lines select (jsonb_populate_record(l, jsonb_build_object('id', gen_random_uuid(), 'quote_id', $1::uuid))).* from quote_lines l where l.quote_id = $2`,
+    [longIds.quote, src!.id],
+  );
   // The demo shop starts with no supplier: this one is also the walk's supplier page.
   await sql`insert into suppliers (id, shop_id, name) values (${longIds.supplier}, ${shop}, ${LONG.slice(0, 120)})`;
 }
@@ -120,6 +144,8 @@ afterAll(async () => {
   await sql`delete from customers where id = ${longIds.customer}`;
   await sql`delete from parts where id = ${longIds.part}`;
   await sql`delete from suppliers where id = ${longIds.supplier}`;
+  await sql`delete from quote_lines where quote_id = ${longIds.quote}`;
+  await sql`delete from quotes where id = ${longIds.quote}`;
   await sql.end();
 });
 
